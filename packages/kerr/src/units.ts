@@ -1,0 +1,82 @@
+/**
+ * Conversion between geometric units (G = c = hbar = k_B = 1, lengths in units
+ * of the hole mass M) and SI / particle-physics units.
+ *
+ * Constants: CODATA 2018 recommended values (Tiesinga et al., Rev. Mod. Phys.
+ * 93, 025010 (2021)); c, h, k_B and e are exact in the 2019 SI. The solar mass
+ * is the IAU 2015 nominal solar mass parameter GM_sun (Resolution B3) divided
+ * by CODATA G.
+ */
+import { InputError, requireFinite } from './errors.js';
+
+export const CODATA2018 = {
+  /** speed of light in vacuum, m s^-1 (exact) */
+  c: 299792458,
+  /** Newtonian constant of gravitation, m^3 kg^-1 s^-2 */
+  G: 6.6743e-11,
+  /** reduced Planck constant, J s (exact: h / 2 pi with h = 6.62607015e-34) */
+  hbar: 6.62607015e-34 / (2 * Math.PI),
+  /** Boltzmann constant, J K^-1 (exact) */
+  kB: 1.380649e-23,
+  /** elementary charge = joules per electronvolt (exact) */
+  eV: 1.602176634e-19,
+} as const;
+
+/** IAU 2015 nominal solar mass parameter, m^3 s^-2 (Resolution B3). */
+export const GM_SUN_IAU2015 = 1.3271244e20;
+/** Solar mass in kg, GM_sun / G. */
+export const SOLAR_MASS_KG = GM_SUN_IAU2015 / CODATA2018.G;
+
+export type MassUnit = 'g' | 'kg' | 'msun';
+export const MASS_UNITS: readonly MassUnit[] = ['g', 'kg', 'msun'];
+
+/** Convert a mass in the given unit to kilograms. */
+export function massToKg(mass: number, unit: MassUnit): number {
+  requireFinite('mass', mass, 'a finite number > 0');
+  if (!(mass > 0)) throw new InputError('mass', 'a finite number > 0', mass);
+  switch (unit) {
+    case 'g':
+      return mass * 1e-3;
+    case 'kg':
+      return mass;
+    case 'msun':
+      return mass * SOLAR_MASS_KG;
+    default:
+      throw new InputError('unit', "one of 'g', 'kg', 'msun'", unit);
+  }
+}
+
+/**
+ * Scale factors that turn a geometric-unit quantity of a hole of mass M (kg)
+ * into SI: a geometric time t·M becomes t·GM/c^3 seconds, an energy E/M
+ * becomes E·hbar c^3/(G M) joules, a temperature T/M becomes
+ * T·hbar c^3/(G M k_B) kelvin.
+ */
+export interface UnitScales {
+  massKg: number;
+  /** seconds per geometric time unit M */
+  second: number;
+  /** metres per geometric length unit M */
+  metre: number;
+  /** joules per geometric energy unit 1/M (hbar = 1) */
+  joule: number;
+  /** GeV per geometric energy unit 1/M */
+  GeV: number;
+  /** kelvin per geometric temperature unit 1/M */
+  kelvin: number;
+}
+
+export function unitScales(massKg: number): UnitScales {
+  const { c, G, hbar, kB, eV } = CODATA2018;
+  if (!(massKg > 0) || !Number.isFinite(massKg)) throw new InputError('mass', 'a finite number > 0', massKg);
+  const second = (G * massKg) / c ** 3;
+  const joule = hbar / second;
+  return {
+    massKg,
+    second,
+    metre: (G * massKg) / c ** 2,
+    joule,
+    GeV: joule / (eV * 1e9),
+    kelvin: joule / kB,
+  };
+}
