@@ -1,1 +1,11 @@
-export {};
+export {
+  type SpheroidalQuery,
+  type SpheroidalDiagnostics,
+  type SpheroidalEigenvalue,
+  type SolveOptions,
+  spheroidalEigenvalue,
+  radialSeparationConstant,
+  clearSpheroidalCache,
+} from './eigenvalue.js';
+export { SUPPORTED_SPINS, MAX_L, MAX_REAL_C, sphericalEigenvalue } from './quantum.js';
+export { leaverFunction, leaverRoot } from './leaver.js';

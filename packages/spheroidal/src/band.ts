@@ -1,0 +1,172 @@
+import { cosDiagonal, cosOffDiagonal } from './coupling.js';
+import { lowestL, sphericalEigenvalue } from './quantum.js';
+
+/**
+ * The spectral matrix K(c) = diag((l−s)(l+s+1)) − c² X² + 2cs X in the
+ * basis u_l, l = lFirst, lFirst + stride, … (X = matrix of cosθ). Its
+ * eigenvalues are the A_{slm}(c). Stored by diagonals: K is symmetric and
+ * pentadiagonal (tridiagonal when stride = 2).
+ *
+ * For s = 0 the problem has parity x → −x, K only couples l to l ± 2, and we
+ * keep just the parity block of the wanted l: in that block the eigenvalues are
+ * well separated, whereas across blocks they pair up exponentially closely at
+ * large |c|.
+ */
+export interface Band {
+  s: number;
+  m: number;
+  c: number;
+  lFirst: number;
+  stride: 1 | 2;
+  size: number;
+  d0: Float64Array;
+  d1: Float64Array;
+  d2: Float64Array;
+  /** ∂K/∂c, for Hellmann–Feynman derivatives dA/dc. */
+  e0: Float64Array;
+  e1: Float64Array;
+  e2: Float64Array;
+  /** max row sum of |K|: the scale for tolerances. */
+  norm: number;
+}
+
+export function basisLayout(s: number, l: number, m: number): { lFirst: number; stride: 1 | 2; index: number } {
+  const lmin = lowestL(s, m);
+  if (s === 0) {
+    const parity = (l - lmin) % 2;
+    return { lFirst: lmin + parity, stride: 2, index: (l - lmin - parity) / 2 };
+  }
+  return { lFirst: lmin, stride: 1, index: l - lmin };
+}
+
+export function buildBand(s: number, m: number, c: number, lFirst: number, stride: 1 | 2, size: number): Band {
+  // Full (stride 1) diagonals over l = lFirst … lFirst + stride·(size−1) + 2.
+  const fullSize = stride * (size - 1) + 3;
+  const a = new Float64Array(fullSize + 1);
+  const b = new Float64Array(fullSize + 1);
+  for (let j = 0; j <= fullSize; j++) {
+    const l = lFirst + j;
+    a[j] = cosOffDiagonal(l, m, s);
+    b[j] = cosDiagonal(l, m, s);
+  }
+  const aBelow = cosOffDiagonal(lFirst - 1, m, s); // a(l−1) for l = lFirst (zero when lFirst = lmin)
+  const d0 = new Float64Array(size);
+  const d1 = new Float64Array(size);
+  const d2 = new Float64Array(size);
+  const e0 = new Float64Array(size);
+  const e1 = new Float64Array(size);
+  const e2 = new Float64Array(size);
+  const c2 = c * c;
+  for (let i = 0; i < size; i++) {
+    const j = stride * i;
+    const l = lFirst + j;
+    const aPrev = j === 0 ? aBelow : a[j - 1];
+    const x2Diag = aPrev * aPrev + b[j] * b[j] + a[j] * a[j];
+    const x2Next = a[j] * (b[j] + b[j + 1]);
+    const x2Skip = a[j] * a[j + 1];
+    d0[i] = sphericalEigenvalue(s, l) - c2 * x2Diag + 2 * c * s * b[j];
+    e0[i] = -2 * c * x2Diag + 2 * s * b[j];
+    if (stride === 1) {
+      d1[i] = -c2 * x2Next + 2 * c * s * a[j];
+      e1[i] = -2 * c * x2Next + 2 * s * a[j];
+      d2[i] = -c2 * x2Skip;
+      e2[i] = -2 * c * x2Skip;
+    } else {
+      d1[i] = -c2 * x2Skip;
+      e1[i] = -2 * c * x2Skip;
+    }
+  }
+  let norm = 0;
+  for (let i = 0; i < size; i++) {
+    const row =
+      Math.abs(d0[i]) +
+      Math.abs(d1[i]) +
+      Math.abs(d2[i]) +
+      (i > 0 ? Math.abs(d1[i - 1]) : 0) +
+      (i > 1 ? Math.abs(d2[i - 2]) : 0);
+    if (row > norm) norm = row;
+  }
+  return { s, m, c, lFirst, stride, size, d0, d1, d2, e0, e1, e2, norm: Math.max(norm, 1) };
+}
+
+/** y = K x for a banded symmetric matrix given by its diagonals. */
+export function bandMultiply(
+  d0: Float64Array,
+  d1: Float64Array,
+  d2: Float64Array,
+  n: number,
+  x: Float64Array,
+  y: Float64Array,
+): void {
+  for (let i = 0; i < n; i++) {
+    let v = d0[i] * x[i];
+    if (i + 1 < n) v += d1[i] * x[i + 1];
+    if (i + 2 < n) v += d2[i] * x[i + 2];
+    if (i >= 1) v += d1[i - 1] * x[i - 1];
+    if (i >= 2) v += d2[i - 2] * x[i - 2];
+    y[i] = v;
+  }
+}
+
+/** xᵀ K x. */
+export function bandQuadratic(d0: Float64Array, d1: Float64Array, d2: Float64Array, n: number, x: Float64Array): number {
+  let q = 0;
+  for (let i = 0; i < n; i++) {
+    let v = d0[i] * x[i];
+    if (i + 1 < n) v += 2 * d1[i] * x[i + 1];
+    if (i + 2 < n) v += 2 * d2[i] * x[i + 2];
+    q += x[i] * v;
+  }
+  return q;
+}
+
+/** Workspace for the LDLᵀ factorisation of K − σI (no pivoting). */
+export class BandFactor {
+  readonly D: Float64Array;
+  readonly L1: Float64Array;
+  readonly L2: Float64Array;
+  constructor(readonly capacity: number) {
+    this.D = new Float64Array(capacity);
+    this.L1 = new Float64Array(capacity);
+    this.L2 = new Float64Array(capacity);
+  }
+
+  /**
+   * Factor K − σI = L D Lᵀ and return the number of negative pivots, which by
+   * Sylvester's law of inertia is the number of eigenvalues below σ. Tiny
+   * pivots are nudged to ±pivmin, as in LAPACK's Sturm counts.
+   */
+  factor(band: Band, n: number, sigma: number): number {
+    const { d0, d1, d2 } = band;
+    const { D, L1, L2 } = this;
+    const pivmin = 1e-300 + 1e-30 * band.norm;
+    let negatives = 0;
+    for (let i = 0; i < n; i++) {
+      let d = d0[i] - sigma;
+      if (i >= 1) d -= L1[i - 1] * L1[i - 1] * D[i - 1];
+      if (i >= 2) d -= L2[i - 2] * L2[i - 2] * D[i - 2];
+      if (Math.abs(d) < pivmin) d = d < 0 ? -pivmin : pivmin;
+      D[i] = d;
+      if (d < 0) negatives++;
+      let off = i + 1 < n ? d1[i] : 0;
+      if (i >= 1 && i + 1 < n) off -= L2[i - 1] * L1[i - 1] * D[i - 1];
+      L1[i] = off / d;
+      L2[i] = i + 2 < n ? d2[i] / d : 0;
+    }
+    return negatives;
+  }
+
+  /** Solve (K − σI) y = x in place using the last factorisation. */
+  solve(n: number, x: Float64Array): void {
+    const { D, L1, L2 } = this;
+    for (let i = 1; i < n; i++) {
+      x[i] -= L1[i - 1] * x[i - 1];
+      if (i >= 2) x[i] -= L2[i - 2] * x[i - 2];
+    }
+    for (let i = 0; i < n; i++) x[i] /= D[i];
+    for (let i = n - 2; i >= 0; i--) {
+      x[i] -= L1[i] * x[i + 1];
+      if (i + 2 < n) x[i] -= L2[i] * x[i + 2];
+    }
+  }
+}

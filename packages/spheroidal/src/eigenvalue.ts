@@ -1,0 +1,179 @@
+import { ConvergenceError, InputError, requireFinite } from '@penumbra/kerr';
+import { basisLayout } from './band.js';
+import { leaverRoot } from './leaver.js';
+import { checkModeNumbers, checkRealC, lowestL, sphericalEigenvalue } from './quantum.js';
+import { type SpectralSolution, estimateSize, solveDense, solveWarm } from './spectral.js';
+
+export interface SpheroidalQuery {
+  s: number;
+  l: number;
+  m: number;
+  c: number;
+}
+
+export interface SpheroidalDiagnostics {
+  /** 'exact' (c = 0), 'spectral-dense', 'spectral-rqi', or either of the latter + '+leaver'. */
+  method: string;
+  /** Number of spin-weighted spherical harmonics kept in the expansion. */
+  truncation: number;
+  /** ‖K b − A b‖ / ‖K‖ of the spectral eigenpair. */
+  residual: number;
+  /** Spectral iterations (RQI steps or dense attempts) plus Newton steps on the continued fraction. */
+  iterations: number;
+  /** |A_spectral − A_Leaver| / max(1, |A|): the two independent methods' disagreement. */
+  agreement?: number;
+  /** Depth reached by the continued fraction. */
+  continuedFractionDepth?: number;
+}
+
+export interface SpheroidalEigenvalue {
+  s: number;
+  l: number;
+  m: number;
+  c: number;
+  /** Angular separation constant A_{slm}(c); A(0) = (l − s)(l + s + 1). */
+  A: number;
+  /** E = A + s(s + 1), symmetric under s → −s. */
+  E: number;
+  diagnostics: SpheroidalDiagnostics;
+}
+
+export interface SolveOptions {
+  /** Polish the spectral eigenvalue with Newton on Leaver's continued fraction (default true). */
+  polish?: boolean;
+  /** Use and update the per-mode continuation cache (default true). */
+  continuation?: boolean;
+}
+
+/** Largest disagreement between spectral and continued-fraction values that we accept. */
+const AGREEMENT_LIMIT = 1e-9;
+
+interface ModeState {
+  c: number;
+  polish: boolean;
+  result: SpheroidalEigenvalue;
+  spectral: SpectralSolution | null;
+}
+
+/** Last solved point of each mode, for warm starts and exact repeats. */
+const modeCache = new Map<string, ModeState>();
+const MODE_CACHE_LIMIT = 4096;
+
+function modeKey(s: number, l: number, m: number): string {
+  return `${2 * s},${2 * l},${2 * m}`;
+}
+
+/** Forget every cached mode (for benchmarks of the cold path). */
+export function clearSpheroidalCache(): void {
+  modeCache.clear();
+}
+
+export interface SolvedMode {
+  result: SpheroidalEigenvalue;
+  spectral: SpectralSolution | null;
+}
+
+export function solveMode(q: SpheroidalQuery, options: SolveOptions = {}): SolvedMode {
+  if (q === null || typeof q !== 'object') throw new InputError('query', 'an object { s, l, m, c }', q);
+  checkModeNumbers(q);
+  const c = checkRealC(q.c);
+  const { s, l, m } = q;
+  const polish = options.polish ?? true;
+  const useCache = options.continuation ?? true;
+  const key = modeKey(s, l, m);
+  const previous = useCache ? modeCache.get(key) : undefined;
+  if (previous && previous.c === c && previous.polish === polish) {
+    return { result: previous.result, spectral: previous.spectral };
+  }
+
+  if (c === 0) {
+    const A = sphericalEigenvalue(s, l);
+    const result: SpheroidalEigenvalue = {
+      s, l, m, c, A, E: A + s * (s + 1),
+      diagnostics: { method: 'exact', truncation: 1, residual: 0, iterations: 0 },
+    };
+    if (useCache) remember(key, { c, polish, result, spectral: null });
+    return { result, spectral: null };
+  }
+
+  const { lFirst, stride, index } = basisLayout(s, l, m);
+  let spectral: SpectralSolution | null = null;
+  if (previous) {
+    const prevA = previous.result.A;
+    const dAdc = previous.spectral ? previous.spectral.dAdc : 0;
+    const guess = prevA + dAdc * (c - previous.c);
+    const size = estimateSize(s, m, c, lFirst, stride, index, guess);
+    spectral = solveWarm(s, m, c, lFirst, stride, index, size, guess, previous.spectral?.vector ?? null);
+  } else if (Math.abs(c) <= 0.5) {
+    // Close to the sphere the c = 0 eigenpair is a safe start for the banded iteration.
+    const guess = sphericalEigenvalue(s, l);
+    const size = estimateSize(s, m, c, lFirst, stride, index, guess);
+    spectral = solveWarm(s, m, c, lFirst, stride, index, size, guess, null);
+  }
+  if (!spectral) {
+    const guess = sphericalEigenvalue(s, l) - 0.5 * c * c;
+    spectral = solveDense(s, m, c, lFirst, stride, index, estimateSize(s, m, c, lFirst, stride, index, guess));
+  }
+
+  let A = spectral.A;
+  const diagnostics: SpheroidalDiagnostics = {
+    method: spectral.method,
+    truncation: spectral.band.size,
+    residual: spectral.residual,
+    iterations: spectral.iterations,
+  };
+  if (polish) {
+    // The spectral pair is already verified (tail, residual, Sylvester count);
+    // the continued fraction refines it only when both methods agree.
+    const scale = Math.max(1, Math.abs(A));
+    try {
+      const root = leaverRoot(s, m, c, A, l - lowestL(s, m), spectral.band.norm);
+      const agreement = Math.abs(root.A - A) / scale;
+      diagnostics.agreement = agreement;
+      diagnostics.continuedFractionDepth = root.depth;
+      if (agreement <= AGREEMENT_LIMIT) {
+        A = root.A;
+        diagnostics.method += '+leaver';
+        diagnostics.iterations += root.iterations;
+      } else {
+        diagnostics.method += ' (leaver rejected)';
+      }
+    } catch (error) {
+      if (!(error instanceof ConvergenceError)) throw error;
+      diagnostics.method += ' (leaver failed)';
+    }
+  }
+  const result: SpheroidalEigenvalue = { s, l, m, c, A, E: A + s * (s + 1), diagnostics };
+  if (useCache) remember(key, { c, polish, result, spectral });
+  return { result, spectral };
+}
+
+function remember(key: string, state: ModeState): void {
+  if (!modeCache.has(key) && modeCache.size >= MODE_CACHE_LIMIT) {
+    const oldest = modeCache.keys().next().value;
+    if (oldest !== undefined) modeCache.delete(oldest);
+  }
+  modeCache.set(key, state);
+}
+
+/**
+ * Spin-weighted spheroidal eigenvalue A_{slm}(c) for real c = aω, in the
+ * convention of the angular equation
+ *   (1/sinθ)(sinθ S′)′ + (c²cos²θ − m²/sin²θ − 2cs cosθ − 2ms cosθ/sin²θ − s²cot²θ + s + A) S = 0.
+ * Spectral expansion in spin-weighted spherical harmonics (warm-started from
+ * the last c solved for the same mode), polished by Newton on Leaver's
+ * continued fraction. Throws InputError for bad quantum numbers or c, and
+ * ConvergenceError if either method fails or they disagree.
+ */
+export function spheroidalEigenvalue(q: SpheroidalQuery, options?: SolveOptions): SpheroidalEigenvalue {
+  return solveMode(q, options).result;
+}
+
+/** λ = A + a²ω² − 2amω, the radial separation constant */
+export function radialSeparationConstant(A: number, a: number, omega: number, m: number): number {
+  requireFinite('A', A);
+  requireFinite('a', a);
+  requireFinite('omega', omega);
+  requireFinite('m', m);
+  return A + a * a * omega * omega - 2 * a * m * omega;
+}

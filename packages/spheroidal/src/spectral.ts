@@ -1,0 +1,184 @@
+import { ConvergenceError } from '@penumbra/kerr';
+import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
+import { type Band, BandFactor, bandMultiply, bandQuadratic, buildBand } from './band.js';
+import { cosDiagonal, cosOffDiagonal } from './coupling.js';
+import { sphericalEigenvalue } from './quantum.js';
+
+/** Trailing coefficients of a normalised eigenvector must be below this. */
+export const TAIL_TOLERANCE = 1e-16;
+
+export interface SpectralSolution {
+  A: number;
+  /** Normalised eigenvector (Σ b² = 1) in the basis of the band. */
+  vector: Float64Array;
+  band: Band;
+  /** dA/dc from Hellmann–Feynman, bᵀ (∂K/∂c) b. */
+  dAdc: number;
+  /** ‖K b − A b‖ / ‖K‖. */
+  residual: number;
+  iterations: number;
+  method: 'spectral-dense' | 'spectral-rqi';
+}
+
+/**
+ * Truncation rule: follow the perturbative decay of the coefficients away
+ * from the wanted one, b_{i+1}/b_i ≈ (coupling)/(distance of diagonal entries),
+ * until the accumulated product is far below the tail tolerance. The resulting
+ * size is then verified on the actual eigenvector (see `tailIsConverged`).
+ */
+export function estimateSize(
+  s: number,
+  m: number,
+  c: number,
+  lFirst: number,
+  stride: 1 | 2,
+  index: number,
+  aGuess: number,
+): number {
+  let logAmp = 0;
+  const c2 = c * c;
+  for (let i = index; ; i++) {
+    const l = lFirst + stride * i;
+    const a0 = cosOffDiagonal(l, m, s);
+    const a1 = cosOffDiagonal(l + 1, m, s);
+    let coupling: number;
+    if (stride === 1) {
+      coupling = Math.abs(c2 * a0 * (cosDiagonal(l, m, s) + cosDiagonal(l + 1, m, s)) - 2 * c * s * a0) + c2 * a0 * a1;
+    } else {
+      coupling = c2 * a0 * a1;
+    }
+    const gap = Math.max(Math.abs(sphericalEigenvalue(s, l + stride) - c2 * 0.5 - aGuess), 1);
+    const ratio = coupling / gap;
+    logAmp += Math.log(Math.max(ratio, 1e-300));
+    if (i >= index + 2 && ratio < 0.5 && logAmp < Math.log(1e-22)) return i + 4;
+    if (i > index + 4000) return i;
+  }
+}
+
+function tailIsConverged(vector: Float64Array, size: number, stride: 1 | 2): boolean {
+  const tail = stride === 1 ? Math.max(Math.abs(vector[size - 1]), Math.abs(vector[size - 2])) : Math.abs(vector[size - 1]);
+  return tail < TAIL_TOLERANCE;
+}
+
+function finishSolution(band: Band, vector: Float64Array, iterations: number, method: SpectralSolution['method']): SpectralSolution {
+  const n = band.size;
+  let norm2 = 0;
+  for (let i = 0; i < n; i++) norm2 += vector[i] * vector[i];
+  const inv = 1 / Math.sqrt(norm2);
+  for (let i = 0; i < n; i++) vector[i] *= inv;
+  const A = bandQuadratic(band.d0, band.d1, band.d2, n, vector);
+  const dAdc = bandQuadratic(band.e0, band.e1, band.e2, n, vector);
+  const kv = new Float64Array(n);
+  bandMultiply(band.d0, band.d1, band.d2, n, vector, kv);
+  let r2 = 0;
+  for (let i = 0; i < n; i++) {
+    const r = kv[i] - A * vector[i];
+    r2 += r * r;
+  }
+  return { A, vector, band, dAdc, residual: Math.sqrt(r2) / band.norm, iterations, method };
+}
+
+/** Dense symmetric eigen-solve (ml-matrix) of the truncated matrix: the cold start. */
+export function solveDense(
+  s: number,
+  m: number,
+  c: number,
+  lFirst: number,
+  stride: 1 | 2,
+  index: number,
+  initialSize: number,
+): SpectralSolution {
+  let size = Math.max(initialSize, index + 3);
+  for (let attempt = 0; attempt < 8; attempt++) {
+    const band = buildBand(s, m, c, lFirst, stride, size);
+    const K = new Matrix(size, size);
+    for (let i = 0; i < size; i++) {
+      K.set(i, i, band.d0[i]);
+      if (i + 1 < size) {
+        K.set(i, i + 1, band.d1[i]);
+        K.set(i + 1, i, band.d1[i]);
+      }
+      if (i + 2 < size) {
+        K.set(i, i + 2, band.d2[i]);
+        K.set(i + 2, i, band.d2[i]);
+      }
+    }
+    const evd = new EigenvalueDecomposition(K, { assumeSymmetric: true });
+    const values = evd.realEigenvalues;
+    const order = values.map((_, i) => i).sort((p, q) => values[p] - values[q]);
+    const column = order[index];
+    const V = evd.eigenvectorMatrix;
+    const vector = new Float64Array(size);
+    for (let i = 0; i < size; i++) vector[i] = V.get(i, column);
+    if (tailIsConverged(vector, size, stride)) return finishSolution(band, vector, attempt + 1, 'spectral-dense');
+    size = Math.ceil(size * 1.5) + 8;
+  }
+  throw new ConvergenceError('spheroidal spectral expansion did not converge', { s, m, c, index, size });
+}
+
+const factorCache = { factor: new BandFactor(64) };
+function workspace(n: number): BandFactor {
+  if (factorCache.factor.capacity < n) factorCache.factor = new BandFactor(Math.max(n, 2 * factorCache.factor.capacity));
+  return factorCache.factor;
+}
+
+/**
+ * Warm start: Rayleigh-quotient iteration on the banded matrix from a predicted
+ * eigenvalue and eigenvector, O(size) per step. The Sylvester inertia of
+ * K − (A ± δ)I then proves that A is the index-th eigenvalue. Returns null when
+ * the iteration fails or lands on another eigenvalue, so the caller can fall back
+ * to the dense solve.
+ */
+export function solveWarm(
+  s: number,
+  m: number,
+  c: number,
+  lFirst: number,
+  stride: 1 | 2,
+  index: number,
+  size: number,
+  aGuess: number,
+  vectorGuess: Float64Array | null,
+): SpectralSolution | null {
+  size = Math.max(size, index + 3);
+  for (let attempt = 0; attempt < 4; attempt++) {
+    const band = buildBand(s, m, c, lFirst, stride, size);
+    const ws = workspace(size);
+    const x = new Float64Array(size);
+    if (vectorGuess) {
+      const k = Math.min(size, vectorGuess.length);
+      for (let i = 0; i < k; i++) x[i] = vectorGuess[i];
+    } else {
+      x[index] = 1;
+    }
+    let sigma = aGuess;
+    let converged = false;
+    let iterations = 0;
+    const tol = 4e-16 * band.norm;
+    for (; iterations < 12; iterations++) {
+      ws.factor(band, size, sigma);
+      ws.solve(size, x);
+      let norm2 = 0;
+      for (let i = 0; i < size; i++) norm2 += x[i] * x[i];
+      const inv = 1 / Math.sqrt(norm2);
+      for (let i = 0; i < size; i++) x[i] *= inv;
+      const next = bandQuadratic(band.d0, band.d1, band.d2, size, x);
+      // ‖(K − σI)⁻¹x‖ large ⇔ σ is within tol of an eigenvalue.
+      const step = Math.abs(next - sigma);
+      sigma = next;
+      if (step <= tol || inv * 1 <= tol) {
+        converged = true;
+        iterations++;
+        break;
+      }
+    }
+    if (!converged) return null;
+    const delta = Math.max(1e-11 * band.norm, 1e-9);
+    if (ws.factor(band, size, sigma - delta) !== index) return null;
+    if (ws.factor(band, size, sigma + delta) !== index + 1) return null;
+    if (tailIsConverged(x, size, stride)) return finishSolution(band, x, iterations, 'spectral-rqi');
+    size = Math.ceil(size * 1.5) + 8;
+    vectorGuess = x;
+  }
+  return null;
+}
