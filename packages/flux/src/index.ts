@@ -1,1 +1,3 @@
-export {};
+export * from './normalisation.js';
+export * from './validate.js';
+export * from './greybody.js';

@@ -1,1 +1,5 @@
-export {};
+export * from './equation.js';
+export * from './horizonSeries.js';
+export * from './farSeries.js';
+export * from './solve.js';
+export * from './integrators.js';

@@ -1,0 +1,138 @@
+/**
+ * Frobenius series of the Teukolsky radial equation at the outer horizon for
+ * the solution that is ingoing there:
+ *
+ *   R = x^ν Σ d_n x^n,  x = r − r+,  ν = −s − i k (2 M r+)/(r+ − r−),
+ *
+ * normalised so that R → Δ^{−s} e^{−ikr*} with the tortoise constant of
+ * @penumbra/kerr. The series converges for x < r+ − r− (the next singular
+ * point is r−); we sum it at a fraction of that radius.
+ */
+import type { KerrHole } from '@penumbra/kerr';
+import { ConvergenceError } from '@penumbra/kerr';
+import { shift } from './complexPoly.js';
+import { potentialPoly, type RadialMode } from './equation.js';
+
+export interface HorizonStart {
+  /** x0 = r0 − r+ where the series was summed */
+  x0: number;
+  /** R(r0) and R'(r0) as [re, im] */
+  R: [number, number];
+  dR: [number, number];
+  /** number of series terms used */
+  terms: number;
+  /** magnitude of the last term relative to the sum */
+  truncation: number;
+  /** indicial exponent ν */
+  nu: [number, number];
+}
+
+const MAX_TERMS = 600;
+
+/** k = ω − mΩ_H */
+export function horizonWavenumber(hole: KerrHole, mode: RadialMode): number {
+  return mode.omega - mode.m * hole.omegaH;
+}
+
+export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number): HorizonStart {
+  const { rPlus, rMinus, mass: M } = hole;
+  const s = mode.s;
+  const b = rPlus - rMinus;
+  const k = horizonWavenumber(hole, mode);
+  const cPlus = (2 * M * rPlus) / b;
+  const cMinus = (2 * M * rMinus) / b;
+  // ν = −s − i k cPlus
+  const nuRe = -s;
+  const nuIm = -k * cPlus;
+
+  // Coefficients of Δ², (s+1)ΔΔ' and U in powers of x.
+  const A2 = b * b, A3 = 2 * b, A4 = 1;
+  const B1 = (s + 1) * b * b, B2 = 3 * (s + 1) * b, B3 = 2 * (s + 1);
+  const U = shift(potentialPoly(hole, mode), rPlus);
+  const Cre = U.re, Cim = U.im;
+  while (Cre.length < 5) { Cre.push(0); Cim.push(0); }
+
+  // d_0: |d_0| = b^{−s}; phase from the additive constant of r*.
+  const phaseConst = rPlus - cPlus * Math.log(2 * M) - cMinus * Math.log(b / (2 * M));
+  const mag0 = Math.pow(b, -s);
+  const dRe: number[] = [mag0 * Math.cos(-k * phaseConst)];
+  const dIm: number[] = [mag0 * Math.sin(-k * phaseConst)];
+
+  // Partial sums S = Σ d_n x0^n and S' = Σ (n + ν) d_n x0^n.
+  let sRe = dRe[0], sIm = dIm[0];
+  let tRe = nuRe * dRe[0] - nuIm * dIm[0];
+  let tIm = nuRe * dIm[0] + nuIm * dRe[0];
+  let pw = 1;
+  let small = 0;
+  let n = 1;
+  let truncation = 1;
+  let scaleMax = Math.hypot(sRe, sIm);
+  for (; n < MAX_TERMS; n++) {
+    // numerator = −[ (A3 (μ1)(μ1−1) + B2 μ1) d_{n−1} + (A4 (μ2)(μ2−1) + B3 μ2) d_{n−2} + Σ_j C_j d_{n−j} ]
+    let numRe = 0, numIm = 0;
+    // j = 1 term (index n−1): μ1 = n − 1 + ν
+    {
+      const mr = n - 1 + nuRe, mi = nuIm;
+      // μ(μ−1) = (mr + i mi)(mr − 1 + i mi)
+      const pr = mr * (mr - 1) - mi * mi;
+      const pi = mr * mi + mi * (mr - 1);
+      const cr = A3 * pr + B2 * mr + Cre[1];
+      const ci = A3 * pi + B2 * mi + Cim[1];
+      numRe += cr * dRe[n - 1] - ci * dIm[n - 1];
+      numIm += cr * dIm[n - 1] + ci * dRe[n - 1];
+    }
+    if (n >= 2) {
+      const mr = n - 2 + nuRe, mi = nuIm;
+      const pr = mr * (mr - 1) - mi * mi;
+      const pi = mr * mi + mi * (mr - 1);
+      const cr = A4 * pr + B3 * mr + Cre[2];
+      const ci = A4 * pi + B3 * mi + Cim[2];
+      numRe += cr * dRe[n - 2] - ci * dIm[n - 2];
+      numIm += cr * dIm[n - 2] + ci * dRe[n - 2];
+    }
+    if (n >= 3) {
+      numRe += Cre[3] * dRe[n - 3] - Cim[3] * dIm[n - 3];
+      numIm += Cre[3] * dIm[n - 3] + Cim[3] * dRe[n - 3];
+    }
+    if (n >= 4) {
+      numRe += Cre[4] * dRe[n - 4] - Cim[4] * dIm[n - 4];
+      numIm += Cre[4] * dIm[n - 4] + Cim[4] * dRe[n - 4];
+    }
+    // F(n + ν) = A2 μ(μ−1) + B1 μ + C0, μ = n + ν
+    const mr = n + nuRe, mi = nuIm;
+    const fr = A2 * (mr * (mr - 1) - mi * mi) + B1 * mr + Cre[0];
+    const fi = A2 * (mr * mi + mi * (mr - 1)) + B1 * mi + Cim[0];
+    const den = fr * fr + fi * fi;
+    // d_n = −num / F
+    const dnRe = -(numRe * fr + numIm * fi) / den;
+    const dnIm = -(numIm * fr - numRe * fi) / den;
+    dRe.push(dnRe);
+    dIm.push(dnIm);
+    pw *= x0;
+    const termRe = dnRe * pw, termIm = dnIm * pw;
+    sRe += termRe;
+    sIm += termIm;
+    tRe += mr * termRe - mi * termIm;
+    tIm += mr * termIm + mi * termRe;
+    const termMag = Math.hypot(termRe, termIm);
+    const sumMag = Math.hypot(sRe, sIm);
+    scaleMax = Math.max(scaleMax, termMag);
+    truncation = termMag / sumMag;
+    if (termMag <= 1e-17 * sumMag) {
+      if (++small >= 3) break;
+    } else small = 0;
+  }
+  if (small < 3) {
+    throw new ConvergenceError('horizon series did not converge', { x0, terms: n, truncation, b });
+  }
+  // x0^ν = exp(ν ln x0)
+  const lx = Math.log(x0);
+  const mag = Math.exp(nuRe * lx);
+  const ph = nuIm * lx;
+  const xnRe = mag * Math.cos(ph), xnIm = mag * Math.sin(ph);
+  const R: [number, number] = [xnRe * sRe - xnIm * sIm, xnRe * sIm + xnIm * sRe];
+  const dR: [number, number] = [(xnRe * tRe - xnIm * tIm) / x0, (xnRe * tIm + xnIm * tRe) / x0];
+  // Cancellation among terms costs accuracy: report it through truncation.
+  const cancellation = scaleMax / Math.hypot(sRe, sIm);
+  return { x0, R, dR, terms: n + 1, truncation: Math.max(truncation, cancellation * 1e-16), nu: [nuRe, nuIm] };
+}
