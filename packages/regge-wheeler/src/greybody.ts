@@ -63,6 +63,8 @@ export interface IntegrationControls {
   stepToleranceFactor?: number;
   /** sign in the Dirac potential W² ± dW/dr* */
   diracSign?: 1 | -1;
+  /** step budget; exceeding it throws ConvergenceError */
+  maxSteps?: number;
 }
 
 export interface SingleIntegration {
@@ -84,7 +86,7 @@ const MIN_TOLERANCE = 1e-12;
 const MIN_STEP_TOLERANCE = 1e-16;
 const MAX_TOLERANCE = 1e-2;
 const DEFAULT_START_OFFSET = 0.15;
-const MAX_STEPS = 3_000_000;
+const DEFAULT_MAX_STEPS = 3_000_000;
 const RESCALE_THRESHOLD = 1e100;
 const MATCH_RADIUS_GROWTH = 1.5;
 const MAX_MATCH_MOVES = 60;
@@ -119,7 +121,7 @@ function validate(q: SchwarzschildGreybodyQuery): { problemBase: Omit<ModeProble
 }
 
 /**
- * Step tolerance for a target accuracy of Γ. Measured (bench/step-tolerance.ts):
+ * Step tolerance for a target accuracy of Γ. Measured (bench/step-tolerance.mjs):
  * the relative error of Γ is about stepTolerance × (3 + ω Δr*), where Δr* is
  * the tortoise-coordinate span of the integration — the Runge–Kutta amplitude
  * error accumulates per wavelength. Aim a factor 10 below tol.
@@ -146,6 +148,7 @@ export function integrateOnce(q: SchwarzschildGreybodyQuery, controls: Integrati
   const startOffset = controls.startOffset ?? DEFAULT_START_OFFSET;
   if (!(startOffset > 0 && startOffset <= 0.5)) throw new InputError('startOffset', 'in (0, 0.5]', startOffset);
   let matchRadius = (controls.matchRadius ?? defaultMatchRadius(p)) * M;
+  const maxSteps = controls.maxSteps ?? DEFAULT_MAX_STEPS;
   const x0 = b * startOffset;
   const r0 = b + x0;
   if (!(matchRadius > 2 * r0)) matchRadius = 2 * r0;
@@ -209,7 +212,7 @@ export function integrateOnce(q: SchwarzschildGreybodyQuery, controls: Integrati
       for (let i = 0; i < 4; i++) y[i] /= RESCALE_THRESHOLD;
       logRescale += Math.log(RESCALE_THRESHOLD);
     }
-    if (steps > MAX_STEPS) throw new ConvergenceError('integration step budget exhausted', diagnostics());
+    if (steps > maxSteps) throw new ConvergenceError('integration step budget exhausted', diagnostics());
   }
   const psi: WaveState = { psiRe: y[0], psiIm: y[1], dpsiRe: y[2], dpsiIm: y[3] };
   const amplitudes = matchToFarZone(psi, far, p.omega);
