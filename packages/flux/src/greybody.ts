@@ -152,7 +152,7 @@ export function greybody(problem: GreybodyProblem, options: GreybodyOptions = {}
     }
     if (attempt === 3) {
       throw new ConvergenceError('greybody factor did not reach the requested accuracy', {
-        spin, l: p.l, m, a: hole.a, omega, tol, relError, odeTol, ...fine.diagnostics,
+        ...fine.diagnostics, spin, l: p.l, m, a: hole.a, omega, tol, relError, odeTol,
       });
     }
     odeTol = Math.max(odeTol * 0.01, 1e-15);

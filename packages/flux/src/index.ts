@@ -1,3 +1,5 @@
 export * from './normalisation.js';
 export * from './validate.js';
 export * from './greybody.js';
+export * from './lowFrequency.js';
+export * from './crossSection.js';
