@@ -4,7 +4,7 @@
  * conformal temperatures follow Castro, Maloney & Strominger, Phys. Rev. D 82,
  * 024008 (2010). Derivations and conventions: docs/kerr.md.
  */
-import { InputError, requireFinite } from './errors.js';
+import { ConvergenceError, InputError, requireFinite } from './errors.js';
 
 export interface KerrHole {
   /** mass M (geometric units) */
@@ -41,7 +41,7 @@ export function kerrHole(a: number, mass = 1): KerrHole {
       a,
       Math.abs(a) === mass
         ? 'the extremal hole has zero surface gravity and coincident horizons; horizon-based solvers take it only as a limit'
-        : 'a hole with |a| > M has no horizon',
+        : 'a hole with |a| > M has no horizon; the extremal hole |a| = M is itself only a limit for horizon-based solvers',
     );
   }
   // sqrt(M² − a²) as sqrt((M − a)(M + a)) keeps full relative accuracy near extremality.
@@ -73,18 +73,74 @@ export function delta(hole: KerrHole, r: number): number {
 
 /**
  * Tortoise coordinate as a function of the distance x = r − r+ > 0 from the
- * outer horizon, with the integration constant of physics notes:
+ * outer horizon, with the integration constant of docs/kerr.md:
  * r* = r + (2M r+/(r+ − r−)) ln((r − r+)/2M) − (2M r−/(r+ − r−)) ln((r − r−)/2M).
- * Taking x rather than r keeps full relative accuracy for x down to 1e-300.
+ * Evaluated in the equivalent form (using 2M r+/b − 2M r−/b = 2M, b = r+ − r−)
+ * r* = r + 2M ln((x + b)/2M) − (2M r+/b) ln(1 + b/x),
+ * which has no large cancelling logarithms near extremality and stays
+ * accurate to a few ulp of r* for x from 1e-300 to 1e300.
  */
 export function tortoiseFromHorizonDistance(hole: KerrHole, x: number): number {
-  const { mass: M, rPlus, rMinus } = hole;
-  const b = rPlus - rMinus;
-  const r = rPlus + x;
-  const cPlus = (2 * M * rPlus) / b;
-  const cMinus = (2 * M * rMinus) / b;
-  // ln((r − r−)/2M) = ln((b + x)/2M), computed without forming r − r−.
-  return r + cPlus * Math.log(x / (2 * M)) - cMinus * Math.log((b + x) / (2 * M));
+  // NaN or x ≤ 0 lies on or inside the horizon; x = +Infinity would return Infinity silently.
+  if (!(x > 0 && x < Infinity)) throw new InputError('x', 'a finite number > 0 (x = r − r+)', x);
+  const { hi, lo } = tortoiseTerms(hole, x);
+  return hi + lo;
+}
+
+/**
+ * r* as an unevaluated sum hi + lo (double-double) and the magnitude of its
+ * largest term. Products and sums are error-free transformations, so the only
+ * rounding left is that of the two logarithms: round trips r → r* → r then
+ * stay near the limit set by storing r* in one double.
+ */
+function tortoiseTerms(hole: KerrHole, x: number): { hi: number; lo: number; scale: number } {
+  const { mass: M, a, rPlus, rMinus } = hole;
+  const twoM = 2 * M;
+  const b = horizonGap(M, a);
+  // (x + b)/2M = 1 + (x − 2r−)/2M, since b = 2M − 2r−.
+  const farLogFactor = Math.log1p((x - 2 * rMinus) / twoM);
+  const horizonLogFactor = Math.log1p(b / x);
+  const cPlus = (twoM * rPlus) / b;
+  let hi = rPlus + x;
+  let lo = twoSumError(rPlus, x, hi);
+  const far = twoM * farLogFactor;
+  [hi, lo] = addDoubleDouble(hi, lo, far, twoProductError(twoM, farLogFactor, far));
+  const horizon = cPlus * horizonLogFactor;
+  [hi, lo] = addDoubleDouble(hi, lo, -horizon, -twoProductError(cPlus, horizonLogFactor, horizon));
+  return { hi, lo, scale: Math.max(rPlus + x, Math.abs(far), horizon) };
+}
+
+/** r+ − r− = 2√(M² − a²), formed without the cancellation in r+ − r− near extremality. */
+function horizonGap(M: number, a: number): number {
+  return 2 * Math.sqrt((M - a) * (M + a));
+}
+
+/** Rounding error of s = a + b (Knuth's TwoSum): a + b = s + error exactly. */
+function twoSumError(a: number, b: number, s: number): number {
+  const bVirtual = s - a;
+  return a - (s - bVirtual) + (b - bVirtual);
+}
+
+const DEKKER_SPLITTER = 134217729; // 2^27 + 1
+
+/** Rounding error of p = a·b (Dekker's TwoProduct): a·b = p + error exactly. */
+function twoProductError(a: number, b: number, p: number): number {
+  let t = DEKKER_SPLITTER * a;
+  const aHi = t - (t - a);
+  const aLo = a - aHi;
+  t = DEKKER_SPLITTER * b;
+  const bHi = t - (t - b);
+  const bLo = b - bHi;
+  const error = aHi * bHi - p + aHi * bLo + aLo * bHi + aLo * bLo;
+  // Splitting overflows only for |a|, |b| near 1e300; the error term is then negligible anyway.
+  return Number.isFinite(error) ? error : 0;
+}
+
+function addDoubleDouble(aHi: number, aLo: number, bHi: number, bLo: number): [number, number] {
+  const s = aHi + bHi;
+  const lo = twoSumError(aHi, bHi, s) + aLo + bLo;
+  const hi = s + lo;
+  return [hi, lo - (hi - s)];
 }
 
 /** Tortoise coordinate r*(r) for r > r+. */
@@ -99,41 +155,102 @@ export function tortoiseDerivative(hole: KerrHole, r: number): number {
   return (r * r + hole.a * hole.a) / delta(hole, r);
 }
 
+/** Result of inverting the tortoise coordinate, with its diagnostics. */
+export interface TortoiseInversion {
+  /** distance from the outer horizon x = r − r+ */
+  horizonDistance: number;
+  /** Boyer–Lindquist radius r = r+ + x */
+  r: number;
+  /** Newton iterations taken (0 when the near-horizon asymptote is already exact) */
+  iterations: number;
+  /** r*(x) − rStar at the returned point */
+  residual: number;
+  /** rounding-error floor of r*(x) at the returned point; |residual| is of this order */
+  residualFloor: number;
+}
+
+const MAX_TORTOISE_ITERATIONS = 100;
+
 /**
- * Inverse of the tortoise coordinate: the distance x = r − r+ at which
- * r*(r) = rStar. Newton's method on u = ln x, where r* is smooth and monotone
- * (its u-derivative is (r² + a²)/(r − r−) > 0), converging to a few ulp.
+ * Inverse of the tortoise coordinate with diagnostics: the distance x = r − r+
+ * at which r*(r) = rStar. Newton's method in u = ln x, where r* is smooth and
+ * monotone (its u-derivative is (r² + a²)/(r − r−) > 0). Iteration stops when
+ * the Newton step is at the rounding-error floor of r* itself, so the result is
+ * as accurate as the forward map allows; if that does not happen the
+ * iteration throws ConvergenceError.
  */
-export function horizonDistanceFromTortoise(hole: KerrHole, rStar: number): number {
+export function invertTortoise(hole: KerrHole, rStar: number): TortoiseInversion {
   requireFinite('rStar', rStar);
   const { rPlus, rMinus, a } = hole;
-  const b = rPlus - rMinus;
-  const cPlus = (2 * hole.mass * rPlus) / b;
-  const cMinus = (2 * hole.mass * rMinus) / b;
-  // Starting guess: the near-horizon logarithm where it gives x < M, else r ≈ r*.
   const twoM = 2 * hole.mass;
-  let u = Math.log(twoM) + (rStar - rPlus + cMinus * Math.log(b / twoM)) / cPlus;
-  if (u > Math.log(hole.mass)) u = Math.log(Math.max(rStar - rPlus, hole.mass));
-  for (let iter = 0; iter < 200; iter++) {
+  const b = horizonGap(hole.mass, a);
+  const cPlus = (twoM * rPlus) / b;
+  const cMinus = (twoM * rMinus) / b;
+  // Near-horizon asymptote r* ≈ r+ + cPlus ln(x/2M) − cMinus ln(b/2M); its
+  // relative error in x is about x (1 + cMinus/b) / cPlus.
+  const u = Math.log(twoM) + (rStar - rPlus + cMinus * Math.log(b / twoM)) / cPlus;
+  if (Math.exp(u) * (1 + cMinus / b) < 1e-17 * cPlus) {
+    // Asymptote exact to rounding; also covers x below the float range (x = 0, r = r+).
     const x = Math.exp(u);
-    const f = tortoiseFromHorizonDistance(hole, x) - rStar;
+    // x = 0 (below the float range) means r = r+ to machine precision
+    const terms = x > 0 ? tortoiseTerms(hole, x) : { hi: rStar, lo: 0, scale: Math.abs(rStar) };
+    return {
+      horizonDistance: x,
+      r: rPlus + x,
+      iterations: 0,
+      residual: terms.hi - rStar + terms.lo,
+      residualFloor: 2 * Number.EPSILON * terms.scale,
+    };
+  }
+  let x = u > Math.log(hole.mass) ? Math.max(rStar - rPlus, hole.mass) : Math.exp(u);
+  const eps = Number.EPSILON;
+  for (let iter = 1; iter <= MAX_TORTOISE_ITERATIONS; iter++) {
     const r = rPlus + x;
-    const dfdu = (r * r + a * a) / (x + b); // x times the r-derivative of r*, with Δ = x(x + b)
+    const { hi, lo, scale } = tortoiseTerms(hole, x);
+    // hi − rStar is exact near convergence (Sterbenz), so f keeps the low part.
+    const f = hi - rStar + lo;
+    // x times dr*/dr, with Δ = x (x + b)
+    const dfdu = (r * r + a * a) / (x + b);
+    // Rounding floor of f: the two logarithms' errors (≈ 1 ulp each), not the sum's.
+    const floor = 2 * eps * scale;
     let step = f / dfdu;
-    // Damp steps so u never jumps by more than 2 e-folds (keeps the far branch safe).
+    // Damp steps so ln x never jumps by more than 2 (keeps the far branch safe).
     if (step > 2) step = 2;
     if (step < -2) step = -2;
-    u -= step;
-    if (Math.abs(step) <= 4e-16 * Math.max(1, Math.abs(u))) {
-      return Math.exp(u);
+    // Update x multiplicatively rather than ln x: ln x carries only |ln x|·eps of relative precision.
+    x *= Math.exp(-step);
+    if (Math.abs(step) <= floor / dfdu + 2 * eps) {
+      return {
+        horizonDistance: x,
+        r: rPlus + x,
+        iterations: iter,
+        residual: residualAt(hole, x, rStar),
+        residualFloor: floor,
+      };
     }
   }
-  return Math.exp(u);
+  throw new ConvergenceError('tortoise inversion did not converge', {
+    rStar,
+    a,
+    mass: hole.mass,
+    iterations: MAX_TORTOISE_ITERATIONS,
+    lastHorizonDistance: x,
+  });
+}
+
+function residualAt(hole: KerrHole, x: number, rStar: number): number {
+  const { hi, lo } = tortoiseTerms(hole, x);
+  return hi - rStar + lo;
+}
+
+/** Inverse of the tortoise coordinate: the distance x = r − r+ at which r*(r) = rStar. */
+export function horizonDistanceFromTortoise(hole: KerrHole, rStar: number): number {
+  return invertTortoise(hole, rStar).horizonDistance;
 }
 
 /** Inverse tortoise coordinate r(r*). */
 export function radiusFromTortoise(hole: KerrHole, rStar: number): number {
-  return hole.rPlus + horizonDistanceFromTortoise(hole, rStar);
+  return invertTortoise(hole, rStar).r;
 }
 
 /**
@@ -154,7 +271,7 @@ export function nearRegion(hole: KerrHole): NearRegion {
   const J = hole.angularMomentum;
   return {
     TL: (rPlus + rMinus) / (4 * Math.PI * a),
-    TR: (rPlus - rMinus) / (4 * Math.PI * a),
+    TR: horizonGap(hole.mass, a) / (4 * Math.PI * a),
     cL: 12 * J,
     cR: 12 * J,
   };
