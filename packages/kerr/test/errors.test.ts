@@ -1,0 +1,71 @@
+import { describe, expect, test } from 'vitest';
+import { InputError, kerrHole, massToKg, physicalBackground, unitScales, type MassUnit } from '@penumbra/kerr';
+
+function thrown(action: () => unknown): InputError {
+  try {
+    action();
+  } catch (error) {
+    expect(error).toBeInstanceOf(InputError);
+    return error as InputError;
+  }
+  throw new Error('expected an InputError');
+}
+
+describe('typed input errors name the parameter and its allowed range', () => {
+  test.each([
+    ['NaN', Number.NaN],
+    ['+Infinity', Number.POSITIVE_INFINITY],
+    ['-Infinity', Number.NEGATIVE_INFINITY],
+  ])('spin a = %s is refused with parameter "a"', (_label, a) => {
+    const error = thrown(() => kerrHole(a));
+    expect(error.parameter).toBe('a');
+    expect(error.message).toMatch(/^invalid a = /);
+    expect(error.allowed).toContain('|a| < M');
+  });
+
+  test.each([
+    ['NaN', Number.NaN],
+    ['+Infinity', Number.POSITIVE_INFINITY],
+    ['-Infinity', Number.NEGATIVE_INFINITY],
+    ['0', 0],
+    ['-1', -1],
+  ])('mass M = %s is refused with parameter "mass" and range "> 0"', (_label, mass) => {
+    const error = thrown(() => kerrHole(0, mass));
+    expect(error.parameter).toBe('mass');
+    expect(error.allowed).toContain('> 0');
+  });
+
+  test('the extremal hole |a| = M is refused, and the message says it is a limit the horizon-based solvers cannot take', () => {
+    for (const a of [1, -1]) {
+      const error = thrown(() => kerrHole(a));
+      expect(error.parameter).toBe('a');
+      expect(error.value).toBe(a);
+      expect(error.message).toContain('|a| < M = 1');
+      expect(error.message).toMatch(/extremal/);
+      expect(error.message).toMatch(/limit/);
+    }
+  });
+
+  test('|a| > M (a = 1.2, a = -3 with M = 2) is refused: no horizon, and the extremal hole is only a limit', () => {
+    const over = thrown(() => kerrHole(1.2));
+    expect(over.message).toBe(
+      'invalid a = 1.2: allowed |a| < M = 1 (a hole with |a| > M has no horizon; the extremal hole |a| = M is itself only a limit for horizon-based solvers)',
+    );
+    expect(thrown(() => kerrHole(-3, 2)).message).toContain('|a| < M = 2');
+  });
+
+  test('non-number input is refused, not coerced', () => {
+    expect(thrown(() => kerrHole('0.5' as unknown as number)).parameter).toBe('a');
+    expect(thrown(() => kerrHole(0.5, '1' as unknown as number)).parameter).toBe('mass');
+  });
+
+  test('physical mass and unit are checked: mass > 0 and finite, unit one of g, kg, msun', () => {
+    expect(thrown(() => massToKg(-1, 'g')).parameter).toBe('mass');
+    expect(thrown(() => massToKg(Number.NaN, 'kg')).message).toContain('NaN');
+    expect(thrown(() => massToKg(1, 'lb' as MassUnit)).message).toBe(
+      `invalid unit = "lb": allowed one of 'g', 'kg', 'msun'`,
+    );
+    expect(thrown(() => physicalBackground(kerrHole(0.5), 0, 'g')).parameter).toBe('mass');
+    expect(thrown(() => unitScales(Number.POSITIVE_INFINITY)).parameter).toBe('mass');
+  });
+});
