@@ -10,7 +10,14 @@
  */
 import { ConvergenceError, kerrHole, type KerrHole } from '@penumbra/kerr';
 import { radialSeparationConstant, spheroidalEigenvalue } from '@penumbra/spheroidal';
-import { solveRadial, type IntegratorName, type RadialSample, type RadialSolution } from '@penumbra/radial';
+import {
+  solveRadial,
+  solveTwoSided,
+  type IntegratorName,
+  type RadialDiagnostics,
+  type RadialSample,
+  type TwoSidedOptions,
+} from '@penumbra/radial';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
 import { validateHole, validateMode, validateOmega, validateSpin, validateTol, type FieldSpin } from './validate.js';
 
@@ -101,10 +108,6 @@ function prepare(problem: GreybodyProblem): Prepared {
   return { spin, l, m, hole, omega, A: eig.A, lambdaPlus };
 }
 
-function lnGamma(p: Prepared, plus: RadialSolution): { ln: number; sign: number } {
-  const h = horizonFactor(p.spin, p.hole, p.omega, plus.k);
-  return { ln: Math.log(Math.abs(h)) - 2 * plus.logAbsZIn, sign: Math.sign(h) };
-}
 
 export function greybody(problem: GreybodyProblem, options: GreybodyOptions = {}): GreybodyResult {
   const p = prepare(problem);
@@ -122,33 +125,16 @@ export function greybody(problem: GreybodyProblem, options: GreybodyOptions = {}
   }
 
   let odeTol = Math.max(tol * 1e-3, 1e-14);
+  const wantReflection = options.reflection !== false;
   for (let attempt = 1; attempt <= 3; attempt++) {
-    const fine = solveRadial({ hole, s: spin, m, omega, lambda: lambdaPlus }, { ...common, tol: odeTol });
-    const coarse = solveRadial({ hole, s: spin, m, omega, lambda: lambdaPlus }, { ...common, tol: odeTol * 10 });
-    const g = lnGamma(p, fine);
-    const gc = lnGamma(p, coarse);
-    // Relative error from the two tolerances; ln-difference is the relative difference of Γ.
-    const relError = Math.abs(Math.expm1(g.ln - gc.ln)) + 1e-15;
-    let reflection: number;
-    let extra = 0;
-    if (options.reflection === false) {
-      reflection = Number.NaN;
-    } else if (spin === 0) {
-      reflection = Math.exp(2 * (fine.logAbsZOut - fine.logAbsZIn));
-    } else {
-      const minus = solveRadial(
-        { hole, s: -spin, m, omega, lambda: lambdaPlus + 2 * spin },
-        { ...common, tol: odeTol },
-      );
-      extra = minus.diagnostics.rhsEvaluations;
-      // R = |C|² |Y_out|² / (|h_s|² |Z_in|²), derived in docs/method.md.
-      reflection = Math.exp(
-        Math.log(C2) + 2 * minus.logAbsZOut - Math.log(horizonMapSquared(spin, hole, k)) - 2 * fine.logAbsZIn,
-      );
-    }
-    const gamma = g.sign * Math.exp(g.ln);
+    const fine = solveMode(p, { ...common, tol: odeTol, reflection: wantReflection });
+    const coarse = solveMode(p, { ...common, tol: odeTol * 10, reflection: false });
+    // ln-difference of Γ is its relative difference.
+    const relError = Math.abs(Math.expm1(fine.lnGamma - coarse.lnGamma)) + 1e-15;
+    const gamma = fine.sign * Math.exp(fine.lnGamma);
     if (relError <= tol) {
-      return result(p, gamma, reflection, relError, k, C2, odeTol, attempt, fine, coarse.diagnostics.rhsEvaluations + extra);
+      return result(p, gamma, fine.reflection, relError, k, C2, odeTol, attempt, fine.diagnostics,
+        coarse.diagnostics.rhsEvaluations);
     }
     if (attempt === 3) {
       throw new ConvergenceError('greybody factor did not reach the requested accuracy', {
@@ -160,6 +146,46 @@ export function greybody(problem: GreybodyProblem, options: GreybodyOptions = {}
   throw new Error('unreachable');
 }
 
+interface ModeSolve {
+  lnGamma: number;
+  sign: number;
+  reflection: number;
+  diagnostics: RadialDiagnostics;
+}
+
+/**
+ * s = 0: one-sided shooting has no trap (both solutions are of equal size at
+ * both ends). s > 0: the two-sided route (−s from the horizon, Teukolsky–
+ * Starobinsky map, +s to the far zone); Γ from Z_in of the +s field and the
+ * reflection from Y_out of the −s field, each where it dominates.
+ */
+function solveMode(p: Prepared, opts: TwoSidedOptions): ModeSolve {
+  const { spin, hole, omega, m, lambdaPlus } = p;
+  const k = omega - m * hole.omegaH;
+  const h = horizonFactor(spin, hole, omega, k);
+  if (spin === 0) {
+    const sol = solveRadial({ hole, s: 0, m, omega, lambda: lambdaPlus }, opts);
+    return {
+      lnGamma: Math.log(Math.abs(h)) - 2 * sol.logAbsZIn,
+      sign: Math.sign(h),
+      reflection: Math.exp(2 * (sol.logAbsZOut - sol.logAbsZIn)),
+      diagnostics: sol.diagnostics,
+    };
+  }
+  const sol = solveTwoSided({ hole, s: spin, m, omega, lambda: lambdaPlus }, opts);
+  const C2 = starobinskyConstantSquared(spin, lambdaPlus, hole, m, omega);
+  // R = |C|² |Y_out|² / (|h_s|² |Z_in|²), derived in docs/method.md.
+  const reflection = opts.reflection === false
+    ? Number.NaN
+    : Math.exp(Math.log(C2) + 2 * sol.logAbsYOutMinus - Math.log(horizonMapSquared(spin, hole, k)) - 2 * sol.logAbsZInPlus);
+  return {
+    lnGamma: Math.log(Math.abs(h)) - 2 * sol.logAbsZInPlus,
+    sign: Math.sign(h),
+    reflection,
+    diagnostics: sol.diagnostics,
+  };
+}
+
 function result(
   p: Prepared,
   gamma: number,
@@ -169,10 +195,9 @@ function result(
   C2: number,
   odeTol: number,
   attempts: number,
-  fine: RadialSolution | undefined,
+  d: RadialDiagnostics | undefined,
   extraEvaluations: number,
 ): GreybodyResult {
-  const d = fine?.diagnostics;
   return {
     spin: p.spin,
     l: p.l,
@@ -188,7 +213,7 @@ function result(
     k,
     superradiant: p.spin !== 0.5 && k < 0,
     diagnostics: {
-      method: d ? `${d.method}; reflection from the −s field` : 'superradiant threshold: Γ = 0 exactly',
+      method: d ? d.method : 'superradiant threshold: Γ = 0 exactly',
       integrator: (d?.method.split('/').pop() as IntegratorName) ?? 'odex',
       odeTol,
       startRadius: d?.startRadius ?? Number.NaN,

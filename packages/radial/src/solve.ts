@@ -12,7 +12,8 @@ import { ConvergenceError, InputError, type KerrHole } from '@penumbra/kerr';
 import { horizonSeriesStart, horizonWavenumber, type HorizonStart } from './horizonSeries.js';
 import { evaluateFar, farSeries, type FarValue } from './farSeries.js';
 import type { RadialMode } from './equation.js';
-import { makeStepper, type IntegratorName } from './integrators.js';
+import { makeStepper, type IntegratorName, type Rhs } from './integrators.js';
+import { starobinskyHorizonFactor, starobinskyMapAt } from './starobinskyMap.js';
 
 export type { RadialMode } from './equation.js';
 
@@ -78,12 +79,16 @@ export interface RadialSolution {
 const LN_RESCALE = 300 * Math.LN10;
 const RESCALE = 1e-300;
 
-/** Default start point: inside the horizon series' disc, closer in when ω is large. */
-export function defaultStartFraction(hole: KerrHole, omega: number, k: number): number {
-  const b = hole.rPlus - hole.rMinus;
-  // Series terms grow like (ω·2Mr+·x/b)^n/n! before decaying; keep that factor O(1).
-  const w = Math.max(Math.abs(omega), Math.abs(k)) * 2 * hole.mass * hole.rPlus;
-  return Math.min(0.25, 1 / (1 + 2 * w / b));
+/**
+ * Default start point as a fraction of r+ − r−. The series converges out to
+ * x = r+ − r− (the singular point r−), but near the horizon the solution
+ * oscillates with wavenumber ≈ 2ωr+/(r+ − r−) in x, so terms grow like
+ * (ωr+·fraction)^n/n! before decaying; keeping ωr+·fraction ≲ 1/2 bounds that
+ * cancellation. Starting closer than necessary costs digits for s > 0
+ * (the outgoing horizon solution is relatively amplified), so no closer.
+ */
+export function defaultStartFraction(hole: KerrHole, omega: number, _k: number): number {
+  return Math.min(0.25, 0.5 / (Math.abs(omega) * hole.rPlus));
 }
 
 /** Smallest radius on a geometric ladder where both asymptotic series converge to 1e-17. */
@@ -108,46 +113,26 @@ function chooseMatch(hole: KerrHole, mode: RadialMode, fixed?: number) {
   throw new ConvergenceError('far-zone series did not converge at any matching radius tried', { lastRadius: r });
 }
 
-export function solveRadial(problem: RadialProblem, options: RadialOptions = {}): RadialSolution {
-  const { hole, s, omega, lambda, m } = problem;
+function validateCommon(problem: RadialProblem, options: RadialOptions): number {
   const tol = options.tol ?? 1e-12;
   if (!(tol >= 1e-15 && tol <= 1e-3)) throw new InputError('tol', '1e-15 ≤ tol ≤ 1e-3', tol);
-  if (!Number.isFinite(omega) || omega === 0) throw new InputError('omega', 'a finite non-zero frequency', omega);
-  if (!Number.isFinite(lambda)) throw new InputError('lambda', 'a finite number', lambda);
-  const mode: RadialMode = { s, m, omega, lambda };
-  const M = hole.mass;
-  const a = hole.a;
-  const b = hole.rPlus - hole.rMinus;
-  const k = horizonWavenumber(hole, mode);
-  const fraction = options.startFraction ?? defaultStartFraction(hole, omega, k);
-  if (!(fraction > 0 && fraction < 1)) throw new InputError('startFraction', '0 < startFraction < 1', fraction);
-
-  let start: HorizonStart;
-  let x0 = fraction * b;
-  for (;;) {
-    try {
-      start = horizonSeriesStart(hole, mode, x0);
-      break;
-    } catch (e) {
-      if (!(e instanceof ConvergenceError) || x0 < 1e-6 * b) throw e;
-      x0 *= 0.5;
-    }
+  if (!Number.isFinite(problem.omega) || problem.omega === 0) {
+    throw new InputError('omega', 'a finite non-zero frequency', problem.omega);
   }
-  const match = chooseMatch(hole, mode, options.matchRadius);
-  const rMatch = match.r;
-  const r0 = hole.rPlus + x0;
-  if (!(rMatch > r0)) throw new InputError('matchRadius', `> start radius ${r0}`, rMatch);
+  if (!Number.isFinite(problem.lambda)) throw new InputError('lambda', 'a finite number', problem.lambda);
+  return tol;
+}
 
-  // Hot loop: R'' = −(s+1)Δ'/Δ R' − U/Δ² R in plain float64.
-  const lam = lambda;
-  const am = a * m;
-  const a2 = a * a;
-  let evaluations = 0;
+/** Right-hand side R'' = −(s+1)Δ'/Δ R' − U/Δ² R in plain float64; counts its calls. */
+function radialRhs(hole: KerrHole, mode: RadialMode, counter: { evaluations: number }): Rhs {
+  const { s, omega, lambda: lam } = mode;
+  const M = hole.mass;
+  const am = hole.a * mode.m;
+  const a2 = hole.a * hole.a;
   const rPlus = hole.rPlus, rMinus = hole.rMinus;
-  const deriv = (dy: Float64Array | number[], y: Float64Array | number[], r: number) => {
-    evaluations++;
-    const x = r - rPlus;
-    const D = x * (r - rMinus);
+  return (dy, y, r) => {
+    counter.evaluations++;
+    const D = (r - rPlus) * (r - rMinus);
     const dD = 2 * (r - M);
     const K = (r * r + a2) * omega - am;
     const Ure = K * K - lam * D;
@@ -159,22 +144,64 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
     dy[2] = -c1 * y[2] - (Ure * y[0] - Uim * y[1]) * iD2;
     dy[3] = -c1 * y[3] - (Ure * y[1] + Uim * y[0]) * iD2;
   };
-  const y = new Float64Array([start.R[0], start.R[1], start.dR[0], start.dR[1]]);
+}
+
+/** Horizon start for the ingoing solution, moved inward while the series cancels digits. */
+function startAtHorizon(hole: KerrHole, mode: RadialMode, options: RadialOptions): HorizonStart {
+  const b = hole.rPlus - hole.rMinus;
+  const k = horizonWavenumber(hole, mode);
+  const fraction = options.startFraction ?? defaultStartFraction(hole, mode.omega, k);
+  if (!(fraction > 0 && fraction < 1)) throw new InputError('startFraction', '0 < startFraction < 1', fraction);
+  let x0 = fraction * b;
+  // Large |k|/κ near extremality makes the terms swell before they decay.
+  for (;;) {
+    try {
+      const start = horizonSeriesStart(hole, mode, x0);
+      if (start.truncation <= 1e-13 || x0 < 1e-4 * b || options.startFraction !== undefined) return start;
+    } catch (e) {
+      if (!(e instanceof ConvergenceError) || x0 < 1e-6 * b) throw e;
+    }
+    x0 *= 0.5;
+  }
+}
+
+interface Segment {
+  logScale: number;
+  steps: number;
+  rescalings: number;
+  samples: RadialSample[];
+  /** the same samples unscaled, with the log-scale in force when each was taken */
+  raw: { r: number; y: number[]; logScale: number }[];
+}
+
+/**
+ * Integrate y = (Re R, Im R, Re R', Im R') from r0 through the requested
+ * radii to rEnd, renormalising when |R| grows past 1e150 (the equation is
+ * linear, so the factor is tracked exactly in logScale).
+ */
+function integrate(
+  hole: KerrHole,
+  mode: RadialMode,
+  y: Float64Array,
+  r0: number,
+  rEnd: number,
+  stops: readonly number[],
+  tol: number,
+  options: RadialOptions,
+  counter: { evaluations: number },
+  logScale0 = 0,
+): Segment {
   const integratorName = options.integrator ?? 'odex';
   const maxSteps = options.maxSteps ?? 200_000;
-  const stepper = makeStepper(integratorName, deriv, tol, rPlus, maxSteps);
-  let logScale = 0;
+  const stepper = makeStepper(integratorName, radialRhs(hole, mode, counter), tol, hole.rPlus, maxSteps);
+  let logScale = logScale0;
   let rescalings = 0;
   let steps = 0;
   const samples: RadialSample[] = [];
-  const grid = options.grid ?? [];
-  const record = (r: number) => {
-    const f = Math.exp(logScale);
-    samples.push({ r, R: { re: y[0] * f, im: y[1] * f }, dR: { re: y[2] * f, im: y[3] * f } });
-  };
-  const targets = [...grid.filter((g) => g > r0 && g < rMatch), rMatch];
+  const raw: Segment['raw'] = [];
+  const targets = [...stops.filter((g) => g > r0 && g < rEnd), rEnd];
   let r = r0;
-  let h = 0.05 * x0;
+  let h = 0.05 * Math.min(r0 - hole.rPlus, 1);
   for (const target of targets) {
     while (r < target) {
       let adv;
@@ -182,8 +209,8 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
         adv = stepper.advance(y, r, target, h, 1e150);
       } catch (e) {
         throw new ConvergenceError('radial integration failed', {
-          reason: (e as Error).message, integrator: integratorName, steps, rhsEvaluations: evaluations,
-          startRadius: r0, matchRadius: rMatch,
+          reason: (e as Error).message, integrator: integratorName, steps, rhsEvaluations: counter.evaluations,
+          from: r0, to: rEnd,
         });
       }
       steps += adv.steps;
@@ -191,7 +218,7 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
       h = adv.h;
       if (steps > maxSteps) {
         throw new ConvergenceError('radial integration exceeded the step limit', {
-          r, steps, rhsEvaluations: evaluations, startRadius: r0, matchRadius: rMatch,
+          r, steps, rhsEvaluations: counter.evaluations, from: r0, to: rEnd,
         });
       }
       if (Math.abs(y[0]) + Math.abs(y[1]) > 1e150) {
@@ -200,13 +227,20 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
         rescalings++;
       }
     }
-    if (target !== rMatch || grid.includes(rMatch)) record(target);
+    if (stops.includes(target)) {
+      const f = Math.exp(logScale);
+      samples.push({ r: target, R: { re: y[0] * f, im: y[1] * f }, dR: { re: y[2] * f, im: y[3] * f } });
+      raw.push({ r: target, y: Array.from(y), logScale });
+    }
   }
   if (!y.every(Number.isFinite)) {
-    throw new ConvergenceError('radial integration produced non-finite values', { steps, rhsEvaluations: evaluations });
+    throw new ConvergenceError('radial integration produced non-finite values', { steps, rhsEvaluations: counter.evaluations });
   }
-  // Match R = Z_in R_in + Z_out R_out at r_match (2×2 complex solve).
-  const vin: FarValue = match.vin, vout: FarValue = match.vout;
+  return { logScale, steps, rescalings, samples, raw };
+}
+
+/** Solve R = Z_in R_in + Z_out R_out at the matching radius (2×2 complex system). */
+function matchAmplitudes(y: ArrayLike<number>, vin: FarValue, vout: FarValue): { zIn: Complex2; zOut: Complex2 } {
   const [ir, ii] = vin.R, [idr, idi] = vin.dR, [or, oi] = vout.R, [odr, odi] = vout.dR;
   const detRe = ir * odr - ii * odi - (idr * or - idi * oi);
   const detIm = ir * odi + ii * odr - (idr * oi + idi * or);
@@ -215,29 +249,140 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
   const numOutRe = ir * y[2] - ii * y[3] - (idr * y[0] - idi * y[1]);
   const numOutIm = ir * y[3] + ii * y[2] - (idr * y[1] + idi * y[0]);
   const dd = detRe * detRe + detIm * detIm;
-  const zIn = { re: (numInRe * detRe + numInIm * detIm) / dd, im: (numInIm * detRe - numInRe * detIm) / dd };
-  const zOut = { re: (numOutRe * detRe + numOutIm * detIm) / dd, im: (numOutIm * detRe - numOutRe * detIm) / dd };
+  return {
+    zIn: { re: (numInRe * detRe + numInIm * detIm) / dd, im: (numInIm * detRe - numInRe * detIm) / dd },
+    zOut: { re: (numOutRe * detRe + numOutIm * detIm) / dd, im: (numOutIm * detRe - numOutRe * detIm) / dd },
+  };
+}
+
+function logAbs(z: Complex2): number {
+  return Math.log(Math.hypot(z.re, z.im));
+}
+
+/**
+ * One-sided shooting for spin weight s of either sign: horizon series start,
+ * integration to r_match, asymptotic match.
+ */
+export function solveRadial(problem: RadialProblem, options: RadialOptions = {}): RadialSolution {
+  const tol = validateCommon(problem, options);
+  const { hole, s, omega, lambda, m } = problem;
+  const mode: RadialMode = { s, m, omega, lambda };
+  const start = startAtHorizon(hole, mode, options);
+  const match = chooseMatch(hole, mode, options.matchRadius);
+  const r0 = hole.rPlus + start.x0;
+  if (!(match.r > r0)) throw new InputError('matchRadius', `> start radius ${r0}`, match.r);
+  const counter = { evaluations: 0 };
+  const y = new Float64Array([start.R[0], start.R[1], start.dR[0], start.dR[1]]);
+  const seg = integrate(hole, mode, y, r0, match.r, options.grid ?? [], tol, options, counter);
+  const { zIn, zOut } = matchAmplitudes(y, match.vin, match.vout);
   return {
     status: 'success',
     zIn,
     zOut,
-    logScale,
-    logAbsZIn: Math.log(Math.hypot(zIn.re, zIn.im)) + logScale,
-    logAbsZOut: Math.log(Math.hypot(zOut.re, zOut.im)) + logScale,
-    k,
-    samples,
+    logScale: seg.logScale,
+    logAbsZIn: logAbs(zIn) + seg.logScale,
+    logAbsZOut: logAbs(zOut) + seg.logScale,
+    k: horizonWavenumber(hole, mode),
+    samples: seg.samples,
     diagnostics: {
-      method: `teukolsky-shooting/frobenius-start/asymptotic-match/${integratorName}`,
+      method: `teukolsky-shooting/frobenius-start/asymptotic-match/${options.integrator ?? 'odex'}`,
       tol,
       startRadius: r0,
-      matchRadius: rMatch,
+      matchRadius: match.r,
       horizonTerms: start.terms,
       horizonTruncation: start.truncation,
-      farTerms: Math.max(vin.terms, vout.terms),
-      farTruncation: Math.max(vin.truncation, vout.truncation),
-      steps,
-      rhsEvaluations: evaluations,
-      rescalings,
+      farTerms: Math.max(match.vin.terms, match.vout.terms),
+      farTruncation: Math.max(match.vin.truncation, match.vout.truncation),
+      steps: seg.steps,
+      rhsEvaluations: counter.evaluations,
+      rescalings: seg.rescalings,
+    },
+  };
+}
+
+export interface TwoSidedSolution {
+  status: 'success';
+  /** ln|Z_in| of the +|s| solution normalised to Δ^{−s} e^{−ikr*} at the horizon */
+  logAbsZInPlus: number;
+  /** ln|Z_out| of the same solution (loses digits like (ωr)^{2s}; for diagnostics) */
+  logAbsZOutPlus: number;
+  /** ln|Y_out| of the −|s| solution normalised to Δ^{s} e^{−ikr*} at the horizon */
+  logAbsYOutMinus: number;
+  k: number;
+  switchRadius: number;
+  diagnostics: RadialDiagnostics;
+}
+
+export interface TwoSidedOptions extends RadialOptions {
+  /** radius where the −s solution is mapped to the +s one (default r+ + max(M, 2(r+ − r−))) */
+  switchRadius?: number;
+  /** carry the −s field on to the far zone for Y_out (default true; false saves that leg) */
+  reflection?: boolean;
+}
+
+/**
+ * Two-sided route for s > 0 (physics notes; docs/method.md): the −|s| field is
+ * integrated from the horizon, where its ingoing solution is the one that grows
+ * outward (stable), to the far zone, giving Y_out without cancellation; at a
+ * switching radius it is mapped by D^{2s} to the +|s| field, which is
+ * integrated outward to give Z_in without cancellation. Neither end asks for
+ * a subdominant solution.
+ */
+export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions = {}): TwoSidedSolution {
+  const tol = validateCommon(problem, options);
+  const { hole, s, omega, lambda, m } = problem;
+  if (!(s > 0)) throw new InputError('s', 's > 0 for the two-sided route', s);
+  const plus: RadialMode = { s, m, omega, lambda };
+  const minus: RadialMode = { s: -s, m, omega, lambda: lambda + 2 * s };
+  const b = hole.rPlus - hole.rMinus;
+  const start = startAtHorizon(hole, minus, options);
+  const r0 = hole.rPlus + start.x0;
+  const matchMinus = chooseMatch(hole, minus, options.matchRadius);
+  const matchPlus = chooseMatch(hole, plus, options.matchRadius ?? matchMinus.r);
+  const rSwitch = options.switchRadius ?? hole.rPlus + Math.max(hole.mass, 2 * b);
+  if (!(rSwitch > r0 && rSwitch < matchPlus.r)) {
+    throw new InputError('switchRadius', `between the start ${r0} and the matching radius ${matchPlus.r}`, rSwitch);
+  }
+  const counter = { evaluations: 0 };
+  const y = new Float64Array([start.R[0], start.R[1], start.dR[0], start.dR[1]]);
+  const wantReflection = options.reflection ?? true;
+  const segMinus = wantReflection
+    ? integrate(hole, minus, y, r0, matchMinus.r, [rSwitch], tol, options, counter)
+    : integrate(hole, minus, y, r0, rSwitch, [rSwitch], tol, options, counter);
+  const yOut = wantReflection ? matchAmplitudes(y, matchMinus.vin, matchMinus.vout).zOut : { re: Number.NaN, im: Number.NaN };
+  const at = segMinus.raw[0];
+  // Map (R, R') of the −s field to the +s field at the switching radius.
+  const map = starobinskyMapAt(hole, minus, rSwitch);
+  const c = (z: [number, number], R: Complex2) => [z[0] * R.re - z[1] * R.im, z[0] * R.im + z[1] * R.re];
+  const Rv = { re: at.y[0], im: at.y[1] };
+  const dRv = { re: at.y[2], im: at.y[3] };
+  const [p0r, p0i] = c(map.a0, Rv), [p1r, p1i] = c(map.b0, dRv);
+  const [q0r, q0i] = c(map.a1, Rv), [q1r, q1i] = c(map.b1, dRv);
+  const yPlus = new Float64Array([p0r + p1r, p0i + p1i, q0r + q1r, q0i + q1i]);
+  const segPlus = integrate(hole, plus, yPlus, rSwitch, matchPlus.r, [], tol, options, counter, at.logScale);
+  const amp = matchAmplitudes(yPlus, matchPlus.vin, matchPlus.vout);
+  const k = horizonWavenumber(hole, plus);
+  const h = starobinskyHorizonFactor(hole, s, k);
+  const logH = Math.log(Math.hypot(h[0], h[1]));
+  return {
+    status: 'success',
+    logAbsZInPlus: logAbs(amp.zIn) + segPlus.logScale - logH,
+    logAbsZOutPlus: logAbs(amp.zOut) + segPlus.logScale - logH,
+    logAbsYOutMinus: logAbs(yOut) + segMinus.logScale,
+    k,
+    switchRadius: rSwitch,
+    diagnostics: {
+      method: `teukolsky-two-sided/frobenius-start(−s)/starobinsky-map/asymptotic-match/${options.integrator ?? 'odex'}`,
+      tol,
+      startRadius: r0,
+      matchRadius: Math.max(matchMinus.r, matchPlus.r),
+      horizonTerms: start.terms,
+      horizonTruncation: start.truncation,
+      farTerms: Math.max(matchMinus.vin.terms, matchMinus.vout.terms, matchPlus.vin.terms, matchPlus.vout.terms),
+      farTruncation: Math.max(matchMinus.vout.truncation, matchPlus.vin.truncation),
+      steps: segMinus.steps + segPlus.steps,
+      rhsEvaluations: counter.evaluations,
+      rescalings: segMinus.rescalings + segPlus.rescalings,
     },
   };
 }

@@ -1,0 +1,155 @@
+/**
+ * The Teukolsky–Starobinsky map from the −|s| radial function to the +|s|
+ * one: R_{+s} ∝ D^{2s} R_{−s}, D = ∂_r − iK/Δ (Teukolsky & Press, ApJ 193,
+ * 443 (1974); Chandrasekhar, The Mathematical Theory of Black Holes (1983)).
+ *
+ * The higher derivatives of R_{−s} follow from its own radial equation,
+ * R'' = P R' + Q R, so D^{2s} R_{−s} = α(r) R + β(r) R' with α, β built by
+ * the recursion α ← α' + βQ − iWα, β ← α + β' + βP − iWβ (W = K/Δ). We carry
+ * α, β as truncated Taylor series about the switching radius, which gives
+ * their derivatives exactly; the map is applied at one radius, so its cost is
+ * negligible. Derivation: docs/method.md.
+ */
+import type { KerrHole } from '@penumbra/kerr';
+import { cpoly, shift, type CPoly } from './complexPoly.js';
+import { deltaPoly, kPoly, potentialPoly, type RadialMode } from './equation.js';
+
+/** Complex truncated power series in h = r − r0 (coefficient arrays of equal length). */
+interface Series {
+  re: number[];
+  im: number[];
+}
+
+function fromPoly(p: CPoly, r0: number, n: number): Series {
+  const q = shift(p, r0);
+  const re = new Array<number>(n).fill(0), im = new Array<number>(n).fill(0);
+  for (let i = 0; i < Math.min(n, q.re.length); i++) {
+    re[i] = q.re[i];
+    im[i] = q.im[i];
+  }
+  return { re, im };
+}
+
+function mul(a: Series, b: Series, n: number): Series {
+  const re = new Array<number>(n).fill(0), im = new Array<number>(n).fill(0);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; i + j < n; j++) {
+      re[i + j] += a.re[i] * b.re[j] - a.im[i] * b.im[j];
+      im[i + j] += a.re[i] * b.im[j] + a.im[i] * b.re[j];
+    }
+  }
+  return { re, im };
+}
+
+/** a / b for a series b with b_0 ≠ 0. */
+function div(a: Series, b: Series, n: number): Series {
+  const re = new Array<number>(n).fill(0), im = new Array<number>(n).fill(0);
+  const d = b.re[0] * b.re[0] + b.im[0] * b.im[0];
+  for (let k = 0; k < n; k++) {
+    let xr = a.re[k], xi = a.im[k];
+    for (let j = 1; j <= k; j++) {
+      xr -= b.re[j] * re[k - j] - b.im[j] * im[k - j];
+      xi -= b.re[j] * im[k - j] + b.im[j] * re[k - j];
+    }
+    re[k] = (xr * b.re[0] + xi * b.im[0]) / d;
+    im[k] = (xi * b.re[0] - xr * b.im[0]) / d;
+  }
+  return { re, im };
+}
+
+function deriv(a: Series): Series {
+  const n = a.re.length - 1;
+  const re = new Array<number>(n), im = new Array<number>(n);
+  for (let i = 0; i < n; i++) {
+    re[i] = (i + 1) * a.re[i + 1];
+    im[i] = (i + 1) * a.im[i + 1];
+  }
+  return { re, im };
+}
+
+function trunc(a: Series, n: number): Series {
+  return { re: a.re.slice(0, n), im: a.im.slice(0, n) };
+}
+
+function add(...xs: Series[]): Series {
+  const n = xs[0].re.length;
+  const re = new Array<number>(n).fill(0), im = new Array<number>(n).fill(0);
+  for (const x of xs) for (let i = 0; i < n; i++) { re[i] += x.re[i]; im[i] += x.im[i]; }
+  return { re, im };
+}
+
+/** Multiply by −i. */
+function timesMinusI(a: Series): Series {
+  return { re: a.im.slice(), im: a.re.map((x) => -x) };
+}
+
+export interface StarobinskyMap {
+  /** R_{+s} = a0 R + b0 R',  R'_{+s} = a1 R + b1 R' (complex, [re, im]) */
+  a0: [number, number];
+  b0: [number, number];
+  a1: [number, number];
+  b1: [number, number];
+}
+
+/**
+ * Coefficients of D^{2s} acting on a solution of the −s equation
+ * (`minus.s` = −|s|, `minus.lambda` = λ_{−s}) and of its r-derivative, at r.
+ */
+export function starobinskyMapAt(hole: KerrHole, minus: RadialMode, r: number): StarobinskyMap {
+  const twoS = Math.round(-2 * minus.s);
+  const n = twoS + 2; // series order needed: 2s derivatives plus one
+  const D = fromPoly(deltaPoly(hole), r, n);
+  const dD = fromPoly(cpoly([-2 * hole.mass, 2]), r, n);
+  const W = div(fromPoly(kPoly(hole, minus), r, n), D, n);
+  // R'' = P R' + Q R for the −s equation: P = −(s+1)Δ'/Δ, Q = −U/Δ².
+  const P = div(
+    { re: dD.re.map((x) => -(minus.s + 1) * x), im: dD.im.map((x) => -(minus.s + 1) * x) },
+    D,
+    n,
+  );
+  const U = fromPoly(potentialPoly(hole, minus), r, n);
+  const Q = div({ re: U.re.map((x) => -x), im: U.im.map((x) => -x) }, mul(D, D, n), n);
+  let alpha: Series = { re: [1, ...new Array<number>(n - 1).fill(0)], im: new Array<number>(n).fill(0) };
+  let beta: Series = { re: new Array<number>(n).fill(0), im: new Array<number>(n).fill(0) };
+  for (let j = 0; j < twoS; j++) {
+    const len = alpha.re.length - 1;
+    const ad = deriv(alpha), bd = deriv(beta);
+    const a = trunc(alpha, len), b = trunc(beta, len);
+    const Wt = trunc(W, len), Pt = trunc(P, len), Qt = trunc(Q, len);
+    const nextAlpha = add(ad, mul(b, Qt, len), timesMinusI(mul(Wt, a, len)));
+    const nextBeta = add(a, bd, mul(b, Pt, len), timesMinusI(mul(Wt, b, len)));
+    alpha = nextAlpha;
+    beta = nextBeta;
+  }
+  // alpha, beta now carry two coefficients: values and first derivatives at r.
+  const P0: [number, number] = [P.re[0], P.im[0]];
+  const Q0: [number, number] = [Q.re[0], Q.im[0]];
+  const a0: [number, number] = [alpha.re[0], alpha.im[0]];
+  const b0: [number, number] = [beta.re[0], beta.im[0]];
+  // d/dr(αR + βR') = (α' + βQ) R + (α + β' + βP) R'
+  const a1: [number, number] = [
+    alpha.re[1] + b0[0] * Q0[0] - b0[1] * Q0[1],
+    alpha.im[1] + b0[0] * Q0[1] + b0[1] * Q0[0],
+  ];
+  const b1: [number, number] = [
+    a0[0] + beta.re[1] + b0[0] * P0[0] - b0[1] * P0[1],
+    a0[1] + beta.im[1] + b0[0] * P0[1] + b0[1] * P0[0],
+  ];
+  return { a0, b0, a1, b1 };
+}
+
+/**
+ * The horizon factor of the map: D^{2s}(Δ^{s} e^{−ikr*}) → h Δ^{−s} e^{−ikr*},
+ * h = Π_{j=0}^{2s−1} 2(r+² + a²)((s − j)κ − ik), as [re, im].
+ */
+export function starobinskyHorizonFactor(hole: KerrHole, s: number, k: number): [number, number] {
+  const tM = 2 * hole.mass * hole.rPlus;
+  let re = 1, im = 0;
+  for (let j = 0; j < 2 * s; j++) {
+    const fr = 2 * tM * (s - j) * hole.kappa, fi = -2 * tM * k;
+    const nr = re * fr - im * fi;
+    im = re * fi + im * fr;
+    re = nr;
+  }
+  return [re, im];
+}
