@@ -1,0 +1,54 @@
+/**
+ * The Teukolsky–Starobinsky map D^{2s} (Teukolsky & Press, ApJ 193, 443
+ * (1974)) takes −s solutions to +s solutions. Checks: (i) near the horizon the
+ * mapped −s horizon series equals h_s times the +s horizon series, with the
+ * closed-form factor h_s = Π 2(2Mr+)((s−j)κ − ik) derived in docs/method.md;
+ * (ii) the two-sided route and the one-sided +s route give the same |Z_in| for
+ * modes where the one-sided route is well conditioned.
+ */
+import { describe, expect, it } from 'vitest';
+import { kerrHole } from '@penumbra/kerr';
+import { horizonSeriesStart, solveRadial, solveTwoSided, starobinskyHorizonFactor, starobinskyMapAt } from '@penumbra/radial';
+
+const cases = [
+  { a: 0, s: 0.5, m: 0.5, omega: 0.3, lambdaPlus: 0 },
+  { a: 0.8, s: 1, m: 1, omega: 0.2, lambdaPlus: 0.7 },
+  { a: 0.95, s: 2, m: 2, omega: 0.6, lambdaPlus: -1.9 },
+  { a: 0.5, s: 2, m: -1, omega: 1.3, lambdaPlus: 4.2 },
+];
+
+describe('Teukolsky–Starobinsky map', () => {
+  for (const c of cases) {
+    it(`maps the −s horizon solution to h_s × the +s horizon solution to 1e-9 (a=${c.a}, s=${c.s}, m=${c.m})`, () => {
+      const hole = kerrHole(c.a);
+      const b = hole.rPlus - hole.rMinus;
+      const minus = { s: -c.s, m: c.m, omega: c.omega, lambda: c.lambdaPlus + 2 * c.s };
+      const plus = { s: c.s, m: c.m, omega: c.omega, lambda: c.lambdaPlus };
+      const x = 0.1 * b;
+      const rm = horizonSeriesStart(hole, minus, x);
+      const rp = horizonSeriesStart(hole, plus, x);
+      const map = starobinskyMapAt(hole, minus, hole.rPlus + x);
+      const mul = (z: number[], w: number[]) => [z[0] * w[0] - z[1] * w[1], z[0] * w[1] + z[1] * w[0]];
+      const a0R = mul(map.a0, rm.R), b0dR = mul(map.b0, rm.dR);
+      const mapped = [a0R[0] + b0dR[0], a0R[1] + b0dR[1]];
+      const expected = mul(starobinskyHorizonFactor(hole, c.s, c.omega - c.m * hole.omegaH), rp.R);
+      const err = Math.hypot(mapped[0] - expected[0], mapped[1] - expected[1]) / Math.hypot(expected[0], expected[1]);
+      expect(err).toBeLessThan(1e-9);
+    });
+    it(`two-sided and one-sided +s routes agree on ln|Z_in| to 1e-9 (a=${c.a}, s=${c.s}, m=${c.m})`, () => {
+      const hole = kerrHole(c.a);
+      const p = { hole, s: c.s, m: c.m, omega: c.omega, lambda: c.lambdaPlus };
+      const one = solveRadial(p, { tol: 1e-13 });
+      const two = solveTwoSided(p, { tol: 1e-13 });
+      expect(Math.abs(one.logAbsZIn - two.logAbsZInPlus)).toBeLessThan(1e-9);
+    });
+  }
+  it('the two-sided route does not move when the switching radius moves (s = 2, a = 0.9999, deep superradiant, 1e-9)', () => {
+    const hole = kerrHole(0.9999);
+    const p = { hole, s: 2, m: 2, omega: 0.0164, lambda: -2.0 };
+    const ref = solveTwoSided(p, { tol: 1e-13 }).logAbsZInPlus;
+    for (const rs of [hole.rPlus + 0.3, hole.rPlus + 3]) {
+      expect(Math.abs(solveTwoSided(p, { tol: 1e-13, switchRadius: rs }).logAbsZInPlus - ref)).toBeLessThan(1e-9);
+    }
+  });
+});
