@@ -1,0 +1,6 @@
+import type { Command } from '../command.js';
+import { command as demo } from './demo.js';
+import { command as kerr } from './kerr.js';
+
+/** Every command of the penumbra executable, in the order `penumbra --help` lists them. */
+export const commands: Command[] = [demo, kerr];

@@ -1,0 +1,16 @@
+import { main, type CliIO } from '@penumbra/cli';
+
+export interface RunResult {
+  code: number;
+  stdout: string;
+  stderr: string;
+}
+
+/** Runs `penumbra ...argv` in-process and captures its output. */
+export async function run(...argv: string[]): Promise<RunResult> {
+  let stdout = '';
+  let stderr = '';
+  const io: CliIO = { stdout: (text) => void (stdout += text), stderr: (text) => void (stderr += text) };
+  const code = await main(argv, io);
+  return { code, stdout, stderr };
+}

@@ -1,0 +1,64 @@
+import { afterEach, describe, expect, test } from 'vitest';
+import { ConvergenceError, InputError } from '@penumbra/kerr';
+import { commands, UsageError, type Command } from '@penumbra/cli';
+import { run } from './helpers.js';
+
+describe('dispatch, help and version', () => {
+  test('--help on every registered command prints its usage to stdout with exit code 0', async () => {
+    expect(commands.length).toBeGreaterThan(0);
+    for (const command of commands) {
+      for (const flag of ['--help', '-h']) {
+        const result = await run(command.name, flag);
+        expect(result.code).toBe(0);
+        expect(result.stdout).toContain(`Usage: penumbra ${command.name}`);
+        expect(result.stderr).toBe('');
+      }
+      expect((await run('help', command.name)).stdout).toContain(`Usage: penumbra ${command.name}`);
+    }
+  });
+
+  test('top-level --help lists every command with its summary; no arguments prints it to stderr with exit code 2', async () => {
+    const help = await run('--help');
+    expect(help.code).toBe(0);
+    for (const command of commands) expect(help.stdout).toContain(command.summary);
+    const bare = await run();
+    expect(bare.code).toBe(2);
+    expect(bare.stderr).toContain('Usage: penumbra <command>');
+  });
+
+  test('--version prints the cli package version', async () => {
+    const result = await run('--version');
+    expect(result.code).toBe(0);
+    expect(result.stdout).toMatch(/^penumbra \d+\.\d+\.\d+\n$/);
+  });
+
+  test('an unknown command is one line on stderr with exit code 2', async () => {
+    const result = await run('teleport');
+    expect(result.code).toBe(2);
+    expect(result.stderr).toMatch(/^penumbra: unknown command 'teleport' \(commands: [^\n]*\)\n$/);
+  });
+});
+
+describe('error reporting: one line on stderr, exit codes 2 / 3 / 1, no stack trace', () => {
+  const probe: Command = { name: 'probe', summary: 'test command', usage: 'Usage: penumbra probe\n', run: () => 0 };
+  const throwing = (error: unknown): Command => ({ ...probe, run: () => Promise.reject(error) });
+  afterEach(() => {
+    const index = commands.findIndex((c) => c.name === 'probe');
+    if (index >= 0) commands.splice(index, 1);
+  });
+
+  test.each([
+    ['UsageError', new UsageError('bad flag'), 2, /^penumbra: bad flag \(see 'penumbra probe --help'\)\n$/],
+    ['InputError', new InputError('a', '|a| < M = 1', 2), 2, /^penumbra: invalid a = 2: allowed \|a\| < M = 1\n$/],
+    ['ConvergenceError', new ConvergenceError('no luck', { steps: 7 }), 3, /^penumbra: not converged: no luck; diagnostics: \{"steps":7\}\n$/],
+    ['any other error', new TypeError('boom\nsecond line'), 1, /^penumbra: internal error: boom second line \(set PENUMBRA_DEBUG=1 for the stack trace\)\n$/],
+  ])('%s', async (_label, error, code, pattern) => {
+    commands.push(throwing(error));
+    const result = await run('probe');
+    expect(result.code).toBe(code);
+    expect(result.stderr).toMatch(pattern);
+    expect(result.stderr.split('\n')).toHaveLength(2);
+    expect(result.stderr).not.toMatch(/\n\s+at /);
+    expect(result.stdout).toBe('');
+  });
+});
