@@ -1,0 +1,128 @@
+/**
+ * One mode's contribution to the emission rate per degree of freedom,
+ *   n_{slm}(ω) = Γ_{slm}(ω) / (2π (exp((ω − mΩ_H)/T_H) ∓ 1)),
+ * for a hole of unit mass (all rates scale with M; see docs/emission.md).
+ * Γ·(occupation) is never negative: in the superradiant band of bosons both
+ * factors change sign together.
+ */
+import { kerrHole, type KerrHole } from '@penumbra/kerr';
+import { greybody, lowFrequencyGreybody, MIN_MOMEGA, MAX_MOMEGA, type FieldSpin } from '@penumbra/flux';
+
+export interface ModeCounters {
+  gammaCalls: number;
+  rhsEvaluations: number;
+}
+
+export interface ModeContext {
+  spin: FieldSpin;
+  /** |a|/M; a negative spin is handled by the m → −m symmetry at the API edge */
+  aStar: number;
+  hole: KerrHole;
+  fermion: boolean;
+  greybodyTol: number;
+  counters: ModeCounters;
+}
+
+export function modeContext(spin: FieldSpin, aStar: number, greybodyTol: number): ModeContext {
+  return {
+    spin,
+    aStar,
+    hole: kerrHole(aStar, 1),
+    fermion: spin === 0.5,
+    greybodyTol,
+    counters: { gammaCalls: 0, rhsEvaluations: 0 },
+  };
+}
+
+/** 1/(e^x − 1) for bosons, 1/(e^x + 1) for fermions, without overflow. */
+export function occupation(fermion: boolean, x: number): number {
+  if (fermion) return x > 0 ? Math.exp(-x) / (1 + Math.exp(-x)) : 1 / (1 + Math.exp(x));
+  return 1 / Math.expm1(x);
+}
+
+export interface ModeRate {
+  /** Γ·occupation/2π */
+  rate: number;
+  /** relative error of Γ */
+  relError: number;
+}
+
+function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): { gamma: number; relError: number } {
+  if (omega < MIN_MOMEGA) {
+    // Page's low-frequency formula; its first correction is ~2πMω (physics notes).
+    const g = lowFrequencyGreybody({ spin: ctx.spin, l, m, a: ctx.aStar, omega });
+    return { gamma: g, relError: 2 * Math.PI * omega };
+  }
+  const r = greybody({ spin: ctx.spin, l, m, a: ctx.aStar, omega }, { tol: ctx.greybodyTol, reflection: false });
+  ctx.counters.gammaCalls++;
+  ctx.counters.rhsEvaluations += r.diagnostics.rhsEvaluations;
+  return { gamma: r.gamma, relError: r.relError };
+}
+
+export function modeRate(ctx: ModeContext, l: number, m: number, omega: number): ModeRate {
+  if (omega > MAX_MOMEGA) throw new RangeError(`mode rate requested at Mω = ${omega} > ${MAX_MOMEGA}`);
+  const { hole } = ctx;
+  const k = omega - m * hole.omegaH;
+  if (k === 0 && !ctx.fermion) {
+    // Γ ∝ k and the occupation ∝ 1/k: the product is finite; average the two sides.
+    const d = 1e-7 * omega;
+    const lo = modeRate(ctx, l, m, omega - d);
+    const hi = modeRate(ctx, l, m, omega + d);
+    return { rate: 0.5 * (lo.rate + hi.rate), relError: Math.max(lo.relError, hi.relError, 1e-7) };
+  }
+  const { gamma, relError } = gammaAt(ctx, l, m, omega);
+  const rate = (gamma * occupation(ctx.fermion, k / hole.temperature)) / (2 * Math.PI);
+  // Rounding can leave a tiny negative product right at the threshold.
+  return { rate: Math.max(rate, 0), relError };
+}
+
+/**
+ * Bound on ∫_W^∞ of the number and energy rates of mode m, valid when
+ * W > mΩ_H: there k > 0, so 0 ≤ Γ ≤ 1 and the occupation is below
+ * e^{−k/T}/(1 − e^{−k_W/T}) (bosons; fermions are smaller still).
+ */
+export function boltzmannTailBound(ctx: ModeContext, m: number, W: number): { number: number; energy: number } {
+  const T = ctx.hole.temperature;
+  const x = (W - m * ctx.hole.omegaH) / T;
+  if (!(x > 0)) return { number: Infinity, energy: Infinity };
+  const e = Math.exp(-x);
+  const denom = ctx.fermion ? 1 : -Math.expm1(-x);
+  const number = (T * e) / (2 * Math.PI * denom);
+  return { number, energy: number * (W + T) };
+}
+
+/** Smallest W (on a T-spaced ladder) with the tail bound below the tolerances. */
+export function upperFrequency(ctx: ModeContext, m: number, tolNumber: number, tolEnergy: number): number {
+  const T = ctx.hole.temperature;
+  const start = Math.max(m * ctx.hole.omegaH, 0);
+  for (let x = 2; x < 400; x += 0.5) {
+    const W = start + x * T;
+    const b = boltzmannTailBound(ctx, m, W);
+    if (b.number <= tolNumber && b.energy <= tolEnergy) return W;
+  }
+  return start + 400 * T;
+}
+
+/**
+ * Retrograde equatorial photon-orbit impact parameter, b = 3√(M r) + a with
+ * r = 2M[1 + cos((2/3) arccos(a/M))] (Bardeen, Press & Teukolsky, ApJ 178,
+ * 347 (1972)): 3√3 M at a = 0, 7M at a = M. It bounds the capture impact
+ * parameter of every mode, so beyond l + 1/2 ≈ ω·b the l-shells are below the
+ * barrier and fall geometrically.
+ */
+export function retrogradeImpactParameter(aStar: number): number {
+  const r = 2 * (1 + Math.cos((2 / 3) * Math.acos(Math.abs(aStar))));
+  return 3 * Math.sqrt(r) + Math.abs(aStar);
+}
+
+/** The m values of shell l in the order they are summed (co-rotating first). */
+export function shellMs(ctx: ModeContext, l: number): { ms: number[]; weight: number } {
+  if (ctx.aStar === 0) return { ms: [ctx.fermion ? 0.5 : 0], weight: 2 * l + 1 };
+  const ms: number[] = [];
+  for (let m = l; m >= -l; m--) ms.push(m);
+  return { ms, weight: 1 };
+}
+
+export function lowestL(spin: FieldSpin): number {
+  return spin;
+}
