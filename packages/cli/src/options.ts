@@ -203,3 +203,20 @@ export function formatTable(rows: readonly (readonly string[])[], indent = '  ')
   const widths = Array.from({ length: columns }, (_, i) => Math.max(...rows.map((row) => (row[i] ?? '').length)));
   return rows.map((row) => (indent + row.map((cell, i) => cell.padEnd(widths[i])).join('  ')).trimEnd()).join('\n') + '\n';
 }
+
+/** A mode number that may be half-integer: '3', '-1/2', '1.5'. */
+export function parseModeNumber(option: string, text: string): number {
+  const fraction = /^\s*([+-]?)(\d+)\s*\/\s*2\s*$/.exec(text);
+  if (fraction) return (fraction[1] === '-' ? -1 : 1) * (Number(fraction[2]) / 2);
+  const value = parseNumber(option, text);
+  if (!Number.isInteger(2 * value)) throw new UsageError(`${option} expects an integer or half-integer, got '${text}'`);
+  return value;
+}
+
+/** Progress on stderr for long loops: at most ~10 lines. */
+export function progressReporter(io: CliIO, label: string, total: number): (done: number) => void {
+  const every = Math.max(1, Math.ceil(total / 10));
+  return (done) => {
+    if (total > 4 && (done % every === 0 || done === total)) io.stderr(`${label}: ${done}/${total}\n`);
+  };
+}

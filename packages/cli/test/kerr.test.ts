@@ -85,14 +85,3 @@ describe('penumbra kerr', () => {
     expect(result.stderr).toMatch(pattern);
   });
 });
-
-describe('penumbra demo', () => {
-  test('prints the Kerr background of the demo hole a = 0.7 M (r+ = 1 + √0.51 to 10 figures)', async () => {
-    const result = await run('demo');
-    expect(result.code).toBe(0);
-    expect(result.stdout).toContain('a = 0.7 M');
-    expect(result.stdout).toContain((1 + Math.sqrt(0.51)).toPrecision(10));
-    const json = JSON.parse((await run('demo', '--json')).stdout) as Record<string, number>;
-    expect(json.rPlus).toBe(1 + Math.sqrt(0.51));
-  });
-});

@@ -1,6 +1,8 @@
 import type { Command } from '../command.js';
 import { command as demo } from './demo.js';
 import { command as kerr } from './kerr.js';
+import { command as greybody } from './greybody.js';
+import { command as crossSection } from './crossSection.js';
 
 /** Every command of the penumbra executable, in the order `penumbra --help` lists them. */
-export const commands: Command[] = [demo, kerr];
+export const commands: Command[] = [demo, kerr, greybody, crossSection];

@@ -1,0 +1,61 @@
+import { describe, expect, test } from 'vitest';
+import { greybody } from '@penumbra/flux';
+import { run } from './helpers.js';
+
+describe('penumbra greybody', () => {
+  test('prints one JSON object with the documented keys, equal to the library result', async () => {
+    const r = await run('greybody', '--spin', '1', '--l', '1', '--m', '1', '--a', '0.9', '--omega', '0.3', '--json');
+    expect(r.code).toBe(0);
+    const json = JSON.parse(r.stdout);
+    for (const key of ['spin', 'l', 'm', 'a', 'omega', 'gamma', 'reflection', 'residual', 'relError', 'diagnostics']) {
+      expect(json).toHaveProperty(key);
+    }
+    expect(json.gamma).toBe(greybody({ spin: 1, l: 1, m: 1, a: 0.9, omega: 0.3 }).gamma);
+    expect(json.diagnostics).toHaveProperty('rhsEvaluations');
+  });
+  test('accepts half-integer spins and mode numbers as 1/2 and 0.5', async () => {
+    const a = JSON.parse((await run('greybody', '--spin', '1/2', '--l', '3/2', '--m', '-1/2', '--a', '0.5', '--omega', '0.4', '--json')).stdout);
+    const b = JSON.parse((await run('greybody', '--spin', '0.5', '--l', '1.5', '--m', '-0.5', '--a', '0.5', '--omega', '0.4', '--json')).stdout);
+    expect(a.gamma).toBe(b.gamma);
+  });
+  test('a frequency grid gives a JSON array, and CSV with units in the header', async () => {
+    const j = JSON.parse((await run('greybody', '--spin', '0', '--l', '0', '--m', '0', '--a', '0', '--omega', '0.1:0.5:3', '--json')).stdout);
+    expect(j).toHaveLength(3);
+    expect(j.map((x: { omega: number }) => x.omega)).toEqual([0.1, 0.1 + (0.5 - 0.1) / 2, 0.5]);
+    const csv = (await run('greybody', '--spin', '0', '--l', '0', '--m', '0', '--a', '0', '--omega', '0.1:0.5:3', '--csv')).stdout.trim().split('\n');
+    expect(csv[0]).toContain('omega [1/M]');
+    expect(csv).toHaveLength(4);
+  });
+  test('refuses l < s with one readable line and exit code 2', async () => {
+    const r = await run('greybody', '--spin', '2', '--l', '1', '--m', '0', '--a', '0.5', '--omega', '0.3');
+    expect(r.code).toBe(2);
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(r.stderr).toMatch(/^penumbra: .*l/);
+  });
+  test('refuses |a| > 0.9999 and ω ≤ 0 with exit code 2', async () => {
+    expect((await run('greybody', '--spin', '0', '--l', '0', '--m', '0', '--a', '1.2', '--omega', '0.3')).code).toBe(2);
+    expect((await run('greybody', '--spin', '0', '--l', '0', '--m', '0', '--a', '0.5', '--omega', '0')).code).toBe(2);
+  });
+});
+
+describe('penumbra cross-section', () => {
+  test('s = 0 at a = 0 and Mω = 2 is within 5 % of the capture cross-section 27πM² (Misner, Thorne & Wheeler 1973)', async () => {
+    const j = JSON.parse((await run('cross-section', '--spin', '0', '--a', '0', '--omega', '2', '--json')).stdout);
+    expect(Math.abs(j[0].sigma / (27 * Math.PI) - 1)).toBeLessThan(0.05);
+  });
+});
+
+describe('penumbra demo', () => {
+  test('prints the demo hole a = 0.7 M and greybody factors of all four fields with residuals below 1e-8', async () => {
+    const r = await run('demo', '--json');
+    expect(r.code).toBe(0);
+    const json = JSON.parse(r.stdout);
+    expect(json.hole.rPlus).toBe(1 + Math.sqrt(0.51));
+    const spins = new Set(json.greybody.map((g: { spin: number }) => g.spin));
+    expect([...spins].sort()).toEqual([0, 0.5, 1, 2]);
+    for (const g of json.greybody) expect(g.residual).toBeLessThan(1e-8);
+    const text = (await run('demo')).stdout;
+    expect(text).toContain('a = 0.7 M');
+    expect(text).toContain('graviton');
+  });
+});
