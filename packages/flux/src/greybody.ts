@@ -232,19 +232,24 @@ function result(
 
 /**
  * The radial solution R_{+s}(r) (ingoing at the horizon, normalised to
- * Δ^{−s} e^{−ikr*} there) and dR/dr at the requested radii.
+ * Δ^{−s} e^{−ikr*} there) and dR/dr at the requested radii, with ln|Z_in| and
+ * ln|Z_out| of the same solution. For s > 0 it comes from the two-sided route
+ * (inside the switching radius, the −s solution mapped by D^{2s}).
  */
 export function radialFunction(
   problem: GreybodyProblem,
   radii: readonly number[],
   options: { tol?: number; integrator?: IntegratorName } = {},
-): { samples: RadialSample[]; zIn: { re: number; im: number }; zOut: { re: number; im: number }; logScale: number } {
+): { samples: RadialSample[]; logAbsZIn: number; logAbsZOut: number; diagnostics: RadialDiagnostics } {
   const p = prepare(problem);
   const tol = validateTol(options.tol ?? 1e-8);
   const sorted = [...radii].sort((x, y) => x - y);
-  const sol = solveRadial(
-    { hole: p.hole, s: p.spin, m: p.m, omega: p.omega, lambda: p.lambdaPlus },
-    { tol: Math.max(tol * 1e-3, 1e-14), grid: sorted, integrator: options.integrator },
-  );
-  return { samples: sol.samples, zIn: sol.zIn, zOut: sol.zOut, logScale: sol.logScale };
+  const radial = { hole: p.hole, s: p.spin, m: p.m, omega: p.omega, lambda: p.lambdaPlus };
+  const opts = { tol: Math.max(tol * 1e-3, 1e-14), grid: sorted, integrator: options.integrator };
+  if (p.spin === 0) {
+    const sol = solveRadial(radial, opts);
+    return { samples: sol.samples, logAbsZIn: sol.logAbsZIn, logAbsZOut: sol.logAbsZOut, diagnostics: sol.diagnostics };
+  }
+  const sol = solveTwoSided(radial, { ...opts, reflection: false });
+  return { samples: sol.samples, logAbsZIn: sol.logAbsZInPlus, logAbsZOut: sol.logAbsZOutPlus, diagnostics: sol.diagnostics };
 }

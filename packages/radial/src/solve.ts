@@ -308,6 +308,8 @@ export interface TwoSidedSolution {
   logAbsZOutPlus: number;
   /** ln|Y_out| of the −|s| solution normalised to Δ^{s} e^{−ikr*} at the horizon */
   logAbsYOutMinus: number;
+  /** R_{+s} and dR_{+s}/dr (normalised to Δ^{−s} e^{−ikr*} at the horizon) at the requested radii */
+  samples: RadialSample[];
   k: number;
   switchRadius: number;
   diagnostics: RadialDiagnostics;
@@ -346,11 +348,20 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   const counter = { evaluations: 0 };
   const y = new Float64Array([start.R[0], start.R[1], start.dR[0], start.dR[1]]);
   const wantReflection = options.reflection ?? true;
+  const grid = options.grid ?? [];
+  // Radii inside the start point are evaluated from the horizon series itself.
+  const series = grid.filter((g) => g > hole.rPlus && g <= r0);
+  const inner = grid.filter((g) => g > r0 && g < rSwitch);
+  const outer = grid.filter((g) => g > rSwitch && g <= matchPlus.r);
+  if (grid.length !== series.length + inner.length + outer.length + grid.filter((g) => g === rSwitch).length) {
+    throw new InputError('grid', `radii within (r+, ${matchPlus.r}] = (${hole.rPlus}, ${matchPlus.r}]`, grid);
+  }
+  const minusStops = [...inner, rSwitch];
   const segMinus = wantReflection
-    ? integrate(hole, minus, y, r0, matchMinus.r, [rSwitch], tol, options, counter)
-    : integrate(hole, minus, y, r0, rSwitch, [rSwitch], tol, options, counter);
+    ? integrate(hole, minus, y, r0, matchMinus.r, minusStops, tol, options, counter)
+    : integrate(hole, minus, y, r0, rSwitch, minusStops, tol, options, counter);
   const yOut = wantReflection ? matchAmplitudes(y, matchMinus.vin, matchMinus.vout).zOut : { re: Number.NaN, im: Number.NaN };
-  const at = segMinus.raw[0];
+  const at = segMinus.raw[segMinus.raw.length - 1];
   // Map (R, R') of the −s field to the +s field at the switching radius.
   const map = starobinskyMapAt(hole, minus, rSwitch);
   const c = (z: [number, number], R: Complex2) => [z[0] * R.re - z[1] * R.im, z[0] * R.im + z[1] * R.re];
@@ -359,16 +370,44 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   const [p0r, p0i] = c(map.a0, Rv), [p1r, p1i] = c(map.b0, dRv);
   const [q0r, q0i] = c(map.a1, Rv), [q1r, q1i] = c(map.b1, dRv);
   const yPlus = new Float64Array([p0r + p1r, p0i + p1i, q0r + q1r, q0i + q1i]);
-  const segPlus = integrate(hole, plus, yPlus, rSwitch, matchPlus.r, [], tol, options, counter, at.logScale);
+  const rawSwitch = Array.from(yPlus);
+  const segPlus = integrate(hole, plus, yPlus, rSwitch, matchPlus.r, outer, tol, options, counter, at.logScale);
   const amp = matchAmplitudes(yPlus, matchPlus.vin, matchPlus.vout);
   const k = horizonWavenumber(hole, plus);
   const h = starobinskyHorizonFactor(hole, s, k);
   const logH = Math.log(Math.hypot(h[0], h[1]));
+  // Samples of the normalised +s solution: mapped −s samples inside r_sw, the +s leg outside.
+  const hh = h[0] * h[0] + h[1] * h[1];
+  const overH = (re: number, im: number, f: number): Complex2 => ({
+    re: (f * (re * h[0] + im * h[1])) / hh,
+    im: (f * (im * h[0] - re * h[1])) / hh,
+  });
+  const plusSample = (r: number, yy: ArrayLike<number>, logScale: number): RadialSample => {
+    const f = Math.exp(logScale);
+    return { r, R: overH(yy[0], yy[1], f), dR: overH(yy[2], yy[3], f) };
+  };
+  const samples: RadialSample[] = [];
+  const seriesSamples = series.map((g) => {
+    const st = horizonSeriesStart(hole, minus, g - hole.rPlus);
+    return { r: g, y: [st.R[0], st.R[1], st.dR[0], st.dR[1]], logScale: 0 };
+  });
+  for (const smp of [...seriesSamples, ...segMinus.raw]) {
+    if (smp.r === rSwitch) {
+      if (grid.includes(rSwitch)) samples.push(plusSample(rSwitch, rawSwitch, smp.logScale));
+      continue;
+    }
+    const mp = starobinskyMapAt(hole, minus, smp.r);
+    const R = { re: smp.y[0], im: smp.y[1] }, dR = { re: smp.y[2], im: smp.y[3] };
+    const [u0r, u0i] = c(mp.a0, R), [u1r, u1i] = c(mp.b0, dR), [v0r, v0i] = c(mp.a1, R), [v1r, v1i] = c(mp.b1, dR);
+    samples.push(plusSample(smp.r, [u0r + u1r, u0i + u1i, v0r + v1r, v0i + v1i], smp.logScale));
+  }
+  for (const smp of segPlus.raw) samples.push(plusSample(smp.r, smp.y, smp.logScale));
   return {
     status: 'success',
     logAbsZInPlus: logAbs(amp.zIn) + segPlus.logScale - logH,
     logAbsZOutPlus: logAbs(amp.zOut) + segPlus.logScale - logH,
     logAbsYOutMinus: logAbs(yOut) + segMinus.logScale,
+    samples,
     k,
     switchRadius: rSwitch,
     diagnostics: {
