@@ -1,0 +1,288 @@
+/**
+ * Grid descriptions: what a table run sweeps. Validation collects every
+ * problem before any work starts, so a user fixes a grid file in one pass.
+ *
+ * All quantities are in geometric units of the hole mass (G = c = ħ = 1,
+ * M = 1): a in units of M, ω in units of 1/M.
+ */
+import { createHash } from 'node:crypto';
+import { MAX_MOMEGA, MAX_SPIN, MIN_MOMEGA } from '@penumbra/flux';
+
+export const QUANTITIES = ['gamma', 'reflection', 'crossSection', 'spectra'] as const;
+export type Quantity = (typeof QUANTITIES)[number];
+export const FIELD_SPINS: readonly number[] = [0, 0.5, 1, 2];
+
+export type FrequencySpec =
+  | { spacing: 'linear' | 'log'; from: number; to: number; count: number }
+  | { values: number[] };
+
+export type LRange = { min: number; max: number } | 'auto';
+
+/** A validated grid with every default filled in; its canonical JSON is the grid's identity. */
+export interface GridSpec {
+  fieldSpins: number[];
+  holeSpins: number[];
+  frequencies: FrequencySpec;
+  l: LRange;
+  tolerance: number;
+  quantities: Quantity[];
+  chunkSize: number;
+}
+
+export const DEFAULT_TOLERANCE = 1e-6;
+export const DEFAULT_CHUNK_SIZE = 16;
+/** Explicit l ranges stop here; beyond it one grid point would cost thousands of solves. */
+export const MAX_L = 40;
+export const MAX_TASKS = 1_000_000;
+/** The emission sums accept 1e-10 … 1e-2, the single-mode solver 1e-12 … 1e-2. */
+const TOL_RANGE = { spectra: [1e-10, 1e-2], other: [1e-12, 1e-2] } as const;
+
+const KNOWN_KEYS = ['fieldSpins', 'holeSpins', 'frequencies', 'l', 'tolerance', 'quantities', 'chunkSize'];
+
+/** A grid that cannot be run; `problems` lists every problem found, each as one phrase. */
+export class GridError extends Error {
+  override readonly name = 'GridError';
+  constructor(
+    readonly problems: string[],
+    subject = 'grid',
+  ) {
+    super(
+      problems.length === 1
+        ? `${subject}: ${problems[0]}`
+        : `${subject} has ${problems.length} problems: ${problems.map((p, i) => `(${i + 1}) ${p}`).join('; ')}`,
+    );
+  }
+}
+
+const show = (value: unknown): string => {
+  if (typeof value === 'string') return `'${value}'`;
+  try {
+    return JSON.stringify(value) ?? String(value);
+  } catch {
+    return String(value);
+  }
+};
+
+const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+const isFiniteNumber = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
+
+/** '1/2' and 0.5 name the same field spin. */
+function readFieldSpin(v: unknown): number | undefined {
+  if (typeof v === 'string' && /^\s*1\s*\/\s*2\s*$/.test(v)) return 0.5;
+  return typeof v === 'number' && FIELD_SPINS.includes(v) ? v : undefined;
+}
+
+function checkList(problems: string[], key: string, raw: unknown, read: (item: unknown, at: string) => number | undefined): number[] {
+  if (!Array.isArray(raw) || raw.length === 0) {
+    problems.push(`${key}: expected a non-empty list, got ${show(raw)}`);
+    return [];
+  }
+  const out: number[] = [];
+  raw.forEach((item, i) => {
+    const value = read(item, `${key}[${i}]`);
+    if (value === undefined) return;
+    if (out.includes(value)) problems.push(`${key}[${i}]: ${show(item)} appears twice`);
+    else out.push(value);
+  });
+  return out;
+}
+
+/** The frequencies of a spec, endpoints exact, log spacing geometric. */
+export function frequencyValues(spec: FrequencySpec): number[] {
+  if ('values' in spec) return [...spec.values];
+  const { spacing, from, to, count } = spec;
+  return Array.from({ length: count }, (_, i) => {
+    if (i === 0) return from;
+    if (i === count - 1) return to;
+    const t = i / (count - 1);
+    return spacing === 'log' ? from * (to / from) ** t : from + (to - from) * t;
+  });
+}
+
+function checkOmega(problems: string[], at: string, w: unknown): w is number {
+  if (!isFiniteNumber(w)) {
+    problems.push(`${at}: expected a finite number, got ${show(w)}`);
+    return false;
+  }
+  if (!(w >= MIN_MOMEGA && w <= MAX_MOMEGA)) {
+    problems.push(`${at}: ω = ${w} is outside ${MIN_MOMEGA} ≤ Mω ≤ ${MAX_MOMEGA}`);
+    return false;
+  }
+  return true;
+}
+
+function checkFrequencies(problems: string[], raw: unknown): FrequencySpec | undefined {
+  const allowed = `{"spacing": "linear"|"log", "from", "to", "count"} or {"values": [...]}`;
+  if (!isObject(raw)) {
+    problems.push(`frequencies: expected ${allowed}, got ${show(raw)}`);
+    return undefined;
+  }
+  const hasValues = 'values' in raw;
+  const rangeKeys = ['spacing', 'from', 'to', 'count'].filter((k) => k in raw);
+  const unknown = Object.keys(raw).filter((k) => k !== 'values' && !rangeKeys.includes(k));
+  for (const k of unknown) problems.push(`frequencies: unknown key '${k}' (allowed: values, or spacing, from, to, count)`);
+  if (hasValues && rangeKeys.length > 0) {
+    problems.push(`frequencies: give either "values" or "spacing/from/to/count", not both`);
+    return undefined;
+  }
+  if (hasValues) {
+    const values = raw.values;
+    if (!Array.isArray(values) || values.length === 0) {
+      problems.push(`frequencies.values: expected a non-empty list of numbers, got ${show(values)}`);
+      return undefined;
+    }
+    let ok = true;
+    values.forEach((w, i) => {
+      if (!checkOmega(problems, `frequencies.values[${i}]`, w)) ok = false;
+      else if (i > 0 && isFiniteNumber(values[i - 1]) && !(w > (values[i - 1] as number))) {
+        problems.push(`frequencies.values[${i}]: ${w} is not above the previous value (the list must increase strictly)`);
+        ok = false;
+      }
+    });
+    return ok ? { values: values as number[] } : undefined;
+  }
+  const { spacing, from, to, count } = raw;
+  let ok = true;
+  if (spacing !== 'linear' && spacing !== 'log') {
+    problems.push(`frequencies.spacing: expected 'linear' or 'log', got ${show(spacing)}`);
+    ok = false;
+  }
+  if (!checkOmega(problems, 'frequencies.from', from)) ok = false;
+  if (!checkOmega(problems, 'frequencies.to', to)) ok = false;
+  if (!(isFiniteNumber(count) && Number.isInteger(count) && count >= 1 && count <= 100_000)) {
+    problems.push(`frequencies.count: expected an integer from 1 to 100000, got ${show(count)}`);
+    ok = false;
+  }
+  if (!ok) return undefined;
+  const f = from as number, t = to as number, n = count as number;
+  if (n === 1 && f !== t) {
+    problems.push(`frequencies: count = 1 needs from = to (got from ${f}, to ${t})`);
+    return undefined;
+  }
+  if (n > 1 && !(t > f)) {
+    problems.push(`frequencies: 'to' (${t}) must exceed 'from' (${f}) when count > 1`);
+    return undefined;
+  }
+  return { spacing: spacing as 'linear' | 'log', from: f, to: t, count: n };
+}
+
+function checkL(problems: string[], raw: unknown, spins: number[], quantities: Quantity[]): LRange | undefined {
+  const perMode = quantities.includes('gamma') || quantities.includes('reflection');
+  if (raw === undefined || raw === 'auto') return 'auto';
+  if (!isObject(raw)) {
+    problems.push(`l: expected "auto" or {"min": L0, "max": L1}, got ${show(raw)}`);
+    return undefined;
+  }
+  for (const k of Object.keys(raw)) if (k !== 'min' && k !== 'max') problems.push(`l: unknown key '${k}' (allowed: min, max)`);
+  const isHalfInteger = (v: unknown): v is number => isFiniteNumber(v) && Number.isInteger(2 * v) && v >= 0;
+  const max = raw.max;
+  const min = raw.min ?? 0;
+  let ok = true;
+  if (!isHalfInteger(max) || max > MAX_L) {
+    problems.push(`l.max: expected an integer or half-integer from 0 to ${MAX_L}, got ${show(max)}`);
+    ok = false;
+  }
+  if (!isHalfInteger(min)) {
+    problems.push(`l.min: expected an integer or half-integer ≥ 0, got ${show(min)}`);
+    ok = false;
+  }
+  if (!ok) return undefined;
+  const range = { min: min as number, max: max as number };
+  if (range.min > range.max) {
+    problems.push(`l: min (${range.min}) exceeds max (${range.max})`);
+    return undefined;
+  }
+  if (!perMode && quantities.length > 0) {
+    problems.push(`l: an explicit l range applies to gamma and reflection only; crossSection and spectra truncate their l-sums themselves (use "auto" or leave l out)`);
+  }
+  for (const s of spins) {
+    if (modeLs(s, range).length === 0) problems.push(`l: the range ${range.min}…${range.max} holds no mode of field spin ${s} (l ≥ ${s}, l − s an integer)`);
+  }
+  return range;
+}
+
+/** The l values of field spin s inside an explicit range. */
+export function modeLs(s: number, range: { min: number; max: number }): number[] {
+  const out: number[] = [];
+  for (let l = s; l <= range.max; l++) if (l >= range.min) out.push(l);
+  return out;
+}
+
+/**
+ * Validates a raw grid description (parsed JSON or built from CLI flags) and
+ * returns it with defaults filled in; throws GridError listing every problem.
+ */
+export function validateGrid(raw: unknown): GridSpec {
+  const problems: string[] = [];
+  if (!isObject(raw)) throw new GridError([`expected a JSON object with keys ${KNOWN_KEYS.join(', ')}, got ${show(raw)}`]);
+  for (const k of Object.keys(raw)) {
+    if (!KNOWN_KEYS.includes(k)) problems.push(`unknown key '${k}' (known: ${KNOWN_KEYS.join(', ')})`);
+  }
+  const fieldSpins = checkList(problems, 'fieldSpins', raw.fieldSpins, (item, at) => {
+    const s = readFieldSpin(item);
+    if (s === undefined) problems.push(`${at}: expected a field spin 0, 1/2 (or 0.5), 1 or 2, got ${show(item)}`);
+    return s;
+  });
+  const holeSpins = checkList(problems, 'holeSpins', raw.holeSpins, (item, at) => {
+    if (!isFiniteNumber(item) || Math.abs(item) > MAX_SPIN) {
+      problems.push(`${at}: expected a/M with |a/M| ≤ ${MAX_SPIN}, got ${show(item)} (the extremal hole is a limit, not an input)`);
+      return undefined;
+    }
+    return item === 0 ? 0 : item; // −0 and 0 are one hole
+  });
+  const frequencies = raw.frequencies === undefined
+    ? (problems.push('frequencies: missing (e.g. {"spacing": "log", "from": 0.01, "to": 2, "count": 50})'), undefined)
+    : checkFrequencies(problems, raw.frequencies);
+
+  let quantities: Quantity[] = [];
+  const rawQ = raw.quantities ?? ['gamma'];
+  if (!Array.isArray(rawQ) || rawQ.length === 0) {
+    problems.push(`quantities: expected a non-empty list of ${QUANTITIES.join(', ')}, got ${show(rawQ)}`);
+  } else {
+    rawQ.forEach((q, i) => {
+      if (!(QUANTITIES as readonly unknown[]).includes(q)) problems.push(`quantities[${i}]: expected one of ${QUANTITIES.join(', ')}, got ${show(q)}`);
+      else if (quantities.includes(q as Quantity)) problems.push(`quantities[${i}]: '${q}' appears twice`);
+      else quantities.push(q as Quantity);
+    });
+    quantities = QUANTITIES.filter((q) => quantities.includes(q));
+  }
+
+  const l = checkL(problems, raw.l, fieldSpins, quantities);
+
+  const tolerance = raw.tolerance ?? DEFAULT_TOLERANCE;
+  const [tolMin, tolMax] = quantities.includes('spectra') ? TOL_RANGE.spectra : TOL_RANGE.other;
+  if (!isFiniteNumber(tolerance) || tolerance < tolMin || tolerance > tolMax) {
+    problems.push(`tolerance: expected a relative accuracy from ${tolMin} to ${tolMax}${quantities.includes('spectra') ? ' (spectra)' : ''}, got ${show(tolerance)}`);
+  }
+  const chunkSize = raw.chunkSize ?? DEFAULT_CHUNK_SIZE;
+  if (!isFiniteNumber(chunkSize) || !Number.isInteger(chunkSize) || chunkSize < 1 || chunkSize > 10_000) {
+    problems.push(`chunkSize: expected an integer from 1 to 10000 (grid points per output chunk), got ${show(chunkSize)}`);
+  }
+  if (frequencies && fieldSpins.length && holeSpins.length) {
+    const tasks = fieldSpins.length * holeSpins.length * frequencyValues(frequencies).length;
+    if (tasks > MAX_TASKS) problems.push(`the grid has ${tasks} (s, a, ω) points; split it into several grids of at most ${MAX_TASKS}`);
+  }
+  if (problems.length > 0 || !frequencies || !l) throw new GridError(problems);
+  return { fieldSpins, holeSpins, frequencies, l, tolerance: tolerance as number, quantities, chunkSize: chunkSize as number };
+}
+
+/** Stable text of a grid: fixed key order, so equal grids give equal bytes and hashes. */
+export function canonicalGridJson(grid: GridSpec): string {
+  const frequencies = 'values' in grid.frequencies
+    ? { values: grid.frequencies.values }
+    : { spacing: grid.frequencies.spacing, from: grid.frequencies.from, to: grid.frequencies.to, count: grid.frequencies.count };
+  const l = grid.l === 'auto' ? 'auto' : { min: grid.l.min, max: grid.l.max };
+  return JSON.stringify({
+    fieldSpins: grid.fieldSpins,
+    holeSpins: grid.holeSpins,
+    frequencies,
+    l,
+    tolerance: grid.tolerance,
+    quantities: grid.quantities,
+    chunkSize: grid.chunkSize,
+  });
+}
+
+export function gridHash(grid: GridSpec): string {
+  return createHash('sha256').update(canonicalGridJson(grid)).digest('hex').slice(0, 16);
+}

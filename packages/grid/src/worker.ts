@@ -1,0 +1,6 @@
+/** Pool worker: computes one grid point per call (loaded by piscina from dist/worker.js). */
+import { computeTask, type TaskMessage, type TaskResult } from './compute.js';
+
+export default function runTask(task: TaskMessage): TaskResult {
+  return computeTask(task);
+}
