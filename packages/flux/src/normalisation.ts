@@ -49,7 +49,10 @@ export function starobinskyConstantSquared(
     case 0:
       return 1;
     case 0.5:
-      return lm;
+      // λ_{−1/2} is a square (Chandrasekhar's Dirac eigenvalue squared) that
+      // falls exponentially for large mc > 0, where forming it from A cancels
+      // to rounding level and may come out as −1e-14: clamp at zero.
+      return Math.max(lm, 0);
     case 1:
       return lm * lm + 4 * amw - 4 * a2w2;
     case 2: {

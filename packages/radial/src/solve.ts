@@ -316,7 +316,7 @@ export interface TwoSidedSolution {
 }
 
 export interface TwoSidedOptions extends RadialOptions {
-  /** radius where the −s solution is mapped to the +s one (default r+ + max(M, 2(r+ − r−))) */
+  /** radius where the −s solution is mapped to the +s one (default r+ + max(M, 2(r+ − r−)), capped at halfway to the matching radius) */
   switchRadius?: number;
   /** carry the −s field on to the far zone for Y_out (default true; false saves that leg) */
   reflection?: boolean;
@@ -340,8 +340,9 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   const start = startAtHorizon(hole, minus, options);
   const r0 = hole.rPlus + start.x0;
   const matchMinus = chooseMatch(hole, minus, options.matchRadius);
-  const matchPlus = chooseMatch(hole, plus, options.matchRadius ?? matchMinus.r);
-  const rSwitch = options.switchRadius ?? hole.rPlus + Math.max(hole.mass, 2 * b);
+  const matchPlus = chooseMatch(hole, plus, options.matchRadius);
+  // Beyond the near-horizon zone (a few b, at least M) but well inside the matching radius.
+  const rSwitch = options.switchRadius ?? Math.min(hole.rPlus + Math.max(hole.mass, 2 * b), (r0 + matchPlus.r) / 2);
   if (!(rSwitch > r0 && rSwitch < matchPlus.r)) {
     throw new InputError('switchRadius', `between the start ${r0} and the matching radius ${matchPlus.r}`, rSwitch);
   }
