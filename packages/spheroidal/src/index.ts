@@ -9,3 +9,5 @@ export {
 } from './eigenvalue.js';
 export { SUPPORTED_SPINS, MAX_L, MAX_REAL_C, sphericalEigenvalue } from './quantum.js';
 export { leaverFunction, leaverRoot } from './leaver.js';
+export { type SpheroidalHarmonic, spheroidalHarmonic } from './harmonic.js';
+export { smallCSeries } from './series.js';

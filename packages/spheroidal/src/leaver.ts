@@ -32,14 +32,22 @@ const MAX_DEPTH = 20000;
  * the Wallis recurrences (and their A-derivatives) until the convergents agree
  * to rounding.
  */
-export function leaverFunction(s: number, m: number, c: number, A: number, inversion: number): ContinuedFractionValue {
+export function leaverFunction(
+  s: number,
+  m: number,
+  c: number,
+  A: number,
+  inversion: number,
+  sigma: 1 | -1 = 1,
+): ContinuedFractionValue {
   const kMinus = Math.abs(m - s) / 2;
   const kPlus = Math.abs(m + s) / 2;
   const kSum = kMinus + kPlus;
-  const beta0 = -(2 * c * (2 * kMinus + s + 1) - kSum * (kSum + 1)) - (c * c + s * (s + 1) + A);
+  const sc = sigma * c;
+  const beta0 = -(2 * c * (2 * sigma * kMinus + s + sigma) - kSum * (kSum + 1)) - (c * c + s * (s + 1) + A);
   const alpha = (n: number) => -2 * (n + 1) * (n + 2 * kMinus + 1);
-  const beta = (n: number) => n * (n - 1) + 2 * n * (kSum + 1 - 2 * c) + beta0;
-  const gamma = (n: number) => 2 * c * (n + kSum + s);
+  const beta = (n: number) => n * (n - 1) + 2 * n * (kSum + 1 - 2 * sc) + beta0;
+  const gamma = (n: number) => 2 * sc * (n + kSum + sigma * s);
 
   // Lower part, bottom-up: t_0 = β_0, t_j = β_j − α_{j−1}γ_j / t_{j−1}; dβ/dA = −1.
   let lower = 0;
@@ -94,6 +102,21 @@ export function leaverFunction(s: number, m: number, c: number, A: number, inver
   if (!converged) {
     throw new ConvergenceError('Leaver continued fraction did not converge', { s, m, c, A, inversion, depth });
   }
+  // Re-sum the tail backwards from beyond the forward convergence depth: the
+  // backward recurrence is the numerically stable one (it follows the minimal
+  // solution), the forward pass only told us how deep to start.
+  const start = inversion + Math.ceil(1.5 * depth) + 10;
+  let t = beta(start);
+  let dt = -1;
+  for (let n = start - 1; n > inversion; n--) {
+    const ak = -alpha(n) * gamma(n + 1);
+    const tNew = beta(n) + ak / t;
+    dt = -1 - (ak * dt) / (t * t);
+    t = tNew;
+  }
+  const a1 = -alpha(inversion) * gamma(inversion + 1);
+  value = a1 / t;
+  derivative = (-a1 * dt) / (t * t);
   return { value: beta(inversion) + lower + value, derivative: -1 + dLower + derivative, depth };
 }
 
@@ -117,13 +140,14 @@ export function leaverRoot(
   inversion: number,
   scale: number,
   maxIterations = 12,
+  sigma: 1 | -1 = 1,
 ): LeaverRoot {
   let A = start;
   let lastStep = Infinity;
   let depth = 0;
   const tolerance = 4e-16 * Math.max(scale, 1);
   for (let it = 1; it <= maxIterations; it++) {
-    const f = leaverFunction(s, m, c, A, inversion);
+    const f = leaverFunction(s, m, c, A, inversion, sigma);
     depth = f.depth;
     const step = f.value / f.derivative;
     if (!Number.isFinite(step)) break;

@@ -182,3 +182,31 @@ export function solveWarm(
   }
   return null;
 }
+
+/**
+ * Cold start without a dense solve: bisection on Sylvester counts isolates the
+ * index-th eigenvalue of the banded matrix, then `solveWarm` refines it.
+ */
+export function solveBisection(
+  s: number,
+  m: number,
+  c: number,
+  lFirst: number,
+  stride: 1 | 2,
+  index: number,
+  size: number,
+): SpectralSolution | null {
+  size = Math.max(size, index + 3);
+  const band = buildBand(s, m, c, lFirst, stride, size);
+  const ws = workspace(size);
+  let lo = -band.norm;
+  let hi = band.norm;
+  const width = 1e-9 * band.norm;
+  for (let it = 0; it < 200 && hi - lo > width; it++) {
+    const mid = 0.5 * (lo + hi);
+    if (ws.factor(band, size, mid) <= index) lo = mid;
+    else hi = mid;
+  }
+  const start = new Float64Array(size).fill(1);
+  return solveWarm(s, m, c, lFirst, stride, index, size, 0.5 * (lo + hi), start);
+}
