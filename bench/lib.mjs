@@ -1,0 +1,79 @@
+// Shared helpers of the benchmarks: statistics, timing, the scipy peer, result files.
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+export const benchDir = dirname(fileURLToPath(import.meta.url));
+
+export function median(values) {
+  const v = values.filter((x) => Number.isFinite(x)).sort((x, y) => x - y);
+  if (v.length === 0) return Number.NaN;
+  const mid = v.length >> 1;
+  return v.length % 2 ? v[mid] : 0.5 * (v[mid - 1] + v[mid]);
+}
+
+export function maximum(values) {
+  return values.filter((x) => Number.isFinite(x)).reduce((x, y) => Math.max(x, y), Number.NEGATIVE_INFINITY);
+}
+
+export function relDiff(x, ref) {
+  return Math.abs(x / ref - 1);
+}
+
+/** Wall time of fn in milliseconds: repeats until at least minMs has elapsed and returns the mean per call. */
+export function timeMs(fn, minMs = 15, maxReps = 200) {
+  let reps = 0;
+  const t0 = performance.now();
+  let t = t0;
+  do {
+    fn();
+    reps++;
+    t = performance.now();
+  } while (t - t0 < minMs && reps < maxReps);
+  return (t - t0) / reps;
+}
+
+export function fmt(x, digits = 2) {
+  if (!Number.isFinite(x)) return String(x);
+  if (x === 0) return '0';
+  const ax = Math.abs(x);
+  return ax >= 1e-2 && ax < 1e5 ? x.toPrecision(digits + 1) : x.toExponential(digits - 1 > 0 ? digits - 1 : 1);
+}
+
+export function table(header, rows) {
+  const cells = [header, ...rows].map((r) => r.map(String));
+  const width = header.map((_, j) => Math.max(...cells.map((r) => r[j].length)));
+  return cells.map((r) => r.map((c, j) => c.padStart(width[j])).join('  ')).join('\n');
+}
+
+export function today() {
+  return new Date().toISOString().slice(0, 10);
+}
+
+export function writeResult(name, payload) {
+  const dir = join(benchDir, 'results');
+  mkdirSync(dir, { recursive: true });
+  const path = join(dir, `${name}-${today()}.json`);
+  writeFileSync(path, JSON.stringify(payload, null, 1) + '\n');
+  return path;
+}
+
+/**
+ * Runs bench/peers/greybody_peer.py on the modes. Returns { ok: true, data } or
+ * { ok: false, reason, detail } when python or scipy is missing (exit status 3).
+ * PENUMBRA_PEER_PYTHON selects the interpreter (default python3).
+ */
+export function runPeer(modes, { tol, rtolFactor = 1 }) {
+  const python = process.env.PENUMBRA_PEER_PYTHON ?? 'python3';
+  const script = join(benchDir, 'peers', 'greybody_peer.py');
+  const run = spawnSync(python, [script, '--tol', String(tol), '--rtol-factor', String(rtolFactor)], {
+    input: JSON.stringify(modes),
+    encoding: 'utf8',
+    maxBuffer: 256 * 1024 * 1024,
+  });
+  if (run.error) return { ok: false, reason: 'scipy not available', detail: `${python} could not be run (${run.error.code ?? run.error.message})` };
+  if (run.status === 3) return { ok: false, reason: 'scipy not available', detail: run.stderr.trim() };
+  if (run.status !== 0) throw new Error(`peer failed with status ${run.status}: ${run.stderr}`);
+  return { ok: true, data: JSON.parse(run.stdout) };
+}
