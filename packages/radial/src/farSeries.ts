@@ -39,8 +39,23 @@ function padTo(p: CPoly, n: number): CPoly {
   return { re, im };
 }
 
+// The same mode is solved at two tolerances (and on both legs of the
+// two-sided route), so recently built series are reused.
+const cache = new Map<string, FarSeries>();
+const CACHE_SIZE = 64;
+
 /** Coefficients c_n (n < maxTerms) of the series with σ = ±1. */
 export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerms = 120): FarSeries {
+  const key = `${hole.mass},${hole.a},${mode.s},${mode.m},${mode.omega},${mode.lambda},${sigma},${maxTerms}`;
+  const hit = cache.get(key);
+  if (hit) return hit;
+  const series = buildFarSeries(hole, mode, sigma, maxTerms);
+  if (cache.size >= CACHE_SIZE) cache.delete(cache.keys().next().value as string);
+  cache.set(key, series);
+  return series;
+}
+
+function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerms: number): FarSeries {
   const { a, mass: M } = hole;
   const { s, omega, m, lambda } = mode;
   const D = deltaPoly(hole);

@@ -46,8 +46,10 @@ export function makeStepper(name: IntegratorName, rhs: Rhs, tol: number, rPlus: 
   if (name === 'odex') {
     const solver = new odex.Solver(4);
     solver.maxSteps = maxSteps;
+    // odex copies the returned array at once, so one buffer serves every call
+    // (saves an allocation per evaluation; garbage collection was ~20 % of the time).
+    const dy = [0, 0, 0, 0];
     const f = (r: number, y: number[]) => {
-      const dy = [0, 0, 0, 0];
       rhs(dy, y, r);
       return dy;
     };
