@@ -3,6 +3,7 @@ import { command as demo } from './demo.js';
 import { command as kerr } from './kerr.js';
 import { command as greybody } from './greybody.js';
 import { command as crossSection } from './crossSection.js';
+import { command as spheroidal } from './spheroidal.js';
 
 /** Every command of the penumbra executable, in the order `penumbra --help` lists them. */
-export const commands: Command[] = [demo, kerr, greybody, crossSection];
+export const commands: Command[] = [demo, kerr, greybody, crossSection, spheroidal];
