@@ -225,7 +225,8 @@ export function validateGrid(raw: unknown): GridSpec {
   });
   const holeSpins = checkList(problems, 'holeSpins', raw.holeSpins, (item, at) => {
     if (!isFiniteNumber(item) || Math.abs(item) > MAX_SPIN) {
-      problems.push(`${at}: expected a/M with |a/M| ≤ ${MAX_SPIN}, got ${show(item)} (the extremal hole is a limit, not an input)`);
+      const note = isFiniteNumber(item) ? ' (the extremal hole a = M is a limit, not an input)' : '';
+      problems.push(`${at}: expected a/M with |a/M| ≤ ${MAX_SPIN}, got ${show(item)}${note}`);
       return undefined;
     }
     return item === 0 ? 0 : item; // −0 and 0 are one hole

@@ -117,10 +117,10 @@ export async function plotTable(table: GridTable, options: PlotOptions = {}): Pr
     data: { values },
     mark: { type: 'line', point: values.length / Math.max(1, series.length) <= 60, clip: true },
     encoding: {
-      x: { field: 'omega', type: 'quantitative', title: 'ω [1/M]', scale: { type: xLog ? 'log' : 'linear', nice: false, zero: false } },
+      x: { field: 'omega', type: 'quantitative', title: 'ω [1/M]', scale: xLog ? { type: 'log', nice: false } : { type: 'linear', nice: false, zero: false } },
       y: {
         field: 'y', type: 'quantitative', title: setup.yTitle,
-        scale: yScale === 'symlog' ? { type: 'symlog', constant: smallest } : { type: yScale, zero: false },
+        scale: yScale === 'symlog' ? { type: 'symlog', constant: smallest } : yScale === 'log' ? { type: 'log' } : { type: 'linear', zero: false },
         axis: { format: yScale === 'linear' ? '~g' : '.0e' },
       },
       color: { field: 'series', type: 'nominal', title: perMode ? 'mode' : 'field, hole', sort: series },

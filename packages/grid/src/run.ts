@@ -96,7 +96,7 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
     doneCost += cost;
     doneTasks++;
     const elapsedSeconds = (Date.now() - started) / 1000;
-    const fraction = totalCost > 0 ? doneCost / totalCost : 1;
+    const fraction = totalCost > 0 && doneTasks < pendingTasks ? Math.min(doneCost / totalCost, 1) : 1;
     options.onProgress?.({
       doneTasks, totalTasks: pendingTasks, fraction, elapsedSeconds,
       etaSeconds: fraction > 0 ? (elapsedSeconds * (1 - fraction)) / fraction : undefined,

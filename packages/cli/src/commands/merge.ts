@@ -1,0 +1,43 @@
+import { GridError, mergeRuns } from '@penumbra/grid';
+import { UsageError, type Command } from '../command.js';
+import { parseOptions } from '../options.js';
+import { failuresText } from './table.js';
+
+export const command: Command = {
+  name: 'merge',
+  summary: "combine the output directories of 'penumbra table --shard' runs into one table",
+  usage: `Usage: penumbra merge DIR... --out OUT
+
+Checks that every DIR holds the same grid, that together they hold every
+chunk of it and that a chunk found twice is the same, then writes OUT with
+the tables a single unsharded run would have written (byte for byte; only
+OUT/run.json, the timing record, differs). OUT may be new, empty, or one of
+the DIRs. Any problem: one message, exit code 2, nothing written.
+
+Options:
+  --out OUT    output directory
+  -h, --help   this text
+
+Example:
+  penumbra merge part-1 part-2 part-3 --out table
+`,
+  run(argv, io) {
+    const { values, positionals } = parseOptions(argv, { out: { type: 'string' } }, true);
+    const problems: string[] = [];
+    if (positionals.length === 0) problems.push('missing the shard directories to merge');
+    if (values.out === undefined) problems.push('missing --out OUT (the output directory)');
+    if (problems.length) throw new UsageError(problems.join('; '));
+    let result;
+    try {
+      result = mergeRuns(positionals, values.out!);
+    } catch (error) {
+      if (error instanceof GridError) throw new UsageError(error.message);
+      throw error;
+    }
+    const s = result.summary;
+    const counts = Object.entries(s.rows).map(([t, n]) => `${t} ${n} rows (${s.failed[t as keyof typeof s.failed]} failed)`).join(', ');
+    io.stderr(`penumbra merge: ${result.chunks} chunks from ${result.sources.length} directories: ${counts}; wrote ${result.files.join(', ')}\n`);
+    io.stderr(failuresText(s));
+    return 0;
+  },
+};
