@@ -4,3 +4,6 @@ export * from './species.js';
 export * from './modes.js';
 export * from './spectrum.js';
 export * from './totals.js';
+export * from './content.js';
+export * from './page.js';
+export * from './evolution.js';

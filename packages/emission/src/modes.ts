@@ -5,7 +5,7 @@
  * Γ·(occupation) is never negative: in the superradiant band of bosons both
  * factors change sign together.
  */
-import { kerrHole, type KerrHole } from '@penumbra/kerr';
+import { ConvergenceError, kerrHole, type KerrHole } from '@penumbra/kerr';
 import { greybody, lowFrequencyGreybody, MIN_MOMEGA, MAX_MOMEGA, type FieldSpin } from '@penumbra/flux';
 
 export interface ModeCounters {
@@ -53,7 +53,17 @@ function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): { gamma
     const g = lowFrequencyGreybody({ spin: ctx.spin, l, m, a: ctx.aStar, omega });
     return { gamma: g, relError: 2 * Math.PI * omega };
   }
-  const r = greybody({ spin: ctx.spin, l, m, a: ctx.aStar, omega }, { tol: ctx.greybodyTol, reflection: false });
+  let r;
+  try {
+    r = greybody({ spin: ctx.spin, l, m, a: ctx.aStar, omega }, { tol: ctx.greybodyTol, reflection: false });
+  } catch (e) {
+    if (e instanceof ConvergenceError) {
+      throw new ConvergenceError(`greybody solve failed inside the emission sum (s = ${ctx.spin}, l = ${l}, m = ${m}, a* = ${ctx.aStar}, Mω = ${omega})`, {
+        ...e.diagnostics, spin: ctx.spin, l, m, aStar: ctx.aStar, omega,
+      });
+    }
+    throw e;
+  }
   ctx.counters.gammaCalls++;
   ctx.counters.rhsEvaluations += r.diagnostics.rhsEvaluations;
   return { gamma: r.gamma, relError: r.relError };

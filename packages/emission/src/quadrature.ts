@@ -51,17 +51,43 @@ export function kronrodPanel(f: (x: number) => number[], lo: number, hi: number,
     k[d] = WGK[7] * centre[d];
     g[d] = WG[3] * centre[d];
   }
+  const left7: number[][] = [];
+  const right7: number[][] = [];
   for (let j = 0; j < 7; j++) {
     const left = f(c - h * XGK[j]);
     const right = f(c + h * XGK[j]);
+    left7.push(left);
+    right7.push(right);
     for (let d = 0; d < dim; d++) {
       const s = left[d] + right[d];
       k[d] += WGK[j] * s;
       if (j % 2 === 1) g[d] += WG[(j - 1) / 2] * s;
     }
   }
+  // QUADPACK's error scaling: |K15 − G7| overstates the K15 error for smooth
+  // integrands, so it is mapped through resasc·min(1, (200·|K − G|/resasc)^1.5),
+  // resasc = ∫|f − mean|, with a floor of 50 ulp of ∫|f|.
+  const resasc = new Array<number>(dim).fill(0);
+  const resabs = new Array<number>(dim).fill(0);
+  for (let d = 0; d < dim; d++) {
+    const mean = 0.5 * k[d];
+    resasc[d] = WGK[7] * Math.abs(centre[d] - mean);
+    resabs[d] = WGK[7] * Math.abs(centre[d]);
+  }
+  for (let j = 0; j < 7; j++) {
+    for (let d = 0; d < dim; d++) {
+      const mean = 0.5 * k[d];
+      resasc[d] += WGK[j] * (Math.abs(left7[j][d] - mean) + Math.abs(right7[j][d] - mean));
+      resabs[d] += WGK[j] * (Math.abs(left7[j][d]) + Math.abs(right7[j][d]));
+    }
+  }
   const value = k.map((v) => v * h);
-  const error = k.map((v, d) => Math.abs((v - g[d]) * h));
+  const error = k.map((v, d) => {
+    let e = Math.abs((v - g[d]) * h);
+    const asc = resasc[d] * Math.abs(h);
+    if (asc !== 0 && e !== 0) e = asc * Math.min(1, Math.pow((200 * e) / asc, 1.5));
+    return Math.max(e, 50 * Number.EPSILON * resabs[d] * Math.abs(h));
+  });
   return { lo, hi, value, error };
 }
 
@@ -88,6 +114,7 @@ export function adaptiveKronrod(
   const dim = tolAbs.length;
   const panels: Panel[] = [];
   for (let i = 0; i + 1 < breaks.length; i++) panels.push(kronrodPanel(f, breaks[i], breaks[i + 1], dim));
+  let created = panels.length;
   const total = (key: 'value' | 'error') =>
     Array.from({ length: dim }, (_, d) => panels.reduce((acc, p) => acc + p[key][d], 0));
   for (;;) {
@@ -95,7 +122,7 @@ export function adaptiveKronrod(
     const val = total('value');
     const target = tolAbs.map((t, d) => Math.max(t, tolRel * Math.abs(val[d])));
     if (err.every((e, d) => e <= target[d])) {
-      return { value: total('value'), error: err, panels: panels.length, evaluations: 15 * panels.length };
+      return { value: total('value'), error: err, panels: panels.length, evaluations: 15 * created };
     }
     if (panels.length >= maxPanels) {
       throw new ConvergenceError('adaptive Gauss–Kronrod quadrature did not converge', {
@@ -117,5 +144,6 @@ export function adaptiveKronrod(
     const p = panels[worst];
     const mid = 0.5 * (p.lo + p.hi);
     panels.splice(worst, 1, kronrodPanel(f, p.lo, mid, dim), kronrodPanel(f, mid, p.hi, dim));
+    created += 2;
   }
 }

@@ -118,7 +118,15 @@ function integrateMode(
     return [weight * r.rate, weight * w * r.rate];
   };
   const tolAbs = [tolN, tolE];
-  let q = adaptiveKronrod(f, initialPanels === 2 ? [0, 0.5 * W, W] : [0, W], tolAbs, 400, tolRel);
+  // Leading modes: break at the thermal scales past the threshold max(mΩ_H, 0), where the
+  // integrand turns over, so bisection does not have to find that scale.
+  const breaks = [0];
+  if (initialPanels > 1) {
+    if (start > 0) breaks.push(0.5 * start, start);
+    for (const x of [4, 10, 20]) if (start + x * T < W) breaks.push(start + x * T);
+  }
+  breaks.push(W);
+  let q = adaptiveKronrod(f, breaks, tolAbs, 400, tolRel);
   let value = q.value.slice();
   let error = q.error.slice();
   let evaluations = q.evaluations;
@@ -187,7 +195,7 @@ function totalsUnit(ctx: ModeContext, tol: number, maxL: number, looseness: numb
           break;
         }
       }
-      const mode = integrateMode(ctx, l, m, weight, tolN, tolE, modeRel, acc, onMode, first ? 2 : 1);
+      const mode = integrateMode(ctx, l, m, weight, tolN, tolE, modeRel, acc, onMode, i === 0 ? 2 : 1);
       first = false;
       sN += mode.number;
       sE += mode.energy;
