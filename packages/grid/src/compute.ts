@@ -5,6 +5,7 @@
  */
 import { absorptionCrossSection, greybody, type GreybodyResult } from '@penumbra/flux';
 import { emissionSpectrum } from '@penumbra/emission';
+import { clearSpheroidalCache } from '@penumbra/spheroidal';
 import type { LRange, Quantity } from './grid.js';
 import type { Row, TableName } from './schema.js';
 import { explicitModes } from './tasks.js';
@@ -88,6 +89,11 @@ function shellMs(l: number): number[] {
 }
 
 export function computeTask(task: TaskMessage): TaskResult {
+  // The eigenvalue solver warm-starts from the last point it solved; which point
+  // that was depends on how tasks were spread over workers, and the warm start
+  // moves the last digits. A cold start per task makes every result independent
+  // of worker count and order.
+  clearSpheroidalCache();
   const q = task.quantities;
   const perMode = q.includes('gamma') || q.includes('reflection');
   const reflection = q.includes('reflection');
