@@ -75,6 +75,24 @@ describe('spheroidalEigenvalue', () => {
     expect(worst).toBeLessThan(1e-12);
   });
 
+  it('reaches l = 60: Leaver agreement below 1e-12 for |c| ≤ 10 and A_{−s} = A_s + 2s to 1e-13 at |c| = 20', () => {
+    for (const s of [-2, -0.5, 1]) {
+      for (const l of [30.5 + (Number.isInteger(s) ? 0.5 : 0), 60 + (Number.isInteger(s) ? 0 : 0.5)]) {
+        for (const m of [-l, s, l - 3]) {
+          for (const c of [-10, 4, 10]) {
+            const r = spheroidalEigenvalue({ s, l, m, c }, { continuation: false, leaver: 'check' });
+            expect(r.diagnostics.agreement).toBeLessThan(1e-12);
+          }
+          for (const c of [-20, 20]) {
+            const plus = spheroidalEigenvalue({ s, l, m, c }, { continuation: false }).A;
+            const minus = spheroidalEigenvalue({ s: -s, l, m, c }, { continuation: false }).A;
+            expect(relativeError(minus, plus + 2 * s)).toBeLessThan(1e-13);
+          }
+        }
+      }
+    }
+  });
+
   it('gives the same value with continuation along c as from a cold start (to 1e-13 relative)', () => {
     clearSpheroidalCache();
     for (let k = 0; k <= 100; k++) {
