@@ -308,6 +308,8 @@ export interface TwoSidedSolution {
   logAbsZOutPlus: number;
   /** ln|Y_out| of the −|s| solution normalised to Δ^{s} e^{−ikr*} at the horizon */
   logAbsYOutMinus: number;
+  /** ln|Y_in| of the same −|s| solution (subdominant at infinity: loses digits like (ωr)^{2s}; for cross-checks) */
+  logAbsYInMinus: number;
   /** R_{+s} and dR_{+s}/dr (normalised to Δ^{−s} e^{−ikr*} at the horizon) at the requested radii */
   samples: RadialSample[];
   k: number;
@@ -361,7 +363,10 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   const segMinus = wantReflection
     ? integrate(hole, minus, y, r0, matchMinus.r, minusStops, tol, options, counter)
     : integrate(hole, minus, y, r0, rSwitch, minusStops, tol, options, counter);
-  const yOut = wantReflection ? matchAmplitudes(y, matchMinus.vin, matchMinus.vout).zOut : { re: Number.NaN, im: Number.NaN };
+  const minusAmps = wantReflection
+    ? matchAmplitudes(y, matchMinus.vin, matchMinus.vout)
+    : { zIn: { re: Number.NaN, im: Number.NaN }, zOut: { re: Number.NaN, im: Number.NaN } };
+  const yOut = minusAmps.zOut;
   const at = segMinus.raw[segMinus.raw.length - 1];
   // Map (R, R') of the −s field to the +s field at the switching radius.
   const map = starobinskyMapAt(hole, minus, rSwitch);
@@ -408,6 +413,7 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
     logAbsZInPlus: logAbs(amp.zIn) + segPlus.logScale - logH,
     logAbsZOutPlus: logAbs(amp.zOut) + segPlus.logScale - logH,
     logAbsYOutMinus: logAbs(yOut) + segMinus.logScale,
+    logAbsYInMinus: logAbs(minusAmps.zIn) + segMinus.logScale,
     samples,
     k,
     switchRadius: rSwitch,

@@ -52,3 +52,27 @@ describe('Teukolsky–Starobinsky map', () => {
     }
   });
 });
+
+describe('+s and −s formulations', () => {
+  it('give the same |Z_in| where both are computed: |Y_in| of the −s field, mapped by (2ω)^{2s}/|h_s|, matches |Z_in| of the +s field (1e-6 relative, property, fast-check)', async () => {
+    const fc = (await import('fast-check')).default;
+    fc.assert(
+      fc.property(
+        fc.constantFrom(0.5, 1, 2),
+        fc.double({ min: -0.99, max: 0.99, noNaN: true }),
+        fc.double({ min: 0.2, max: 1.5, noNaN: true }),
+        fc.double({ min: -2, max: 6, noNaN: true }),
+        (s, a, omega, lambdaPlus) => {
+          const hole = kerrHole(a);
+          const m = s;
+          const sol = solveTwoSided({ hole, s, m, omega, lambda: lambdaPlus }, { tol: 1e-13 });
+          const h = starobinskyHorizonFactor(hole, s, omega - m * hole.omegaH);
+          // D^{2s} maps e^{−iωr*}/r to (−2iω)^{2s} e^{−iωr*}/r: Z_in = (−2iω)^{2s} Y_in / h_s.
+          const lnFromMinus = 2 * s * Math.log(2 * omega) + sol.logAbsYInMinus - Math.log(Math.hypot(h[0], h[1]));
+          return Math.abs(Math.expm1(lnFromMinus - sol.logAbsZInPlus)) < 1e-6;
+        },
+      ),
+      { numRuns: 30, seed: 5 },
+    );
+  });
+});
