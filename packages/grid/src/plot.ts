@@ -68,6 +68,30 @@ function scaleFor(values: number[]): 'linear' | 'log' | 'symlog' {
   return values.every((v) => v > 0) ? 'log' : 'symlog';
 }
 
+/** Powers of ten (with sign) across the data, at most about a dozen: symlog axes get no useful ticks of their own. */
+function symlogTicks(values: number[]): number[] {
+  const magnitudes = values.map(Math.abs).filter((v) => v > 0);
+  const low = Math.floor(Math.log10(Math.min(...magnitudes)));
+  const high = Math.ceil(Math.log10(Math.max(...magnitudes)));
+  const step = Math.max(1, Math.ceil((high - low + 1) / 6));
+  const ticks: number[] = [0];
+  for (let k = high; k >= low; k -= step) {
+    const p = 10 ** k;
+    if (values.some((v) => v >= p / 10)) ticks.push(p);
+    if (values.some((v) => v <= -p / 10)) ticks.push(-p);
+  }
+  return ticks.sort((x, y) => x - y);
+}
+
+/** Vega numbers clip paths with a process-wide counter; renumber per figure so equal inputs give equal bytes. */
+function renumberIds(svg: string): string {
+  const ids = new Map<string, string>();
+  return svg.replace(/\bclip\d+\b/g, (id) => {
+    if (!ids.has(id)) ids.set(id, `clip${ids.size + 1}`);
+    return ids.get(id)!;
+  });
+}
+
 export async function plotTable(table: GridTable, options: PlotOptions = {}): Promise<PlotResult> {
   const available = plotQuantities(table);
   const quantity = options.quantity ?? available.find((q) => q !== 'reflection' && q !== 'energySpectra');
@@ -121,7 +145,7 @@ export async function plotTable(table: GridTable, options: PlotOptions = {}): Pr
       y: {
         field: 'y', type: 'quantitative', title: setup.yTitle,
         scale: yScale === 'symlog' ? { type: 'symlog', constant: smallest } : yScale === 'log' ? { type: 'log' } : { type: 'linear', zero: false },
-        axis: { format: yScale === 'linear' ? '~g' : '.0e' },
+        axis: { format: yScale === 'linear' ? '~g' : '.0e', ...(yScale === 'symlog' ? { values: symlogTicks(values.map((v) => v.y)) } : {}) },
       },
       color: { field: 'series', type: 'nominal', title: perMode ? 'mode' : 'field, hole', sort: series },
       order: { field: 'omega', type: 'quantitative' },
@@ -129,7 +153,7 @@ export async function plotTable(table: GridTable, options: PlotOptions = {}): Pr
   };
   const view = new vega.View(vega.parse(compile(spec).spec), { renderer: 'none' });
   try {
-    const svg = await view.toSVG();
+    const svg = renumberIds(await view.toSVG());
     return { svg, quantity, series, points: values.length, omitted, xLog, yScale };
   } finally {
     view.finalize();
