@@ -63,8 +63,10 @@ function run(fns: PageFunctions, aStar0: number, tol: number) {
     track.push({ massRatio: Math.exp(-integ.t), aStar: integ.y[0], time: integ.y[1] });
     us.push(integ.t);
   }
-  track.push({ massRatio: Math.exp(-integ.t), aStar: integ.y[0], time: integ.y[1] });
-  us.push(integ.t);
+  if (integ.t > us[us.length - 1]) {
+    track.push({ massRatio: Math.exp(-integ.t), aStar: integ.y[0], time: integ.y[1] });
+    us.push(integ.t);
+  }
   const last = track[track.length - 1];
   const a = Math.max(0, last.aStar);
   const lifetime = last.time + Math.exp(-3 * U_END) / (3 * fns.f(a));

@@ -10,6 +10,7 @@
  * Interpolation error: the same interpolant built on every other node,
  * compared at the omitted nodes, divided by 2⁴.
  */
+import { readFileSync } from 'node:fs';
 import { InputError } from '@penumbra/kerr';
 import { MAX_SPIN } from '@penumbra/flux';
 import { emissionTotals } from './totals.js';
@@ -151,4 +152,14 @@ export function pageFunctions(table: PageTable, content?: readonly SpeciesSpec[]
     nodeError: { f: Math.max(...fErr.map((e, i) => e / fNodes[i])), g: Math.max(...gErr.map((e, i) => e / gNodes[i])) },
     nodes: { aStar: table.aStar.slice(), f: fNodes, g: gNodes },
   };
+}
+
+/**
+ * The table shipped with the package (data/page-table.json, made by
+ * scripts/make-page-table.mjs: 50 nodes, a* ≤ 0.99, tol 1e-5 per node).
+ */
+export function bundledPageTable(): PageTable {
+  const text = readFileSync(new URL('../data/page-table.json', import.meta.url), 'utf8');
+  const t = JSON.parse(text) as PageTable;
+  return { aStar: t.aStar, theta: t.theta, spins: t.spins, tol: t.tol, gammaCalls: t.gammaCalls };
 }
