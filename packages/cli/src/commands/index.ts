@@ -7,6 +7,8 @@ import { command as table } from './table.js';
 import { command as merge } from './merge.js';
 import { command as plot } from './plot.js';
 import { command as spheroidal } from './spheroidal.js';
+import { command as emission } from './emission.js';
+import { command as evolve } from './evolve.js';
 
 /** Every command of the penumbra executable, in the order `penumbra --help` lists them. */
-export const commands: Command[] = [demo, kerr, greybody, crossSection, table, merge, plot, spheroidal];
+export const commands: Command[] = [demo, kerr, greybody, crossSection, table, merge, plot, spheroidal, emission, evolve];

@@ -1,0 +1,97 @@
+import {
+  bundledPageTable,
+  evolutionTimeUnitSeconds,
+  evolveHole,
+  pageFunctions,
+  pageTable,
+  resolveContent,
+  type PageTable,
+} from '@penumbra/emission';
+import type { Command } from '../command.js';
+import { UsageError } from '../command.js';
+import { formatNumber, formatTable, parseMassUnit, parseNumber, parseNumberList, parseOptions, requireOption, writeJson } from '../options.js';
+
+export const command: Command = {
+  name: 'evolve',
+  summary: 'evaporation history of a hole: lifetime and the track a*(M) from Page\'s f(a*), g(a*)',
+  usage: `Usage: penumbra evolve --a SPIN [--mass M --unit g|kg|msun] [--content LIST] [--below A1,A2,…] [--table-points N] [--json|--csv]
+
+Integrates dM/dt = −f(a*)/M², dJ/dt = −g(a*) a*/M (Page 1976) from a* = a/M.
+f and g come from the table shipped with @penumbra/emission (50 nodes,
+a* ≤ 0.99); --table-points N recomputes a table of N nodes (slow: minutes).
+
+Options:
+  --a SPIN          initial a/M (0 … 0.99 with the shipped table)
+  --mass M          initial mass (default 1 g), with --unit g, kg or msun
+  --content LIST    species, e.g. photon,graviton,neutrino-e (default: photons, gravitons, three neutrino species)
+  --below LIST      report when a* first falls below these values (default 0.5,0.1)
+  --table-points N  compute a fresh f, g table with N nodes instead of the shipped one
+  --points N        track points printed (default 40)
+  --json            JSON {lifetimeSeconds, lifetimeOverMassCubed, track: [{time, mass, aStar}], crossings, diagnostics}
+  --csv             the track as CSV with units in the header
+  -h, --help        this text
+
+Example:
+  penumbra evolve --a 0.99 --mass 1e15 --unit g --json
+`,
+  run(argv, io) {
+    const { values } = parseOptions(argv, {
+      a: { type: 'string' },
+      mass: { type: 'string' },
+      unit: { type: 'string' },
+      content: { type: 'string' },
+      below: { type: 'string' },
+      'table-points': { type: 'string' },
+      points: { type: 'string' },
+      json: { type: 'boolean' },
+      csv: { type: 'boolean' },
+    });
+    const aStar = parseNumber('--a', requireOption(values.a, '--a', 'the initial spin a/M'), { min: 0, max: 0.9999 });
+    const mass = values.mass === undefined ? 1 : parseNumber('--mass', values.mass, { min: 0, exclusive: true });
+    const unit = parseMassUnit('--unit', values.unit ?? 'g');
+    const content = values.content === undefined ? undefined : values.content.split(',').map((s) => s.trim());
+    if (content) resolveContent(content);
+    const below = values.below === undefined ? [0.5, 0.1] : parseNumberList('--below', values.below, { min: 0, max: 1, exclusive: true });
+    const nPrint = values.points === undefined ? 40 : parseNumber('--points', values.points, { min: 2, max: 100_000, integer: true });
+    let table: PageTable;
+    if (values['table-points'] !== undefined) {
+      const n = parseNumber('--table-points', values['table-points'], { min: 5, max: 2000, integer: true });
+      table = pageTable({ points: n, aMax: Math.max(0.99, aStar), onPoint: (done, total) => io.stderr(`evolve: f, g table ${done}/${total}\n`) });
+    } else {
+      table = bundledPageTable();
+      if (aStar > table.aStar[table.aStar.length - 1]) {
+        throw new UsageError(`--a ${aStar} is beyond the shipped table (a* ≤ ${table.aStar[table.aStar.length - 1]}); add --table-points N`);
+      }
+    }
+    const fns = pageFunctions(table, content);
+    const ev = evolveHole(fns, aStar, { aStarThresholds: below });
+    const unitSeconds = evolutionTimeUnitSeconds(mass, unit);
+    // Thin the track to about nPrint points, keeping the ends.
+    const stride = Math.max(1, Math.floor(ev.track.length / nPrint));
+    const track = ev.track
+      .filter((_, i) => i % stride === 0 || i === ev.track.length - 1)
+      .map((p) => ({ timeSeconds: p.time * unitSeconds, mass: p.massRatio * mass, aStar: p.aStar }));
+    const result = {
+      aStar0: aStar,
+      mass0: mass,
+      unit,
+      lifetimeSeconds: ev.lifetime * unitSeconds,
+      lifetimeOverMassCubed: ev.lifetime,
+      crossings: ev.crossings.map((c) => ({ aStar: c.aStar, timeSeconds: c.time * unitSeconds })),
+      f0: fns.f(aStar),
+      g0: fns.g(aStar),
+      track,
+      diagnostics: { ...ev.diagnostics, interpolationError: fns.interpolationError, nodeError: fns.nodeError },
+    };
+    if (values.json) writeJson(io, result);
+    else if (values.csv) {
+      io.stdout([`time [s],mass [${unit}],a* [1]`, ...track.map((p) => [p.timeSeconds, p.mass, p.aStar].join(','))].join('\n') + '\n');
+    } else {
+      io.stdout(`evaporation of a hole of ${formatNumber(mass, 6)} ${unit}, a* = ${aStar}\n`);
+      io.stdout(`lifetime: ${formatNumber(result.lifetimeSeconds, 6)} s  (${formatNumber(ev.lifetime, 8)} M₀³ in Planck units)\n`);
+      for (const c of result.crossings) io.stdout(`a* < ${c.aStar} after ${formatNumber(c.timeSeconds, 6)} s\n`);
+      io.stdout(formatTable([['t [s]', `M [${unit}]`, 'a*'], ...track.map((p) => [formatNumber(p.timeSeconds, 6), formatNumber(p.mass, 6), formatNumber(p.aStar, 6)])]));
+    }
+    return 0;
+  },
+};

@@ -1,0 +1,47 @@
+import { describe, expect, test } from 'vitest';
+import { CODATA2018 } from '@penumbra/kerr';
+import { emissionTotals } from '@penumbra/emission';
+import { run } from './helpers.js';
+
+describe('penumbra emission', () => {
+  test('prints totals per dof with numberRate, power, torque and relError, equal to the library result', async () => {
+    const r = await run('emission', '--a', '0', '--spin', '1', '--tol', '1e-4', '--json');
+    expect(r.code).toBe(0);
+    const json = JSON.parse(r.stdout);
+    for (const key of ['numberRate', 'power', 'torque']) {
+      expect(json[key]).toHaveProperty('value');
+      expect(json[key]).toHaveProperty('relError');
+    }
+    const lib = emissionTotals({ spin: 1, a: 0 }, { tol: 1e-4 });
+    expect(json.power.value).toBe(lib.power.value);
+    // photons: 2 dof × P ≈ 3.36e-5/M² (Page, Phys. Rev. D 13, 198 (1976), value from memory), three figures
+    expect(Math.abs((2 * json.power.value) / 3.36e-5 - 1)).toBeLessThan(2e-3);
+  });
+  test('with --mass the power is also given in watts, P̂ ħc⁶/(G²M²) with CODATA 2018 constants (to 1e-12)', async () => {
+    const json = JSON.parse((await run('emission', '--a', '0', '--spin', '0', '--mass', '1e15', '--unit', 'g', '--tol', '1e-3', '--json')).stdout);
+    const { G, hbar, c } = CODATA2018;
+    expect(Math.abs(json.physical.powerWatts / ((json.power.value * hbar * c ** 6) / (G * G * 1e24)) - 1)).toBeLessThan(1e-12);
+  });
+  test('a frequency grid adds spectrum rows; CSV carries units in the header', async () => {
+    const j = JSON.parse((await run('emission', '--a', '0', '--spin', '0', '--omega', '0.1:0.3:3', '--tol', '1e-3', '--json')).stdout);
+    expect(j.spectrum).toHaveLength(3);
+    expect(j.spectrum[1].omega).toBeCloseTo(0.2, 15);
+    const csv = (await run('emission', '--a', '0', '--spin', '0', '--omega', '0.1:0.3:3', '--tol', '1e-3', '--csv')).stdout.trim().split('\n');
+    expect(csv[0]).toContain('omega [1/M]');
+    expect(csv[0]).toContain('d2N/dtdomega [1]');
+    expect(csv).toHaveLength(4);
+  });
+  test('bad input gives one readable line and exit code 2', async () => {
+    for (const argv of [
+      ['emission', '--a', '0', '--spin', '3'],
+      ['emission', '--a', '1.5', '--spin', '1'],
+      ['emission', '--a', '0', '--spin', '1', '--tol', '0.5'],
+      ['emission', '--a', '0', '--spin', '1', '--mass', '-1'],
+      ['emission', '--a', '0', '--spin', '1', '--omega', '0.3:0.1:3'],
+    ]) {
+      const r = await run(...argv);
+      expect(r.code).toBe(2);
+      expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    }
+  });
+});

@@ -1,0 +1,27 @@
+import { describe, expect, test } from 'vitest';
+import { run } from './helpers.js';
+
+describe('penumbra evolve', () => {
+  test('prints the lifetime and a track with mass falling and a* falling (default content)', async () => {
+    const r = await run('evolve', '--a', '0.99', '--mass', '1e15', '--unit', 'g', '--json');
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.stdout);
+    expect(j.lifetimeSeconds).toBeGreaterThan(0);
+    expect(j.track.length).toBeGreaterThan(10);
+    for (let i = 1; i < j.track.length; i++) {
+      expect(j.track[i].mass).toBeLessThan(j.track[i - 1].mass);
+      expect(j.track[i].aStar).toBeLessThanOrEqual(j.track[i - 1].aStar);
+    }
+    expect(j.crossings.map((c: { aStar: number }) => c.aStar)).toEqual([0.5, 0.1]);
+  });
+  test('Schwarzschild lifetime with photons, gravitons and two neutrino species ≈ 8.66e-27 (M/1 g)³ s (Page 1976, value from memory) to 2e-3', async () => {
+    const j = JSON.parse((await run('evolve', '--a', '0', '--mass', '1', '--unit', 'g', '--content', 'photon,graviton,neutrino-e,neutrino-mu', '--json')).stdout);
+    expect(Math.abs(j.lifetimeSeconds / 8.66e-27 - 1)).toBeLessThan(2e-3);
+  });
+  test('CSV track with units in the header; unknown species and out-of-range a* exit with code 2', async () => {
+    const csv = (await run('evolve', '--a', '0.5', '--csv', '--points', '5')).stdout.trim().split('\n');
+    expect(csv[0]).toBe('time [s],mass [g],a* [1]');
+    expect((await run('evolve', '--a', '0.5', '--content', 'axion')).code).toBe(2);
+    expect((await run('evolve', '--a', '1.2')).code).toBe(2);
+  });
+});
