@@ -46,7 +46,8 @@ describe('evaporation history', () => {
     for (let i = 1; i < ev.track.length; i++) {
       expect(ev.track[i].massRatio).toBeLessThan(ev.track[i - 1].massRatio);
       expect(ev.track[i].aStar).toBeLessThanOrEqual(ev.track[i - 1].aStar);
-      expect(ev.track[i].time).toBeGreaterThan(ev.track[i - 1].time);
+      // late steps add e^{−3u} ≈ 1e-16 of the lifetime: below double resolution, so ≥
+      expect(ev.track[i].time).toBeGreaterThanOrEqual(ev.track[i - 1].time);
     }
     const [half, tenth] = ev.crossings;
     expect(half.time).toBeGreaterThan(0);
