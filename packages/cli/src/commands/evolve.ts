@@ -66,11 +66,15 @@ Example:
     const fns = pageFunctions(table, content);
     const ev = evolveHole(fns, aStar, { aStarThresholds: below });
     const unitSeconds = evolutionTimeUnitSeconds(mass, unit);
-    // Thin the track to about nPrint points, keeping the ends.
-    const stride = Math.max(1, Math.floor(ev.track.length / nPrint));
-    const track = ev.track
-      .filter((_, i) => i % stride === 0 || i === ev.track.length - 1)
-      .map((p) => ({ timeSeconds: p.time * unitSeconds, mass: p.massRatio * mass, aStar: p.aStar }));
+    // Thin the track to about nPrint points evenly spaced in mass (ODE steps crowd at small M), keeping the ends.
+    const picked: typeof ev.track = [];
+    for (let k = 0, j = 0; k < nPrint - 1; k++) {
+      const target = 1 - k / (nPrint - 1);
+      while (j < ev.track.length - 1 && ev.track[j].massRatio > target) j++;
+      if (picked[picked.length - 1] !== ev.track[j]) picked.push(ev.track[j]);
+    }
+    picked.push(ev.track[ev.track.length - 1]);
+    const track = picked.map((p) => ({ timeSeconds: p.time * unitSeconds, mass: p.massRatio * mass, aStar: p.aStar }));
     const result = {
       aStar0: aStar,
       mass0: mass,
