@@ -2,15 +2,18 @@
 // (bench/peers/greybody_peer.py) on one fixed mode set, at the same requested
 // accuracy. Accuracy of both is measured against penumbra at tol 1e-12 and,
 // for a = 0, against the independent Regge–Wheeler/Dirac solver.
+// Times: process CPU time (immune to preemption on a shared machine) and wall time.
 // Run with `npm run bench` (builds first). Results: bench/results/greybody-<date>.json.
 import os from 'node:os';
 import { greybody } from '@penumbra/flux';
 import { schwarzschildGreybody } from '@penumbra/regge-wheeler';
 import { clearSpheroidalCache, spheroidalEigenvalue } from '@penumbra/spheroidal';
-import { fmt, maximum, median, relDiff, runPeer, table, timeMs, writeResult } from './lib.mjs';
+import { cpuMsPerCall, fmt, maximum, median, medianMs, relDiff, runPeer, table, writeResult } from './lib.mjs';
 
 const TOL = 1e-8; // penumbra's default tolerance, and the peer's requested accuracy
 const REFERENCE_TOL = 1e-12;
+// Both sides: each mode timed this many times, the median kept (shared machines see load spikes).
+const TIMING_REPEATS = 3;
 const SPINS = [0, 0.5, 1, 2];
 const SPIN_PARAMETERS = [0, 0.7, 0.99];
 const OMEGAS = [0.05, 0.3, 0.8, 2];
@@ -86,21 +89,25 @@ function main() {
         residual: r.residual,
         rhsEvaluations: r.diagnostics.rhsEvaluations,
         // penumbra's time includes the eigenvalue solve (cache cleared); the peer gets A as an input
-        ms: timeMs(() => {
+        ms: medianMs(() => {
+          clearSpheroidalCache();
+          greybody(problem, { tol: run.tol });
+        }, TIMING_REPEATS),
+        msCachedEigenvalue: medianMs(() => greybody(problem, { tol: run.tol }), TIMING_REPEATS),
+        cpuMs: cpuMsPerCall(() => {
           clearSpheroidalCache();
           greybody(problem, { tol: run.tol });
         }),
-        msCachedEigenvalue: timeMs(() => greybody(problem, { tol: run.tol })),
       };
     }
     const gammaOnly = greybody(problem, { reflection: false });
-    row.penumbra.gammaOnly = { rhsEvaluations: gammaOnly.diagnostics.rhsEvaluations, ms: timeMs(() => greybody(problem, { reflection: false })) };
+    row.penumbra.gammaOnly = { rhsEvaluations: gammaOnly.diagnostics.rhsEvaluations, ms: medianMs(() => greybody(problem, { reflection: false }), TIMING_REPEATS) };
   }
 
   const peerMeta = [];
   let peerSkipped = null;
   for (const run of PEER_RUNS) {
-    const peer = runPeer(rows.map(({ spin, l, m, a, omega, A }) => ({ spin, l, m, a, omega, A })), { tol: TOL, rtolFactor: run.rtolFactor });
+    const peer = runPeer(rows.map(({ spin, l, m, a, omega, A }) => ({ spin, l, m, a, omega, A })), { tol: TOL, rtolFactor: run.rtolFactor, repeat: TIMING_REPEATS });
     if (!peer.ok) {
       peerSkipped = `${peer.reason}: ${peer.detail}`;
       console.log(`peer skipped: ${peer.reason}\n  (${peer.detail})`);
@@ -111,7 +118,7 @@ function main() {
     results.forEach((p, i) => {
       rows[i].peer[run.label] = p.error
         ? { error: p.error, gamma: Number.NaN, ms: 1e3 * p.seconds }
-        : { gamma: p.gamma, ms: 1e3 * p.seconds, rhsEvaluations: p.rhsEvaluations, steps: p.steps, matchRadius: p.matchRadius };
+        : { gamma: p.gamma, ms: 1e3 * p.seconds, cpuMs: 1e3 * p.cpuSeconds, rhsEvaluations: p.rhsEvaluations, steps: p.steps, matchRadius: p.matchRadius };
     });
   }
   const peerRuns = peerSkipped ? [] : PEER_RUNS;
@@ -123,6 +130,7 @@ function main() {
       s.penumbra[run.label] = {
         msPerMode: median(set.map((r) => r.penumbra[run.label].ms)),
         msPerModeCachedEigenvalue: median(set.map((r) => r.penumbra[run.label].msCachedEigenvalue)),
+        cpuMsPerMode: median(set.map((r) => r.penumbra[run.label].cpuMs)),
         ...accuracy(set, (r) => r.penumbra[run.label]),
       };
     }
@@ -132,7 +140,11 @@ function main() {
     };
     s.referenceVsReggeWheeler = maximum(set.filter((r) => r.a === 0).map((r) => relDiff(r.reference, r.reggeWheeler)));
     for (const run of peerRuns) {
-      s.peer[run.label] = { msPerMode: median(set.map((r) => r.peer[run.label].ms)), ...accuracy(set, (r) => r.peer[run.label]) };
+      s.peer[run.label] = {
+        msPerMode: median(set.map((r) => r.peer[run.label].ms)),
+        cpuMsPerMode: median(set.map((r) => r.peer[run.label].cpuMs)),
+        ...accuracy(set, (r) => r.peer[run.label]),
+      };
     }
     // Equal accuracy: the loosest peer run whose median and max errors are no
     // worse than penumbra's; if none is, the most accurate peer run (flagged).
@@ -148,6 +160,9 @@ function main() {
         peerAtLeastAsAccurate: Boolean(match),
         penumbraMs: pen.msPerMode,
         peerMs: peer.msPerMode,
+        penumbraCpuMs: pen.cpuMsPerMode,
+        peerCpuMs: peer.cpuMsPerMode,
+        speedupCpu: peer.cpuMsPerMode / pen.cpuMsPerMode,
         speedup: peer.msPerMode / pen.msPerMode,
         speedupCachedEigenvalue: peer.msPerMode / pen.msPerModeCachedEigenvalue,
       });
@@ -155,7 +170,7 @@ function main() {
     return s;
   });
 
-  console.log('\nTime and cost per mode (median over the modes of each spin). Penumbra times include the spheroidal eigenvalue solve (cache cleared; cached in brackets); the peer receives A as an input.');
+  console.log(`\nTime and cost per mode (median over the modes of each spin. CPU time: penumbra per call over a batch ≥ 20 ms, the peer median of ${TIMING_REPEATS} runs; wall time: median of ${TIMING_REPEATS} single runs, both sides). Penumbra times include the spheroidal eigenvalue solve (cache cleared; cached in brackets); the peer receives A as an input.`);
   const cfgs = [
     ...PENUMBRA_RUNS.map((r) => ({ label: r.label, get: (s) => s.penumbra[r.label], penumbra: true })),
     ...peerRuns.map((r) => ({ label: r.label, get: (s) => s.peer[r.label] })),
@@ -163,19 +178,21 @@ function main() {
   for (const spin of SPINS) {
     const s = summary.find((x) => x.spin === spin);
     console.log(`\nspin ${spin} (${s.modes} modes)`);
-    console.log(table(['solver', 'ms/mode', 'RHS evals/mode', 'median rel. error', 'max rel. error', 'max vs RW (a=0)', 'failed'], cfgs.map((c) => {
+    console.log(table(['solver', 'CPU ms/mode', 'wall ms/mode', 'RHS evals/mode', 'median rel. error', 'max rel. error', 'max vs RW (a=0)', 'failed'], cfgs.map((c) => {
       const x = c.get(s);
-      return [c.label, c.penumbra ? `${fmt(x.msPerMode)} [${fmt(x.msPerModeCachedEigenvalue)}]` : fmt(x.msPerMode), Math.round(x.rhsEvaluationsPerMode),
+      return [c.label, fmt(x.cpuMsPerMode), c.penumbra ? `${fmt(x.msPerMode)} [${fmt(x.msPerModeCachedEigenvalue)}]` : fmt(x.msPerMode), Math.round(x.rhsEvaluationsPerMode),
         fmt(x.medianRelError), fmt(x.maxRelError), fmt(x.maxRelErrorVsReggeWheeler), x.failures];
     })));
     for (const e of s.equalAccuracy) {
-      console.log(`  ${e.penumbra} vs ${e.peer}${e.peerAtLeastAsAccurate ? '' : ' (peer still less accurate)'}: ${fmt(e.speedup)}× faster (${fmt(e.speedupCachedEigenvalue)}× with A cached)`);
+      console.log(`  ${e.penumbra} vs ${e.peer}${e.peerAtLeastAsAccurate ? '' : ' (peer still less accurate)'}: ${fmt(e.speedupCpu)}× less CPU time; wall ${fmt(e.speedup)}× (${fmt(e.speedupCachedEigenvalue)}× with A cached)`);
     }
     console.log(`  penumbra Γ only (reflection: false): ${fmt(s.penumbra.gammaOnly.msPerMode)} ms, ${Math.round(s.penumbra.gammaOnly.rhsEvaluationsPerMode)} RHS evals; reference (tol ${REFERENCE_TOL}) vs Regge–Wheeler: ${fmt(s.referenceVsReggeWheeler)}`);
   }
   if (peerRuns.length) {
-    console.log('\nRatio peer/penumbra of median ms per mode (penumbra default tolerance, eigenvalue included):');
-    console.log(table(['spin', ...peerRuns.map((r) => r.label)], summary.map((s) => [s.spin, ...peerRuns.map((r) => `${fmt(s.peer[r.label].msPerMode / s.penumbra[PENUMBRA_RUNS[0].label].msPerMode)}×`)])));
+    console.log('\nRatio peer/penumbra of median CPU ms per mode [wall ms in brackets] (penumbra default tolerance, eigenvalue included):');
+    const d = PENUMBRA_RUNS[0].label;
+    console.log(table(['spin', ...peerRuns.map((r) => r.label)], summary.map((s) => [s.spin, ...peerRuns.map((r) =>
+      `${fmt(s.peer[r.label].cpuMsPerMode / s.penumbra[d].cpuMsPerMode)}× [${fmt(s.peer[r.label].msPerMode / s.penumbra[d].msPerMode)}×]`)])));
   }
 
   const path = writeResult('greybody', {
@@ -185,6 +202,7 @@ function main() {
     cpus: cpus.length,
     loadAverage: os.loadavg(),
     referenceTol: REFERENCE_TOL,
+    timingRepeats: TIMING_REPEATS,
     penumbraRuns: PENUMBRA_RUNS,
     peerRuns: PEER_RUNS,
     peerSkipped,

@@ -21,17 +21,32 @@ export function relDiff(x, ref) {
   return Math.abs(x / ref - 1);
 }
 
-/** Wall time of fn in milliseconds: repeats until at least minMs has elapsed and returns the mean per call. */
-export function timeMs(fn, minMs = 15, maxReps = 200) {
-  let reps = 0;
-  const t0 = performance.now();
-  let t = t0;
+/** Median wall time in milliseconds of `runs` single calls: robust against load spikes on a shared machine. */
+export function medianMs(fn, runs = 5) {
+  const times = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    fn();
+    times.push(performance.now() - t0);
+  }
+  return median(times);
+}
+
+/**
+ * CPU milliseconds per call of fn (process CPU time over a batch of calls, so
+ * preemption by other processes does not count).
+ */
+export function cpuMsPerCall(fn, minCpuMs = 20, maxCalls = 200) {
+  const start = process.cpuUsage();
+  let calls = 0;
+  let used = 0;
   do {
     fn();
-    reps++;
-    t = performance.now();
-  } while (t - t0 < minMs && reps < maxReps);
-  return (t - t0) / reps;
+    calls++;
+    const d = process.cpuUsage(start);
+    used = (d.user + d.system) / 1e3;
+  } while (used < minCpuMs && calls < maxCalls);
+  return used / calls;
 }
 
 export function fmt(x, digits = 2) {
@@ -64,10 +79,10 @@ export function writeResult(name, payload) {
  * { ok: false, reason, detail } when python or scipy is missing (exit status 3).
  * PENUMBRA_PEER_PYTHON selects the interpreter (default python3).
  */
-export function runPeer(modes, { tol, rtolFactor = 1 }) {
+export function runPeer(modes, { tol, rtolFactor = 1, repeat = 1 }) {
   const python = process.env.PENUMBRA_PEER_PYTHON ?? 'python3';
   const script = join(benchDir, 'peers', 'greybody_peer.py');
-  const run = spawnSync(python, [script, '--tol', String(tol), '--rtol-factor', String(rtolFactor)], {
+  const run = spawnSync(python, [script, '--tol', String(tol), '--rtol-factor', String(rtolFactor), '--repeat', String(repeat)], {
     input: JSON.stringify(modes),
     encoding: 'utf8',
     maxBuffer: 256 * 1024 * 1024,
