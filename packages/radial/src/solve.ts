@@ -8,7 +8,7 @@
  * Z_in dominates at infinity, so it is extracted without cancellation even
  * when Γ ~ 1e-30; see docs/method.md for the numerical trap this avoids.
  */
-import { ConvergenceError, InputError, type KerrHole } from '@penumbra/kerr';
+import { ConvergenceError, InputError, tortoiseFromHorizonDistance, type KerrHole } from '@penumbra/kerr';
 import { horizonSeriesStart, horizonWavenumber, type HorizonStart } from './horizonSeries.js';
 import { evaluateFar, farSeries, type FarValue } from './farSeries.js';
 import type { RadialMode } from './equation.js';
@@ -34,6 +34,8 @@ export interface RadialOptions {
   maxSteps?: number;
   /** ODE integrator (default 'odex') */
   integrator?: IntegratorName;
+  /** integrate R itself ('plain', default) or u = e^{iφ}R with the ingoing phase removed ('phase'; a second formulation for cross-checks) */
+  variable?: 'phase' | 'plain';
 }
 
 export interface Complex2 {
@@ -146,6 +148,70 @@ function radialRhs(hole: KerrHole, mode: RadialMode, counter: { evaluations: num
   };
 }
 
+/**
+ * Right-hand side for u = e^{iφ} R with φ' = K/Δ, the phase of the ingoing
+ * horizon solution (e^{−ikr*} near r+, e^{−iωr*} far away). Substituting into
+ * the radial equation (docs/method.md, section 7):
+ *   Δu'' + [(s+1)Δ' − 2iK]u' + [2i(2s − 1)ωr − λ − 2isΔ'K/Δ]u = 0,
+ * whose ingoing solution does not carry the e^{−ikr*} winding near the
+ * horizon. Measured, it is not cheaper in general (the far-zone outgoing part
+ * then oscillates at 2ω), so it is kept as an independent second formulation
+ * for cross-checks rather than as the default.
+ */
+function phaseRhs(hole: KerrHole, mode: RadialMode, counter: { evaluations: number }): Rhs {
+  const { s, omega, lambda: lam } = mode;
+  const M = hole.mass;
+  const am = hole.a * mode.m;
+  const a2 = hole.a * hole.a;
+  const rPlus = hole.rPlus, rMinus = hole.rMinus;
+  return (dy, y, r) => {
+    counter.evaluations++;
+    const D = (r - rPlus) * (r - rMinus);
+    const dD = 2 * (r - M);
+    const K = (r * r + a2) * omega - am;
+    const P = (s + 1) * dD;
+    const Pi = -2 * K;
+    const Qre = -lam;
+    const Qim = 2 * (2 * s - 1) * omega * r - (2 * s * dD * K) / D;
+    const iD = 1 / D;
+    dy[0] = y[2];
+    dy[1] = y[3];
+    dy[2] = -(P * y[2] - Pi * y[3] + Qre * y[0] - Qim * y[1]) * iD;
+    dy[3] = -(P * y[3] + Pi * y[2] + Qre * y[1] + Qim * y[0]) * iD;
+  };
+}
+
+/** φ(r) = ∫K/Δ dr = ω r* − (am/(r+ − r−)) ln((r − r+)/(r − r−)). */
+function phaseAt(hole: KerrHole, mode: RadialMode, r: number): number {
+  const x = r - hole.rPlus;
+  const b = hole.rPlus - hole.rMinus;
+  return mode.omega * tortoiseFromHorizonDistance(hole, x) - ((hole.a * mode.m) / b) * Math.log(x / (x + b));
+}
+
+/** (R, R') ↔ (u, u') with u = e^{iφ}R, u' = e^{iφ}(R' + iK/Δ R); direction −1 inverts. */
+function convertPhase(hole: KerrHole, mode: RadialMode, r: number, y: Float64Array | number[], direction: 1 | -1): void {
+  const phi = direction * phaseAt(hole, mode, r);
+  const c = Math.cos(phi), sn = Math.sin(phi);
+  const W = (direction * ((r * r + hole.a * hole.a) * mode.omega - hole.a * mode.m)) / ((r - hole.rPlus) * (r - hole.rMinus));
+  if (direction === 1) {
+    // u' = e^{iφ}(R' + iWR)
+    const dRe = y[2] - W * y[1], dIm = y[3] + W * y[0];
+    const uRe = c * y[0] - sn * y[1], uIm = sn * y[0] + c * y[1];
+    y[2] = c * dRe - sn * dIm;
+    y[3] = sn * dRe + c * dIm;
+    y[0] = uRe;
+    y[1] = uIm;
+  } else {
+    // R = e^{−iφ}u, R' = e^{−iφ}(u' − iWu); here W already carries the sign.
+    const RRe = c * y[0] - sn * y[1], RIm = sn * y[0] + c * y[1];
+    const dRe = c * y[2] - sn * y[3], dIm = sn * y[2] + c * y[3];
+    y[0] = RRe;
+    y[1] = RIm;
+    y[2] = dRe - W * RIm;
+    y[3] = dIm + W * RRe;
+  }
+}
+
 /** Horizon start for the ingoing solution, moved inward while the series cancels digits. */
 function startAtHorizon(hole: KerrHole, mode: RadialMode, options: RadialOptions): HorizonStart {
   const b = hole.rPlus - hole.rMinus;
@@ -193,7 +259,10 @@ function integrate(
 ): Segment {
   const integratorName = options.integrator ?? 'odex';
   const maxSteps = options.maxSteps ?? 200_000;
-  const stepper = makeStepper(integratorName, radialRhs(hole, mode, counter), tol, hole.rPlus, maxSteps);
+  const phased = options.variable === 'phase';
+  const rhs = phased ? phaseRhs(hole, mode, counter) : radialRhs(hole, mode, counter);
+  const stepper = makeStepper(integratorName, rhs, tol, hole.rPlus, maxSteps);
+  if (phased) convertPhase(hole, mode, r0, y, 1);
   let logScale = logScale0;
   let rescalings = 0;
   let steps = 0;
@@ -228,11 +297,14 @@ function integrate(
       }
     }
     if (stops.includes(target)) {
+      const yr = Array.from(y);
+      if (phased) convertPhase(hole, mode, target, yr, -1);
       const f = Math.exp(logScale);
-      samples.push({ r: target, R: { re: y[0] * f, im: y[1] * f }, dR: { re: y[2] * f, im: y[3] * f } });
-      raw.push({ r: target, y: Array.from(y), logScale });
+      samples.push({ r: target, R: { re: yr[0] * f, im: yr[1] * f }, dR: { re: yr[2] * f, im: yr[3] * f } });
+      raw.push({ r: target, y: yr, logScale });
     }
   }
+  if (phased) convertPhase(hole, mode, rEnd, y, -1);
   if (!y.every(Number.isFinite)) {
     throw new ConvergenceError('radial integration produced non-finite values', { steps, rhsEvaluations: counter.evaluations });
   }
