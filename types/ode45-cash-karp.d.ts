@@ -1,5 +1,6 @@
+// Minimal typing for the untyped CommonJS integrator ode45-cash-karp 1.1.0, shared by the packages that use it.
 declare module 'ode45-cash-karp' {
-  type Deriv = (dydt: Float64Array | number[], y: Float64Array | number[], t: number) => void;
+  type Deriv = (dydt: Float64Array, y: Float64Array, t: number) => void;
   interface Options {
     tol?: number;
     maxIncreaseFactor?: number;
@@ -18,6 +19,6 @@ declare module 'ode45-cash-karp' {
     step(tLimit?: number): boolean;
     steps(n: number, tLimit?: number): boolean | undefined;
   }
-  function ode45(y0: Float64Array | number[], deriv: Deriv, t0: number, dt0: number, options?: Options): Integrator;
+  function ode45(y0: Float64Array, deriv: Deriv, t0: number, dt0: number, options?: Options): Integrator;
   export = ode45;
 }
