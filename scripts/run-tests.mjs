@@ -14,7 +14,13 @@ let skipped = 0;
 try {
   const report = JSON.parse(readFileSync(out, 'utf8'));
   passed = report.numPassedTests ?? 0;
-  failed = (report.numFailedTests ?? 0) + (report.numFailedTestSuites ?? 0) ;
+  failed = report.numFailedTests ?? 0;
+  // A test file that failed without any failed test (e.g. it could not be
+  // imported) counts as one failure, so a broken file is never invisible.
+  for (const file of report.testResults ?? []) {
+    const anyFailed = (file.assertionResults ?? []).some((a) => a.status === 'failed');
+    if (file.status === 'failed' && !anyFailed) failed++;
+  }
   skipped = (report.numPendingTests ?? 0) + (report.numTodoTests ?? 0);
 } catch {
   failed = failed || 1;
