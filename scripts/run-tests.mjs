@@ -25,5 +25,10 @@ try {
 } catch {
   failed = failed || 1;
 }
+// vitest can fail outside any test (an unhandled error): never report that as all green.
+if (run.status !== 0 && failed === 0) {
+  console.log('vitest exited with an error outside the tests (see above)');
+  failed = 1;
+}
 console.log(`${passed} passed, ${failed} failed` + (skipped ? `, ${skipped} skipped` : ''));
 process.exit(run.status ?? 1);
