@@ -39,16 +39,32 @@ export function basisLayout(s: number, l: number, m: number): { lFirst: number; 
   return { lFirst: lmin, stride: 1, index: l - lmin };
 }
 
-export function buildBand(s: number, m: number, c: number, lFirst: number, stride: 1 | 2, size: number): Band {
-  // Full (stride 1) diagonals over l = lFirst … lFirst + stride·(size−1) + 2.
-  const fullSize = stride * (size - 1) + 3;
-  const a = new Float64Array(fullSize + 1);
-  const b = new Float64Array(fullSize + 1);
-  for (let j = 0; j <= fullSize; j++) {
+/** The c-independent cosθ couplings a(l), b(l) from lFirst on, cached per (s, m, lFirst): building them dominated warm solves. */
+const couplingCache = new Map<string, { a: Float64Array; b: Float64Array }>();
+const COUPLING_CACHE_LIMIT = 1024;
+
+function couplings(s: number, m: number, lFirst: number, length: number): { a: Float64Array; b: Float64Array } {
+  const key = `${2 * s},${2 * m},${2 * lFirst}`;
+  const cached = couplingCache.get(key);
+  if (cached && cached.a.length >= length) return cached;
+  const n = Math.max(length, 2 * (cached?.a.length ?? 0), 32);
+  const a = new Float64Array(n);
+  const b = new Float64Array(n);
+  for (let j = 0; j < n; j++) {
     const l = lFirst + j;
     a[j] = cosOffDiagonal(l, m, s);
     b[j] = cosDiagonal(l, m, s);
   }
+  if (!cached && couplingCache.size >= COUPLING_CACHE_LIMIT) couplingCache.clear();
+  const entry = { a, b };
+  couplingCache.set(key, entry);
+  return entry;
+}
+
+export function buildBand(s: number, m: number, c: number, lFirst: number, stride: 1 | 2, size: number): Band {
+  // Full (stride 1) diagonals over l = lFirst … lFirst + stride·(size−1) + 2.
+  const fullSize = stride * (size - 1) + 3;
+  const { a, b } = couplings(s, m, lFirst, fullSize + 1);
   const aBelow = cosOffDiagonal(lFirst - 1, m, s); // a(l−1) for l = lFirst (zero when lFirst = lmin)
   const d0 = new Float64Array(size);
   const d1 = new Float64Array(size);

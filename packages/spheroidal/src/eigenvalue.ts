@@ -1,8 +1,18 @@
-import { InputError, requireFinite } from '@penumbra/kerr';
-import { basisLayout } from './band.js';
+import { ConvergenceError, InputError, requireFinite } from '@penumbra/kerr';
+import { basisLayout, buildBand } from './band.js';
 import { leaverRoot } from './leaver.js';
 import { checkModeNumbers, checkRealC, lowestL, sphericalEigenvalue } from './quantum.js';
-import { type SpectralSolution, estimateSize, solveBisection, solveDense, solveWarm } from './spectral.js';
+import {
+  type SpectralSolution,
+  estimateSize,
+  settledSolution,
+  settleEigenvalue,
+  settleEigenvalueCold,
+  solveBisection,
+  solveDense,
+  solveWarm,
+  tailConverged,
+} from './spectral.js';
 
 export interface SpheroidalQuery {
   s: number;
@@ -103,21 +113,21 @@ export function solveMode(q: SpheroidalQuery, options: SolveOptions = {}): Solve
   }
 
   const { lFirst, stride, index } = basisLayout(s, l, m);
+  // The truncation follows from a history-free guess, so that warm and cold
+  // solves work on the same band (see `settle`).
+  const size = Math.max(estimateSize(s, m, c, lFirst, stride, index, sphericalEigenvalue(s, l) - 0.5 * c * c), index + 3);
   let spectral: SpectralSolution | null = null;
   if (previous) {
     const prevA = previous.result.A;
     const dAdc = previous.spectral ? previous.spectral.dAdc : 0;
     const guess = prevA + dAdc * (c - previous.c);
-    const size = estimateSize(s, m, c, lFirst, stride, index, guess);
     spectral = solveWarm(s, m, c, lFirst, stride, index, size, guess, previous.spectral?.vector ?? null);
   } else {
-    const guess = sphericalEigenvalue(s, l) - 0.5 * c * c;
-    spectral = solveBisection(s, m, c, lFirst, stride, index, estimateSize(s, m, c, lFirst, stride, index, guess));
+    spectral = solveBisection(s, m, c, lFirst, stride, index, size);
   }
-  if (!spectral) {
-    const guess = sphericalEigenvalue(s, l) - 0.5 * c * c;
-    spectral = solveDense(s, m, c, lFirst, stride, index, estimateSize(s, m, c, lFirst, stride, index, guess));
-  }
+  spectral ??= solveDense(s, m, c, lFirst, stride, index, size);
+
+  spectral = settle(s, m, c, lFirst, stride, index, size, spectral);
 
   let A = spectral.A;
   const diagnostics: SpheroidalDiagnostics = {
@@ -139,6 +149,45 @@ export function solveMode(q: SpheroidalQuery, options: SolveOptions = {}): Solve
   const result: SpheroidalEigenvalue = { s, l, m, c, A, E: A + s * (s + 1), diagnostics };
   if (useCache) remember(key, { c, leaver, result, spectral });
   return { result, spectral };
+}
+
+/**
+ * Make the result a function of (s, l, m, c) alone. The warm or cold solve only
+ * supplies a seed; the returned eigenvalue is the Sylvester-count step of a
+ * band whose size follows from a history-free guess, located by dyadic
+ * bisection to adjacent floats (`settleEigenvalue`), and the eigenvector comes
+ * from inverse iteration at that value from a fixed start. Continuation still
+ * pays: the seed lets the bisection skip all but the last ~10–15 levels.
+ */
+function settle(
+  s: number,
+  m: number,
+  c: number,
+  lFirst: number,
+  stride: 1 | 2,
+  index: number,
+  initialSize: number,
+  solved: SpectralSolution,
+): SpectralSolution {
+  let size = initialSize;
+  let seed = solved.A;
+  // The seed is a converged Rayleigh quotient: within a few ε‖K‖ of the step.
+  let margin = Math.max(64 * solved.residual, 4e-15) * solved.band.norm;
+  for (let attempt = 0; attempt < 8; attempt++) {
+    const band = size === solved.band.size ? solved.band : buildBand(s, m, c, lFirst, stride, size);
+    const point =
+      settleEigenvalue(band, index, seed, margin) ??
+      settleEigenvalue(band, index, seed, 1e-9 * band.norm) ??
+      settleEigenvalueCold(band, index);
+    const settled = settledSolution(band, point.A, solved.iterations + point.counts, solved.method);
+    if (tailConverged(settled)) return settled;
+    seed = point.A;
+    margin = 1e-13 * band.norm;
+    size = Math.ceil(size * 1.5) + 8;
+  }
+  throw new ConvergenceError('spheroidal spectral expansion did not converge in the deterministic finish', {
+    s, m, c, index, size,
+  });
 }
 
 /**

@@ -210,3 +210,91 @@ export function solveBisection(
   const start = new Float64Array(size).fill(1);
   return solveWarm(s, m, c, lFirst, stride, index, size, 0.5 * (lo + hi), start);
 }
+
+/**
+ * Deterministic finish: the index-th eigenvalue of the band as the point where
+ * the Sylvester count of K − σI steps from `index` to `index + 1`, found by
+ * bisection on the fixed dyadic hierarchy of [−B, B] (B = the power of two
+ * above ‖K‖) down to adjacent floats. The result depends only on the band, not
+ * on how the seed was obtained. The seed only lets us skip the levels whose
+ * midpoint is farther than `margin` from it: there the count is decided by
+ * which side of the eigenvalue the midpoint lies, so skipping changes nothing;
+ * the first bracket actually used is checked by two counts. Returns null if
+ * that check fails (seed not within `margin`).
+ */
+export function settleEigenvalue(
+  band: Band,
+  index: number,
+  seed: number,
+  margin: number,
+): { A: number; counts: number } | null {
+  const n = band.size;
+  const ws = workspace(n);
+  const B = 2 ** Math.ceil(Math.log2(band.norm));
+  // Stop at adjacent floats, or at 2⁻⁶⁰B for eigenvalues near zero (absolute
+  // accuracy of any eigenvalue is ~ε‖K‖, far above that).
+  const floor = B * 2 ** -60;
+  let lo = -B;
+  let hi = B;
+  let counts = 0;
+  let checked = false;
+  for (;;) {
+    const mid = 0.5 * (lo + hi);
+    if (mid <= lo || mid >= hi || hi - lo <= floor) break;
+    if (mid < seed - margin) {
+      lo = mid;
+      continue;
+    }
+    if (mid > seed + margin) {
+      hi = mid;
+      continue;
+    }
+    if (!checked) {
+      checked = true;
+      if (lo > -B) {
+        counts++;
+        if (ws.factor(band, n, lo) > index) return null;
+      }
+      if (hi < B) {
+        counts++;
+        if (ws.factor(band, n, hi) <= index) return null;
+      }
+    }
+    counts++;
+    if (ws.factor(band, n, mid) <= index) lo = mid;
+    else hi = mid;
+  }
+  return { A: 0.5 * (lo + hi), counts };
+}
+
+/** Full dyadic bisection without a seed: the same definition, every level counted. */
+export function settleEigenvalueCold(band: Band, index: number): { A: number; counts: number } {
+  return settleEigenvalue(band, index, 0, Infinity) as { A: number; counts: number };
+}
+
+/**
+ * Eigenvector for an eigenvalue known to the last bit: two steps of inverse
+ * iteration at σ = A from a fixed start vector, so that it too depends only on
+ * the band. Pivots that vanish at σ = A are nudged (see BandFactor.factor).
+ */
+export function settledSolution(band: Band, A: number, iterations: number, method: SpectralSolution['method']): SpectralSolution {
+  const n = band.size;
+  const ws = workspace(n);
+  ws.factor(band, n, A);
+  const x = new Float64Array(n);
+  for (let i = 0; i < n; i++) x[i] = 1 / Math.sqrt(n) + (i % 3) * 1e-3;
+  for (let step = 0; step < 2; step++) {
+    ws.solve(n, x);
+    let norm2 = 0;
+    for (let i = 0; i < n; i++) norm2 += x[i] * x[i];
+    const inv = 1 / Math.sqrt(norm2);
+    for (let i = 0; i < n; i++) x[i] *= inv;
+  }
+  const solution = finishSolution(band, x, iterations, method);
+  // Keep the bisected value; the Rayleigh quotient of x only enters the residual.
+  return { ...solution, A, vector: solution.vector };
+}
+
+export function tailConverged(solution: SpectralSolution): boolean {
+  return tailIsConverged(solution.vector, solution.band.size, solution.band.stride);
+}
