@@ -121,7 +121,7 @@ export function greybody(problem: GreybodyProblem, options: GreybodyOptions = {}
   // At the superradiant threshold k = 0 exactly the ingoing and outgoing horizon
   // solutions coincide; Γ vanishes there for bosons (it is proportional to k).
   if (k === 0 && spin !== 0.5) {
-    return result(p, 0, 1, 0, k, C2, tol, 0, undefined, 0);
+    return result(p, { gamma: 0, reflection: 1, relError: 0, k, C2, odeTol: tol, attempts: 0, integrator, extraEvaluations: 0 });
   }
 
   let odeTol = Math.max(tol * 1e-3, 1e-14);
@@ -133,8 +133,10 @@ export function greybody(problem: GreybodyProblem, options: GreybodyOptions = {}
     const relError = Math.abs(Math.expm1(fine.lnGamma - coarse.lnGamma)) + 1e-15;
     const gamma = fine.sign * Math.exp(fine.lnGamma);
     if (relError <= tol) {
-      return result(p, gamma, fine.reflection, relError, k, C2, odeTol, attempt, fine.diagnostics,
-        coarse.diagnostics.rhsEvaluations);
+      return result(p, {
+        gamma, reflection: fine.reflection, relError, k, C2, odeTol, attempts: attempt, integrator,
+        d: fine.diagnostics, extraEvaluations: coarse.diagnostics.rhsEvaluations,
+      });
     }
     if (attempt === 3) {
       throw new ConvergenceError('greybody factor did not reach the requested accuracy', {
@@ -186,17 +188,24 @@ function solveMode(p: Prepared, opts: TwoSidedOptions): ModeSolve {
   };
 }
 
+interface Outcome {
+  gamma: number;
+  reflection: number;
+  relError: number;
+  k: number;
+  C2: number;
+  odeTol: number;
+  attempts: number;
+  integrator: IntegratorName;
+  /** diagnostics of the accepted solve (none at the exact threshold) */
+  d?: RadialDiagnostics;
+  /** right-hand-side evaluations of the error-estimate solve */
+  extraEvaluations: number;
+}
+
 function result(
   p: Prepared,
-  gamma: number,
-  reflection: number,
-  relError: number,
-  k: number,
-  C2: number,
-  odeTol: number,
-  attempts: number,
-  d: RadialDiagnostics | undefined,
-  extraEvaluations: number,
+  { gamma, reflection, relError, k, C2, odeTol, attempts, integrator, d, extraEvaluations }: Outcome,
 ): GreybodyResult {
   return {
     spin: p.spin,
@@ -214,7 +223,7 @@ function result(
     superradiant: p.spin !== 0.5 && k < 0,
     diagnostics: {
       method: d ? d.method : 'superradiant threshold: Γ = 0 exactly',
-      integrator: (d?.method.split('/').pop() as IntegratorName) ?? 'odex',
+      integrator,
       odeTol,
       startRadius: d?.startRadius ?? Number.NaN,
       matchRadius: d?.matchRadius ?? Number.NaN,

@@ -45,22 +45,24 @@ export function starobinskyConstantSquared(
   const lm = lambdaPlus + 2 * s; // λ_{−s}
   const amw = a * m * omega;
   const a2w2 = a * a * omega * omega;
+  // |C|² is a squared modulus. For large mc > 0 it becomes exponentially small
+  // (for s = 1/2 it is Chandrasekhar's Dirac eigenvalue squared), and forming
+  // it from A cancels to rounding level, which may leave −1e-13: clamp at zero.
+  // The reflection it multiplies is then correspondingly tiny.
   switch (s) {
     case 0:
       return 1;
     case 0.5:
-      // λ_{−1/2} is a square (Chandrasekhar's Dirac eigenvalue squared) that
-      // falls exponentially for large mc > 0, where forming it from A cancels
-      // to rounding level and may come out as −1e-14: clamp at zero.
       return Math.max(lm, 0);
     case 1:
-      return lm * lm + 4 * amw - 4 * a2w2;
+      return Math.max(lm * lm + 4 * amw - 4 * a2w2, 0);
     case 2: {
       const Q = lm + 2;
-      return (
+      return Math.max(
         (Q * Q + 4 * amw - 4 * a2w2) * ((Q - 2) * (Q - 2) + 36 * amw - 36 * a2w2) +
-        (2 * Q - 1) * (96 * a2w2 - 48 * amw) +
-        144 * omega * omega * (M * M - a * a)
+          (2 * Q - 1) * (96 * a2w2 - 48 * amw) +
+          144 * omega * omega * (M * M - a * a),
+        0,
       );
     }
     default:
