@@ -115,15 +115,17 @@ export function solveMode(q: SpheroidalQuery, options: SolveOptions = {}): Solve
   const { lFirst, stride, index } = basisLayout(s, l, m);
   // The truncation follows from a history-free guess, so that warm and cold
   // solves work on the same band (see `settle`).
-  const size = Math.max(estimateSize(s, m, c, lFirst, stride, index, sphericalEigenvalue(s, l) - 0.5 * c * c), index + 3);
+  // Six terms beyond the estimate: a failed tail check costs a second bisection,
+  // six more terms cost little (measured on the bench workload).
+  const size = Math.max(estimateSize(s, m, c, lFirst, stride, index, sphericalEigenvalue(s, l) - 0.5 * c * c) + 6, index + 3);
   let spectral: SpectralSolution | null = null;
   if (previous) {
     const prevA = previous.result.A;
     const dAdc = previous.spectral ? previous.spectral.dAdc : 0;
     const guess = prevA + dAdc * (c - previous.c);
-    spectral = solveWarm(s, m, c, lFirst, stride, index, size, guess, previous.spectral?.vector ?? null);
+    spectral = solveWarm(s, m, c, lFirst, stride, index, size, guess, previous.spectral?.vector ?? null, false);
   } else {
-    spectral = solveBisection(s, m, c, lFirst, stride, index, size);
+    spectral = solveBisection(s, m, c, lFirst, stride, index, size, false);
   }
   spectral ??= solveDense(s, m, c, lFirst, stride, index, size);
 

@@ -139,6 +139,8 @@ export function solveWarm(
   size: number,
   aGuess: number,
   vectorGuess: Float64Array | null,
+  /** With false, return the eigenpair of this size without the tail check (a seed for `settle`). */
+  growToTail = true,
 ): SpectralSolution | null {
   size = Math.max(size, index + 3);
   for (let attempt = 0; attempt < 4; attempt++) {
@@ -176,7 +178,7 @@ export function solveWarm(
     const delta = Math.max(1e-11 * band.norm, 1e-9);
     if (ws.factor(band, size, sigma - delta) !== index) return null;
     if (ws.factor(band, size, sigma + delta) !== index + 1) return null;
-    if (tailIsConverged(x, size, stride)) return finishSolution(band, x, iterations, 'spectral-rqi');
+    if (!growToTail || tailIsConverged(x, size, stride)) return finishSolution(band, x, iterations, 'spectral-rqi');
     size = Math.ceil(size * 1.5) + 8;
     vectorGuess = x;
   }
@@ -195,6 +197,7 @@ export function solveBisection(
   stride: 1 | 2,
   index: number,
   size: number,
+  growToTail = true,
 ): SpectralSolution | null {
   size = Math.max(size, index + 3);
   const band = buildBand(s, m, c, lFirst, stride, size);
@@ -208,7 +211,7 @@ export function solveBisection(
     else hi = mid;
   }
   const start = new Float64Array(size).fill(1);
-  return solveWarm(s, m, c, lFirst, stride, index, size, 0.5 * (lo + hi), start);
+  return solveWarm(s, m, c, lFirst, stride, index, size, 0.5 * (lo + hi), start, growToTail);
 }
 
 /**
