@@ -1,4 +1,4 @@
-import { radialSeparationConstant, spheroidalEigenvalue, spheroidalHarmonic } from '@penumbra/spheroidal';
+import { radialSeparationConstant, spheroidalEigenvalue, spheroidalEigenvalueComplex, spheroidalHarmonic } from '@penumbra/spheroidal';
 
 // Gravitational (s = −2) l = m = 2 mode of a hole with a = 0.9 M at Mω = 0.5: c = aω.
 const a = 0.9;
@@ -19,3 +19,7 @@ console.log(`S = ${Array.from(S, (v) => v.toFixed(8)).join(', ')}; dS/dθ = ${Ar
 // A frequency sweep: each call warm-starts from the previous c of the same mode.
 const sweep = Array.from({ length: 5 }, (_, i) => spheroidalEigenvalue({ s: -2, l: 3, m: 1, c: 2 * i }).A);
 console.log(`A(s=−2, l=3, m=1; c = 0, 2, …, 8) = ${sweep.map((v) => v.toFixed(6)).join(', ')}`);
+
+// A damped mode: complex c = aω with Im ω < 0, continued from the real axis (|c| ≤ 10, |Im c| ≤ min(|Re c|, 4)).
+const damped = spheroidalEigenvalueComplex({ s: -2, l: 2, m: 2, c: { re: a * 0.5, im: -a * 0.1 } });
+console.log(`complex c: A = ${damped.A.re.toFixed(12)} ${damped.A.im < 0 ? '−' : '+'} ${Math.abs(damped.A.im).toFixed(12)}i (Leaver agreement ${damped.diagnostics.agreement.toExponential(1)})`);

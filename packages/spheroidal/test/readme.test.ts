@@ -9,10 +9,11 @@ test('the README example is examples/spheroidal.ts verbatim, runs, and shows A_{
   const lines: string[] = [];
   vi.spyOn(console, 'log').mockImplementation((line: string) => void lines.push(line));
   await import('../examples/spheroidal.js');
-  expect(lines).toHaveLength(4);
+  expect(lines).toHaveLength(5);
   const A = /^A = (-?[\d.]+)/.exec(lines[0])?.[1];
   const plus = /= (-?[\d.]+)$/.exec(lines[1])?.[1];
   expect(A).toBeDefined();
   expect(A).toBe(plus);
   expect(lines[3]).toMatch(/c = 0, 2, …, 8\) = 10\.000000, /);
+  expect(lines[4]).toMatch(/^complex c: A = -?[\d.]+ [−+] [\d.]+i \(Leaver agreement /);
 });
