@@ -89,7 +89,7 @@ const RESCALE = 1e-300;
  * cancellation. Starting closer than necessary costs digits for s > 0
  * (the outgoing horizon solution is relatively amplified), so no closer.
  */
-export function defaultStartFraction(hole: KerrHole, omega: number, _k: number): number {
+export function defaultStartFraction(hole: KerrHole, omega: number): number {
   return Math.min(0.25, 0.5 / (Math.abs(omega) * hole.rPlus));
 }
 
@@ -215,8 +215,7 @@ function convertPhase(hole: KerrHole, mode: RadialMode, r: number, y: Float64Arr
 /** Horizon start for the ingoing solution, moved inward while the series cancels digits. */
 function startAtHorizon(hole: KerrHole, mode: RadialMode, options: RadialOptions): HorizonStart {
   const b = hole.rPlus - hole.rMinus;
-  const k = horizonWavenumber(hole, mode);
-  const fraction = options.startFraction ?? defaultStartFraction(hole, mode.omega, k);
+  const fraction = options.startFraction ?? defaultStartFraction(hole, mode.omega);
   if (!(fraction > 0 && fraction < 1)) throw new InputError('startFraction', '0 < startFraction < 1', fraction);
   let x0 = fraction * b;
   // Large |k|/κ near extremality makes the terms swell before they decay.
