@@ -226,7 +226,7 @@ rerun \`npm run validate\` once it does.
 
 // ---------- 5. superradiance maxima ----------
 function peakAmplification(spin, l, m, a, n = 40) {
-  const omegaH = kerrHole(a).omegaH;
+  const omegaH = kerrHole({ a: a }).omegaH;
   const f = (w) => greybody({ spin, l, m, a, omega: w }, { tol: 1e-7, reflection: false }).amplification;
   let best = 0;
   let bestW = 0;
@@ -390,7 +390,7 @@ let worstResidual = 0;
         for (const m of [l, -l]) {
           if (a === 0 && m < 0) continue; // Γ does not depend on m at a = 0
           for (const omega of omegas) {
-            if (Math.abs(omega - m * kerrHole(a).omegaH) < 1e-9) continue;
+            if (Math.abs(omega - m * kerrHole({ a: a }).omegaH) < 1e-9) continue;
             const r = greybody({ spin, l, m, a, omega });
             worstResidual = Math.max(worstResidual, r.residual);
             gammaData.push({ spin, a: `a = ${a}`, mode: `l = ${halfLabel(l)}`, m: m > 0 ? 'm = +l' : 'm = −l', omega, gamma: r.gamma });
@@ -460,7 +460,7 @@ let worstResidual = 0;
   for (const [spin, l, m] of cases) {
     const data = [];
     for (const a of [0.9, 0.99, 0.999]) {
-      const omegaH = kerrHole(a).omegaH;
+      const omegaH = kerrHole({ a: a }).omegaH;
       for (let i = 1; i <= 65; i++) {
         const x = (1.3 * i) / 65;
         if (Math.abs(x - 1) < 1e-9) continue;

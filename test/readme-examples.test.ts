@@ -104,7 +104,7 @@ describe('the README block runner', () => {
       '```',
       '```ts runnable',
       "import { kerrHole } from '@penumbra/kerr';",
-      'console.log(`r+ = ${kerrHole(0.9).rPlus.toFixed(12)}`);',
+      'console.log(`r+ = ${kerrHole({ a: 0.9 }).rPlus.toFixed(12)}`);',
       '```',
     ].join('\n');
     const blocks = codeBlocks(markdown);

@@ -16,8 +16,8 @@ export interface BackgroundReport {
 }
 
 export function backgroundReport({ spinRatio, mass, unit }: BackgroundRequest): BackgroundReport {
-  if (unit === undefined) return { hole: kerrHole(spinRatio * mass, mass) };
-  const hole = kerrHole(spinRatio);
+  if (unit === undefined) return { hole: kerrHole({ a: spinRatio * mass, mass }) };
+  const hole = kerrHole({ a: spinRatio });
   return { hole, physical: { mass, unit, ...physicalBackground(hole, mass, unit) } };
 }
 

@@ -114,7 +114,7 @@ export function parseNumberList(option: string, text: string, constraints: Numbe
  */
 export function parseSpinRatio(option: string, text: string): number {
   const value = parseNumber(option, text);
-  kerrHole(value, 1);
+  kerrHole({ a: value, mass: 1 });
   return value;
 }
 

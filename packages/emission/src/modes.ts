@@ -27,7 +27,7 @@ export function modeContext(spin: FieldSpin, aStar: number, greybodyTol: number)
   return {
     spin,
     aStar,
-    hole: kerrHole(aStar, 1),
+    hole: kerrHole({ a: aStar, mass: 1 }),
     fermion: spin === 0.5,
     greybodyTol,
     counters: { gammaCalls: 0, rhsEvaluations: 0 },

@@ -102,7 +102,7 @@ function prepare(problem: GreybodyProblem): Prepared {
   const { l, m } = validateMode(spin, problem.l, problem.m);
   const { a, mass } = validateHole(problem.a, problem.mass ?? 1);
   const omega = validateOmega(problem.omega, mass);
-  const hole = kerrHole(a, mass);
+  const hole = kerrHole({ a, mass });
   const eig = spheroidalEigenvalue({ s: spin, l, m, c: a * omega });
   const lambdaPlus = radialSeparationConstant(eig.A, a, omega, m);
   return { spin, l, m, hole, omega, A: eig.A, lambdaPlus };

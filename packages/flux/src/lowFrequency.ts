@@ -29,7 +29,7 @@ export function lowFrequencyGreybody(q: { spin: number; l: number; m: number; a:
   const s = validateSpin(q.spin);
   const { l, m } = validateMode(s, q.l, q.m);
   const { a, mass } = validateHole(q.a, q.mass ?? 1);
-  const hole = kerrHole(a, mass);
+  const hole = kerrHole({ a, mass });
   const k = q.omega - m * hole.omegaH;
   const kap = hole.kappa;
   const pre = (factorial(l - s) * factorial(l + s)) / (factorial(2 * l) * doubleFactorial(2 * l + 1));

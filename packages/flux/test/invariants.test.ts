@@ -36,7 +36,7 @@ describe('greybody invariants', () => {
     fc.assert(
       fc.property(modeArb, fc.double({ min: -0.9999, max: 0.9999, noNaN: true }), fc.double({ min: 1e-3, max: 4, noNaN: true }), (mode, a, omega) => {
         const g = greybody({ ...mode, a, omega });
-        const superradiant = mode.spin !== 0.5 && omega < mode.m * kerrHole(a).omegaH;
+        const superradiant = mode.spin !== 0.5 && omega < mode.m * kerrHole({ a: a }).omegaH;
         const bounded = superradiant || (g.gamma >= 0 && g.gamma <= 1 + 1e-8);
         return g.residual < 1e-8 && g.relError <= 1e-8 && bounded;
       }),

@@ -13,7 +13,7 @@ import { kerrHole } from '@penumbra/kerr';
 import { greybody } from '@penumbra/flux';
 
 function peakAmplification(spin: number, l: number, m: number, a: number, n = 40): number {
-  const omegaH = kerrHole(a).omegaH;
+  const omegaH = kerrHole({ a: a }).omegaH;
   let best = 0;
   // coarse scan, then a golden-section polish around the best point
   let bestW = 0;
@@ -66,7 +66,7 @@ describe('superradiant amplification', () => {
         fc.double({ min: 0.05, max: 1.95, noNaN: true }),
         (spin, a, fraction) => {
           const l = Math.max(spin, 1), m = l;
-          const omegaH = kerrHole(a).omegaH;
+          const omegaH = kerrHole({ a: a }).omegaH;
           const omega = fraction * m * omegaH;
           const g = greybody({ spin, l, m, a, omega }, { tol: 1e-6, reflection: false });
           return fraction < 1 ? g.gamma < 0 && g.superradiant : g.gamma > 0 && !g.superradiant;
@@ -79,7 +79,7 @@ describe('superradiant amplification', () => {
   it('s = 1/2 never amplifies: 0 < Γ ≤ 1 across the would-be superradiant band (property, fast-check)', () => {
     fc.assert(
       fc.property(fc.double({ min: 0.3, max: 0.9999, noNaN: true }), fc.double({ min: 0.05, max: 1.5, noNaN: true }), (a, fraction) => {
-        const omega = fraction * 0.5 * kerrHole(a).omegaH;
+        const omega = fraction * 0.5 * kerrHole({ a: a }).omegaH;
         const g = greybody({ spin: 0.5, l: 0.5, m: 0.5, a, omega }, { tol: 1e-6 });
         return g.gamma > 0 && g.gamma <= 1 + 1e-9 && !g.superradiant;
       }),
@@ -89,7 +89,7 @@ describe('superradiant amplification', () => {
 
   it('Γ crosses zero smoothly at the threshold ω = mΩ_H (s = 2, a = 0.9): Γ/k is continuous within 1e-4 across ±1e-6', () => {
     const a = 0.9, m = 2, l = 2;
-    const w0 = m * kerrHole(a).omegaH;
+    const w0 = m * kerrHole({ a: a }).omegaH;
     const below = greybody({ spin: 2, l, m, a, omega: w0 - 1e-6 });
     const above = greybody({ spin: 2, l, m, a, omega: w0 + 1e-6 });
     expect(below.gamma).toBeLessThan(0);

@@ -1,7 +1,7 @@
 import { invertTortoise, kerrHole, nearRegion, physicalBackground, tortoise } from '@penumbra/kerr';
 
 // A hole with a = 0.9 M in geometric units (G = c = ħ = k_B = 1, M = 1).
-const hole = kerrHole(0.9);
+const hole = kerrHole({ a: 0.9 });
 console.log(`r+ = ${hole.rPlus.toFixed(6)}, Ω_H = ${hole.omegaH.toFixed(6)}, T_H = ${hole.temperature.toExponential(6)}`);
 
 // Tortoise coordinate and its inverse, with the inversion's diagnostics.

@@ -4,9 +4,10 @@
  * conformal temperatures follow Castro, Maloney & Strominger, Phys. Rev. D 82,
  * 024008 (2010). Derivations and conventions: docs/kerr.md.
  */
-import { ConvergenceError, InputError, requireFinite } from './errors.js';
+import { ConvergenceError, InputError, requireFinite, type Hole } from '@penumbra/core';
 
-export interface KerrHole {
+/** A hole with its derived background quantities. */
+export interface KerrHole extends Hole {
   /** mass M (geometric units) */
   readonly mass: number;
   /** spin parameter a = J/M, |a| < M; negative a is a hole counter-rotating relative to m > 0 */
@@ -30,7 +31,15 @@ export interface KerrHole {
 /** Largest |a|/M accepted by horizon-based solvers: the extremal hole is a limit (κ → 0), not a valid input. */
 export const MAX_SPIN_RATIO = 1;
 
-export function kerrHole(a: number, mass = 1): KerrHole {
+/**
+ * The background of a hole { a, mass } (mass default 1): horizons, Ω_H, κ,
+ * T_H, area, entropy. Any |a| < M is accepted; the extremal hole is a limit.
+ */
+export function kerrHole(hole: Hole): KerrHole {
+  if (typeof hole !== 'object' || hole === null || Array.isArray(hole)) {
+    throw new InputError('hole', 'an object { a, mass? } with |a| < mass', hole);
+  }
+  const { a, mass = 1 } = hole;
   requireFinite('mass', mass, 'a finite number > 0');
   if (!(mass > 0)) throw new InputError('mass', 'a finite number > 0', mass);
   requireFinite('a', a, `a finite number with |a| < M = ${mass}`);
@@ -230,6 +239,11 @@ export function invertTortoise(hole: KerrHole, rStar: number): TortoiseInversion
     }
   }
   throw new ConvergenceError('tortoise inversion did not converge', {
+    method: 'Newton iteration on r*(ln x)',
+    steps: MAX_TORTOISE_ITERATIONS,
+    rhsEvaluations: MAX_TORTOISE_ITERATIONS,
+    errorEstimate: Infinity,
+    message: `no convergence in ${MAX_TORTOISE_ITERATIONS} Newton steps`,
     rStar,
     a,
     mass: hole.mass,

@@ -17,7 +17,7 @@ describe('typed input errors name the parameter and its allowed range', () => {
     ['+Infinity', Number.POSITIVE_INFINITY],
     ['-Infinity', Number.NEGATIVE_INFINITY],
   ])('spin a = %s is refused with parameter "a"', (_label, a) => {
-    const error = thrown(() => kerrHole(a));
+    const error = thrown(() => kerrHole({ a: a }));
     expect(error.parameter).toBe('a');
     expect(error.message).toMatch(/^invalid a = /);
     expect(error.allowed).toContain('|a| < M');
@@ -30,14 +30,14 @@ describe('typed input errors name the parameter and its allowed range', () => {
     ['0', 0],
     ['-1', -1],
   ])('mass M = %s is refused with parameter "mass" and range "> 0"', (_label, mass) => {
-    const error = thrown(() => kerrHole(0, mass));
+    const error = thrown(() => kerrHole({ a: 0, mass }));
     expect(error.parameter).toBe('mass');
     expect(error.allowed).toContain('> 0');
   });
 
   test('the extremal hole |a| = M is refused, and the message says it is a limit the horizon-based solvers cannot take', () => {
     for (const a of [1, -1]) {
-      const error = thrown(() => kerrHole(a));
+      const error = thrown(() => kerrHole({ a: a }));
       expect(error.parameter).toBe('a');
       expect(error.value).toBe(a);
       expect(error.message).toContain('|a| < M = 1');
@@ -47,16 +47,16 @@ describe('typed input errors name the parameter and its allowed range', () => {
   });
 
   test('|a| > M (a = 1.2, a = -3 with M = 2) is refused: no horizon, and the extremal hole is only a limit', () => {
-    const over = thrown(() => kerrHole(1.2));
+    const over = thrown(() => kerrHole({ a: 1.2 }));
     expect(over.message).toBe(
       'invalid a = 1.2: allowed |a| < M = 1 (a hole with |a| > M has no horizon; the extremal hole |a| = M is itself only a limit for horizon-based solvers)',
     );
-    expect(thrown(() => kerrHole(-3, 2)).message).toContain('|a| < M = 2');
+    expect(thrown(() => kerrHole({ a: -3, mass: 2 })).message).toContain('|a| < M = 2');
   });
 
   test('non-number input is refused, not coerced', () => {
-    expect(thrown(() => kerrHole('0.5' as unknown as number)).parameter).toBe('a');
-    expect(thrown(() => kerrHole(0.5, '1' as unknown as number)).parameter).toBe('mass');
+    expect(thrown(() => kerrHole({ a: '0.5' as unknown as number })).parameter).toBe('a');
+    expect(thrown(() => kerrHole({ a: 0.5, mass: '1' as unknown as number })).parameter).toBe('mass');
   });
 
   test('physical mass and unit are checked: mass > 0 and finite, unit one of g, kg, msun', () => {
@@ -65,7 +65,7 @@ describe('typed input errors name the parameter and its allowed range', () => {
     expect(thrown(() => massToKg(1, 'lb' as MassUnit)).message).toBe(
       `invalid unit = "lb": allowed one of 'g', 'kg', 'msun'`,
     );
-    expect(thrown(() => physicalBackground(kerrHole(0.5), 0, 'g')).parameter).toBe('mass');
+    expect(thrown(() => physicalBackground(kerrHole({ a: 0.5 }), 0, 'g')).parameter).toBe('mass');
     expect(thrown(() => unitScales(Number.POSITIVE_INFINITY)).parameter).toBe('mass');
   });
 });

@@ -31,12 +31,12 @@ describe('constants (CODATA 2018, Tiesinga et al., Rev. Mod. Phys. 93, 025010 (2
 
 describe('physical units of the Hawking temperature and the horizon', () => {
   test('T_H of a one-solar-mass Schwarzschild hole ≈ 6.17e-8 K to 1e-3 relative (well-known figure)', () => {
-    const sun = physicalBackground(kerrHole(0), 1, 'msun');
+    const sun = physicalBackground(kerrHole({ a: 0 }), 1, 'msun');
     expect(relativeError(sun.temperatureK, 6.17e-8)).toBeLessThan(1e-3);
   });
 
   test('a 1e15 g Schwarzschild hole has k_B T_H ≈ 10.6 MeV to 5e-3 relative (well-known figure)', () => {
-    const hole = physicalBackground(kerrHole(0), 1e15, 'g');
+    const hole = physicalBackground(kerrHole({ a: 0 }), 1e15, 'g');
     expect(relativeError(hole.temperatureGeV, 10.6e-3)).toBeLessThan(5e-3);
   });
 
@@ -47,12 +47,12 @@ describe('physical units of the Hawking temperature and the horizon', () => {
     const kB = 1.380649e-23;
     for (const kg of [1e12, 1e3, 2e30, 7.3e22]) {
       const reference = (hbar * c ** 3) / (8 * Math.PI * G * kg * kB);
-      expect(relativeError(physicalBackground(kerrHole(0), kg, 'kg').temperatureK, reference)).toBeLessThan(1e-14);
+      expect(relativeError(physicalBackground(kerrHole({ a: 0 }), kg, 'kg').temperatureK, reference)).toBeLessThan(1e-14);
     }
   });
 
   test('Schwarzschild radius of the Sun 2GM_sun/c² ≈ 2.95 km and GM_sun/c³ ≈ 4.93 μs, both to 2e-3 relative (well-known figures)', () => {
-    const sun = physicalBackground(kerrHole(0), 1, 'msun');
+    const sun = physicalBackground(kerrHole({ a: 0 }), 1, 'msun');
     expect(relativeError(sun.rPlusMetres, 2.95e3)).toBeLessThan(2e-3);
     expect(relativeError(sun.timeUnitSeconds, 4.93e-6)).toBeLessThan(2e-3);
     // and exactly from the IAU parameter, which fixes GM_sun independently of G
@@ -60,13 +60,13 @@ describe('physical units of the Hawking temperature and the horizon', () => {
   });
 
   test('Bekenstein–Hawking entropy of a solar-mass hole ≈ 1.05e77 k_B to 1e-2 relative (value from memory)', () => {
-    const sun = physicalBackground(kerrHole(0), 1, 'msun');
+    const sun = physicalBackground(kerrHole({ a: 0 }), 1, 'msun');
     expect(relativeError(sun.entropyKB, 1.05e77)).toBeLessThan(1e-2);
   });
 
   test('a Kerr hole keeps its geometric ratios in physical units: T(a)/T(0), A(a)/A(0), Ω_H·GM/c³ match the geometric values to 1e-14 relative', () => {
-    const kerr = kerrHole(0.9);
-    const schwarzschild = kerrHole(0);
+    const kerr = kerrHole({ a: 0.9 });
+    const schwarzschild = kerrHole({ a: 0 });
     const physicalKerr = physicalBackground(kerr, 5e14, 'g');
     const physicalSchwarzschild = physicalBackground(schwarzschild, 5e14, 'g');
     expect(relativeError(physicalKerr.temperatureK / physicalSchwarzschild.temperatureK, kerr.temperature / schwarzschild.temperature)).toBeLessThan(1e-14);
@@ -75,8 +75,8 @@ describe('physical units of the Hawking temperature and the horizon', () => {
   });
 
   test('the geometric mass of the hole object does not matter: a = 1.8, M = 2 gives the same physical values as a = 0.9, M = 1 to 1e-14 relative', () => {
-    const unit = physicalBackground(kerrHole(0.9, 1), 1, 'msun');
-    const scaled = physicalBackground(kerrHole(1.8, 2), 1, 'msun');
+    const unit = physicalBackground(kerrHole({ a: 0.9, mass: 1 }), 1, 'msun');
+    const scaled = physicalBackground(kerrHole({ a: 1.8, mass: 2 }), 1, 'msun');
     for (const key of Object.keys(unit) as (keyof typeof unit)[]) {
       expect(relativeError(scaled[key], unit[key]), key).toBeLessThan(1e-14);
     }

@@ -3,7 +3,7 @@ import { solveRadial, solveTwoSided } from '@penumbra/radial';
 
 // The s = 2 radial equation of a hole with a = 0.9 M, for m = 2, Mω = 0.5 and
 // a given separation constant λ (from @penumbra/spheroidal in real use).
-const hole = kerrHole(0.9);
+const hole = kerrHole({ a: 0.9 });
 const problem = { hole, s: 2, m: 2, omega: 0.5, lambda: -1.5 };
 
 // Two-sided route: −s field from the horizon, Teukolsky–Starobinsky map, +s field outward.

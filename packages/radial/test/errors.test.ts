@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { ConvergenceError, InputError, kerrHole } from '@penumbra/kerr';
 import { solveRadial, solveTwoSided } from '@penumbra/radial';
 
-const hole = kerrHole(0.5);
+const hole = kerrHole({ a: 0.5 });
 const p = { hole, s: 1, m: 1, omega: 0.3, lambda: 1.5 };
 
 describe('radial solver input checks and failure reporting', () => {

@@ -26,7 +26,7 @@ function wronskian(hole: ReturnType<typeof kerrHole>, s: number, r: number, p: {
 describe('far-zone asymptotic series', () => {
   for (const { a, ...mode } of modes) {
     it(`in and out series have a constant Wronskian between two radii to 1e-13 (a=${a}, s=${mode.s}, Mω=${mode.omega})`, () => {
-      const hole = kerrHole(a);
+      const hole = kerrHole({ a: a });
       const fin = farSeries(hole, mode, -1), fout = farSeries(hole, mode, 1);
       const r1 = 60 / mode.omega, r2 = 3 * r1;
       const w1 = wronskian(hole, mode.s, r1, evaluateFar(hole, mode, fin, r1), evaluateFar(hole, mode, fout, r1));
@@ -34,7 +34,7 @@ describe('far-zone asymptotic series', () => {
       expect(Math.hypot(w1[0] - w2[0], w1[1] - w2[1]) / Math.hypot(w1[0], w1[1])).toBeLessThan(1e-13);
     });
     it(`the leading powers are r^-1 (in) and r^(-2s-1) (out) (a=${a}, s=${mode.s})`, () => {
-      const hole = kerrHole(a);
+      const hole = kerrHole({ a: a });
       expect(farSeries(hole, mode, -1).p).toBeCloseTo(-1, 12);
       expect(farSeries(hole, mode, 1).p).toBeCloseTo(-2 * mode.s - 1, 12);
     });
@@ -44,7 +44,7 @@ describe('far-zone asymptotic series', () => {
 describe('horizon Frobenius series', () => {
   for (const { a, ...mode } of modes) {
     it(`summed at x₁ it agrees with the series at x₀ integrated to x₁ to 1e-10 (a=${a}, s=${mode.s})`, () => {
-      const hole = kerrHole(a);
+      const hole = kerrHole({ a: a });
       const b = hole.rPlus - hole.rMinus;
       const x0 = 0.05 * b, x1 = 0.2 * b;
       const direct = horizonSeriesStart(hole, mode, x1);
@@ -56,7 +56,7 @@ describe('horizon Frobenius series', () => {
     });
   }
   it('has modulus |R| = Δ^{-s} e^{0} to leading order: |R|·x^s·b^s → 1 as x → 0 (s = 2, a = 0.5)', () => {
-    const hole = kerrHole(0.5);
+    const hole = kerrHole({ a: 0.5 });
     const b = hole.rPlus - hole.rMinus;
     const x = 1e-6 * b;
     const st = horizonSeriesStart(hole, { s: 2, m: 1, omega: 0.4, lambda: 1.3 }, x);

@@ -20,7 +20,7 @@ const cases = [
 describe('Teukolsky–Starobinsky map', () => {
   for (const c of cases) {
     it(`maps the −s horizon solution to h_s × the +s horizon solution to 1e-9 (a=${c.a}, s=${c.s}, m=${c.m})`, () => {
-      const hole = kerrHole(c.a);
+      const hole = kerrHole({ a: c.a });
       const b = hole.rPlus - hole.rMinus;
       const minus = { s: -c.s, m: c.m, omega: c.omega, lambda: c.lambdaPlus + 2 * c.s };
       const plus = { s: c.s, m: c.m, omega: c.omega, lambda: c.lambdaPlus };
@@ -36,7 +36,7 @@ describe('Teukolsky–Starobinsky map', () => {
       expect(err).toBeLessThan(1e-9);
     });
     it(`two-sided and one-sided +s routes agree on ln|Z_in| to 1e-9 (a=${c.a}, s=${c.s}, m=${c.m})`, () => {
-      const hole = kerrHole(c.a);
+      const hole = kerrHole({ a: c.a });
       const p = { hole, s: c.s, m: c.m, omega: c.omega, lambda: c.lambdaPlus };
       const one = solveRadial(p, { tol: 1e-13 });
       const two = solveTwoSided(p, { tol: 1e-13 });
@@ -44,7 +44,7 @@ describe('Teukolsky–Starobinsky map', () => {
     });
   }
   it('the two-sided route does not move when the switching radius moves (s = 2, a = 0.9999, deep superradiant, 1e-9)', () => {
-    const hole = kerrHole(0.9999);
+    const hole = kerrHole({ a: 0.9999 });
     const p = { hole, s: 2, m: 2, omega: 0.0164, lambda: -2.0 };
     const ref = solveTwoSided(p, { tol: 1e-13 }).logAbsZInPlus;
     for (const rs of [hole.rPlus + 0.3, hole.rPlus + 3]) {
@@ -63,7 +63,7 @@ describe('+s and −s formulations', () => {
         fc.double({ min: 0.2, max: 1.5, noNaN: true }),
         fc.double({ min: -2, max: 6, noNaN: true }),
         (s, a, omega, lambdaPlus) => {
-          const hole = kerrHole(a);
+          const hole = kerrHole({ a: a });
           const m = s;
           const sol = solveTwoSided({ hole, s, m, omega, lambda: lambdaPlus }, { tol: 1e-13 });
           const h = starobinskyHorizonFactor(hole, s, omega - m * hole.omegaH);
@@ -86,7 +86,7 @@ describe('formulation independence', () => {
       { a: 0.9999, s: 2, m: 2, omega: 0.6, lambda: -2.5 },
     ];
     for (const c of cases) {
-      const hole = kerrHole(c.a);
+      const hole = kerrHole({ a: c.a });
       const p = { hole, s: c.s, m: c.m, omega: c.omega, lambda: c.lambda };
       const plain = c.s === 0 ? solveRadial(p, { tol: 1e-12 }).logAbsZIn : solveTwoSided(p, { tol: 1e-12 }).logAbsZInPlus;
       const phase = c.s === 0

@@ -1,0 +1,66 @@
+/**
+ * The two typed errors every penumbra package throws.
+ *
+ * `InputError` names a parameter the caller gave and its allowed range, so a
+ * caller (or the CLI) can print one readable line. `ConvergenceError` carries
+ * the diagnostics of a computation that did not reach the requested accuracy:
+ * penumbra never returns a number it cannot vouch for.
+ */
+import type { Diagnostics } from './diagnostics.js';
+
+export class InputError extends Error {
+  override readonly name = 'InputError';
+  constructor(
+    readonly parameter: string,
+    readonly allowed: string,
+    readonly value: unknown,
+    detail?: string,
+  ) {
+    super(`invalid ${parameter} = ${formatValue(value)}: allowed ${allowed}` + (detail ? ` (${detail})` : ''));
+  }
+}
+
+export class ConvergenceError<D extends Diagnostics = Diagnostics> extends Error {
+  override readonly name = 'ConvergenceError';
+  readonly diagnostics: D;
+  // Transitional: packages still passing partial diagnostics are being moved to the full Diagnostics shape.
+  constructor(message: string, diagnostics: D | Record<string, unknown>) {
+    super(`${message}; diagnostics: ${safeJson(diagnostics)}`);
+    this.diagnostics = diagnostics as D;
+  }
+}
+
+function formatValue(v: unknown): string {
+  if (typeof v === 'number') return Number.isNaN(v) ? 'NaN' : String(v);
+  if (typeof v === 'string') return JSON.stringify(v);
+  if (typeof v === 'bigint' || typeof v === 'symbol' || typeof v === 'function') return String(v);
+  return safeJson(v);
+}
+
+function safeJson(v: unknown): string {
+  try {
+    const text = JSON.stringify(v, (_k, x) => (typeof x === 'number' && !Number.isFinite(x) ? String(x) : x));
+    return text === undefined ? String(v) : text.length > 400 ? `${text.slice(0, 400)}…` : text;
+  } catch {
+    return String(v);
+  }
+}
+
+/** Throw an InputError unless `x` is a finite number. */
+export function requireFinite(parameter: string, x: unknown, allowed = 'a finite number'): number {
+  if (typeof x !== 'number' || !Number.isFinite(x)) throw new InputError(parameter, allowed, x);
+  return x;
+}
+
+/** Throw an InputError unless `x` is a finite number in [min, max]. */
+export function requireInRange(parameter: string, x: unknown, min: number, max: number, allowed = `${min} ≤ ${parameter} ≤ ${max}`): number {
+  const v = requireFinite(parameter, x, allowed);
+  if (!(v >= min && v <= max)) throw new InputError(parameter, allowed, v);
+  return v;
+}
+
+/** Throw an InputError unless `x` is a plain object (not null, not an array). */
+export function requireObject(parameter: string, x: unknown, allowed = 'an object'): Record<string, unknown> {
+  if (typeof x !== 'object' || x === null || Array.isArray(x)) throw new InputError(parameter, allowed, x);
+  return x as Record<string, unknown>;
+}

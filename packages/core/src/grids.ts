@@ -1,0 +1,46 @@
+/**
+ * Frequency grids: START..STOP with COUNT points, endpoints exact, linear or
+ * geometric spacing; or an explicit list. Bounded in size so a typo cannot
+ * start unbounded work.
+ */
+import { InputError, requireFinite } from './errors.js';
+
+export const MAX_GRID_POINTS = 1_000_000;
+
+export type GridSpacing = 'linear' | 'log';
+
+export type FrequencyGrid = { spacing: GridSpacing; from: number; to: number; count: number } | { values: readonly number[] };
+
+function checkCount(count: unknown, parameter: string): number {
+  const allowed = `an integer 1 ≤ count ≤ ${MAX_GRID_POINTS}`;
+  if (typeof count !== 'number' || !Number.isInteger(count) || count < 1 || count > MAX_GRID_POINTS) {
+    throw new InputError(parameter, allowed, count);
+  }
+  return count;
+}
+
+/** `count` equally spaced points from `from` to `to`, endpoints exact. */
+export function linearGrid(from: number, to: number, count: number): number[] {
+  const a = requireFinite('from', from);
+  const b = requireFinite('to', to);
+  const n = checkCount(count, 'count');
+  if (n === 1) return [a];
+  return Array.from({ length: n }, (_, i) => (i === n - 1 ? b : a + ((b - a) * i) / (n - 1)));
+}
+
+/** `count` geometrically spaced points from `from` to `to` (both > 0), endpoints exact. */
+export function logGrid(from: number, to: number, count: number): number[] {
+  const a = requireFinite('from', from, 'a finite number > 0');
+  const b = requireFinite('to', to, 'a finite number > 0');
+  if (!(a > 0)) throw new InputError('from', 'a finite number > 0', a);
+  if (!(b > 0)) throw new InputError('to', 'a finite number > 0', b);
+  const n = checkCount(count, 'count');
+  if (n === 1) return [a];
+  return Array.from({ length: n }, (_, i) => (i === 0 ? a : i === n - 1 ? b : a * (b / a) ** (i / (n - 1))));
+}
+
+/** The points of a frequency grid. */
+export function gridValues(grid: FrequencyGrid): number[] {
+  if ('values' in grid) return [...grid.values];
+  return grid.spacing === 'log' ? logGrid(grid.from, grid.to, grid.count) : linearGrid(grid.from, grid.to, grid.count);
+}

@@ -1,0 +1,49 @@
+/**
+ * A hole: its spin parameter a = J/M and its mass M (geometric units, default
+ * M = 1). The derived background (horizons, Ω_H, κ, T_H) is @penumbra/kerr's
+ * `kerrHole`. Negative a is a hole counter-rotating relative to m > 0.
+ */
+import { InputError, requireFinite } from './errors.js';
+
+export interface Hole {
+  /** spin parameter a = J/M in the units of `mass`, |a| < M */
+  readonly a: number;
+  /** mass M in geometric units (default 1) */
+  readonly mass?: number;
+}
+
+/**
+ * Largest |a|/M the horizon-based greybody solver takes: its Frobenius start
+ * needs r+ − r− > 0, and near extremality the near-horizon solution winds
+ * more and more (the extremal hole is a limit, not an input).
+ */
+export const MAX_SOLVER_A_RATIO = 0.9999;
+
+/** Validate a hole object; `maxARatio` is the largest |a|/M accepted (strictly below 1 by default). */
+export function validateHole(value: unknown, parameter = 'hole', maxARatio = MAX_SOLVER_A_RATIO): { a: number; mass: number } {
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
+    throw new InputError(parameter, 'an object { a, mass? } with |a| < mass', value);
+  }
+  for (const key of Object.keys(value)) {
+    if (key !== 'a' && key !== 'mass') throw new InputError(`${parameter}.${key}`, 'the keys a, mass', key, 'unknown key');
+  }
+  const { a, mass = 1 } = value as { a?: unknown; mass?: unknown };
+  const M = requireFinite(`${parameter}.mass`, mass, 'a finite number > 0');
+  if (!(M > 0) || !Number.isFinite(M * M)) throw new InputError(`${parameter}.mass`, 'a finite number > 0 with M² finite', M);
+  const bound = maxARatio < 1 ? `|a| ≤ ${maxARatio} M = ${maxARatio * M}` : `|a| < M = ${M}`;
+  const A = requireFinite(`${parameter}.a`, a, bound);
+  const ok = maxARatio < 1 ? Math.abs(A) <= maxARatio * M : Math.abs(A) < M;
+  if (!ok) {
+    throw new InputError(
+      `${parameter}.a`,
+      bound,
+      A,
+      Math.abs(A) === M
+        ? 'the extremal hole has zero surface gravity and coincident horizons; it is a limit, not an input'
+        : Math.abs(A) > M
+          ? 'a hole with |a| > M has no horizon'
+          : 'the horizon series start needs r+ − r− > 0; the extremal hole is a limit, not an input',
+    );
+  }
+  return { a: A, mass: M };
+}

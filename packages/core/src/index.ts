@@ -1,0 +1,21 @@
+export { InputError, ConvergenceError, requireFinite, requireInRange, requireObject } from './errors.js';
+export { type Diagnostics, type Status, type Attempt, attempt, exactDiagnostics } from './diagnostics.js';
+export { type OptionSpec, validateOptions, oneOf, isBoolean, isFunction, numberIn } from './options.js';
+export {
+  FIELD_SPINS,
+  SPIN_WEIGHTS,
+  type FieldSpin,
+  type FieldSpinInput,
+  type SpinWeight,
+  type Field,
+  parseFieldSpin,
+  validateField,
+  isFermion,
+  formatFieldSpin,
+} from './field.js';
+export { type Hole, MAX_SOLVER_A_RATIO, validateHole } from './hole.js';
+export { type Mode, MAX_L, validateAngular, validateMode } from './mode.js';
+export { TOLERANCE_RANGE, validateTolerance } from './tolerance.js';
+export { MAX_GRID_POINTS, type GridSpacing, type FrequencyGrid, linearGrid, logGrid, gridValues } from './grids.js';
+export { type LShellRule, type LShellSum, geometricTailBound, sumLShells } from './lShells.js';
+export { type Column, type Cell, type Table, headerCell, formatCell, csvField, csvHeader, csvRow, toCsv, toJsonTable } from './table.js';

@@ -1,0 +1,39 @@
+/**
+ * A mode: a field and its angular numbers (l, m), with l ≥ spin, |m| ≤ l and
+ * l − spin, m − spin integers (half-integer l, m for fermions).
+ */
+import { InputError, requireFinite } from './errors.js';
+import { validateField, type Field, type FieldSpin } from './field.js';
+
+export interface Mode {
+  readonly field: Field;
+  readonly l: number;
+  readonly m: number;
+}
+
+/** Largest l the solvers take (the spheroidal and radial series are tested to it). */
+export const MAX_L = 100;
+
+/** Validate angular numbers for a field spin. */
+export function validateAngular(spin: FieldSpin, l: unknown, m: unknown, parameter = 'mode'): { l: number; m: number } {
+  const lAllowed = `${spin} ≤ l ≤ ${MAX_L} with l − ${spin} an integer`;
+  const L = requireFinite(`${parameter}.l`, l, lAllowed);
+  if (L < spin || L > MAX_L || !Number.isInteger(L - spin)) throw new InputError(`${parameter}.l`, lAllowed, L);
+  const mAllowed = `|m| ≤ l = ${L} with m − ${spin} an integer`;
+  const Mz = requireFinite(`${parameter}.m`, m, mAllowed);
+  if (Math.abs(Mz) > L || !Number.isInteger(Mz - spin)) throw new InputError(`${parameter}.m`, mAllowed, Mz);
+  return { l: L, m: Mz };
+}
+
+/** Validate a mode object; returns its field spin as a number. */
+export function validateMode(value: unknown, parameter = 'mode'): { spin: FieldSpin; l: number; m: number } {
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
+    throw new InputError(parameter, 'an object { field: { spin }, l, m }', value);
+  }
+  for (const key of Object.keys(value)) {
+    if (key !== 'field' && key !== 'l' && key !== 'm') throw new InputError(`${parameter}.${key}`, 'the keys field, l, m', key, 'unknown key');
+  }
+  const v = value as { field?: unknown; l?: unknown; m?: unknown };
+  const { spin } = validateField(v.field, `${parameter}.field`);
+  return { spin, ...validateAngular(spin, v.l, v.m, parameter) };
+}

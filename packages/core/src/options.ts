@@ -1,0 +1,58 @@
+/**
+ * Option validation shared by every solve: unknown keys and unknown method
+ * names are refused with an InputError naming the key.
+ */
+import { InputError, requireObject } from './errors.js';
+
+/** One validator per accepted key; each returns the cleaned value. */
+export type OptionSpec<O> = { [K in keyof O]-?: (value: unknown, parameter: string) => O[K] };
+
+/**
+ * Validate an options object against its spec. `undefined` keys are skipped;
+ * `options` itself may be undefined (no options). Returns a fresh object.
+ */
+export function validateOptions<O extends object>(options: unknown, spec: OptionSpec<O>, context = 'options'): Partial<O> {
+  if (options === undefined) return {};
+  const given = requireObject(context, options, `an object with keys ${Object.keys(spec).join(', ') || '(none)'}`);
+  const out: Partial<O> = {};
+  for (const key of Object.keys(given)) {
+    if (!Object.prototype.hasOwnProperty.call(spec, key)) {
+      throw new InputError(`${context}.${key}`, `one of the keys ${Object.keys(spec).join(', ') || '(none)'}`, key, 'unknown option');
+    }
+    const value = given[key];
+    if (value === undefined) continue;
+    (out as Record<string, unknown>)[key] = (spec as Record<string, (v: unknown, p: string) => unknown>)[key](value, key);
+  }
+  return out;
+}
+
+/** A validator accepting one of a fixed list of names (methods, integrators, units). */
+export function oneOf<T extends string>(allowed: readonly T[]): (value: unknown, parameter: string) => T {
+  return (value, parameter) => {
+    if (typeof value !== 'string' || !(allowed as readonly string[]).includes(value)) {
+      throw new InputError(parameter, `one of ${allowed.map((a) => `'${a}'`).join(', ')}`, value);
+    }
+    return value as T;
+  };
+}
+
+export function isBoolean(value: unknown, parameter: string): boolean {
+  if (typeof value !== 'boolean') throw new InputError(parameter, 'true or false', value);
+  return value;
+}
+
+export function isFunction<F extends (...args: never[]) => unknown>(value: unknown, parameter: string): F {
+  if (typeof value !== 'function') throw new InputError(parameter, 'a function', value);
+  return value as F;
+}
+
+/** A validator for a finite number in [min, max] (integer if asked). */
+export function numberIn(min: number, max: number, integer = false): (value: unknown, parameter: string) => number {
+  return (value, parameter) => {
+    const allowed = `${integer ? 'an integer' : 'a number'} in [${min}, ${max}]`;
+    if (typeof value !== 'number' || !Number.isFinite(value) || value < min || value > max || (integer && !Number.isInteger(value))) {
+      throw new InputError(parameter, allowed, value);
+    }
+    return value;
+  };
+}

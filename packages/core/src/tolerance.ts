@@ -1,0 +1,16 @@
+/**
+ * The tolerance rule, once for every solve: `tol` is the requested relative
+ * accuracy of the main result, in [1e-12, 1e-2]. A result whose error
+ * estimate exceeds it is a ConvergenceError, never a silent number.
+ */
+import { InputError } from './errors.js';
+
+export const TOLERANCE_RANGE = { min: 1e-12, max: 1e-2 } as const;
+
+export function validateTolerance(value: unknown, parameter = 'tol'): number {
+  const allowed = `${TOLERANCE_RANGE.min} ≤ ${parameter} ≤ ${TOLERANCE_RANGE.max}`;
+  if (typeof value !== 'number' || !(value >= TOLERANCE_RANGE.min && value <= TOLERANCE_RANGE.max)) {
+    throw new InputError(parameter, allowed, value);
+  }
+  return value;
+}

@@ -1,0 +1,99 @@
+import { describe, expect, test } from 'vitest';
+import fc from 'fast-check';
+import {
+  ConvergenceError,
+  InputError,
+  attempt,
+  csvField,
+  linearGrid,
+  logGrid,
+  oneOf,
+  parseFieldSpin,
+  sumLShells,
+  toCsv,
+  validateHole,
+  validateMode,
+  validateOptions,
+  validateTolerance,
+} from '../src/index.js';
+
+const thrown = (f: () => unknown): InputError => {
+  try {
+    f();
+  } catch (e) {
+    if (e instanceof InputError) return e;
+    throw e;
+  }
+  throw new Error('no InputError');
+};
+
+describe('field spins', () => {
+  test("'1/2', '0.5' and 0.5 name the same field spin; 3/2 and 'x' are refused naming the parameter", () => {
+    expect(parseFieldSpin('1/2')).toBe(0.5);
+    expect(parseFieldSpin(' 1 / 2 ')).toBe(0.5);
+    expect(parseFieldSpin(0.5)).toBe(0.5);
+    expect(parseFieldSpin('2')).toBe(2);
+    expect(thrown(() => parseFieldSpin(1.5, 'mode.field.spin')).parameter).toBe('mode.field.spin');
+    expect(thrown(() => parseFieldSpin('x')).allowed).toBe('one of 0, 1/2, 1, 2');
+  });
+  test('a mode needs l ≥ spin, |m| ≤ l, l − spin and m − spin integers', () => {
+    expect(validateMode({ field: { spin: '1/2' }, l: 0.5, m: -0.5 })).toEqual({ spin: 0.5, l: 0.5, m: -0.5 });
+    expect(thrown(() => validateMode({ field: { spin: 1 }, l: 0, m: 0 })).parameter).toBe('mode.l');
+    expect(thrown(() => validateMode({ field: { spin: 1 }, l: 2, m: 3 })).parameter).toBe('mode.m');
+    expect(thrown(() => validateMode({ field: { spin: 1 }, l: 2, m: 0, n: 1 })).parameter).toBe('mode.n');
+    expect(thrown(() => validateMode(null)).parameter).toBe('mode');
+  });
+  test('a hole needs a finite mass > 0 and |a| ≤ 0.9999 M for the solver; unknown keys refused', () => {
+    expect(validateHole({ a: -0.5 })).toEqual({ a: -0.5, mass: 1 });
+    expect(thrown(() => validateHole({ a: 1 })).parameter).toBe('hole.a');
+    expect(thrown(() => validateHole({ a: 0.5, mass: -1 })).parameter).toBe('hole.mass');
+    expect(thrown(() => validateHole({ a: 0.5, spin: 1 })).parameter).toBe('hole.spin');
+  });
+});
+
+describe('options and tolerance', () => {
+  test('unknown option keys and method names are refused with an InputError naming them', () => {
+    const spec = { tol: validateTolerance, method: oneOf(['odex', 'cash-karp'] as const) };
+    expect(validateOptions({ tol: 1e-6 }, spec)).toEqual({ tol: 1e-6 });
+    expect(thrown(() => validateOptions({ tolerance: 1e-6 }, spec)).parameter).toBe('options.tolerance');
+    expect(thrown(() => validateOptions({ method: 'bogus' }, spec)).parameter).toBe('method');
+    expect(thrown(() => validateOptions(null, spec)).parameter).toBe('options');
+    expect(thrown(() => validateTolerance(1e-13)).allowed).toBe('1e-12 ≤ tol ≤ 0.01');
+  });
+  test('attempt turns InputError and ConvergenceError into statuses and lets other errors through', () => {
+    expect(attempt(() => 1)).toMatchObject({ status: 'success', solution: 1 });
+    expect(attempt(() => validateTolerance(2)).status).toBe('invalid-input');
+    const d = { method: 'm', steps: 1, rhsEvaluations: 2, errorEstimate: 1, message: 'x' };
+    expect(attempt(() => { throw new ConvergenceError('no', d); }).status).toBe('not-converged');
+    expect(() => attempt(() => { throw new TypeError('bug'); })).toThrow(TypeError);
+  });
+});
+
+describe('grids, l-shell sums and tables', () => {
+  test('grids keep their endpoints exactly and refuse counts beyond 1e6 at once', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 1e-4, max: 10, noNaN: true }), fc.double({ min: 1e-4, max: 10, noNaN: true }), fc.integer({ min: 2, max: 50 }), (a, b, n) => {
+        const lin = linearGrid(a, b, n);
+        const log = logGrid(a, b, n);
+        return lin[0] === a && lin[n - 1] === b && log[0] === a && log[n - 1] === b && lin.length === n;
+      }),
+      { seed: 42, numRuns: 200 },
+    );
+    expect(thrown(() => linearGrid(0, 1, 1e9)).parameter).toBe('count');
+  });
+  test('a geometric series 2^-l summed to 1e-12 has a tail bound at or above the true tail', () => {
+    const sum = sumLShells(0, { lCut: 3, tol: 1e-12, maxL: 200 }, (l) => 2 ** -l);
+    const trueTail = 2 - sum.total; // Σ 2^-l = 2
+    expect(sum.tailBound).toBeGreaterThanOrEqual(trueTail * (1 - 1e-12));
+    expect(sum.tailBound).toBeLessThan(1e-11);
+  });
+  test('a series that does not fall is a ConvergenceError, not a truncation', () => {
+    expect(() => sumLShells(0, { lCut: 0, tol: 1e-6, maxL: 30 }, () => 1)).toThrow(ConvergenceError);
+  });
+  test('CSV fields with commas, quotes or newlines are quoted (RFC 4180); headers carry units', () => {
+    expect(csvField('a,b')).toBe('"a,b"');
+    expect(csvField('say "x"')).toBe('"say ""x"""');
+    const csv = toCsv({ columns: [{ name: 'omega', unit: '1/M' }, { name: 'label', unit: '' }], rows: [[0.5, 'x,y']] });
+    expect(csv).toBe('omega [1/M],label\n0.5,"x,y"\n');
+  });
+});
