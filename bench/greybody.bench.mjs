@@ -10,6 +10,9 @@ import { schwarzschildGreybody } from '@penumbra/regge-wheeler';
 import { clearSpheroidalCache, spheroidalEigenvalue } from '@penumbra/spheroidal';
 import { cpuMsPerCall, fmt, maximum, median, medianMs, relDiff, runPeer, table, writeResult } from './lib.mjs';
 
+/** A bench mode record { spin, l, m, a, omega } as a greybody problem. */
+const asProblem = (x) => ({ hole: { a: x.a }, mode: { field: { spin: x.spin }, l: x.l, m: x.m }, omega: x.omega });
+
 const TOL = 1e-8; // penumbra's default tolerance, and the peer's requested accuracy
 const REFERENCE_TOL = 1e-12;
 // Both sides: each mode timed this many times, the median kept (shared machines see load spikes).
@@ -70,19 +73,19 @@ function main() {
   const rows = modes.map((mode) => ({
     ...mode,
     A: spheroidalEigenvalue({ s: mode.spin, l: mode.l, m: mode.m, c: mode.a * mode.omega }).A,
-    reference: greybody(mode, { tol: REFERENCE_TOL, reflection: false }).gamma,
+    reference: greybody(asProblem(mode), { tol: REFERENCE_TOL, reflection: false }).gamma,
     reggeWheeler: mode.a === 0 ? schwarzschildGreybody({ spin: mode.spin, l: mode.l, omega: mode.omega, tol: REFERENCE_TOL }).gamma : null,
     penumbra: {},
     peer: {},
   }));
 
   // Warm the JIT on the whole set twice before any timing.
-  for (let pass = 0; pass < 2; pass++) for (const mode of modes) for (const run of PENUMBRA_RUNS) greybody(mode, { tol: run.tol });
+  for (let pass = 0; pass < 2; pass++) for (const mode of modes) for (const run of PENUMBRA_RUNS) greybody(asProblem(mode), { tol: run.tol });
 
   for (const row of rows) {
     const problem = { spin: row.spin, l: row.l, m: row.m, a: row.a, omega: row.omega };
     for (const run of PENUMBRA_RUNS) {
-      const r = greybody(problem, { tol: run.tol });
+      const r = greybody(asProblem(problem), { tol: run.tol });
       row.penumbra[run.label] = {
         gamma: r.gamma,
         relError: r.relError,
@@ -91,17 +94,17 @@ function main() {
         // penumbra's time includes the eigenvalue solve (cache cleared); the peer gets A as an input
         ms: medianMs(() => {
           clearSpheroidalCache();
-          greybody(problem, { tol: run.tol });
+          greybody(asProblem(problem), { tol: run.tol });
         }, TIMING_REPEATS),
-        msCachedEigenvalue: medianMs(() => greybody(problem, { tol: run.tol }), TIMING_REPEATS),
+        msCachedEigenvalue: medianMs(() => greybody(asProblem(problem), { tol: run.tol }), TIMING_REPEATS),
         cpuMs: cpuMsPerCall(() => {
           clearSpheroidalCache();
-          greybody(problem, { tol: run.tol });
+          greybody(asProblem(problem), { tol: run.tol });
         }),
       };
     }
-    const gammaOnly = greybody(problem, { reflection: false });
-    row.penumbra.gammaOnly = { rhsEvaluations: gammaOnly.diagnostics.rhsEvaluations, ms: medianMs(() => greybody(problem, { reflection: false }), TIMING_REPEATS) };
+    const gammaOnly = greybody(asProblem(problem), { reflection: false });
+    row.penumbra.gammaOnly = { rhsEvaluations: gammaOnly.diagnostics.rhsEvaluations, ms: medianMs(() => greybody(asProblem(problem), { reflection: false }), TIMING_REPEATS) };
   }
 
   const peerMeta = [];

@@ -80,8 +80,8 @@ function section(title, body) {
   ];
   const rows = cases.map(([spin, l, m, a]) => {
     const dev = [1e-3, 1e-4].map((omega) => {
-      const g = greybody({ spin, l, m, a, omega });
-      const f = lowFrequencyGreybody({ spin, l, m, a, omega });
+      const g = greybody({ hole: { a }, mode: { field: { spin }, l, m }, omega });
+      const f = lowFrequencyGreybody({ hole: { a }, mode: { field: { spin }, l, m }, omega });
       return { g: g.gamma, f, d: g.gamma / f - 1 };
     });
     const bound = 4 * 2 * Math.PI * 1e-4;
@@ -110,14 +110,14 @@ ${mdTable(['s', 'l', 'm', 'a/M', 'Γ (Mω = 1e-4)', 'formula (Mω = 1e-4)', '|re
     [1, (4 / 3) * AH * w * w, '(4/3) A_H M²ω²', 'Page (1976) low-frequency formula, l = 1'],
     [2, (16 / 45) * AH * w ** 4, '(16/45) A_H M⁴ω⁴', 'Page (1976) low-frequency formula, l = 2'],
   ].map(([spin, expected, label, source]) => {
-    const r = absorptionCrossSection({ spin, a: 0, omega: w });
+    const r = absorptionCrossSection({ hole: { a: 0 }, field: { spin }, omega: w });
     return [spinLabel(spin), w, sig(r.sigma), `${label} = ${sig(expected)}`, rel(Math.abs(r.sigma / expected - 1)), rel(2 * Math.PI * w), source];
   });
   const capture = [];
   for (const spin of SPINS) {
     for (const omega of [3, 5]) {
-      const r = absorptionCrossSection({ spin, a: 0, omega }, { tol: 1e-6 });
-      capture.push([spinLabel(spin), omega, sig(r.sigma), sig(27 * Math.PI), rel(Math.abs(r.sigma / (27 * Math.PI) - 1)), r.lMax, rel(r.droppedBound / r.sigma),
+      const r = absorptionCrossSection({ hole: { a: 0 }, field: { spin }, omega }, { tol: 1e-6 });
+      capture.push([spinLabel(spin), omega, sig(r.sigma), sig(27 * Math.PI), rel(Math.abs(r.sigma / (27 * Math.PI) - 1)), r.diagnostics.lMax, rel(r.diagnostics.droppedBound / r.sigma),
         'Misner, Thorne & Wheeler, *Gravitation* (1973): geometric-optics capture cross-section 27πM²']);
     }
   }
@@ -146,7 +146,7 @@ ${mdTable(['s', 'Mω', 'σ/M² (penumbra)', '27π', '|rel. diff.|', 'l_max summe
       for (const omega of OMEGAS) {
         const ref = schwarzschildGreybody({ spin, l, omega, tol: 1e-11 });
         if (ref.gamma < 1e-30) continue;
-        const got = greybody({ spin, l, m: spin === 0.5 ? 0.5 : 0, a: 0, omega }, { tol: 1e-10 });
+        const got = greybody({ hole: { a: 0 }, mode: { field: { spin }, l, m: spin === 0.5 ? 0.5 : 0 }, omega }, { tol: 1e-10 });
         const d = Math.abs(got.gamma / ref.gamma - 1);
         n++;
         if (d > worst) [worst, where] = [d, `l = ${halfLabel(l)}, Mω = ${omega}`];
@@ -171,7 +171,7 @@ ${mdTable(['s', 'modes compared', 'max |rel. diff.|', 'at', 'test bound', 'indep
   const rows = SPINS.map((spin) => {
     let n = 0, worstG = 0, worstR = 0, worstA = 0, where = '', minDigits = Infinity;
     for (const r of fixture.kerr.rows.filter((x) => x.spin === spin)) {
-      const g = greybody({ spin, l: r.l, m: r.m, a: r.a, omega: r.omega }, { tol: 1e-10 });
+      const g = greybody({ hole: { a: r.a }, mode: { field: { spin }, l: r.l, m: r.m }, omega: r.omega }, { tol: 1e-10 });
       const A = spheroidal.spheroidalEigenvalue({ s: spin, l: r.l, m: r.m, c: r.a * r.omega }).A;
       const d = Math.abs(g.gamma / Number(r.gamma_str) - 1);
       if (d > worstG) [worstG, where] = [d, `l = ${halfLabel(r.l)}, m = ${halfLabel(r.m)}, a = ${r.a}, Mω = ${r.omega}`];
@@ -227,7 +227,7 @@ rerun \`npm run validate\` once it does.
 // ---------- 5. superradiance maxima ----------
 function peakAmplification(spin, l, m, a, n = 40) {
   const omegaH = kerrHole({ a: a }).omegaH;
-  const f = (w) => greybody({ spin, l, m, a, omega: w }, { tol: 1e-7, reflection: false }).amplification;
+  const f = (w) => greybody({ hole: { a }, mode: { field: { spin }, l, m }, omega: w }, { tol: 1e-7, reflection: false }).amplification;
   let best = 0;
   let bestW = 0;
   for (let i = 1; i < n; i++) {
@@ -391,7 +391,7 @@ let worstResidual = 0;
           if (a === 0 && m < 0) continue; // Γ does not depend on m at a = 0
           for (const omega of omegas) {
             if (Math.abs(omega - m * kerrHole({ a: a }).omegaH) < 1e-9) continue;
-            const r = greybody({ spin, l, m, a, omega });
+            const r = greybody({ hole: { a }, mode: { field: { spin }, l, m }, omega });
             worstResidual = Math.max(worstResidual, r.residual);
             gammaData.push({ spin, a: `a = ${a}`, mode: `l = ${halfLabel(l)}`, m: m > 0 ? 'm = +l' : 'm = −l', omega, gamma: r.gamma });
           }
@@ -425,7 +425,7 @@ let worstResidual = 0;
   const data = [];
   for (const spin of SPINS) {
     for (const omega of omegas) {
-      const r = absorptionCrossSection({ spin, a: 0, omega }, { tol: 1e-6 });
+      const r = absorptionCrossSection({ hole: { a: 0 }, field: { spin }, omega }, { tol: 1e-6 });
       data.push({ spin: spinName[spin], omega, sigma: r.sigma });
     }
   }
@@ -464,7 +464,7 @@ let worstResidual = 0;
       for (let i = 1; i <= 65; i++) {
         const x = (1.3 * i) / 65;
         if (Math.abs(x - 1) < 1e-9) continue;
-        const r = greybody({ spin, l, m, a, omega: x * m * omegaH }, { tol: 1e-7, reflection: false });
+        const r = greybody({ hole: { a }, mode: { field: { spin }, l, m }, omega: x * m * omegaH }, { tol: 1e-7, reflection: false });
         data.push({ x, z: 100 * r.amplification, a: `a = ${a}` });
       }
     }

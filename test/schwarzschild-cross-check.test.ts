@@ -21,7 +21,7 @@ describe('Teukolsky greybody factors at a = 0 agree with the independent Reggeâ€
           const ref = schwarzschildGreybody({ spin, l, omega, tol: 1e-11 });
           if (ref.gamma < 1e-30) continue;
           const m = spin === 0.5 ? 0.5 : 0;
-          const got = greybody({ spin, l, m, a: 0, omega }, { tol: 1e-10 });
+          const got = greybody({ hole: { a: 0 }, mode: { field: { spin }, l, m }, omega }, { tol: 1e-10 });
           expect(Math.abs(got.gamma / ref.gamma - 1), `s=${spin} l=${l} MÏ‰=${omega}`).toBeLessThan(1e-9);
           compared++;
         }

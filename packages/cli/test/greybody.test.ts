@@ -10,7 +10,7 @@ describe('penumbra greybody', () => {
     for (const key of ['spin', 'l', 'm', 'a', 'omega', 'gamma', 'reflection', 'residual', 'relError', 'diagnostics']) {
       expect(json).toHaveProperty(key);
     }
-    expect(json.gamma).toBe(greybody({ spin: 1, l: 1, m: 1, a: 0.9, omega: 0.3 }).gamma);
+    expect(json.gamma).toBe(greybody({ hole: { a: 0.9 }, mode: { field: { spin: 1 }, l: 1, m: 1 }, omega: 0.3 }).gamma);
     expect(json.diagnostics).toHaveProperty('rhsEvaluations');
   });
   test('accepts half-integer spins and mode numbers as 1/2 and 0.5', async () => {

@@ -6,7 +6,11 @@
  * factors change sign together.
  */
 import { ConvergenceError, kerrHole, type KerrHole } from '@penumbra/kerr';
-import { greybody, lowFrequencyGreybody, MIN_MOMEGA, MAX_MOMEGA, type FieldSpin } from '@penumbra/flux';
+import type { FieldSpin } from '@penumbra/core';
+import { greybody, lowFrequencyGreybody, MOMEGA_RANGE } from '@penumbra/flux';
+
+const MIN_MOMEGA = MOMEGA_RANGE.min;
+const MAX_MOMEGA = MOMEGA_RANGE.max;
 
 export interface ModeCounters {
   gammaCalls: number;
@@ -50,12 +54,12 @@ export interface ModeRate {
 function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): { gamma: number; relError: number } {
   if (omega < MIN_MOMEGA) {
     // Page's low-frequency formula; its first correction is ~2πMω (physics notes).
-    const g = lowFrequencyGreybody({ spin: ctx.spin, l, m, a: ctx.aStar, omega });
+    const g = lowFrequencyGreybody({ hole: { a: ctx.aStar }, mode: { field: { spin: ctx.spin }, l, m }, omega });
     return { gamma: g, relError: 2 * Math.PI * omega };
   }
   let r;
   try {
-    r = greybody({ spin: ctx.spin, l, m, a: ctx.aStar, omega }, { tol: ctx.greybodyTol, reflection: false });
+    r = greybody({ hole: { a: ctx.aStar }, mode: { field: { spin: ctx.spin }, l, m }, omega }, { tol: ctx.greybodyTol, reflection: false });
   } catch (e) {
     if (e instanceof ConvergenceError) {
       throw new ConvergenceError(`greybody solve failed inside the emission sum (s = ${ctx.spin}, l = ${l}, m = ${m}, a* = ${ctx.aStar}, Mω = ${omega})`, {

@@ -12,7 +12,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { InputError } from '@penumbra/kerr';
-import { MAX_SPIN } from '@penumbra/flux';
+import { MAX_SOLVER_A_RATIO as MAX_SPIN } from '@penumbra/core';
 import { emissionTotals } from './totals.js';
 import { resolveContent, dofBySpin, type SpeciesSpec } from './species.js';
 import { validateEmissionTol, type FieldSpin } from './validate.js';

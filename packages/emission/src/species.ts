@@ -5,7 +5,7 @@
  * with its antiparticle 2, a real scalar 1 (Page, Phys. Rev. D 13, 198 (1976)).
  */
 import { InputError } from '@penumbra/kerr';
-import { validateSpin, type FieldSpin } from '@penumbra/flux';
+import { parseFieldSpin as validateSpin, type FieldSpin } from '@penumbra/core';
 
 export interface Species {
   name: string;

@@ -13,7 +13,9 @@
  * dropped part.
  */
 import { ConvergenceError, InputError } from '@penumbra/kerr';
-import { MAX_MOMEGA } from '@penumbra/flux';
+import { MOMEGA_RANGE } from '@penumbra/flux';
+
+const MAX_MOMEGA = MOMEGA_RANGE.max;
 import { modeContext, modeRate, occupation, retrogradeImpactParameter, shellMs, type ModeContext } from './modes.js';
 import { validateEmissionTol, validateGrid, validateMass, validateSpin, validateSpinParameter, type FieldSpin } from './validate.js';
 

@@ -17,7 +17,9 @@
  * the continued geometric series and not solved.
  */
 import { ConvergenceError } from '@penumbra/kerr';
-import { MAX_MOMEGA } from '@penumbra/flux';
+import { MOMEGA_RANGE } from '@penumbra/flux';
+
+const MAX_MOMEGA = MOMEGA_RANGE.max;
 import { adaptiveKronrod } from './quadrature.js';
 import { boltzmannTailBound, modeContext, modeRate, shellMs, type ModeContext } from './modes.js';
 import { validateEmissionTol, validateMass, validateSpin, validateSpinParameter, type FieldSpin } from './validate.js';

@@ -1,6 +1,6 @@
 /** Input checks for the emission API: typed InputError naming the parameter and its range. */
 import { InputError, requireFinite } from '@penumbra/kerr';
-import { MAX_SPIN, validateSpin, type FieldSpin } from '@penumbra/flux';
+import { MAX_SOLVER_A_RATIO as MAX_SPIN, parseFieldSpin as validateSpin, type FieldSpin } from '@penumbra/core';
 
 export { validateSpin };
 export type { FieldSpin };

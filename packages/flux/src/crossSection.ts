@@ -10,87 +10,123 @@
  * barrier Γ falls geometrically in l, so the dropped tail is bounded by
  * S_last·q/(1 − q) with q = S_last/S_previous; that bound is reported.
  */
-import { ConvergenceError } from '@penumbra/kerr';
-import { greybody, type GreybodyOptions, type GreybodyResult } from './greybody.js';
-import { validateHole, validateOmega, validateSpin, validateTol } from './validate.js';
+import {
+  InputError,
+  isFunction,
+  numberIn,
+  requireObject,
+  sumLShells,
+  validateField,
+  validateHole,
+  validateOptions,
+  type Diagnostics,
+  type Field,
+  type FieldSpin,
+  type Hole,
+} from '@penumbra/core';
+import { greybody, type GreybodySolution } from './greybody.js';
+import { GREYBODY_OPTIONS, MAX_SUM_L, validateOmega, type GreybodyOptions } from './validate.js';
 
+/** A field on a hole at one frequency: σ sums over all of its modes. */
 export interface CrossSectionProblem {
-  spin: number;
-  a: number;
-  omega: number;
-  mass?: number;
+  readonly hole: Hole;
+  readonly field: Field;
+  /** real frequency ω > 0 in units of 1/M */
+  readonly omega: number;
 }
 
-export interface CrossSectionResult {
-  spin: number;
-  a: number;
-  omega: number;
-  mass: number;
-  /** σ in units of M² (geometric) */
-  sigma: number;
+export interface CrossSectionOptions extends GreybodyOptions {
+  /** largest l before the sum counts as not converged (default and maximum ${MAX_SUM_L}) */
+  maxL?: number;
+  /** called with every mode solved */
+  onMode?: (solution: GreybodySolution) => void;
+}
+
+export interface CrossSectionDiagnostics extends Diagnostics {
+  /** greybody solves */
+  modes: number;
   /** largest l summed */
   lMax: number;
-  /** bound on |σ| of the l-shells not summed */
+  /** bound on |σ| of the l-shells not summed (units of M²) */
   droppedBound: number;
-  /** estimated relative error: mode errors plus the dropped bound */
-  relError: number;
-  modes: number;
-  shells: { l: number; sum: number }[];
 }
 
-export function absorptionCrossSection(
-  problem: CrossSectionProblem,
-  options: GreybodyOptions & { maxL?: number; onMode?: (r: GreybodyResult) => void } = {},
-): CrossSectionResult {
-  const spin = validateSpin(problem.spin);
-  const { a, mass } = validateHole(problem.a, problem.mass ?? 1);
-  const omega = validateOmega(problem.omega, mass);
-  const tol = validateTol(options.tol ?? 1e-8);
-  const maxL = options.maxL ?? 200;
-  const lCut = omega * 5 * mass;
-  const shells: { l: number; sum: number }[] = [];
-  let total = 0;
+/** The absorption cross-section of one field, with its l-shell breakdown. */
+export interface CrossSectionSolution {
+  hole: { a: number; mass: number };
+  field: { spin: FieldSpin };
+  omega: number;
+  /** σ in units of M² (geometric) */
+  sigma: number;
+  /** estimated relative error: mode errors plus the dropped bound */
+  relError: number;
+  /** σ of each l-shell (units of M²) */
+  shells: { l: number; sum: number }[];
+  diagnostics: CrossSectionDiagnostics;
+}
+
+const OPTIONS = {
+  ...GREYBODY_OPTIONS,
+  maxL: numberIn(0, MAX_SUM_L, true),
+  onMode: isFunction<(s: GreybodySolution) => void>,
+};
+
+/**
+ * Absorption cross-section σ(ω) = (π/ω²) Σ_{l,m} Γ (one helicity), summed by
+ * the shared l-shell rule with the geometric-optics cut l > 5Mω. Throws
+ * InputError for bad input, ConvergenceError if the l-sum does not converge.
+ */
+export function absorptionCrossSection(problem: CrossSectionProblem, options?: CrossSectionOptions): CrossSectionSolution {
+  const p = requireObject('problem', problem, 'an object { hole, field, omega }');
+  for (const key of Object.keys(p)) {
+    if (!['hole', 'field', 'omega'].includes(key)) throw new InputError(`problem.${key}`, 'the keys hole, field, omega', key, 'unknown key');
+  }
+  const { spin } = validateField(p.field, 'field');
+  const { a, mass } = validateHole(p.hole, 'hole');
+  const omega = validateOmega(p.omega, mass);
+  const { maxL = MAX_SUM_L, onMode, ...greybodyOptions } = validateOptions<CrossSectionOptions>(options, OPTIONS);
+  const tol = greybodyOptions.tol ?? 1e-8;
+  if (maxL < spin) throw new InputError('maxL', `${spin} ≤ maxL ≤ ${MAX_SUM_L}`, maxL);
   let errAbs = 0;
   let modes = 0;
-  let below = 0;
-  let l = spin;
-  for (; l <= maxL; l++) {
-    let shell = 0;
+  let steps = 0;
+  let rhsEvaluations = 0;
+  const shell = (l: number): number => {
     // At a = 0, Γ does not depend on m: one solve per shell, times its 2l + 1 members.
     const ms = a === 0 ? [spin === 0.5 ? 0.5 : 0] : Array.from({ length: 2 * l + 1 }, (_, i) => i - l);
     const weight = a === 0 ? 2 * l + 1 : 1;
+    let sum = 0;
     for (const m of ms) {
-      const r = greybody({ spin, l, m, a, omega, mass }, { ...options, tol, reflection: false });
-      options.onMode?.(r);
-      shell += weight * r.gamma;
+      const r = greybody({ hole: { a, mass }, mode: { field: { spin }, l, m }, omega }, { ...greybodyOptions, tol, reflection: false });
+      onMode?.(r);
+      sum += weight * r.gamma;
       errAbs += weight * Math.abs(r.gamma) * r.relError;
+      steps += r.diagnostics.steps;
+      rhsEvaluations += r.diagnostics.rhsEvaluations;
       modes++;
     }
-    total += shell;
-    shells.push({ l, sum: shell });
-    if (l > lCut && Math.abs(shell) <= tol * Math.abs(total)) {
-      if (++below >= 2) break;
-    } else below = 0;
-  }
-  if (below < 2) {
-    throw new ConvergenceError('cross-section l-sum did not converge within maxL', { maxL, lCut, total });
-  }
-  const last = Math.abs(shells[shells.length - 1].sum);
-  const prev = Math.abs(shells[shells.length - 2].sum);
-  const q = last / prev;
-  if (!(q < 1)) throw new ConvergenceError('cross-section tail is not decreasing', { last, prev, l });
-  const droppedBound = (last * q) / (1 - q);
+    return sum;
+  };
+  const lFirst = spin;
+  const summed = sumLShells(lFirst, { lCut: omega * 5 * mass, tol, maxL }, shell, 'cross-section l-sum');
   const scale = Math.PI / (omega * omega);
+  const relError = (errAbs + summed.tailBound) / Math.abs(summed.total);
   return {
-    spin,
-    a,
+    hole: { a, mass },
+    field: { spin },
     omega,
-    mass,
-    sigma: scale * total,
-    lMax: shells[shells.length - 1].l,
-    droppedBound: scale * droppedBound,
-    relError: (errAbs + droppedBound) / Math.abs(total),
-    modes,
-    shells: shells.map((s) => ({ l: s.l, sum: scale * s.sum })),
+    sigma: scale * summed.total,
+    relError,
+    shells: summed.shells.map((s) => ({ l: s.l, sum: scale * s.sum })),
+    diagnostics: {
+      method: 'partial-wave sum of greybody factors over whole l-shells, geometric tail bound',
+      steps,
+      rhsEvaluations,
+      errorEstimate: relError,
+      message: `summed l = ${lFirst} … ${summed.lMax}; dropped shells bounded by ${(scale * summed.tailBound).toExponential(2)} M²`,
+      modes,
+      lMax: summed.lMax,
+      droppedBound: scale * summed.tailBound,
+    },
   };
 }

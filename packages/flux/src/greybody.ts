@@ -8,7 +8,8 @@
  * Teukolsky–Starobinsky map at the horizon; |Γ + R − 1| is then a genuine check
  * of both solves and of the flux normalisations (docs/method.md).
  */
-import { ConvergenceError, kerrHole, type KerrHole } from '@penumbra/kerr';
+import { ConvergenceError, InputError, attempt, validateOptions, type Attempt, type Diagnostics, type FieldSpin } from '@penumbra/core';
+import { kerrHole, type KerrHole } from '@penumbra/kerr';
 import { radialSeparationConstant, spheroidalEigenvalue } from '@penumbra/spheroidal';
 import {
   solveRadial,
@@ -19,43 +20,16 @@ import {
   type TwoSidedOptions,
 } from '@penumbra/radial';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
-import { validateHole, validateMode, validateOmega, validateSpin, validateTol, type FieldSpin } from './validate.js';
+import { GREYBODY_OPTIONS, checkGreybodyOptions, checkProblem, type GreybodyOptions, type GreybodyProblem } from './validate.js';
 
-export interface GreybodyProblem {
-  /** field spin: 0, 1/2, 1 or 2 */
-  spin: number;
-  l: number;
-  m: number;
-  /** spin parameter a (same units as mass); negative a: hole counter-rotating relative to m > 0 */
-  a: number;
-  /** real frequency ω > 0 in units of 1/mass */
-  omega: number;
-  /** hole mass M (default 1) */
-  mass?: number;
-}
-
-export interface GreybodyOptions {
-  /** requested relative accuracy of Γ (default 1e-8, range 1e-12 … 1e-2) */
-  tol?: number;
-  /** ODE integrator (default 'odex') */
-  integrator?: IntegratorName;
-  /** override the start point (fraction of r+ − r−) and matching radius, e.g. to show the answer does not move */
-  startFraction?: number;
-  matchRadius?: number;
-  /** also compute the reflection coefficient from the −|s| field (default true) */
-  reflection?: boolean;
-}
-
-export interface GreybodyDiagnostics {
-  method: string;
+/** How a greybody factor was computed; `errorEstimate` is the relative error of Γ. */
+export interface GreybodyDiagnostics extends Diagnostics {
   integrator: IntegratorName;
   odeTol: number;
   startRadius: number;
   matchRadius: number;
   horizonTerms: number;
   farTerms: number;
-  steps: number;
-  rhsEvaluations: number;
   /** the spheroidal eigenvalue A_{+s l m}(aω) and radial constant λ used */
   eigenvalue: number;
   lambda: number;
@@ -64,18 +38,16 @@ export interface GreybodyDiagnostics {
   attempts: number;
 }
 
-export interface GreybodyResult {
-  spin: FieldSpin;
-  l: number;
-  m: number;
-  a: number;
-  mass: number;
+/** The greybody factor of one mode, with the problem it answers. */
+export interface GreybodySolution {
+  hole: { a: number; mass: number };
+  mode: { field: { spin: FieldSpin }; l: number; m: number };
   omega: number;
   /** absorbed fraction of the incident flux; negative in the superradiant band (bosons) */
   gamma: number;
-  /** reflected fraction, from an independent solve */
+  /** reflected fraction, from an independent solve (NaN when not asked for) */
   reflection: number;
-  /** |Γ + reflection − 1| */
+  /** |Γ + reflection − 1|, an accuracy check of both solves and the normalisations */
   residual: number;
   /** estimated relative error of Γ (from a solve at a ten times looser tolerance) */
   relError: number;
@@ -98,10 +70,7 @@ interface Prepared {
 }
 
 function prepare(problem: GreybodyProblem): Prepared {
-  const spin = validateSpin(problem.spin);
-  const { l, m } = validateMode(spin, problem.l, problem.m);
-  const { a, mass } = validateHole(problem.a, problem.mass ?? 1);
-  const omega = validateOmega(problem.omega, mass);
+  const { spin, l, m, a, mass, omega } = checkProblem(problem);
   const hole = kerrHole({ a, mass });
   const eig = spheroidalEigenvalue({ s: spin, l, m, c: a * omega });
   const lambdaPlus = radialSeparationConstant(eig.A, a, omega, m);
@@ -118,9 +87,19 @@ function odeTolerance(tol: number): number {
   return Math.max(tol * 1e-3, 1e-14);
 }
 
-export function greybody(problem: GreybodyProblem, options: GreybodyOptions = {}): GreybodyResult {
+/**
+ * The greybody factor Γ of one mode: the fraction of an incident wave's flux
+ * the hole absorbs, with the reflection from an independent solve and an
+ * error estimate from a solve at a ten times looser tolerance. Throws
+ * InputError for a bad problem or option, ConvergenceError (with diagnostics)
+ * if the requested accuracy is not reached.
+ *
+ * @example greybody({ hole: { a: 0.9 }, mode: { field: { spin: 1 }, l: 1, m: 1 }, omega: 0.3 })
+ */
+export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): GreybodySolution {
   const p = prepare(problem);
-  const tol = validateTol(options.tol ?? 1e-8);
+  options = checkGreybodyOptions(options);
+  const tol = options.tol ?? 1e-8;
   const integrator = options.integrator ?? 'odex';
   const { spin, hole, omega, m, lambdaPlus } = p;
   const k = omega - m * hole.omegaH;
@@ -149,7 +128,10 @@ export function greybody(problem: GreybodyProblem, options: GreybodyOptions = {}
     }
     if (attempt === 3) {
       throw new ConvergenceError('greybody factor did not reach the requested accuracy', {
-        ...fine.diagnostics, spin, l: p.l, m, a: hole.a, omega, tol, relError, odeTol,
+        ...fine.diagnostics,
+        errorEstimate: relError,
+        message: `relative error ${relError.toExponential(2)} > tol ${tol} after 3 attempts (last integrator tolerance ${odeTol})`,
+        spin, l: p.l, m, a: hole.a, omega, tol, odeTol,
       });
     }
     odeTol = Math.max(odeTol * 0.01, 1e-15);
@@ -215,13 +197,10 @@ interface Outcome {
 function result(
   p: Prepared,
   { gamma, reflection, relError, k, C2, odeTol, attempts, integrator, d, extraEvaluations }: Outcome,
-): GreybodyResult {
+): GreybodySolution {
   return {
-    spin: p.spin,
-    l: p.l,
-    m: p.m,
-    a: p.hole.a,
-    mass: p.hole.mass,
+    hole: { a: p.hole.a, mass: p.hole.mass },
+    mode: { field: { spin: p.spin }, l: p.l, m: p.m },
     omega: p.omega,
     gamma,
     reflection,
@@ -232,6 +211,10 @@ function result(
     superradiant: p.spin !== 0.5 && k < 0,
     diagnostics: {
       method: d ? d.method : 'superradiant threshold: Γ = 0 exactly',
+      errorEstimate: relError,
+      message: d
+        ? `converged: estimated relative error ${relError.toExponential(2)} after ${attempts} attempt(s)`
+        : 'k = ω − mΩ_H = 0 exactly: ingoing and outgoing horizon solutions coincide and Γ = 0',
       integrator,
       odeTol,
       startRadius: d?.startRadius ?? Number.NaN,
@@ -257,17 +240,42 @@ function result(
 export function radialFunction(
   problem: GreybodyProblem,
   radii: readonly number[],
-  options: { tol?: number; integrator?: IntegratorName } = {},
+  options?: Pick<GreybodyOptions, 'tol' | 'integrator'>,
 ): { samples: RadialSample[]; logAbsZIn: number; logAbsZOut: number; diagnostics: RadialDiagnostics } {
   const p = prepare(problem);
-  const tol = validateTol(options.tol ?? 1e-8);
-  const sorted = [...radii].sort((x, y) => x - y);
+  const checked = validateOptions<Pick<GreybodyOptions, 'tol' | 'integrator'>>(options, {
+    tol: GREYBODY_OPTIONS.tol,
+    integrator: GREYBODY_OPTIONS.integrator,
+  });
+  const tol = checked.tol ?? 1e-8;
+  const sorted = checkRadii(radii, p.hole).sort((x, y) => x - y);
   const radial = { hole: p.hole, s: p.spin, m: p.m, omega: p.omega, lambda: p.lambdaPlus };
-  const opts = { tol: odeTolerance(tol), grid: sorted, integrator: options.integrator };
+  const opts = { tol: odeTolerance(tol), grid: sorted, integrator: checked.integrator };
   if (p.spin === 0) {
     const sol = solveRadial(radial, opts);
     return { samples: sol.samples, logAbsZIn: sol.logAbsZIn, logAbsZOut: sol.logAbsZOut, diagnostics: sol.diagnostics };
   }
   const sol = solveTwoSided(radial, { ...opts, reflection: false });
   return { samples: sol.samples, logAbsZIn: sol.logAbsZInPlus, logAbsZOut: sol.logAbsZOutPlus, diagnostics: sol.diagnostics };
+}
+
+/** Largest number of radii one radialFunction call samples. */
+export const MAX_RADII = 100_000;
+
+function checkRadii(radii: unknown, hole: KerrHole): number[] {
+  const allowed = `an array of at most ${MAX_RADII} finite radii r > r+ = ${hole.rPlus}`;
+  if (!Array.isArray(radii) || radii.length > MAX_RADII) throw new InputError('radii', allowed, radii);
+  radii.forEach((r, i) => {
+    if (typeof r !== 'number' || !(r > hole.rPlus) || !Number.isFinite(r)) throw new InputError(`radii[${i}]`, allowed, r);
+  });
+  return [...(radii as number[])];
+}
+
+/**
+ * `greybody` for batch callers: never throws for bad input or
+ * non-convergence; returns a status ('success', 'not-converged',
+ * 'invalid-input') with the solution or the typed error.
+ */
+export function tryGreybody(problem: GreybodyProblem, options?: GreybodyOptions): Attempt<GreybodySolution> {
+  return attempt(() => greybody(problem, options));
 }

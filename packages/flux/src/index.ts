@@ -1,5 +1,11 @@
-export * from './normalisation.js';
-export * from './validate.js';
-export * from './greybody.js';
-export * from './lowFrequency.js';
-export * from './crossSection.js';
+export { greybody, tryGreybody, radialFunction, MAX_RADII, type GreybodyDiagnostics, type GreybodySolution } from './greybody.js';
+export { MOMEGA_RANGE, type GreybodyProblem, type GreybodyOptions } from './validate.js';
+export { lowFrequencyGreybody } from './lowFrequency.js';
+export {
+  absorptionCrossSection,
+  type CrossSectionProblem,
+  type CrossSectionOptions,
+  type CrossSectionSolution,
+  type CrossSectionDiagnostics,
+} from './crossSection.js';
+export { horizonFactor, starobinskyConstantSquared, horizonMapSquared } from './normalisation.js';

@@ -10,7 +10,7 @@
  * is roughly a factor 1 + 2πMω.
  */
 import { kerrHole } from '@penumbra/kerr';
-import { validateHole, validateMode, validateSpin } from './validate.js';
+import { checkProblem, type GreybodyProblem } from './validate.js';
 
 function factorial(n: number): number {
   let f = 1;
@@ -25,12 +25,15 @@ function doubleFactorial(n: number): number {
   return f;
 }
 
-export function lowFrequencyGreybody(q: { spin: number; l: number; m: number; a: number; omega: number; mass?: number }): number {
-  const s = validateSpin(q.spin);
-  const { l, m } = validateMode(s, q.l, q.m);
-  const { a, mass } = validateHole(q.a, q.mass ?? 1);
+/**
+ * The low-frequency (Page–Starobinsky) approximation to Γ for the same
+ * problem as `greybody` (validated the same way). An analytic formula, not a
+ * solve: it carries no error estimate and holds only for Mω ≪ 1.
+ */
+export function lowFrequencyGreybody(problem: GreybodyProblem): number {
+  const { spin: s, l, m, a, mass, omega } = checkProblem(problem, true);
   const hole = kerrHole({ a, mass });
-  const k = q.omega - m * hole.omegaH;
+  const k = omega - m * hole.omegaH;
   const kap = hole.kappa;
   const pre = (factorial(l - s) * factorial(l + s)) / (factorial(2 * l) * doubleFactorial(2 * l + 1));
   const fermion = !Number.isInteger(s);
@@ -41,5 +44,5 @@ export function lowFrequencyGreybody(q: { spin: number; l: number; m: number; a:
     prod *= 1 + (k / (nn * kap)) ** 2;
   }
   const boson = fermion ? 1 : (2 * k) / kap;
-  return pre * pre * prod * boson * Math.pow((hole.rPlus - hole.rMinus) * q.omega, 2 * l + 1);
+  return pre * pre * prod * boson * Math.pow((hole.rPlus - hole.rMinus) * omega, 2 * l + 1);
 }

@@ -1,61 +1,106 @@
-/** Input validation shared by the flux API: typed errors naming the parameter and its range. */
-import { InputError, requireFinite } from '@penumbra/kerr';
+/**
+ * Validation of greybody problems and options in the shared vocabulary
+ * (@penumbra/core): a problem is { hole, mode, omega }; errors name the
+ * parameter the caller gave (`hole.a`, `mode.l`, `omega`, `options.tol`).
+ */
+import {
+  InputError,
+  MAX_L,
+  isBoolean,
+  numberIn,
+  oneOf,
+  requireFinite,
+  requireObject,
+  validateHole,
+  validateMode,
+  validateOptions,
+  validateTolerance,
+  type FieldSpin,
+  type Hole,
+  type Mode,
+} from '@penumbra/core';
+import { INTEGRATORS, type IntegratorName } from '@penumbra/radial';
 
-export const SUPPORTED_SPINS = [0, 0.5, 1, 2] as const;
-export type FieldSpin = (typeof SUPPORTED_SPINS)[number];
-/** Largest |a|/M the horizon-based solver accepts. */
-export const MAX_SPIN = 0.9999;
-export const MIN_MOMEGA = 1e-5;
-export const MAX_MOMEGA = 30;
+/** Frequencies the solver covers, as Mω. */
+export const MOMEGA_RANGE = { min: 1e-5, max: 30 } as const;
 
-export function validateSpin(spin: unknown): FieldSpin {
-  if (typeof spin !== 'number' || !(SUPPORTED_SPINS as readonly number[]).includes(spin)) {
-    throw new InputError('spin', 'one of 0, 1/2, 1, 2', spin);
-  }
-  return spin as FieldSpin;
+/** One mode of a hole at one real frequency. */
+export interface GreybodyProblem {
+  readonly hole: Hole;
+  readonly mode: Mode;
+  /** real frequency ω > 0 in units of 1/M, 1e-5 ≤ Mω ≤ 30 */
+  readonly omega: number;
 }
 
-export function validateMode(spin: number, l: unknown, m: unknown): { l: number; m: number } {
-  requireFinite('l', l, `l ≥ ${spin} with l − s an integer`);
-  requireFinite('m', m, '|m| ≤ l with m − s an integer');
-  const L = l as number, Mz = m as number;
-  if (L < spin || !Number.isInteger(L - spin)) {
-    throw new InputError('l', `l ≥ |s| = ${spin} with l − s an integer`, L);
-  }
-  if (Math.abs(Mz) > L || !Number.isInteger(Mz - spin)) {
-    throw new InputError('m', `|m| ≤ l = ${L} with m − s an integer`, Mz);
-  }
-  return { l: L, m: Mz };
+/** A checked problem: numbers only, defaults filled. */
+export interface CheckedProblem {
+  spin: FieldSpin;
+  l: number;
+  m: number;
+  a: number;
+  mass: number;
+  omega: number;
 }
 
-export function validateHole(a: unknown, mass: unknown): { a: number; mass: number } {
-  requireFinite('mass', mass, 'a finite number > 0');
-  if (!((mass as number) > 0)) throw new InputError('mass', 'a finite number > 0', mass);
-  const M = mass as number;
-  requireFinite('a', a, `|a| ≤ ${MAX_SPIN} M`);
-  if (Math.abs(a as number) > MAX_SPIN * M) {
-    throw new InputError(
-      'a',
-      `|a| ≤ ${MAX_SPIN} M = ${MAX_SPIN * M}`,
-      a,
-      'the horizon series start needs r+ − r− > 0; the extremal hole is a limit, not an input',
-    );
-  }
-  return { a: a as number, mass: M };
-}
-
-export function validateOmega(omega: unknown, mass: number): number {
-  const allowed = `${MIN_MOMEGA} ≤ Mω ≤ ${MAX_MOMEGA} (ω in units of 1/M)`;
-  requireFinite('omega', omega, allowed);
-  const w = omega as number;
-  if (!(w > 0)) throw new InputError('omega', allowed, w, 'ω must be positive');
-  if (w * mass < MIN_MOMEGA || w * mass > MAX_MOMEGA) throw new InputError('omega', allowed, w);
+/** Validate ω against the solver's range for a hole of mass `mass`. */
+export function validateOmega(omega: unknown, mass: number, parameter = 'omega'): number {
+  const allowed = `${MOMEGA_RANGE.min} ≤ Mω ≤ ${MOMEGA_RANGE.max} (ω in units of 1/M)`;
+  const w = requireFinite(parameter, omega, allowed);
+  if (!(w * mass >= MOMEGA_RANGE.min && w * mass <= MOMEGA_RANGE.max)) throw new InputError(parameter, allowed, w);
   return w;
 }
 
-export function validateTol(tol: unknown): number {
-  requireFinite('tol', tol, '1e-12 ≤ tol ≤ 1e-2');
-  const t = tol as number;
-  if (!(t >= 1e-12 && t <= 1e-2)) throw new InputError('tol', '1e-12 ≤ tol ≤ 1e-2', t);
-  return t;
+function requireKeys(value: Record<string, unknown>, keys: readonly string[], parameter: string): void {
+  for (const key of Object.keys(value)) {
+    if (!keys.includes(key)) throw new InputError(`${parameter}.${key}`, `the keys ${keys.join(', ')}`, key, 'unknown key');
+  }
 }
+
+/** Validate a greybody problem { hole, mode, omega }. */
+export function checkProblem(problem: unknown, anyPositiveOmega = false): CheckedProblem {
+  const p = requireObject('problem', problem, 'an object { hole, mode, omega }');
+  requireKeys(p, ['hole', 'mode', 'omega'], 'problem');
+  const { spin, l, m } = validateMode(p.mode, 'mode');
+  const { a, mass } = validateHole(p.hole, 'hole');
+  const omega = anyPositiveOmega ? positiveOmega(p.omega) : validateOmega(p.omega, mass);
+  return { spin, l, m, a, mass, omega };
+}
+
+function positiveOmega(omega: unknown): number {
+  const w = requireFinite('omega', omega, 'a finite number > 0');
+  if (!(w > 0)) throw new InputError('omega', 'a finite number > 0', w);
+  return w;
+}
+
+/** Options of one greybody solve. */
+export interface GreybodyOptions {
+  /** requested relative accuracy of Γ (default 1e-8, range 1e-12 … 1e-2) */
+  tol?: number;
+  /** ODE integrator (default 'odex') */
+  integrator?: IntegratorName;
+  /** override the start point (fraction of r+ − r−, 0 < f < 1) to show the answer does not move */
+  startFraction?: number;
+  /** override the matching radius (units of M) to show the answer does not move */
+  matchRadius?: number;
+  /** also compute the reflection coefficient from the −|s| field (default true) */
+  reflection?: boolean;
+}
+
+export const GREYBODY_OPTIONS = {
+  tol: validateTolerance,
+  integrator: oneOf(INTEGRATORS),
+  startFraction: (v: unknown, p: string) => {
+    const f = requireFinite(p, v, '0 < startFraction < 1');
+    if (!(f > 0 && f < 1)) throw new InputError(p, '0 < startFraction < 1', f);
+    return f;
+  },
+  matchRadius: numberIn(3, 1e8),
+  reflection: isBoolean,
+};
+
+export function checkGreybodyOptions(options: unknown): GreybodyOptions {
+  return validateOptions<GreybodyOptions>(options, GREYBODY_OPTIONS);
+}
+
+/** Largest l an l-sum may reach (the spheroidal solver's range). */
+export const MAX_SUM_L = MAX_L;

@@ -12,7 +12,7 @@ import { solveRadial } from '@penumbra/radial';
 describe('radialFunction', () => {
   const a = 0.7;
   const hole = kerrHole({ a: a });
-  const problem = { spin: 2, l: 2, m: 2, a, omega: 0.5 };
+  const problem = { hole: { a }, mode: { field: { spin: 2 as const }, l: 2, m: 2 }, omega: 0.5 };
   const radii = [hole.rPlus + 1e-4, hole.rPlus + 0.5, 3, 5, 20];
   const rf = radialFunction(problem, radii, { tol: 1e-10 });
 

@@ -14,7 +14,7 @@ describe('sweep over spins, spins of the hole, frequencies and multipoles', () =
       for (const a of [0, 0.99, -0.9999]) {
         for (const omega of [1e-4, 1e-2, 1, 10, 30]) {
           for (const L of [spin, spin + 20]) {
-            const r = greybody({ spin, l: L, m: L, a, omega });
+            const r = greybody({ hole: { a }, mode: { field: { spin }, l: L, m: L }, omega });
             expect(r.relError, `a=${a} Mω=${omega} l=${L}`).toBeLessThanOrEqual(1e-8);
             expect(r.residual, `a=${a} Mω=${omega} l=${L}`).toBeLessThan(1e-8);
           }

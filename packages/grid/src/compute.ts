@@ -3,7 +3,8 @@
  * kept as a failed row with its diagnostics so that the other rows go on.
  * Runs inside the pool workers; pure apart from the solvers it calls.
  */
-import { absorptionCrossSection, greybody, type GreybodyResult } from '@penumbra/flux';
+import type { FieldSpin } from '@penumbra/core';
+import { absorptionCrossSection, greybody, type GreybodySolution } from '@penumbra/flux';
 import { emissionSpectrum } from '@penumbra/emission';
 import { clearSpheroidalCache } from '@penumbra/spheroidal';
 import type { LRange, Quantity } from './grid.js';
@@ -43,7 +44,7 @@ function describeFailure(error: unknown): Failure {
 
 const finite = (x: number) => Number.isFinite(x);
 
-function modeRow(task: TaskMessage, l: number, m: number, r: GreybodyResult, reflection: boolean): Row {
+function modeRow(task: TaskMessage, l: number, m: number, r: GreybodySolution, reflection: boolean): Row {
   const row: Row = { s: task.s, a: task.a, omega: task.omega, l, m, status: 'ok', gamma: r.gamma, relError: r.relError };
   if (reflection) {
     row.reflection = r.reflection;
@@ -68,7 +69,7 @@ function failedModeRow(task: TaskMessage, l: number, m: number, reflection: bool
 }
 
 /** A result is a number only if every number in it is finite. */
-function checkedMode(r: GreybodyResult, reflection: boolean): GreybodyResult {
+function checkedMode(r: GreybodySolution, reflection: boolean): GreybodySolution {
   const values = [r.gamma, r.relError, ...(reflection ? [r.reflection, r.residual] : [])];
   if (!values.every(finite)) throw new Error(`non-finite result (gamma ${r.gamma}, relError ${r.relError}, reflection ${r.reflection})`);
   return r;
@@ -76,7 +77,7 @@ function checkedMode(r: GreybodyResult, reflection: boolean): GreybodyResult {
 
 function solveMode(task: TaskMessage, l: number, m: number, reflection: boolean): Row {
   try {
-    const r = greybody({ spin: task.s, l, m, a: task.a, omega: task.omega }, { tol: task.tolerance, reflection });
+    const r = greybody({ hole: { a: task.a }, mode: { field: { spin: task.s as FieldSpin }, l, m }, omega: task.omega }, { tol: task.tolerance, reflection });
     return modeRow(task, l, m, checkedMode(r, reflection), reflection);
   } catch (error) {
     return failedModeRow(task, l, m, reflection, describeFailure(error));
@@ -106,16 +107,17 @@ export function computeTask(task: TaskMessage): TaskResult {
 
   if (q.includes('crossSection') || (perMode && task.l === 'auto')) {
     // The automatic l range of the mode table is the one the cross-section sum reaches.
-    const solved: GreybodyResult[] = [];
+    const solved: GreybodySolution[] = [];
     let crossRow: Row;
     let failedMode: { l: number; m: number; failure: Failure } | undefined;
     try {
-      const cs = absorptionCrossSection({ spin: task.s, a: task.a, omega: task.omega }, {
+      const cs = absorptionCrossSection({ hole: { a: task.a }, field: { spin: task.s as FieldSpin }, omega: task.omega }, {
         tol: task.tolerance,
         onMode: (r) => void solved.push(r),
       });
-      if (![cs.sigma, cs.relError, cs.droppedBound].every(finite)) throw new Error(`non-finite cross-section ${cs.sigma}`);
-      crossRow = { ...point, status: 'ok', sigma: cs.sigma, relError: cs.relError, droppedBound: cs.droppedBound, lMax: cs.lMax, modes: cs.modes, failure: null };
+      const { droppedBound, lMax, modes } = cs.diagnostics;
+      if (![cs.sigma, cs.relError, droppedBound].every(finite)) throw new Error(`non-finite cross-section ${cs.sigma}`);
+      crossRow = { ...point, status: 'ok', sigma: cs.sigma, relError: cs.relError, droppedBound, lMax, modes, failure: null };
     } catch (error) {
       const f = describeFailure(error);
       crossRow = { ...point, status: 'failed', sigma: null, relError: null, droppedBound: null, lMax: null, modes: solved.length, failure: f.failure };
@@ -127,14 +129,15 @@ export function computeTask(task: TaskMessage): TaskResult {
       const modeRows: Row[] = [];
       for (const r of solved) {
         // At a = 0 the sum solves one m per shell: Γ does not depend on m there (spherical symmetry).
-        const ms = task.a === 0 ? shellMs(r.l) : [r.m];
+        const { l, m: mode } = r.mode;
+        const ms = task.a === 0 ? shellMs(l) : [mode];
         for (const m of ms) {
-          if (reflection) modeRows.push(solveMode(task, r.l, m, true));
+          if (reflection) modeRows.push(solveMode(task, l, m, true));
           else {
             try {
-              modeRows.push(modeRow(task, r.l, m, checkedMode(r, false), false));
+              modeRows.push(modeRow(task, l, m, checkedMode(r, false), false));
             } catch (error) {
-              modeRows.push(failedModeRow(task, r.l, m, false, describeFailure(error)));
+              modeRows.push(failedModeRow(task, l, m, false, describeFailure(error)));
             }
           }
         }

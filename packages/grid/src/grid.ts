@@ -6,7 +6,11 @@
  * M = 1): a in units of M, ω in units of 1/M.
  */
 import { createHash } from 'node:crypto';
-import { MAX_MOMEGA, MAX_SPIN, MIN_MOMEGA } from '@penumbra/flux';
+import { MAX_SOLVER_A_RATIO as MAX_SPIN } from '@penumbra/core';
+import { MOMEGA_RANGE } from '@penumbra/flux';
+
+const MIN_MOMEGA = MOMEGA_RANGE.min;
+const MAX_MOMEGA = MOMEGA_RANGE.max;
 
 export const QUANTITIES = ['gamma', 'reflection', 'crossSection', 'spectra'] as const;
 export type Quantity = (typeof QUANTITIES)[number];

@@ -9,17 +9,19 @@ vi.mock('@penumbra/flux', async (importOriginal) => {
   const real = await importOriginal<typeof import('@penumbra/flux')>();
   return {
     ...real,
-    greybody: (problem: { spin: number; l: number; m: number; a: number; omega: number }, options: object) => {
-      if (problem.l === 1 && problem.m === 1 && problem.omega === 0.3) {
+    greybody: (problem: import('@penumbra/flux').GreybodyProblem, options: object) => {
+      if (problem.mode.l === 1 && problem.mode.m === 1 && problem.omega === 0.3) {
         throw new ConvergenceError('greybody factor did not reach the requested accuracy', { l: 1, m: 1, relError: 3e-4, attempts: 3 });
       }
       return real.greybody(problem, options);
     },
     // The l-sum meets the same failing mode after the modes of lower l and m.
-    absorptionCrossSection: (problem: { spin: number; a: number; omega: number }, options: { tol: number; onMode?: (r: unknown) => void }) => {
+    absorptionCrossSection: (problem: import('@penumbra/flux').CrossSectionProblem, options: { tol: number; onMode?: (r: import('@penumbra/flux').GreybodySolution) => void }) => {
       if (problem.omega !== 0.3) return real.absorptionCrossSection(problem, options);
-      for (const [l, m] of [[0, 0], [1, -1], [1, 0]]) options.onMode?.(real.greybody({ ...problem, l, m }, { tol: options.tol, reflection: false }));
-      throw new ConvergenceError('greybody factor did not reach the requested accuracy', { spin: problem.spin, l: 1, m: 1, relError: 3e-4 });
+      for (const [l, m] of [[0, 0], [1, -1], [1, 0]]) {
+        options.onMode?.(real.greybody({ hole: problem.hole, mode: { field: problem.field, l, m }, omega: problem.omega }, { tol: options.tol, reflection: false }));
+      }
+      throw new ConvergenceError('greybody factor did not reach the requested accuracy', { spin: problem.field.spin, l: 1, m: 1, relError: 3e-4 });
     },
   };
 });

@@ -1,3 +1,4 @@
+import type { FieldSpin } from '@penumbra/core';
 import { absorptionCrossSection } from '@penumbra/flux';
 import type { Command } from '../command.js';
 import {
@@ -50,9 +51,10 @@ Example:
     const tol = values.tol === undefined ? 1e-6 : parseNumber('--tol', values.tol);
     const progress = progressReporter(io, 'cross-section: frequencies done', grid.count);
     const rows = grid.values.map((omega, i) => {
-      const r = absorptionCrossSection({ spin, a, omega }, { tol });
+      const r = absorptionCrossSection({ hole: { a }, field: { spin: spin as FieldSpin }, omega }, { tol });
       progress(i + 1);
-      return { omega, sigma: r.sigma, lMax: r.lMax, droppedBound: r.droppedBound, relError: r.relError, modes: r.modes };
+      const { lMax, droppedBound, modes } = r.diagnostics;
+      return { omega, sigma: r.sigma, lMax, droppedBound, relError: r.relError, modes };
     });
     if (values.json) writeJson(io, rows);
     else if (values.csv) {

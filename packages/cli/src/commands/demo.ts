@@ -1,4 +1,5 @@
-import { greybody, type GreybodyResult } from '@penumbra/flux';
+import type { FieldSpin } from '@penumbra/core';
+import { greybody, type GreybodySolution } from '@penumbra/flux';
 import { backgroundJson, backgroundReport, backgroundText } from '../background.js';
 import type { Command } from '../command.js';
 import { greybodyJson } from '../greybodyTable.js';
@@ -8,7 +9,7 @@ import { formatNumber, formatTable, parseOptions, writeJson } from '../options.j
 export const DEMO_SPIN_RATIO = 0.7;
 const DEMO_OMEGAS = [0.05, 0.2, 0.4, 0.8, 1.5];
 /** The lowest co-rotating mode of each field: l = m = max(s, 1/2 for neutrinos). */
-const DEMO_MODES = [
+const DEMO_MODES: { spin: FieldSpin; l: number; m: number; label: string }[] = [
   { spin: 0, l: 1, m: 1, label: 'scalar   s=0   l=1   m=1  ' },
   { spin: 0.5, l: 0.5, m: 0.5, label: 'neutrino s=1/2 l=1/2 m=1/2' },
   { spin: 1, l: 1, m: 1, label: 'photon   s=1   l=1   m=1  ' },
@@ -33,10 +34,10 @@ Options:
   run(argv, io) {
     const { values } = parseOptions(argv, { json: { type: 'boolean' } });
     const report = backgroundReport({ spinRatio: DEMO_SPIN_RATIO, mass: 1 });
-    const results: { label: string; r: GreybodyResult }[] = [];
+    const results: { label: string; r: GreybodySolution }[] = [];
     for (const mode of DEMO_MODES) {
       for (const omega of DEMO_OMEGAS) {
-        results.push({ label: mode.label, r: greybody({ spin: mode.spin, l: mode.l, m: mode.m, a: DEMO_SPIN_RATIO, omega }) });
+        results.push({ label: mode.label, r: greybody({ hole: { a: DEMO_SPIN_RATIO }, mode: { field: { spin: mode.spin }, l: mode.l, m: mode.m }, omega }) });
       }
     }
     if (values.json) {

@@ -1,4 +1,5 @@
-import { greybody, type GreybodyResult } from '@penumbra/flux';
+import type { FieldSpin } from '@penumbra/core';
+import { greybody, type GreybodySolution } from '@penumbra/flux';
 import { UsageError, type Command } from '../command.js';
 import { CSV_HEADER, greybodyCsvRow, greybodyJson, greybodyTextRows } from '../greybodyTable.js';
 import {
@@ -59,10 +60,10 @@ Examples:
     const omegaText = requireOption(values.omega, '--omega', 'the frequency Mω or START:STOP:COUNT');
     const grid = parseRange('--omega', omegaText, { min: 0, exclusive: true, log: values.log ?? false, maxCount: 10_000 });
     const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol);
-    const results: GreybodyResult[] = [];
+    const results: GreybodySolution[] = [];
     const progress = progressReporter(io, 'greybody: frequencies done', grid.count);
     for (const [i, omega] of grid.values.entries()) {
-      results.push(greybody({ spin, l, m, a, omega }, { tol }));
+      results.push(greybody({ hole: { a }, mode: { field: { spin: spin as FieldSpin }, l, m }, omega }, { tol }));
       progress(i + 1);
     }
     const single = grid.count === 1 && !omegaText.includes(':');
