@@ -28,8 +28,8 @@ export interface KerrHole extends Hole {
   readonly angularMomentum: number;
 }
 
-/** Largest |a|/M accepted by horizon-based solvers: the extremal hole is a limit (κ → 0), not a valid input. */
-export const MAX_SPIN_RATIO = 1;
+/** Masses (geometric units) for which every background quantity, A = 8πMr+ included, is a normal double. */
+export const MASS_RANGE = { min: 1e-150, max: 1e150 } as const;
 
 /**
  * The background of a hole { a, mass } (mass default 1): horizons, Ω_H, κ,
@@ -40,8 +40,11 @@ export function kerrHole(hole: Hole): KerrHole {
     throw new InputError('hole', 'an object { a, mass? } with |a| < mass', hole);
   }
   const { a, mass = 1 } = hole;
-  requireFinite('mass', mass, 'a finite number > 0');
-  if (!(mass > 0)) throw new InputError('mass', 'a finite number > 0', mass);
+  const massAllowed = `${MASS_RANGE.min} ≤ mass ≤ ${MASS_RANGE.max} (geometric units)`;
+  requireFinite('mass', mass, massAllowed);
+  if (!(mass >= MASS_RANGE.min && mass <= MASS_RANGE.max)) {
+    throw new InputError('mass', massAllowed, mass, 'outside it M², the area or T_H leave double range; physical masses go through physicalBackground');
+  }
   requireFinite('a', a, `a finite number with |a| < M = ${mass}`);
   if (!(Math.abs(a) < mass)) {
     throw new InputError(
@@ -75,8 +78,18 @@ export function kerrHole(hole: Hole): KerrHole {
   };
 }
 
+/** Throw an InputError unless `hole` is a background made by `kerrHole`. */
+export function requireKerrHole(hole: unknown, parameter = 'hole'): KerrHole {
+  if (typeof hole !== 'object' || hole === null || typeof (hole as KerrHole).rPlus !== 'number' || typeof (hole as KerrHole).kappa !== 'number') {
+    throw new InputError(parameter, 'a hole background made by kerrHole({ a, mass })', hole);
+  }
+  return hole as KerrHole;
+}
+
 /** Δ(r) = r² − 2Mr + a² = (r − r+)(r − r−). */
 export function delta(hole: KerrHole, r: number): number {
+  requireKerrHole(hole);
+  requireFinite('r', r);
   return (r - hole.rPlus) * (r - hole.rMinus);
 }
 
@@ -90,8 +103,9 @@ export function delta(hole: KerrHole, r: number): number {
  * accurate to a few ulp of r* for x from 1e-300 to 1e300.
  */
 export function tortoiseFromHorizonDistance(hole: KerrHole, x: number): number {
+  requireKerrHole(hole);
   // NaN or x ≤ 0 lies on or inside the horizon; x = +Infinity would return Infinity silently.
-  if (!(x > 0 && x < Infinity)) throw new InputError('x', 'a finite number > 0 (x = r − r+)', x);
+  if (typeof x !== 'number' || !(x > 0 && x < Infinity)) throw new InputError('x', 'a finite number > 0 (x = r − r+)', x);
   const { hi, lo } = tortoiseTerms(hole, x);
   return hi + lo;
 }
@@ -154,6 +168,7 @@ function addDoubleDouble(aHi: number, aLo: number, bHi: number, bLo: number): [n
 
 /** Tortoise coordinate r*(r) for r > r+. */
 export function tortoise(hole: KerrHole, r: number): number {
+  requireKerrHole(hole);
   requireFinite('r', r);
   if (!(r > hole.rPlus)) throw new InputError('r', `r > r+ = ${hole.rPlus}`, r);
   return tortoiseFromHorizonDistance(hole, r - hole.rPlus);
@@ -189,6 +204,7 @@ const MAX_TORTOISE_ITERATIONS = 100;
  * iteration throws ConvergenceError.
  */
 export function invertTortoise(hole: KerrHole, rStar: number): TortoiseInversion {
+  requireKerrHole(hole);
   requireFinite('rStar', rStar);
   const { rPlus, rMinus, a } = hole;
   const twoM = 2 * hole.mass;
@@ -280,6 +296,7 @@ export interface NearRegion {
 }
 
 export function nearRegion(hole: KerrHole): NearRegion {
+  requireKerrHole(hole);
   if (hole.a === 0) throw new InputError('a', 'a ≠ 0 (the near-region temperatures diverge at a = 0)', hole.a);
   const { rPlus, rMinus, a } = hole;
   const J = hole.angularMomentum;

@@ -1,5 +1,5 @@
 /** Background quantities of a hole in physical units. */
-import type { KerrHole } from './kerr.js';
+import { requireKerrHole, type KerrHole } from './kerr.js';
 import { CODATA2018, massToKg, unitScales, type MassUnit } from './units.js';
 
 export interface PhysicalBackground {
@@ -26,6 +26,7 @@ export interface PhysicalBackground {
  * its own mass (any hole.mass; quantities are rescaled by M).
  */
 export function physicalBackground(hole: KerrHole, mass: number, unit: MassUnit): PhysicalBackground {
+  requireKerrHole(hole);
   const kg = massToKg(mass, unit);
   const u = unitScales(kg);
   const M = hole.mass;

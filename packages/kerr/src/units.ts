@@ -7,8 +7,9 @@
  * is the IAU 2015 nominal solar mass parameter GM_sun (Resolution B3) divided
  * by CODATA G.
  */
-import { InputError, requireFinite } from './errors.js';
+import { InputError, requireFinite } from '@penumbra/core';
 
+/** CODATA 2018 constants used by the unit layer (SI units). */
 export const CODATA2018 = {
   /** speed of light in vacuum, m s^-1 (exact) */
   c: 299792458,
@@ -27,7 +28,9 @@ export const GM_SUN_IAU2015 = 1.3271244e20;
 /** Solar mass in kg, GM_sun / G. */
 export const SOLAR_MASS_KG = GM_SUN_IAU2015 / CODATA2018.G;
 
+/** Units a physical hole mass can be given in: grams, kilograms, solar masses. */
 export type MassUnit = 'g' | 'kg' | 'msun';
+/** Every MassUnit, for validation and help texts. */
 export const MASS_UNITS: readonly MassUnit[] = ['g', 'kg', 'msun'];
 
 /** Convert a mass in the given unit to kilograms. */

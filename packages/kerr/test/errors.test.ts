@@ -1,5 +1,6 @@
 import { describe, expect, test } from 'vitest';
-import { InputError, kerrHole, massToKg, physicalBackground, unitScales, type MassUnit } from '@penumbra/kerr';
+import { InputError } from '@penumbra/core';
+import { kerrHole, massToKg, physicalBackground, tortoise, tortoiseFromHorizonDistance, unitScales, type MassUnit } from '@penumbra/kerr';
 
 function thrown(action: () => unknown): InputError {
   try {
@@ -29,10 +30,19 @@ describe('typed input errors name the parameter and its allowed range', () => {
     ['-Infinity', Number.NEGATIVE_INFINITY],
     ['0', 0],
     ['-1', -1],
-  ])('mass M = %s is refused with parameter "mass" and range "> 0"', (_label, mass) => {
+    ['1e200 (A = 8πMr+ would overflow)', 1e200],
+    ['1e-200 (M² would underflow)', 1e-200],
+  ])('mass M = %s is refused with parameter "mass" and the range 1e-150 ≤ mass ≤ 1e150', (_label, mass) => {
     const error = thrown(() => kerrHole({ a: 0, mass }));
     expect(error.parameter).toBe('mass');
-    expect(error.allowed).toContain('> 0');
+    expect(error.allowed).toContain('1e-150 ≤ mass ≤ 1e+150');
+  });
+
+  test('functions of a background refuse anything that is not one, and a non-number distance, with InputError', () => {
+    const hole = kerrHole({ a: 0.5 });
+    expect(thrown(() => tortoise(null as unknown as typeof hole, 3)).parameter).toBe('hole');
+    expect(thrown(() => tortoiseFromHorizonDistance(hole, '1' as unknown as number)).parameter).toBe('x');
+    expect(thrown(() => kerrHole(null as unknown as { a: number })).parameter).toBe('hole');
   });
 
   test('the extremal hole |a| = M is refused, and the message says it is a limit the horizon-based solvers cannot take', () => {
