@@ -72,7 +72,7 @@ function positiveOmega(omega: unknown): number {
   return w;
 }
 
-/** Options of one greybody solve. */
+/** Options of one greybody solve; unknown keys are refused. */
 export interface GreybodyOptions {
   /** requested relative accuracy of Γ (default 1e-8, range 1e-12 … 1e-2) */
   tol?: number;
@@ -86,6 +86,7 @@ export interface GreybodyOptions {
   reflection?: boolean;
 }
 
+/** Validators of the greybody options, shared by every solve that passes them on. */
 export const GREYBODY_OPTIONS = {
   tol: validateTolerance,
   integrator: oneOf(INTEGRATORS),
@@ -98,6 +99,7 @@ export const GREYBODY_OPTIONS = {
   reflection: isBoolean,
 };
 
+/** Validate greybody options (unknown keys and integrator names refused). */
 export function checkGreybodyOptions(options: unknown): GreybodyOptions {
   return validateOptions<GreybodyOptions>(options, GREYBODY_OPTIONS);
 }
