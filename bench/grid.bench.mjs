@@ -67,4 +67,7 @@ const one = results.find((r) => r.workers === 1);
 for (const r of results) {
   if (one && r.workers > 1) console.log(`scaling ${r.workers} workers: speed-up ${(r.rate / one.rate).toFixed(2)}, efficiency ${((100 * r.rate) / one.rate / r.workers).toFixed(0)} %`);
 }
-if (one) console.log(`estimated full ${fullModes}-mode grid: ${(fullModes / one.rate / 60).toFixed(1)} min with 1 worker` + results.filter((r) => r.workers > 1).map((r) => `, ${(fullModes / r.rate / 60).toFixed(1)} min with ${r.workers}`).join(''));
+if (one) {
+  const withMore = results.filter((r) => r.workers > 1).map((r) => `, ${(fullModes / r.rate / 60).toFixed(1)} min with ${r.workers}`);
+  console.log(`estimated full ${fullModes}-mode grid: ${(fullModes / one.rate / 60).toFixed(1)} min with 1 worker${withMore.join('')}`);
+}

@@ -70,7 +70,7 @@ export function writeResult(name, payload) {
   const dir = join(benchDir, 'results');
   mkdirSync(dir, { recursive: true });
   const path = join(dir, `${name}-${today()}.json`);
-  writeFileSync(path, JSON.stringify(payload, null, 1) + '\n');
+  writeFileSync(path, `${JSON.stringify(payload, null, 1)}\n`);
   return path;
 }
 

@@ -30,5 +30,5 @@ if (run.status !== 0 && failed === 0) {
   console.log('vitest exited with an error outside the tests (see above)');
   failed = 1;
 }
-console.log(`${passed} passed, ${failed} failed` + (skipped ? `, ${skipped} skipped` : ''));
+console.log(`${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ''}`);
 process.exit(run.status ?? 1);

@@ -61,7 +61,7 @@ async function writeFigure(name, spec) {
   const view = new vega.View(vega.parse(vl.compile(full).spec), { renderer: 'none' });
   const svg = await view.toSVG();
   view.finalize();
-  writeFileSync(join(figDir, `${name}.svg`), svg + '\n');
+  writeFileSync(join(figDir, `${name}.svg`), `${svg}\n`);
   return `figures/${name}.svg`;
 }
 

@@ -31,7 +31,10 @@ function run(command: string, args: string[], cwd: string, input?: string): Spaw
 
 function emptyProject(dir: string): void {
   mkdirSync(dir, { recursive: true });
-  writeFileSync(join(dir, 'package.json'), `${JSON.stringify({ name: 'penumbra-install-check', private: true, type: 'module' })}\n`);
+  writeFileSync(
+    join(dir, 'package.json'),
+    `${JSON.stringify({ name: 'penumbra-install-check', private: true, type: 'module' })}\n`,
+  );
 }
 
 /** The flux README example, transpiled from TypeScript to an ES module. */
@@ -54,7 +57,9 @@ beforeAll(() => {
   mkdirSync(packs);
   const pack = run('npm', ['pack', '--workspaces', '--pack-destination', packs], root);
   if (pack.status !== 0) throw new Error(`npm pack failed:\n${pack.stderr}`);
-  tarballs = readdirSync(packs).filter((f) => f.endsWith('.tgz')).map((f) => join(packs, f));
+  tarballs = readdirSync(packs)
+    .filter((f) => f.endsWith('.tgz'))
+    .map((f) => join(packs, f));
   emptyProject(app);
   const install = run('npm', ['install', ...npmFlags, ...tarballs], app);
   if (install.status !== 0) setupFailure = `npm install of the tarballs failed:\n${install.stderr}`;
@@ -75,7 +80,9 @@ describe('installing the packed tarballs into an empty project', () => {
 
   test('npm install of all tarballs together succeeds and links every @penumbra package', () => {
     expect(setupFailure).toBe('');
-    for (const name of packageNames) expect(existsSync(join(app, 'node_modules', '@penumbra', name, 'package.json')), name).toBe(true);
+    for (const name of packageNames) {
+      expect(existsSync(join(app, 'node_modules', '@penumbra', name, 'package.json')), name).toBe(true);
+    }
   });
 
   test('the flux README example runs from the installed packages: four lines, superradiant graviton, σ(Mω=2) within 5 % of 27πM² (Misner, Thorne & Wheeler 1973), and the same output as the workspace build', () => {

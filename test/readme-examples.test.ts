@@ -104,6 +104,7 @@ describe('the README block runner', () => {
       '```',
       '```ts runnable',
       "import { kerrHole } from '@penumbra/kerr';",
+      // biome-ignore lint/suspicious/noTemplateCurlyInString: the README source under test contains a template literal
       'console.log(`r+ = ${kerrHole({ a: 0.9 }).rPlus.toFixed(12)}`);',
       '```',
     ].join('\n');

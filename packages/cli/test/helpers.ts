@@ -10,7 +10,14 @@ export interface RunResult {
 export async function run(...argv: string[]): Promise<RunResult> {
   let stdout = '';
   let stderr = '';
-  const io: CliIO = { stdout: (text) => void (stdout += text), stderr: (text) => void (stderr += text) };
+  const io: CliIO = {
+    stdout: (text) => {
+      stdout += text;
+    },
+    stderr: (text) => {
+      stderr += text;
+    },
+  };
   const code = await main(argv, io);
   return { code, stdout, stderr };
 }

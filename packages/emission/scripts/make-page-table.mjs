@@ -56,7 +56,7 @@ if (isMainThread) {
   });
   const table = { aStar, theta, spins: rows, tol, gammaCalls: calls };
   const out = fileURLToPath(new URL('../data/page-table.json', import.meta.url));
-  writeFileSync(out, JSON.stringify({ generatedBy: 'packages/emission/scripts/make-page-table.mjs', seconds: (Date.now() - started) / 1000, ...table }) + '\n');
+  writeFileSync(out, `${JSON.stringify({ generatedBy: 'packages/emission/scripts/make-page-table.mjs', seconds: (Date.now() - started) / 1000, ...table })}\n`);
   console.log(`wrote ${out}: ${points} nodes × 4 spins, tol ${tol}, ${calls} greybody solves, ${((Date.now() - started) / 1000).toFixed(1)} s`);
 } else {
   const { emissionTotals } = await import('@penumbra/emission');

@@ -42,5 +42,5 @@ for (const [spin, l, omega] of [[0, 0, 5], [2, 6, 1.2], [1, 3, 0.8], [0.5, 2.5, 
     const a = integrateOnce({ spin, l, omega }, { stepTolerance: st, startOffset: 0.15, matchRadius: 10 });
     line.push(`${st.toExponential(0)}: ${(a.gamma / ref.gamma - 1).toExponential(1)} (${a.steps} steps)`);
   }
-  console.log('  ' + line.join(' | '));
+  console.log(`  ${line.join(' | ')}`);
 }

@@ -154,7 +154,7 @@ describe('spheroidalHarmonic', () => {
     const h = spheroidalHarmonic({ s: 1, l: 2, m: -1, c: 3.3 });
     const thetas = [0, 0.5, 1.5, Math.PI];
     const grid = h.sample(thetas);
-    thetas.forEach((t, i) => expect(grid.S[i]).toBe(h.evaluate(t).S));
+    for (const [i, t] of thetas.entries()) expect(grid.S[i]).toBe(h.evaluate(t).S);
     expect(() => h.evaluate(-0.1)).toThrow(/theta/);
   });
 });
