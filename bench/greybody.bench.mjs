@@ -74,7 +74,7 @@ function main() {
     ...mode,
     A: spheroidalEigenvalue({ s: mode.spin, l: mode.l, m: mode.m, c: mode.a * mode.omega }).A,
     reference: greybody(asProblem(mode), { tol: REFERENCE_TOL, reflection: false }).gamma,
-    reggeWheeler: mode.a === 0 ? schwarzschildGreybody({ spin: mode.spin, l: mode.l, omega: mode.omega, tol: REFERENCE_TOL }).gamma : null,
+    reggeWheeler: mode.a === 0 ? schwarzschildGreybody({ field: { spin: mode.spin }, l: mode.l, omega: mode.omega }, { tol: REFERENCE_TOL }).gamma : null,
     penumbra: {},
     peer: {},
   }));

@@ -144,7 +144,7 @@ ${mdTable(['s', 'Mω', 'σ/M² (penumbra)', '27π', '|rel. diff.|', 'l_max summe
     let where = '';
     for (let l = spin; l <= 6; l++) {
       for (const omega of OMEGAS) {
-        const ref = schwarzschildGreybody({ spin, l, omega, tol: 1e-11 });
+        const ref = schwarzschildGreybody({ field: { spin }, l, omega }, { tol: 1e-11 });
         if (ref.gamma < 1e-30) continue;
         const got = greybody({ hole: { a: 0 }, mode: { field: { spin }, l, m: spin === 0.5 ? 0.5 : 0 }, omega }, { tol: 1e-10 });
         const d = Math.abs(got.gamma / ref.gamma - 1);

@@ -1,11 +1,11 @@
 export {
-  schwarzschildGreybody,
-  integrateOnce,
+  type SchwarzschildGreybodyProblem,
+  type SchwarzschildGreybodyOptions,
   DEFAULT_TOLERANCE,
-  type SchwarzschildGreybodyResult,
-  type SchwarzschildGreybodyQuery,
-  type IntegrationControls,
-  type SingleIntegration,
+  MAX_REFERENCE_L,
+} from './problem.js';
+export {
+  type SchwarzschildGreybodyDiagnostics,
+  type SchwarzschildGreybodySolution,
+  schwarzschildGreybody,
 } from './greybody.js';
-export { horizonSeries, outgoingFarSeries, tortoiseFromHorizonDistance, FAR_SERIES_TOLERANCE, type WaveState, type SeriesValue } from './series.js';
-export { potentialOverLapse, farZoneCoefficients, type ModeProblem, type PotentialKind } from './potentials.js';

@@ -10,6 +10,7 @@
  */
 export type PotentialKind = 'regge-wheeler' | 'dirac';
 
+/** A validated mode of one of the two potentials (mass M, frequency ω, Dirac sign). */
 export interface ModeProblem {
   readonly kind: PotentialKind;
   readonly spin: number;

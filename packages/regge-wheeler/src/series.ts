@@ -15,6 +15,7 @@ export interface WaveState {
   dpsiIm: number;
 }
 
+/** A series solution at one radius, with the terms summed and whether they fell below the floor. */
 export interface SeriesValue extends WaveState {
   terms: number;
   converged: boolean;

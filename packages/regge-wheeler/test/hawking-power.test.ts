@@ -43,7 +43,7 @@ function hawkingPower(spin: number, dof: number): number {
     const omega = (upper / 2) * (nodes[i] + 1);
     let modeSum = 0;
     for (let l = spin; l <= spin + 10; l++) {
-      const { gamma } = schwarzschildGreybody({ spin, l, omega, tol: 1e-6 });
+      const { gamma } = schwarzschildGreybody({ field: { spin }, l, omega }, { tol: 1e-6 });
       modeSum += (2 * l + 1) * gamma;
       if (gamma < 1e-14) break;
     }

@@ -3,9 +3,10 @@ import { radialSeparationConstant, spheroidalEigenvalue, spheroidalEigenvalueCom
 // Gravitational (s = −2) l = m = 2 mode of a hole with a = 0.9 M at Mω = 0.5: c = aω.
 const a = 0.9;
 const omega = 0.5;
+// The problem is { s, l, m, c } with s the signed spin weight of the Teukolsky equation.
 const mode = spheroidalEigenvalue({ s: -2, l: 2, m: 2, c: a * omega });
 const lambda = radialSeparationConstant(mode.A, a, omega, 2);
-console.log(`A = ${mode.A.toFixed(12)}, E = ${mode.E.toFixed(12)}, λ = ${lambda.toFixed(12)} (${mode.diagnostics.method}, ${mode.diagnostics.truncation} terms)`);
+console.log(`A = ${mode.A.toFixed(12)}, E = ${mode.E.toFixed(12)}, λ = ${lambda.toFixed(12)} (${mode.diagnostics.method}, ${mode.diagnostics.truncation} terms, error ≤ ${mode.diagnostics.errorEstimate.toExponential(0)})`);
 
 // The same mode for s = +2 obeys A_{−s} = A_{s} + 2s.
 const plus = spheroidalEigenvalue({ s: 2, l: 2, m: 2, c: a * omega });

@@ -1,5 +1,5 @@
-import { cosDiagonal, cosOffDiagonal } from './coupling.js';
-import { lowestL, sphericalEigenvalue } from './quantum.js';
+import { bandTerms, combineTerms } from './bandTerms.js';
+import { lowestL } from './quantum.js';
 
 /**
  * The spectral matrix K(c) = diag((l−s)(l+s+1)) − c² X² + 2cs X in the
@@ -30,6 +30,7 @@ export interface Band {
   norm: number;
 }
 
+/** Where the wanted l sits in the basis: first l kept, stride (2 keeps one parity block for s = 0) and its index. */
 export function basisLayout(s: number, l: number, m: number): { lFirst: number; stride: 1 | 2; index: number } {
   const lmin = lowestL(s, m);
   if (s === 0) {
@@ -39,58 +40,29 @@ export function basisLayout(s: number, l: number, m: number): { lFirst: number; 
   return { lFirst: lmin, stride: 1, index: l - lmin };
 }
 
-/** The c-independent cosθ couplings a(l), b(l) from lFirst on, cached per (s, m, lFirst): building them dominated warm solves. */
-const couplingCache = new Map<string, { a: Float64Array; b: Float64Array }>();
-const COUPLING_CACHE_LIMIT = 1024;
-
-function couplings(s: number, m: number, lFirst: number, length: number): { a: Float64Array; b: Float64Array } {
-  const key = `${2 * s},${2 * m},${2 * lFirst}`;
-  const cached = couplingCache.get(key);
-  if (cached && cached.a.length >= length) return cached;
-  const n = Math.max(length, 2 * (cached?.a.length ?? 0), 32);
-  const a = new Float64Array(n);
-  const b = new Float64Array(n);
-  for (let j = 0; j < n; j++) {
-    const l = lFirst + j;
-    a[j] = cosOffDiagonal(l, m, s);
-    b[j] = cosDiagonal(l, m, s);
-  }
-  if (!cached && couplingCache.size >= COUPLING_CACHE_LIMIT) couplingCache.clear();
-  const entry = { a, b };
-  couplingCache.set(key, entry);
-  return entry;
-}
-
+/** The real band K(c) and ∂K/∂c for real c, assembled from the shared terms (bandTerms.ts). */
 export function buildBand(s: number, m: number, c: number, lFirst: number, stride: 1 | 2, size: number): Band {
-  // Full (stride 1) diagonals over l = lFirst … lFirst + stride·(size−1) + 2.
-  const fullSize = stride * (size - 1) + 3;
-  const { a, b } = couplings(s, m, lFirst, fullSize + 1);
-  const aBelow = cosOffDiagonal(lFirst - 1, m, s); // a(l−1) for l = lFirst (zero when lFirst = lmin)
+  const terms = bandTerms(s, m, lFirst, stride, size);
+  const [x2Diagonal, x2First, x2Second] = terms.squared;
+  const [xDiagonal, xFirst] = terms.linear;
   const d0 = new Float64Array(size);
   const d1 = new Float64Array(size);
   const d2 = new Float64Array(size);
   const e0 = new Float64Array(size);
   const e1 = new Float64Array(size);
   const e2 = new Float64Array(size);
-  const c2 = c * c;
-  for (let i = 0; i < size; i++) {
-    const j = stride * i;
-    const l = lFirst + j;
-    const aPrev = j === 0 ? aBelow : a[j - 1];
-    const x2Diag = aPrev * aPrev + b[j] * b[j] + a[j] * a[j];
-    const x2Next = a[j] * (b[j] + b[j + 1]);
-    const x2Skip = a[j] * a[j + 1];
-    d0[i] = sphericalEigenvalue(s, l) - c2 * x2Diag + 2 * c * s * b[j];
-    e0[i] = -2 * c * x2Diag + 2 * s * b[j];
-    if (stride === 1) {
-      d1[i] = -c2 * x2Next + 2 * c * s * a[j];
-      e1[i] = -2 * c * x2Next + 2 * s * a[j];
-      d2[i] = -c2 * x2Skip;
-      e2[i] = -2 * c * x2Skip;
-    } else {
-      d1[i] = -c2 * x2Skip;
-      e1[i] = -2 * c * x2Skip;
-    }
+  // K = A₀ + pX² + qX with p = −c², q = 2cs; ∂K/∂c has p = −2c, q = 2s.
+  const p = -(c * c);
+  const q = 2 * c * s;
+  const dp = -2 * c;
+  const dq = 2 * s;
+  combineTerms(d0, size, terms.spherical, p, x2Diagonal, q, xDiagonal);
+  combineTerms(e0, size, null, dp, x2Diagonal, dq, xDiagonal);
+  combineTerms(d1, size, null, p, x2First, q, xFirst);
+  combineTerms(e1, size, null, dp, x2First, dq, xFirst);
+  if (x2Second) {
+    combineTerms(d2, size, null, p, x2Second, 0, null);
+    combineTerms(e2, size, null, dp, x2Second, 0, null);
   }
   let norm = 0;
   for (let i = 0; i < size; i++) {

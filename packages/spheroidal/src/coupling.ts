@@ -16,6 +16,7 @@ export function cosOffDiagonal(l: number, m: number, s: number): number {
   return Math.sqrt(num / ((2 * l + 1) * (2 * l + 3))) / lp;
 }
 
+/** b(l) = ⟨l|cosθ|l⟩ = −ms/(l(l + 1)) (zero at l = 0). */
 export function cosDiagonal(l: number, m: number, s: number): number {
   return l === 0 ? 0 : (-m * s) / (l * (l + 1));
 }

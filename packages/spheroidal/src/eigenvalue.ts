@@ -1,7 +1,9 @@
-import { ConvergenceError, InputError, requireFinite } from '@penumbra/kerr';
+import { ConvergenceError, requireFinite, type Diagnostics } from '@penumbra/core';
 import { basisLayout, buildBand } from './band.js';
+import { failureDiagnostics, type Tally } from './diagnostics.js';
 import { leaverRoot } from './leaver.js';
-import { checkModeNumbers, checkRealC, lowestL, sphericalEigenvalue } from './quantum.js';
+import { type SpheroidalOptions, type SpheroidalProblem, validateSpheroidalOptions, validateSpheroidalProblem } from './problem.js';
+import { lowestL, sphericalEigenvalue } from './quantum.js';
 import {
   type SpectralSolution,
   estimateSize,
@@ -14,28 +16,40 @@ import {
   tailConverged,
 } from './spectral.js';
 
-export interface SpheroidalQuery {
-  s: number;
-  l: number;
-  m: number;
-  c: number;
-}
-
-export interface SpheroidalDiagnostics {
+/** How a real-c eigenvalue was obtained (core's Diagnostics plus the spectral details). */
+export interface SpheroidalDiagnostics extends Diagnostics {
   /** 'exact' (c = 0), 'spectral-dense', 'spectral-rqi', or either of the latter + '+leaver'. */
   method: string;
+  /**
+   * Spectral iterations (RQI steps or dense attempts, plus the Sylvester counts
+   * of the deterministic finish) and, when its root is adopted, Newton steps
+   * on the continued fraction.
+   */
+  steps: number;
+  /**
+   * Matrix and continued-fraction evaluations, all attempts included: LDLᵀ
+   * factorisations of K − σI, dense eigen-solves of K, and evaluations of
+   * Leaver's continued fraction (with `leaver: 'check' | 'polish'`).
+   */
+  rhsEvaluations: number;
+  /**
+   * Relative error bound of A (scaled by max(1, |A|)): the residual of the
+   * symmetric band, at least four rounding units of ‖K‖ (for a symmetric matrix
+   * an eigenvalue lies within ‖Kb − Ab‖ of A); with 'polish' plus the
+   * agreement. The truncation error is below it by the tail check (≤ 1e-16).
+   */
+  errorEstimate: number;
   /** Number of spin-weighted spherical harmonics kept in the expansion. */
   truncation: number;
   /** ‖K b − A b‖ / ‖K‖ of the spectral eigenpair. */
   residual: number;
-  /** Spectral iterations (RQI steps or dense attempts) plus Newton steps on the continued fraction. */
-  iterations: number;
   /** |A_spectral − A_Leaver| / max(1, |A|): the two independent methods' disagreement. */
   agreement?: number;
   /** Depth reached by the continued fraction. */
   continuedFractionDepth?: number;
 }
 
+/** The solution of a real-c problem: the problem's numbers, A, E and diagnostics. */
 export interface SpheroidalEigenvalue {
   s: number;
   l: number;
@@ -48,21 +62,13 @@ export interface SpheroidalEigenvalue {
   diagnostics: SpheroidalDiagnostics;
 }
 
-export interface SolveOptions {
-  /**
-   * Leaver's continued fraction as a second method: 'off' (default), 'check'
-   * (solve it from the spectral value and report the agreement), or 'polish'
-   * (also adopt its root when the two agree to 1e-9). Measured against a
-   * 40-digit reference the spectral value is already at rounding level
-   * (docs/spheroidal.md), so 'polish' does not improve real-c eigenvalues.
-   */
-  leaver?: 'off' | 'check' | 'polish';
-  /** Use and update the per-mode continuation cache (default true). */
-  continuation?: boolean;
-}
-
 /** Largest disagreement between spectral and continued-fraction values that we accept. */
 const AGREEMENT_LIMIT = 1e-9;
+
+/** Four rounding units: the assembled matrix elements carry a few rounding errors each. */
+const ROUNDING_FLOOR = 4 * Number.EPSILON;
+
+const SPECTRAL_MESSAGE = 'converged: eigenvalue bisected to adjacent floats by Sylvester counts on a truncation whose eigenvector tail is below 1e-16';
 
 interface ModeState {
   c: number;
@@ -79,23 +85,21 @@ function modeKey(s: number, l: number, m: number): string {
   return `${2 * s},${2 * l},${2 * m}`;
 }
 
-/** Forget every cached mode (for benchmarks of the cold path). */
+/** Forget every cached mode (for benchmarks of the cold path; results never depend on the cache). */
 export function clearSpheroidalCache(): void {
   modeCache.clear();
 }
 
+/** A solved mode with its spectral eigenpair (null at c = 0), shared by the eigenvalue, harmonic and complex-c solves. */
 export interface SolvedMode {
   result: SpheroidalEigenvalue;
   spectral: SpectralSolution | null;
 }
 
-export function solveMode(q: SpheroidalQuery, options: SolveOptions = {}): SolvedMode {
-  if (q === null || typeof q !== 'object') throw new InputError('query', 'an object { s, l, m, c }', q);
-  checkModeNumbers(q);
-  const c = checkRealC(q.c);
-  const { s, l, m } = q;
-  const leaver = options.leaver ?? 'off';
-  const useCache = options.continuation ?? true;
+/** Validate and solve one real-c problem (cached per mode); the common core of every solve in the package. */
+export function solveMode(problem: unknown, options: unknown): SolvedMode {
+  const { s, l, m, c } = validateSpheroidalProblem(problem);
+  const { leaver, continuation: useCache } = validateSpheroidalOptions(options);
   const key = modeKey(s, l, m);
   const previous = useCache ? modeCache.get(key) : undefined;
   if (previous && previous.c === c && previous.leaver === leaver) {
@@ -106,12 +110,16 @@ export function solveMode(q: SpheroidalQuery, options: SolveOptions = {}): Solve
     const A = sphericalEigenvalue(s, l);
     const result: SpheroidalEigenvalue = {
       s, l, m, c, A, E: A + s * (s + 1),
-      diagnostics: { method: 'exact', truncation: 1, residual: 0, iterations: 0 },
+      diagnostics: {
+        method: 'exact', steps: 0, rhsEvaluations: 0, errorEstimate: 0,
+        message: 'exact: A = (l − s)(l + s + 1) at c = 0', truncation: 1, residual: 0,
+      },
     };
     if (useCache) remember(key, { c, leaver, result, spectral: null });
     return { result, spectral: null };
   }
 
+  const tally: Tally = { evaluations: 0 };
   const { lFirst, stride, index } = basisLayout(s, l, m);
   // The truncation follows from a history-free guess, so that warm and cold
   // solves work on the same band (see `settle`).
@@ -123,31 +131,38 @@ export function solveMode(q: SpheroidalQuery, options: SolveOptions = {}): Solve
     const prevA = previous.result.A;
     const dAdc = previous.spectral ? previous.spectral.dAdc : 0;
     const guess = prevA + dAdc * (c - previous.c);
-    spectral = solveWarm(s, m, c, lFirst, stride, index, size, guess, previous.spectral?.vector ?? null, false);
+    spectral = solveWarm(s, m, c, lFirst, stride, index, size, guess, previous.spectral?.vector ?? null, tally, false);
   } else {
-    spectral = solveBisection(s, m, c, lFirst, stride, index, size, false);
+    spectral = solveBisection(s, m, c, lFirst, stride, index, size, tally, false);
   }
-  spectral ??= solveDense(s, m, c, lFirst, stride, index, size);
+  spectral ??= solveDense(s, m, c, lFirst, stride, index, size, tally);
 
-  spectral = settle(s, m, c, lFirst, stride, index, size, spectral);
+  spectral = settle(s, m, c, lFirst, stride, index, size, spectral, tally);
 
   let A = spectral.A;
   const diagnostics: SpheroidalDiagnostics = {
     method: spectral.method,
+    steps: spectral.iterations,
+    rhsEvaluations: 0,
+    errorEstimate: (Math.max(spectral.residual, ROUNDING_FLOOR) * spectral.band.norm) / Math.max(1, Math.abs(A)),
+    message: SPECTRAL_MESSAGE,
     truncation: spectral.band.size,
     residual: spectral.residual,
-    iterations: spectral.iterations,
   };
   if (leaver !== 'off') {
     const root = leaverCheck(s, l, m, c, A, spectral.band.norm);
+    tally.evaluations += root.iterations;
     diagnostics.agreement = root.agreement;
     diagnostics.continuedFractionDepth = root.depth;
     if (leaver === 'polish' && root.agreement <= AGREEMENT_LIMIT) {
       A = root.A;
       diagnostics.method += '+leaver';
-      diagnostics.iterations += root.iterations;
+      diagnostics.steps += root.iterations;
+      diagnostics.errorEstimate += root.agreement;
+      diagnostics.message = `${SPECTRAL_MESSAGE}; Leaver's continued-fraction root adopted`;
     }
   }
+  diagnostics.rhsEvaluations = tally.evaluations;
   const result: SpheroidalEigenvalue = { s, l, m, c, A, E: A + s * (s + 1), diagnostics };
   if (useCache) remember(key, { c, leaver, result, spectral });
   return { result, spectral };
@@ -170,26 +185,30 @@ function settle(
   index: number,
   initialSize: number,
   solved: SpectralSolution,
+  tally: Tally,
 ): SpectralSolution {
   let size = initialSize;
   let seed = solved.A;
+  let steps = solved.iterations;
   // The seed is a converged Rayleigh quotient: within a few ε‖K‖ of the step.
   let margin = Math.max(64 * solved.residual, 4e-15) * solved.band.norm;
   for (let attempt = 0; attempt < 8; attempt++) {
     const band = size === solved.band.size ? solved.band : buildBand(s, m, c, lFirst, stride, size);
     const point =
-      settleEigenvalue(band, index, seed, margin) ??
-      settleEigenvalue(band, index, seed, 1e-9 * band.norm) ??
-      settleEigenvalueCold(band, index);
-    const settled = settledSolution(band, point.A, solved.iterations + point.counts, solved.method);
+      settleEigenvalue(band, index, seed, margin, tally) ??
+      settleEigenvalue(band, index, seed, 1e-9 * band.norm, tally) ??
+      settleEigenvalueCold(band, index, tally);
+    const settled = settledSolution(band, point.A, solved.iterations + point.counts, solved.method, tally);
     if (tailConverged(settled)) return settled;
+    steps += point.counts;
     seed = point.A;
     margin = 1e-13 * band.norm;
     size = Math.ceil(size * 1.5) + 8;
   }
-  throw new ConvergenceError('spheroidal spectral expansion did not converge in the deterministic finish', {
-    s, m, c, index, size,
-  });
+  throw new ConvergenceError(
+    'spheroidal spectral expansion did not converge in the deterministic finish',
+    failureDiagnostics(solved.method, 'eigenvector tail above 1e-16 after 8 truncations', steps, tally.evaluations, { s, m, c, index, size }),
+  );
 }
 
 /**
@@ -198,7 +217,7 @@ function settle(
  * free of exponential cancellation whichever pole S is concentrated at
  * (docs/spheroidal.md). Throws ConvergenceError if Newton fails.
  */
-export function leaverCheck(
+function leaverCheck(
   s: number,
   l: number,
   m: number,
@@ -224,15 +243,16 @@ function remember(key: string, state: ModeState): void {
  * convention of the angular equation
  *   (1/sinθ)(sinθ S′)′ + (c²cos²θ − m²/sin²θ − 2cs cosθ − 2ms cosθ/sin²θ − s²cot²θ + s + A) S = 0.
  * Spectral expansion in spin-weighted spherical harmonics (warm-started from
- * the last c solved for the same mode), polished by Newton on Leaver's
- * continued fraction. Throws InputError for bad quantum numbers or c, and
- * ConvergenceError if either method fails or they disagree.
+ * the last c solved for the same mode, with a history-free deterministic
+ * finish), optionally checked or polished by Newton on Leaver's continued
+ * fraction (`options.leaver`). Throws InputError for a bad problem or options
+ * and ConvergenceError (with full diagnostics) if a method fails.
  */
-export function spheroidalEigenvalue(q: SpheroidalQuery, options?: SolveOptions): SpheroidalEigenvalue {
-  return solveMode(q, options).result;
+export function spheroidalEigenvalue(problem: SpheroidalProblem, options?: SpheroidalOptions): SpheroidalEigenvalue {
+  return solveMode(problem, options).result;
 }
 
-/** λ = A + a²ω² − 2amω, the radial separation constant */
+/** λ = A + a²ω² − 2amω, the radial separation constant. */
 export function radialSeparationConstant(A: number, a: number, omega: number, m: number): number {
   requireFinite('A', A);
   requireFinite('a', a);

@@ -1,6 +1,7 @@
-import { InputError } from '@penumbra/kerr';
+import { InputError } from '@penumbra/core';
 import { cosDiagonal, cosOffDiagonal } from './coupling.js';
-import { type SolveOptions, type SpheroidalEigenvalue, type SpheroidalQuery, solveMode } from './eigenvalue.js';
+import { type SpheroidalEigenvalue, solveMode } from './eigenvalue.js';
+import type { SpheroidalOptions, SpheroidalProblem } from './problem.js';
 import { lowestL } from './quantum.js';
 
 /**
@@ -108,9 +109,13 @@ function checkTheta(theta: number): void {
   }
 }
 
-/** The harmonic S_{slm}(θ; c) (real c), its eigenvalue and dS/dθ. */
-export function spheroidalHarmonic(q: SpheroidalQuery, options?: SolveOptions): SpheroidalHarmonic {
-  const { result, spectral } = solveMode(q, options);
+/**
+ * The harmonic S_{slm}(θ; c) for real c with its eigenvalue: the solve of
+ * `spheroidalEigenvalue` (same problem, options, diagnostics and errors) plus
+ * the expansion coefficients and S, dS/dθ at any θ ∈ [0, π].
+ */
+export function spheroidalHarmonic(problem: SpheroidalProblem, options?: SpheroidalOptions): SpheroidalHarmonic {
+  const { result, spectral } = solveMode(problem, options);
   const { s, l, m } = result;
   let basisL: Float64Array;
   let coefficients: Float64Array;

@@ -1,23 +1,23 @@
+export { type SpheroidalProblem, type SpheroidalOptions, MAX_REAL_C } from './problem.js';
 export {
-  type SpheroidalQuery,
   type SpheroidalDiagnostics,
   type SpheroidalEigenvalue,
-  type SolveOptions,
   spheroidalEigenvalue,
   radialSeparationConstant,
   clearSpheroidalCache,
 } from './eigenvalue.js';
-export { SUPPORTED_SPINS, MAX_L, MAX_REAL_C, sphericalEigenvalue } from './quantum.js';
-export { leaverFunction, leaverRoot } from './leaver.js';
 export { type SpheroidalHarmonic, spheroidalHarmonic } from './harmonic.js';
+export { sphericalEigenvalue } from './quantum.js';
 export { smallCSeries } from './series.js';
+export { type ComplexValue } from './complexArithmetic.js';
 export {
-  type ComplexValue,
-  type ComplexSpheroidalQuery,
-  type ComplexSpheroidalDiagnostics,
-  type ComplexSpheroidalEigenvalue,
+  type ComplexSpheroidalProblem,
+  type ComplexSpheroidalOptions,
   MAX_COMPLEX_C,
   MAX_COMPLEX_IM_C,
+} from './complexProblem.js';
+export {
+  type ComplexSpheroidalDiagnostics,
+  type ComplexSpheroidalEigenvalue,
   spheroidalEigenvalueComplex,
-  leaverFunctionComplex,
-} from './complexC.js';
+} from './complexEigenvalue.js';

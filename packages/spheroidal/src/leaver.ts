@@ -1,23 +1,15 @@
-import { ConvergenceError } from '@penumbra/kerr';
+import { ConvergenceError } from '@penumbra/core';
+import { failureDiagnostics } from './diagnostics.js';
+import { leaverRecurrence, leaverScalars, realArithmetic } from './leaverRecurrence.js';
 
 /**
- * Leaver's continued fraction (J. Math. Phys. 27, 1238 (1986)) for our angular
- * equation. With x = cosθ, k₋ = |m − s|/2, k₊ = |m + s|/2 and
- *   S = e^{cx} (1 + x)^{k₋} (1 − x)^{k₊} Σ_n a_n (1 + x)^n,
- * the coefficients obey α_n a_{n+1} + β_n a_n + γ_n a_{n−1} = 0 with
- *   α_n = −2(n + 1)(n + 2k₋ + 1)
- *   β_n = n(n − 1) + 2n(k₋ + k₊ + 1 − 2c) − [2c(2k₋ + s + 1) − (k₋ + k₊)(k₋ + k₊ + 1)] − [c² + s(s + 1) + A]
- *   γ_n = 2c(n + k₋ + k₊ + s)
- * (derived in docs/spheroidal.md). A is an eigenvalue exactly when {a_n} is the
- * minimal solution, i.e. when the `inversion`-th form of the continued fraction
- * vanishes.
+ * Leaver's continued fraction (J. Math. Phys. 27, 1238 (1986)) for real c,
+ * from the recurrence of leaverRecurrence.ts. A is an eigenvalue exactly when
+ * {a_n} is the minimal solution, i.e. when the `inversion`-th form of the
+ * continued fraction vanishes.
  */
-export interface LeaverCoefficients {
-  kMinus: number;
-  kPlus: number;
-  s: number;
-}
 
+/** F(A) and dF/dA of one inversion of the continued fraction, and the depth summed. */
 export interface ContinuedFractionValue {
   value: number;
   derivative: number;
@@ -40,14 +32,11 @@ export function leaverFunction(
   inversion: number,
   sigma: 1 | -1 = 1,
 ): ContinuedFractionValue {
-  const kMinus = Math.abs(m - s) / 2;
-  const kPlus = Math.abs(m + s) / 2;
-  const kSum = kMinus + kPlus;
-  const sc = sigma * c;
-  const beta0 = -(2 * c * (2 * sigma * kMinus + s + sigma) - kSum * (kSum + 1)) - (c * c + s * (s + 1) + A);
-  const alpha = (n: number) => -2 * (n + 1) * (n + 2 * kMinus + 1);
-  const beta = (n: number) => n * (n - 1) + 2 * n * (kSum + 1 - 2 * sc) + beta0;
-  const gamma = (n: number) => 2 * sc * (n + kSum + sigma * s);
+  const r = leaverRecurrence(s, m, sigma);
+  const { beta0, slope, gammaScale } = leaverScalars(r, realArithmetic, c, A);
+  const alpha = r.alpha;
+  const beta = (n: number) => r.betaQuadratic(n) + r.betaLinear(n) * slope + beta0;
+  const gamma = (n: number) => gammaScale * r.gammaWeight(n);
 
   // Lower part, bottom-up: t_0 = β_0, t_j = β_j − α_{j−1}γ_j / t_{j−1}; dβ/dA = −1.
   let lower = 0;
@@ -100,7 +89,10 @@ export function leaverFunction(
     derivative = dv;
   }
   if (!converged) {
-    throw new ConvergenceError('Leaver continued fraction did not converge', { s, m, c, A, inversion, depth });
+    throw new ConvergenceError(
+      'Leaver continued fraction did not converge',
+      failureDiagnostics('leaver-continued-fraction', `no convergence within ${MAX_DEPTH} terms`, depth, 1, { s, m, c, A, inversion, depth }),
+    );
   }
   // Re-sum the tail backwards from beyond the forward convergence depth: the
   // backward recurrence is the numerically stable one (it follows the minimal
@@ -120,6 +112,7 @@ export function leaverFunction(
   return { value: beta(inversion) + lower + value, derivative: -1 + dLower + derivative, depth };
 }
 
+/** A root of the continued fraction with the Newton steps taken, the last step size and the depth. */
 export interface LeaverRoot {
   A: number;
   iterations: number;
@@ -146,7 +139,9 @@ export function leaverRoot(
   let lastStep = Infinity;
   let depth = 0;
   const tolerance = 4e-16 * Math.max(scale, 1);
+  let iterations = 0;
   for (let it = 1; it <= maxIterations; it++) {
+    iterations = it;
     const f = leaverFunction(s, m, c, A, inversion, sigma);
     depth = f.depth;
     const step = f.value / f.derivative;
@@ -158,7 +153,10 @@ export function leaverRoot(
     if (size <= 1e-13 * Math.max(scale, 1) && size >= 0.5 * lastStep) return { A, iterations: it, lastStep: size, depth };
     lastStep = size;
   }
-  throw new ConvergenceError('Newton iteration on Leaver continued fraction did not converge', {
-    s, m, c, start, inversion, A, lastStep, depth,
-  });
+  throw new ConvergenceError(
+    'Newton iteration on Leaver continued fraction did not converge',
+    failureDiagnostics('leaver-newton', `no convergence in ${iterations} Newton steps`, iterations, iterations, {
+      s, m, c, start, inversion, A, lastStep, depth,
+    }),
+  );
 }

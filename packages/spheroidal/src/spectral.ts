@@ -1,12 +1,14 @@
-import { ConvergenceError } from '@penumbra/kerr';
+import { ConvergenceError } from '@penumbra/core';
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { type Band, BandFactor, bandMultiply, bandQuadratic, buildBand } from './band.js';
 import { cosDiagonal, cosOffDiagonal } from './coupling.js';
+import { failureDiagnostics, type Tally } from './diagnostics.js';
 import { sphericalEigenvalue } from './quantum.js';
 
 /** Trailing coefficients of a normalised eigenvector must be below this. */
 export const TAIL_TOLERANCE = 1e-16;
 
+/** A spectral eigenpair of one band, with the Hellmann–Feynman slope and the work spent. */
 export interface SpectralSolution {
   A: number;
   /** Normalised eigenvector (Σ b² = 1) in the basis of the band. */
@@ -87,10 +89,12 @@ export function solveDense(
   stride: 1 | 2,
   index: number,
   initialSize: number,
+  tally: Tally,
 ): SpectralSolution {
   let size = Math.max(initialSize, index + 3);
   for (let attempt = 0; attempt < 8; attempt++) {
     const band = buildBand(s, m, c, lFirst, stride, size);
+    tally.evaluations++;
     const K = new Matrix(size, size);
     for (let i = 0; i < size; i++) {
       K.set(i, i, band.d0[i]);
@@ -113,7 +117,10 @@ export function solveDense(
     if (tailIsConverged(vector, size, stride)) return finishSolution(band, vector, attempt + 1, 'spectral-dense');
     size = Math.ceil(size * 1.5) + 8;
   }
-  throw new ConvergenceError('spheroidal spectral expansion did not converge', { s, m, c, index, size });
+  throw new ConvergenceError(
+    'spheroidal spectral expansion did not converge',
+    failureDiagnostics('spectral-dense', 'eigenvector tail above 1e-16 after 8 truncations', 8, tally.evaluations, { s, m, c, index, size }),
+  );
 }
 
 const factorCache = { factor: new BandFactor(64) };
@@ -139,6 +146,7 @@ export function solveWarm(
   size: number,
   aGuess: number,
   vectorGuess: Float64Array | null,
+  tally: Tally,
   /** With false, return the eigenpair of this size without the tail check (a seed for `settle`). */
   growToTail = true,
 ): SpectralSolution | null {
@@ -158,6 +166,7 @@ export function solveWarm(
     let iterations = 0;
     const tol = 4e-16 * band.norm;
     for (; iterations < 12; iterations++) {
+      tally.evaluations++;
       ws.factor(band, size, sigma);
       ws.solve(size, x);
       let norm2 = 0;
@@ -176,6 +185,7 @@ export function solveWarm(
     }
     if (!converged) return null;
     const delta = Math.max(1e-11 * band.norm, 1e-9);
+    tally.evaluations += 2;
     if (ws.factor(band, size, sigma - delta) !== index) return null;
     if (ws.factor(band, size, sigma + delta) !== index + 1) return null;
     if (!growToTail || tailIsConverged(x, size, stride)) return finishSolution(band, x, iterations, 'spectral-rqi');
@@ -197,6 +207,7 @@ export function solveBisection(
   stride: 1 | 2,
   index: number,
   size: number,
+  tally: Tally,
   growToTail = true,
 ): SpectralSolution | null {
   size = Math.max(size, index + 3);
@@ -207,11 +218,12 @@ export function solveBisection(
   const width = 1e-9 * band.norm;
   for (let it = 0; it < 200 && hi - lo > width; it++) {
     const mid = 0.5 * (lo + hi);
+    tally.evaluations++;
     if (ws.factor(band, size, mid) <= index) lo = mid;
     else hi = mid;
   }
   const start = new Float64Array(size).fill(1);
-  return solveWarm(s, m, c, lFirst, stride, index, size, 0.5 * (lo + hi), start, growToTail);
+  return solveWarm(s, m, c, lFirst, stride, index, size, 0.5 * (lo + hi), start, tally, growToTail);
 }
 
 /**
@@ -230,6 +242,7 @@ export function settleEigenvalue(
   index: number,
   seed: number,
   margin: number,
+  tally: Tally,
 ): { A: number; counts: number } | null {
   const n = band.size;
   const ws = workspace(n);
@@ -256,14 +269,17 @@ export function settleEigenvalue(
       checked = true;
       if (lo > -B) {
         counts++;
+        tally.evaluations++;
         if (ws.factor(band, n, lo) > index) return null;
       }
       if (hi < B) {
         counts++;
+        tally.evaluations++;
         if (ws.factor(band, n, hi) <= index) return null;
       }
     }
     counts++;
+    tally.evaluations++;
     if (ws.factor(band, n, mid) <= index) lo = mid;
     else hi = mid;
   }
@@ -271,8 +287,8 @@ export function settleEigenvalue(
 }
 
 /** Full dyadic bisection without a seed: the same definition, every level counted. */
-export function settleEigenvalueCold(band: Band, index: number): { A: number; counts: number } {
-  return settleEigenvalue(band, index, 0, Infinity) as { A: number; counts: number };
+export function settleEigenvalueCold(band: Band, index: number, tally: Tally): { A: number; counts: number } {
+  return settleEigenvalue(band, index, 0, Infinity, tally) as { A: number; counts: number };
 }
 
 /**
@@ -280,9 +296,16 @@ export function settleEigenvalueCold(band: Band, index: number): { A: number; co
  * iteration at σ = A from a fixed start vector, so that it too depends only on
  * the band. Pivots that vanish at σ = A are nudged (see BandFactor.factor).
  */
-export function settledSolution(band: Band, A: number, iterations: number, method: SpectralSolution['method']): SpectralSolution {
+export function settledSolution(
+  band: Band,
+  A: number,
+  iterations: number,
+  method: SpectralSolution['method'],
+  tally: Tally,
+): SpectralSolution {
   const n = band.size;
   const ws = workspace(n);
+  tally.evaluations++;
   ws.factor(band, n, A);
   const x = new Float64Array(n);
   for (let i = 0; i < n; i++) x[i] = 1 / Math.sqrt(n) + (i % 3) * 1e-3;
@@ -298,6 +321,7 @@ export function settledSolution(band: Band, A: number, iterations: number, metho
   return { ...solution, A, vector: solution.vector };
 }
 
+/** Whether the eigenvector's trailing coefficients are below TAIL_TOLERANCE (the truncation is converged). */
 export function tailConverged(solution: SpectralSolution): boolean {
   return tailIsConverged(solution.vector, solution.band.size, solution.band.stride);
 }
