@@ -1,52 +1,58 @@
 /**
- * Figures from a grid table, rendered to SVG in Node by Vega-Lite → Vega
- * (no browser): Γ(ω) or the reflection by mode, σ(ω) or emission spectra by
- * (s, a). Axes carry units; an axis switches to logarithmic when its data
- * span two decades or more (symmetric-log when Γ changes sign).
+ * The figure of a grid table, for `penumbra plot`: Γ(ω) or the reflection by
+ * mode, σ(ω) or emission spectra by (s, a). Axes carry units; an axis turns
+ * logarithmic when its data span two decades or more (ω: a factor 20), and
+ * symmetric-log when Γ changes sign. Drawing it is @penumbra/plot's job.
  */
-import * as vega from 'vega';
-import { compile, type TopLevelSpec } from 'vega-lite';
-import { GridError } from './grid.js';
-import type { GridTable } from './store.js';
-import type { Row } from './schema.js';
+import { GridError, type GridTable, type Row } from '@penumbra/grid';
+import { autoScale, type Figure, type ScaleType, type Series } from '@penumbra/plot';
 
+/** The quantities `penumbra plot` draws. */
 export const PLOT_QUANTITIES = ['gamma', 'reflection', 'crossSection', 'spectra', 'energySpectra'] as const;
+
+/** One of `PLOT_QUANTITIES`. */
 export type PlotQuantity = (typeof PLOT_QUANTITIES)[number];
 
-export interface PlotOptions {
+/** What to draw from a table. */
+export interface TableFigureOptions {
+  /** default: gamma, else crossSection, else spectra (the first the table has) */
   quantity?: PlotQuantity;
-  /** field spin to draw (gamma, reflection; default the first in the table) */
+  /** field spin to draw (gamma, reflection: default the first in the table; others: default all) */
   s?: number;
-  /** hole spin to draw (gamma, reflection; default the first in the table) */
+  /** hole spin parameter a/M to draw (same defaults) */
   a?: number;
+  /** figure size in px (default 560 × 360) */
   width?: number;
   height?: number;
 }
 
-export interface PlotResult {
-  svg: string;
+/** A table's figure and what went into it. */
+export interface TableFigure {
+  figure: Figure;
   quantity: PlotQuantity;
+  /** series names, in legend order */
   series: string[];
   points: number;
   /** failed rows left out of the figure */
   omitted: number;
   xLog: boolean;
-  yScale: 'linear' | 'log' | 'symlog';
+  yScale: ScaleType;
 }
 
 interface Setup {
   table: 'modes' | 'crossSection' | 'spectra';
   field: string;
   yTitle: string;
+  yUnit?: string;
   title: string;
 }
 
 const SETUP: Record<PlotQuantity, Setup> = {
   gamma: { table: 'modes', field: 'gamma', yTitle: 'Γ (absorbed fraction of the incident flux, dimensionless)', title: 'Greybody factor Γ_slm(ω)' },
   reflection: { table: 'modes', field: 'reflection', yTitle: 'reflected fraction of the incident flux (dimensionless)', title: 'Reflection by mode' },
-  crossSection: { table: 'crossSection', field: 'sigma', yTitle: 'σ_abs [M²]', title: 'Absorption cross-section σ(ω)' },
+  crossSection: { table: 'crossSection', field: 'sigma', yTitle: 'σ_abs', yUnit: 'M²', title: 'Absorption cross-section σ(ω)' },
   spectra: { table: 'spectra', field: 'number', yTitle: 'd²N/(dt dω) per degree of freedom (dimensionless)', title: 'Hawking emission spectrum (number)' },
-  energySpectra: { table: 'spectra', field: 'energy', yTitle: 'd²E/(dt dω) per degree of freedom [1/M]', title: 'Hawking emission spectrum (energy)' },
+  energySpectra: { table: 'spectra', field: 'energy', yTitle: 'd²E/(dt dω) per degree of freedom', yUnit: '1/M', title: 'Hawking emission spectrum (energy)' },
 };
 
 const spinLabel = (s: number) => (Number.isInteger(s) ? String(s) : `${2 * s}/2`);
@@ -60,39 +66,8 @@ export function plotQuantities(table: GridTable): PlotQuantity[] {
   });
 }
 
-function scaleFor(values: number[]): 'linear' | 'log' | 'symlog' {
-  const magnitudes = values.map(Math.abs).filter((v) => v > 0);
-  if (magnitudes.length < 2) return 'linear';
-  const span = Math.max(...magnitudes) / Math.min(...magnitudes);
-  if (span < 100) return 'linear';
-  return values.every((v) => v > 0) ? 'log' : 'symlog';
-}
-
-/** Powers of ten (with sign) across the data, at most about a dozen: symlog axes get no useful ticks of their own. */
-function symlogTicks(values: number[]): number[] {
-  const magnitudes = values.map(Math.abs).filter((v) => v > 0);
-  const low = Math.floor(Math.log10(Math.min(...magnitudes)));
-  const high = Math.ceil(Math.log10(Math.max(...magnitudes)));
-  const step = Math.max(1, Math.ceil((high - low + 1) / 6));
-  const ticks: number[] = [0];
-  for (let k = high; k >= low; k -= step) {
-    const p = 10 ** k;
-    if (values.some((v) => v >= p / 10)) ticks.push(p);
-    if (values.some((v) => v <= -p / 10)) ticks.push(-p);
-  }
-  return ticks.sort((x, y) => x - y);
-}
-
-/** Vega numbers clip paths with a process-wide counter; renumber per figure so equal inputs give equal bytes. */
-function renumberIds(svg: string): string {
-  const ids = new Map<string, string>();
-  return svg.replace(/\bclip\d+\b/g, (id) => {
-    if (!ids.has(id)) ids.set(id, `clip${ids.size + 1}`);
-    return ids.get(id)!;
-  });
-}
-
-export async function plotTable(table: GridTable, options: PlotOptions = {}): Promise<PlotResult> {
+/** The figure of one quantity of a table; throws GridError when the table lacks it or the chosen s, a. */
+export function tableFigure(table: GridTable, options: TableFigureOptions = {}): TableFigure {
   const available = plotQuantities(table);
   const quantity = options.quantity ?? available.find((q) => q !== 'reflection' && q !== 'energySpectra');
   if (!quantity || !available.includes(quantity)) {
@@ -123,39 +98,42 @@ export async function plotTable(table: GridTable, options: PlotOptions = {}): Pr
   const label = (r: Row) => (perMode
     ? `l = ${spinLabel(r.l as number)}, m = ${spinLabel(r.m as number)}`
     : `s = ${spinLabel(r.s as number)}, a = ${r.a} M`);
-  const values = good.map((r) => ({ omega: r.omega as number, y: r[setup.field] as number, series: label(r) }));
-  const series = [...new Set(values.map((v) => v.series))];
-  const omegas = values.map((v) => v.omega);
-  const xLog = omegas.length > 1 && Math.max(...omegas) / Math.min(...omegas) >= 20;
-  const yScale = scaleFor(values.map((v) => v.y));
-  const smallest = Math.min(...values.map((v) => Math.abs(v.y)).filter((v) => v > 0));
+  const series = seriesOf(good, label, setup.field);
+  const names = series.map((s) => s.name);
+  const omegas = good.map((r) => r.omega as number);
+  const xLog = autoScale(omegas, 20) === 'log';
+  const yScale = autoScale(good.map((r) => r[setup.field] as number));
   if (omitted) subtitle += `${subtitle ? '; ' : ''}${omitted} failed row${omitted > 1 ? 's' : ''} not drawn`;
   if (yScale === 'symlog') subtitle += `${subtitle ? '; ' : ''}symmetric-log y axis (Γ < 0: superradiant)`;
 
-  const spec: TopLevelSpec = {
-    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
+  const figure: Figure = {
+    title: setup.title,
+    ...(subtitle ? { subtitle } : {}),
     width: options.width ?? 560,
     height: options.height ?? 360,
-    background: 'white',
-    title: { text: setup.title, subtitle: subtitle || undefined },
-    data: { values },
-    mark: { type: 'line', point: values.length / Math.max(1, series.length) <= 60, clip: true },
-    encoding: {
-      x: { field: 'omega', type: 'quantitative', title: 'ω [1/M]', scale: xLog ? { type: 'log', nice: false } : { type: 'linear', nice: false, zero: false } },
-      y: {
-        field: 'y', type: 'quantitative', title: setup.yTitle,
-        scale: yScale === 'symlog' ? { type: 'symlog', constant: smallest } : yScale === 'log' ? { type: 'log' } : { type: 'linear', zero: false },
-        axis: { format: yScale === 'linear' ? '~g' : '.0e', ...(yScale === 'symlog' ? { values: symlogTicks(values.map((v) => v.y)) } : {}) },
-      },
-      color: { field: 'series', type: 'nominal', title: perMode ? 'mode' : 'field, hole', sort: series },
-      order: { field: 'omega', type: 'quantitative' },
+    x: xLog ? { title: 'ω', unit: '1/M', scale: 'log', nice: false } : { title: 'ω', unit: '1/M', scale: 'linear', nice: false, zero: false },
+    y: {
+      title: setup.yTitle,
+      ...(setup.yUnit ? { unit: setup.yUnit } : {}),
+      scale: yScale,
+      ...(yScale === 'linear' ? { zero: false } : {}),
+      format: yScale === 'linear' ? '~g' : '.0e',
     },
+    series,
+    legend: { title: perMode ? 'mode' : 'field, hole' },
+    markers: good.length / Math.max(1, names.length) <= 60,
+    clip: true,
   };
-  const view = new vega.View(vega.parse(compile(spec).spec), { renderer: 'none' });
-  try {
-    const svg = renumberIds(await view.toSVG());
-    return { svg, quantity, series, points: values.length, omitted, xLog, yScale };
-  } finally {
-    view.finalize();
+  return { figure, quantity, series: names, points: good.length, omitted, xLog, yScale };
+}
+
+/** Rows grouped into series by label, in order of first appearance. */
+function seriesOf(rows: Row[], label: (r: Row) => string, field: string): Series[] {
+  const points = new Map<string, [number, number][]>();
+  for (const r of rows) {
+    const name = label(r);
+    if (!points.has(name)) points.set(name, []);
+    points.get(name)!.push([r.omega as number, r[field] as number]);
   }
+  return [...points].map(([name, list]) => ({ name, points: list }));
 }
