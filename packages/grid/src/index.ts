@@ -6,5 +6,4 @@ export * from './store.js';
 export * from './run.js';
 export * from './merge.js';
 export * from './progress.js';
-export * from './plot.js';
 export * from './flags.js';

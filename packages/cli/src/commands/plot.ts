@@ -1,8 +1,10 @@
 import { existsSync, statSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
-import { GridError, PLOT_QUANTITIES, plotTable, readTable, writeFileAtomic, type GridTable, type PlotQuantity } from '@penumbra/grid';
+import { GridError, readTable, writeFileAtomic, type GridTable } from '@penumbra/grid';
+import { renderSvg } from '@penumbra/plot';
 import { UsageError, type Command } from '../command.js';
 import { parseFieldSpin, parseNumber, parseOptions } from '../options.js';
+import { PLOT_QUANTITIES, tableFigure, type PlotQuantity } from '../tableFigure.js';
 
 export const command: Command = {
   name: 'plot',
@@ -67,12 +69,12 @@ Example:
     if (problems.length) throw new UsageError(problems.length === 1 ? problems[0] : `${problems.length} problems: ${problems.map((p, i) => `(${i + 1}) ${p}`).join('; ')}`);
     let result;
     try {
-      result = await plotTable(table!, { quantity, s, a });
+      result = tableFigure(table!, { quantity, s, a });
     } catch (error) {
       if (error instanceof GridError) throw new UsageError(error.message);
       throw error;
     }
-    writeFileAtomic(values.out!, result.svg);
+    writeFileAtomic(values.out!, await renderSvg(result.figure));
     const omitted = result.omitted ? `, ${result.omitted} failed rows left out` : '';
     io.stderr(`penumbra plot: ${result.quantity}: ${result.series.length} series, ${result.points} points${omitted}; ${result.xLog ? 'log' : 'linear'} ω axis, ${result.yScale} y axis; wrote ${values.out}\n`);
     return 0;

@@ -1,0 +1,107 @@
+/**
+ * Checking a figure before drawing it: unknown keys, non-finite points and
+ * values a logarithmic axis cannot show are InputErrors naming the key, not
+ * a silently wrong picture.
+ */
+import { InputError, isBoolean, numberIn, oneOf, requireObject, validateOptions, type OptionSpec } from '@penumbra/core';
+import { PLOT_STYLES, SCALE_TYPES, type Axis, type Figure, type Legend, type Panel, type Point, type Rule, type Series } from './figure.js';
+
+type Check<T> = (value: unknown, parameter: string) => T;
+
+const text: Check<string> = (value, parameter) => {
+  if (typeof value !== 'string') throw new InputError(parameter, 'a string', value);
+  return value;
+};
+
+const finite: Check<number> = (value, parameter) => {
+  if (typeof value !== 'number' || !Number.isFinite(value)) throw new InputError(parameter, 'a finite number', value);
+  return value;
+};
+
+function list<T>(item: Check<T>): Check<readonly T[]> {
+  return (value, parameter) => {
+    if (!Array.isArray(value)) throw new InputError(parameter, 'an array', value);
+    return value.map((v, i) => item(v, `${parameter}[${i}]`));
+  };
+}
+
+const point: Check<Point> = (value, parameter) => {
+  if (!Array.isArray(value) || value.length !== 2) throw new InputError(parameter, 'a point [x, y]', value);
+  return [finite(value[0], `${parameter}[0]`), finite(value[1], `${parameter}[1]`)];
+};
+
+const range: Check<readonly [number, number]> = (value, parameter) => {
+  const [from, to] = point(value, parameter);
+  if (!(from < to)) throw new InputError(parameter, 'a range [from, to] with from < to', value);
+  return [from, to];
+};
+
+function object<O extends object>(spec: OptionSpec<O>, required: readonly (keyof O & string)[]): Check<O> {
+  return (value, parameter) => {
+    requireObject(parameter, value, `an object with keys ${Object.keys(spec).join(', ')}`);
+    // validateOptions names a bad key by itself; prefix it with where the object sits in the figure
+    const located = Object.fromEntries(
+      Object.entries(spec).map(([key, check]) => [key, (v: unknown) => (check as Check<unknown>)(v, `${parameter}.${key}`)]),
+    ) as unknown as OptionSpec<O>;
+    const checked = validateOptions<O>(value, located, parameter);
+    for (const key of required) {
+      if (checked[key] === undefined) throw new InputError(`${parameter}.${key}`, 'a value (required)', undefined);
+    }
+    return checked as O;
+  };
+}
+
+const size = numberIn(1, 10_000);
+
+const axis = object<Axis>(
+  {
+    title: text, unit: text, scale: oneOf(SCALE_TYPES), domain: range, zero: isBoolean, nice: isBoolean,
+    format: text, ticks: list(finite), symlogConstant: numberIn(Number.MIN_VALUE, Number.MAX_VALUE),
+  },
+  ['title'],
+);
+const series = object<Series>({ name: text, points: list(point), dash: text }, ['name', 'points']);
+const panel = object<Panel>({ title: text, series: list(series), yDomain: range }, ['title', 'series']);
+const rule = object<Rule>({ y: finite, label: text }, ['y', 'label']);
+const legend = object<Legend>({ title: text, position: oneOf(['right', 'bottom'] as const), dashes: list(text) }, []);
+
+const figureSpec: OptionSpec<Figure> = {
+  title: text, subtitle: text, x: axis, y: axis, series: list(series), panels: list(panel),
+  panelY: oneOf(['shared', 'independent'] as const), legend,
+  markers: (value, parameter) => (typeof value === 'boolean' ? value : size(value, parameter)),
+  lineWidth: numberIn(0.1, 100), join: oneOf(['x', 'given'] as const), clip: isBoolean,
+  band: range, rules: list(rule), guide: list(point), width: size, height: size, style: oneOf(PLOT_STYLES),
+};
+
+/** Check a figure (see `Figure`) and return a clean copy; throws InputError naming the first bad key. */
+export function validateFigure(value: unknown, parameter = 'figure'): Figure {
+  const figure = object<Figure>(figureSpec, ['x', 'y'])(value, parameter);
+  if ((figure.series === undefined) === (figure.panels === undefined)) {
+    throw new InputError(`${parameter}.series`, 'exactly one of series (one chart) and panels (several)', figure.series ?? figure.panels);
+  }
+  if (figure.panels?.length === 0) throw new InputError(`${parameter}.panels`, 'at least one panel', figure.panels);
+  checkLogAxis(figure, 'x', parameter);
+  checkLogAxis(figure, 'y', parameter);
+  return figure;
+}
+
+/** A log axis shows positive values only: every point, domain end, band edge, rule and guide point on it must be > 0. */
+function checkLogAxis(figure: Figure, which: 'x' | 'y', parameter: string): void {
+  if (figure[which].scale !== 'log') return;
+  const index = which === 'x' ? 0 : 1;
+  const allowed = `values > 0 on a log ${which} axis`;
+  const check = (v: number, where: string) => {
+    if (!(v > 0)) throw new InputError(where, allowed, v);
+  };
+  figure[which].domain?.forEach((v, i) => check(v, `${parameter}.${which}.domain[${i}]`));
+  const seriesLists = figure.series ? [{ series: figure.series, at: `${parameter}.series` }] : (figure.panels ?? []).map((p, i) => ({ series: p.series, at: `${parameter}.panels[${i}].series` }));
+  for (const { series: lines, at } of seriesLists) {
+    lines.forEach((line, i) => line.points.forEach((p, j) => check(p[index], `${at}[${i}].points[${j}][${index}]`)));
+  }
+  figure.guide?.forEach((p, j) => check(p[index], `${parameter}.guide[${j}][${index}]`));
+  if (which === 'x') figure.band?.forEach((v, i) => check(v, `${parameter}.band[${i}]`));
+  if (which === 'y') {
+    figure.rules?.forEach((r, i) => check(r.y, `${parameter}.rules[${i}].y`));
+    figure.panels?.forEach((p, i) => p.yDomain?.forEach((v, k) => check(v, `${parameter}.panels[${i}].yDomain[${k}]`)));
+  }
+}
