@@ -93,15 +93,15 @@ function checkLogAxis(figure: Figure, which: 'x' | 'y', parameter: string): void
   const check = (v: number, where: string) => {
     if (!(v > 0)) throw new InputError(where, allowed, v);
   };
-  figure[which].domain?.forEach((v, i) => check(v, `${parameter}.${which}.domain[${i}]`));
+  for (const [i, v] of (figure[which].domain ?? []).entries()) check(v, `${parameter}.${which}.domain[${i}]`);
   const seriesLists = figure.series ? [{ series: figure.series, at: `${parameter}.series` }] : (figure.panels ?? []).map((p, i) => ({ series: p.series, at: `${parameter}.panels[${i}].series` }));
   for (const { series: lines, at } of seriesLists) {
-    lines.forEach((line, i) => line.points.forEach((p, j) => check(p[index], `${at}[${i}].points[${j}][${index}]`)));
+    for (const [i, line] of lines.entries()) for (const [j, p] of line.points.entries()) check(p[index], `${at}[${i}].points[${j}][${index}]`);
   }
-  figure.guide?.forEach((p, j) => check(p[index], `${parameter}.guide[${j}][${index}]`));
-  if (which === 'x') figure.band?.forEach((v, i) => check(v, `${parameter}.band[${i}]`));
+  for (const [j, p] of (figure.guide ?? []).entries()) check(p[index], `${parameter}.guide[${j}][${index}]`);
+  if (which === 'x') for (const [i, v] of (figure.band ?? []).entries()) check(v, `${parameter}.band[${i}]`);
   if (which === 'y') {
-    figure.rules?.forEach((r, i) => check(r.y, `${parameter}.rules[${i}].y`));
-    figure.panels?.forEach((p, i) => p.yDomain?.forEach((v, k) => check(v, `${parameter}.panels[${i}].yDomain[${k}]`)));
+    for (const [i, r] of (figure.rules ?? []).entries()) check(r.y, `${parameter}.rules[${i}].y`);
+    for (const [i, p] of (figure.panels ?? []).entries()) for (const [k, v] of (p.yDomain ?? []).entries()) check(v, `${parameter}.panels[${i}].yDomain[${k}]`);
   }
 }

@@ -15,6 +15,7 @@ const PROLOG = /<\?xml[^?]*\?>/y;
 const TEXT = /[^<]+/y;
 const BAD_AMPERSAND = /&(?!(?:amp|lt|gt|quot|apos|#\d+|#x[0-9a-fA-F]+);)/;
 // XML 1.0 forbids C0 controls other than tab, LF and CR
+// biome-ignore lint/suspicious/noControlCharactersInRegex: matching the forbidden control characters is the point
 const BAD_CHARACTER = /[\u0000-\u0008\u000B\u000C\u000E-\u001F]/;
 
 function at(pattern: RegExp, text: string, index: number): RegExpExecArray | null {
@@ -32,20 +33,25 @@ export function xmlProblems(text: string): string[] {
   const prolog = at(PROLOG, text, 0);
   if (prolog) i = prolog[0].length;
   while (i < text.length && problems.length === 0) {
-    let m: RegExpExecArray | null;
-    if ((m = at(COMMENT, text, i))) {
-      i += m[0].length;
-    } else if ((m = at(END, text, i))) {
+    const comment = at(COMMENT, text, i);
+    if (comment) {
+      i += comment[0].length;
+      continue;
+    }
+    let m = at(END, text, i);
+    if (m) {
       const expected = open.pop();
       if (expected !== m[1]) problems.push(`</${m[1]}> at ${i} closes <${expected ?? 'nothing'}>`);
       i += m[0].length;
-    } else if ((m = at(START, text, i))) {
+      continue;
+    }
+    m = at(START, text, i);
+    if (m) {
       const name = m[1];
       if (open.length === 0 && ++roots > 1) problems.push(`second root element <${name}> at ${i}`);
       i += m[0].length;
       const seen = new Set<string>();
-      let a: RegExpExecArray | null;
-      while ((a = at(ATTRIBUTE, text, i))) {
+      for (let a = at(ATTRIBUTE, text, i); a; a = at(ATTRIBUTE, text, i)) {
         if (seen.has(a[1])) problems.push(`attribute ${a[1]} twice in <${name}> at ${i}`);
         if (BAD_AMPERSAND.test(a[2])) problems.push(`bare & in attribute ${a[1]} of <${name}> at ${i}`);
         seen.add(a[1]);
@@ -58,7 +64,10 @@ export function xmlProblems(text: string): string[] {
       }
       if (close[1] !== '/') open.push(name);
       i += close[0].length;
-    } else if ((m = at(TEXT, text, i))) {
+      continue;
+    }
+    m = at(TEXT, text, i);
+    if (m) {
       if (open.length === 0 && m[0].trim() !== '') problems.push(`text outside the root element at ${i}`);
       if (BAD_AMPERSAND.test(m[0])) problems.push(`bare & in text at ${i}`);
       i += m[0].length;

@@ -3,5 +3,5 @@
  * integration with explicit knobs, to show that Γ does not depend on them.
  * Not part of the public API.
  */
-export { type IntegrationOptions } from './problem.js';
+export type { IntegrationOptions } from './problem.js';
 export { type SingleIntegration, integrateOnce } from './integrate.js';

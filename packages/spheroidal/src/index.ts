@@ -9,7 +9,7 @@ export {
 export { type SpheroidalHarmonic, spheroidalHarmonic } from './harmonic.js';
 export { sphericalEigenvalue } from './quantum.js';
 export { smallCSeries } from './series.js';
-export { type ComplexValue } from './complexArithmetic.js';
+export type { ComplexValue } from './complexArithmetic.js';
 export {
   type ComplexSpheroidalProblem,
   type ComplexSpheroidalOptions,

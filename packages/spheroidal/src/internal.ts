@@ -7,4 +7,4 @@ export { type ContinuedFractionValue, type LeaverRoot, leaverFunction, leaverRoo
 export { type ComplexContinuedFractionValue, type ComplexLeaverRoot, leaverFunctionComplex, leaverRootComplex } from './complexLeaver.js';
 export { type Band, basisLayout, buildBand } from './band.js';
 export { type ComplexBand, buildComplexBand } from './complexBand.js';
-export { type Tally } from './diagnostics.js';
+export type { Tally } from './diagnostics.js';

@@ -82,7 +82,7 @@ export function validateModeNumbers(problem: unknown, keys: readonly string[]): 
     throw new InputError('problem', `an object { ${keys.join(', ')} }`, problem);
   }
   for (const key in problem) {
-    if (Object.prototype.hasOwnProperty.call(problem, key) && !keys.includes(key)) {
+    if (Object.hasOwn(problem, key) && !keys.includes(key)) {
       throw new InputError(key, `one of the keys ${keys.join(', ')}`, key, 'unknown key');
     }
   }
