@@ -204,7 +204,7 @@ ${mdTable(['s', 'rows', 'max |rel. diff.| Γ', 'at', 'max |diff.| reflection', '
   ];
   if (emission) {
     const rows = PAGE.map(([spin, dof, page, what]) => {
-      const r = emission.emissionTotals({ spin, a: 0 }, { tol: 1e-5 });
+      const r = emission.emissionTotals({ hole: { a: 0 }, field: { spin } }, { tol: 1e-5 });
       const p = r.power.value * dof;
       return [spinLabel(spin), what, dof, sig(p, 4), sig(page, 3), rel(Math.abs(p / page - 1)), rel(r.power.relError),
         'Page, Phys. Rev. D 13, 198 (1976) (values from memory, three figures)'];
@@ -493,10 +493,10 @@ let worstResidual = 0;
 }
 if (emission) {
   const data = [];
-  const grid = emission.linearGrid(0.01, 1.6, 48);
+  const grid = { spacing: 'linear', from: 0.01, to: 1.6, count: 48 };
   for (const a of [0, 0.99]) {
     for (const spin of SPINS) {
-      const sp = emission.emissionSpectrum({ spin, a }, grid, { tol: 1e-4 });
+      const sp = emission.emissionSpectrum({ hole: { a }, field: { spin }, grid }, { tol: 1e-4 });
       for (const p of sp.points) data.push({ omega: p.omega, energy: p.energy, spin: spinName[spin], a: `a = ${a}` });
     }
   }
