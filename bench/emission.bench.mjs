@@ -14,7 +14,7 @@ if (!isMainThread) {
   const { emissionTotals } = await import('@penumbra/emission');
   parentPort.on('message', (task) => {
     const t0 = performance.now();
-    const r = emissionTotals({ spin: task.spin, a: task.a }, { tol: task.tol });
+    const r = emissionTotals({ hole: { a: task.a }, field: { spin: task.spin } }, { tol: task.tol });
     parentPort.postMessage({
       ...task,
       ms: performance.now() - t0,
@@ -73,7 +73,7 @@ if (!isMainThread) {
       torqueOverAError[0] = (4 * torqueOverAError[1] + torqueOverAError[2]) / 3;
       return { spin, power: aStar.map((_, i) => get(i).power.value), powerError: aStar.map((_, i) => get(i).power.absError), torqueOverA, torqueOverAError };
     });
-    const fns = pageFunctions({ aStar, theta: aStar.map((_, i) => (thetaMax * i) / (tablePoints - 1)), spins, tol: tableTol, gammaCalls: 0 });
+    const fns = pageFunctions({ table: { aStar, theta: aStar.map((_, i) => (thetaMax * i) / (tablePoints - 1)), spins, tol: tableTol, gammaCalls: 0 } });
     table = { points: tablePoints, tol: tableTol, seconds: res.ms / 1000, interpolationError: fns.interpolationError, nodeError: fns.nodeError, f0: fns.f(0), g0: fns.g(0) };
     console.log(`f, g table: ${tablePoints} nodes × 4 spins, tol ${tableTol}, a* ≤ 0.99: ${(res.ms / 1000).toFixed(1)} s wall on 2 workers`);
     console.log(`  default content: f(0) = ${fns.f(0).toExponential(5)}, g(0) = ${fns.g(0).toExponential(5)}; interpolation error (relative) f ${fns.interpolationError.f.toExponential(1)}, g ${fns.interpolationError.g.toExponential(1)}; node error f ${fns.nodeError.f.toExponential(1)}, g ${fns.nodeError.g.toExponential(1)}`);

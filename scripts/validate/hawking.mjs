@@ -1,6 +1,6 @@
 // Section: Hawking power of a Schwarzschild hole against the published
 // figures; and the emission-spectrum figure.
-import { emissionSpectrum, emissionTotals, linearGrid } from '@penumbra/emission';
+import { emissionSpectrum, emissionTotals } from '@penumbra/emission';
 import { SPINS, inLegendOrder, mdTable, rel, sig, spinLabel, spinName } from './format.mjs';
 
 const PAGE = [
@@ -12,7 +12,7 @@ const PAGE = [
 
 export function hawkingPowerSection() {
   const rows = PAGE.map(([spin, dof, page, what]) => {
-    const r = emissionTotals({ spin, a: 0 }, { tol: 1e-5 });
+    const r = emissionTotals({ hole: { a: 0 }, field: { spin } }, { tol: 1e-5 });
     const p = r.power.value * dof;
     return [spinLabel(spin), what, dof, sig(p, 4), sig(page, 3), rel(Math.abs(p / page - 1)), rel(r.power.relError),
       'Page, Phys. Rev. D 13, 198 (1976) (values from memory, three figures)'];
@@ -30,12 +30,12 @@ ${mdTable(['s', 'field', 'dof', 'penumbra', 'published', '|rel. diff.|', 'estima
 }
 
 export function emissionFigure() {
-  const grid = linearGrid(0.01, 1.6, 48);
+  const grid = { spacing: 'linear', from: 0.01, to: 1.6, count: 48 };
   const panels = [0, 0.99].map((a) => ({
     title: `a = ${a}`,
     series: inLegendOrder(SPINS.map((spin) => ({
       name: spinName[spin],
-      points: emissionSpectrum({ spin, a }, grid, { tol: 1e-4 }).points.map((p) => [p.omega, p.energy]),
+      points: emissionSpectrum({ hole: { a }, field: { spin }, grid }, { tol: 1e-4 }).points.map((p) => [p.omega, p.energy]),
     }))),
   }));
   return {

@@ -12,7 +12,7 @@ describe('penumbra emission', () => {
       expect(json[key]).toHaveProperty('value');
       expect(json[key]).toHaveProperty('relError');
     }
-    const lib = emissionTotals({ spin: 1, a: 0 }, { tol: 1e-4 });
+    const lib = emissionTotals({ hole: { a: 0 }, field: { spin: 1 } }, { tol: 1e-4 });
     expect(json.power.value).toBe(lib.power.value);
     // photons: 2 dof × P ≈ 3.36e-5/M² (Page, Phys. Rev. D 13, 198 (1976), value from memory), three figures
     expect(Math.abs((2 * json.power.value) / 3.36e-5 - 1)).toBeLessThan(2e-3);

@@ -9,7 +9,12 @@
  * in l, so the dropped tail is bounded by |S_last|·q/(1 − q) with
  * q = |S_last|/|S_previous|; a tail that is not decreasing is a
  * ConvergenceError, never a silent truncation.
+ *
+ * A shell may carry several quantities at once (e.g. number and energy
+ * rates, which share every greybody solve): it is negligible only when each
+ * of them is, and each gets its own tail bound.
  */
+import type { Diagnostics } from './diagnostics.js';
 import { ConvergenceError } from './errors.js';
 
 export interface LShellRule {
@@ -23,6 +28,11 @@ export interface LShellRule {
   shellsBelow?: number;
   /** smallest l that may end the sum (default: the first) */
   lMinToStop?: number;
+  /**
+   * Extra diagnostics (e.g. RHS evaluations so far, the problem) merged into
+   * any ConvergenceError the sum itself throws; they override the defaults.
+   */
+  context?: () => Partial<Diagnostics> & Record<string, unknown>;
 }
 
 export interface LShellSum {
@@ -38,43 +48,102 @@ export interface LShellSum {
   evaluations: number;
 }
 
-/** Bound on the geometric tail after shells `prev`, `last`; throws if they do not decrease. */
-export function geometricTailBound(last: number, prev: number, what: string): { bound: number; q: number } {
+/** `LShellSum` for shells carrying several quantities: one total, tail bound and rate per quantity. */
+export interface LShellVectorSum {
+  totals: number[];
+  shells: { l: number; sums: number[] }[];
+  /** largest l summed */
+  lMax: number;
+  /** bound on |sum| of the shells not summed, per quantity */
+  tailBounds: number[];
+  /** ratio of the last two shells, per quantity */
+  q: number[];
+  /** shell evaluations */
+  evaluations: number;
+}
+
+const METHOD = 'l-shell sum with geometric tail bound';
+
+/** The geometric tail after shells `prev`, `last`, or null if they do not decrease. */
+function geometricTail(last: number, prev: number): { bound: number; q: number } | null {
   const L = Math.abs(last);
   if (L === 0) return { bound: 0, q: 0 };
   const q = L / Math.abs(prev);
-  if (!(q < 1)) {
-    throw new ConvergenceError(`${what}: l-shells are not decreasing`, {
-      method: 'l-shell sum with geometric tail bound', steps: 0, rhsEvaluations: 0, errorEstimate: Infinity,
-      message: `last two shells ${L} and ${Math.abs(prev)} do not decrease`,
-    });
-  }
-  return { bound: (L * q) / (1 - q), q };
+  return q < 1 ? { bound: (L * q) / (1 - q), q } : null;
+}
+
+/** Bound on the geometric tail after shells `prev`, `last`; throws if they do not decrease. */
+export function geometricTailBound(last: number, prev: number, what: string): { bound: number; q: number } {
+  const tail = geometricTail(last, prev);
+  if (tail) return tail;
+  throw new ConvergenceError(`${what}: l-shells are not decreasing`, {
+    method: METHOD, steps: 0, rhsEvaluations: 0, errorEstimate: Infinity,
+    message: `last two shells ${Math.abs(last)} and ${Math.abs(prev)} do not decrease`,
+  });
 }
 
 /** Sum `shell(l)` for l = lFirst, lFirst + 1, … under `rule`; see the module comment. */
 export function sumLShells(lFirst: number, rule: LShellRule, shell: (l: number) => number, what = 'l-shell sum'): LShellSum {
+  const r = sumLShellVectors(lFirst, rule, (l) => [shell(l)], what);
+  return {
+    total: r.totals[0],
+    shells: r.shells.map((s) => ({ l: s.l, sum: s.sums[0] })),
+    lMax: r.lMax,
+    tailBound: r.tailBounds[0],
+    q: r.q[0],
+    evaluations: r.evaluations,
+  };
+}
+
+/**
+ * Sum shells carrying several quantities under `rule`: a shell is negligible
+ * when every quantity is below tol·|its total|; every quantity's tail must
+ * decrease and gets its own bound.
+ */
+export function sumLShellVectors(
+  lFirst: number,
+  rule: LShellRule,
+  shell: (l: number) => readonly number[],
+  what = 'l-shell sum',
+): LShellVectorSum {
   const need = rule.shellsBelow ?? 2;
   const lMinToStop = rule.lMinToStop ?? lFirst;
-  const shells: { l: number; sum: number }[] = [];
-  let total = 0;
+  const shells: { l: number; sums: number[] }[] = [];
+  const totals: number[] = [];
   let below = 0;
+  const fail = (message: string, detail: string): never => {
+    throw new ConvergenceError(message, {
+      method: METHOD, steps: shells.length, rhsEvaluations: 0, errorEstimate: Infinity, message: detail,
+      maxL: rule.maxL, lCut: rule.lCut, ...rule.context?.(),
+    });
+  };
   for (let l = lFirst; l <= rule.maxL; l++) {
-    const sum = shell(l);
-    total += sum;
-    shells.push({ l, sum });
-    if (l > rule.lCut && l >= lMinToStop && Math.abs(sum) <= rule.tol * Math.abs(total)) {
+    const sums = [...shell(l)];
+    if (totals.length === 0) totals.push(...sums.map(() => 0));
+    for (const [d, s] of sums.entries()) totals[d] += s;
+    shells.push({ l, sums });
+    if (l > rule.lCut && l >= lMinToStop && sums.every((s, d) => Math.abs(s) <= rule.tol * Math.abs(totals[d]))) {
       if (++below >= need) break;
     } else below = 0;
   }
   if (below < need) {
-    throw new ConvergenceError(`${what} did not converge within maxL = ${rule.maxL}`, {
-      method: 'l-shell sum with geometric tail bound', steps: shells.length, rhsEvaluations: 0, errorEstimate: Infinity,
-      message: `the shells were still above tol·|total| at l = ${rule.maxL} (lCut = ${rule.lCut}, total = ${total})`,
-    });
+    fail(
+      `${what} did not converge within maxL = ${rule.maxL}`,
+      `the shells were still above tol·|total| at l = ${rule.maxL} (lCut = ${rule.lCut}, total = ${totals.join(', ') || 0})`,
+    );
   }
   const last = shells[shells.length - 1];
-  const prev = shells[shells.length - 2] ?? { sum: Infinity };
-  const { bound, q } = geometricTailBound(last.sum, prev.sum, what);
-  return { total, shells, lMax: last.l, tailBound: bound, q, evaluations: shells.length };
+  const prev = shells[shells.length - 2];
+  const tails = last.sums.map((s, d) => {
+    const p = prev?.sums[d] ?? Infinity;
+    return geometricTail(s, p) ?? fail(`${what}: l-shells are not decreasing`, `last two shells ${Math.abs(s)} and ${Math.abs(p)} do not decrease`);
+  });
+  return {
+    totals,
+    shells,
+    lMax: last.l,
+    tailBounds: tails.map((t) => t.bound),
+    q: tails.map((t) => t.q),
+    evaluations: shells.length,
+  };
 }

@@ -10,6 +10,7 @@ import {
   oneOf,
   parseFieldSpin,
   sumLShells,
+  sumLShellVectors,
   toCsv,
   validateHole,
   validateMode,
@@ -89,6 +90,24 @@ describe('grids, l-shell sums and tables', () => {
   });
   test('a series that does not fall is a ConvergenceError, not a truncation', () => {
     expect(() => sumLShells(0, { lCut: 0, tol: 1e-6, maxL: 30 }, () => 1)).toThrow(ConvergenceError);
+  });
+  test('shells with two quantities (2^-l and 3^-l) stop only when both are negligible; each tail bound is at or above its true tail (Σ 2^-l = 2, Σ 3^-l = 3/2)', () => {
+    const sum = sumLShellVectors(0, { lCut: 0, tol: 1e-10, maxL: 200 }, (l) => [3 ** -l, 2 ** -l]);
+    expect(sum.lMax).toBe(sumLShells(0, { lCut: 0, tol: 1e-10, maxL: 200 }, (l) => 2 ** -l).lMax);
+    expect(sum.tailBounds[0]).toBeGreaterThanOrEqual((1.5 - sum.totals[0]) * (1 - 1e-12));
+    expect(sum.tailBounds[1]).toBeGreaterThanOrEqual((2 - sum.totals[1]) * (1 - 1e-12));
+    expect(sum.q[1]).toBe(0.5);
+  });
+  test('a sum that hits maxL throws a ConvergenceError with full diagnostics, maxL and the caller\'s context', () => {
+    try {
+      sumLShells(0, { lCut: 0, tol: 1e-6, maxL: 5, context: () => ({ rhsEvaluations: 42, omega: 0.3 }) }, () => 1);
+      expect.unreachable();
+    } catch (e) {
+      expect(e).toBeInstanceOf(ConvergenceError);
+      const d = (e as ConvergenceError).diagnostics as unknown as Record<string, unknown>;
+      for (const key of ['method', 'steps', 'errorEstimate', 'message']) expect(d).toHaveProperty(key);
+      expect(d).toMatchObject({ maxL: 5, rhsEvaluations: 42, omega: 0.3 });
+    }
   });
   test('CSV fields with commas, quotes or newlines are quoted (RFC 4180); headers carry units', () => {
     expect(csvField('a,b')).toBe('"a,b"');

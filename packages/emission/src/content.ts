@@ -1,18 +1,33 @@
 /**
- * Totals over a particle content, and conversion of rates to physical units.
- *
- * Geometric units: G = c = ħ = k_B = 1, so a rate for a hole of mass M scales
- * as dN/dt ∝ 1/M, dE/dt ∝ 1/M², dJ/dt ∝ 1/M, d²N/(dt dω) scale-free. With
- * t_M = GM/c³ (seconds per geometric time unit) and E_M = ħ/t_M (joules per
- * geometric energy unit): dN/dt = N̂/t_M, dE/dt = P̂ ħ/t_M², dJ/dt = Ĵ ħ/t_M,
- * d²N/(dt dE) = N̂(ω)/(t_M E_M), where the hatted values are those of the unit
- * hole. Constants: CODATA 2018 via @penumbra/kerr.
+ * Totals over a particle content: per-degree-of-freedom totals of each field
+ * spin that appears (one emissionTotals solve per spin), times each species'
+ * degrees of freedom.
  */
-import { CODATA2018, massToKg, unitScales, type MassUnit } from '@penumbra/kerr';
-import { emissionTotals, type EmissionTotals, type EstimatedValue, type TotalsOptions } from './totals.js';
+import {
+  isFunction,
+  validateHole,
+  validateOptions,
+  type Diagnostics,
+  type FieldSpin,
+  type Hole,
+} from '@penumbra/core';
+import { emissionTotals, TOTALS_OPTIONS, type EmissionTotals, type EstimatedValue, type TotalsOptions } from './totals.js';
 import { resolveContent, type Species, type SpeciesSpec } from './species.js';
-import type { FieldSpin } from './validate.js';
+import { requireProblem } from './validate.js';
 
+/** A hole and the species it emits (default: photons, gravitons, three neutrino species). */
+export interface ContentProblem {
+  readonly hole: Hole;
+  readonly content?: readonly SpeciesSpec[];
+}
+
+/** Options of contentTotals: those of emissionTotals, plus progress per field spin. */
+export interface ContentOptions extends TotalsOptions {
+  /** called after each field spin's totals */
+  onSpin?: (spin: FieldSpin, done: number, total: number) => void;
+}
+
+/** One species' share of the totals. */
 export interface SpeciesTotals extends Species {
   /** totals for all dof of this species (per-dof totals × dof) */
   numberRate: number;
@@ -20,16 +35,25 @@ export interface SpeciesTotals extends Species {
   torque: number;
 }
 
+/** How content totals were computed: the per-spin solves added up; `errorEstimate` is the larger relative error of number rate and power. */
+export interface ContentDiagnostics extends Diagnostics {
+  /** greybody solves, all spins */
+  gammaCalls: number;
+}
+
+/** Totals over a particle content. */
 export interface ContentTotals {
-  a: number;
-  mass: number;
+  hole: { a: number; mass: number };
   species: SpeciesTotals[];
   numberRate: EstimatedValue;
   power: EstimatedValue;
   torque: EstimatedValue;
   /** per-dof totals for each field spin that appears */
   perDof: EmissionTotals[];
+  diagnostics: ContentDiagnostics;
 }
+
+const OPTIONS = { ...TOTALS_OPTIONS, onSpin: isFunction<(spin: FieldSpin, done: number, total: number) => void> };
 
 function combine(parts: { value: number; absError: number }[]): EstimatedValue {
   const value = parts.reduce((s, p) => s + p.value, 0);
@@ -37,85 +61,49 @@ function combine(parts: { value: number; absError: number }[]): EstimatedValue {
   return { value, absError, relError: value !== 0 ? absError / Math.abs(value) : 0 };
 }
 
-/** Totals over a particle content (default: photons, gravitons, three neutrino species). */
-export function contentTotals(
-  problem: { a: number; mass?: number; content?: readonly SpeciesSpec[] },
-  options: TotalsOptions & { onSpin?: (spin: FieldSpin, done: number, total: number) => void } = {},
-): ContentTotals {
-  const species = resolveContent(problem.content);
+/**
+ * Number rate, power and torque of a hole summed over a particle content.
+ * Throws InputError for an unknown species or bad input, ConvergenceError as
+ * emissionTotals does.
+ *
+ * @example contentTotals({ hole: { a: 0.5 }, content: ['photon', 'graviton'] }, { tol: 1e-3 })
+ */
+export function contentTotals(problem: ContentProblem, options?: ContentOptions): ContentTotals {
+  const p = requireProblem(problem, ['hole', 'content']);
+  const species = resolveContent(p.content as readonly SpeciesSpec[] | undefined);
+  const hole = validateHole(p.hole, 'hole');
+  const { onSpin, ...totalsOptions } = validateOptions<ContentOptions>(options, OPTIONS);
   const spins = [...new Set(species.map((s) => s.spin))];
   const perDof = spins.map((spin, i) => {
-    const r = emissionTotals({ spin, a: problem.a, mass: problem.mass }, options);
-    options.onSpin?.(spin, i + 1, spins.length);
+    const r = emissionTotals({ hole, field: { spin } }, totalsOptions);
+    onSpin?.(spin, i + 1, spins.length);
     return r;
   });
-  const bySpin = new Map(perDof.map((r) => [r.spin, r]));
+  const bySpin = new Map(perDof.map((r) => [r.field.spin, r]));
   const rows: SpeciesTotals[] = species.map((s) => {
     const r = bySpin.get(s.spin)!;
     return { ...s, numberRate: s.dof * r.numberRate.value, power: s.dof * r.power.value, torque: s.dof * r.torque.value };
   });
   const part = (key: 'numberRate' | 'power' | 'torque') =>
     combine(species.map((s) => ({ value: s.dof * bySpin.get(s.spin)![key].value, absError: s.dof * bySpin.get(s.spin)![key].absError })));
+  const numberRate = part('numberRate');
+  const power = part('power');
+  const errorEstimate = Math.max(numberRate.relError, power.relError);
+  const sum = (key: 'steps' | 'rhsEvaluations' | 'gammaCalls') => perDof.reduce((s, r) => s + r.diagnostics[key], 0);
   return {
-    a: problem.a,
-    mass: problem.mass ?? 1,
+    hole,
     species: rows,
-    numberRate: part('numberRate'),
-    power: part('power'),
+    numberRate,
+    power,
     torque: part('torque'),
     perDof,
+    diagnostics: {
+      method: 'per-degree-of-freedom totals of each field spin, weighted by the degrees of freedom of each species',
+      steps: sum('steps'),
+      rhsEvaluations: sum('rhsEvaluations'),
+      errorEstimate,
+      message: `${species.length} species, ${spins.length} field spin(s); relative error ${errorEstimate.toExponential(2)}`,
+      gammaCalls: sum('gammaCalls'),
+    },
   };
-}
-
-export interface PhysicalRates {
-  massKg: number;
-  /** dN/dt in s⁻¹ */
-  numberRatePerSecond: number;
-  /** dE/dt in W */
-  powerWatts: number;
-  /** dE/dt in GeV s⁻¹ */
-  powerGeVPerSecond: number;
-  /** dJ/dt in J (= N m = kg m² s⁻²) */
-  torqueJoules: number;
-  /** dJ/dt in units of ħ per second */
-  torqueHbarPerSecond: number;
-}
-
-/**
- * Convert rates of a hole of geometric mass `geometricMass` (the mass used in
- * the computation, default 1) to SI for a physical mass `mass` in `unit`.
- */
-export function toPhysicalRates(
-  rates: { numberRate: number; power: number; torque: number },
-  mass: number,
-  unit: MassUnit,
-  geometricMass = 1,
-): PhysicalRates {
-  const kg = massToKg(mass, unit);
-  const u = unitScales(kg);
-  const M = geometricMass;
-  const N = rates.numberRate * M;
-  const P = rates.power * M * M;
-  const J = rates.torque * M;
-  return {
-    massKg: kg,
-    numberRatePerSecond: N / u.second,
-    // u.joule = ħ/t_M is the energy unit, so energy per time unit is P·u.joule/t_M.
-    powerWatts: (P * u.joule) / u.second,
-    powerGeVPerSecond: (P * u.GeV) / u.second,
-    torqueJoules: (J * CODATA2018.hbar) / u.second,
-    torqueHbarPerSecond: J / u.second,
-  };
-}
-
-/** d²N/(dt dE) in GeV⁻¹ s⁻¹ and E in GeV for a spectrum value of the unit hole (geometric ω = Mω). */
-export function toPhysicalSpectrum(
-  point: { omega: number; number: number },
-  mass: number,
-  unit: MassUnit,
-  geometricMass = 1,
-): { energyGeV: number; perGeVPerSecond: number } {
-  const u = unitScales(massToKg(mass, unit));
-  const w = point.omega * geometricMass;
-  return { energyGeV: w * u.GeV, perGeVPerSecond: point.number / (u.second * u.GeV) };
 }

@@ -9,9 +9,20 @@
  * difference reported (and bounded).
  */
 import ode45 from 'ode45-cash-karp';
-import { ConvergenceError, InputError, massToKg, unitScales, CODATA2018, type MassUnit } from '@penumbra/kerr';
-import type { PageFunctions } from './page.js';
+import { ConvergenceError, InputError, numberIn, requireFinite, validateOptions, type Diagnostics } from '@penumbra/core';
+import { massToKg, unitScales, CODATA2018, type MassUnit } from '@penumbra/kerr';
+import type { PageFunctions } from './pageFunctions.js';
+import { requireProblem } from './validate.js';
 
+/** A hole's initial a* and the f, g that drive its evaporation. */
+export interface EvolutionProblem {
+  /** f(a*), g(a*) of the content (from pageFunctions) */
+  readonly functions: PageFunctions;
+  /** initial a/M, 0 ≤ a* ≤ the table's largest a* */
+  readonly aStar0: number;
+}
+
+/** One point of an evaporation track. */
 export interface TrackPoint {
   /** M/M₀ */
   massRatio: number;
@@ -20,35 +31,67 @@ export interface TrackPoint {
   time: number;
 }
 
+/** Options of evolveHole; unknown keys are refused. */
 export interface EvolutionOptions {
-  /** relative tolerance of the ODE solver (default 1e-8, range 1e-12 … 1e-4) */
+  /**
+   * relative tolerance of the ODE integrator (default 1e-8, range 1e-12 … 1e-4):
+   * an integrator setting, not an accuracy request, so its range stops where
+   * halving it no longer checks anything
+   */
   odeTol?: number;
-  /** report the time at which a* first falls below each of these values */
+  /** report the time at which a* first falls below each of these values, each in (0, 1) */
   aStarThresholds?: readonly number[];
 }
 
-export interface EvolutionResult {
+/** How a history was computed; `errorEstimate` bounds the lifetime's relative error (ODE change + table error). */
+export interface EvolutionDiagnostics extends Diagnostics {
+  /** the integrator tolerance of the reported run (half the requested one) */
+  odeTol: number;
+  /** |lifetime(odeTol) − lifetime(odeTol/2)| / lifetime */
+  halvedTolChange: number;
+  /** relative error of f and g from the table (node + interpolation), propagated 1:1 to the lifetime */
+  tableError: number;
+}
+
+/** The evaporation history of a hole. */
+export interface Evolution {
   aStar0: number;
   /** lifetime in units of M₀³ (Planck units); multiply by M₀³ */
   lifetime: number;
   track: TrackPoint[];
   /** time (units of M₀³) at which a* first falls below each threshold; NaN if never */
   crossings: { aStar: number; time: number }[];
-  diagnostics: {
-    steps: number;
-    odeTol: number;
-    /** |lifetime(odeTol) − lifetime(odeTol/2)| / lifetime */
-    halvedTolChange: number;
-    /** relative error of f and g from the table (node + interpolation), propagated 1:1 to the lifetime */
-    tableError: number;
-  };
+  diagnostics: EvolutionDiagnostics;
+}
+
+const METHOD = 'Cash–Karp Runge–Kutta in u = ln(M₀/M) to u = 12, closed-form remainder; repeated at half the tolerance';
+
+function thresholds(value: unknown, parameter: string): number[] {
+  if (!Array.isArray(value)) throw new InputError(parameter, 'an array of values in (0, 1)', value);
+  return value.map((t, i) => {
+    const x = requireFinite(`${parameter}[${i}]`, t, 'a value in (0, 1)');
+    if (!(x > 0 && x < 1)) throw new InputError(`${parameter}[${i}]`, 'a value in (0, 1)', x);
+    return x;
+  });
+}
+
+const OPTIONS = { odeTol: numberIn(1e-12, 1e-4), aStarThresholds: thresholds };
+
+function checkFunctions(value: unknown): PageFunctions {
+  const fns = value as Partial<PageFunctions> | null;
+  if (typeof fns !== 'object' || fns === null || typeof fns.f !== 'function' || typeof fns.g !== 'function' || typeof fns.aMax !== 'number') {
+    throw new InputError('functions', 'the result of pageFunctions ({ f, g, aMax, … })', value);
+  }
+  return fns as PageFunctions;
 }
 
 const U_END = 12;
 
 function run(fns: PageFunctions, aStar0: number, tol: number) {
   const y = new Float64Array([aStar0, 0]);
+  const counter = { evaluations: 0 };
   const deriv = (dy: Float64Array | number[], yy: Float64Array | number[], u: number) => {
+    counter.evaluations++;
     const a = Math.max(0, Math.min(yy[0], fns.aMax));
     const f = fns.f(a);
     dy[0] = -a * (fns.g(a) / f - 2);
@@ -59,7 +102,12 @@ function run(fns: PageFunctions, aStar0: number, tol: number) {
   const us: number[] = [0];
   let steps = 0;
   while (integ.step(U_END)) {
-    if (++steps > 100000) throw new ConvergenceError('evolution: too many ODE steps', { steps, u: integ.t, tol });
+    if (++steps > 100000) {
+      throw new ConvergenceError('evolution: too many ODE steps', {
+        method: METHOD, steps, rhsEvaluations: counter.evaluations, errorEstimate: Infinity,
+        message: `stopped after ${steps} steps at u = ${integ.t} (tolerance ${tol})`, u: integ.t, tol,
+      });
+    }
     track.push({ massRatio: Math.exp(-integ.t), aStar: integ.y[0], time: integ.y[1] });
     us.push(integ.t);
   }
@@ -71,7 +119,7 @@ function run(fns: PageFunctions, aStar0: number, tol: number) {
   const a = Math.max(0, last.aStar);
   const lifetime = last.time + Math.exp(-3 * U_END) / (3 * fns.f(a));
   track.push({ massRatio: 0, aStar: 0, time: lifetime });
-  return { lifetime, track, us, steps, deriv };
+  return { lifetime, track, us, steps, deriv, counter };
 }
 
 /** Time at which a* first falls below `target`, by Hermite interpolation in u between steps. */
@@ -107,35 +155,43 @@ function crossing(r: ReturnType<typeof run>, target: number): number {
   return Number.NaN;
 }
 
-export function evolveHole(fns: PageFunctions, aStar0: number, options: EvolutionOptions = {}): EvolutionResult {
+/**
+ * The evaporation history of a hole from Page's f and g: lifetime (units of
+ * M₀³), the track a*(M/M₀) and the times a* falls below given values. Throws
+ * InputError for a bad problem or option, ConvergenceError if the lifetime
+ * moves when the ODE tolerance is halved.
+ *
+ * @example evolveHole({ functions: pageFunctions({ table: bundledPageTable() }), aStar0: 0.9 }, { aStarThresholds: [0.1] })
+ */
+export function evolveHole(problem: EvolutionProblem, options?: EvolutionOptions): Evolution {
+  const p = requireProblem(problem, ['functions', 'aStar0']);
+  const fns = checkFunctions(p.functions);
+  const aStar0 = p.aStar0;
   if (typeof aStar0 !== 'number' || !Number.isFinite(aStar0) || aStar0 < 0 || aStar0 > fns.aMax) {
-    throw new InputError('aStar', `0 ≤ a* ≤ ${fns.aMax} (the range of the f, g table)`, aStar0);
+    throw new InputError('aStar0', `0 ≤ a* ≤ ${fns.aMax} (the range of the f, g table)`, aStar0);
   }
-  const odeTol = options.odeTol ?? 1e-8;
-  if (!(odeTol >= 1e-12 && odeTol <= 1e-4)) throw new InputError('odeTol', '1e-12 ≤ odeTol ≤ 1e-4', odeTol);
-  for (const t of options.aStarThresholds ?? []) {
-    if (!(t > 0 && t < 1)) throw new InputError('aStarThresholds', 'values in (0, 1)', t);
-  }
+  const { odeTol = 1e-8, aStarThresholds = [] } = validateOptions<EvolutionOptions>(options, OPTIONS);
   const a = run(fns, aStar0, odeTol);
   const b = run(fns, aStar0, odeTol / 2);
   const change = Math.abs(a.lifetime - b.lifetime) / b.lifetime;
+  const tableError = Math.max(fns.interpolationError.f + fns.nodeError.f, fns.interpolationError.g + fns.nodeError.g);
+  const crossings = aStarThresholds.map((t) => ({ aStar: t, time: crossing(b, t) }));
+  const diagnostics: EvolutionDiagnostics = {
+    method: METHOD,
+    steps: b.steps,
+    rhsEvaluations: a.counter.evaluations + b.counter.evaluations,
+    errorEstimate: change + tableError,
+    message: `lifetime moves by ${change.toExponential(2)} when the ODE tolerance is halved; f, g table error ${tableError.toExponential(2)}`,
+    odeTol: odeTol / 2,
+    halvedTolChange: change,
+    tableError,
+  };
   if (!(change <= Math.max(100 * odeTol, 1e-10))) {
     throw new ConvergenceError('evolution: lifetime moves when the ODE tolerance is halved', {
-      odeTol, lifetime: a.lifetime, lifetimeHalfTol: b.lifetime, change,
+      ...diagnostics, lifetime: a.lifetime, lifetimeHalfTol: b.lifetime,
     });
   }
-  return {
-    aStar0,
-    lifetime: b.lifetime,
-    track: b.track,
-    crossings: (options.aStarThresholds ?? []).map((t) => ({ aStar: t, time: crossing(b, t) })),
-    diagnostics: {
-      steps: b.steps,
-      odeTol: odeTol / 2,
-      halvedTolChange: change,
-      tableError: Math.max(fns.interpolationError.f + fns.nodeError.f, fns.interpolationError.g + fns.nodeError.g),
-    },
-  };
+  return { aStar0, lifetime: b.lifetime, track: b.track, crossings, diagnostics };
 }
 
 /**

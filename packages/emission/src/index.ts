@@ -1,9 +1,55 @@
-export * from './validate.js';
-export * from './quadrature.js';
-export * from './species.js';
-export * from './modes.js';
-export * from './spectrum.js';
-export * from './totals.js';
-export * from './content.js';
-export * from './page.js';
-export * from './evolution.js';
+/**
+ * @penumbra/emission: Hawking emission of Kerr holes per degree of freedom
+ * (spectra, number rate, power, torque), totals over a particle content,
+ * Page's f(a*) and g(a*), and the evaporation history. Every solve takes a
+ * problem in the shared vocabulary of @penumbra/core ({ hole, field, … }) and
+ * validated options, and returns a solution whose diagnostics extend core's
+ * Diagnostics. Internals for tests and benchmarks: '@penumbra/emission/internal'.
+ */
+export {
+  emissionSpectrum,
+  type SpectrumProblem,
+  type SpectrumOptions,
+  type SpectrumDiagnostics,
+  type EmissionSpectrum,
+} from './spectrum.js';
+export type { SpectrumPoint } from './spectrumPoint.js';
+export {
+  emissionTotals,
+  type TotalsProblem,
+  type TotalsOptions,
+  type TotalsDiagnostics,
+  type EmissionTotals,
+  type EstimatedValue,
+} from './totals.js';
+export type { ModeTotal, Triple } from './modeIntegral.js';
+export {
+  contentTotals,
+  type ContentProblem,
+  type ContentOptions,
+  type ContentDiagnostics,
+  type ContentTotals,
+  type SpeciesTotals,
+} from './content.js';
+export { KNOWN_SPECIES, DEFAULT_CONTENT, PAGE_1976_CONTENT, resolveContent, type Species, type SpeciesSpec } from './species.js';
+export { toPhysicalRates, toPhysicalSpectrum, type PhysicalRates } from './units.js';
+export {
+  pageTable,
+  bundledPageTable,
+  type PageTable,
+  type PageTableSpin,
+  type PageTableProblem,
+  type PageTableOptions,
+  type PageTableDiagnostics,
+  type PageTableSolution,
+} from './pageTable.js';
+export { pageFunctions, type PageFunctionsProblem, type PageFunctions } from './pageFunctions.js';
+export {
+  evolveHole,
+  evolutionTimeUnitSeconds,
+  type EvolutionProblem,
+  type EvolutionOptions,
+  type EvolutionDiagnostics,
+  type Evolution,
+  type TrackPoint,
+} from './evolution.js';

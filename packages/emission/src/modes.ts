@@ -5,21 +5,27 @@
  * Γ·(occupation) is never negative: in the superradiant band of bosons both
  * factors change sign together.
  */
-import { ConvergenceError, kerrHole, type KerrHole } from '@penumbra/kerr';
-import type { FieldSpin } from '@penumbra/core';
+import { ConvergenceError, type FieldSpin } from '@penumbra/core';
+import { kerrHole, type KerrHole } from '@penumbra/kerr';
 import { greybody, lowFrequencyGreybody, MOMEGA_RANGE } from '@penumbra/flux';
 
 const MIN_MOMEGA = MOMEGA_RANGE.min;
 const MAX_MOMEGA = MOMEGA_RANGE.max;
 
+/** Work done by the greybody solves of one emission computation. */
 export interface ModeCounters {
+  /** greybody solves (the low-frequency formula is not counted) */
   gammaCalls: number;
+  /** accepted ODE steps of those solves */
+  steps: number;
+  /** ODE right-hand-side evaluations of those solves, error-estimate solves included */
   rhsEvaluations: number;
 }
 
+/** A field on the unit-mass hole a* = |a|/M, with the greybody accuracy and the work counters. */
 export interface ModeContext {
   spin: FieldSpin;
-  /** |a|/M; a negative spin is handled by the m → −m symmetry at the API edge */
+  /** |a|/M; a negative a is handled by the m → −m symmetry at the API edge */
   aStar: number;
   hole: KerrHole;
   fermion: boolean;
@@ -27,6 +33,7 @@ export interface ModeContext {
   counters: ModeCounters;
 }
 
+/** The context of a field of spin `spin` on the unit-mass hole with a/M = aStar ≥ 0. */
 export function modeContext(spin: FieldSpin, aStar: number, greybodyTol: number): ModeContext {
   return {
     spin,
@@ -34,7 +41,7 @@ export function modeContext(spin: FieldSpin, aStar: number, greybodyTol: number)
     hole: kerrHole({ a: aStar, mass: 1 }),
     fermion: spin === 0.5,
     greybodyTol,
-    counters: { gammaCalls: 0, rhsEvaluations: 0 },
+    counters: { gammaCalls: 0, steps: 0, rhsEvaluations: 0 },
   };
 }
 
@@ -44,6 +51,7 @@ export function occupation(fermion: boolean, x: number): number {
   return 1 / Math.expm1(x);
 }
 
+/** One mode's emission rate at one frequency. */
 export interface ModeRate {
   /** Γ·occupation/2π */
   rate: number;
@@ -62,17 +70,19 @@ function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): { gamma
     r = greybody({ hole: { a: ctx.aStar }, mode: { field: { spin: ctx.spin }, l, m }, omega }, { tol: ctx.greybodyTol, reflection: false });
   } catch (e) {
     if (e instanceof ConvergenceError) {
-      throw new ConvergenceError(`greybody solve failed inside the emission sum (s = ${ctx.spin}, l = ${l}, m = ${m}, a* = ${ctx.aStar}, Mω = ${omega})`, {
+      throw new ConvergenceError(`greybody solve failed inside the emission sum (spin = ${ctx.spin}, l = ${l}, m = ${m}, a* = ${ctx.aStar}, Mω = ${omega})`, {
         ...e.diagnostics, spin: ctx.spin, l, m, aStar: ctx.aStar, omega,
       });
     }
     throw e;
   }
   ctx.counters.gammaCalls++;
+  ctx.counters.steps += r.diagnostics.steps;
   ctx.counters.rhsEvaluations += r.diagnostics.rhsEvaluations;
   return { gamma: r.gamma, relError: r.relError };
 }
 
+/** Γ·occupation/2π of mode (l, m) at ω on the unit-mass hole, with Γ's relative error. */
 export function modeRate(ctx: ModeContext, l: number, m: number, omega: number): ModeRate {
   if (omega > MAX_MOMEGA) throw new RangeError(`mode rate requested at Mω = ${omega} > ${MAX_MOMEGA}`);
   const { hole } = ctx;
@@ -105,18 +115,6 @@ export function boltzmannTailBound(ctx: ModeContext, m: number, W: number): { nu
   return { number, energy: number * (W + T) };
 }
 
-/** Smallest W (on a T-spaced ladder) with the tail bound below the tolerances. */
-export function upperFrequency(ctx: ModeContext, m: number, tolNumber: number, tolEnergy: number): number {
-  const T = ctx.hole.temperature;
-  const start = Math.max(m * ctx.hole.omegaH, 0);
-  for (let x = 2; x < 400; x += 0.5) {
-    const W = start + x * T;
-    const b = boltzmannTailBound(ctx, m, W);
-    if (b.number <= tolNumber && b.energy <= tolEnergy) return W;
-  }
-  return start + 400 * T;
-}
-
 /**
  * Retrograde equatorial photon-orbit impact parameter, b = 3√(M r) + a with
  * r = 2M[1 + cos((2/3) arccos(a/M))] (Bardeen, Press & Teukolsky, ApJ 178,
@@ -137,6 +135,11 @@ export function shellMs(ctx: ModeContext, l: number): { ms: number[]; weight: nu
   return { ms, weight: 1 };
 }
 
-export function lowestL(spin: FieldSpin): number {
-  return spin;
+/**
+ * Bound on |torque| of the l-shells dropped after shell `l` with number
+ * rate `last` falling at the geometric rate q: Σ_{j≥1} (l + j)·last·q^j, since
+ * |m| ≤ l + j in shell l + j.
+ */
+export function torqueTailBound(last: number, q: number, l: number): number {
+  return last > 0 ? last * ((l * q) / (1 - q) + q / ((1 - q) * (1 - q))) : 0;
 }

@@ -10,7 +10,7 @@
  * greybody solve), a greybody call costs ~10⁵ times a panel's bookkeeping, and
  * no small well-kept npm package offers vector-valued adaptive Kronrod rules.
  */
-import { ConvergenceError } from '@penumbra/kerr';
+import { ConvergenceError } from '@penumbra/core';
 
 // Nodes and weights on [−1, 1], QUADPACK qk15 (30-digit values).
 const XGK = [
@@ -31,8 +31,10 @@ const WG = [
   0.381830050505118944950369775488975, 0.417959183673469387755102040816327,
 ];
 
+/** Nodes on [0, 1) (the rule is symmetric) and Kronrod/Gauss weights of the G7/K15 pair. */
 export const KRONROD15 = { nodes: XGK, kronrodWeights: WGK, gaussWeights: WG } as const;
 
+/** One panel of the adaptive rule: its interval, Kronrod values and error estimates per component. */
 export interface Panel {
   lo: number;
   hi: number;
@@ -91,6 +93,7 @@ export function kronrodPanel(f: (x: number) => number[], lo: number, hi: number,
   return { lo, hi, value, error };
 }
 
+/** An adaptive integral of a vector integrand. */
 export interface QuadratureResult {
   value: number[];
   /** summed |K15 − G7| panel errors per component (conservative for smooth integrands) */
@@ -125,9 +128,16 @@ export function adaptiveKronrod(
       return { value: total('value'), error: err, panels: panels.length, evaluations: 15 * created };
     }
     if (panels.length >= maxPanels) {
+      const value = total('value');
       throw new ConvergenceError('adaptive Gauss–Kronrod quadrature did not converge', {
+        method: 'globally adaptive Gauss–Kronrod (G7/K15) quadrature',
+        steps: panels.length,
+        rhsEvaluations: 15 * created,
+        // relative error of the components that drive refinement (finite tolerance)
+        errorEstimate: Math.max(...err.map((e, d) => (Number.isFinite(tolAbs[d]) ? e / Math.abs(value[d]) : 0))),
+        message: `${maxPanels} panels used and the summed error still above the target in some component`,
         panels: panels.length,
-        value: total('value'),
+        value,
         error: err,
         tolAbs,
       });

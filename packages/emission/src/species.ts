@@ -4,9 +4,9 @@
  * Counting: photon 2, graviton 2, each massless two-component neutrino species
  * with its antiparticle 2, a real scalar 1 (Page, Phys. Rev. D 13, 198 (1976)).
  */
-import { InputError } from '@penumbra/kerr';
-import { parseFieldSpin as validateSpin, type FieldSpin } from '@penumbra/core';
+import { InputError, parseFieldSpin, type FieldSpin, type FieldSpinInput } from '@penumbra/core';
 
+/** One emitted species: a massless field and its degrees of freedom. */
 export interface Species {
   name: string;
   spin: FieldSpin;
@@ -14,6 +14,7 @@ export interface Species {
   dof: number;
 }
 
+/** The species known by name, with their degrees of freedom (Page 1976 counting). */
 export const KNOWN_SPECIES: Readonly<Record<string, Species>> = Object.freeze({
   photon: { name: 'photon', spin: 1, dof: 2 },
   graviton: { name: 'graviton', spin: 2, dof: 2 },
@@ -29,7 +30,8 @@ export const DEFAULT_CONTENT: readonly string[] = ['photon', 'graviton', 'neutri
 /** Page's 1976 content: photons, gravitons and two neutrino species. */
 export const PAGE_1976_CONTENT: readonly string[] = ['photon', 'graviton', 'neutrino-e', 'neutrino-mu'];
 
-export type SpeciesSpec = string | { name: string; spin?: number; dof?: number };
+/** A species as a caller names it: a known name, or an object overriding or defining one (spin '1/2' accepted). */
+export type SpeciesSpec = string | { name: string; spin?: FieldSpinInput; dof?: number };
 
 /**
  * Resolve a content list: names from KNOWN_SPECIES, or objects that override a
@@ -55,7 +57,7 @@ export function resolveContent(content: readonly SpeciesSpec[] = DEFAULT_CONTENT
     if (!base && (spec.spin === undefined || spec.dof === undefined)) {
       throw new InputError('species', `one of ${known}, or a new species with both spin and dof`, spec);
     }
-    const spin = validateSpin(spec.spin ?? base.spin);
+    const spin = parseFieldSpin(spec.spin ?? base.spin, 'species.spin');
     const dof = spec.dof ?? base.dof;
     if (typeof dof !== 'number' || !Number.isFinite(dof) || dof < 0) {
       throw new InputError('dof', 'a finite number ≥ 0', dof, `species ${spec.name}`);

@@ -1,50 +1,62 @@
-/** Input checks for the emission API: typed InputError naming the parameter and its range. */
-import { InputError, requireFinite } from '@penumbra/kerr';
-import { MAX_SOLVER_A_RATIO as MAX_SPIN, parseFieldSpin as validateSpin, type FieldSpin } from '@penumbra/core';
+/**
+ * Input checks shared by the emission solves: problem objects with known keys
+ * only, frequency grids, l limits. Errors name the parameter the caller gave
+ * (`problem.grid`, `grid[3]`, `maxL`) and its allowed range.
+ */
+import { InputError, MAX_L, gridValues, numberIn, requireFinite, requireObject, type FrequencyGrid } from '@penumbra/core';
+import { MOMEGA_RANGE } from '@penumbra/flux';
 
-export { validateSpin };
-export type { FieldSpin };
-
-export const TOL_RANGE = { min: 1e-10, max: 1e-2 } as const;
-
-export function validateEmissionTol(tol: unknown, name = 'tol'): number {
-  const allowed = `${TOL_RANGE.min} ≤ ${name} ≤ ${TOL_RANGE.max}`;
-  requireFinite(name, tol, allowed);
-  const t = tol as number;
-  if (!(t >= TOL_RANGE.min && t <= TOL_RANGE.max)) throw new InputError(name, allowed, t);
-  return t;
-}
-
-export function validateMass(mass: unknown, name = 'mass'): number {
-  requireFinite(name, mass, 'a finite number > 0');
-  if (!((mass as number) > 0)) throw new InputError(name, 'a finite number > 0', mass);
-  return mass as number;
-}
-
-/** Spin a (same units as the mass); |a| ≤ MAX_SPIN·M as for the greybody solver. */
-export function validateSpinParameter(a: unknown, mass: number, name = 'a'): number {
-  const allowed = `|${name}| ≤ ${MAX_SPIN} M`;
-  requireFinite(name, a, allowed);
-  if (Math.abs(a as number) > MAX_SPIN * mass) {
-    throw new InputError(name, allowed, a, 'the extremal hole is a limit of the horizon-based greybody solver, not an input');
+/** A problem object with exactly the given keys (missing optional keys are fine). */
+export function requireProblem(problem: unknown, keys: readonly string[], parameter = 'problem'): Record<string, unknown> {
+  const p = requireObject(parameter, problem, `an object { ${keys.join(', ')} }`);
+  for (const key of Object.keys(p)) {
+    if (!keys.includes(key)) throw new InputError(`${parameter}.${key}`, `the keys ${keys.join(', ')}`, key, 'unknown key');
   }
-  return a as number;
+  return p;
 }
 
-/** A non-empty, strictly increasing grid of positive finite frequencies. */
-export function validateGrid(grid: unknown, name = 'omega'): number[] {
-  if (!Array.isArray(grid) || grid.length === 0) {
-    throw new InputError(name, 'a non-empty array of increasing frequencies > 0', grid);
-  }
-  const out: number[] = [];
-  for (let i = 0; i < grid.length; i++) {
-    const w = grid[i];
-    requireFinite(`${name}[${i}]`, w, 'a finite number > 0');
-    if (!(w > 0)) throw new InputError(`${name}[${i}]`, 'a finite number > 0', w);
-    if (i > 0 && !(w > out[i - 1])) {
-      throw new InputError(name, 'strictly increasing values', grid, `${name}[${i}] = ${w} ≤ ${name}[${i - 1}] = ${out[i - 1]}`);
+const GRID_ALLOWED = 'an array of increasing frequencies > 0, or a FrequencyGrid { spacing, from, to, count } | { values }';
+
+/**
+ * The frequencies of a grid (an array, or core's FrequencyGrid): non-empty,
+ * strictly increasing, each finite and > 0, with Mω ≤ 30 (the greybody
+ * solver's range; below its lower end the low-frequency formula takes over).
+ */
+export function validateGrid(grid: unknown, mass: number, parameter = 'grid'): number[] {
+  let values: unknown[];
+  if (Array.isArray(grid)) values = grid;
+  else {
+    const g = requireObject(parameter, grid, GRID_ALLOWED);
+    if ('values' in g) {
+      if (!Array.isArray(g.values)) throw new InputError(`${parameter}.values`, 'an array of frequencies', g.values);
+      values = g.values;
+    } else {
+      if (g.spacing !== 'linear' && g.spacing !== 'log') throw new InputError(`${parameter}.spacing`, "'linear' or 'log'", g.spacing);
+      values = gridValues(g as FrequencyGrid);
     }
-    out.push(w);
+  }
+  if (values.length === 0) throw new InputError(parameter, GRID_ALLOWED, grid);
+  const out: number[] = [];
+  values.forEach((w, i) => {
+    const x = requireFinite(`${parameter}[${i}]`, w, 'a finite number > 0');
+    if (!(x > 0)) throw new InputError(`${parameter}[${i}]`, 'a finite number > 0', x);
+    if (i > 0 && !(x > out[i - 1])) {
+      throw new InputError(parameter, 'strictly increasing values', grid, `${parameter}[${i}] = ${x} ≤ ${parameter}[${i - 1}] = ${out[i - 1]}`);
+    }
+    out.push(x);
+  });
+  const top = out[out.length - 1];
+  if (top * mass > MOMEGA_RANGE.max) {
+    throw new InputError(`${parameter}[${out.length - 1}]`, `0 < Mω ≤ ${MOMEGA_RANGE.max}`, top, `the greybody solver covers Mω ≤ ${MOMEGA_RANGE.max}`);
   }
   return out;
+}
+
+/** Validator of `maxL`: an integer up to the solvers' MAX_L (checked against the field spin by the caller). */
+export const maxLOption = numberIn(0, MAX_L, true);
+
+/** Refuse a maxL below the field's lowest l. */
+export function checkMaxL(maxL: number, spin: number): number {
+  if (maxL < spin) throw new InputError('maxL', `${spin} ≤ maxL ≤ ${MAX_L}`, maxL);
+  return maxL;
 }

@@ -1,6 +1,16 @@
 import { describe, expect, test } from 'vitest';
-import { ConvergenceError, InputError } from '@penumbra/kerr';
-import { contentTotals, emissionSpectrum, emissionTotals, evolveHole, pageFunctions, resolveContent, toPhysicalRates, type PageTable } from '@penumbra/emission';
+import { ConvergenceError, InputError } from '@penumbra/core';
+import {
+  contentTotals,
+  emissionSpectrum,
+  emissionTotals,
+  evolveHole,
+  pageFunctions,
+  pageTable,
+  resolveContent,
+  toPhysicalRates,
+  type PageTable,
+} from '@penumbra/emission';
 
 describe('typed errors (issue 5, bad input)', () => {
   test('an unknown species and a negative dof throw InputError naming the parameter', () => {
@@ -13,31 +23,34 @@ describe('typed errors (issue 5, bad input)', () => {
     expect(c.map((s) => [s.name, s.spin, s.dof])).toEqual([['photon', 1, 2], ['graviton', 2, 0], ['dark-scalar', 0, 3]]);
   });
   test('masses ≤ 0 or non-finite throw InputError', () => {
-    expect(() => emissionTotals({ spin: 1, a: 0, mass: 0 })).toThrow(InputError);
-    expect(() => emissionTotals({ spin: 1, a: 0, mass: Number.NaN })).toThrow(InputError);
+    expect(() => emissionTotals({ hole: { a: 0, mass: 0 }, field: { spin: 1 } })).toThrow(InputError);
+    expect(() => emissionTotals({ hole: { a: 0, mass: Number.NaN }, field: { spin: 1 } })).toThrow(InputError);
     expect(() => toPhysicalRates({ numberRate: 1, power: 1, torque: 0 }, -1, 'g')).toThrow(InputError);
     expect(() => toPhysicalRates({ numberRate: 1, power: 1, torque: 0 }, Infinity, 'kg')).toThrow(InputError);
   });
   test('an empty or non-increasing frequency grid throws InputError', () => {
-    expect(() => emissionSpectrum({ spin: 0, a: 0 }, [])).toThrow(InputError);
-    expect(() => emissionSpectrum({ spin: 0, a: 0 }, [0.2, 0.1])).toThrow(/increasing/);
-    expect(() => emissionSpectrum({ spin: 0, a: 0 }, [0.1, 0.1])).toThrow(InputError);
-    expect(() => emissionSpectrum({ spin: 0, a: 0 }, [-0.1])).toThrow(InputError);
+    expect(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [] })).toThrow(InputError);
+    expect(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [0.2, 0.1] })).toThrow(/increasing/);
+    expect(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [0.1, 0.1] })).toThrow(InputError);
+    expect(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [-0.1] })).toThrow(InputError);
   });
   test('tolerances out of range, a spin beyond the solver range and an unknown field spin throw InputError', () => {
-    expect(() => emissionTotals({ spin: 1, a: 0 }, { tol: 0.5 })).toThrow(InputError);
-    expect(() => emissionTotals({ spin: 1, a: 0 }, { tol: 1e-14 })).toThrow(InputError);
-    expect(() => emissionTotals({ spin: 1, a: 1 })).toThrow(InputError);
-    expect(() => emissionTotals({ spin: 3 / 2, a: 0 })).toThrow(InputError);
-    expect(() => contentTotals({ a: 0, content: ['tachyon'] })).toThrow(InputError);
+    expect(() => emissionTotals({ hole: { a: 0 }, field: { spin: 1 } }, { tol: 0.5 })).toThrow(InputError);
+    expect(() => emissionTotals({ hole: { a: 0 }, field: { spin: 1 } }, { tol: 1e-14 })).toThrow(InputError);
+    expect(() => emissionTotals({ hole: { a: 1 }, field: { spin: 1 } })).toThrow(InputError);
+    expect(() => emissionTotals({ hole: { a: 0 }, field: { spin: 3 / 2 as never } })).toThrow(InputError);
+    expect(() => contentTotals({ hole: { a: 0 }, content: ['tachyon'] })).toThrow(InputError);
   });
   test('an l-sum that cannot converge within maxL throws ConvergenceError with its diagnostics', () => {
     try {
-      emissionTotals({ spin: 0, a: 0 }, { tol: 1e-6, maxL: 1 });
+      emissionTotals({ hole: { a: 0 }, field: { spin: 0 } }, { tol: 1e-6, maxL: 1 });
       expect.unreachable();
     } catch (e) {
       expect(e).toBeInstanceOf(ConvergenceError);
-      expect((e as ConvergenceError).diagnostics).toHaveProperty('maxL', 1);
+      const d = (e as ConvergenceError).diagnostics;
+      expect(d).toHaveProperty('maxL', 1);
+      for (const key of ['method', 'steps', 'rhsEvaluations', 'errorEstimate', 'message']) expect(d).toHaveProperty(key);
+      expect(d.rhsEvaluations).toBeGreaterThan(0);
     }
   });
   test('evolution outside the table range or with a bad ODE tolerance throws InputError', () => {
@@ -49,11 +62,11 @@ describe('typed errors (issue 5, bad input)', () => {
       gammaCalls: 0,
     };
     table.aStar = table.theta.map((t) => Math.sin(t));
-    const fns = pageFunctions(table, ['photon']);
-    expect(() => evolveHole(fns, 0.95)).toThrow(InputError);
-    expect(() => evolveHole(fns, 0.5, { odeTol: 1 })).toThrow(InputError);
+    const fns = pageFunctions({ table, content: ['photon'] });
+    expect(() => evolveHole({ functions: fns, aStar0: 0.95 })).toThrow(InputError);
+    expect(() => evolveHole({ functions: fns, aStar0: 0.5 }, { odeTol: 1 })).toThrow(InputError);
     // invented demo table (constant f, g): a* ∝ M^{g/f − 2} = M, lifetime 1/(3f) = 1/6 exactly
-    const ev = evolveHole(fns, 0.5);
+    const ev = evolveHole({ functions: fns, aStar0: 0.5 });
     expect(Math.abs(ev.lifetime * 6 - 1)).toBeLessThan(1e-7);
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { adaptiveKronrod, kronrodPanel } from '@penumbra/emission';
+import { adaptiveKronrod, kronrodPanel } from '@penumbra/emission/internal';
 
 describe('Gauss–Kronrod rule (QUADPACK qk15 nodes, Piessens et al. 1983)', () => {
   test('the 15-point Kronrod rule integrates x^k on [0, 1] exactly for k ≤ 22 (to 1e-14 relative)', () => {

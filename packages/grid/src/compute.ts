@@ -152,7 +152,7 @@ export function computeTask(task: TaskMessage): TaskResult {
 
   if (q.includes('spectra')) {
     try {
-      const spectrum = emissionSpectrum({ spin: task.s, a: task.a }, [task.omega], { tol: task.tolerance });
+      const spectrum = emissionSpectrum({ hole: { a: task.a }, field: { spin: task.s as FieldSpin }, grid: [task.omega] }, { tol: task.tolerance });
       const p = spectrum.points[0];
       if (![p.number, p.energy, p.torque, p.relError, p.droppedBound].every(finite)) throw new Error(`non-finite spectrum ${p.number}`);
       rows.spectra = [{

@@ -1,3 +1,4 @@
+import type { FieldSpin } from '@penumbra/core';
 import { emissionSpectrum, emissionTotals, toPhysicalRates, toPhysicalSpectrum } from '@penumbra/emission';
 import type { Command } from '../command.js';
 import {
@@ -28,7 +29,7 @@ Options:
   --mass M      hole mass for physical units (with --unit, default g)
   --unit U      g, kg or msun
   --omega GRID  also print the spectrum d²N/(dt dω), d²E/(dt dω), d²J/(dt dω) at Mω = START:STOP:COUNT
-  --tol T       relative accuracy (default 1e-6; 1e-10 … 1e-2)
+  --tol T       relative accuracy (default 1e-6; 1e-12 … 1e-2)
   --json        one JSON object {totals: {numberRate, power, torque: {value, relError}}, spectrum?}
   --csv         CSV (spectrum rows if --omega is given, else the totals), units in the header
   -h, --help    this text
@@ -56,7 +57,7 @@ Example:
 
     let modes = 0;
     const totals = emissionTotals(
-      { spin, a },
+      { hole: { a }, field: { spin: spin as FieldSpin } },
       {
         tol,
         onMode: () => {
@@ -65,7 +66,7 @@ Example:
       },
     );
     const progress = grid ? progressReporter(io, 'emission spectrum: frequencies done', grid.count) : undefined;
-    const spectrum = grid ? emissionSpectrum({ spin, a }, grid.values, { tol, onPoint: (done) => progress?.(done) }) : undefined;
+    const spectrum = grid ? emissionSpectrum({ hole: { a }, field: { spin: spin as FieldSpin }, grid: grid.values }, { tol, onPoint: (done) => progress?.(done) }) : undefined;
     const pick = (x: { value: number; relError: number }) => ({ value: x.value, relError: x.relError });
     const physical =
       mass === undefined

@@ -56,15 +56,15 @@ Example:
     let table: PageTable;
     if (values['table-points'] !== undefined) {
       const n = parseNumber('--table-points', values['table-points'], { min: 5, max: 2000, integer: true });
-      table = pageTable({ points: n, aMax: Math.max(0.99, aStar), onPoint: (done, total) => io.stderr(`evolve: f, g table ${done}/${total}\n`) });
+      table = pageTable({ points: n, aMax: Math.max(0.99, aStar) }, { onPoint: (done, total) => io.stderr(`evolve: f, g table ${done}/${total}\n`) });
     } else {
       table = bundledPageTable();
       if (aStar > table.aStar[table.aStar.length - 1]) {
         throw new UsageError(`--a ${aStar} is beyond the shipped table (a* ≤ ${table.aStar[table.aStar.length - 1]}); add --table-points N`);
       }
     }
-    const fns = pageFunctions(table, content);
-    const ev = evolveHole(fns, aStar, { aStarThresholds: below });
+    const fns = pageFunctions({ table, content });
+    const ev = evolveHole({ functions: fns, aStar0: aStar }, { aStarThresholds: below });
     const unitSeconds = evolutionTimeUnitSeconds(mass, unit);
     // Thin the track to about nPrint points evenly spaced in mass (ODE steps crowd at small M), keeping the ends.
     const picked: typeof ev.track = [];

@@ -1,0 +1,24 @@
+/**
+ * Internals for tests, benchmarks and scripts (the "./internal" subpath): the
+ * Gauss–Kronrod rule, the per-mode rates and bounds, one spectrum point of the
+ * unit hole, and the input helpers. Not part of the public API; they may
+ * change without notice.
+ */
+export { KRONROD15, kronrodPanel, adaptiveKronrod, type Panel, type QuadratureResult } from './quadrature.js';
+export {
+  modeContext,
+  modeRate,
+  occupation,
+  boltzmannTailBound,
+  retrogradeImpactParameter,
+  shellMs,
+  torqueTailBound,
+  type ModeContext,
+  type ModeCounters,
+  type ModeRate,
+} from './modes.js';
+export { spectrumPointUnit } from './spectrumPoint.js';
+export { integrateMode, emptyAccumulator, type TotalsAccumulator } from './modeIntegral.js';
+export { dofBySpin } from './species.js';
+export { validateGrid, requireProblem } from './validate.js';
+export { SHIPPED_PAGE_TABLE } from './pageTableData.js';

@@ -1,0 +1,133 @@
+/**
+ * One mode's number and energy rates integrated over frequency, ∫_0^W dω,
+ * with adaptive Gauss–Kronrod (docs/emission.md, "Quadrature"). Upper limit:
+ * the smallest W > max(mΩ_H, 0) whose Boltzmann tail bound (Γ ≤ 1 for
+ * ω > mΩ_H) is below a hundredth of the mode's tolerance, extended while the
+ * tail is not small against the mode itself, capped at Mω = 30.
+ */
+import { MOMEGA_RANGE } from '@penumbra/flux';
+import { adaptiveKronrod } from './quadrature.js';
+import { boltzmannTailBound, modeRate, type ModeContext } from './modes.js';
+
+const MAX_MOMEGA = MOMEGA_RANGE.max;
+
+/** One mode's integrated rates. */
+export interface ModeTotal {
+  l: number;
+  m: number;
+  /** multiplicity (2l + 1 at a = 0, where one m stands for the shell) */
+  weight: number;
+  /** number and energy rates of this mode (already multiplied by weight), unit-mass hole */
+  number: number;
+  energy: number;
+  /** upper end of the frequency integral */
+  upperFrequency: number;
+  /** integrand evaluations */
+  evaluations: number;
+}
+
+/** A triple (number rate, power, torque). */
+export type Triple = [number, number, number];
+
+/** Running sums of a totals computation (unit-mass hole, absolute values). */
+export interface TotalsAccumulator {
+  /** values */
+  v: Triple;
+  /** quadrature errors */
+  q: Triple;
+  /** greybody errors, integrated */
+  g: Triple;
+  /** truncation and tail bounds */
+  t: Triple;
+  panels: number;
+  skipped: number;
+  modes: ModeTotal[];
+}
+
+/** A fresh accumulator. */
+export function emptyAccumulator(): TotalsAccumulator {
+  return { v: [0, 0, 0], q: [0, 0, 0], g: [0, 0, 0], t: [0, 0, 0], panels: 0, skipped: 0, modes: [] };
+}
+
+/**
+ * Integrate mode (l, m) of multiplicity `weight` to absolute tolerances
+ * tolN, tolE (0: no scale yet, the first mode) or relative `tolRel`; add it to
+ * `acc` and report it to `onMode`. `initialPanels` > 1 breaks the range at the
+ * thermal scales past the threshold.
+ */
+export function integrateMode(
+  ctx: ModeContext,
+  l: number,
+  m: number,
+  weight: number,
+  tolN: number,
+  tolE: number,
+  tolRel: number,
+  acc: TotalsAccumulator,
+  onMode: ((mode: ModeTotal) => void) | undefined,
+  initialPanels: number,
+): ModeTotal {
+  const T = ctx.hole.temperature;
+  const start = Math.max(m * ctx.hole.omegaH, 0);
+  // Without a scale yet (first mode), reach 30 T past the threshold and let the tail check extend it.
+  let W = start + 30 * T;
+  if (tolN > 0) {
+    for (let x = 4; x < 400; x += 1) {
+      W = start + x * T;
+      const b = boltzmannTailBound(ctx, m, W);
+      if (weight * b.number <= 0.01 * tolN && weight * b.energy <= 0.01 * tolE) break;
+    }
+  }
+  W = Math.min(W, MAX_MOMEGA);
+  // Components: number, energy, and the same weighted by Γ's relative error (integrated, not driving refinement).
+  const f = (w: number): number[] => {
+    const r = modeRate(ctx, l, m, w);
+    const n = weight * r.rate;
+    return [n, w * n, n * r.relError, w * n * r.relError];
+  };
+  const tolAbs = [tolN, tolE, Infinity, Infinity];
+  // Leading modes: break at the thermal scales past the threshold max(mΩ_H, 0), where the
+  // integrand turns over, so bisection does not have to find that scale.
+  const breaks = [0];
+  if (initialPanels > 1) {
+    if (start > 0) breaks.push(0.5 * start, start);
+    for (const x of [4, 10, 20]) if (start + x * T < W) breaks.push(start + x * T);
+  }
+  breaks.push(W);
+  let q = adaptiveKronrod(f, breaks, tolAbs, 400, tolRel);
+  let value = q.value.slice();
+  let error = q.error.slice();
+  let evaluations = q.evaluations;
+  let panels = q.panels;
+  // Extend the range while the Boltzmann tail is not small against this mode itself.
+  for (let guard = 0; guard < 20 && W < MAX_MOMEGA; guard++) {
+    const b = boltzmannTailBound(ctx, m, W);
+    const need = (i: number, bound: number) => weight * bound > 0.01 * Math.max(tolAbs[i], tolRel * value[i]);
+    if (!need(0, b.number) && !need(1, b.energy)) break;
+    const W2 = Math.min(W + 10 * T, MAX_MOMEGA);
+    q = adaptiveKronrod(f, [W, W2], tolAbs.map((t, i) => Math.max(t, tolRel * value[i])), 400);
+    value = value.map((v, i) => v + q.value[i]);
+    error = error.map((e, i) => e + q.error[i]);
+    evaluations += q.evaluations;
+    panels += q.panels;
+    W = W2;
+  }
+  const tail = boltzmannTailBound(ctx, m, W);
+  acc.v[0] += value[0];
+  acc.v[1] += value[1];
+  acc.v[2] += m * value[0];
+  acc.q[0] += error[0];
+  acc.q[1] += error[1];
+  acc.q[2] += Math.abs(m) * error[0];
+  acc.g[0] += value[2];
+  acc.g[1] += value[3];
+  acc.g[2] += Math.abs(m) * value[2];
+  acc.t[0] += weight * tail.number;
+  acc.t[1] += weight * tail.energy;
+  acc.t[2] += Math.abs(m) * weight * tail.number;
+  acc.panels += panels;
+  const mode: ModeTotal = { l, m, weight, number: value[0], energy: value[1], upperFrequency: W, evaluations };
+  acc.modes.push(mode);
+  onMode?.(mode);
+  return mode;
+}

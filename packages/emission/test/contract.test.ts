@@ -1,0 +1,98 @@
+import { describe, expect, test } from 'vitest';
+import { InputError, type Diagnostics } from '@penumbra/core';
+import {
+  bundledPageTable,
+  contentTotals,
+  emissionSpectrum,
+  emissionTotals,
+  evolveHole,
+  pageFunctions,
+  pageTable,
+} from '@penumbra/emission';
+
+const fns = pageFunctions({ table: bundledPageTable() });
+
+/** The InputError a call throws (fails the test if it throws anything else or nothing). */
+function inputError(call: () => unknown): InputError {
+  try {
+    call();
+  } catch (e) {
+    expect(e).toBeInstanceOf(InputError);
+    return e as InputError;
+  }
+  throw new Error('expected an InputError');
+}
+
+function expectDiagnostics(d: Diagnostics): void {
+  expect(typeof d.method).toBe('string');
+  expect(typeof d.message).toBe('string');
+  expect(Number.isInteger(d.steps)).toBe(true);
+  expect(Number.isInteger(d.rhsEvaluations)).toBe(true);
+  expect(d.errorEstimate).toBeGreaterThanOrEqual(0);
+}
+
+describe('the solve contract (problem → solve(problem, options) → solution with diagnostics)', () => {
+  test('unknown option keys and unknown problem keys are refused with an InputError naming the key', () => {
+    const hole = { a: 0 };
+    const field = { spin: 1 as const };
+    expect(inputError(() => emissionTotals({ hole, field }, { tolerance: 1e-4 } as never)).parameter).toBe('options.tolerance');
+    expect(inputError(() => emissionSpectrum({ hole, field, grid: [0.1] }, { onMode: () => {} } as never)).parameter).toBe('options.onMode');
+    expect(inputError(() => emissionTotals({ hole, field, omega: 0.1 } as never)).parameter).toBe('problem.omega');
+    expect(inputError(() => contentTotals({ hole }, { points: 5 } as never)).parameter).toBe('options.points');
+    expect(inputError(() => evolveHole({ functions: fns, aStar0: 0.5 }, { tol: 1e-8 } as never)).parameter).toBe('options.tol');
+    expect(inputError(() => pageTable({ points: 5 }, { aMax: 0.5 } as never)).parameter).toBe('options.aMax');
+  });
+  test('options that are not objects, and bad option values, are InputErrors naming the key (not TypeErrors, not silent defaults)', () => {
+    expect(inputError(() => evolveHole({ functions: fns, aStar0: 0.5 }, null as never)).parameter).toBe('options');
+    expect(inputError(() => pageTable(null as never)).parameter).toBe('problem');
+    expect(inputError(() => pageTable(5 as never)).parameter).toBe('problem');
+    expect(inputError(() => pageTable({ points: 4 })).parameter).toBe('points');
+    expect(inputError(() => pageTable({ spins: [3] as never })).parameter).toBe('spins[0]');
+    expect(inputError(() => emissionTotals({ hole: { a: 0 }, field: { spin: 1 } }, { maxL: -1 })).parameter).toBe('maxL');
+    expect(inputError(() => emissionTotals({ hole: { a: 0 }, field: { spin: 2 } }, { maxL: 1 })).parameter).toBe('maxL');
+    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [0.1] }, { maxL: 2.5 })).parameter).toBe('maxL');
+    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [0.1] }, { onPoint: 1 as never })).parameter).toBe('onPoint');
+    expect(inputError(() => evolveHole({ functions: fns, aStar0: 0.5 }, { aStarThresholds: [0.5, 1.5] })).parameter).toBe('aStarThresholds[1]');
+    expect(inputError(() => evolveHole({ functions: {} as never, aStar0: 0.5 })).parameter).toBe('functions');
+    expect(inputError(() => pageFunctions({ table: { aStar: [0], theta: [0] } as never })).parameter).toBe('table.theta');
+  });
+  test('one tolerance range for every solve: 1e-12 … 1e-2 (core), refused outside with the key named', () => {
+    expect(inputError(() => emissionTotals({ hole: { a: 0 }, field: { spin: 1 } }, { tol: 1e-13 })).parameter).toBe('tol');
+    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 1 }, grid: [0.1] }, { tol: 0.02 })).parameter).toBe('tol');
+    expect(inputError(() => pageTable({}, { tol: 0 })).parameter).toBe('tol');
+  });
+  test('the hole and field are checked by core: |a| ≤ 0.9999 M, mass > 0, field spin 0, 1/2, 1, 2', () => {
+    expect(inputError(() => emissionTotals({ hole: { a: 0.99995 }, field: { spin: 1 } })).parameter).toBe('hole.a');
+    expect(inputError(() => emissionSpectrum({ hole: { a: 0, mass: -1 }, field: { spin: 1 }, grid: [0.1] })).parameter).toBe('hole.mass');
+    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 1.5 as never }, grid: [0.1] })).parameter).toBe('field.spin');
+  });
+  test('a frequency grid may be core\'s FrequencyGrid; Mω above 30 and a decreasing grid are refused', () => {
+    expect(inputError(() => emissionSpectrum({ hole: { a: 0, mass: 2 }, field: { spin: 0 }, grid: [10, 16] })).parameter).toBe('grid[1]');
+    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: { spacing: 'linear', from: 0.3, to: 0.1, count: 3 } })).message).toMatch(/increasing/);
+    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: { spacing: 'cubic' } as never })).parameter).toBe('grid.spacing');
+  });
+  test('field spin "1/2" is the same field as 0.5: identical spectrum points, bit for bit', () => {
+    const grid = { spacing: 'log', from: 0.05, to: 0.2, count: 2 } as const;
+    const text = emissionSpectrum({ hole: { a: 0.3 }, field: { spin: '1/2' }, grid }, { tol: 1e-3 });
+    const number = emissionSpectrum({ hole: { a: 0.3 }, field: { spin: 0.5 }, grid: [0.05, 0.2] }, { tol: 1e-3 });
+    expect(text.field.spin).toBe(0.5);
+    expect(text.points).toEqual(number.points);
+  });
+  test('spectrum, totals, content totals and evolution carry diagnostics extending core\'s Diagnostics, with greybody RHS evaluations counted', () => {
+    const spectrum = emissionSpectrum({ hole: { a: 0.5 }, field: { spin: 0 }, grid: [0.1, 0.3] }, { tol: 1e-3 });
+    expectDiagnostics(spectrum.diagnostics);
+    expect(spectrum.diagnostics.rhsEvaluations).toBeGreaterThan(spectrum.diagnostics.gammaCalls);
+    expect(spectrum.diagnostics.errorEstimate).toBe(Math.max(...spectrum.points.map((p) => p.relError)));
+    const totals = emissionTotals({ hole: { a: 0 }, field: { spin: 2 } }, { tol: 1e-3 });
+    expectDiagnostics(totals.diagnostics);
+    expect(totals.diagnostics.rhsEvaluations).toBeGreaterThan(totals.diagnostics.gammaCalls);
+    expect(totals.diagnostics.errorEstimate).toBeLessThanOrEqual(1e-3);
+    const content = contentTotals({ hole: { a: 0 }, content: ['graviton'] }, { tol: 1e-3 });
+    expectDiagnostics(content.diagnostics);
+    expect(content.diagnostics.rhsEvaluations).toBe(totals.diagnostics.rhsEvaluations);
+    const ev = evolveHole({ functions: fns, aStar0: 0.5 });
+    expectDiagnostics(ev.diagnostics);
+    expect(ev.diagnostics.rhsEvaluations).toBeGreaterThan(ev.diagnostics.steps);
+    expect(ev.diagnostics.errorEstimate).toBe(ev.diagnostics.halvedTolChange + ev.diagnostics.tableError);
+  });
+});
