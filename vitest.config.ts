@@ -8,6 +8,7 @@ import { fileURLToPath } from 'node:url';
 export default defineConfig({
   resolve: {
     alias: [
+      { find: /^@penumbra\/([a-z-]+)\/internal$/, replacement: fileURLToPath(new URL('./packages/$1/src/internal.ts', import.meta.url)) },
       { find: /^@penumbra\/([a-z-]+)$/, replacement: fileURLToPath(new URL('./packages/$1/src/index.ts', import.meta.url)) },
     ],
   },

@@ -10,14 +10,15 @@ import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
 import { computeTask, type TaskMessage, type TaskResult } from './compute.js';
 import { GridError, gridHash, type GridSpec } from './grid.js';
-import {
-  assembleTables, initOutputDir, outputDirProblems, readChunk, writeChunk, writeFileAtomic, writeTables, type TableSummary,
-} from './store.js';
+import { writeFileAtomic } from './files.js';
+import { initOutputDir, outputDirProblems, readChunk, writeChunk } from './store.js';
+import { assembleTables, writeTables, type TableSummary } from './tables.js';
 import { gridChunks, gridTasks, shardChunks, type GridChunk, type GridTask, type ShardSpec } from './tasks.js';
 
 /** The worker is always the built file: src/ and dist/ both sit one level below the package root. */
 export const WORKER_FILE = fileURLToPath(new URL('../dist/worker.js', import.meta.url));
 
+/** Progress of a run, for `onProgress`. */
 export interface Progress {
   doneTasks: number;
   totalTasks: number;
@@ -28,6 +29,7 @@ export interface Progress {
   etaSeconds: number | undefined;
 }
 
+/** What `runGrid` runs and where it reports. */
 export interface RunOptions {
   grid: GridSpec;
   out: string;
@@ -39,6 +41,7 @@ export interface RunOptions {
   onStart?: (info: { chunks: number; skipped: number; pending: number; tasks: number }) => void;
 }
 
+/** What a run did. */
 export interface RunSummary {
   gridHash: string;
   shard: ShardSpec;
@@ -56,10 +59,12 @@ export interface RunSummary {
   seconds: number;
 }
 
+/** Worker threads by default: every core. */
 export function defaultWorkers(): number {
   return availableParallelism();
 }
 
+/** The message a worker receives for one task. */
 export function taskMessage(grid: GridSpec, task: GridTask): TaskMessage {
   return { index: task.index, s: task.s, a: task.a, omega: task.omega, l: grid.l, tolerance: grid.tolerance, quantities: grid.quantities };
 }
@@ -73,6 +78,12 @@ export function runProblems(options: Pick<RunOptions, 'grid' | 'out' | 'workers'
   return problems;
 }
 
+/**
+ * Computes the pending chunks of one shard (default the whole grid) on a
+ * worker pool, writes each chunk as it completes, and writes the tables once
+ * every chunk of the grid is in `out`. Throws GridError before writing
+ * anything if the run cannot start.
+ */
 export async function runGrid(options: RunOptions): Promise<RunSummary> {
   const { grid, out } = options;
   const shard = options.shard ?? { k: 1, n: 1 };
