@@ -3,7 +3,7 @@ import type { Cell, Column, Table } from '@penumbra/core';
 import { formatError, formatNumber, formatTable } from './format.js';
 
 /** A total with its error estimate. */
-interface Estimate {
+export interface Estimate {
   value: number;
   relError: number;
 }

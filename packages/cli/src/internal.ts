@@ -21,4 +21,4 @@ export { type OutputFormat, type Output, JSON_OPTION, OUTPUT_OPTIONS, outputForm
 export { formatNumber, formatError, formatTable } from './format.js';
 export { progressReporter } from './progress.js';
 export { greybodyJson, greybodyTable, greybodyTextRows } from './greybodyTable.js';
-export { totalsTable, spectrumTable } from './emissionOutput.js';
+export { type Estimate, type Totals, type PhysicalTotals, type SpectrumRow, totalsTable, spectrumTable } from './emissionOutput.js';

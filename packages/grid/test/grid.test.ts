@@ -1,5 +1,6 @@
 import { describe, expect, test } from 'vitest';
 import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { gridValues } from '@penumbra/core';
 import {
@@ -84,6 +85,12 @@ describe('grid descriptions', () => {
       }),
       { numRuns: 50 },
     );
+  });
+
+  test('the grid spec module imports no Node built-in (it runs in a browser): only core, flux and @noble/hashes', () => {
+    const source = readFileSync(new URL('../src/grid.ts', import.meta.url), 'utf8');
+    const imports = [...source.matchAll(/^import .* from '([^']+)';$/gm)].map((m) => m[1]);
+    expect(imports).toEqual(['@noble/hashes/sha2.js', '@noble/hashes/utils.js', '@penumbra/core', '@penumbra/flux']);
   });
 
   test("the old key 'holeSpins' is read as holeA (same grid, same hash); both keys together are refused", () => {
