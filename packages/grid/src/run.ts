@@ -7,7 +7,6 @@ import { availableParallelism } from 'node:os';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { Piscina } from 'piscina';
 import { computeTask, type TaskMessage, type TaskResult } from './compute.js';
 import { GridError, gridHash, type GridSpec } from './grid.js';
 import { writeFileAtomic } from './files.js';
@@ -115,7 +114,7 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
   };
 
   const pool = workers > 0 && pending.length > 0
-    ? new Piscina<TaskMessage, TaskResult>({ filename: WORKER_FILE, minThreads: workers, maxThreads: workers, idleTimeout: 60_000 })
+    ? new (await loadPiscina())<TaskMessage, TaskResult>({ filename: WORKER_FILE, minThreads: workers, maxThreads: workers, idleTimeout: 60_000 })
     : undefined;
   const compute = (m: TaskMessage): Promise<TaskResult> => (pool ? pool.run(m) : new Promise((ok) => setImmediate(() => ok(computeTask(m)))));
   const chunkCost = (c: GridChunk) => c.cost / Math.max(1, c.end - c.first);
@@ -159,6 +158,11 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
     tasksPerSecond: seconds > 0 ? pendingTasks / seconds : null, node: process.version,
   }, null, 2) + '\n');
   return result;
+}
+
+/** The pool library, loaded only by a run that computes (not by merges, plots or a package import). */
+async function loadPiscina() {
+  return (await import('piscina')).Piscina;
 }
 
 /** Timing metadata lives apart from the tables, one file per shard. */
