@@ -10,7 +10,8 @@ import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir, availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { parseArgs } from 'node:util';
-import { runGrid, validateGrid, gridChunks, shardChunks, explicitModes, gridTasks } from '../packages/grid/dist/index.js';
+import { runGrid, validateGrid, gridChunks, shardChunks, gridTasks } from '../packages/grid/dist/index.js';
+import { explicitModes } from '../packages/grid/dist/internal.js';
 
 const { values } = parseArgs({ options: { sample: { type: 'string', default: '1' }, workers: { type: 'string', default: '1,2' } } });
 const sample = Number(values.sample);
@@ -18,7 +19,7 @@ const workerCounts = values.workers.split(',').map(Number);
 
 const grid = validateGrid({
   fieldSpins: [0, 1],
-  holeSpins: [0.3, 0.6, 0.9],
+  holeA: [0.3, 0.6, 0.9],
   frequencies: { spacing: 'log', from: 0.05, to: 2, count: 68 },
   l: { max: 4 },
   tolerance: 1e-6,

@@ -1,23 +1,26 @@
 /** The Kerr background as text or as a JSON object, shared by `kerr` and `demo`. */
 import { kerrHole, physicalBackground, type KerrHole, type MassUnit, type PhysicalBackground } from '@penumbra/kerr';
-import { formatNumber, formatTable } from './options.js';
+import { formatNumber, formatTable } from './format.js';
 
+/** The hole a background report describes. */
 export interface BackgroundRequest {
-  /** spin a/M */
-  spinRatio: number;
+  /** the hole's spin parameter a/M */
+  aStar: number;
   /** geometric mass M when `unit` is absent; the physical mass in `unit` otherwise */
   mass: number;
   unit?: MassUnit;
 }
 
+/** The background of a hole, with physical units when a mass unit was given. */
 export interface BackgroundReport {
   hole: KerrHole;
   physical?: PhysicalBackground & { mass: number; unit: MassUnit };
 }
 
-export function backgroundReport({ spinRatio, mass, unit }: BackgroundRequest): BackgroundReport {
-  if (unit === undefined) return { hole: kerrHole({ a: spinRatio * mass, mass }) };
-  const hole = kerrHole({ a: spinRatio });
+/** The background of the requested hole. */
+export function backgroundReport({ aStar, mass, unit }: BackgroundRequest): BackgroundReport {
+  if (unit === undefined) return { hole: kerrHole({ a: aStar * mass, mass }) };
+  const hole = kerrHole({ a: aStar });
   return { hole, physical: { mass, unit, ...physicalBackground(hole, mass, unit) } };
 }
 
@@ -38,6 +41,7 @@ export function backgroundJson({ hole, physical }: BackgroundReport): Record<str
 
 const UNIT_NAMES: Record<MassUnit, string> = { g: 'g', kg: 'kg', msun: 'solar masses' };
 
+/** The background as text for people. */
 export function backgroundText({ hole, physical }: BackgroundReport): string {
   const M = hole.mass;
   const header =

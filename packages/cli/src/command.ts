@@ -1,7 +1,9 @@
 /**
  * The shape every penumbra command has. A command lives in
- * src/commands/<name>.ts as `export const command: Command` and is listed in
- * src/commands/index.ts; main.ts does dispatch, `--help` and error reporting.
+ * src/commands/<name>.ts as `export const command: Command` and is listed,
+ * with its summary and a loader, in the registry src/commands/index.ts, so
+ * that only the command called is loaded; main.ts does dispatch, `--help` and
+ * error reporting.
  */
 
 /** Where a command writes. Each call writes the text as given (include the trailing newline). */
@@ -10,15 +12,23 @@ export interface CliIO {
   stderr(text: string): void;
 }
 
+/** One command of the penumbra executable. */
 export interface Command {
   /** the word after `penumbra` */
   name: string;
-  /** one line for the command list of `penumbra --help` */
+  /** one line for the command list of `penumbra --help` (the registry entry holds the same line) */
   summary: string;
   /** full help text printed by `penumbra <name> --help`: a "Usage:" line, then options */
   usage: string;
   /** `argv` is everything after the command name; `--help` never reaches it. Returns the exit code. */
   run(argv: string[], io: CliIO): Promise<number> | number;
+}
+
+/** A registry entry: what `penumbra --help` lists, and how to load the command only when it is called. */
+export interface CommandEntry {
+  name: string;
+  summary: string;
+  load(): Promise<{ command: Command }>;
 }
 
 /** A malformed command line: printed as one line, exit code 2. */

@@ -1,7 +1,9 @@
-/** Shared formatting of greybody results for the greybody and demo commands. */
+/** Greybody results as JSON, as a CSV table and as text, shared by the greybody and demo commands. */
+import type { Column, Table } from '@penumbra/core';
 import type { GreybodySolution } from '@penumbra/flux';
-import { formatNumber } from './options.js';
+import { formatError, formatNumber } from './format.js';
 
+/** One result as the JSON object of `penumbra greybody --json`. */
 export function greybodyJson(r: GreybodySolution): Record<string, unknown> {
   return {
     spin: r.mode.field.spin,
@@ -21,16 +23,35 @@ export function greybodyJson(r: GreybodySolution): Record<string, unknown> {
   };
 }
 
-export const CSV_HEADER =
-  'spin,l,m,a [M],omega [1/M],gamma [1],reflection [1],residual [1],rel_error [1],k [1/M],superradiant,match_radius [M],rhs_evaluations';
+/** The CSV columns: the JSON keys above (matchRadius and rhsEvaluations from its diagnostics). */
+const COLUMNS: Column[] = [
+  { name: 'spin', unit: '1', description: 'field spin' },
+  { name: 'l', unit: '1', description: 'spheroidal index l' },
+  { name: 'm', unit: '1', description: 'azimuthal number m' },
+  { name: 'a', unit: 'M', description: "the hole's spin parameter a = J/M" },
+  { name: 'omega', unit: '1/M', description: 'wave frequency ω' },
+  { name: 'gamma', unit: '1', description: 'greybody factor Γ (absorbed fraction of the incident flux; < 0 when superradiant)' },
+  { name: 'reflection', unit: '1', description: 'reflected fraction, from an independent solve' },
+  { name: 'residual', unit: '1', description: '|Γ + reflection − 1|, a check of both solves' },
+  { name: 'relError', unit: '1', description: 'estimated relative error of Γ' },
+  { name: 'k', unit: '1/M', description: 'k = ω − mΩ_H' },
+  { name: 'superradiant', unit: '', description: 'true where a boson wave is amplified (k < 0)' },
+  { name: 'matchRadius', unit: 'M', description: 'radius where the horizon and far solutions are matched' },
+  { name: 'rhsEvaluations', unit: '', description: 'right-hand-side evaluations' },
+];
 
-export function greybodyCsvRow(r: GreybodySolution): string {
-  return [
-    r.mode.field.spin, r.mode.l, r.mode.m, r.hole.a, r.omega, r.gamma, r.reflection, r.residual, r.relError, r.k, r.superradiant,
-    r.diagnostics.matchRadius, r.diagnostics.rhsEvaluations,
-  ].join(',');
+/** Results as the table of `penumbra greybody --csv`. */
+export function greybodyTable(results: readonly GreybodySolution[]): Table {
+  return {
+    columns: COLUMNS,
+    rows: results.map((r) => [
+      r.mode.field.spin, r.mode.l, r.mode.m, r.hole.a, r.omega, r.gamma, r.reflection, r.residual, r.relError, r.k, r.superradiant,
+      r.diagnostics.matchRadius, r.diagnostics.rhsEvaluations,
+    ]),
+  };
 }
 
+/** Results as rows of text cells, header first. */
 export function greybodyTextRows(results: readonly GreybodySolution[]): string[][] {
   return [
     ['Mω', 'Γ', 'reflection', '|Γ+R−1|', 'rel. error', ''],
@@ -38,8 +59,8 @@ export function greybodyTextRows(results: readonly GreybodySolution[]): string[]
       formatNumber(r.omega, 6),
       formatNumber(r.gamma, 10),
       formatNumber(r.reflection, 10),
-      r.residual.toExponential(1),
-      r.relError.toExponential(1),
+      formatError(r.residual),
+      formatError(r.relError),
       r.superradiant ? 'superradiant' : '',
     ]),
   ];

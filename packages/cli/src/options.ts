@@ -1,13 +1,16 @@
 /**
  * Parsing helpers shared by the commands. All of them throw UsageError (a
- * malformed command line) or InputError from @penumbra/kerr (a well-formed
+ * malformed command line) or InputError from @penumbra/core (a well-formed
  * value outside the physics range); main.ts prints either as one line with
- * exit code 2.
+ * exit code 2. Field spins and frequency grids follow core's rules; these
+ * helpers only add the option names to the messages.
  */
 import { parseArgs, type ParseArgsConfig } from 'node:util';
+import { attempt, FIELD_SPINS, formatFieldSpin, linearGrid, logGrid, parseFieldSpin as parseCoreFieldSpin } from '@penumbra/core';
 import { kerrHole, MASS_UNITS, type MassUnit } from '@penumbra/kerr';
-import { UsageError, type CliIO } from './command.js';
+import { UsageError } from './command.js';
 
+/** The option config of node:util parseArgs. */
 export type OptionsConfig = NonNullable<ParseArgsConfig['options']>;
 
 /** What parseOptions returns: `values` typed by the option config, and `positionals`. */
@@ -70,6 +73,7 @@ export function requireOption(value: string | undefined, option: string, meaning
   return value;
 }
 
+/** What parseNumber accepts. */
 export interface NumberConstraints {
   min?: number;
   max?: number;
@@ -109,36 +113,35 @@ export function parseNumberList(option: string, text: string, constraints: Numbe
 }
 
 /**
- * The hole spin a/M, |a/M| < 1. A well-formed number outside that range
- * throws the InputError of kerrHole, whose message explains the extremal limit.
+ * The hole's spin parameter a/M, |a/M| < 1. A well-formed number outside that
+ * range throws the InputError of kerrHole, whose message explains the extremal limit.
  */
-export function parseSpinRatio(option: string, text: string): number {
+export function parseHoleA(option: string, text: string): number {
   const value = parseNumber(option, text);
   kerrHole({ a: value, mass: 1 });
   return value;
 }
 
-/** Field spins penumbra knows: scalar, neutrino, photon, graviton. */
-export const FIELD_SPINS: readonly number[] = [0, 0.5, 1, 2];
-
 /**
- * A field spin (weight) s: '0', '1/2' or '0.5', '1', '2', with a sign if
- * `allowNegative`. `allowed` narrows the accepted |s|.
+ * A field spin by core's rule ('0', '1/2' or '0.5', '1', '2'); with
+ * `allowNegative`, a signed spin weight s = ±spin. Core's InputError becomes a
+ * UsageError naming the option.
  */
-export function parseFieldSpin(
-  option: string,
-  text: string,
-  { allowed = FIELD_SPINS, allowNegative = false }: { allowed?: readonly number[]; allowNegative?: boolean } = {},
-): number {
-  const fraction = /^\s*([+-]?)(\d+)\s*\/\s*2\s*$/.exec(text);
-  const value = fraction ? (fraction[1] === '-' ? -1 : 1) * (Number(fraction[2]) / 2) : Number(text.trim() === '' ? Number.NaN : text);
-  const names = allowed.map((s) => (Number.isInteger(s) ? String(s) : `${2 * s}/2`)).join(', ');
-  if (!Number.isFinite(value) || !allowed.includes(Math.abs(value)) || (!allowNegative && value < 0)) {
+export function parseFieldSpin(option: string, text: string, { allowNegative = false }: { allowNegative?: boolean } = {}): number {
+  const trimmed = text.trim();
+  const signed = allowNegative && /^[+-]/.test(trimmed);
+  const magnitude = signed ? trimmed.slice(1) : trimmed;
+  const number = magnitude === '' || magnitude.includes('/') ? Number.NaN : Number(magnitude);
+  const read = attempt(() => parseCoreFieldSpin(Number.isFinite(number) ? number : magnitude));
+  if (read.status !== 'success') {
+    const names = FIELD_SPINS.map(formatFieldSpin).join(', ');
     throw new UsageError(`${option} expects a field spin ${allowNegative ? '±' : ''}{${names}}, got '${text}'`);
   }
-  return value === 0 ? 0 : value;
+  const spin: number = read.solution;
+  return spin === 0 ? 0 : signed && trimmed.startsWith('-') ? -spin : spin;
 }
 
+/** A parsed frequency (or angle) grid. */
 export interface ParsedRange {
   start: number;
   stop: number;
@@ -169,12 +172,7 @@ export function parseRange(
   const count = parseNumber(`${option} COUNT`, parts[2], { min: 1, max: maxCount, integer: true });
   if (count === 1 && start !== stop) throw new UsageError(`${option} needs COUNT ≥ 2 when START ≠ STOP, got '${text}'`);
   if (log && !(start > 0 && stop > 0)) throw new UsageError(`${option} must be > 0 at both ends on a logarithmic grid, got '${text}'`);
-  const values = Array.from({ length: count }, (_, i) => {
-    if (i === 0) return start;
-    if (i === count - 1) return stop;
-    const t = i / (count - 1);
-    return log ? start * (stop / start) ** t : start + (stop - start) * t;
-  });
+  const values = log ? logGrid(start, stop, count) : linearGrid(start, stop, count);
   return { start, stop, count, values };
 }
 
@@ -184,39 +182,10 @@ export function parseMassUnit(option: string, text: string): MassUnit {
   throw new UsageError(`${option} expects one of ${MASS_UNITS.join(', ')}, got '${text}'`);
 }
 
-/** Write one JSON document (two-space indent) and a newline. */
-export function writeJson(io: CliIO, value: unknown): void {
-  io.stdout(JSON.stringify(value, null, 2) + '\n');
-}
-
-/** A number for people: `digits` significant figures, exponent form outside [1e-4, 1e6). */
-export function formatNumber(value: number, digits = 10): string {
-  if (value === 0 || !Number.isFinite(value)) return String(value);
-  const magnitude = Math.abs(value);
-  if (magnitude >= 1e-4 && magnitude < 1e6) return String(Number(value.toPrecision(digits)));
-  return value.toExponential(digits - 1).replace(/\.?0+e/, 'e').replace('e+', 'e');
-}
-
-/** Rows of text cells as lines with left-aligned columns, two spaces apart. */
-export function formatTable(rows: readonly (readonly string[])[], indent = '  '): string {
-  const columns = Math.max(...rows.map((row) => row.length));
-  const widths = Array.from({ length: columns }, (_, i) => Math.max(...rows.map((row) => (row[i] ?? '').length)));
-  return rows.map((row) => (indent + row.map((cell, i) => cell.padEnd(widths[i])).join('  ')).trimEnd()).join('\n') + '\n';
-}
-
-/** A mode number that may be half-integer: '3', '-1/2', '1.5'. */
+/** A mode number that may be half-integer: '3', '-1/2', '1.5'; the physics checks live in the solvers. */
 export function parseModeNumber(option: string, text: string): number {
   const fraction = /^\s*([+-]?)(\d+)\s*\/\s*2\s*$/.exec(text);
-  if (fraction) return (fraction[1] === '-' ? -1 : 1) * (Number(fraction[2]) / 2);
-  const value = parseNumber(option, text);
+  const value = fraction ? (fraction[1] === '-' ? -1 : 1) * (Number(fraction[2]) / 2) : parseNumber(option, text);
   if (!Number.isInteger(2 * value)) throw new UsageError(`${option} expects an integer or half-integer, got '${text}'`);
-  return value;
-}
-
-/** Progress on stderr for long loops: at most ~10 lines. */
-export function progressReporter(io: CliIO, label: string, total: number): (done: number) => void {
-  const every = Math.max(1, Math.ceil(total / 10));
-  return (done) => {
-    if (total > 4 && (done % every === 0 || done === total)) io.stderr(`${label}: ${done}/${total}\n`);
-  };
+  return value === 0 ? 0 : value;
 }

@@ -23,8 +23,14 @@ describe('penumbra greybody', () => {
     expect(j).toHaveLength(3);
     expect(j.map((x: { omega: number }) => x.omega)).toEqual([0.1, 0.1 + (0.5 - 0.1) / 2, 0.5]);
     const csv = (await run('greybody', '--spin', '0', '--l', '0', '--m', '0', '--a', '0', '--omega', '0.1:0.5:3', '--csv')).stdout.trim().split('\n');
-    expect(csv[0]).toContain('omega [1/M]');
+    expect(csv[0]).toBe('spin [1],l [1],m [1],a [M],omega [1/M],gamma [1],reflection [1],residual [1],relError [1],k [1/M],superradiant,matchRadius [M],rhsEvaluations');
     expect(csv).toHaveLength(4);
+    // Every CSV column is a JSON key (matchRadius and rhsEvaluations of the diagnostics) with the same value.
+    csv[0].split(',').forEach((header, i) => {
+      const name = header.replace(/ \[.*\]$/, '');
+      const value = name in j[1] ? j[1][name] : j[1].diagnostics[name];
+      expect(csv[2].split(',')[i]).toBe(String(value));
+    });
   });
   test('refuses l < s with one readable line and exit code 2', async () => {
     const r = await run('greybody', '--spin', '2', '--l', '1', '--m', '0', '--a', '0.5', '--omega', '0.3');
@@ -39,6 +45,14 @@ describe('penumbra greybody', () => {
 });
 
 describe('penumbra cross-section', () => {
+  test('CSV headers are the keys of the JSON rows, with units', async () => {
+    const args = ['cross-section', '--spin', '0', '--a', '0', '--omega', '0.5', '--tol', '1e-4'];
+    const json = JSON.parse((await run(...args, '--json')).stdout);
+    const csv = (await run(...args, '--csv')).stdout.trim().split('\n');
+    expect(csv[0]).toBe('omega [1/M],sigma [M^2],lMax [1],droppedBound [M^2],relError [1],modes');
+    expect(csv[1]).toBe(['omega', 'sigma', 'lMax', 'droppedBound', 'relError', 'modes'].map((k) => String(json[0][k])).join(','));
+  });
+
   test('s = 0 at a = 0 and Mω = 2 is within 5 % of the capture cross-section 27πM² (Misner, Thorne & Wheeler 1973)', async () => {
     const j = JSON.parse((await run('cross-section', '--spin', '0', '--a', '0', '--omega', '2', '--json')).stdout);
     expect(Math.abs(j[0].sigma / (27 * Math.PI) - 1)).toBeLessThan(0.05);

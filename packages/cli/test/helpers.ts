@@ -1,4 +1,4 @@
-import { main, type CliIO } from '@penumbra/cli';
+import { commands, main, type CliIO, type CommandEntry } from '@penumbra/cli';
 
 export interface RunResult {
   code: number;
@@ -8,6 +8,11 @@ export interface RunResult {
 
 /** Runs `penumbra ...argv` in-process and captures its output. */
 export async function run(...argv: string[]): Promise<RunResult> {
+  return runWith(commands, ...argv);
+}
+
+/** Runs `penumbra ...argv` in-process with the given command registry. */
+export async function runWith(registry: readonly CommandEntry[], ...argv: string[]): Promise<RunResult> {
   let stdout = '';
   let stderr = '';
   const io: CliIO = {
@@ -18,6 +23,6 @@ export async function run(...argv: string[]): Promise<RunResult> {
       stderr += text;
     },
   };
-  const code = await main(argv, io);
+  const code = await main(argv, io, registry);
   return { code, stdout, stderr };
 }

@@ -47,7 +47,7 @@ describe('penumbra kerr', () => {
     }
   });
 
-  test('a negative spin is read as a value (--a -0.9 gives Ω_H < 0 and the same r+ as a = 0.9)', async () => {
+  test('a negative a is read as a value (--a -0.9 gives Ω_H < 0 and the same r+ as a = 0.9)', async () => {
     const negative = JSON.parse((await run('kerr', '--a', '-0.9', '--json')).stdout) as Record<string, number>;
     const positive = JSON.parse((await run('kerr', '--a=0.9', '--json')).stdout) as Record<string, number>;
     expect(negative.rPlus).toBe(positive.rPlus);

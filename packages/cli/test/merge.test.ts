@@ -8,7 +8,7 @@ import { run } from './helpers.js';
 // 1 field spin × 2 holes × 4 frequencies = 8 points in 4 chunks; modes in the automatic l range and cross-sections.
 const GRID = {
   fieldSpins: [1],
-  holeSpins: [0, 0.8],
+  holeA: [0, 0.8],
   frequencies: { values: [0.05, 0.2, 0.5, 0.8] },
   tolerance: 1e-6,
   quantities: ['gamma', 'crossSection'],
@@ -62,7 +62,7 @@ describe('penumbra table --shard and penumbra merge', () => {
     expect(missing.stderr).toMatch(/^penumbra: cannot merge: incomplete: chunks? [\d, ]+ of 4 are in none of the directories[^\n]*\n$/);
     const other = join(work, 'other');
     cpSync(join(work, 'part1'), other, { recursive: true });
-    writeGridFile(other, { format: 'penumbra-grid/1', grid: { ...GRID, tolerance: 1e-7 } });
+    writeGridFile(other, { format: 'penumbra-grid/2', grid: { ...GRID, tolerance: 1e-7 } });
     const different = await run('merge', join(work, 'part1'), other, '--out', join(work, 'mixed'));
     expect(different.code).toBe(2);
     expect(different.stderr).toMatch(/holds a different grid/);

@@ -1,19 +1,22 @@
 import { describe, expect, test } from 'vitest';
 import fc from 'fast-check';
-import { InputError } from '@penumbra/kerr';
+import { InputError, linearGrid, logGrid } from '@penumbra/core';
+import { UsageError } from '@penumbra/cli';
 import {
+  formatError,
   formatNumber,
   formatTable,
+  outputFormat,
   parseFieldSpin,
+  parseHoleA,
   parseMassUnit,
+  parseModeNumber,
   parseNumber,
   parseNumberList,
   parseOptions,
   parseRange,
-  parseSpinRatio,
   requireOption,
-  UsageError,
-} from '@penumbra/cli';
+} from '@penumbra/cli/internal';
 
 describe('CLI parsing helpers', () => {
   test('parseOptions is strict and reads negative numbers after string options as values', () => {
@@ -37,21 +40,43 @@ describe('CLI parsing helpers', () => {
     expect(() => parseNumberList('--l', '0,,2')).toThrow(UsageError);
   });
 
-  test('parseSpinRatio refuses |a/M| ≥ 1 with the InputError of kerrHole', () => {
-    expect(parseSpinRatio('--a', '-0.99')).toBe(-0.99);
-    expect(() => parseSpinRatio('--a', '1')).toThrow(InputError);
-    expect(() => parseSpinRatio('--a', 'x')).toThrow(UsageError);
+  test("parseHoleA refuses |a/M| ≥ 1 with the InputError of kerrHole", () => {
+    expect(parseHoleA('--a', '-0.99')).toBe(-0.99);
+    expect(() => parseHoleA('--a', '1')).toThrow(InputError);
+    expect(() => parseHoleA('--a', 'x')).toThrow(UsageError);
   });
 
-  test('parseFieldSpin reads 0, 1/2 (or 0.5), 1, 2 and signs only when allowed', () => {
+  test("parseFieldSpin reads core's field spins 0, 1/2 (or 0.5), 1, 2 (also as 1.0 or 1 / 2) and signs only when allowed; core's InputError becomes a UsageError naming the option", () => {
     expect(parseFieldSpin('--s', '1/2')).toBe(0.5);
+    expect(parseFieldSpin('--s', ' 1 / 2 ')).toBe(0.5);
     expect(parseFieldSpin('--s', '0.5')).toBe(0.5);
     expect(parseFieldSpin('--s', '2')).toBe(2);
+    expect(parseFieldSpin('--s', '1.0')).toBe(1);
     expect(parseFieldSpin('--s', '-1/2', { allowNegative: true })).toBe(-0.5);
-    expect(parseFieldSpin('--s', '-0', { allowNegative: true })).toBe(0);
-    expect(() => parseFieldSpin('--s', '-1')).toThrow('--s expects a field spin {0, 1/2, 1, 2}');
-    expect(() => parseFieldSpin('--s', '3/2')).toThrow(UsageError);
-    expect(() => parseFieldSpin('--s', '2', { allowed: [0, 1] })).toThrow('{0, 1}');
+    expect(parseFieldSpin('--s', '+2', { allowNegative: true })).toBe(2);
+    expect(Object.is(parseFieldSpin('--s', '-0', { allowNegative: true }), 0)).toBe(true);
+    expect(() => parseFieldSpin('--s', '-1')).toThrow("--s expects a field spin {0, 1/2, 1, 2}, got '-1'");
+    expect(() => parseFieldSpin('--s', '3/2', { allowNegative: true })).toThrow("--s expects a field spin ±{0, 1/2, 1, 2}, got '3/2'");
+    for (const bad of ['', 'x', '3', '1/3', '--1']) expect(() => parseFieldSpin('--s', bad, { allowNegative: true })).toThrow(UsageError);
+  });
+
+  test('parseModeNumber reads integers and half-integers (3/2, -1/2, 1.5) and refuses quarters', () => {
+    expect(parseModeNumber('--m', '-1/2')).toBe(-0.5);
+    expect(parseModeNumber('--l', '1.5')).toBe(1.5);
+    expect(Object.is(parseModeNumber('--m', '-0'), 0)).toBe(true);
+    expect(() => parseModeNumber('--m', '0.25')).toThrow('--m expects an integer or half-integer');
+  });
+
+  test('outputFormat: text by default, --json or --csv, and both at once refused with one UsageError line', () => {
+    expect(outputFormat({})).toBe('text');
+    expect(outputFormat({ json: true })).toBe('json');
+    expect(outputFormat({ csv: true, json: false })).toBe('csv');
+    expect(() => outputFormat({ json: true, csv: true })).toThrow(new UsageError('choose one of --json and --csv'));
+  });
+
+  test("parseRange grids are core's linearGrid and logGrid, bit for bit", () => {
+    expect(parseRange('--w', '0.1:0.7:7').values).toEqual(linearGrid(0.1, 0.7, 7));
+    expect(parseRange('--w', '0.01:2:40', { log: true }).values).toEqual(logGrid(0.01, 2, 40));
   });
 
   test('parseRange reads START:STOP:COUNT with both endpoints exact, or a single value', () => {
@@ -87,14 +112,15 @@ describe('CLI parsing helpers', () => {
     );
   });
 
-  test('parseMassUnit, requireOption, formatNumber and formatTable', () => {
+  test('parseMassUnit, requireOption, formatNumber, formatError and formatTable', () => {
     expect(parseMassUnit('--unit', 'msun')).toBe('msun');
     expect(() => parseMassUnit('--unit', 'lb')).toThrow(UsageError);
-    expect(() => requireOption(undefined, '--a', 'the spin a/M')).toThrow('missing --a (the spin a/M)');
+    expect(() => requireOption(undefined, '--a', "the hole's a/M")).toThrow("missing --a (the hole's a/M)");
     expect(formatNumber(1.4358898943540672)).toBe('1.435889894');
     expect(formatNumber(1e15)).toBe('1e15');
     expect(formatNumber(6.419008487e-3, 4)).toBe('0.006419');
     expect(formatNumber(2.4771004309650325e-24, 4)).toBe('2.477e-24');
+    expect(formatError(3.24e-9)).toBe('3.2e-9');
     expect(formatTable([['a', 'bb'], ['ccc', 'd', 'e']])).toBe('  a    bb\n  ccc  d   e\n');
   });
 });

@@ -8,7 +8,7 @@ import { run } from './helpers.js';
 // Γ(ω) of s = 0, l ≤ 1 at a = 0.9 over two decades, plus σ(ω): 5 points.
 const GRID = {
   fieldSpins: [0],
-  holeSpins: [0.9],
+  holeA: [0.9],
   frequencies: { spacing: 'log', from: 0.02, to: 2, count: 5 },
   l: { max: 1 },
   tolerance: 1e-6,

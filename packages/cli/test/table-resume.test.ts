@@ -9,7 +9,7 @@ import { run } from './helpers.js';
 // 8 points of 8 modes (s = 1, l ≤ 2), one point per chunk: long enough to kill part-way.
 const GRID = {
   fieldSpins: [1],
-  holeSpins: [0.5, 0.9],
+  holeA: [0.5, 0.9],
   frequencies: { spacing: 'linear', from: 0.1, to: 1.3, count: 4 },
   l: { max: 2 },
   tolerance: 1e-6,

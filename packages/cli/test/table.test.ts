@@ -9,7 +9,7 @@ import { run } from './helpers.js';
 // 2 field spins × 2 holes × 3 frequencies = 12 points; l ≤ 1: (4 + 3) × 6 = 42 modes at tol 1e-6.
 const GRID = {
   fieldSpins: [0, 1],
-  holeSpins: [0, 0.6],
+  holeA: [0, 0.6],
   frequencies: { spacing: 'log', from: 0.1, to: 0.9, count: 3 },
   l: { max: 1 },
   tolerance: 1e-6,
@@ -51,13 +51,13 @@ describe('penumbra table', () => {
     const json = JSON.parse(readFileSync(join(dir, 'table.json'), 'utf8'));
     const table = json.tables.modes;
     const header = records[0];
-    expect(header).toEqual(table.columns.map((c: { key: string; unit: string }) => (c.unit ? `${c.key} [${c.unit}]` : c.key)));
-    expect(header.slice(0, 3)).toEqual(['s [1]', 'a [M]', 'omega [1/M]']);
+    expect(header).toEqual(table.columns.map((c: { name: string; unit: string }) => (c.unit ? `${c.name} [${c.unit}]` : c.name)));
+    expect(header.slice(0, 3)).toEqual(['spin [1]', 'a [M]', 'omega [1/M]']);
     expect(records.length - 1).toBe(table.rows.length);
     table.rows.forEach((row: Record<string, unknown>, i: number) => {
-      table.columns.forEach((c: { key: string }, j: number) => {
+      table.columns.forEach((c: { name: string }, j: number) => {
         const cell = records[i + 1][j];
-        const value = row[c.key];
+        const value = row[c.name];
         if (value === null) expect(cell).toBe('');
         else if (typeof value === 'number') expect(Number(cell)).toBe(value);
         else expect(cell).toBe(value);

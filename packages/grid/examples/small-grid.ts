@@ -6,7 +6,7 @@ import { runGrid, validateGrid } from '@penumbra/grid';
 // Scalar absorption cross-section of a Schwarzschild hole at three frequencies.
 const grid = validateGrid({
   fieldSpins: [0],
-  holeSpins: [0],
+  holeA: [0],
   frequencies: { values: [0.001, 0.3, 1.5] },
   tolerance: 1e-6,
   quantities: ['crossSection'],

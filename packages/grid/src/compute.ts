@@ -1,20 +1,24 @@
 /**
- * One grid point (s, a, ω): every requested quantity, each failure caught and
- * kept as a failed row with its diagnostics so that the other rows go on.
- * Runs inside the pool workers; pure apart from the solvers it calls.
+ * One grid point (spin, a, ω): every requested quantity. A solve that does
+ * not converge or refuses its input is a row with that status (core's
+ * `attempt` statuses) and the solver's message, so that the other rows go
+ * on; any other error is a bug and stops the run. Runs inside the pool
+ * workers; pure apart from the solvers it calls.
  */
-import type { FieldSpin } from '@penumbra/core';
-import { absorptionCrossSection, greybody, type GreybodySolution } from '@penumbra/flux';
+import { attempt, type Attempt, type FieldSpin } from '@penumbra/core';
+import { absorptionCrossSection, tryGreybody, type GreybodySolution } from '@penumbra/flux';
 import { emissionSpectrum } from '@penumbra/emission';
 import { clearSpheroidalCache } from '@penumbra/spheroidal';
 import type { LRange, Quantity } from './grid.js';
-import type { Row, TableName } from './schema.js';
+import type { Row, RowStatus, TableName } from './schema.js';
 import { explicitModes } from './tasks.js';
 
 /** What a worker receives: the point and the grid settings, nothing bulky. */
 export interface TaskMessage {
   index: number;
+  /** field spin of the point (0, 1/2, 1, 2) */
   s: number;
+  /** the hole's a/M */
   a: number;
   omega: number;
   l: LRange;
@@ -22,66 +26,50 @@ export interface TaskMessage {
   quantities: Quantity[];
 }
 
+/** The rows one grid point adds to each table. */
 export interface TaskResult {
   index: number;
   rows: Partial<Record<TableName, Row[]>>;
 }
 
+/** Why a row holds no numbers. */
 interface Failure {
-  failure: string;
-  diagnostics?: Record<string, unknown>;
+  status: Exclude<RowStatus, 'success'>;
+  message: string;
 }
 
-function describeFailure(error: unknown): Failure {
-  if (error instanceof Error) {
-    const diagnostics = (error as { diagnostics?: unknown }).diagnostics;
-    const out: Failure = { failure: `${error.name}: ${error.message}` };
-    if (typeof diagnostics === 'object' && diagnostics !== null) out.diagnostics = diagnostics as Record<string, unknown>;
-    return out;
-  }
-  return { failure: String(error) };
-}
+/** A solve's outcome as a row needs it: the solution, or the status and message of its failure. */
+type Checked<S> = { status: 'success'; solution: S } | Failure;
 
 const finite = (x: number) => Number.isFinite(x);
+const succeeded = <S>(solution: S): Attempt<S> => ({ status: 'success', solution, message: 'converged' });
 
-function modeRow(task: TaskMessage, l: number, m: number, r: GreybodySolution, reflection: boolean): Row {
-  const row: Row = { s: task.s, a: task.a, omega: task.omega, l, m, status: 'ok', gamma: r.gamma, relError: r.relError };
-  if (reflection) {
-    row.reflection = r.reflection;
-    row.residual = r.residual;
-  }
-  row.steps = r.diagnostics.steps;
-  row.rhsEvaluations = r.diagnostics.rhsEvaluations;
-  row.failure = null;
-  return row;
+/** A solution is a number only if every number in it is finite; otherwise the solve did not converge. */
+function checked<S>(outcome: Attempt<S>, numbers: (solution: S) => number[], what: string): Checked<S> {
+  if (outcome.status !== 'success') return { status: outcome.status, message: outcome.message };
+  const values = numbers(outcome.solution);
+  if (values.every(finite)) return { status: 'success', solution: outcome.solution };
+  return { status: 'not-converged', message: `non-finite ${what} (${values.join(', ')})` };
 }
 
-function failedModeRow(task: TaskMessage, l: number, m: number, reflection: boolean, f: Failure): Row {
-  const row: Row = { s: task.s, a: task.a, omega: task.omega, l, m, status: 'failed', gamma: null, relError: null };
-  if (reflection) {
-    row.reflection = null;
-    row.residual = null;
-  }
-  row.steps = null;
-  row.rhsEvaluations = null;
-  row.failure = f.failure;
-  return row;
-}
+const modeNumbers = (reflection: boolean) => (r: GreybodySolution) => [r.gamma, r.relError, ...(reflection ? [r.reflection, r.residual] : [])];
 
-/** A result is a number only if every number in it is finite. */
-function checkedMode(r: GreybodySolution, reflection: boolean): GreybodySolution {
-  const values = [r.gamma, r.relError, ...(reflection ? [r.reflection, r.residual] : [])];
-  if (!values.every(finite)) throw new Error(`non-finite result (gamma ${r.gamma}, relError ${r.relError}, reflection ${r.reflection})`);
-  return r;
+function modeRow(task: TaskMessage, l: number, m: number, outcome: Checked<GreybodySolution>, reflection: boolean): Row {
+  const point = { spin: task.s, a: task.a, omega: task.omega, l, m };
+  if (outcome.status !== 'success') {
+    const row: Row = { ...point, status: outcome.status, gamma: null, relError: null };
+    if (reflection) Object.assign(row, { reflection: null, residual: null });
+    return Object.assign(row, { steps: null, rhsEvaluations: null, message: outcome.message });
+  }
+  const r = outcome.solution;
+  const row: Row = { ...point, status: 'success', gamma: r.gamma, relError: r.relError };
+  if (reflection) Object.assign(row, { reflection: r.reflection, residual: r.residual });
+  return Object.assign(row, { steps: r.diagnostics.steps, rhsEvaluations: r.diagnostics.rhsEvaluations, message: null });
 }
 
 function solveMode(task: TaskMessage, l: number, m: number, reflection: boolean): Row {
-  try {
-    const r = greybody({ hole: { a: task.a }, mode: { field: { spin: task.s as FieldSpin }, l, m }, omega: task.omega }, { tol: task.tolerance, reflection });
-    return modeRow(task, l, m, checkedMode(r, reflection), reflection);
-  } catch (error) {
-    return failedModeRow(task, l, m, reflection, describeFailure(error));
-  }
+  const problem = { hole: { a: task.a }, mode: { field: { spin: task.s as FieldSpin }, l, m }, omega: task.omega };
+  return modeRow(task, l, m, checked(tryGreybody(problem, { tol: task.tolerance, reflection }), modeNumbers(reflection), 'greybody result'), reflection);
 }
 
 /** m values of shell l, from −l to l. */
@@ -89,6 +77,14 @@ function shellMs(l: number): number[] {
   return Array.from({ length: 2 * l + 1 }, (_, i) => i - l);
 }
 
+/** The (l, m) a ConvergenceError's diagnostics name, if any: the mode the l-sum stopped at. */
+function failedModeOf(outcome: Attempt<unknown>): { l: number; m: number } | undefined {
+  if (outcome.status !== 'not-converged') return undefined;
+  const d = outcome.error.diagnostics as unknown as Record<string, unknown>;
+  return d && typeof d.l === 'number' && typeof d.m === 'number' ? { l: d.l, m: d.m } : undefined;
+}
+
+/** Every requested quantity of one grid point, each table's rows in order. */
 export function computeTask(task: TaskMessage): TaskResult {
   // The eigenvalue solver warm-starts from the last point it solved; which point
   // that was depends on how tasks were spread over workers, and the warm start
@@ -99,7 +95,7 @@ export function computeTask(task: TaskMessage): TaskResult {
   const perMode = q.includes('gamma') || q.includes('reflection');
   const reflection = q.includes('reflection');
   const rows: TaskResult['rows'] = {};
-  const point = { s: task.s, a: task.a, omega: task.omega };
+  const point = { spin: task.s, a: task.a, omega: task.omega };
 
   if (perMode && task.l !== 'auto') {
     rows.modes = explicitModes(task.s, task.l).map(({ l, m }) => solveMode(task, l, m, reflection));
@@ -108,22 +104,19 @@ export function computeTask(task: TaskMessage): TaskResult {
   if (q.includes('crossSection') || (perMode && task.l === 'auto')) {
     // The automatic l range of the mode table is the one the cross-section sum reaches.
     const solved: GreybodySolution[] = [];
-    let crossRow: Row;
-    let failedMode: { l: number; m: number; failure: Failure } | undefined;
-    try {
-      const cs = absorptionCrossSection({ hole: { a: task.a }, field: { spin: task.s as FieldSpin }, omega: task.omega }, {
+    const outcome = attempt(() =>
+      absorptionCrossSection({ hole: { a: task.a }, field: { spin: task.s as FieldSpin }, omega: task.omega }, {
         tol: task.tolerance,
         onMode: (r) => void solved.push(r),
-      });
-      const { droppedBound, lMax, modes } = cs.diagnostics;
-      if (![cs.sigma, cs.relError, droppedBound].every(finite)) throw new Error(`non-finite cross-section ${cs.sigma}`);
-      crossRow = { ...point, status: 'ok', sigma: cs.sigma, relError: cs.relError, droppedBound, lMax, modes, failure: null };
-    } catch (error) {
-      const f = describeFailure(error);
-      crossRow = { ...point, status: 'failed', sigma: null, relError: null, droppedBound: null, lMax: null, modes: solved.length, failure: f.failure };
-      const d = f.diagnostics;
-      if (d && typeof d.l === 'number' && typeof d.m === 'number') failedMode = { l: d.l, m: d.m, failure: f };
-    }
+      }),
+    );
+    const cs = checked(outcome, (c) => [c.sigma, c.relError, c.diagnostics.droppedBound], 'cross-section');
+    const crossRow: Row = cs.status !== 'success'
+      ? { ...point, status: cs.status, sigma: null, relError: null, droppedBound: null, lMax: null, modes: solved.length, message: cs.message }
+      : {
+          ...point, status: 'success', sigma: cs.solution.sigma, relError: cs.solution.relError, droppedBound: cs.solution.diagnostics.droppedBound,
+          lMax: cs.solution.diagnostics.lMax, modes: cs.solution.diagnostics.modes, message: null,
+        };
     if (q.includes('crossSection')) rows.crossSection = [crossRow];
     if (perMode && task.l === 'auto') {
       const modeRows: Row[] = [];
@@ -133,37 +126,34 @@ export function computeTask(task: TaskMessage): TaskResult {
         const ms = task.a === 0 ? shellMs(l) : [mode];
         for (const m of ms) {
           if (reflection) modeRows.push(solveMode(task, l, m, true));
-          else {
-            try {
-              modeRows.push(modeRow(task, l, m, checkedMode(r, false), false));
-            } catch (error) {
-              modeRows.push(failedModeRow(task, l, m, false, describeFailure(error)));
-            }
-          }
+          else modeRows.push(modeRow(task, l, m, checked(succeeded(r), modeNumbers(false), 'greybody result'), false));
         }
       }
-      if (failedMode) {
+      const failedMode = failedModeOf(outcome);
+      if (failedMode && cs.status !== 'success') {
         const ms = task.a === 0 ? shellMs(failedMode.l) : [failedMode.m];
-        for (const m of ms) modeRows.push(failedModeRow(task, failedMode.l, m, reflection, failedMode.failure));
+        for (const m of ms) modeRows.push(modeRow(task, failedMode.l, m, cs, reflection));
       }
       rows.modes = modeRows;
     }
   }
 
   if (q.includes('spectra')) {
-    try {
+    const outcome = attempt(() => {
       const spectrum = emissionSpectrum({ hole: { a: task.a }, field: { spin: task.s as FieldSpin }, grid: [task.omega] }, { tol: task.tolerance });
-      const p = spectrum.points[0];
-      if (![p.number, p.energy, p.torque, p.relError, p.droppedBound].every(finite)) throw new Error(`non-finite spectrum ${p.number}`);
+      return spectrum.points[0];
+    });
+    const checkedPoint = checked(outcome, (x) => [x.number, x.energy, x.torque, x.relError, x.droppedBound], 'spectrum');
+    if (checkedPoint.status !== 'success') {
       rows.spectra = [{
-        ...point, status: 'ok', number: p.number, energy: p.energy, torque: p.torque, relError: p.relError,
-        droppedBound: p.droppedBound, lMax: p.lMax, modes: p.modes, failure: null,
+        ...point, status: checkedPoint.status, number: null, energy: null, torque: null, relError: null,
+        droppedBound: null, lMax: null, modes: null, message: checkedPoint.message,
       }];
-    } catch (error) {
-      const f = describeFailure(error);
+    } else {
+      const p = checkedPoint.solution;
       rows.spectra = [{
-        ...point, status: 'failed', number: null, energy: null, torque: null, relError: null,
-        droppedBound: null, lMax: null, modes: null, failure: f.failure,
+        ...point, status: 'success', number: p.number, energy: p.energy, torque: p.torque, relError: p.relError,
+        droppedBound: p.droppedBound, lMax: p.lMax, modes: p.modes, message: null,
       }];
     }
   }

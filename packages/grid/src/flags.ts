@@ -3,6 +3,7 @@
  * passed through as text so that validateGrid reports them together with
  * every other problem.
  */
+/** The grid options of `penumbra table`, as given on the command line. */
 export interface GridFlags {
   spins?: string;
   a?: string;
@@ -33,7 +34,7 @@ export function hasGridFlags(flags: GridFlags): boolean {
 export function gridFromFlags(flags: GridFlags): Record<string, unknown> {
   const raw: Record<string, unknown> = {};
   if (flags.spins !== undefined) raw.fieldSpins = list(flags.spins).map((s) => (/^1\s*\/\s*2$/.test(s) ? s : number(s)));
-  if (flags.a !== undefined) raw.holeSpins = list(flags.a).map(number);
+  if (flags.a !== undefined) raw.holeA = list(flags.a).map(number);
   if (flags.omega !== undefined) {
     const parts = flags.omega.split(':');
     if (parts.length === 3) {

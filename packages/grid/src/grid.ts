@@ -5,43 +5,51 @@
  * All quantities are in geometric units of the hole mass (G = c = ħ = 1,
  * M = 1): a in units of M, ω in units of 1/M.
  */
-import { createHash } from 'node:crypto';
-import { MAX_SOLVER_A_RATIO as MAX_SPIN } from '@penumbra/core';
+import { sha256 } from '@noble/hashes/sha2.js';
+import { bytesToHex, utf8ToBytes } from '@noble/hashes/utils.js';
+import { attempt, MAX_SOLVER_A_RATIO, parseFieldSpin, type FieldSpin, type FrequencyGrid } from '@penumbra/core';
 import { MOMEGA_RANGE } from '@penumbra/flux';
 
 const MIN_MOMEGA = MOMEGA_RANGE.min;
 const MAX_MOMEGA = MOMEGA_RANGE.max;
 
+/** The quantities a grid can compute, in table order. */
 export const QUANTITIES = ['gamma', 'reflection', 'crossSection', 'spectra'] as const;
+/** One of `QUANTITIES`. */
 export type Quantity = (typeof QUANTITIES)[number];
-export const FIELD_SPINS: readonly number[] = [0, 0.5, 1, 2];
 
-export type FrequencySpec =
-  | { spacing: 'linear' | 'log'; from: number; to: number; count: number }
-  | { values: number[] };
-
+/** The modes of a grid: an explicit l range, or 'auto' (the l-shells the cross-section sum needs). */
 export type LRange = { min: number; max: number } | 'auto';
 
 /** A validated grid with every default filled in; its canonical JSON is the grid's identity. */
 export interface GridSpec {
-  fieldSpins: number[];
-  holeSpins: number[];
-  frequencies: FrequencySpec;
+  /** field spins, each 0, 1/2, 1 or 2 */
+  fieldSpins: FieldSpin[];
+  /** the hole's spin parameter a/M of each hole (M = 1) */
+  holeA: number[];
+  frequencies: FrequencyGrid;
   l: LRange;
   tolerance: number;
   quantities: Quantity[];
   chunkSize: number;
 }
 
+/** Relative accuracy of a grid that names none. */
 export const DEFAULT_TOLERANCE = 1e-6;
+/** Grid points per chunk file of a grid that names none. */
 export const DEFAULT_CHUNK_SIZE = 16;
 /** Explicit l ranges stop here; beyond it one grid point would cost thousands of solves. */
-export const MAX_L = 40;
+export const MAX_GRID_L = 40;
+/** Largest number of (spin, a, ω) points of one grid. */
 export const MAX_TASKS = 1_000_000;
+/** Largest frequency count of one grid. */
+const MAX_FREQUENCIES = 100_000;
 /** The emission sums accept 1e-10 … 1e-2, the single-mode solver 1e-12 … 1e-2. */
 const TOL_RANGE = { spectra: [1e-10, 1e-2], other: [1e-12, 1e-2] } as const;
 
-const KNOWN_KEYS = ['fieldSpins', 'holeSpins', 'frequencies', 'l', 'tolerance', 'quantities', 'chunkSize'];
+const KNOWN_KEYS = ['fieldSpins', 'holeA', 'frequencies', 'l', 'tolerance', 'quantities', 'chunkSize'];
+/** The key `holeA` had before it was renamed; still read, never written. */
+const OLD_HOLE_KEY = 'holeSpins';
 
 /** A grid that cannot be run; `problems` lists every problem found, each as one phrase. */
 export class GridError extends Error {
@@ -70,18 +78,12 @@ const show = (value: unknown): string => {
 const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 const isFiniteNumber = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
 
-/** '1/2' and 0.5 name the same field spin. */
-function readFieldSpin(v: unknown): number | undefined {
-  if (typeof v === 'string' && /^\s*1\s*\/\s*2\s*$/.test(v)) return 0.5;
-  return typeof v === 'number' && FIELD_SPINS.includes(v) ? v : undefined;
-}
-
-function checkList(problems: string[], key: string, raw: unknown, read: (item: unknown, at: string) => number | undefined): number[] {
+function checkList<T extends number>(problems: string[], key: string, raw: unknown, read: (item: unknown, at: string) => T | undefined): T[] {
   if (!Array.isArray(raw) || raw.length === 0) {
     problems.push(`${key}: expected a non-empty list, got ${show(raw)}`);
     return [];
   }
-  const out: number[] = [];
+  const out: T[] = [];
   raw.forEach((item, i) => {
     const value = read(item, `${key}[${i}]`);
     if (value === undefined) return;
@@ -89,18 +91,6 @@ function checkList(problems: string[], key: string, raw: unknown, read: (item: u
     else out.push(value);
   });
   return out;
-}
-
-/** The frequencies of a spec, endpoints exact, log spacing geometric. */
-export function frequencyValues(spec: FrequencySpec): number[] {
-  if ('values' in spec) return [...spec.values];
-  const { spacing, from, to, count } = spec;
-  return Array.from({ length: count }, (_, i) => {
-    if (i === 0) return from;
-    if (i === count - 1) return to;
-    const t = i / (count - 1);
-    return spacing === 'log' ? from * (to / from) ** t : from + (to - from) * t;
-  });
 }
 
 function checkOmega(problems: string[], at: string, w: unknown): w is number {
@@ -115,7 +105,7 @@ function checkOmega(problems: string[], at: string, w: unknown): w is number {
   return true;
 }
 
-function checkFrequencies(problems: string[], raw: unknown): FrequencySpec | undefined {
+function checkFrequencies(problems: string[], raw: unknown): FrequencyGrid | undefined {
   const allowed = `{"spacing": "linear"|"log", "from", "to", "count"} or {"values": [...]}`;
   if (!isObject(raw)) {
     problems.push(`frequencies: expected ${allowed}, got ${show(raw)}`);
@@ -153,8 +143,8 @@ function checkFrequencies(problems: string[], raw: unknown): FrequencySpec | und
   }
   if (!checkOmega(problems, 'frequencies.from', from)) ok = false;
   if (!checkOmega(problems, 'frequencies.to', to)) ok = false;
-  if (!(isFiniteNumber(count) && Number.isInteger(count) && count >= 1 && count <= 100_000)) {
-    problems.push(`frequencies.count: expected an integer from 1 to 100000, got ${show(count)}`);
+  if (!(isFiniteNumber(count) && Number.isInteger(count) && count >= 1 && count <= MAX_FREQUENCIES)) {
+    problems.push(`frequencies.count: expected an integer from 1 to ${MAX_FREQUENCIES}, got ${show(count)}`);
     ok = false;
   }
   if (!ok) return undefined;
@@ -170,7 +160,7 @@ function checkFrequencies(problems: string[], raw: unknown): FrequencySpec | und
   return { spacing: spacing as 'linear' | 'log', from: f, to: t, count: n };
 }
 
-function checkL(problems: string[], raw: unknown, spins: number[], quantities: Quantity[]): LRange | undefined {
+function checkL(problems: string[], raw: unknown, spins: readonly number[], quantities: Quantity[]): LRange | undefined {
   const perMode = quantities.includes('gamma') || quantities.includes('reflection');
   if (raw === undefined || raw === 'auto') return 'auto';
   if (!isObject(raw)) {
@@ -182,8 +172,8 @@ function checkL(problems: string[], raw: unknown, spins: number[], quantities: Q
   const max = raw.max;
   const min = raw.min ?? 0;
   let ok = true;
-  if (!isHalfInteger(max) || max > MAX_L) {
-    problems.push(`l.max: expected an integer or half-integer from 0 to ${MAX_L}, got ${show(max)}`);
+  if (!isHalfInteger(max) || max > MAX_GRID_L) {
+    problems.push(`l.max: expected an integer or half-integer from 0 to ${MAX_GRID_L}, got ${show(max)}`);
     ok = false;
   }
   if (!isHalfInteger(min)) {
@@ -199,16 +189,16 @@ function checkL(problems: string[], raw: unknown, spins: number[], quantities: Q
   if (!perMode && quantities.length > 0) {
     problems.push(`l: an explicit l range applies to gamma and reflection only; crossSection and spectra truncate their l-sums themselves (use "auto" or leave l out)`);
   }
-  for (const s of spins) {
-    if (modeLs(s, range).length === 0) problems.push(`l: the range ${range.min}…${range.max} holds no mode of field spin ${s} (l ≥ ${s}, l − s an integer)`);
+  for (const spin of spins) {
+    if (modeLs(spin, range).length === 0) problems.push(`l: the range ${range.min}…${range.max} holds no mode of field spin ${spin} (l ≥ ${spin}, l − spin an integer)`);
   }
   return range;
 }
 
-/** The l values of field spin s inside an explicit range. */
-export function modeLs(s: number, range: { min: number; max: number }): number[] {
+/** The l values of a field spin inside an explicit range (l ≥ spin, l − spin an integer). */
+export function modeLs(spin: number, range: { min: number; max: number }): number[] {
   const out: number[] = [];
-  for (let l = s; l <= range.max; l++) if (l >= range.min) out.push(l);
+  for (let l = spin; l <= range.max; l++) if (l >= range.min) out.push(l);
   return out;
 }
 
@@ -220,17 +210,20 @@ export function validateGrid(raw: unknown): GridSpec {
   const problems: string[] = [];
   if (!isObject(raw)) throw new GridError([`expected a JSON object with keys ${KNOWN_KEYS.join(', ')}, got ${show(raw)}`]);
   for (const k of Object.keys(raw)) {
-    if (!KNOWN_KEYS.includes(k)) problems.push(`unknown key '${k}' (known: ${KNOWN_KEYS.join(', ')})`);
+    if (!KNOWN_KEYS.includes(k) && k !== OLD_HOLE_KEY) problems.push(`unknown key '${k}' (known: ${KNOWN_KEYS.join(', ')})`);
   }
+  if ('holeA' in raw && OLD_HOLE_KEY in raw) problems.push(`give holeA only ('${OLD_HOLE_KEY}' is its old name)`);
   const fieldSpins = checkList(problems, 'fieldSpins', raw.fieldSpins, (item, at) => {
-    const s = readFieldSpin(item);
-    if (s === undefined) problems.push(`${at}: expected a field spin 0, 1/2 (or 0.5), 1 or 2, got ${show(item)}`);
-    return s;
+    const read = attempt(() => parseFieldSpin(item));
+    if (read.status === 'success') return read.solution;
+    problems.push(`${at}: expected a field spin 0, 1/2 (or 0.5), 1 or 2, got ${show(item)}`);
+    return undefined;
   });
-  const holeSpins = checkList(problems, 'holeSpins', raw.holeSpins, (item, at) => {
-    if (!isFiniteNumber(item) || Math.abs(item) > MAX_SPIN) {
+  const holeKey = 'holeA' in raw || !(OLD_HOLE_KEY in raw) ? 'holeA' : OLD_HOLE_KEY;
+  const holeA = checkList(problems, holeKey, raw[holeKey], (item, at) => {
+    if (!isFiniteNumber(item) || Math.abs(item) > MAX_SOLVER_A_RATIO) {
       const note = isFiniteNumber(item) ? ' (the extremal hole a = M is a limit, not an input)' : '';
-      problems.push(`${at}: expected a/M with |a/M| ≤ ${MAX_SPIN}, got ${show(item)}${note}`);
+      problems.push(`${at}: expected a/M with |a/M| ≤ ${MAX_SOLVER_A_RATIO}, got ${show(item)}${note}`);
       return undefined;
     }
     return item === 0 ? 0 : item; // −0 and 0 are one hole
@@ -263,12 +256,12 @@ export function validateGrid(raw: unknown): GridSpec {
   if (!isFiniteNumber(chunkSize) || !Number.isInteger(chunkSize) || chunkSize < 1 || chunkSize > 10_000) {
     problems.push(`chunkSize: expected an integer from 1 to 10000 (grid points per output chunk), got ${show(chunkSize)}`);
   }
-  if (frequencies && fieldSpins.length && holeSpins.length) {
-    const tasks = fieldSpins.length * holeSpins.length * frequencyValues(frequencies).length;
-    if (tasks > MAX_TASKS) problems.push(`the grid has ${tasks} (s, a, ω) points; split it into several grids of at most ${MAX_TASKS}`);
+  if (frequencies && fieldSpins.length && holeA.length) {
+    const tasks = fieldSpins.length * holeA.length * frequencyCount(frequencies);
+    if (tasks > MAX_TASKS) problems.push(`the grid has ${tasks} (spin, a, ω) points; split it into several grids of at most ${MAX_TASKS}`);
   }
   if (problems.length > 0 || !frequencies || !l) throw new GridError(problems);
-  return { fieldSpins, holeSpins, frequencies, l, tolerance: tolerance as number, quantities, chunkSize: chunkSize as number };
+  return { fieldSpins, holeA, frequencies, l, tolerance: tolerance as number, quantities, chunkSize: chunkSize as number };
 }
 
 /** Stable text of a grid: fixed key order, so equal grids give equal bytes and hashes. */
@@ -279,7 +272,7 @@ export function canonicalGridJson(grid: GridSpec): string {
   const l = grid.l === 'auto' ? 'auto' : { min: grid.l.min, max: grid.l.max };
   return JSON.stringify({
     fieldSpins: grid.fieldSpins,
-    holeSpins: grid.holeSpins,
+    holeA: grid.holeA,
     frequencies,
     l,
     tolerance: grid.tolerance,
@@ -288,6 +281,11 @@ export function canonicalGridJson(grid: GridSpec): string {
   });
 }
 
+/** The grid's identity in files and messages: the first 16 hex digits of the SHA-256 of its canonical JSON. */
 export function gridHash(grid: GridSpec): string {
-  return createHash('sha256').update(canonicalGridJson(grid)).digest('hex').slice(0, 16);
+  return bytesToHex(sha256(utf8ToBytes(canonicalGridJson(grid)))).slice(0, 16);
+}
+
+function frequencyCount(grid: FrequencyGrid): number {
+  return 'values' in grid ? grid.values.length : grid.count;
 }

@@ -6,13 +6,13 @@
 import { existsSync, readFileSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { canonicalGridJson, GridError, gridHash, type GridSpec } from './grid.js';
-import {
-  assembleTables, CHUNK_DIR, chunkFileName, GRID_FILE, initOutputDir, outputDirProblems, readChunk, readGridFile,
-  writeFileAtomic, writeTables, type TableSummary,
-} from './store.js';
+import { writeFileAtomic } from './files.js';
+import { CHUNK_DIR, chunkFileName, GRID_FILE, initOutputDir, outputDirProblems, readChunk, readGridFile } from './store.js';
+import { assembleTables, writeTables, type TableSummary } from './tables.js';
 import type { TaskResult } from './compute.js';
 import { gridChunks } from './tasks.js';
 
+/** What a merge did. */
 export interface MergeSummary {
   gridHash: string;
   sources: string[];

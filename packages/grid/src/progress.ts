@@ -1,6 +1,7 @@
 /** A one-line progress bar with an ETA, for stderr. */
 import type { Progress } from './run.js';
 
+/** A duration as 42s, 3m07s or 2h05m. */
 export function formatDuration(seconds: number): string {
   if (!Number.isFinite(seconds)) return '?';
   const s = Math.round(seconds);
@@ -10,6 +11,7 @@ export function formatDuration(seconds: number): string {
   return `${Math.floor(m / 60)}h${String(m % 60).padStart(2, '0')}m`;
 }
 
+/** One progress line: bar, percentage, points done, elapsed time and ETA. */
 export function formatProgress(p: Progress, width = 30): string {
   const filled = Math.min(width, Math.round(p.fraction * width));
   const bar = '#'.repeat(filled) + '-'.repeat(width - filled);

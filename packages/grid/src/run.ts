@@ -7,17 +7,17 @@ import { availableParallelism } from 'node:os';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { Piscina } from 'piscina';
 import { computeTask, type TaskMessage, type TaskResult } from './compute.js';
 import { GridError, gridHash, type GridSpec } from './grid.js';
-import {
-  assembleTables, initOutputDir, outputDirProblems, readChunk, writeChunk, writeFileAtomic, writeTables, type TableSummary,
-} from './store.js';
+import { writeFileAtomic } from './files.js';
+import { initOutputDir, outputDirProblems, readChunk, writeChunk } from './store.js';
+import { assembleTables, writeTables, type TableSummary } from './tables.js';
 import { gridChunks, gridTasks, shardChunks, type GridChunk, type GridTask, type ShardSpec } from './tasks.js';
 
 /** The worker is always the built file: src/ and dist/ both sit one level below the package root. */
 export const WORKER_FILE = fileURLToPath(new URL('../dist/worker.js', import.meta.url));
 
+/** Progress of a run, for `onProgress`. */
 export interface Progress {
   doneTasks: number;
   totalTasks: number;
@@ -28,6 +28,7 @@ export interface Progress {
   etaSeconds: number | undefined;
 }
 
+/** What `runGrid` runs and where it reports. */
 export interface RunOptions {
   grid: GridSpec;
   out: string;
@@ -39,6 +40,7 @@ export interface RunOptions {
   onStart?: (info: { chunks: number; skipped: number; pending: number; tasks: number }) => void;
 }
 
+/** What a run did. */
 export interface RunSummary {
   gridHash: string;
   shard: ShardSpec;
@@ -56,10 +58,12 @@ export interface RunSummary {
   seconds: number;
 }
 
+/** Worker threads by default: every core. */
 export function defaultWorkers(): number {
   return availableParallelism();
 }
 
+/** The message a worker receives for one task. */
 export function taskMessage(grid: GridSpec, task: GridTask): TaskMessage {
   return { index: task.index, s: task.s, a: task.a, omega: task.omega, l: grid.l, tolerance: grid.tolerance, quantities: grid.quantities };
 }
@@ -73,6 +77,12 @@ export function runProblems(options: Pick<RunOptions, 'grid' | 'out' | 'workers'
   return problems;
 }
 
+/**
+ * Computes the pending chunks of one shard (default the whole grid) on a
+ * worker pool, writes each chunk as it completes, and writes the tables once
+ * every chunk of the grid is in `out`. Throws GridError before writing
+ * anything if the run cannot start.
+ */
 export async function runGrid(options: RunOptions): Promise<RunSummary> {
   const { grid, out } = options;
   const shard = options.shard ?? { k: 1, n: 1 };
@@ -104,7 +114,7 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
   };
 
   const pool = workers > 0 && pending.length > 0
-    ? new Piscina<TaskMessage, TaskResult>({ filename: WORKER_FILE, minThreads: workers, maxThreads: workers, idleTimeout: 60_000 })
+    ? new (await loadPiscina())<TaskMessage, TaskResult>({ filename: WORKER_FILE, minThreads: workers, maxThreads: workers, idleTimeout: 60_000 })
     : undefined;
   const compute = (m: TaskMessage): Promise<TaskResult> => (pool ? pool.run(m) : new Promise((ok) => setImmediate(() => ok(computeTask(m)))));
   const chunkCost = (c: GridChunk) => c.cost / Math.max(1, c.end - c.first);
@@ -148,6 +158,11 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
     tasksPerSecond: seconds > 0 ? pendingTasks / seconds : null, node: process.version,
   }, null, 2) + '\n');
   return result;
+}
+
+/** The pool library, loaded only by a run that computes (not by merges, plots or a package import). */
+async function loadPiscina() {
+  return (await import('piscina')).Piscina;
 }
 
 /** Timing metadata lives apart from the tables, one file per shard. */

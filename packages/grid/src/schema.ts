@@ -1,80 +1,90 @@
 /**
- * The tables a grid run writes and their columns. A row is a flat object
- * keyed by column; a value is a number, a string or null (null: not computed,
- * e.g. every number of a failed row). Units are geometric, M = 1.
+ * The tables a grid run writes and their columns, in core's table model: a
+ * column has a camelCase name (the CSV header `name [unit]` and the JSON key
+ * alike), a unit and a description. A row is a flat object keyed by column
+ * name; a value is a number, a string or null (null: not computed, e.g.
+ * every number of a failed row). Units are geometric, M = 1.
  */
+import type { Cell, Column, Status, Table } from '@penumbra/core';
 import type { GridSpec } from './grid.js';
 
-export type Cell = number | string | null;
+/** One row of a grid table, keyed by column name. */
 export type Row = Record<string, Cell>;
 
-export interface Column {
-  key: string;
-  /** unit in geometric units (G = c = ħ = 1, hole mass M = 1); '' for counts, labels and pure numbers */
-  unit: string;
-  description: string;
-}
-
+/** The tables a grid can hold. */
 export type TableName = 'modes' | 'crossSection' | 'spectra';
+/** Every table name, in file order. */
 export const TABLE_NAMES: readonly TableName[] = ['modes', 'crossSection', 'spectra'];
+/** The CSV file of each table. */
 export const TABLE_FILES: Readonly<Record<TableName, string>> = {
   modes: 'modes.csv',
   crossSection: 'cross-section.csv',
   spectra: 'spectra.csv',
 };
 
-const pointColumns: Column[] = [
-  { key: 's', unit: '1', description: 'field spin' },
-  { key: 'a', unit: 'M', description: 'hole spin parameter a = J/M' },
-  { key: 'omega', unit: '1/M', description: 'wave frequency ω' },
-];
-const status: Column = { key: 'status', unit: '', description: "'ok', or 'failed' (numbers left empty, reason in 'failure')" };
-const failure: Column = { key: 'failure', unit: '', description: 'why the row failed, with the solver diagnostics' };
+/** The status of a row: core's solve statuses. */
+export type RowStatus = Status;
 
+const pointColumns: Column[] = [
+  { name: 'spin', unit: '1', description: 'field spin' },
+  { name: 'a', unit: 'M', description: "the hole's spin parameter a = J/M" },
+  { name: 'omega', unit: '1/M', description: 'wave frequency ω' },
+];
+const status: Column = {
+  name: 'status',
+  unit: '',
+  description: "'success', or why the numbers are missing: 'not-converged' or 'invalid-input' (reason in 'message')",
+};
+const message: Column = { name: 'message', unit: '', description: 'why the row failed, with the solver diagnostics; empty on success' };
+const relError = (of: string, extra = ''): Column => ({ name: 'relError', unit: '1', description: `estimated relative error of ${of}${extra}` });
+const lMax: Column = { name: 'lMax', unit: '1', description: 'largest l summed' };
+const modes: Column = { name: 'modes', unit: '', description: 'greybody solves' };
+
+/** The columns of one table of a grid (the reflection columns only when the grid asks for reflection). */
 export function tableColumns(grid: GridSpec, table: TableName): Column[] {
   if (table === 'modes') {
     const reflection = grid.quantities.includes('reflection');
     return [
       ...pointColumns,
-      { key: 'l', unit: '1', description: 'spheroidal index l' },
-      { key: 'm', unit: '1', description: 'azimuthal number m' },
+      { name: 'l', unit: '1', description: 'spheroidal index l' },
+      { name: 'm', unit: '1', description: 'azimuthal number m' },
       status,
-      { key: 'gamma', unit: '1', description: 'greybody factor Γ (absorbed fraction of the incident flux; < 0 when superradiant)' },
-      { key: 'relError', unit: '1', description: 'estimated relative error of Γ' },
+      { name: 'gamma', unit: '1', description: 'greybody factor Γ (absorbed fraction of the incident flux; < 0 when superradiant)' },
+      relError('Γ'),
       ...(reflection
         ? [
-            { key: 'reflection', unit: '1', description: 'reflected fraction, from an independent solve' },
-            { key: 'residual', unit: '1', description: '|Γ + reflection − 1|, a check of both solves' },
+            { name: 'reflection', unit: '1', description: 'reflected fraction, from an independent solve' },
+            { name: 'residual', unit: '1', description: '|Γ + reflection − 1|, a check of both solves' },
           ]
         : []),
-      { key: 'steps', unit: '', description: 'integrator steps' },
-      { key: 'rhsEvaluations', unit: '', description: 'right-hand-side evaluations' },
-      failure,
+      { name: 'steps', unit: '', description: 'integrator steps' },
+      { name: 'rhsEvaluations', unit: '', description: 'right-hand-side evaluations' },
+      message,
     ];
   }
   if (table === 'crossSection') {
     return [
       ...pointColumns,
       status,
-      { key: 'sigma', unit: 'M^2', description: 'absorption cross-section σ = (π/ω²) Σ Γ of one helicity' },
-      { key: 'relError', unit: '1', description: 'estimated relative error of σ (mode errors plus dropped l-shells)' },
-      { key: 'droppedBound', unit: 'M^2', description: 'bound on the l-shells not summed' },
-      { key: 'lMax', unit: '1', description: 'largest l summed' },
-      { key: 'modes', unit: '', description: 'greybody solves' },
-      failure,
+      { name: 'sigma', unit: 'M^2', description: 'absorption cross-section σ = (π/ω²) Σ Γ of one helicity' },
+      relError('σ', ' (mode errors plus dropped l-shells)'),
+      { name: 'droppedBound', unit: 'M^2', description: 'bound on the l-shells not summed' },
+      lMax,
+      modes,
+      message,
     ];
   }
   return [
     ...pointColumns,
     status,
-    { key: 'number', unit: '1', description: 'd²N/(dt dω) per degree of freedom' },
-    { key: 'energy', unit: '1/M', description: 'd²E/(dt dω) per degree of freedom' },
-    { key: 'torque', unit: '1', description: 'd²J/(dt dω) per degree of freedom' },
-    { key: 'relError', unit: '1', description: "estimated relative error of 'number'" },
-    { key: 'droppedBound', unit: '1', description: "bound on the dropped part of 'number'" },
-    { key: 'lMax', unit: '1', description: 'largest l summed' },
-    { key: 'modes', unit: '', description: 'greybody solves' },
-    failure,
+    { name: 'number', unit: '1', description: 'd²N/(dt dω) per degree of freedom' },
+    { name: 'energy', unit: '1/M', description: 'd²E/(dt dω) per degree of freedom' },
+    { name: 'torque', unit: '1', description: 'd²J/(dt dω) per degree of freedom' },
+    relError("'number'"),
+    { name: 'droppedBound', unit: '1', description: "bound on the dropped part of 'number'" },
+    lMax,
+    modes,
+    message,
   ];
 }
 
@@ -88,7 +98,8 @@ export function gridTables(grid: GridSpec): TableName[] {
   return out;
 }
 
-/** CSV header cell: the key, with its unit in brackets when it has one. */
-export function headerCell(column: Column): string {
-  return column.unit ? `${column.key} [${column.unit}]` : column.key;
+/** Rows as a core Table with the columns of `table`: a key missing in a row is an empty cell. */
+export function gridTable(grid: GridSpec, table: TableName, rows: readonly Row[]): Table {
+  const columns = tableColumns(grid, table);
+  return { columns, rows: rows.map((row) => columns.map((c) => row[c.name] ?? null)) };
 }

@@ -1,17 +1,22 @@
 /**
- * The work of a grid: one task per (s, a, ω) point in a fixed order (s, then
- * a, then ω), chunks of consecutive tasks, and a deterministic cost-balanced
- * split of the chunks into shards.
+ * The work of a grid: one task per (spin, a, ω) point in a fixed order (field
+ * spin, then a, then ω), chunks of consecutive tasks, and a deterministic
+ * cost-balanced split of the chunks into shards.
  */
-import { frequencyValues, modeLs, type GridSpec } from './grid.js';
+import { gridValues } from '@penumbra/core';
+import { modeLs, type GridSpec } from './grid.js';
 
+/** One grid point. */
 export interface GridTask {
   index: number;
+  /** field spin of the point (0, 1/2, 1, 2) */
   s: number;
+  /** the hole's a/M */
   a: number;
   omega: number;
 }
 
+/** Consecutive tasks written to one chunk file. */
 export interface GridChunk {
   index: number;
   /** task indices [first, end) */
@@ -20,11 +25,12 @@ export interface GridChunk {
   cost: number;
 }
 
+/** Every point of a grid, field spin first, then a, then ω. */
 export function gridTasks(grid: GridSpec): GridTask[] {
-  const omegas = frequencyValues(grid.frequencies);
+  const omegas = gridValues(grid.frequencies);
   const tasks: GridTask[] = [];
   for (const s of grid.fieldSpins) {
-    for (const a of grid.holeSpins) {
+    for (const a of grid.holeA) {
       for (const omega of omegas) tasks.push({ index: tasks.length, s, a, omega });
     }
   }
@@ -69,6 +75,7 @@ export function taskCost(grid: GridSpec, task: GridTask): number {
   return cost * (task.s === 0 ? 1 : 1.5);
 }
 
+/** The chunks of a grid with their estimated costs. */
 export function gridChunks(grid: GridSpec, tasks: readonly GridTask[] = gridTasks(grid)): GridChunk[] {
   const chunks: GridChunk[] = [];
   for (let first = 0; first < tasks.length; first += grid.chunkSize) {
@@ -80,6 +87,7 @@ export function gridChunks(grid: GridSpec, tasks: readonly GridTask[] = gridTask
   return chunks;
 }
 
+/** Shard k of n. */
 export interface ShardSpec {
   /** 1-based shard number */
   k: number;

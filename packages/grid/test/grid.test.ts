@@ -1,12 +1,15 @@
 import { describe, expect, test } from 'vitest';
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
+import { gridValues } from '@penumbra/core';
 import {
-  canonicalGridJson, frequencyValues, GridError, gridChunks, gridHash, gridTasks, parseShard, shardChunks, taskCost, validateGrid,
+  canonicalGridJson, GridError, gridChunks, gridHash, gridTasks, parseShard, shardChunks, taskCost, validateGrid,
 } from '@penumbra/grid';
 
 const base = {
   fieldSpins: [0, 1],
-  holeSpins: [0, 0.9],
+  holeA: [0, 0.9],
   frequencies: { spacing: 'log', from: 0.01, to: 1, count: 5 },
   l: { max: 2 },
   tolerance: 1e-6,
@@ -27,7 +30,7 @@ describe('grid descriptions', () => {
   test('a valid grid gets its defaults (chunk size 16) and log frequencies with exact endpoints and a constant ratio to 1e-15', () => {
     const grid = validateGrid(base);
     expect(grid.chunkSize).toBe(16);
-    const w = frequencyValues(grid.frequencies);
+    const w = gridValues(grid.frequencies);
     expect(w[0]).toBe(0.01);
     expect(w[4]).toBe(1);
     for (let i = 1; i < 5; i++) expect(Math.abs(w[i] / w[i - 1] / Math.sqrt(Math.sqrt(100)) - 1)).toBeLessThan(1e-15);
@@ -36,7 +39,7 @@ describe('grid descriptions', () => {
   test('every problem of a bad grid is reported at once, one phrase each', () => {
     const problems = problemsOf({
       fieldSpins: [0, 3, 0],
-      holeSpins: [1, 'x'],
+      holeA: [1, 'x'],
       frequencies: { spacing: 'cubic', from: -1, to: 40, count: 0.5 },
       l: { min: 3, max: 1 },
       tolerance: 1,
@@ -61,10 +64,46 @@ describe('grid descriptions', () => {
 
   test('the canonical text and hash ignore key order and defaults written out', () => {
     const a = validateGrid(base);
-    const b = validateGrid({ quantities: ['gamma'], tolerance: 1e-6, chunkSize: 16, l: { min: 0, max: 2 }, frequencies: base.frequencies, holeSpins: [0, -0 + 0.9], fieldSpins: [0, 1] });
+    const b = validateGrid({ quantities: ['gamma'], tolerance: 1e-6, chunkSize: 16, l: { min: 0, max: 2 }, frequencies: base.frequencies, holeA: [0, -0 + 0.9], fieldSpins: [0, 1] });
     expect(canonicalGridJson(a)).toBe(canonicalGridJson(b));
     expect(gridHash(a)).toBe(gridHash(b));
     expect(gridHash(validateGrid({ ...base, tolerance: 1e-7 }))).not.toBe(gridHash(a));
+  });
+
+  test('the hash is the first 16 hex digits of the SHA-256 of the canonical JSON: equal to node:crypto (an independent implementation) on this grid and on random grids, and pinned for the base grid', () => {
+    const nodeHash = (text: string) => createHash('sha256').update(text).digest('hex').slice(0, 16);
+    const grid = validateGrid(base);
+    expect(canonicalGridJson(grid)).toBe(
+      '{"fieldSpins":[0,1],"holeA":[0,0.9],"frequencies":{"spacing":"log","from":0.01,"to":1,"count":5},"l":{"min":0,"max":2},"tolerance":0.000001,"quantities":["gamma"],"chunkSize":16}',
+    );
+    expect(gridHash(grid)).toBe(nodeHash(canonicalGridJson(grid)));
+    expect(gridHash(grid)).toBe('0b3dc01ed91535e2');
+    fc.assert(
+      fc.property(fc.subarray([0, 0.5, 1, 2], { minLength: 1 }), fc.uniqueArray(fc.double({ min: -0.9999, max: 0.9999, noNaN: true }), { minLength: 1, maxLength: 4 }), fc.integer({ min: 1, max: 99 }), (fieldSpins, holeA, chunkSize) => {
+        const g = validateGrid({ ...base, fieldSpins, holeA: holeA.map((x) => (x === 0 ? 0 : x)), chunkSize, l: 'auto', quantities: ['crossSection'] });
+        expect(gridHash(g)).toBe(nodeHash(canonicalGridJson(g)));
+      }),
+      { numRuns: 50 },
+    );
+  });
+
+  test('the grid spec module imports no Node built-in (it runs in a browser): only core, flux and @noble/hashes', () => {
+    const source = readFileSync(new URL('../src/grid.ts', import.meta.url), 'utf8');
+    const imports = [...source.matchAll(/^import .* from '([^']+)';$/gm)].map((m) => m[1]);
+    expect(imports).toEqual(['@noble/hashes/sha2.js', '@noble/hashes/utils.js', '@penumbra/core', '@penumbra/flux']);
+  });
+
+  test("the old key 'holeSpins' is read as holeA (same grid, same hash); both keys together are refused", () => {
+    const { holeA, ...rest } = base;
+    expect(canonicalGridJson(validateGrid({ ...rest, holeSpins: holeA }))).toBe(canonicalGridJson(validateGrid(base)));
+    expect(problemsOf({ ...base, holeSpins: holeA })).toEqual(["give holeA only ('holeSpins' is its old name)"]);
+    expect(problemsOf({ ...rest, holeSpins: [2] })[0]).toMatch(/^holeSpins\[0\]: expected a\/M/);
+  });
+
+  test("field spins follow core's rule: '1/2', 0.5 and '0.5' are one spin, '3/2' and -1 are refused", () => {
+    expect(validateGrid({ ...base, fieldSpins: ['1/2', 1, '2'] }).fieldSpins).toEqual([0.5, 1, 2]);
+    expect(problemsOf({ ...base, fieldSpins: [0.5, '0.5'] })).toEqual(["fieldSpins[1]: '0.5' appears twice"]);
+    expect(problemsOf({ ...base, fieldSpins: ['3/2', -1] })).toHaveLength(2);
   });
 });
 
@@ -98,6 +137,7 @@ describe('shards', () => {
     const tasks = gridTasks(grid);
     expect(tasks).toHaveLength(20);
     expect(tasks[6]).toMatchObject({ index: 6, s: 0, a: 0.9 });
+    expect(tasks[10]).toMatchObject({ index: 10, s: 1, a: 0 });
     expect(taskCost(grid, tasks[9])).toBeGreaterThan(taskCost(grid, tasks[5]));
   });
 });

@@ -19,7 +19,7 @@ test('the README example is examples/small-grid.ts verbatim; σ(Mω = 0.001) is 
   await import('../examples/small-grid.js');
   expect(lines[0]).toBe('complete: true; rows: 3; failed: 0');
   const rows = lines[1].split('\n');
-  expect(rows[0]).toBe('s [1],a [M],omega [1/M],status,sigma [M^2],relError [1],droppedBound [M^2],lMax [1],modes,failure');
+  expect(rows[0]).toBe('spin [1],a [M],omega [1/M],status,sigma [M^2],relError [1],droppedBound [M^2],lMax [1],modes,message');
   const sigma = rows.slice(1).map((r) => Number(r.split(',')[4]));
   expect(Math.abs(sigma[0] / (16 * Math.PI) - 1)).toBeLessThan(0.01);
   expect(Math.abs(sigma[2] / (27 * Math.PI) - 1)).toBeLessThan(0.05);

@@ -1,28 +1,32 @@
-import type { FieldSpin } from '@penumbra/core';
+import type { Column, FieldSpin } from '@penumbra/core';
 import { absorptionCrossSection } from '@penumbra/flux';
 import type { Command } from '../command.js';
-import {
-  formatNumber,
-  formatTable,
-  parseFieldSpin,
-  parseNumber,
-  parseOptions,
-  parseRange,
-  progressReporter,
-  requireOption,
-  writeJson,
-} from '../options.js';
+import { formatError, formatNumber, formatTable } from '../format.js';
+import { parseFieldSpin, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
+import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
+import { progressReporter } from '../progress.js';
 
+/** The CSV columns: the keys of the JSON rows. */
+const COLUMNS: Column[] = [
+  { name: 'omega', unit: '1/M', description: 'wave frequency ω' },
+  { name: 'sigma', unit: 'M^2', description: 'absorption cross-section σ = (π/ω²) Σ Γ of one helicity' },
+  { name: 'lMax', unit: '1', description: 'largest l summed' },
+  { name: 'droppedBound', unit: 'M^2', description: 'bound on the l-shells not summed' },
+  { name: 'relError', unit: '1', description: 'estimated relative error of σ (mode errors plus dropped l-shells)' },
+  { name: 'modes', unit: '', description: 'greybody solves' },
+];
+
+/** `penumbra cross-section`. */
 export const command: Command = {
   name: 'cross-section',
   summary: 'absorption cross-section σ(ω) = (π/ω²) Σ Γ_slm, with its l-truncation bound',
-  usage: `Usage: penumbra cross-section --spin S --a SPIN --omega W|START:STOP:COUNT [--tol T] [--json|--csv]
+  usage: `Usage: penumbra cross-section --spin S --a A --omega W|START:STOP:COUNT [--tol T] [--json|--csv]
 
 Geometric units (M = 1): σ in M², ω is Mω, a is a/M.
 
 Options:
   --spin S     field spin: 0, 1/2, 1, 2
-  --a SPIN     hole spin a/M (|a/M| ≤ 0.9999)
+  --a A        the hole's spin parameter a/M (|a/M| ≤ 0.9999)
   --omega W    frequency Mω, or a grid START:STOP:COUNT
   --log        space a frequency grid geometrically
   --tol T      relative accuracy of each Γ and of the l-sum (default 1e-6)
@@ -40,11 +44,11 @@ Example:
       omega: { type: 'string' },
       log: { type: 'boolean' },
       tol: { type: 'string' },
-      json: { type: 'boolean' },
-      csv: { type: 'boolean' },
+      ...OUTPUT_OPTIONS,
     });
+    const format = outputFormat(values);
     const spin = parseFieldSpin('--spin', requireOption(values.spin, '--spin', 'the field spin'));
-    const a = parseNumber('--a', requireOption(values.a, '--a', 'the hole spin a/M'));
+    const a = parseNumber('--a', requireOption(values.a, '--a', "the hole's a/M"));
     const grid = parseRange('--omega', requireOption(values.omega, '--omega', 'the frequency Mω'), {
       min: 0, exclusive: true, log: values.log ?? false, maxCount: 10_000,
     });
@@ -56,13 +60,13 @@ Example:
       const { lMax, droppedBound, modes } = r.diagnostics;
       return { omega, sigma: r.sigma, lMax, droppedBound, relError: r.relError, modes };
     });
-    if (values.json) writeJson(io, rows);
-    else if (values.csv) {
-      io.stdout(['omega [1/M],sigma [M^2],l_max,dropped_bound [M^2],rel_error [1],modes', ...rows.map((r) => [r.omega, r.sigma, r.lMax, r.droppedBound, r.relError, r.modes].join(','))].join('\n') + '\n');
-    } else {
-      io.stdout(`absorption cross-section, s = ${spin}, a = ${a} M (σ in M²; 27π = ${formatNumber(27 * Math.PI, 6)})\n`);
-      io.stdout(formatTable([['Mω', 'σ/M²', 'l max', 'rel. error'], ...rows.map((r) => [formatNumber(r.omega, 6), formatNumber(r.sigma, 8), String(r.lMax), r.relError.toExponential(1)])]));
-    }
+    writeOutput(io, format, {
+      json: () => rows,
+      csv: () => ({ columns: COLUMNS, rows: rows.map((r) => COLUMNS.map((c) => r[c.name as keyof typeof r])) }),
+      text: () =>
+        `absorption cross-section, s = ${spin}, a = ${a} M (σ in M²; 27π = ${formatNumber(27 * Math.PI, 6)})\n` +
+        formatTable([['Mω', 'σ/M²', 'l max', 'rel. error'], ...rows.map((r) => [formatNumber(r.omega, 6), formatNumber(r.sigma, 8), String(r.lMax), formatError(r.relError)])]),
+    });
     return 0;
   },
 };

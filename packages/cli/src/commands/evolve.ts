@@ -7,28 +7,39 @@ import {
   resolveContent,
   type PageTable,
 } from '@penumbra/emission';
+import type { Column } from '@penumbra/core';
 import type { Command } from '../command.js';
 import { UsageError } from '../command.js';
-import { formatNumber, formatTable, parseMassUnit, parseNumber, parseNumberList, parseOptions, requireOption, writeJson } from '../options.js';
+import { formatNumber, formatTable } from '../format.js';
+import { parseMassUnit, parseNumber, parseNumberList, parseOptions, requireOption } from '../options.js';
+import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
 
+/** CSV columns of the track: the keys of the JSON track points (the mass in the unit of --unit). */
+const trackColumns = (unit: string): Column[] => [
+  { name: 'timeSeconds', unit: 's', description: 'time since the start' },
+  { name: 'mass', unit, description: 'mass of the hole' },
+  { name: 'aStar', unit: '1', description: "the hole's a/M" },
+];
+
+/** `penumbra evolve`. */
 export const command: Command = {
   name: 'evolve',
   summary: 'evaporation history of a hole: lifetime and the track a*(M) from Page\'s f(a*), g(a*)',
-  usage: `Usage: penumbra evolve --a SPIN [--mass M --unit g|kg|msun] [--content LIST] [--below A1,A2,…] [--table-points N] [--json|--csv]
+  usage: `Usage: penumbra evolve --a A [--mass M --unit g|kg|msun] [--content LIST] [--below A1,A2,…] [--table-points N] [--json|--csv]
 
 Integrates dM/dt = −f(a*)/M², dJ/dt = −g(a*) a*/M (Page 1976) from a* = a/M.
 f and g come from the table shipped with @penumbra/emission (50 nodes,
 a* ≤ 0.99); --table-points N recomputes a table of N nodes (slow: minutes).
 
 Options:
-  --a SPIN          initial a/M (0 … 0.99 with the shipped table)
+  --a A             the hole's initial a/M (0 … 0.99 with the shipped table)
   --mass M          initial mass (default 1 g), with --unit g, kg or msun
   --content LIST    species, e.g. photon,graviton,neutrino-e (default: photons, gravitons, three neutrino species)
   --below LIST      report when a* first falls below these values (default 0.5,0.1)
   --table-points N  compute a fresh f, g table with N nodes instead of the shipped one
   --points N        track points printed (default 40)
   --json            JSON {lifetimeSeconds, lifetimeOverMassCubed, track: [{time, mass, aStar}], crossings, diagnostics}
-  --csv             the track as CSV with units in the header
+  --csv             the track as CSV (columns timeSeconds, mass, aStar; units in the header)
   -h, --help        this text
 
 Example:
@@ -43,10 +54,10 @@ Example:
       below: { type: 'string' },
       'table-points': { type: 'string' },
       points: { type: 'string' },
-      json: { type: 'boolean' },
-      csv: { type: 'boolean' },
+      ...OUTPUT_OPTIONS,
     });
-    const aStar = parseNumber('--a', requireOption(values.a, '--a', 'the initial spin a/M'), { min: 0, max: 0.9999 });
+    const format = outputFormat(values);
+    const aStar = parseNumber('--a', requireOption(values.a, '--a', "the hole's initial a/M"), { min: 0, max: 0.9999 });
     const mass = values.mass === undefined ? 1 : parseNumber('--mass', values.mass, { min: 0, exclusive: true });
     const unit = parseMassUnit('--unit', values.unit ?? 'g');
     const content = values.content === undefined ? undefined : values.content.split(',').map((s) => s.trim());
@@ -87,15 +98,15 @@ Example:
       track,
       diagnostics: { ...ev.diagnostics, interpolationError: fns.interpolationError, nodeError: fns.nodeError },
     };
-    if (values.json) writeJson(io, result);
-    else if (values.csv) {
-      io.stdout([`time [s],mass [${unit}],a* [1]`, ...track.map((p) => [p.timeSeconds, p.mass, p.aStar].join(','))].join('\n') + '\n');
-    } else {
-      io.stdout(`evaporation of a hole of ${formatNumber(mass, 6)} ${unit}, a* = ${aStar}\n`);
-      io.stdout(`lifetime: ${formatNumber(result.lifetimeSeconds, 6)} s  (${formatNumber(ev.lifetime, 8)} M₀³ in Planck units)\n`);
-      for (const c of result.crossings) io.stdout(`a* < ${c.aStar} after ${formatNumber(c.timeSeconds, 6)} s\n`);
-      io.stdout(formatTable([['t [s]', `M [${unit}]`, 'a*'], ...track.map((p) => [formatNumber(p.timeSeconds, 6), formatNumber(p.mass, 6), formatNumber(p.aStar, 6)])]));
-    }
+    writeOutput(io, format, {
+      json: () => result,
+      csv: () => ({ columns: trackColumns(unit), rows: track.map((p) => [p.timeSeconds, p.mass, p.aStar]) }),
+      text: () =>
+        `evaporation of a hole of ${formatNumber(mass, 6)} ${unit}, a* = ${aStar}\n` +
+        `lifetime: ${formatNumber(result.lifetimeSeconds, 6)} s  (${formatNumber(ev.lifetime, 8)} M₀³ in Planck units)\n` +
+        result.crossings.map((c) => `a* < ${c.aStar} after ${formatNumber(c.timeSeconds, 6)} s\n`).join('') +
+        formatTable([['t [s]', `M [${unit}]`, 'a*'], ...track.map((p) => [formatNumber(p.timeSeconds, 6), formatNumber(p.mass, 6), formatNumber(p.aStar, 6)])]),
+    });
     return 0;
   },
 };

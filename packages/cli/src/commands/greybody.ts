@@ -1,31 +1,25 @@
 import type { FieldSpin } from '@penumbra/core';
 import { greybody, type GreybodySolution } from '@penumbra/flux';
-import { UsageError, type Command } from '../command.js';
-import { CSV_HEADER, greybodyCsvRow, greybodyJson, greybodyTextRows } from '../greybodyTable.js';
-import {
-  formatTable,
-  parseFieldSpin,
-  parseModeNumber,
-  parseNumber,
-  parseOptions,
-  progressReporter,
-  parseRange,
-  requireOption,
-  writeJson,
-} from '../options.js';
+import type { Command } from '../command.js';
+import { formatTable } from '../format.js';
+import { greybodyJson, greybodyTable, greybodyTextRows } from '../greybodyTable.js';
+import { parseFieldSpin, parseModeNumber, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
+import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
+import { progressReporter } from '../progress.js';
 
+/** `penumbra greybody`. */
 export const command: Command = {
   name: 'greybody',
   summary: 'greybody factor Γ_slm(ω), reflection and diagnostics for one mode, at one frequency or a range',
-  usage: `Usage: penumbra greybody --spin S --l L --m M --a SPIN --omega W|START:STOP:COUNT [options]
+  usage: `Usage: penumbra greybody --spin S --l L --m M --a A --omega W|START:STOP:COUNT [options]
 
 Geometric units: the hole mass is 1, ω is Mω, a is a/M (|a/M| ≤ 0.9999).
 
 Options:
   --spin S     field spin: 0, 1/2 (or 0.5), 1, 2
-  --l L        multipole, l ≥ s with l − s an integer
-  --m M        azimuthal number, |m| ≤ l with m − s an integer
-  --a SPIN     hole spin a/M; negative: hole counter-rotating relative to m > 0
+  --l L        multipole, l ≥ S with l − S an integer
+  --m M        azimuthal number, |m| ≤ l with m − S an integer
+  --a A        the hole's spin parameter a/M; negative: counter-rotating relative to m > 0
   --omega W    frequency Mω in [1e-5, 30], or a grid START:STOP:COUNT
   --log        space a frequency grid geometrically
   --tol T      requested relative accuracy of Γ (default 1e-8, 1e-12 … 1e-2)
@@ -49,14 +43,13 @@ Examples:
       omega: { type: 'string' },
       log: { type: 'boolean' },
       tol: { type: 'string' },
-      json: { type: 'boolean' },
-      csv: { type: 'boolean' },
+      ...OUTPUT_OPTIONS,
     });
-    if (values.json && values.csv) throw new UsageError('choose one of --json and --csv');
+    const format = outputFormat(values);
     const spin = parseFieldSpin('--spin', requireOption(values.spin, '--spin', 'the field spin'));
     const l = parseModeNumber('--l', requireOption(values.l, '--l', 'the multipole'));
     const m = parseModeNumber('--m', requireOption(values.m, '--m', 'the azimuthal number'));
-    const a = parseNumber('--a', requireOption(values.a, '--a', 'the hole spin a/M'));
+    const a = parseNumber('--a', requireOption(values.a, '--a', "the hole's a/M"));
     const omegaText = requireOption(values.omega, '--omega', 'the frequency Mω or START:STOP:COUNT');
     const grid = parseRange('--omega', omegaText, { min: 0, exclusive: true, log: values.log ?? false, maxCount: 10_000 });
     const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol);
@@ -67,14 +60,11 @@ Examples:
       progress(i + 1);
     }
     const single = grid.count === 1 && !omegaText.includes(':');
-    if (values.json) {
-      writeJson(io, single ? greybodyJson(results[0]) : results.map(greybodyJson));
-    } else if (values.csv) {
-      io.stdout([CSV_HEADER, ...results.map(greybodyCsvRow)].join('\n') + '\n');
-    } else {
-      io.stdout(`greybody factor, s = ${spin}, l = ${l}, m = ${m}, a = ${a} M\n`);
-      io.stdout(formatTable(greybodyTextRows(results)));
-    }
+    writeOutput(io, format, {
+      json: () => (single ? greybodyJson(results[0]) : results.map(greybodyJson)),
+      csv: () => greybodyTable(results),
+      text: () => `greybody factor, s = ${spin}, l = ${l}, m = ${m}, a = ${a} M\n` + formatTable(greybodyTextRows(results)),
+    });
     return 0;
   },
 };

@@ -1,14 +1,61 @@
-import type { Command } from '../command.js';
-import { command as demo } from './demo.js';
-import { command as kerr } from './kerr.js';
-import { command as greybody } from './greybody.js';
-import { command as crossSection } from './crossSection.js';
-import { command as table } from './table.js';
-import { command as merge } from './merge.js';
-import { command as plot } from './plot.js';
-import { command as spheroidal } from './spheroidal.js';
-import { command as emission } from './emission.js';
-import { command as evolve } from './evolve.js';
+/**
+ * The registry of penumbra commands: name, summary and a loader. Nothing here
+ * imports a command module, so `penumbra --help`, `--version` and each
+ * command load only what they use (a test checks each summary against its
+ * command's own).
+ */
+import type { CommandEntry } from '../command.js';
 
 /** Every command of the penumbra executable, in the order `penumbra --help` lists them. */
-export const commands: Command[] = [demo, kerr, greybody, crossSection, table, merge, plot, spheroidal, emission, evolve];
+export const commands: readonly CommandEntry[] = [
+  {
+    name: 'demo',
+    summary: 'greybody factors of every field for a built-in demo hole (a = 0.7 M)',
+    load: () => import('./demo.js'),
+  },
+  {
+    name: 'kerr',
+    summary: 'background quantities of a Kerr hole (horizons, Ω_H, κ, T_H, area, entropy)',
+    load: () => import('./kerr.js'),
+  },
+  {
+    name: 'greybody',
+    summary: 'greybody factor Γ_slm(ω), reflection and diagnostics for one mode, at one frequency or a range',
+    load: () => import('./greybody.js'),
+  },
+  {
+    name: 'cross-section',
+    summary: 'absorption cross-section σ(ω) = (π/ω²) Σ Γ_slm, with its l-truncation bound',
+    load: () => import('./crossSection.js'),
+  },
+  {
+    name: 'table',
+    summary: 'compute a grid of Γ, reflection, cross-sections or spectra on every core; sharded and resumable',
+    load: () => import('./table.js'),
+  },
+  {
+    name: 'merge',
+    summary: "combine the output directories of 'penumbra table --shard' runs into one table",
+    load: () => import('./merge.js'),
+  },
+  {
+    name: 'plot',
+    summary: "draw a table from 'penumbra table' as an SVG figure (Γ(ω) by mode, σ(ω), spectra)",
+    load: () => import('./plot.js'),
+  },
+  {
+    name: 'spheroidal',
+    summary: 'spin-weighted spheroidal eigenvalue A, E, λ and harmonic S(θ) of one mode',
+    load: () => import('./spheroidal.js'),
+  },
+  {
+    name: 'emission',
+    summary: 'Hawking emission per degree of freedom: number rate, power, torque, and the spectrum on a grid',
+    load: () => import('./emission.js'),
+  },
+  {
+    name: 'evolve',
+    summary: "evaporation history of a hole: lifetime and the track a*(M) from Page's f(a*), g(a*)",
+    load: () => import('./evolve.js'),
+  },
+];

@@ -1,14 +1,17 @@
 import { backgroundJson, backgroundReport, backgroundText } from '../background.js';
 import { UsageError, type Command } from '../command.js';
-import { parseMassUnit, parseNumber, parseOptions, parseSpinRatio, requireOption, writeJson } from '../options.js';
+import { parseHoleA, parseMassUnit, parseNumber, parseOptions, requireOption } from '../options.js';
+import { JSON_OPTION, outputFormat, writeOutput } from '../output.js';
 
+/** `penumbra kerr`. */
 export const command: Command = {
   name: 'kerr',
   summary: 'background quantities of a Kerr hole (horizons, Ω_H, κ, T_H, area, entropy)',
-  usage: `Usage: penumbra kerr --a SPIN [--mass M [--unit g|kg|msun]] [--json]
+  usage: `Usage: penumbra kerr --a A [--mass M [--unit g|kg|msun]] [--json]
 
 Options:
-  --a SPIN     spin a/M, with |a/M| < 1 (the extremal hole a = M is only a limit)
+  --a A        the hole's spin parameter a/M, with |a/M| < 1 (the extremal
+               hole a = M is only a limit)
   --mass M     hole mass; geometric units (default 1) unless --unit is given
   --unit U     physical unit of --mass: g, kg or msun (solar masses); adds
                temperatures in K and GeV, Ω_H in rad/s, lengths in m, entropy in k_B
@@ -26,15 +29,15 @@ Examples:
       a: { type: 'string' },
       mass: { type: 'string' },
       unit: { type: 'string' },
-      json: { type: 'boolean' },
+      ...JSON_OPTION,
     });
-    const spinRatio = parseSpinRatio('--a', requireOption(values.a, '--a', 'the spin a/M'));
+    const format = outputFormat(values);
+    const aStar = parseHoleA('--a', requireOption(values.a, '--a', "the hole's a/M"));
     const unit = values.unit === undefined ? undefined : parseMassUnit('--unit', values.unit);
     if (unit !== undefined && values.mass === undefined) throw new UsageError('--unit needs --mass');
     const mass = values.mass === undefined ? 1 : parseNumber('--mass', values.mass, { min: 0, exclusive: true });
-    const report = backgroundReport({ spinRatio, mass, unit });
-    if (values.json) writeJson(io, backgroundJson(report));
-    else io.stdout(backgroundText(report));
+    const report = backgroundReport({ aStar, mass, unit });
+    writeOutput(io, format, { json: () => backgroundJson(report), text: () => backgroundText(report) });
     return 0;
   },
 };

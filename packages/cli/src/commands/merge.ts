@@ -1,8 +1,9 @@
 import { GridError, mergeRuns } from '@penumbra/grid';
 import { UsageError, type Command } from '../command.js';
+import { countsText, failuresText } from '../gridSummary.js';
 import { parseOptions } from '../options.js';
-import { failuresText } from './table.js';
 
+/** `penumbra merge`. */
 export const command: Command = {
   name: 'merge',
   summary: "combine the output directories of 'penumbra table --shard' runs into one table",
@@ -34,10 +35,8 @@ Example:
       if (error instanceof GridError) throw new UsageError(error.message);
       throw error;
     }
-    const s = result.summary;
-    const counts = Object.entries(s.rows).map(([t, n]) => `${t} ${n} rows (${s.failed[t as keyof typeof s.failed]} failed)`).join(', ');
-    io.stderr(`penumbra merge: ${result.chunks} chunks from ${result.sources.length} directories: ${counts}; wrote ${result.files.join(', ')}\n`);
-    io.stderr(failuresText(s));
+    io.stderr(`penumbra merge: ${result.chunks} chunks from ${result.sources.length} directories: ${countsText(result.summary)}; wrote ${result.files.join(', ')}\n`);
+    io.stderr(failuresText(result.summary));
     return 0;
   },
 };

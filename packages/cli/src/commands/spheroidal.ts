@@ -1,7 +1,10 @@
 import { radialSeparationConstant, spheroidalHarmonic } from '@penumbra/spheroidal';
 import { UsageError, type Command } from '../command.js';
-import { formatNumber, parseFieldSpin, parseNumber, parseOptions, parseRange, requireOption, writeJson } from '../options.js';
+import { formatNumber } from '../format.js';
+import { parseFieldSpin, parseModeNumber, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
+import { JSON_OPTION, outputFormat, writeOutput } from '../output.js';
 
+/** `penumbra spheroidal`. */
 export const command: Command = {
   name: 'spheroidal',
   summary: 'spin-weighted spheroidal eigenvalue A, E, λ and harmonic S(θ) of one mode',
@@ -12,7 +15,8 @@ Options:
   --l L          multipole, l ≥ |s|, l − s an integer
   --m M          azimuthal number, |m| ≤ l, m − s an integer
   --c C          spheroidicity c = aω (real)
-  --a A          hole spin a (with --omega, instead of --c); adds λ = A + a²ω² − 2amω
+  --a A          the hole's spin parameter a (with --omega, instead of --c);
+                 adds λ = A + a²ω² − 2amω
   --omega W      frequency ω (with --a)
   --theta GRID   sample S(θ) and dS/dθ on START:STOP:COUNT (or one angle), 0 ≤ θ ≤ π
   --json         one JSON object with keys spin, l, m, c, A, lambda (with --a/--omega),
@@ -34,18 +38,19 @@ Examples:
       a: { type: 'string' },
       omega: { type: 'string' },
       theta: { type: 'string' },
-      json: { type: 'boolean' },
+      ...JSON_OPTION,
     });
+    const format = outputFormat(values);
     const spin = parseFieldSpin('--spin', requireOption(values.spin, '--spin', 'the spin weight'), { allowNegative: true });
-    const l = parseHalfInteger('--l', requireOption(values.l, '--l', 'the multipole'));
-    const m = parseHalfInteger('--m', requireOption(values.m, '--m', 'the azimuthal number'));
+    const l = parseModeNumber('--l', requireOption(values.l, '--l', 'the multipole'));
+    const m = parseModeNumber('--m', requireOption(values.m, '--m', 'the azimuthal number'));
     let c: number;
     let hole: { a: number; omega: number } | undefined;
     if (values.c !== undefined) {
       if (values.a !== undefined || values.omega !== undefined) throw new UsageError('give either --c or --a with --omega, not both');
       c = parseNumber('--c', values.c);
     } else {
-      const a = parseNumber('--a', requireOption(values.a, '--a', 'the hole spin; or give --c'));
+      const a = parseNumber('--a', requireOption(values.a, '--a', "the hole's a; or give --c"));
       const omega = parseNumber('--omega', requireOption(values.omega, '--omega', 'the frequency'));
       hole = { a, omega };
       c = a * omega;
@@ -55,44 +60,36 @@ Examples:
     const harmonic = spheroidalHarmonic({ s: spin, l, m, c });
     const lambda = hole ? radialSeparationConstant(harmonic.A, hole.a, hole.omega, m) : undefined;
     const samples = thetas ? harmonic.sample(thetas) : undefined;
-    if (values.json) {
-      writeJson(io, {
-        spin,
-        l,
-        m,
-        c,
-        A: harmonic.A,
-        ...(lambda !== undefined ? { lambda } : {}),
-        E: harmonic.E,
-        diagnostics: harmonic.diagnostics,
-        ...(samples && thetas ? { S: { theta: thetas, S: Array.from(samples.S), dS: Array.from(samples.dS) } } : {}),
-      });
-      return 0;
-    }
-    const lines = [
-      `spin weight s   ${spin}`,
-      `l, m            ${l}, ${m}`,
-      `c = aω          ${formatNumber(c, 15)}`,
-      `A               ${formatNumber(harmonic.A, 15)}`,
-      ...(lambda !== undefined ? [`λ               ${formatNumber(lambda, 15)}`] : []),
-      `E = A + s(s+1)  ${formatNumber(harmonic.E, 15)}`,
-      `method          ${harmonic.diagnostics.method} (${harmonic.diagnostics.truncation} terms)`,
-    ];
-    if (samples && thetas) {
-      lines.push('', 'θ                 S(θ)              dS/dθ');
-      thetas.forEach((theta, i) => {
-        lines.push(`${formatNumber(theta, 8).padEnd(18)}${formatNumber(samples.S[i], 12).padEnd(18)}${formatNumber(samples.dS[i], 12)}`);
-      });
-    }
-    io.stdout(lines.join('\n') + '\n');
+    const json = () => ({
+      spin,
+      l,
+      m,
+      c,
+      A: harmonic.A,
+      ...(lambda !== undefined ? { lambda } : {}),
+      E: harmonic.E,
+      diagnostics: harmonic.diagnostics,
+      ...(samples && thetas ? { S: { theta: thetas, S: Array.from(samples.S), dS: Array.from(samples.dS) } } : {}),
+    });
+    const text = () => {
+      const lines = [
+        `spin weight s   ${spin}`,
+        `l, m            ${l}, ${m}`,
+        `c = aω          ${formatNumber(c, 15)}`,
+        `A               ${formatNumber(harmonic.A, 15)}`,
+        ...(lambda !== undefined ? [`λ               ${formatNumber(lambda, 15)}`] : []),
+        `E = A + s(s+1)  ${formatNumber(harmonic.E, 15)}`,
+        `method          ${harmonic.diagnostics.method} (${harmonic.diagnostics.truncation} terms)`,
+      ];
+      if (samples && thetas) {
+        lines.push('', 'θ                 S(θ)              dS/dθ');
+        thetas.forEach((theta, i) => {
+          lines.push(`${formatNumber(theta, 8).padEnd(18)}${formatNumber(samples.S[i], 12).padEnd(18)}${formatNumber(samples.dS[i], 12)}`);
+        });
+      }
+      return lines.join('\n') + '\n';
+    };
+    writeOutput(io, format, { json, text });
     return 0;
   },
 };
-
-/** An integer or half-integer such as 2, -1.5 or 3/2; the physics checks live in @penumbra/spheroidal. */
-function parseHalfInteger(option: string, text: string): number {
-  const fraction = /^\s*([+-]?)(\d+)\s*\/\s*2\s*$/.exec(text);
-  const value = fraction ? (fraction[1] === '-' ? -1 : 1) * (Number(fraction[2]) / 2) : parseNumber(option, text);
-  if (!Number.isInteger(2 * value)) throw new UsageError(`${option} expects an integer or half-integer, got '${text}'`);
-  return value === 0 ? 0 : value;
-}

@@ -1,11 +1,13 @@
 import { existsSync, readFileSync } from 'node:fs';
 import {
   defaultWorkers, formatDuration, GridError, gridFromFlags, hasGridFlags, parseShard, progressPrinter, runGrid, runProblems,
-  validateGrid, type GridSpec, type RunSummary, type ShardSpec, type TableSummary,
+  validateGrid, type GridSpec, type RunSummary, type ShardSpec,
 } from '@penumbra/grid';
 import { UsageError, type Command } from '../command.js';
+import { countsText, failuresText } from '../gridSummary.js';
 import { parseOptions } from '../options.js';
 
+/** `penumbra table`. */
 export const command: Command = {
   name: 'table',
   summary: 'compute a grid of Γ, reflection, cross-sections or spectra on every core; sharded and resumable',
@@ -17,7 +19,9 @@ DIR/modes.csv, DIR/cross-section.csv, DIR/spectra.csv (units in the headers,
 geometric units with M = 1) and DIR/table.json. Points are written in chunks,
 each atomically: rerunning the same command after an interruption skips the
 finished chunks and gives the same bytes. A mode that does not converge is a
-'failed' row with its diagnostics, never a number. See docs/grid.md.
+row with status 'not-converged' and the solver's message, never a number.
+CSV headers are camelCase names with units in brackets (relError [1]), the
+same names as the keys of table.json. See docs/grid.md.
 
 Options:
   --out DIR           output directory; new, empty, or holding this same grid
@@ -28,7 +32,7 @@ Options:
 
 Grid options (instead of GRID.json):
   --spins LIST        field spins, e.g. 0,1/2,1,2
-  --a LIST            hole spins a/M, e.g. 0,0.5,0.9
+  --a LIST            the holes' spin parameters a/M, e.g. 0,0.5,0.9
   --omega RANGE       frequencies Mω: FROM:TO:COUNT, or a list W1,W2,...
   --spacing S         linear (default) or log, for FROM:TO:COUNT
   --l L               modes of gamma/reflection: MAX, MIN:MAX, or auto (default;
@@ -38,7 +42,7 @@ Grid options (instead of GRID.json):
   --chunk-size N      grid points per output chunk (default 16)
 
 GRID.json holds the same as an object, e.g.
-  {"fieldSpins": [0, 1], "holeSpins": [0, 0.9],
+  {"fieldSpins": [0, 1], "holeA": [0, 0.9],
    "frequencies": {"spacing": "log", "from": 0.01, "to": 2, "count": 40},
    "l": {"min": 0, "max": 3}, "tolerance": 1e-6,
    "quantities": ["gamma", "reflection"], "chunkSize": 16}
@@ -124,23 +128,12 @@ function readGridJson(path: string, problems: string[]): unknown {
   }
 }
 
-export function failuresText(summary: TableSummary, limit = 20): string {
-  const lines = summary.failures.slice(0, limit).map((f) => {
-    const mode = f.l !== undefined ? ` l=${f.l} m=${f.m}` : '';
-    return `  failed ${f.table}: s=${f.s} a=${f.a} ω=${f.omega}${mode}: ${f.failure}\n`;
-  });
-  if (summary.failures.length > limit) lines.push(`  … and ${summary.failures.length - limit} more (see table.json "summary")\n`);
-  return lines.join('');
-}
-
 function summaryText(r: RunSummary, out: string): string {
   const where = r.shard.n > 1 ? `shard ${r.shard.k}/${r.shard.n}: ` : '';
   let text = `penumbra table: ${where}${r.chunksComputed} chunks (${r.tasksComputed} points) computed, ${r.chunksSkipped} already done, in ${formatDuration(r.seconds)} with ${r.workers} worker${r.workers > 1 ? 's' : ''}\n`;
   if (r.complete && r.summary) {
-    const s = r.summary;
-    const counts = Object.entries(s.rows).map(([t, n]) => `${t} ${n} rows (${s.failed[t as keyof typeof s.failed]} failed)`).join(', ');
-    text += `penumbra table: grid complete: ${counts}; wrote ${r.files.join(', ')}\n`;
-    text += failuresText(s);
+    text += `penumbra table: grid complete: ${countsText(r.summary)}; wrote ${r.files.join(', ')}\n`;
+    text += failuresText(r.summary);
   } else {
     text += `penumbra table: ${r.missingChunks} chunks of the grid are not in ${out} yet; when every shard has finished, run 'penumbra merge DIR... --out OUT'\n`;
   }

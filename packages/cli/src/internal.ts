@@ -1,0 +1,24 @@
+/**
+ * The helpers every command is built from, for the CLI's tests (import from
+ * '@penumbra/cli/internal'); commands import them from their modules directly.
+ */
+export {
+  type OptionsConfig,
+  type ParsedOptions,
+  type NumberConstraints,
+  type ParsedRange,
+  parseOptions,
+  requireOption,
+  parseNumber,
+  parseNumberList,
+  parseHoleA,
+  parseFieldSpin,
+  parseRange,
+  parseMassUnit,
+  parseModeNumber,
+} from './options.js';
+export { type OutputFormat, type Output, JSON_OPTION, OUTPUT_OPTIONS, outputFormat, writeOutput, writeJson, writeCsv } from './output.js';
+export { formatNumber, formatError, formatTable } from './format.js';
+export { progressReporter } from './progress.js';
+export { greybodyJson, greybodyTable, greybodyTextRows } from './greybodyTable.js';
+export { type Estimate, type Totals, type PhysicalTotals, type SpectrumRow, totalsTable, spectrumTable } from './emissionOutput.js';
