@@ -6,7 +6,6 @@ import {
   emissionTotals,
   evolveHole,
   pageFunctions,
-  pageTable,
   resolveContent,
   toPhysicalRates,
   type PageTable,
