@@ -6,7 +6,9 @@
 
 /** A complex polynomial Σ (re[j] + i im[j]) y^j; `re` and `im` have equal length. */
 export interface CPoly {
+  /** real parts of the coefficients, lowest power first */
   re: Float64Array;
+  /** imaginary parts of the coefficients */
   im: Float64Array;
 }
 

@@ -77,7 +77,7 @@ export function radialEquation(hole: KerrHole, mode: RadialMode, center = 0): Ra
  *
  *   Δ² g'' + [B + 2iWΔ] g' + [U − W² + i(W'Δ + sWΔ')] g = 0
  *
- * (docs/method.md, sections 3 and 7). W = σωϖ gives the far-zone series,
+ * (docs/method.md, section 1). W = σωϖ gives the far-zone series,
  * W = −K the 'phase' variable u = e^{iφ}R with the ingoing horizon phase removed.
  */
 export function substitutePhase(eq: RadialEquation, W: CPoly): RadialEquation {

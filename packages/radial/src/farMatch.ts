@@ -55,8 +55,16 @@ export function chooseMatch(hole: KerrHole, mode: RadialMode, fixed?: number): F
   }
 }
 
+/** The two amplitudes at infinity of an integrated solution. */
+export interface MatchedAmplitudes {
+  /** Z_in, the coefficient of R_in */
+  zIn: Complex2;
+  /** Z_out, the coefficient of R_out */
+  zOut: Complex2;
+}
+
 /** Solve R = Z_in R_in + Z_out R_out at the matching radius (2×2 complex system); y = (Re R, Im R, Re R', Im R'). */
-export function matchAmplitudes(y: ArrayLike<number>, vin: FarValue, vout: FarValue): { zIn: Complex2; zOut: Complex2 } {
+export function matchAmplitudes(y: ArrayLike<number>, vin: FarValue, vout: FarValue): MatchedAmplitudes {
   const [ir, ii] = vin.R, [idr, idi] = vin.dR, [or, oi] = vout.R, [odr, odi] = vout.dR;
   const detRe = ir * odr - ii * odi - (idr * or - idi * oi);
   const detIm = ir * odi + ii * odr - (idr * oi + idi * or);

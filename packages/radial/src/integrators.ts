@@ -47,7 +47,9 @@ export interface Stepper {
 
 /** What a stepper is built from. */
 export interface StepperSpec {
+  /** which integrator */
   integrator: IntegratorName;
+  /** the right-hand side it integrates */
   rhs: Rhs;
   /** local relative tolerance */
   tol: number;

@@ -11,7 +11,7 @@ export { type AdvanceResult, type Stepper, type StepperSpec, makeStepper } from 
 export { type HorizonStart, horizonSeriesStart, horizonWavenumber } from './horizonSeries.js';
 export { defaultStartFraction, startAtHorizon } from './horizonStart.js';
 export { type FarSeries, type FarValue, farSeries, evaluateFar } from './farSeries.js';
-export { type FarMatch, chooseMatch, matchAmplitudes } from './farMatch.js';
+export { type FarMatch, type MatchedAmplitudes, chooseMatch, matchAmplitudes } from './farMatch.js';
 export { type StarobinskyMap, starobinskyMapAt, applyStarobinskyMap, starobinskyHorizonFactor } from './starobinskyMap.js';
 export { phaseEquation, convertPhase } from './phaseVariable.js';
 export { type Leg, type Segment, type RawSample, integrateLeg } from './shooting.js';

@@ -44,25 +44,34 @@ export interface TwoSidedOptions extends RadialOptions {
 
 /** Options with their defaults filled in. */
 export interface ResolvedOptions {
+  /** as `RadialOptions.tol` */
   tol: number;
+  /** as `RadialOptions.startFraction` (undefined: chosen from ω) */
   startFraction?: number;
+  /** as `RadialOptions.matchRadius` (undefined: chosen by the far series) */
   matchRadius?: number;
+  /** as `RadialOptions.grid` */
   grid: readonly number[];
+  /** as `RadialOptions.maxSteps` */
   maxSteps: number;
+  /** as `RadialOptions.integrator` */
   integrator: IntegratorName;
+  /** as `RadialOptions.variable` */
   variable: RadialVariable;
+  /** as `RadialOptions.reflection` */
   reflection: boolean;
+  /** as `TwoSidedOptions.switchRadius` (undefined: the default) */
   switchRadius?: number;
 }
 
 /** Defaults of the options that have one. */
-export const RADIAL_DEFAULTS = {
+export const RADIAL_DEFAULTS: Readonly<Pick<ResolvedOptions, 'tol' | 'maxSteps' | 'integrator' | 'variable' | 'reflection'>> = {
   tol: 1e-12,
   maxSteps: 200_000,
   integrator: INTEGRATORS[0],
   variable: RADIAL_VARIABLES[0],
   reflection: true,
-} as const;
+};
 
 function positiveRadius(value: unknown, parameter: string): number {
   const r = requireFinite(parameter, value, 'a finite radius > 0');

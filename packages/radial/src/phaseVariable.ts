@@ -2,7 +2,7 @@
  * The 'phase' variable u = e^{iφ} R, φ' = K/Δ: the phase of the ingoing
  * horizon solution (e^{−ikr*} near r+, e^{−iωr*} far away) removed. Its
  * equation is the radial equation after the substitution R = e^{−iφ} u
- * (docs/method.md, section 7); the ingoing solution then does not carry the
+ * (docs/method.md, sections 1 and 7); the ingoing solution then does not carry the
  * e^{−ikr*} winding near the horizon. Measured, it is not cheaper in general
  * (the far-zone outgoing part then oscillates at 2ω), so it is kept as an
  * independent second formulation for cross-checks rather than as the default.

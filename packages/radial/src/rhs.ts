@@ -12,6 +12,7 @@ export type Rhs = (dy: Float64Array | number[], y: Float64Array | number[], r: n
 
 /** Counts right-hand-side evaluations across the legs of one solve. */
 export interface EvaluationCounter {
+  /** evaluations so far */
   evaluations: number;
 }
 

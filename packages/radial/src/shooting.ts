@@ -14,19 +14,27 @@ import type { RadialSample } from './solution.js';
 
 /** One outward leg of a solve. */
 export interface Leg {
+  /** the background */
   hole: KerrHole;
+  /** the mode integrated on this leg */
   mode: RadialMode;
   /** the mode's equation about r+ (`radialEquation(hole, mode, hole.rPlus)`) */
   equation: RadialEquation;
   /** the state at `from`, advanced in place to `to` */
   y: Float64Array;
+  /** start radius */
   from: number;
+  /** end radius */
   to: number;
   /** radii at which to record the solution; those outside (from, to] are skipped */
   stops: readonly number[];
+  /** local relative tolerance */
   tol: number;
+  /** ODE integrator */
   integrator: IntegratorName;
+  /** step limit of the leg */
   maxSteps: number;
+  /** integrate R, or u = e^{iφ}R */
   variable: RadialVariable;
   /** counts right-hand-side evaluations across the legs of one solve */
   counter: EvaluationCounter;
@@ -38,16 +46,23 @@ export interface Leg {
 
 /** A sample as integrated: unscaled state, with the log-scale in force when it was taken. */
 export interface RawSample {
+  /** radius */
   r: number;
+  /** (Re R, Im R, Re R', Im R') divided by e^{logScale} */
   y: number[];
+  /** ln of the scale taken out of y */
   logScale: number;
 }
 
 /** What one leg produced. */
 export interface Segment {
+  /** ln of the scale taken out of the final state */
   logScale: number;
+  /** steps taken */
   steps: number;
+  /** renormalisations by 1e-300 */
   rescalings: number;
+  /** the solution at the stops inside (from, to] */
   samples: RadialSample[];
   /** the same samples unscaled, with the log-scale in force when each was taken */
   raw: RawSample[];

@@ -3,7 +3,9 @@ import type { RadialDiagnostics } from './diagnostics.js';
 
 /** A complex number { re, im }. */
 export interface Complex2 {
+  /** real part */
   re: number;
+  /** imaginary part */
   im: number;
 }
 
@@ -19,6 +21,7 @@ export interface RadialSample {
 
 /** Result of `solveRadial`: the ingoing-at-horizon solution's amplitudes at infinity. */
 export interface RadialSolution {
+  /** always 'success': failures throw */
   status: 'success';
   /** Z_in relative to a horizon amplitude of 1; true value = zIn · e^{logScale} */
   zIn: Complex2;
@@ -34,11 +37,13 @@ export interface RadialSolution {
   k: number;
   /** R and R' at the requested grid radii inside (start, match] */
   samples: RadialSample[];
+  /** how the answer was obtained, with its error estimate */
   diagnostics: RadialDiagnostics;
 }
 
 /** Result of `solveTwoSided` (s > 0): amplitudes of the +s and −s solutions, each read where it dominates. */
 export interface TwoSidedSolution {
+  /** always 'success': failures throw */
   status: 'success';
   /** ln|Z_in| of the +|s| solution normalised to Δ^{−s} e^{−ikr*} at the horizon */
   logAbsZInPlus: number;
@@ -54,5 +59,6 @@ export interface TwoSidedSolution {
   k: number;
   /** radius where the −s solution was mapped to the +s one */
   switchRadius: number;
+  /** how the answer was obtained, with its error estimate (of Z_in) */
   diagnostics: RadialDiagnostics;
 }

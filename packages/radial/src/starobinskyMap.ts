@@ -89,9 +89,13 @@ function timesMinusI(a: Series): Series {
 
 /** R_{+s} = a0 R + b0 R',  R'_{+s} = a1 R + b1 R' (complex, [re, im]). */
 export interface StarobinskyMap {
+  /** coefficient of R in R_{+s} */
   a0: [number, number];
+  /** coefficient of R' in R_{+s} */
   b0: [number, number];
+  /** coefficient of R in R'_{+s} */
   a1: [number, number];
+  /** coefficient of R' in R'_{+s} */
   b1: [number, number];
 }
 
