@@ -52,6 +52,8 @@ export interface RadialEquation {
   K: CPoly;
   /** ϖ = r² + a² */
   varpi: CPoly;
+  /** W of the substitution R = e^{i∫W/Δ} g already applied, or null for the equation of R itself */
+  substituted: CPoly | null;
 }
 
 /** The radial equation of `mode` on `hole`, expanded in powers of r − center (default: powers of r). */
@@ -68,7 +70,7 @@ export function radialEquation(hole: KerrHole, mode: RadialMode, center = 0): Ra
     scale(mul(dDelta, K), 0, -s),
     mul(delta, add(cpoly([-lambda]), scale(r, 0, 4 * s * omega))),
   );
-  return { center, s, A: mul(delta, delta), B: scale(mul(delta, dDelta), s + 1), C: U, delta, dDelta, K, varpi };
+  return { center, s, A: mul(delta, delta), B: scale(mul(delta, dDelta), s + 1), C: U, delta, dDelta, K, varpi, substituted: null };
 }
 
 /**
@@ -82,8 +84,10 @@ export function radialEquation(hole: KerrHole, mode: RadialMode, center = 0): Ra
  */
 export function substitutePhase(eq: RadialEquation, W: CPoly): RadialEquation {
   const { delta, dDelta, s } = eq;
+  if (eq.substituted) throw new Error('substitutePhase: the equation is already substituted');
   return {
     ...eq,
+    substituted: W,
     B: add(eq.B, scale(mul(W, delta), 0, 2)),
     C: add(eq.C, scale(mul(W, W), -1), scale(add(mul(derivative(W), delta), scale(mul(W, dDelta), s)), 0, 1)),
   };
