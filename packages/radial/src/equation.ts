@@ -86,9 +86,15 @@ export function substitutePhase(eq: RadialEquation, W: CPoly): RadialEquation {
   const { delta, dDelta, s } = eq;
   if (eq.substituted) throw new Error('substitutePhase: the equation is already substituted');
   return {
-    ...eq,
-    substituted: W,
+    center: eq.center,
+    s,
+    A: eq.A,
     B: add(eq.B, scale(mul(W, delta), 0, 2)),
     C: add(eq.C, scale(mul(W, W), -1), scale(add(mul(derivative(W), delta), scale(mul(W, dDelta), s)), 0, 1)),
+    delta,
+    dDelta,
+    K: eq.K,
+    varpi: eq.varpi,
+    substituted: W,
   };
 }
