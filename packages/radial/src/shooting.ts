@@ -6,7 +6,7 @@
 import { ConvergenceError } from '@penumbra/core';
 import type { KerrHole } from '@penumbra/kerr';
 import type { RadialEquation, RadialMode } from './equation.js';
-import { makeStepper, type IntegratorName } from './integrators.js';
+import { makeStepper, type AdvanceResult, type IntegratorName } from './integrators.js';
 import type { RadialVariable } from './options.js';
 import { convertPhase, phaseEquation } from './phaseVariable.js';
 import { equationRhs, type EvaluationCounter } from './rhs.js';
@@ -104,7 +104,7 @@ export function integrateLeg(leg: Leg): Segment {
   let h = 0.05 * Math.min(r0 - hole.rPlus, 1);
   for (const target of targets) {
     while (r < target) {
-      let adv;
+      let adv: AdvanceResult;
       try {
         adv = stepper.advance(y, r, target, h, OVERFLOW);
       } catch (e) {

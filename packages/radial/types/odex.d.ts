@@ -2,7 +2,7 @@
 // tsconfig.json maps 'odex' here through "paths": the package ships its TypeScript
 // source next to the JavaScript, and that source does not compile under strict settings.
 export type OdexDerivative = (x: number, y: number[]) => number[];
-export type OdexOutput = (n: number, xOld: number, x: number, y: number[]) => boolean | void;
+export type OdexOutput = (n: number, xOld: number, x: number, y: number[]) => boolean;
 export interface OdexResult {
   y: number[];
   outcome: number;
