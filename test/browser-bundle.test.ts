@@ -77,8 +77,7 @@ describe('browser bundles (esbuild, platform browser, format esm) import no Node
     await expectNoBuiltins('radial');
   });
 
-  // remove .fails when emission drops node built-ins
-  test.fails('packages/emission: no node: or bare built-in import in the bundle', async () => {
+  test('packages/emission: no node: or bare built-in import in the bundle', async () => {
     await expectNoBuiltins('emission');
   });
 
