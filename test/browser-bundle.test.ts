@@ -73,18 +73,15 @@ describe('browser bundles (esbuild, platform browser, format esm) import no Node
     });
   }
 
-  // remove .fails when radial drops node built-ins
-  test.fails('packages/radial: no node: or bare built-in import in the bundle', async () => {
+  test('packages/radial: no node: or bare built-in import in the bundle', async () => {
     await expectNoBuiltins('radial');
   });
 
-  // remove .fails when emission drops node built-ins
-  test.fails('packages/emission: no node: or bare built-in import in the bundle', async () => {
+  test('packages/emission: no node: or bare built-in import in the bundle', async () => {
     await expectNoBuiltins('emission');
   });
 
-  // remove .fails when radial drops node built-ins (flux depends on radial)
-  test.fails('packages/flux: no built-in import, and the bundle imported as an ES module gives Γ(s=1, l=m=1, a=0.5, Mω=0.3) equal to the in-process value to 1e-12 relative', async () => {
+  test('packages/flux: no built-in import, and the bundle imported as an ES module gives Γ(s=1, l=m=1, a=0.5, Mω=0.3) equal to the in-process value to 1e-12 relative', async () => {
     const code = await expectNoBuiltins('flux');
     const file = join(scratch, 'flux.bundle.mjs');
     writeFileSync(file, code);

@@ -1,15 +1,23 @@
 /**
- * The Teukolsky radial equation for spin weight s (either sign), written with
- * polynomial coefficients (multiplying through by Δ):
+ * The Teukolsky radial equation for spin weight s (either sign), written once,
+ * with polynomial coefficients (multiplying through by Δ):
  *
  *   Δ² R'' + (s+1) Δ Δ' R' + U(r) R = 0,
- *   U = K² − 2is(r − M)K + Δ(4isωr − λ),   K = (r² + a²)ω − am,
+ *   U = K² − is Δ' K + Δ(4isωr − λ),   K = (r² + a²)ω − am,   Δ' = 2(r − M),
  *
- * Teukolsky, ApJ 185, 635 (1973). Derivation: docs/method.md.
+ * Teukolsky, ApJ 185, 635 (1973). Derivation: docs/method.md, section 1.
+ *
+ * Every user takes its coefficients from `radialEquation`: the integrator
+ * right-hand side (rhs.ts, about r+), the horizon series (about r+), the
+ * far-zone series (about 0, after R = e^{iσωr*} g), the 'phase' variable
+ * (after R = e^{−iφ} u) and the Teukolsky–Starobinsky map (about the switching
+ * radius). Expanding about the point where they are used, with Δ built from
+ * its roots, keeps Δ(r+) = 0 exact and avoids shifting polynomials afterwards.
  */
 import type { KerrHole } from '@penumbra/kerr';
-import { add, cpoly, mul, scale, type CPoly } from './complexPoly.js';
+import { add, cpoly, derivative, mul, scale, type CPoly } from './complexPoly.js';
 
+/** The separated mode of one radial equation. */
 export interface RadialMode {
   /** spin weight s of the field component (sign matters: +|s| or −|s|) */
   s: number;
@@ -21,27 +29,72 @@ export interface RadialMode {
   lambda: number;
 }
 
-/** Δ(r) as a real polynomial in r. */
-export function deltaPoly(hole: KerrHole): CPoly {
-  return cpoly([hole.a * hole.a, -2 * hole.mass, 1]);
+/**
+ * A R'' + B R' + C R = 0 with coefficients that are complex polynomials in
+ * y = r − center, and the pieces they are built from (same variable).
+ */
+export interface RadialEquation {
+  /** expansion point: coefficients are in powers of y = r − center */
+  center: number;
+  /** spin weight s of the equation */
+  s: number;
+  /** coefficient of R'': Δ² (real) */
+  A: CPoly;
+  /** coefficient of R': (s+1)ΔΔ' (complex after a phase substitution) */
+  B: CPoly;
+  /** coefficient of R: U (or its substituted form) */
+  C: CPoly;
+  /** Δ = (r − r+)(r − r−) */
+  delta: CPoly;
+  /** Δ' = 2(r − M) */
+  dDelta: CPoly;
+  /** K = (r² + a²)ω − am */
+  K: CPoly;
+  /** ϖ = r² + a² */
+  varpi: CPoly;
+  /** W of the substitution R = e^{i∫W/Δ} g already applied, or null for the equation of R itself */
+  substituted: CPoly | null;
 }
 
-/** K(r) = ω r² + (ω a² − a m). */
-export function kPoly(hole: KerrHole, mode: RadialMode): CPoly {
-  const { a } = hole;
-  return cpoly([mode.omega * a * a - a * mode.m, 0, mode.omega]);
-}
-
-/** U(r) as a complex polynomial in r (degree 4). */
-export function potentialPoly(hole: KerrHole, mode: RadialMode): CPoly {
+/** The radial equation of `mode` on `hole`, expanded in powers of r − center (default: powers of r). */
+export function radialEquation(hole: KerrHole, mode: RadialMode, center = 0): RadialEquation {
   const { s, omega, lambda } = mode;
-  const M = hole.mass;
-  const K = kPoly(hole, mode);
-  const D = deltaPoly(hole);
-  const rMinusM = cpoly([-M, 1]);
-  return add(
+  const a = hole.a;
+  const r = cpoly([center, 1]);
+  const delta = mul(cpoly([center - hole.rPlus, 1]), cpoly([center - hole.rMinus, 1]));
+  const dDelta = derivative(delta);
+  const varpi = add(mul(r, r), cpoly([a * a]));
+  const K = add(scale(varpi, omega), cpoly([-a * mode.m]));
+  const U = add(
     mul(K, K),
-    scale(mul(rMinusM, K), 0, -2 * s),
-    mul(D, add(cpoly([-lambda]), cpoly([0, 0], [0, 4 * s * omega]))),
+    scale(mul(dDelta, K), 0, -s),
+    mul(delta, add(cpoly([-lambda]), scale(r, 0, 4 * s * omega))),
   );
+  return { center, s, A: mul(delta, delta), B: scale(mul(delta, dDelta), s + 1), C: U, delta, dDelta, K, varpi, substituted: null };
+}
+
+/**
+ * The equation for g where R = e^{iφ} g, φ' = W/Δ, W a polynomial in the same
+ * variable as `eq` (which must be an unsubstituted `radialEquation`):
+ *
+ *   Δ² g'' + [B + 2iWΔ] g' + [U − W² + i(W'Δ + sWΔ')] g = 0
+ *
+ * (docs/method.md, section 1). W = σωϖ gives the far-zone series,
+ * W = −K the 'phase' variable u = e^{iφ}R with the ingoing horizon phase removed.
+ */
+export function substitutePhase(eq: RadialEquation, W: CPoly): RadialEquation {
+  const { delta, dDelta, s } = eq;
+  if (eq.substituted) throw new Error('substitutePhase: the equation is already substituted');
+  return {
+    center: eq.center,
+    s,
+    A: eq.A,
+    B: add(eq.B, scale(mul(W, delta), 0, 2)),
+    C: add(eq.C, scale(mul(W, W), -1), scale(add(mul(derivative(W), delta), scale(mul(W, dDelta), s)), 0, 1)),
+    delta,
+    dDelta,
+    K: eq.K,
+    varpi: eq.varpi,
+    substituted: W,
+  };
 }

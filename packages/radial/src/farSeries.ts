@@ -13,30 +13,37 @@
  */
 import type { KerrHole } from '@penumbra/kerr';
 import { tortoiseFromHorizonDistance } from '@penumbra/kerr';
-import { add, cpoly, mul, scale, type CPoly } from './complexPoly.js';
-import { deltaPoly, kPoly, type RadialMode } from './equation.js';
+import { cpolyAt, padTo, scale, type CPoly } from './complexPoly.js';
+import { radialEquation, substitutePhase, type RadialMode } from './equation.js';
 
+/** Coefficients of one far-zone series, R = e^{iσωr*} r^p Σ c_n r^{−n}. */
 export interface FarSeries {
+  /** −1 ingoing, +1 outgoing */
   sigma: 1 | -1;
   /** leading power p of r (−1 for ingoing, −2s−1 for outgoing) */
   p: number;
+  /** real parts of c_n */
   cRe: number[];
+  /** imaginary parts of c_n */
   cIm: number[];
+  /** the substituted phase numerator W = σωϖ (φ' = W/Δ), in powers of r */
+  W: CPoly;
+  /** Δ in powers of r */
+  delta: CPoly;
 }
 
+/** A far-zone series summed at one radius. */
 export interface FarValue {
+  /** R(r) as [re, im] */
   R: [number, number];
+  /** R'(r) as [re, im] */
   dR: [number, number];
+  /** terms summed */
   terms: number;
   /** magnitude of the last term kept relative to the sum */
   truncation: number;
+  /** whether three successive terms fell below 1e-17 of the sum before the terms turned upward */
   converged: boolean;
-}
-
-function padTo(p: CPoly, n: number): CPoly {
-  const re = p.re.slice(), im = p.im.slice();
-  while (re.length < n) { re.push(0); im.push(0); }
-  return { re, im };
 }
 
 // The same mode is solved at two tolerances (and on both legs of the
@@ -56,23 +63,13 @@ export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTe
 }
 
 function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerms: number): FarSeries {
-  const { a, mass: M } = hole;
-  const { s, omega, m, lambda } = mode;
-  const D = deltaPoly(hole);
-  const dD = cpoly([-2 * M, 2]);
-  const varpi = cpoly([a * a, 0, 1]);
-  const K = kPoly(hole, mode);
-  const A = padTo(mul(D, D), 5);
-  const B = padTo(mul(D, add(scale(varpi, 0, 2 * sigma * omega), scale(dD, s + 1))), 5);
-  const Q = padTo(
-    add(
-      scale(add(mul(cpoly([0, 2]), D), scale(mul(dD, varpi), s)), 0, sigma * omega),
-      add(scale(varpi, -2 * a * m * omega), cpoly([a * a * m * m])),
-      scale(mul(cpoly([-M, 1]), K), 0, -2 * s),
-      mul(D, add(cpoly([-lambda]), cpoly([0, 0], [0, 4 * s * omega]))),
-    ),
-    5,
-  );
+  // Δ² g'' + Δ[2iσωϖ + (s+1)Δ'] g' + Q_σ g = 0 in powers of r; the r⁴ terms of Q_σ cancel exactly.
+  const eq = radialEquation(hole, mode);
+  const W = scale(eq.varpi, sigma * mode.omega);
+  const far = substitutePhase(eq, W);
+  const A = padTo(far.A, 5);
+  const B = padTo(far.B, 5);
+  const Q = padTo(far.C, 5);
   // Leading balance: B4 p + C3 = 0 with B4 = 2iσω.
   const b4r = B.re[4], b4i = B.im[4];
   const c3r = Q.re[3], c3i = Q.im[3];
@@ -107,11 +104,12 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
     cRe.push((rr * dr + ri * di) / den);
     cIm.push((ri * dr - rr * di) / den);
   }
-  return { sigma, p, cRe, cIm };
+  return { sigma, p, cRe, cIm, W, delta: eq.delta };
 }
 
 /** Evaluate R and R' of a far-zone series solution at radius r. */
 export function evaluateFar(hole: KerrHole, mode: RadialMode, series: FarSeries, r: number): FarValue {
+  const omega = mode.omega;
   const { cRe, cIm, p, sigma } = series;
   const inv = 1 / r;
   let sRe = 0, sIm = 0, tRe = 0, tIm = 0;
@@ -138,15 +136,13 @@ export function evaluateFar(hole: KerrHole, mode: RadialMode, series: FarSeries,
     } else small = 0;
     pw *= inv;
   }
-  const { a } = hole;
-  const omega = mode.omega;
   const rs = tortoiseFromHorizonDistance(hole, r - hole.rPlus);
   const rp = Math.pow(r, p);
   const ph = sigma * omega * rs;
   const eRe = rp * Math.cos(ph), eIm = rp * Math.sin(ph);
-  // g = r^p S, g' = r^{p−1} T; R = e g, R' = e (g' + iσω ϖ/Δ g)
+  // g = r^p S, g' = r^{p−1} T; R = e g, R' = e (g' + i(W/Δ) g), W/Δ = σωϖ/Δ
   const R: [number, number] = [eRe * sRe - eIm * sIm, eRe * sIm + eIm * sRe];
-  const w = (sigma * omega * (r * r + a * a)) / ((r - hole.rPlus) * (r - hole.rMinus));
+  const w = cpolyAt(series.W, r)[0] / cpolyAt(series.delta, r)[0];
   const gpRe = tRe * inv - w * sIm;
   const gpIm = tIm * inv + w * sRe;
   const dR: [number, number] = [eRe * gpRe - eIm * gpIm, eRe * gpIm + eIm * gpRe];

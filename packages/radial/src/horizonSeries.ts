@@ -9,15 +9,17 @@
  * point is r−); we sum it at a fraction of that radius.
  */
 import type { KerrHole } from '@penumbra/kerr';
-import { ConvergenceError } from '@penumbra/kerr';
-import { shift } from './complexPoly.js';
-import { potentialPoly, type RadialMode } from './equation.js';
+import { ConvergenceError } from '@penumbra/core';
+import { padTo } from './complexPoly.js';
+import { radialEquation, type RadialEquation, type RadialMode } from './equation.js';
 
+/** The horizon series summed at one point. */
 export interface HorizonStart {
   /** x0 = r0 − r+ where the series was summed */
   x0: number;
-  /** R(r0) and R'(r0) as [re, im] */
+  /** R(r0) as [re, im] */
   R: [number, number];
+  /** R'(r0) as [re, im] */
   dR: [number, number];
   /** number of series terms used */
   terms: number;
@@ -34,7 +36,12 @@ export function horizonWavenumber(hole: KerrHole, mode: RadialMode): number {
   return mode.omega - mode.m * hole.omegaH;
 }
 
-export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number): HorizonStart {
+/**
+ * R and R' of the ingoing horizon solution (normalised to Δ^{−s} e^{−ikr*}) at
+ * r = r+ + x0, from its Frobenius series; `eq` is the mode's equation about r+
+ * (built here if not given).
+ */
+export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number, eq: RadialEquation = radialEquation(hole, mode, hole.rPlus)): HorizonStart {
   const { rPlus, rMinus, mass: M } = hole;
   const s = mode.s;
   const b = rPlus - rMinus;
@@ -45,12 +52,12 @@ export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number)
   const nuRe = -s;
   const nuIm = -k * cPlus;
 
-  // Coefficients of Δ², (s+1)ΔΔ' and U in powers of x.
-  const A2 = b * b, A3 = 2 * b, A4 = 1;
-  const B1 = (s + 1) * b * b, B2 = 3 * (s + 1) * b, B3 = 2 * (s + 1);
-  const U = shift(potentialPoly(hole, mode), rPlus);
-  const Cre = U.re, Cim = U.im;
-  while (Cre.length < 5) { Cre.push(0); Cim.push(0); }
+  // Δ² = A2 x² + A3 x³ + A4 x⁴, (s+1)ΔΔ' = B1 x + B2 x² + B3 x³ (both real) and U = Σ C_j x^j,
+  // x = r − r+, from the one definition; the recurrence is unrolled over these.
+  if (eq.center !== rPlus || eq.s !== s) throw new Error('horizonSeriesStart: the equation must be the mode\'s, about r+');
+  const [, , A2, A3, A4] = padTo(eq.A, 5).re;
+  const [, B1, B2, B3] = padTo(eq.B, 4).re;
+  const C = padTo(eq.C, 5), Cre = C.re, Cim = C.im;
 
   // d_0: |d_0| = b^{−s}; phase from the additive constant of r*.
   const phaseConst = rPlus - cPlus * Math.log(2 * M) - cMinus * Math.log(b / (2 * M));
@@ -68,7 +75,7 @@ export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number)
   let truncation = 1;
   let scaleMax = Math.hypot(sRe, sIm);
   for (; n < MAX_TERMS; n++) {
-    // numerator = −[ (A3 (μ1)(μ1−1) + B2 μ1) d_{n−1} + (A4 (μ2)(μ2−1) + B3 μ2) d_{n−2} + Σ_j C_j d_{n−j} ]
+    // numerator = −[ (A3 (μ1)(μ1−1) + B2 μ1 + C1) d_{n−1} + (A4 (μ2)(μ2−1) + B3 μ2 + C2) d_{n−2} + C3 d_{n−3} + C4 d_{n−4} ]
     let numRe = 0, numIm = 0;
     // j = 1 term (index n−1): μ1 = n − 1 + ν
     {
@@ -123,7 +130,17 @@ export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number)
     } else small = 0;
   }
   if (small < 3) {
-    throw new ConvergenceError('horizon series did not converge', { x0, terms: n, truncation, b });
+    throw new ConvergenceError('horizon series did not converge', {
+      method: 'horizon Frobenius series',
+      steps: n,
+      rhsEvaluations: 0,
+      errorEstimate: truncation,
+      message: `the last of ${n} terms is ${truncation.toExponential(2)} of the sum at x0 = ${x0}`,
+      x0,
+      terms: n,
+      truncation,
+      b,
+    });
   }
   // x0^ν = exp(ν ln x0)
   const lx = Math.log(x0);

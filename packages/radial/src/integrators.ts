@@ -10,29 +10,53 @@
  *   independent second integrator for cross-checks.
  */
 import ode45 from 'ode45-cash-karp';
-import { createRequire } from 'node:module';
-import type { OdexModule } from './odexTypes.js';
+import * as odexModule from 'odex';
+import type { OdexSolverClass } from 'odex';
+import type { Rhs } from './rhs.js';
 
-// Loaded through require: the package ships TypeScript sources that do not
-// compile under our strict settings, so we type the small part we use.
-const odex = createRequire(import.meta.url)('odex') as OdexModule;
+// odex is CommonJS. Node's ESM loader exposes its exports both as named
+// exports and as `default`; bundlers differ in which they fill, so take the
+// one that carries the solver, and check it once.
+const OdexSolver: OdexSolverClass = (() => {
+  const solver = odexModule.Solver ?? odexModule.default?.Solver;
+  if (typeof solver !== 'function') throw new Error('the odex package did not export Solver');
+  return solver;
+})();
 
+/** Names of the ODE integrators `solveRadial` and `solveTwoSided` accept. */
 export type IntegratorName = 'odex' | 'cash-karp';
+
+/** Every accepted integrator name; the first is the default. */
 export const INTEGRATORS: readonly IntegratorName[] = ['odex', 'cash-karp'];
 
-/** Fill dy with the derivative at r; must not allocate. */
-export type Rhs = (dy: Float64Array | number[], y: Float64Array | number[], r: number) => void;
-
+/** Outcome of one `Stepper.advance` call. */
 export interface AdvanceResult {
   /** where the integration stopped (rEnd unless it stopped to rescale) */
   r: number;
+  /** steps taken */
   steps: number;
   /** suggested next step */
   h: number;
 }
 
+/** One integrator bound to one right-hand side and tolerance. */
 export interface Stepper {
+  /** Advance y in place from r towards rEnd; stop early once |Re R| + |Im R| > overflow. */
   advance(y: Float64Array, r: number, rEnd: number, h: number, overflow: number): AdvanceResult;
+}
+
+/** What a stepper is built from. */
+export interface StepperSpec {
+  /** which integrator */
+  integrator: IntegratorName;
+  /** the right-hand side it integrates */
+  rhs: Rhs;
+  /** local relative tolerance */
+  tol: number;
+  /** r+ (the error weights of Cash–Karp scale R' by |R|/(r − r+)) */
+  rPlus: number;
+  /** step limit of one advance call */
+  maxSteps: number;
 }
 
 /** Error weights: one scale per complex pair, so a component crossing zero does not shrink the step. */
@@ -42,45 +66,51 @@ function pairScales(y: ArrayLike<number>, x: number): [number, number] {
   return [magR + 1e-300, magD + 1e-300];
 }
 
-export function makeStepper(name: IntegratorName, rhs: Rhs, tol: number, rPlus: number, maxSteps: number): Stepper {
-  if (name === 'odex') {
-    const solver = new odex.Solver(4);
-    solver.maxSteps = maxSteps;
-    // odex copies the returned array at once, so one buffer serves every call
-    // (saves an allocation per evaluation; garbage collection was ~20 % of the time).
-    const dy = [0, 0, 0, 0];
-    const f = (r: number, y: number[]) => {
-      rhs(dy, y, r);
-      return dy;
-    };
-    return {
-      advance(y, r, rEnd, h, overflow) {
-        // Pure relative control: the solution's size changes by many orders of
-        // magnitude within one call, so any fixed absolute floor would be wrong
-        // somewhere (measured: a floor set at the call's start cost 100× accuracy).
-        solver.relativeTolerance = tol;
-        solver.absoluteTolerance = 0;
-        solver.initialStepSize = h;
-        let rLast = r;
-        let hLast = h;
-        let stopped = false;
-        const res = solver.solve(f, r, Array.from(y), rEnd, (_n, xOld, x, yy) => {
-          rLast = x;
-          if (x > xOld) hLast = x - xOld;
-          if (Math.abs(yy[0]) + Math.abs(yy[1]) > overflow) {
-            stopped = true;
-            return false;
-          }
-          return true;
-        });
-        if (res.outcome !== 0 && !stopped) {
-          throw new Error(`odex stopped with outcome ${res.outcome} at r = ${rLast}`);
+/** A stepper for the named integrator. */
+export function makeStepper({ integrator, rhs, tol, rPlus, maxSteps }: StepperSpec): Stepper {
+  return integrator === 'odex' ? odexStepper(rhs, tol, maxSteps) : cashKarpStepper(rhs, tol, rPlus, maxSteps);
+}
+
+function odexStepper(rhs: Rhs, tol: number, maxSteps: number): Stepper {
+  const solver = new OdexSolver(4);
+  solver.maxSteps = maxSteps;
+  // odex copies the returned array at once, so one buffer serves every call
+  // (saves an allocation per evaluation; garbage collection was ~20 % of the time).
+  const dy = [0, 0, 0, 0];
+  const f = (r: number, y: number[]) => {
+    rhs(dy, y, r);
+    return dy;
+  };
+  return {
+    advance(y, r, rEnd, h, overflow) {
+      // Pure relative control: the solution's size changes by many orders of
+      // magnitude within one call, so any fixed absolute floor would be wrong
+      // somewhere (measured: a floor set at the call's start cost 100× accuracy).
+      solver.relativeTolerance = tol;
+      solver.absoluteTolerance = 0;
+      solver.initialStepSize = h;
+      let rLast = r;
+      let hLast = h;
+      let stopped = false;
+      const res = solver.solve(f, r, Array.from(y), rEnd, (_n, xOld, x, yy) => {
+        rLast = x;
+        if (x > xOld) hLast = x - xOld;
+        if (Math.abs(yy[0]) + Math.abs(yy[1]) > overflow) {
+          stopped = true;
+          return false;
         }
-        for (let i = 0; i < 4; i++) y[i] = res.y[i];
-        return { r: stopped ? rLast : rEnd, steps: res.nStep, h: hLast };
-      },
-    };
-  }
+        return true;
+      });
+      if (res.outcome !== 0 && !stopped) {
+        throw new Error(`odex stopped with outcome ${res.outcome} at r = ${rLast}`);
+      }
+      for (let i = 0; i < 4; i++) y[i] = res.y[i];
+      return { r: stopped ? rLast : rEnd, steps: res.nStep, h: hLast };
+    },
+  };
+}
+
+function cashKarpStepper(rhs: Rhs, tol: number, rPlus: number, maxSteps: number): Stepper {
   return {
     advance(y, r, rEnd, h, overflow) {
       let magR = 1, magD = 1;

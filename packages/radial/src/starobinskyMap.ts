@@ -11,8 +11,8 @@
  * negligible. Derivation: docs/method.md.
  */
 import type { KerrHole } from '@penumbra/kerr';
-import { cpoly, shift, type CPoly } from './complexPoly.js';
-import { deltaPoly, kPoly, potentialPoly, type RadialMode } from './equation.js';
+import type { CPoly } from './complexPoly.js';
+import { radialEquation, type RadialMode } from './equation.js';
 
 /** Complex truncated power series in h = r − r0 (coefficient arrays of equal length). */
 interface Series {
@@ -20,14 +20,18 @@ interface Series {
   im: number[];
 }
 
-function fromPoly(p: CPoly, r0: number, n: number): Series {
-  const q = shift(p, r0);
+/** The first n coefficients of a polynomial (already in powers of h = r − r0). */
+function fromPoly(q: CPoly, n: number): Series {
   const re = new Array<number>(n).fill(0), im = new Array<number>(n).fill(0);
   for (let i = 0; i < Math.min(n, q.re.length); i++) {
     re[i] = q.re[i];
     im[i] = q.im[i];
   }
   return { re, im };
+}
+
+function negate(a: Series): Series {
+  return { re: a.re.map((x) => -x), im: a.im.map((x) => -x) };
 }
 
 function mul(a: Series, b: Series, n: number): Series {
@@ -83,11 +87,15 @@ function timesMinusI(a: Series): Series {
   return { re: a.im.slice(), im: a.re.map((x) => -x) };
 }
 
+/** R_{+s} = a0 R + b0 R',  R'_{+s} = a1 R + b1 R' (complex, [re, im]). */
 export interface StarobinskyMap {
-  /** R_{+s} = a0 R + b0 R',  R'_{+s} = a1 R + b1 R' (complex, [re, im]) */
+  /** coefficient of R in R_{+s} */
   a0: [number, number];
+  /** coefficient of R' in R_{+s} */
   b0: [number, number];
+  /** coefficient of R in R'_{+s} */
   a1: [number, number];
+  /** coefficient of R' in R'_{+s} */
   b1: [number, number];
 }
 
@@ -98,17 +106,13 @@ export interface StarobinskyMap {
 export function starobinskyMapAt(hole: KerrHole, minus: RadialMode, r: number): StarobinskyMap {
   const twoS = Math.round(-2 * minus.s);
   const n = twoS + 2; // series order needed: 2s derivatives plus one
-  const D = fromPoly(deltaPoly(hole), r, n);
-  const dD = fromPoly(cpoly([-2 * hole.mass, 2]), r, n);
-  const W = div(fromPoly(kPoly(hole, minus), r, n), D, n);
-  // R'' = P R' + Q R for the −s equation: P = −(s+1)Δ'/Δ, Q = −U/Δ².
-  const P = div(
-    { re: dD.re.map((x) => -(minus.s + 1) * x), im: dD.im.map((x) => -(minus.s + 1) * x) },
-    D,
-    n,
-  );
-  const U = fromPoly(potentialPoly(hole, minus), r, n);
-  const Q = div({ re: U.re.map((x) => -x), im: U.im.map((x) => -x) }, mul(D, D, n), n);
+  // The −s equation A R'' + B R' + C R = 0 expanded about r itself.
+  const eq = radialEquation(hole, minus, r);
+  const W = div(fromPoly(eq.K, n), fromPoly(eq.delta, n), n);
+  // R'' = P R' + Q R: P = −B/A = −(s+1)Δ'/Δ, Q = −C/A = −U/Δ².
+  const A = fromPoly(eq.A, n);
+  const P = div(negate(fromPoly(eq.B, n)), A, n);
+  const Q = div(negate(fromPoly(eq.C, n)), A, n);
   let alpha: Series = { re: [1, ...new Array<number>(n - 1).fill(0)], im: new Array<number>(n).fill(0) };
   let beta: Series = { re: new Array<number>(n).fill(0), im: new Array<number>(n).fill(0) };
   for (let j = 0; j < twoS; j++) {
@@ -136,6 +140,14 @@ export function starobinskyMapAt(hole: KerrHole, minus: RadialMode, r: number): 
     a0[1] + beta.im[1] + b0[0] * P0[1] + b0[1] * P0[0],
   ];
   return { a0, b0, a1, b1 };
+}
+
+/** (R_{+s}, R'_{+s}) as [re, im, re, im] from y = (Re R, Im R, Re R', Im R') of the −s field. */
+export function applyStarobinskyMap(map: StarobinskyMap, y: ArrayLike<number>): number[] {
+  const c = (z: [number, number], re: number, im: number) => [z[0] * re - z[1] * im, z[0] * im + z[1] * re];
+  const [p0r, p0i] = c(map.a0, y[0], y[1]), [p1r, p1i] = c(map.b0, y[2], y[3]);
+  const [q0r, q0i] = c(map.a1, y[0], y[1]), [q1r, q1i] = c(map.b1, y[2], y[3]);
+  return [p0r + p1r, p0i + p1i, q0r + q1r, q0i + q1i];
 }
 
 /**

@@ -7,7 +7,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { kerrHole } from '@penumbra/kerr';
-import { evaluateFar, farSeries, horizonSeriesStart, solveRadial } from '@penumbra/radial';
+import { solveRadial } from '@penumbra/radial';
+import { evaluateFar, farSeries, horizonSeriesStart } from '@penumbra/radial/internal';
 
 const modes = [
   { a: 0, s: 2, m: 0, omega: 0.3, lambda: 0 },

@@ -8,7 +8,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { kerrHole } from '@penumbra/kerr';
-import { horizonSeriesStart, solveRadial, solveTwoSided, starobinskyHorizonFactor, starobinskyMapAt } from '@penumbra/radial';
+import { solveRadial, solveTwoSided } from '@penumbra/radial';
+import { horizonSeriesStart, starobinskyHorizonFactor, starobinskyMapAt } from '@penumbra/radial/internal';
 
 const cases = [
   { a: 0, s: 0.5, m: 0.5, omega: 0.3, lambdaPlus: 0 },

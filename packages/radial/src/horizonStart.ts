@@ -1,0 +1,40 @@
+/** Where the integration starts: the horizon series summed close enough to r+ to converge without cancelling digits. */
+import { ConvergenceError } from '@penumbra/core';
+import type { KerrHole } from '@penumbra/kerr';
+import type { RadialEquation, RadialMode } from './equation.js';
+import { horizonSeriesStart, type HorizonStart } from './horizonSeries.js';
+
+/** Truncation (cancellation included) accepted before the start point is moved inward. */
+const START_TRUNCATION = 1e-13;
+
+/**
+ * Default start point as a fraction of r+ − r−. The series converges out to
+ * x = r+ − r− (the singular point r−), but near the horizon the solution
+ * oscillates with wavenumber ≈ 2ωr+/(r+ − r−) in x, so terms grow like
+ * (ωr+·fraction)^n/n! before decaying; keeping ωr+·fraction ≲ 1/2 bounds that
+ * cancellation. Starting closer than necessary costs digits for s > 0
+ * (the outgoing horizon solution is relatively amplified), so no closer.
+ */
+export function defaultStartFraction(hole: KerrHole, omega: number): number {
+  return Math.min(0.25, 0.5 / (Math.abs(omega) * hole.rPlus));
+}
+
+/**
+ * Horizon start for the ingoing solution at `startFraction` × (r+ − r−), or at
+ * the default fraction halved while the series cancels digits (large |k|/κ
+ * near extremality makes the terms swell before they decay). `eq` is the
+ * mode's equation about r+.
+ */
+export function startAtHorizon(hole: KerrHole, mode: RadialMode, eq: RadialEquation, startFraction?: number): HorizonStart {
+  const b = hole.rPlus - hole.rMinus;
+  let x0 = (startFraction ?? defaultStartFraction(hole, mode.omega)) * b;
+  for (;;) {
+    try {
+      const start = horizonSeriesStart(hole, mode, x0, eq);
+      if (start.truncation <= START_TRUNCATION || x0 < 1e-4 * b || startFraction !== undefined) return start;
+    } catch (e) {
+      if (!(e instanceof ConvergenceError) || x0 < 1e-6 * b) throw e;
+    }
+    x0 *= 0.5;
+  }
+}

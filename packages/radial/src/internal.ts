@@ -1,0 +1,20 @@
+/**
+ * Internals of @penumbra/radial for tests and cross-checks
+ * ('@penumbra/radial/internal'): the one definition of the equation and what
+ * is built from it, the series at both ends, the integrators and the legs of
+ * a solve. Not a stable API.
+ */
+export { type CPoly, cpoly, padTo, add, mul, scale, derivative, cpolyAt } from './complexPoly.js';
+export { type RadialEquation, radialEquation, substitutePhase } from './equation.js';
+export { type Rhs, type EvaluationCounter, equationRhs } from './rhs.js';
+export { type AdvanceResult, type Stepper, type StepperSpec, makeStepper } from './integrators.js';
+export { type HorizonStart, horizonSeriesStart, horizonWavenumber } from './horizonSeries.js';
+export { defaultStartFraction, startAtHorizon } from './horizonStart.js';
+export { type FarSeries, type FarValue, farSeries, evaluateFar } from './farSeries.js';
+export { type FarMatch, type MatchedAmplitudes, chooseMatch, matchAmplitudes } from './farMatch.js';
+export { type StarobinskyMap, starobinskyMapAt, applyStarobinskyMap, starobinskyHorizonFactor } from './starobinskyMap.js';
+export { phaseEquation, convertPhase } from './phaseVariable.js';
+export { type Leg, type Segment, type RawSample, integrateLeg } from './shooting.js';
+export { type ResolvedOptions, RADIAL_DEFAULTS, resolveRadialOptions, resolveTwoSidedOptions } from './options.js';
+export { validateProblem } from './problem.js';
+export { type ErrorBudget, singleSolveErrorEstimate, singleSolveMessage } from './diagnostics.js';

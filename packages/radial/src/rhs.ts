@@ -1,0 +1,86 @@
+/**
+ * The integrator right-hand side, generated from the polynomial coefficients
+ * of one `RadialEquation`: y = (Re R, Im R, Re R', Im R') and
+ * R'' = −(B R' + C R)/A. The coefficients are unpacked once, so each call is
+ * a few Horner steps in plain float64 and allocates nothing.
+ */
+import { mul } from './complexPoly.js';
+import type { RadialEquation } from './equation.js';
+
+/** Fill dy with the derivative at r; must not allocate. */
+export type Rhs = (dy: Float64Array | number[], y: Float64Array | number[], r: number) => void;
+
+/** Counts right-hand-side evaluations across the legs of one solve. */
+export interface EvaluationCounter {
+  /** evaluations so far */
+  evaluations: number;
+}
+
+/** Highest power the evaluation handles (the radial equation has degree 4). */
+const MAX_DEGREE = 4;
+
+/** Offsets of the coefficient blocks in the one typed array the right-hand side reads. */
+const D = 0, BR = 3, BI = BR + MAX_DEGREE + 1, CR = BI + MAX_DEGREE + 1, CI = CR + MAX_DEGREE + 1, SIZE = CI + MAX_DEGREE + 1;
+
+function isSquareOfDelta(eq: RadialEquation): boolean {
+  const square = mul(eq.delta, eq.delta);
+  return eq.A.re.length === square.re.length && eq.A.re.every((x, j) => x === square.re[j] && eq.A.im[j] === 0 && square.im[j] === 0);
+}
+
+/** Δ, B and C packed into one typed array at the offsets above (one array: measured faster than several, or than closure constants). */
+function packCoefficients(eq: RadialEquation): Float64Array {
+  for (const p of [eq.B, eq.C]) {
+    if (p.re.length > MAX_DEGREE + 1) throw new Error(`radial equation coefficient of degree ${p.re.length - 1} > ${MAX_DEGREE}`);
+  }
+  if (eq.delta.re.length > 3) throw new Error('radial equation: Δ must be quadratic');
+  const k = new Float64Array(SIZE);
+  k.set(eq.delta.re, D);
+  k.set(eq.B.re, BR);
+  k.set(eq.B.im, BI);
+  k.set(eq.C.re, CR);
+  k.set(eq.C.im, CI);
+  return k;
+}
+
+/**
+ * The right-hand side of `eq`, counting its calls in `counter`. The
+ * coefficient of R'' is Δ² for every equation built here, so Δ (degree 2) is
+ * evaluated and squared; B and C are evaluated by Horner's rule, and a real B
+ * (the unsubstituted equation) skips its imaginary part. (Measured: the
+ * coefficients held in many closure variables, or a complex B throughout,
+ * cost 10–25 % of a whole solve.)
+ */
+export function equationRhs(eq: RadialEquation, counter: EvaluationCounter): Rhs {
+  if (!isSquareOfDelta(eq)) throw new Error('radial equation: the coefficient of R″ must be Δ²');
+  const c = eq.center;
+  const k = packCoefficients(eq);
+  if (eq.B.im.every((x) => x === 0)) {
+    return (dy, y, r) => {
+      counter.evaluations++;
+      const x = r - c;
+      const d = k[0] + x * (k[1] + x * k[2]);
+      const iA = 1 / (d * d);
+      const Br = k[3] + x * (k[4] + x * (k[5] + x * (k[6] + x * k[7])));
+      const Cr = k[13] + x * (k[14] + x * (k[15] + x * (k[16] + x * k[17])));
+      const Ci = k[18] + x * (k[19] + x * (k[20] + x * (k[21] + x * k[22])));
+      dy[0] = y[2];
+      dy[1] = y[3];
+      dy[2] = -(Br * y[2] + Cr * y[0] - Ci * y[1]) * iA;
+      dy[3] = -(Br * y[3] + Cr * y[1] + Ci * y[0]) * iA;
+    };
+  }
+  return (dy, y, r) => {
+    counter.evaluations++;
+    const x = r - c;
+    const d = k[0] + x * (k[1] + x * k[2]);
+    const iA = 1 / (d * d);
+    const Br = k[3] + x * (k[4] + x * (k[5] + x * (k[6] + x * k[7])));
+    const Bi = k[8] + x * (k[9] + x * (k[10] + x * (k[11] + x * k[12])));
+    const Cr = k[13] + x * (k[14] + x * (k[15] + x * (k[16] + x * k[17])));
+    const Ci = k[18] + x * (k[19] + x * (k[20] + x * (k[21] + x * k[22])));
+    dy[0] = y[2];
+    dy[1] = y[3];
+    dy[2] = -(Br * y[2] - Bi * y[3] + Cr * y[0] - Ci * y[1]) * iA;
+    dy[3] = -(Br * y[3] + Bi * y[2] + Cr * y[1] + Ci * y[0]) * iA;
+  };
+}

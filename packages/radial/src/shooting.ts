@@ -1,0 +1,134 @@
+/**
+ * The integration loop: carry y = (Re R, Im R, Re R', Im R') outward through
+ * the requested radii, renormalising when |R| grows past 1e150 (the equation
+ * is linear, so the factor is tracked exactly in logScale).
+ */
+import { ConvergenceError } from '@penumbra/core';
+import type { KerrHole } from '@penumbra/kerr';
+import type { RadialEquation, RadialMode } from './equation.js';
+import { makeStepper, type AdvanceResult, type IntegratorName } from './integrators.js';
+import type { RadialVariable } from './options.js';
+import { convertPhase, phaseEquation } from './phaseVariable.js';
+import { equationRhs, type EvaluationCounter } from './rhs.js';
+import type { RadialSample } from './solution.js';
+
+/** One outward leg of a solve. */
+export interface Leg {
+  /** the background */
+  hole: KerrHole;
+  /** the mode integrated on this leg */
+  mode: RadialMode;
+  /** the mode's equation about r+ (`radialEquation(hole, mode, hole.rPlus)`) */
+  equation: RadialEquation;
+  /** the state at `from`, advanced in place to `to` */
+  y: Float64Array;
+  /** start radius */
+  from: number;
+  /** end radius */
+  to: number;
+  /** radii at which to record the solution; those outside (from, to] are skipped */
+  stops: readonly number[];
+  /** local relative tolerance */
+  tol: number;
+  /** ODE integrator */
+  integrator: IntegratorName;
+  /** step limit of the leg */
+  maxSteps: number;
+  /** integrate R, or u = e^{iφ}R */
+  variable: RadialVariable;
+  /** counts right-hand-side evaluations across the legs of one solve */
+  counter: EvaluationCounter;
+  /** ln of the scale already taken out of y (default 0) */
+  logScale?: number;
+  /** the route's method name, for failure diagnostics */
+  method: string;
+}
+
+/** A sample as integrated: unscaled state, with the log-scale in force when it was taken. */
+export interface RawSample {
+  /** radius */
+  r: number;
+  /** (Re R, Im R, Re R', Im R') divided by e^{logScale} */
+  y: number[];
+  /** ln of the scale taken out of y */
+  logScale: number;
+}
+
+/** What one leg produced. */
+export interface Segment {
+  /** ln of the scale taken out of the final state */
+  logScale: number;
+  /** steps taken */
+  steps: number;
+  /** renormalisations by 1e-300 */
+  rescalings: number;
+  /** the solution at the stops inside (from, to] */
+  samples: RadialSample[];
+  /** the same samples unscaled, with the log-scale in force when each was taken */
+  raw: RawSample[];
+}
+
+const OVERFLOW = 1e150;
+const RESCALE = 1e-300;
+const LN_RESCALE = 300 * Math.LN10;
+
+function legFailure(leg: Leg, message: string, steps: number, extra: Record<string, unknown>): ConvergenceError {
+  return new ConvergenceError(message, {
+    method: leg.method,
+    steps,
+    rhsEvaluations: leg.counter.evaluations,
+    errorEstimate: Infinity,
+    message: `${message} (${leg.integrator}, from r = ${leg.from} to ${leg.to})`,
+    integrator: leg.integrator,
+    from: leg.from,
+    to: leg.to,
+    ...extra,
+  });
+}
+
+/** Integrate one leg; y ends as the solution at `leg.to` (divided by e^{logScale}). */
+export function integrateLeg(leg: Leg): Segment {
+  const { hole, mode, y, from: r0, to: rEnd, stops, maxSteps } = leg;
+  const phased = leg.variable === 'phase';
+  const eq = leg.equation;
+  const rhs = equationRhs(phased ? phaseEquation(eq) : eq, leg.counter);
+  const stepper = makeStepper({ integrator: leg.integrator, rhs, tol: leg.tol, rPlus: hole.rPlus, maxSteps });
+  if (phased) convertPhase(hole, mode, eq, r0, y, 1);
+  let logScale = leg.logScale ?? 0;
+  let rescalings = 0;
+  let steps = 0;
+  const samples: RadialSample[] = [];
+  const raw: RawSample[] = [];
+  const targets = [...stops.filter((g) => g > r0 && g < rEnd), rEnd];
+  let r = r0;
+  let h = 0.05 * Math.min(r0 - hole.rPlus, 1);
+  for (const target of targets) {
+    while (r < target) {
+      let adv: AdvanceResult;
+      try {
+        adv = stepper.advance(y, r, target, h, OVERFLOW);
+      } catch (e) {
+        throw legFailure(leg, 'radial integration failed', steps, { reason: (e as Error).message, r });
+      }
+      steps += adv.steps;
+      r = adv.r;
+      h = adv.h;
+      if (steps > maxSteps) throw legFailure(leg, 'radial integration exceeded the step limit', steps, { r, maxSteps });
+      if (Math.abs(y[0]) + Math.abs(y[1]) > OVERFLOW) {
+        for (let i = 0; i < 4; i++) y[i] *= RESCALE;
+        logScale += LN_RESCALE;
+        rescalings++;
+      }
+    }
+    if (stops.includes(target)) {
+      const yr = Array.from(y);
+      if (phased) convertPhase(hole, mode, eq, target, yr, -1);
+      const f = Math.exp(logScale);
+      samples.push({ r: target, R: { re: yr[0] * f, im: yr[1] * f }, dR: { re: yr[2] * f, im: yr[3] * f } });
+      raw.push({ r: target, y: yr, logScale });
+    }
+  }
+  if (phased) convertPhase(hole, mode, eq, rEnd, y, -1);
+  if (!y.every(Number.isFinite)) throw legFailure(leg, 'radial integration produced non-finite values', steps, { r });
+  return { logScale, steps, rescalings, samples, raw };
+}
