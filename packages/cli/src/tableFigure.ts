@@ -62,7 +62,7 @@ const distinct = (rows: Row[], key: string) => [...new Set(rows.map((r) => r[key
 export function plotQuantities(table: GridTable): PlotQuantity[] {
   return PLOT_QUANTITIES.filter((q) => {
     const t = table.tables[SETUP[q].table];
-    return t !== undefined && t.columns.some((c) => c.key === SETUP[q].field);
+    return t?.columns.some((c) => c.key === SETUP[q].field) ?? false;
   });
 }
 

@@ -22,11 +22,11 @@ export class InputError extends Error {
 
 export class ConvergenceError<D extends Diagnostics = Diagnostics> extends Error {
   override readonly name = 'ConvergenceError';
-  readonly diagnostics: D;
-  // Transitional: packages still passing partial diagnostics are being moved to the full Diagnostics shape.
-  constructor(message: string, diagnostics: D | Record<string, unknown>) {
+  constructor(
+    message: string,
+    readonly diagnostics: D,
+  ) {
     super(`${message}; diagnostics: ${safeJson(diagnostics)}`);
-    this.diagnostics = diagnostics as D;
   }
 }
 

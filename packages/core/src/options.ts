@@ -16,7 +16,7 @@ export function validateOptions<O extends object>(options: unknown, spec: Option
   const given = requireObject(context, options, `an object with keys ${Object.keys(spec).join(', ') || '(none)'}`);
   const out: Partial<O> = {};
   for (const key of Object.keys(given)) {
-    if (!Object.prototype.hasOwnProperty.call(spec, key)) {
+    if (!Object.hasOwn(spec, key)) {
       throw new InputError(`${context}.${key}`, `one of the keys ${Object.keys(spec).join(', ') || '(none)'}`, key, 'unknown option');
     }
     const value = given[key];

@@ -7,7 +7,7 @@
  */
 import { ConvergenceError, type FieldSpin } from '@penumbra/core';
 import { kerrHole, type KerrHole } from '@penumbra/kerr';
-import { greybody, lowFrequencyGreybody, MOMEGA_RANGE } from '@penumbra/flux';
+import { greybody, lowFrequencyGreybody, MOMEGA_RANGE, type GreybodySolution } from '@penumbra/flux';
 
 const MIN_MOMEGA = MOMEGA_RANGE.min;
 const MAX_MOMEGA = MOMEGA_RANGE.max;
@@ -65,7 +65,7 @@ function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): { gamma
     const g = lowFrequencyGreybody({ hole: { a: ctx.aStar }, mode: { field: { spin: ctx.spin }, l, m }, omega });
     return { gamma: g, relError: 2 * Math.PI * omega };
   }
-  let r;
+  let r: GreybodySolution;
   try {
     r = greybody({ hole: { a: ctx.aStar }, mode: { field: { spin: ctx.spin }, l, m }, omega }, { tol: ctx.greybodyTol, reflection: false });
   } catch (e) {

@@ -228,9 +228,8 @@ export function validateGrid(raw: unknown): GridSpec {
     }
     return item === 0 ? 0 : item; // −0 and 0 are one hole
   });
-  const frequencies = raw.frequencies === undefined
-    ? (problems.push('frequencies: missing (e.g. {"spacing": "log", "from": 0.01, "to": 2, "count": 50})'), undefined)
-    : checkFrequencies(problems, raw.frequencies);
+  if (raw.frequencies === undefined) problems.push('frequencies: missing (e.g. {"spacing": "log", "from": 0.01, "to": 2, "count": 50})');
+  const frequencies = raw.frequencies === undefined ? undefined : checkFrequencies(problems, raw.frequencies);
 
   let quantities: Quantity[] = [];
   const rawQ = raw.quantities ?? ['gamma'];

@@ -123,7 +123,12 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
     await Promise.all(pending.map(async (chunk) => {
       const jobs: Promise<TaskResult>[] = [];
       for (let i = chunk.first; i < chunk.end; i++) {
-        jobs.push(compute(taskMessage(grid, tasks[i])).then((r) => (report(chunkCost(chunk)), r)));
+        jobs.push(
+          compute(taskMessage(grid, tasks[i])).then((r) => {
+            report(chunkCost(chunk));
+            return r;
+          }),
+        );
       }
       const results = await Promise.all(jobs);
       writeChunk(out, grid, chunk, results);

@@ -17,5 +17,3 @@ export {
 } from './kerr.js';
 export { CODATA2018, GM_SUN_IAU2015, SOLAR_MASS_KG, MASS_UNITS, type MassUnit, type UnitScales, massToKg, unitScales } from './units.js';
 export { type PhysicalBackground, physicalBackground } from './physical.js';
-// Transitional: the error types live in @penumbra/core; this re-export goes once every package imports them from there.
-export { InputError, ConvergenceError, requireFinite } from './errors.js';

@@ -1,6 +1,7 @@
 import { describe, expect, test } from 'vitest';
 import fc from 'fast-check';
-import { cardyEntropy, InputError, kerrHole, nearRegion } from '@penumbra/kerr';
+import { InputError } from '@penumbra/core';
+import { cardyEntropy, kerrHole, nearRegion } from '@penumbra/kerr';
 
 // Hidden conformal symmetry of the Kerr near region: Castro, Maloney & Strominger,
 // Phys. Rev. D 82, 024008 (2010): T_L = (r+ + r−)/(4πa), T_R = (r+ − r−)/(4πa), c_L = c_R = 12J.

@@ -1,10 +1,9 @@
 import { describe, expect, test } from 'vitest';
 import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
+import { ConvergenceError, InputError } from '@penumbra/core';
 import {
-  ConvergenceError,
   horizonDistanceFromTortoise,
-  InputError,
   invertTortoise,
   kerrHole,
   radiusFromTortoise,

@@ -1,5 +1,5 @@
 import { readFileSync } from 'node:fs';
-import { InputError } from '@penumbra/kerr';
+import { InputError } from '@penumbra/core';
 import { smallCSeries, spheroidalEigenvalue, spheroidalEigenvalueComplex } from '@penumbra/spheroidal';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';

@@ -1,5 +1,5 @@
 import { readFileSync } from 'node:fs';
-import { ConvergenceError, InputError } from '@penumbra/kerr';
+import { ConvergenceError, InputError } from '@penumbra/core';
 import {
   clearSpheroidalCache,
   radialSeparationConstant,

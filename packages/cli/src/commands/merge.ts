@@ -28,7 +28,7 @@ Example:
     if (positionals.length === 0) problems.push('missing the shard directories to merge');
     if (values.out === undefined) problems.push('missing --out OUT (the output directory)');
     if (problems.length) throw new UsageError(problems.join('; '));
-    let result;
+    let result: ReturnType<typeof mergeRuns>;
     try {
       result = mergeRuns(positionals, values.out!);
     } catch (error) {

@@ -67,7 +67,7 @@ Example:
       }
     }
     if (problems.length) throw new UsageError(problems.length === 1 ? problems[0] : `${problems.length} problems: ${problems.map((p, i) => `(${i + 1}) ${p}`).join('; ')}`);
-    let result;
+    let result: Awaited<ReturnType<typeof tableFigure>>;
     try {
       result = tableFigure(table!, { quantity, s, a });
     } catch (error) {

@@ -1,2 +1,0 @@
-// The error types are defined once, in @penumbra/core; kerr throws them.
-export { InputError, ConvergenceError, requireFinite } from '@penumbra/core';
