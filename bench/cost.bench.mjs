@@ -49,14 +49,24 @@ function sample(list, size, seed) {
   const copy = list.map((x, i) => ({ x, i, key: random() }));
   copy.sort((p, q) => p.key - q.key);
   // keep the natural order (frequency ascending within a mode) among the chosen
-  return copy.slice(0, size).sort((p, q) => p.i - q.i).map((p) => p.x);
+  return copy
+    .slice(0, size)
+    .sort((p, q) => p.i - q.i)
+    .map((p) => p.x);
 }
 
 function solveTimed(mode) {
   const t0 = performance.now();
   try {
     const r = greybody(asProblem(mode), { tol: TOL });
-    return { ok: true, ms: performance.now() - t0, rhs: r.diagnostics.rhsEvaluations, relError: r.relError, residual: r.residual, gamma: r.gamma };
+    return {
+      ok: true,
+      ms: performance.now() - t0,
+      rhs: r.diagnostics.rhsEvaluations,
+      relError: r.relError,
+      residual: r.residual,
+      gamma: r.gamma,
+    };
   } catch (e) {
     return { ok: false, ms: performance.now() - t0, error: `${e.name}: ${e.message}` };
   }
@@ -76,7 +86,9 @@ function coverage() {
   const how = full
     ? `full set (${all.length} modes; estimated ${fmt(estimate)} s)`
     : `seeded uniform sample of ${chosen.length} of ${all.length} modes (mulberry32 seed ${SEED}); the full set was estimated at ${fmt(estimate)} s against a budget of ${BUDGET_SECONDS} s`;
-  console.log(`coverage set: ${how}; frequencies taken in ascending order per mode (the spheroidal continuation cache is used as in a spectrum scan)`);
+  console.log(
+    `coverage set: ${how}; frequencies taken in ascending order per mode (the spheroidal continuation cache is used as in a spectrum scan)`,
+  );
 
   clearSpheroidalCache();
   const started = performance.now();
@@ -84,7 +96,11 @@ function coverage() {
   const seconds = (performance.now() - started) / 1e3;
 
   // achieved accuracy on a subsample, against tol 1e-12
-  const check = sample(results.filter((r) => r.ok), 200, SEED + 2).map((r) => {
+  const check = sample(
+    results.filter((r) => r.ok),
+    200,
+    SEED + 2,
+  ).map((r) => {
     const ref = greybody(asProblem(r), { tol: 1e-12, reflection: false }).gamma;
     return { ...r, reference: ref, achieved: relDiff(r.gamma, ref) };
   });
@@ -109,10 +125,34 @@ function coverage() {
       medianAchievedRelError: median(acc.map((r) => r.achieved)),
     };
     bySpin.push(s);
-    rows.push([spin, s.modes, s.failures, fmt(s.medianMs), fmt(s.p90Ms), Math.round(s.medianRhsEvaluations), fmt(s.maxReportedRelError), fmt(s.maxResidual),
-      `${fmt(s.medianAchievedRelError)} / ${fmt(s.maxAchievedRelError)} (${s.accuracyChecked})`]);
+    rows.push([
+      spin,
+      s.modes,
+      s.failures,
+      fmt(s.medianMs),
+      fmt(s.p90Ms),
+      Math.round(s.medianRhsEvaluations),
+      fmt(s.maxReportedRelError),
+      fmt(s.maxResidual),
+      `${fmt(s.medianAchievedRelError)} / ${fmt(s.maxAchievedRelError)} (${s.accuracyChecked})`,
+    ]);
   }
-  console.log(table(['spin', 'modes', 'failed', 'median ms', 'p90 ms', 'median RHS evals', 'max est. error', 'max |Γ+R−1|', 'achieved median / max (n checked)'], rows));
+  console.log(
+    table(
+      [
+        'spin',
+        'modes',
+        'failed',
+        'median ms',
+        'p90 ms',
+        'median RHS evals',
+        'max est. error',
+        'max |Γ+R−1|',
+        'achieved median / max (n checked)',
+      ],
+      rows,
+    ),
+  );
   console.log(`total ${fmt(seconds)} s for ${results.length} modes`);
   return {
     how,
@@ -129,13 +169,23 @@ function coverage() {
 function growthPoint(mode) {
   const r = greybody(asProblem(mode), { tol: TOL });
   // median of single solves (eigenvalue cache cleared): robust on a shared machine
-  const ms = median(Array.from({ length: 7 }, () => {
-    clearSpheroidalCache();
-    const t0 = performance.now();
-    greybody(asProblem(mode), { tol: TOL });
-    return performance.now() - t0;
-  }));
-  return { ...mode, gamma: r.gamma, relError: r.relError, rhsEvaluations: r.diagnostics.rhsEvaluations, steps: r.diagnostics.steps, matchRadius: r.diagnostics.matchRadius, ms };
+  const ms = median(
+    Array.from({ length: 7 }, () => {
+      clearSpheroidalCache();
+      const t0 = performance.now();
+      greybody(asProblem(mode), { tol: TOL });
+      return performance.now() - t0;
+    }),
+  );
+  return {
+    ...mode,
+    gamma: r.gamma,
+    relError: r.relError,
+    rhsEvaluations: r.diagnostics.rhsEvaluations,
+    steps: r.diagnostics.steps,
+    matchRadius: r.diagnostics.matchRadius,
+    ms,
+  };
 }
 
 function growth() {
@@ -146,8 +196,15 @@ function growth() {
     const m = spin === 0.5 ? 0.5 : 1;
     for (const omega of omegas) withOmega.push(growthPoint({ spin, l, m, a: 0.7, omega }));
   }
-  console.log('\ncost against Mω (l = 2 (5/2 for s = 1/2), m = 1 (1/2), a = 0.7; eigenvalue solve included): ms / RHS evaluations');
-  console.log(table(['spin', ...omegas.map((w) => `Mω=${w}`)], SPINS.map((spin) => [spin, ...withOmega.filter((r) => r.spin === spin).map((r) => `${fmt(r.ms)} / ${r.rhsEvaluations}`)])));
+  console.log(
+    '\ncost against Mω (l = 2 (5/2 for s = 1/2), m = 1 (1/2), a = 0.7; eigenvalue solve included): ms / RHS evaluations',
+  );
+  console.log(
+    table(
+      ['spin', ...omegas.map((w) => `Mω=${w}`)],
+      SPINS.map((spin) => [spin, ...withOmega.filter((r) => r.spin === spin).map((r) => `${fmt(r.ms)} / ${r.rhsEvaluations}`)]),
+    ),
+  );
 
   const ls = [2, 5, 10, 20, 30, 40, 50];
   const withL = [];
@@ -157,14 +214,28 @@ function growth() {
     }
   }
   console.log('\ncost against l (m = 0, a = 0.7; eigenvalue solve included): ms / RHS evaluations');
-  console.log(table(['spin, Mω', ...ls.map((l) => `l=${l}`)], [0, 2].flatMap((spin) => [1, 10].map((omega) => [`s=${spin}, Mω=${omega}`,
-    ...withL.filter((r) => r.spin === spin && r.omega === omega).map((r) => `${fmt(r.ms)} / ${r.rhsEvaluations}`)]))));
+  console.log(
+    table(
+      ['spin, Mω', ...ls.map((l) => `l=${l}`)],
+      [0, 2].flatMap((spin) =>
+        [1, 10].map((omega) => [
+          `s=${spin}, Mω=${omega}`,
+          ...withL.filter((r) => r.spin === spin && r.omega === omega).map((r) => `${fmt(r.ms)} / ${r.rhsEvaluations}`),
+        ]),
+      ),
+    ),
+  );
   return { withOmega, withL };
 }
 
 function main() {
   const cpus = os.cpus();
-  console.log(`cost benchmark at tol ${TOL}; node ${process.version}; ${cpus[0]?.model ?? 'cpu'} × ${cpus.length}; load average ${os.loadavg().map((x) => x.toFixed(1)).join(' ')}`);
+  console.log(
+    `cost benchmark at tol ${TOL}; node ${process.version}; ${cpus[0]?.model ?? 'cpu'} × ${cpus.length}; load average ${os
+      .loadavg()
+      .map((x) => x.toFixed(1))
+      .join(' ')}`,
+  );
   const cov = coverage();
   const gr = growth();
   const path = writeResult('cost', {

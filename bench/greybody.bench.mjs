@@ -67,20 +67,29 @@ function accuracy(set, pick) {
 function main() {
   const modes = benchModes();
   const cpus = os.cpus();
-  console.log(`greybody benchmark: ${modes.length} modes; node ${process.version}; ${cpus[0]?.model ?? 'cpu'} × ${cpus.length}; load average ${os.loadavg().map((x) => x.toFixed(1)).join(' ')}`);
+  console.log(
+    `greybody benchmark: ${modes.length} modes; node ${process.version}; ${cpus[0]?.model ?? 'cpu'} × ${cpus.length}; load average ${os
+      .loadavg()
+      .map((x) => x.toFixed(1))
+      .join(' ')}`,
+  );
 
   // References first (untimed).
   const rows = modes.map((mode) => ({
     ...mode,
     A: spheroidalEigenvalue({ s: mode.spin, l: mode.l, m: mode.m, c: mode.a * mode.omega }).A,
     reference: greybody(asProblem(mode), { tol: REFERENCE_TOL, reflection: false }).gamma,
-    reggeWheeler: mode.a === 0 ? schwarzschildGreybody({ field: { spin: mode.spin }, l: mode.l, omega: mode.omega }, { tol: REFERENCE_TOL }).gamma : null,
+    reggeWheeler:
+      mode.a === 0
+        ? schwarzschildGreybody({ field: { spin: mode.spin }, l: mode.l, omega: mode.omega }, { tol: REFERENCE_TOL }).gamma
+        : null,
     penumbra: {},
     peer: {},
   }));
 
   // Warm the JIT on the whole set twice before any timing.
-  for (let pass = 0; pass < 2; pass++) for (const mode of modes) for (const run of PENUMBRA_RUNS) greybody(asProblem(mode), { tol: run.tol });
+  for (let pass = 0; pass < 2; pass++)
+    for (const mode of modes) for (const run of PENUMBRA_RUNS) greybody(asProblem(mode), { tol: run.tol });
 
   for (const row of rows) {
     const problem = { spin: row.spin, l: row.l, m: row.m, a: row.a, omega: row.omega };
@@ -104,13 +113,19 @@ function main() {
       };
     }
     const gammaOnly = greybody(asProblem(problem), { reflection: false });
-    row.penumbra.gammaOnly = { rhsEvaluations: gammaOnly.diagnostics.rhsEvaluations, ms: medianMs(() => greybody(asProblem(problem), { reflection: false }), TIMING_REPEATS) };
+    row.penumbra.gammaOnly = {
+      rhsEvaluations: gammaOnly.diagnostics.rhsEvaluations,
+      ms: medianMs(() => greybody(asProblem(problem), { reflection: false }), TIMING_REPEATS),
+    };
   }
 
   const peerMeta = [];
   let peerSkipped = null;
   for (const run of PEER_RUNS) {
-    const peer = runPeer(rows.map(({ spin, l, m, a, omega, A }) => ({ spin, l, m, a, omega, A })), { tol: TOL, rtolFactor: run.rtolFactor, repeat: TIMING_REPEATS });
+    const peer = runPeer(
+      rows.map(({ spin, l, m, a, omega, A }) => ({ spin, l, m, a, omega, A })),
+      { tol: TOL, rtolFactor: run.rtolFactor, repeat: TIMING_REPEATS },
+    );
     if (!peer.ok) {
       peerSkipped = `${peer.reason}: ${peer.detail}`;
       console.log(`peer skipped: ${peer.reason}\n  (${peer.detail})`);
@@ -121,7 +136,14 @@ function main() {
     results.forEach((p, i) => {
       rows[i].peer[run.label] = p.error
         ? { error: p.error, gamma: Number.NaN, ms: 1e3 * p.seconds }
-        : { gamma: p.gamma, ms: 1e3 * p.seconds, cpuMs: 1e3 * p.cpuSeconds, rhsEvaluations: p.rhsEvaluations, steps: p.steps, matchRadius: p.matchRadius };
+        : {
+            gamma: p.gamma,
+            ms: 1e3 * p.seconds,
+            cpuMs: 1e3 * p.cpuSeconds,
+            rhsEvaluations: p.rhsEvaluations,
+            steps: p.steps,
+            matchRadius: p.matchRadius,
+          };
     });
   }
   const peerRuns = peerSkipped ? [] : PEER_RUNS;
@@ -154,7 +176,9 @@ function main() {
     for (const run of PENUMBRA_RUNS) {
       const pen = s.penumbra[run.label];
       if (peerRuns.length === 0) continue;
-      const match = peerRuns.find((p) => s.peer[p.label].medianRelError <= pen.medianRelError && s.peer[p.label].maxRelError <= pen.maxRelError);
+      const match = peerRuns.find(
+        (p) => s.peer[p.label].medianRelError <= pen.medianRelError && s.peer[p.label].maxRelError <= pen.maxRelError,
+      );
       const peerLabel = (match ?? peerRuns[peerRuns.length - 1]).label;
       const peer = s.peer[peerLabel];
       s.equalAccuracy.push({
@@ -173,7 +197,9 @@ function main() {
     return s;
   });
 
-  console.log(`\nTime and cost per mode (median over the modes of each spin. CPU time: penumbra per call over a batch ≥ 20 ms, the peer median of ${TIMING_REPEATS} runs; wall time: median of ${TIMING_REPEATS} single runs, both sides). Penumbra times include the spheroidal eigenvalue solve (cache cleared; cached in brackets); the peer receives A as an input.`);
+  console.log(
+    `\nTime and cost per mode (median over the modes of each spin. CPU time: penumbra per call over a batch ≥ 20 ms, the peer median of ${TIMING_REPEATS} runs; wall time: median of ${TIMING_REPEATS} single runs, both sides). Penumbra times include the spheroidal eigenvalue solve (cache cleared; cached in brackets); the peer receives A as an input.`,
+  );
   const cfgs = [
     ...PENUMBRA_RUNS.map((r) => ({ label: r.label, get: (s) => s.penumbra[r.label], penumbra: true })),
     ...peerRuns.map((r) => ({ label: r.label, get: (s) => s.peer[r.label] })),
@@ -181,21 +207,59 @@ function main() {
   for (const spin of SPINS) {
     const s = summary.find((x) => x.spin === spin);
     console.log(`\nspin ${spin} (${s.modes} modes)`);
-    console.log(table(['solver', 'CPU ms/mode', 'wall ms/mode', 'RHS evals/mode', 'median rel. error', 'max rel. error', 'max vs RW (a=0)', 'failed'], cfgs.map((c) => {
-      const x = c.get(s);
-      return [c.label, fmt(x.cpuMsPerMode), c.penumbra ? `${fmt(x.msPerMode)} [${fmt(x.msPerModeCachedEigenvalue)}]` : fmt(x.msPerMode), Math.round(x.rhsEvaluationsPerMode),
-        fmt(x.medianRelError), fmt(x.maxRelError), fmt(x.maxRelErrorVsReggeWheeler), x.failures];
-    })));
+    console.log(
+      table(
+        [
+          'solver',
+          'CPU ms/mode',
+          'wall ms/mode',
+          'RHS evals/mode',
+          'median rel. error',
+          'max rel. error',
+          'max vs RW (a=0)',
+          'failed',
+        ],
+        cfgs.map((c) => {
+          const x = c.get(s);
+          return [
+            c.label,
+            fmt(x.cpuMsPerMode),
+            c.penumbra ? `${fmt(x.msPerMode)} [${fmt(x.msPerModeCachedEigenvalue)}]` : fmt(x.msPerMode),
+            Math.round(x.rhsEvaluationsPerMode),
+            fmt(x.medianRelError),
+            fmt(x.maxRelError),
+            fmt(x.maxRelErrorVsReggeWheeler),
+            x.failures,
+          ];
+        }),
+      ),
+    );
     for (const e of s.equalAccuracy) {
-      console.log(`  ${e.penumbra} vs ${e.peer}${e.peerAtLeastAsAccurate ? '' : ' (peer still less accurate)'}: ${fmt(e.speedupCpu)}× less CPU time; wall ${fmt(e.speedup)}× (${fmt(e.speedupCachedEigenvalue)}× with A cached)`);
+      console.log(
+        `  ${e.penumbra} vs ${e.peer}${e.peerAtLeastAsAccurate ? '' : ' (peer still less accurate)'}: ${fmt(e.speedupCpu)}× less CPU time; wall ${fmt(e.speedup)}× (${fmt(e.speedupCachedEigenvalue)}× with A cached)`,
+      );
     }
-    console.log(`  penumbra Γ only (reflection: false): ${fmt(s.penumbra.gammaOnly.msPerMode)} ms, ${Math.round(s.penumbra.gammaOnly.rhsEvaluationsPerMode)} RHS evals; reference (tol ${REFERENCE_TOL}) vs Regge–Wheeler: ${fmt(s.referenceVsReggeWheeler)}`);
+    console.log(
+      `  penumbra Γ only (reflection: false): ${fmt(s.penumbra.gammaOnly.msPerMode)} ms, ${Math.round(s.penumbra.gammaOnly.rhsEvaluationsPerMode)} RHS evals; reference (tol ${REFERENCE_TOL}) vs Regge–Wheeler: ${fmt(s.referenceVsReggeWheeler)}`,
+    );
   }
   if (peerRuns.length) {
-    console.log('\nRatio peer/penumbra of median CPU ms per mode [wall ms in brackets] (penumbra default tolerance, eigenvalue included):');
+    console.log(
+      '\nRatio peer/penumbra of median CPU ms per mode [wall ms in brackets] (penumbra default tolerance, eigenvalue included):',
+    );
     const d = PENUMBRA_RUNS[0].label;
-    console.log(table(['spin', ...peerRuns.map((r) => r.label)], summary.map((s) => [s.spin, ...peerRuns.map((r) =>
-      `${fmt(s.peer[r.label].cpuMsPerMode / s.penumbra[d].cpuMsPerMode)}× [${fmt(s.peer[r.label].msPerMode / s.penumbra[d].msPerMode)}×]`)])));
+    console.log(
+      table(
+        ['spin', ...peerRuns.map((r) => r.label)],
+        summary.map((s) => [
+          s.spin,
+          ...peerRuns.map(
+            (r) =>
+              `${fmt(s.peer[r.label].cpuMsPerMode / s.penumbra[d].cpuMsPerMode)}× [${fmt(s.peer[r.label].msPerMode / s.penumbra[d].msPerMode)}×]`,
+          ),
+        ]),
+      ),
+    );
   }
 
   const path = writeResult('greybody', {

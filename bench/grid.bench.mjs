@@ -13,7 +13,9 @@ import { parseArgs } from 'node:util';
 import { runGrid, validateGrid, gridChunks, shardChunks, gridTasks } from '../packages/grid/dist/index.js';
 import { explicitModes } from '../packages/grid/dist/internal.js';
 
-const { values } = parseArgs({ options: { sample: { type: 'string', default: '1' }, workers: { type: 'string', default: '1,2' } } });
+const { values } = parseArgs({
+  options: { sample: { type: 'string', default: '1' }, workers: { type: 'string', default: '1,2' } },
+});
 const sample = Number(values.sample);
 const workerCounts = values.workers.split(',').map(Number);
 
@@ -34,7 +36,9 @@ const shard = { k: 1, n: sample };
 const mine = shardChunks(chunks, shard);
 const sampleModes = mine.reduce((n, i) => n + tasks.slice(chunks[i].first, chunks[i].end).reduce((m, t) => m + modesOf(t), 0), 0);
 
-console.log(`grid: ${tasks.length} points, ${fullModes} modes; sample: shard 1/${sample}, ${mine.length} of ${chunks.length} chunks, ${sampleModes} modes`);
+console.log(
+  `grid: ${tasks.length} points, ${fullModes} modes; sample: shard 1/${sample}, ${mine.length} of ${chunks.length} chunks, ${sampleModes} modes`,
+);
 console.log(`machine: ${availableParallelism()} cores, Node ${process.version}`);
 
 const results = [];
@@ -52,7 +56,8 @@ for (const workers of workerCounts) {
   clearInterval(sampler);
   peakRss = Math.max(peakRss, process.memoryUsage().rss);
   // Modes actually written, failed ones included (they cost a full attempt too).
-  let modes = 0, failed = 0;
+  let modes = 0,
+    failed = 0;
   for (const name of readdirSync(join(dir, 'out', 'chunks'))) {
     for (const r of JSON.parse(readFileSync(join(dir, 'out', 'chunks', name), 'utf8')).results) {
       modes += r.rows.modes.length;
@@ -62,13 +67,22 @@ for (const workers of workerCounts) {
   rmSync(dir, { recursive: true, force: true });
   const rate = modes / seconds;
   results.push({ workers, modes, failed, seconds, rate, cpuSeconds, peakRssMiB: peakRss / 2 ** 20 });
-  console.log(`workers ${workers}: ${modes} modes (${failed} failed) in ${seconds.toFixed(1)} s = ${rate.toFixed(1)} modes/s; CPU ${cpuSeconds.toFixed(1)} s (${((1000 * cpuSeconds) / modes).toFixed(2)} ms/mode, ${(cpuSeconds / seconds).toFixed(2)} cores busy); peak RSS ${(peakRss / 2 ** 20).toFixed(0)} MiB (chunks computed ${run.chunksComputed})`);
+  console.log(
+    `workers ${workers}: ${modes} modes (${failed} failed) in ${seconds.toFixed(1)} s = ${rate.toFixed(1)} modes/s; CPU ${cpuSeconds.toFixed(1)} s (${((1000 * cpuSeconds) / modes).toFixed(2)} ms/mode, ${(cpuSeconds / seconds).toFixed(2)} cores busy); peak RSS ${(peakRss / 2 ** 20).toFixed(0)} MiB (chunks computed ${run.chunksComputed})`,
+  );
 }
 const one = results.find((r) => r.workers === 1);
 for (const r of results) {
-  if (one && r.workers > 1) console.log(`scaling ${r.workers} workers: speed-up ${(r.rate / one.rate).toFixed(2)}, efficiency ${((100 * r.rate) / one.rate / r.workers).toFixed(0)} %`);
+  if (one && r.workers > 1)
+    console.log(
+      `scaling ${r.workers} workers: speed-up ${(r.rate / one.rate).toFixed(2)}, efficiency ${((100 * r.rate) / one.rate / r.workers).toFixed(0)} %`,
+    );
 }
 if (one) {
-  const withMore = results.filter((r) => r.workers > 1).map((r) => `, ${(fullModes / r.rate / 60).toFixed(1)} min with ${r.workers}`);
-  console.log(`estimated full ${fullModes}-mode grid: ${(fullModes / one.rate / 60).toFixed(1)} min with 1 worker${withMore.join('')}`);
+  const withMore = results
+    .filter((r) => r.workers > 1)
+    .map((r) => `, ${(fullModes / r.rate / 60).toFixed(1)} min with ${r.workers}`);
+  console.log(
+    `estimated full ${fullModes}-mode grid: ${(fullModes / one.rate / 60).toFixed(1)} min with 1 worker${withMore.join('')}`,
+  );
 }

@@ -87,7 +87,12 @@ export function runPeer(modes, { tol, rtolFactor = 1, repeat = 1 }) {
     encoding: 'utf8',
     maxBuffer: 256 * 1024 * 1024,
   });
-  if (run.error) return { ok: false, reason: 'scipy not available', detail: `${python} could not be run (${run.error.code ?? run.error.message})` };
+  if (run.error)
+    return {
+      ok: false,
+      reason: 'scipy not available',
+      detail: `${python} could not be run (${run.error.code ?? run.error.message})`,
+    };
   if (run.status === 3) return { ok: false, reason: 'scipy not available', detail: run.stderr.trim() };
   if (run.status !== 0) throw new Error(`peer failed with status ${run.status}: ${run.stderr}`);
   return { ok: true, data: JSON.parse(run.stdout) };

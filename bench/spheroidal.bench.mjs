@@ -66,8 +66,14 @@ for (const { l, m } of modes) {
 const n = modes.length * cs.length;
 console.log(`spheroidal eigenvalues, s = −2, l = 2…10, all m (${modes.length} modes) × 200 c in [0, 10] = ${n} solves`);
 console.log(`  with continuation: median ${warmEig.median.toFixed(2)} µs (mean ${warmEig.mean.toFixed(2)} µs) per eigenvalue`);
-console.log(`                     median ${warmHarm.median.toFixed(2)} µs (mean ${warmHarm.mean.toFixed(2)} µs) per eigenvalue + S, dS on 64 θ`);
+console.log(
+  `                     median ${warmHarm.median.toFixed(2)} µs (mean ${warmHarm.mean.toFixed(2)} µs) per eigenvalue + S, dS on 64 θ`,
+);
 console.log(`  cold:              median ${coldEig.median.toFixed(2)} µs (mean ${coldEig.mean.toFixed(2)} µs) per eigenvalue`);
-console.log(`                     median ${coldHarm.median.toFixed(2)} µs (mean ${coldHarm.mean.toFixed(2)} µs) per eigenvalue + S, dS on 64 θ`);
-console.log(`accuracy: warm vs cold max |ΔA|/max(1,|A|) = ${warmVsCold.toExponential(1)}; spectral vs Leaver continued fraction (${modes.length * 10} points) max = ${leaverAgreement.toExponential(1)}`);
+console.log(
+  `                     median ${coldHarm.median.toFixed(2)} µs (mean ${coldHarm.mean.toFixed(2)} µs) per eigenvalue + S, dS on 64 θ`,
+);
+console.log(
+  `accuracy: warm vs cold max |ΔA|/max(1,|A|) = ${warmVsCold.toExponential(1)}; spectral vs Leaver continued fraction (${modes.length * 10} points) max = ${leaverAgreement.toExponential(1)}`,
+);
 console.log(`target: < 20 µs per eigenvalue with continuation — ${warmEig.median < 20 ? 'met' : 'NOT met'}`);

@@ -36,7 +36,10 @@ describe('agreement with the 40-digit mpmath reference (test/fixtures/greybody)'
       expect(r.digits, where).toBeGreaterThan(12);
       const A = spheroidalEigenvalue({ s: r.spin, l: r.l, m: r.m!, c: r.a! * r.omega }).A;
       expect(Math.abs(A - r.A!) / Math.max(1, Math.abs(r.A!)), where).toBeLessThan(1e-13);
-      const g = greybody({ hole: { a: r.a! }, mode: { field: { spin: r.spin }, l: r.l, m: r.m! }, omega: r.omega }, { tol: 1e-10 });
+      const g = greybody(
+        { hole: { a: r.a! }, mode: { field: { spin: r.spin }, l: r.l, m: r.m! }, omega: r.omega },
+        { tol: 1e-10 },
+      );
       expect(Math.abs(g.gamma / Number(r.gamma_str) - 1), where).toBeLessThan(1e-9);
       expect(Math.abs(g.reflection - Number(r.reflection_str)), where).toBeLessThan(1e-9);
     }
@@ -44,7 +47,10 @@ describe('agreement with the 40-digit mpmath reference (test/fixtures/greybody)'
   it('Kerr rows include superradiant points (Γ < 0) of the boson spins with m > 0 in the set (s = 1, 2; the s = 0 rows have m = 0)', () => {
     const sr = kerr.filter((r) => Number(r.gamma_str) < 0);
     expect(new Set(sr.map((r) => r.spin))).toEqual(new Set([1, 2]));
-    for (const r of sr) expect(greybody({ hole: { a: r.a! }, mode: { field: { spin: r.spin }, l: r.l, m: r.m! }, omega: r.omega }).gamma).toBeLessThan(0);
+    for (const r of sr)
+      expect(
+        greybody({ hole: { a: r.a! }, mode: { field: { spin: r.spin }, l: r.l, m: r.m! }, omega: r.omega }).gamma,
+      ).toBeLessThan(0);
   });
   it(`Schwarzschild: all ${schwarzschild.length} Regge–Wheeler/Dirac rows with ≥ 11 digits, Γ from the Teukolsky route to 1e-9 relative`, () => {
     let used = 0;

@@ -65,7 +65,9 @@ async function runBlock(name: string, block: CodeBlock): Promise<string[]> {
 
 afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 
-const packages = readdirSync(packagesDir).filter((d) => existsSync(join(packagesDir, d, 'package.json'))).sort();
+const packages = readdirSync(packagesDir)
+  .filter((d) => existsSync(join(packagesDir, d, 'package.json')))
+  .sort();
 
 describe('package README examples are executed by a test', () => {
   for (const pkg of packages) {

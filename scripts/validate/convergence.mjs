@@ -31,22 +31,34 @@ export function convergenceStudy() {
     byCost.push({ name: label, points: runs.map((d) => [d.rhs, d.achieved]) });
   }
   const errorAxis = { title: '|Γ/Γ(tol 1e-12) − 1|', scale: 'log', format: '.0e' };
-  const common = { style: 'report', width: 420, height: 300, y: errorAxis, legend: { title: 'mode', position: 'bottom' }, markers: true };
+  const common = {
+    style: 'report',
+    width: 420,
+    height: 300,
+    y: errorAxis,
+    legend: { title: 'mode', position: 'bottom' },
+    markers: true,
+  };
   const figures = [
     {
       name: 'convergence-tolerance',
-      caption: 'Convergence: achieved relative error of Γ against the requested tolerance (dashed: error = tolerance; errors below 1e-15 drawn at 1e-15)',
+      caption:
+        'Convergence: achieved relative error of Γ against the requested tolerance (dashed: error = tolerance; errors below 1e-15 drawn at 1e-15)',
       figure: {
         ...common,
         title: 'Achieved error against requested tolerance (Γ only)',
         x: { title: 'requested tolerance', scale: 'log', format: '.0e' },
         series: inLegendOrder(byTolerance),
-        guide: [[1e-11, 1e-11], [1e-2, 1e-2]],
+        guide: [
+          [1e-11, 1e-11],
+          [1e-2, 1e-2],
+        ],
       },
     },
     {
       name: 'convergence-cost',
-      caption: 'Convergence: achieved relative error of Γ against the number of right-hand-side evaluations (all solves, including the error-estimate solve)',
+      caption:
+        'Convergence: achieved relative error of Γ against the number of right-hand-side evaluations (all solves, including the error-estimate solve)',
       figure: {
         ...common,
         title: 'Achieved error against cost (Γ only)',

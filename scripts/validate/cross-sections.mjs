@@ -13,14 +13,30 @@ export function crossSectionSection() {
     [2, (16 / 45) * AH * w ** 4, '(16/45) A_H M⁴ω⁴', 'Page (1976) low-frequency formula, l = 2'],
   ].map(([spin, expected, label, source]) => {
     const r = absorptionCrossSection({ hole: { a: 0 }, field: { spin }, omega: w });
-    return [spinLabel(spin), w, sig(r.sigma), `${label} = ${sig(expected)}`, rel(Math.abs(r.sigma / expected - 1)), rel(2 * Math.PI * w), source];
+    return [
+      spinLabel(spin),
+      w,
+      sig(r.sigma),
+      `${label} = ${sig(expected)}`,
+      rel(Math.abs(r.sigma / expected - 1)),
+      rel(2 * Math.PI * w),
+      source,
+    ];
   });
   const capture = [];
   for (const spin of SPINS) {
     for (const omega of [3, 5]) {
       const r = absorptionCrossSection({ hole: { a: 0 }, field: { spin }, omega }, { tol: 1e-6 });
-      capture.push([spinLabel(spin), omega, sig(r.sigma), sig(27 * Math.PI), rel(Math.abs(r.sigma / (27 * Math.PI) - 1)), r.diagnostics.lMax, rel(r.diagnostics.droppedBound / r.sigma),
-        'Misner, Thorne & Wheeler, *Gravitation* (1973): geometric-optics capture cross-section 27πM²']);
+      capture.push([
+        spinLabel(spin),
+        omega,
+        sig(r.sigma),
+        sig(27 * Math.PI),
+        rel(Math.abs(r.sigma / (27 * Math.PI) - 1)),
+        r.diagnostics.lMax,
+        rel(r.diagnostics.droppedBound / r.sigma),
+        'Misner, Thorne & Wheeler, *Gravitation* (1973): geometric-optics capture cross-section 27πM²',
+      ]);
     }
   }
   return {
@@ -44,11 +60,15 @@ export function crossSectionFigure() {
   const omegas = Array.from({ length: 36 }, (_, i) => 0.02 * Math.pow(300, i / 35));
   const series = SPINS.map((spin) => ({
     name: spinName[spin],
-    points: omegas.map((omega) => [omega, absorptionCrossSection({ hole: { a: 0 }, field: { spin }, omega }, { tol: 1e-6 }).sigma]),
+    points: omegas.map((omega) => [
+      omega,
+      absorptionCrossSection({ hole: { a: 0 }, field: { spin }, omega }, { tol: 1e-6 }).sigma,
+    ]),
   }));
   return {
     name: 'cross-section',
-    caption: 'σ(ω) for the four fields at a = 0 approaching the geometric-optics capture cross-section 27πM² (the scalar tends to the horizon area 16πM² as ω → 0)',
+    caption:
+      'σ(ω) for the four fields at a = 0 approaching the geometric-optics capture cross-section 27πM² (the scalar tends to the horizon area 16πM² as ω → 0)',
     figure: {
       style: 'report',
       title: 'Absorption cross-section σ(ω) at a = 0',
@@ -59,7 +79,10 @@ export function crossSectionFigure() {
       series: inLegendOrder(series),
       legend: { title: 'field' },
       markers: 14,
-      rules: [{ y: 27 * Math.PI, label: '27πM² (capture)' }, { y: 16 * Math.PI, label: '16πM² = A_H (s = 0, ω → 0)' }],
+      rules: [
+        { y: 27 * Math.PI, label: '27πM² (capture)' },
+        { y: 16 * Math.PI, label: '16πM² = A_H (s = 0, ω → 0)' },
+      ],
     },
   };
 }

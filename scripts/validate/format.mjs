@@ -20,7 +20,11 @@ export const pct = (x, d = 3) => `${(100 * x).toPrecision(d)} %`;
 /** A Markdown table; `|` in cells is escaped. */
 export function mdTable(header, rows) {
   const cell = (x) => String(x).replaceAll('|', '\\|');
-  return [`| ${header.map(cell).join(' | ')} |`, `| ${header.map(() => '---').join(' | ')} |`, ...rows.map((r) => `| ${r.map(cell).join(' | ')} |`)].join('\n');
+  return [
+    `| ${header.map(cell).join(' | ')} |`,
+    `| ${header.map(() => '---').join(' | ')} |`,
+    ...rows.map((r) => `| ${r.map(cell).join(' | ')} |`),
+  ].join('\n');
 }
 
 /** The field spins the report covers. */

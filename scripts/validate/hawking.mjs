@@ -14,8 +14,16 @@ export function hawkingPowerSection() {
   const rows = PAGE.map(([spin, dof, page, what]) => {
     const r = emissionTotals({ hole: { a: 0 }, field: { spin } }, { tol: 1e-5 });
     const p = r.power.value * dof;
-    return [spinLabel(spin), what, dof, sig(p, 4), sig(page, 3), rel(Math.abs(p / page - 1)), rel(r.power.relError),
-      'Page, Phys. Rev. D 13, 198 (1976) (values from memory, three figures)'];
+    return [
+      spinLabel(spin),
+      what,
+      dof,
+      sig(p, 4),
+      sig(page, 3),
+      rel(Math.abs(p / page - 1)),
+      rel(r.power.relError),
+      'Page, Phys. Rev. D 13, 198 (1976) (values from memory, three figures)',
+    ];
   });
   return {
     title: 'Hawking power of a Schwarzschild hole',
@@ -33,14 +41,17 @@ export function emissionFigure() {
   const grid = { spacing: 'linear', from: 0.01, to: 1.6, count: 48 };
   const panels = [0, 0.99].map((a) => ({
     title: `a = ${a}`,
-    series: inLegendOrder(SPINS.map((spin) => ({
-      name: spinName[spin],
-      points: emissionSpectrum({ hole: { a }, field: { spin }, grid }, { tol: 1e-4 }).points.map((p) => [p.omega, p.energy]),
-    }))),
+    series: inLegendOrder(
+      SPINS.map((spin) => ({
+        name: spinName[spin],
+        points: emissionSpectrum({ hole: { a }, field: { spin }, grid }, { tol: 1e-4 }).points.map((p) => [p.omega, p.energy]),
+      })),
+    ),
   }));
   return {
     name: 'emission',
-    caption: 'Emission spectra of the four fields (one degree of freedom each) at a = 0 and a = 0.99 M, from @penumbra/emission (tolerance 1e-4)',
+    caption:
+      'Emission spectra of the four fields (one degree of freedom each) at a = 0 and a = 0.99 M, from @penumbra/emission (tolerance 1e-4)',
     figure: {
       style: 'report',
       title: 'Hawking emission per degree of freedom, d²E/(dt dω)',

@@ -9,7 +9,12 @@ import { SPINS, halfLabel, mdTable, rel, spinLabel } from './format.mjs';
 export function kerrReferenceSection(root) {
   const fixture = JSON.parse(readFileSync(join(root, 'test/fixtures/greybody/reference.json'), 'utf8'));
   const rows = SPINS.map((spin) => {
-    let n = 0, worstG = 0, worstR = 0, worstA = 0, where = '', minDigits = Infinity;
+    let n = 0,
+      worstG = 0,
+      worstR = 0,
+      worstA = 0,
+      where = '',
+      minDigits = Infinity;
     for (const r of fixture.kerr.rows.filter((x) => x.spin === spin)) {
       const g = greybody({ hole: { a: r.a }, mode: { field: { spin }, l: r.l, m: r.m }, omega: r.omega }, { tol: 1e-10 });
       const A = spheroidalEigenvalue({ s: spin, l: r.l, m: r.m, c: r.a * r.omega }).A;

@@ -6,8 +6,16 @@ const SOURCE = 'Page, Phys. Rev. D 13, 198 (1976), eqs. (13)–(14); Starobinsky
 
 export function lowFrequencySection() {
   const cases = [
-    [0, 0, 0, 0], [0, 1, 1, 0.9], [0.5, 0.5, 0.5, 0.9], [0.5, 1.5, -0.5, 0.5], [1, 1, 1, 0.7],
-    [1, 1, -1, 0.99], [1, 2, 0, 0], [2, 2, 2, 0.9], [2, 2, 1, 0.5], [2, 3, 3, 0.99],
+    [0, 0, 0, 0],
+    [0, 1, 1, 0.9],
+    [0.5, 0.5, 0.5, 0.9],
+    [0.5, 1.5, -0.5, 0.5],
+    [1, 1, 1, 0.7],
+    [1, 1, -1, 0.99],
+    [1, 2, 0, 0],
+    [2, 2, 2, 0.9],
+    [2, 2, 1, 0.5],
+    [2, 3, 3, 0.99],
   ];
   const rows = cases.map(([spin, l, m, a]) => {
     const dev = [1e-3, 1e-4].map((omega) => {
@@ -18,7 +26,19 @@ export function lowFrequencySection() {
     const bound = 4 * 2 * Math.PI * 1e-4;
     const shrink = dev[0].d / dev[1].d;
     const pass = Math.abs(dev[1].d) < bound && shrink > 7 && shrink < 13 && Math.sign(dev[1].g) === Math.sign(dev[1].f);
-    return [spinLabel(spin), halfLabel(l), halfLabel(m), a, sig(dev[1].g), sig(dev[1].f), rel(Math.abs(dev[0].d)), rel(Math.abs(dev[1].d)), sig(shrink, 3), pass ? 'yes' : '**no**', SOURCE];
+    return [
+      spinLabel(spin),
+      halfLabel(l),
+      halfLabel(m),
+      a,
+      sig(dev[1].g),
+      sig(dev[1].f),
+      rel(Math.abs(dev[0].d)),
+      rel(Math.abs(dev[1].d)),
+      sig(shrink, 3),
+      pass ? 'yes' : '**no**',
+      SOURCE,
+    ];
   });
   return {
     title: 'Low-frequency limit of Γ',

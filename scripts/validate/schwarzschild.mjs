@@ -20,7 +20,14 @@ export function schwarzschildSection() {
         if (d > worst) [worst, where] = [d, `l = ${halfLabel(l)}, Mω = ${omega}`];
       }
     }
-    return [spinLabel(spin), n, rel(worst), where, '1e-9', spin === 0.5 ? 'Chandrasekhar (1983): real Dirac potential, Γ = |T|²' : 'Regge–Wheeler equation, Γ = |T|² (physics notes)'];
+    return [
+      spinLabel(spin),
+      n,
+      rel(worst),
+      where,
+      '1e-9',
+      spin === 0.5 ? 'Chandrasekhar (1983): real Dirac potential, Γ = |T|²' : 'Regge–Wheeler equation, Γ = |T|² (physics notes)',
+    ];
   });
   return {
     title: 'Schwarzschild limit against an independent solver',

@@ -10,7 +10,11 @@ export function speedSection(root) {
 
 function speedText(root) {
   const dir = join(root, 'bench', 'results');
-  const files = existsSync(dir) ? readdirSync(dir).filter((f) => /^greybody-\d{4}-\d{2}-\d{2}\.json$/.test(f)).sort() : [];
+  const files = existsSync(dir)
+    ? readdirSync(dir)
+        .filter((f) => /^greybody-\d{4}-\d{2}-\d{2}\.json$/.test(f))
+        .sort()
+    : [];
   if (files.length === 0) return 'No benchmark results yet: run `npm run bench`.';
   const file = files[files.length - 1];
   const run = JSON.parse(readFileSync(join(dir, file), 'utf8'));
@@ -19,10 +23,20 @@ function speedText(root) {
   const rows = (run.summary ?? []).map((s) => {
     const p = s.penumbra[defaultRun];
     const ms = (x) => x.cpuMsPerMode ?? x.msPerMode;
-    const cells = [spinLabel(s.spin), s.modes, sig(ms(p), 3), Math.round(p.rhsEvaluationsPerMode), `${rel(p.medianRelError)} / ${rel(p.maxRelError)}`];
+    const cells = [
+      spinLabel(s.spin),
+      s.modes,
+      sig(ms(p), 3),
+      Math.round(p.rhsEvaluationsPerMode),
+      `${rel(p.medianRelError)} / ${rel(p.maxRelError)}`,
+    ];
     for (const label of peerLabels) {
       const q = s.peer?.[label];
-      cells.push(q ? `${sig(ms(q), 3)} (${sig(ms(q) / ms(p), 3)}×), ${Math.round(q.rhsEvaluationsPerMode)} evals, ${rel(q.medianRelError)} / ${rel(q.maxRelError)}` : '—');
+      cells.push(
+        q
+          ? `${sig(ms(q), 3)} (${sig(ms(q) / ms(p), 3)}×), ${Math.round(q.rhsEvaluationsPerMode)} evals, ${rel(q.medianRelError)} / ${rel(q.maxRelError)}`
+          : '—',
+      );
     }
     return cells;
   });

@@ -9,7 +9,8 @@ const SOURCE = 'Teukolsky & Press, ApJ 193, 443 (1974) (values from memory, roun
 /** Peak of Z = −Γ over 0 < ω < mΩ_H: an n-point scan, then golden-section search. */
 function peakAmplification(spin, l, m, a, n = 40) {
   const omegaH = kerrHole({ a: a }).omegaH;
-  const f = (w) => greybody({ hole: { a }, mode: { field: { spin }, l, m }, omega: w }, { tol: 1e-7, reflection: false }).amplification;
+  const f = (w) =>
+    greybody({ hole: { a }, mode: { field: { spin }, l, m }, omega: w }, { tol: 1e-7, reflection: false }).amplification;
   let best = 0;
   let bestW = 0;
   for (let i = 1; i < n; i++) {
@@ -43,8 +44,18 @@ export function superradianceSection() {
   ];
   const rows = cases.map(([spin, l, m, a, published, note]) => {
     const p = peakAmplification(spin, l, m, a, spin === 2 ? 20 : 40);
-    return [spinLabel(spin), l, m, a, pct(p.z, 4), sig(p.w / (m * p.omegaH), 4), published === null ? '—' : pct(published, 3),
-      published === null ? '—' : rel(Math.abs(p.z / published - 1)), note, SOURCE];
+    return [
+      spinLabel(spin),
+      l,
+      m,
+      a,
+      pct(p.z, 4),
+      sig(p.w / (m * p.omegaH), 4),
+      published === null ? '—' : pct(published, 3),
+      published === null ? '—' : rel(Math.abs(p.z / published - 1)),
+      note,
+      SOURCE,
+    ];
   });
   return {
     title: 'Superradiant amplification maxima',
@@ -63,14 +74,21 @@ ${mdTable(['s', 'l', 'm', 'a/M', 'peak Z', 'at ω/(mΩ_H)', 'published', '|rel. 
 }
 
 export function superradianceFigure() {
-  const panels = [[0, 1, 1], [1, 1, 1], [2, 2, 2]].map(([spin, l, m]) => {
+  const panels = [
+    [0, 1, 1],
+    [1, 1, 1],
+    [2, 2, 2],
+  ].map(([spin, l, m]) => {
     const series = [0.9, 0.99, 0.999].map((a) => {
       const omegaH = kerrHole({ a: a }).omegaH;
       const points = [];
       for (let i = 1; i <= 65; i++) {
         const x = (1.3 * i) / 65;
         if (Math.abs(x - 1) < 1e-9) continue;
-        const r = greybody({ hole: { a }, mode: { field: { spin }, l, m }, omega: x * m * omegaH }, { tol: 1e-7, reflection: false });
+        const r = greybody(
+          { hole: { a }, mode: { field: { spin }, l, m }, omega: x * m * omegaH },
+          { tol: 1e-7, reflection: false },
+        );
         points.push([x, 100 * r.amplification]);
       }
       return { name: `a = ${a}`, points };
@@ -81,7 +99,8 @@ export function superradianceFigure() {
   });
   return {
     name: 'superradiance',
-    caption: 'The superradiant band: amplification Z = −Γ against ω/(mΩ_H) for the most amplified modes; bosons are amplified exactly inside the shaded band',
+    caption:
+      'The superradiant band: amplification Z = −Γ against ω/(mΩ_H) for the most amplified modes; bosons are amplified exactly inside the shaded band',
     figure: {
       style: 'report',
       title: 'Superradiant band 0 < ω < mΩ_H (shaded)',

@@ -80,7 +80,11 @@ export function spectrumTable(rows: readonly SpectrumRow[], physical: boolean): 
 }
 
 /** Totals (and the spectrum, if any) as text for people. */
-export function emissionText(totals: Totals, physical: PhysicalTotals | undefined, spectrum: readonly SpectrumRow[] | undefined): string {
+export function emissionText(
+  totals: Totals,
+  physical: PhysicalTotals | undefined,
+  spectrum: readonly SpectrumRow[] | undefined,
+): string {
   const t: string[][] = [
     ['quantity', 'value', 'rel. error'],
     ['dN/dt  [1/M]', formatNumber(totals.numberRate.value, 8), formatError(totals.numberRate.relError)],

@@ -9,7 +9,10 @@ export function formatNumber(value: number, digits = 10): string {
   if (value === 0 || !Number.isFinite(value)) return String(value);
   const magnitude = Math.abs(value);
   if (magnitude >= 1e-4 && magnitude < 1e6) return String(Number(value.toPrecision(digits)));
-  return value.toExponential(digits - 1).replace(/\.?0+e/, 'e').replace('e+', 'e');
+  return value
+    .toExponential(digits - 1)
+    .replace(/\.?0+e/, 'e')
+    .replace('e+', 'e');
 }
 
 /** An error estimate or residual for people: two figures in exponent form, e.g. 3.2e-9. */

@@ -45,8 +45,19 @@ export function greybodyTable(results: readonly GreybodySolution[]): Table {
   return {
     columns: COLUMNS,
     rows: results.map((r) => [
-      r.mode.field.spin, r.mode.l, r.mode.m, r.hole.a, r.omega, r.gamma, r.reflection, r.residual, r.relError, r.k, r.superradiant,
-      r.diagnostics.matchRadius, r.diagnostics.rhsEvaluations,
+      r.mode.field.spin,
+      r.mode.l,
+      r.mode.m,
+      r.hole.a,
+      r.omega,
+      r.gamma,
+      r.reflection,
+      r.residual,
+      r.relError,
+      r.k,
+      r.superradiant,
+      r.diagnostics.matchRadius,
+      r.diagnostics.rhsEvaluations,
     ]),
   };
 }

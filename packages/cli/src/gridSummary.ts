@@ -3,7 +3,9 @@ import type { TableSummary } from '@penumbra/grid';
 
 /** Rows and failed rows per table, e.g. `modes 42 rows (0 failed)`. */
 export function countsText(summary: TableSummary): string {
-  return Object.entries(summary.rows).map(([t, n]) => `${t} ${n} rows (${summary.failed[t as keyof typeof summary.failed]} failed)`).join(', ');
+  return Object.entries(summary.rows)
+    .map(([t, n]) => `${t} ${n} rows (${summary.failed[t as keyof typeof summary.failed]} failed)`)
+    .join(', ');
 }
 
 /** One line per failed row, at most `limit`. */

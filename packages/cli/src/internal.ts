@@ -17,8 +17,24 @@ export {
   parseMassUnit,
   parseModeNumber,
 } from './options.js';
-export { type OutputFormat, type Output, JSON_OPTION, OUTPUT_OPTIONS, outputFormat, writeOutput, writeJson, writeCsv } from './output.js';
+export {
+  type OutputFormat,
+  type Output,
+  JSON_OPTION,
+  OUTPUT_OPTIONS,
+  outputFormat,
+  writeOutput,
+  writeJson,
+  writeCsv,
+} from './output.js';
 export { formatNumber, formatError, formatTable } from './format.js';
 export { progressReporter } from './progress.js';
 export { greybodyJson, greybodyTable, greybodyTextRows } from './greybodyTable.js';
-export { type Estimate, type Totals, type PhysicalTotals, type SpectrumRow, totalsTable, spectrumTable } from './emissionOutput.js';
+export {
+  type Estimate,
+  type Totals,
+  type PhysicalTotals,
+  type SpectrumRow,
+  totalsTable,
+  spectrumTable,
+} from './emissionOutput.js';

@@ -108,7 +108,8 @@ function describeRange({ min, max, exclusive = false }: NumberConstraints): stri
 /** Comma-separated numbers, e.g. '0,0.5,0.9'. */
 export function parseNumberList(option: string, text: string, constraints: NumberConstraints = {}): number[] {
   const items = text.split(',');
-  if (items.some((item) => item.trim() === '')) throw new UsageError(`${option} expects a comma-separated list of numbers, got '${text}'`);
+  if (items.some((item) => item.trim() === ''))
+    throw new UsageError(`${option} expects a comma-separated list of numbers, got '${text}'`);
   return items.map((item) => parseNumber(option, item, constraints));
 }
 
@@ -127,7 +128,11 @@ export function parseHoleA(option: string, text: string): number {
  * `allowNegative`, a signed spin weight s = ±spin. Core's InputError becomes a
  * UsageError naming the option.
  */
-export function parseFieldSpin(option: string, text: string, { allowNegative = false }: { allowNegative?: boolean } = {}): number {
+export function parseFieldSpin(
+  option: string,
+  text: string,
+  { allowNegative = false }: { allowNegative?: boolean } = {},
+): number {
   const trimmed = text.trim();
   const signed = allowNegative && /^[+-]/.test(trimmed);
   const magnitude = signed ? trimmed.slice(1) : trimmed;
@@ -171,7 +176,8 @@ export function parseRange(
   const stop = parseNumber(option, parts[1], constraints);
   const count = parseNumber(`${option} COUNT`, parts[2], { min: 1, max: maxCount, integer: true });
   if (count === 1 && start !== stop) throw new UsageError(`${option} needs COUNT ≥ 2 when START ≠ STOP, got '${text}'`);
-  if (log && !(start > 0 && stop > 0)) throw new UsageError(`${option} must be > 0 at both ends on a logarithmic grid, got '${text}'`);
+  if (log && !(start > 0 && stop > 0))
+    throw new UsageError(`${option} must be > 0 at both ends on a logarithmic grid, got '${text}'`);
   const values = log ? logGrid(start, stop, count) : linearGrid(start, stop, count);
   return { start, stop, count, values };
 }

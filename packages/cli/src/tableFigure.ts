@@ -48,11 +48,32 @@ interface Setup {
 }
 
 const SETUP: Record<PlotQuantity, Setup> = {
-  gamma: { table: 'modes', field: 'gamma', yTitle: 'Γ (absorbed fraction of the incident flux, dimensionless)', title: 'Greybody factor Γ_slm(ω)' },
-  reflection: { table: 'modes', field: 'reflection', yTitle: 'reflected fraction of the incident flux (dimensionless)', title: 'Reflection by mode' },
+  gamma: {
+    table: 'modes',
+    field: 'gamma',
+    yTitle: 'Γ (absorbed fraction of the incident flux, dimensionless)',
+    title: 'Greybody factor Γ_slm(ω)',
+  },
+  reflection: {
+    table: 'modes',
+    field: 'reflection',
+    yTitle: 'reflected fraction of the incident flux (dimensionless)',
+    title: 'Reflection by mode',
+  },
   crossSection: { table: 'crossSection', field: 'sigma', yTitle: 'σ_abs', yUnit: 'M²', title: 'Absorption cross-section σ(ω)' },
-  spectra: { table: 'spectra', field: 'number', yTitle: 'd²N/(dt dω) per degree of freedom (dimensionless)', title: 'Hawking emission spectrum (number)' },
-  energySpectra: { table: 'spectra', field: 'energy', yTitle: 'd²E/(dt dω) per degree of freedom', yUnit: '1/M', title: 'Hawking emission spectrum (energy)' },
+  spectra: {
+    table: 'spectra',
+    field: 'number',
+    yTitle: 'd²N/(dt dω) per degree of freedom (dimensionless)',
+    title: 'Hawking emission spectrum (number)',
+  },
+  energySpectra: {
+    table: 'spectra',
+    field: 'energy',
+    yTitle: 'd²E/(dt dω) per degree of freedom',
+    yUnit: '1/M',
+    title: 'Hawking emission spectrum (energy)',
+  },
 };
 
 const spinLabel = (s: number) => (Number.isInteger(s) ? String(s) : `${2 * s}/2`);
@@ -71,7 +92,10 @@ export function tableFigure(table: GridTable, options: TableFigureOptions = {}):
   const available = plotQuantities(table);
   const quantity = options.quantity ?? available.find((q) => q !== 'reflection' && q !== 'energySpectra');
   if (!quantity || !available.includes(quantity)) {
-    throw new GridError([`the table has no ${quantity ?? 'plottable quantity'}; it can draw ${available.join(', ') || 'nothing'}`], 'cannot plot');
+    throw new GridError(
+      [`the table has no ${quantity ?? 'plottable quantity'}; it can draw ${available.join(', ') || 'nothing'}`],
+      'cannot plot',
+    );
   }
   const setup = SETUP[quantity];
   let rows = table.tables[setup.table]!.rows;
@@ -89,15 +113,21 @@ export function tableFigure(table: GridTable, options: TableFigureOptions = {}):
     rows = rows.filter((r) => r.s === s && r.a === a);
     subtitle = `s = ${spinLabel(s)}, a = ${a} M`;
   } else if (options.s !== undefined || options.a !== undefined) {
-    const s = options.s, a = options.a;
+    const s = options.s,
+      a = options.a;
     rows = rows.filter((r) => (s === undefined || r.s === s) && (a === undefined || r.a === a));
-    if (rows.length === 0) throw new GridError([`no rows with${s !== undefined ? ` s = ${s}` : ''}${a !== undefined ? ` a = ${a}` : ''}`], 'cannot plot');
+    if (rows.length === 0)
+      throw new GridError(
+        [`no rows with${s !== undefined ? ` s = ${s}` : ''}${a !== undefined ? ` a = ${a}` : ''}`],
+        'cannot plot',
+      );
   }
   const good = rows.filter((r) => r.status === 'ok' && typeof r[setup.field] === 'number');
   const omitted = rows.length - good.length;
-  const label = (r: Row) => (perMode
-    ? `l = ${spinLabel(r.l as number)}, m = ${spinLabel(r.m as number)}`
-    : `s = ${spinLabel(r.s as number)}, a = ${r.a} M`);
+  const label = (r: Row) =>
+    perMode
+      ? `l = ${spinLabel(r.l as number)}, m = ${spinLabel(r.m as number)}`
+      : `s = ${spinLabel(r.s as number)}, a = ${r.a} M`;
   const series = seriesOf(good, label, setup.field);
   const names = series.map((s) => s.name);
   const omegas = good.map((r) => r.omega as number);
@@ -111,7 +141,9 @@ export function tableFigure(table: GridTable, options: TableFigureOptions = {}):
     ...(subtitle ? { subtitle } : {}),
     width: options.width ?? 560,
     height: options.height ?? 360,
-    x: xLog ? { title: 'ω', unit: '1/M', scale: 'log', nice: false } : { title: 'ω', unit: '1/M', scale: 'linear', nice: false, zero: false },
+    x: xLog
+      ? { title: 'ω', unit: '1/M', scale: 'log', nice: false }
+      : { title: 'ω', unit: '1/M', scale: 'linear', nice: false, zero: false },
     y: {
       title: setup.yTitle,
       ...(setup.yUnit ? { unit: setup.yUnit } : {}),

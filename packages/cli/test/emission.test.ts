@@ -18,15 +18,21 @@ describe('penumbra emission', () => {
     expect(Math.abs((2 * json.power.value) / 3.36e-5 - 1)).toBeLessThan(2e-3);
   });
   test('with --mass the power is also given in watts, P̂ ħc⁶/(G²M²) with CODATA 2018 constants (to 1e-12)', async () => {
-    const json = JSON.parse((await run('emission', '--a', '0', '--spin', '0', '--mass', '1e15', '--unit', 'g', '--tol', '1e-3', '--json')).stdout);
+    const json = JSON.parse(
+      (await run('emission', '--a', '0', '--spin', '0', '--mass', '1e15', '--unit', 'g', '--tol', '1e-3', '--json')).stdout,
+    );
     const { G, hbar, c } = CODATA2018;
     expect(Math.abs(json.physical.powerWatts / ((json.power.value * hbar * c ** 6) / (G * G * 1e24)) - 1)).toBeLessThan(1e-12);
   });
   test('a frequency grid adds spectrum rows; CSV carries units in the header', async () => {
-    const j = JSON.parse((await run('emission', '--a', '0', '--spin', '0', '--omega', '0.1:0.3:3', '--tol', '1e-3', '--json')).stdout);
+    const j = JSON.parse(
+      (await run('emission', '--a', '0', '--spin', '0', '--omega', '0.1:0.3:3', '--tol', '1e-3', '--json')).stdout,
+    );
     expect(j.spectrum).toHaveLength(3);
     expect(j.spectrum[1].omega).toBeCloseTo(0.2, 15);
-    const csv = (await run('emission', '--a', '0', '--spin', '0', '--omega', '0.1:0.3:3', '--tol', '1e-3', '--csv')).stdout.trim().split('\n');
+    const csv = (await run('emission', '--a', '0', '--spin', '0', '--omega', '0.1:0.3:3', '--tol', '1e-3', '--csv')).stdout
+      .trim()
+      .split('\n');
     expect(csv[0]).toBe('omega [1/M],number [1],energy [1/M],torque [1],relError [1],lMax [1]');
     expect(csv).toHaveLength(4);
     const cells = csv[2].split(',').map(Number);

@@ -15,7 +15,22 @@ describe('penumbra evolve', () => {
     expect(j.crossings.map((c: { aStar: number }) => c.aStar)).toEqual([0.5, 0.1]);
   });
   test('Schwarzschild lifetime with photons, gravitons and two neutrino species ≈ 8.66e-27 (M/1 g)³ s (Page 1976, value from memory) to 2e-3', async () => {
-    const j = JSON.parse((await run('evolve', '--a', '0', '--mass', '1', '--unit', 'g', '--content', 'photon,graviton,neutrino-e,neutrino-mu', '--json')).stdout);
+    const j = JSON.parse(
+      (
+        await run(
+          'evolve',
+          '--a',
+          '0',
+          '--mass',
+          '1',
+          '--unit',
+          'g',
+          '--content',
+          'photon,graviton,neutrino-e,neutrino-mu',
+          '--json',
+        )
+      ).stdout,
+    );
     expect(Math.abs(j.lifetimeSeconds / 8.66e-27 - 1)).toBeLessThan(2e-3);
   });
   test('CSV track with units in the header; unknown species and out-of-range a* exit with code 2', async () => {

@@ -14,16 +14,26 @@ describe('penumbra greybody', () => {
     expect(json.diagnostics).toHaveProperty('rhsEvaluations');
   });
   test('accepts half-integer spins and mode numbers as 1/2 and 0.5', async () => {
-    const a = JSON.parse((await run('greybody', '--spin', '1/2', '--l', '3/2', '--m', '-1/2', '--a', '0.5', '--omega', '0.4', '--json')).stdout);
-    const b = JSON.parse((await run('greybody', '--spin', '0.5', '--l', '1.5', '--m', '-0.5', '--a', '0.5', '--omega', '0.4', '--json')).stdout);
+    const a = JSON.parse(
+      (await run('greybody', '--spin', '1/2', '--l', '3/2', '--m', '-1/2', '--a', '0.5', '--omega', '0.4', '--json')).stdout,
+    );
+    const b = JSON.parse(
+      (await run('greybody', '--spin', '0.5', '--l', '1.5', '--m', '-0.5', '--a', '0.5', '--omega', '0.4', '--json')).stdout,
+    );
     expect(a.gamma).toBe(b.gamma);
   });
   test('a frequency grid gives a JSON array, and CSV with units in the header', async () => {
-    const j = JSON.parse((await run('greybody', '--spin', '0', '--l', '0', '--m', '0', '--a', '0', '--omega', '0.1:0.5:3', '--json')).stdout);
+    const j = JSON.parse(
+      (await run('greybody', '--spin', '0', '--l', '0', '--m', '0', '--a', '0', '--omega', '0.1:0.5:3', '--json')).stdout,
+    );
     expect(j).toHaveLength(3);
     expect(j.map((x: { omega: number }) => x.omega)).toEqual([0.1, 0.1 + (0.5 - 0.1) / 2, 0.5]);
-    const csv = (await run('greybody', '--spin', '0', '--l', '0', '--m', '0', '--a', '0', '--omega', '0.1:0.5:3', '--csv')).stdout.trim().split('\n');
-    expect(csv[0]).toBe('spin [1],l [1],m [1],a [M],omega [1/M],gamma [1],reflection [1],residual [1],relError [1],k [1/M],superradiant,matchRadius [M],rhsEvaluations');
+    const csv = (await run('greybody', '--spin', '0', '--l', '0', '--m', '0', '--a', '0', '--omega', '0.1:0.5:3', '--csv')).stdout
+      .trim()
+      .split('\n');
+    expect(csv[0]).toBe(
+      'spin [1],l [1],m [1],a [M],omega [1/M],gamma [1],reflection [1],residual [1],relError [1],k [1/M],superradiant,matchRadius [M],rhsEvaluations',
+    );
     expect(csv).toHaveLength(4);
     // Every CSV column is a JSON key (matchRadius and rhsEvaluations of the diagnostics) with the same value.
     csv[0].split(',').forEach((header, i) => {

@@ -42,7 +42,14 @@ describe('penumbra kerr', () => {
     expect(result.code).toBe(0);
     expect(result.stdout).toContain('Kerr hole with a = 0.9 M');
     expect(result.stdout).toMatch(new RegExp(`outer horizon\\s+r\\+\\s+${(1 + Math.sqrt(0.19)).toPrecision(10)}`));
-    for (const label of ['inner horizon', 'horizon angular velocity', 'surface gravity', 'Hawking temperature', 'horizon area', 'entropy']) {
+    for (const label of [
+      'inner horizon',
+      'horizon angular velocity',
+      'surface gravity',
+      'Hawking temperature',
+      'horizon area',
+      'entropy',
+    ]) {
       expect(result.stdout).toContain(label);
     }
   });

@@ -5,7 +5,7 @@ import { commands, UsageError, type Command, type CommandEntry } from '@penumbra
 import { run, runWith } from './helpers.js';
 
 describe('dispatch, help and version', () => {
-  test("every registry entry loads a command of the same name and summary", async () => {
+  test('every registry entry loads a command of the same name and summary', async () => {
     expect(commands.length).toBeGreaterThan(0);
     for (const entry of commands) {
       const { command } = await entry.load();
@@ -75,8 +75,18 @@ describe('error reporting: one line on stderr, exit codes 2 / 3 / 1, no stack tr
   test.each([
     ['UsageError', new UsageError('bad flag'), 2, /^penumbra: bad flag \(see 'penumbra probe --help'\)\n$/],
     ['InputError', new InputError('a', '|a| < M = 1', 2), 2, /^penumbra: invalid a = 2: allowed \|a\| < M = 1\n$/],
-    ['ConvergenceError', new ConvergenceError('no luck', { ...exactDiagnostics('probe'), steps: 7 }), 3, /^penumbra: not converged: no luck; diagnostics: \{"method":"probe","steps":7,[^\n]*\}\n$/],
-    ['any other error', new TypeError('boom\nsecond line'), 1, /^penumbra: internal error: boom second line \(set PENUMBRA_DEBUG=1 for the stack trace\)\n$/],
+    [
+      'ConvergenceError',
+      new ConvergenceError('no luck', { ...exactDiagnostics('probe'), steps: 7 }),
+      3,
+      /^penumbra: not converged: no luck; diagnostics: \{"method":"probe","steps":7,[^\n]*\}\n$/,
+    ],
+    [
+      'any other error',
+      new TypeError('boom\nsecond line'),
+      1,
+      /^penumbra: internal error: boom second line \(set PENUMBRA_DEBUG=1 for the stack trace\)\n$/,
+    ],
   ])('%s', async (_label, error, code, pattern) => {
     const result = await runWith([...commands, throwing(error)], 'probe');
     expect(result.code).toBe(code);

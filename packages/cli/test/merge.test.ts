@@ -33,13 +33,30 @@ describe('penumbra table --shard and penumbra merge', () => {
   test('shards 1/3, 2/3, 3/3 merged give the single run byte for byte (tables, chunks, grid.json)', async (context) => {
     if (buildProblem) context.skip(buildProblem);
     for (const k of [1, 2, 3]) {
-      const shard = await run('table', gridFile, '--out', join(work, `part${k}`), '--shard', `${k}/3`, '--workers', '1', '--quiet');
+      const shard = await run(
+        'table',
+        gridFile,
+        '--out',
+        join(work, `part${k}`),
+        '--shard',
+        `${k}/3`,
+        '--workers',
+        '1',
+        '--quiet',
+      );
       expect(shard.code, shard.stderr).toBe(0);
       expect(shard.stderr).toMatch(/not in .* yet; when every shard has finished, run 'penumbra merge/);
     }
     const chunkCounts = [1, 2, 3].map((k) => readdirSync(join(work, `part${k}`, 'chunks')).length);
     expect(chunkCounts.reduce((x, y) => x + y, 0)).toBe(4);
-    const merged = await run('merge', join(work, 'part1'), join(work, 'part2'), join(work, 'part3'), '--out', join(work, 'merged'));
+    const merged = await run(
+      'merge',
+      join(work, 'part1'),
+      join(work, 'part2'),
+      join(work, 'part3'),
+      '--out',
+      join(work, 'merged'),
+    );
     expect(merged.code, merged.stderr).toBe(0);
     expect(merged.stderr).toMatch(/4 chunks from 3 directories: modes \d+ rows \(0 failed\), crossSection 8 rows \(0 failed\)/);
     const single = tableFiles(join(work, 'single'));
@@ -50,7 +67,9 @@ describe('penumbra table --shard and penumbra merge', () => {
   test('shards writing into one shared directory leave the complete table there, equal to the single run', async (context) => {
     if (buildProblem) context.skip(buildProblem);
     const shared = join(work, 'shared');
-    const results = await Promise.all([1, 2].map((k) => run('table', gridFile, '--out', shared, '--shard', `${k}/2`, '--workers', '1', '--quiet')));
+    const results = await Promise.all(
+      [1, 2].map((k) => run('table', gridFile, '--out', shared, '--shard', `${k}/2`, '--workers', '1', '--quiet')),
+    );
     for (const r of results) expect(r.code, r.stderr).toBe(0);
     expect(tableFiles(shared)).toEqual(tableFiles(join(work, 'single')));
   });
@@ -59,7 +78,9 @@ describe('penumbra table --shard and penumbra merge', () => {
     if (buildProblem) context.skip(buildProblem);
     const missing = await run('merge', join(work, 'part1'), join(work, 'part2'), '--out', join(work, 'incomplete'));
     expect(missing.code).toBe(2);
-    expect(missing.stderr).toMatch(/^penumbra: cannot merge: incomplete: chunks? [\d, ]+ of 4 are in none of the directories[^\n]*\n$/);
+    expect(missing.stderr).toMatch(
+      /^penumbra: cannot merge: incomplete: chunks? [\d, ]+ of 4 are in none of the directories[^\n]*\n$/,
+    );
     const other = join(work, 'other');
     cpSync(join(work, 'part1'), other, { recursive: true });
     writeGridFile(other, { format: 'penumbra-grid/2', grid: { ...GRID, tolerance: 1e-7 } });

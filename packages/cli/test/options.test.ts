@@ -40,7 +40,7 @@ describe('CLI parsing helpers', () => {
     expect(() => parseNumberList('--l', '0,,2')).toThrow(UsageError);
   });
 
-  test("parseHoleA refuses |a/M| ≥ 1 with the InputError of kerrHole", () => {
+  test('parseHoleA refuses |a/M| ≥ 1 with the InputError of kerrHole', () => {
     expect(parseHoleA('--a', '-0.99')).toBe(-0.99);
     expect(() => parseHoleA('--a', '1')).toThrow(InputError);
     expect(() => parseHoleA('--a', 'x')).toThrow(UsageError);
@@ -56,8 +56,11 @@ describe('CLI parsing helpers', () => {
     expect(parseFieldSpin('--s', '+2', { allowNegative: true })).toBe(2);
     expect(Object.is(parseFieldSpin('--s', '-0', { allowNegative: true }), 0)).toBe(true);
     expect(() => parseFieldSpin('--s', '-1')).toThrow("--s expects a field spin {0, 1/2, 1, 2}, got '-1'");
-    expect(() => parseFieldSpin('--s', '3/2', { allowNegative: true })).toThrow("--s expects a field spin ±{0, 1/2, 1, 2}, got '3/2'");
-    for (const bad of ['', 'x', '3', '1/3', '--1']) expect(() => parseFieldSpin('--s', bad, { allowNegative: true })).toThrow(UsageError);
+    expect(() => parseFieldSpin('--s', '3/2', { allowNegative: true })).toThrow(
+      "--s expects a field spin ±{0, 1/2, 1, 2}, got '3/2'",
+    );
+    for (const bad of ['', 'x', '3', '1/3', '--1'])
+      expect(() => parseFieldSpin('--s', bad, { allowNegative: true })).toThrow(UsageError);
   });
 
   test('parseModeNumber reads integers and half-integers (3/2, -1/2, 1.5) and refuses quarters', () => {
@@ -121,6 +124,11 @@ describe('CLI parsing helpers', () => {
     expect(formatNumber(6.419008487e-3, 4)).toBe('0.006419');
     expect(formatNumber(2.4771004309650325e-24, 4)).toBe('2.477e-24');
     expect(formatError(3.24e-9)).toBe('3.2e-9');
-    expect(formatTable([['a', 'bb'], ['ccc', 'd', 'e']])).toBe('  a    bb\n  ccc  d   e\n');
+    expect(
+      formatTable([
+        ['a', 'bb'],
+        ['ccc', 'd', 'e'],
+      ]),
+    ).toBe('  a    bb\n  ccc  d   e\n');
   });
 });

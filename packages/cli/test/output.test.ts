@@ -19,20 +19,29 @@ describe('one output convention for every command', () => {
     expect(result.stderr).toBe(`penumbra: choose one of --json and --csv (see 'penumbra ${argv[0]} --help')\n`);
   });
 
-  test.each([
-    ['kerr', '--a', '0.5'],
-    ['demo'],
-    ['spheroidal', '--spin', '0', '--l', '0', '--m', '0', '--c', '0'],
-  ])('%s writes text or JSON; --csv is an unknown option (one line, exit code 2)', async (...argv) => {
-    const result = await run(...argv, '--csv');
-    expect(result.code).toBe(2);
-    expect(result.stderr).toMatch(/^penumbra: unknown option '--csv'[^\n]*\n$/);
-  });
+  test.each([['kerr', '--a', '0.5'], ['demo'], ['spheroidal', '--spin', '0', '--l', '0', '--m', '0', '--c', '0']])(
+    '%s writes text or JSON; --csv is an unknown option (one line, exit code 2)',
+    async (...argv) => {
+      const result = await run(...argv, '--csv');
+      expect(result.code).toBe(2);
+      expect(result.stderr).toMatch(/^penumbra: unknown option '--csv'[^\n]*\n$/);
+    },
+  );
 
   test('a CLI table and the grid table of the same quantity give a column of the same name the same unit; every name is camelCase', async () => {
-    const grid = validateGrid({ fieldSpins: [0], holeA: [0], frequencies: { values: [0.1] }, l: 'auto', quantities: ['gamma', 'reflection', 'crossSection', 'spectra'] });
+    const grid = validateGrid({
+      fieldSpins: [0],
+      holeA: [0],
+      frequencies: { values: [0.1] },
+      l: 'auto',
+      quantities: ['gamma', 'reflection', 'crossSection', 'spectra'],
+    });
     const header = (columns: readonly Column[]) => columns.map(headerCell);
-    const crossSectionCsv = (await run('cross-section', '--spin', '0', '--a', '0', '--omega', '0.1', '--tol', '1e-3', '--csv')).stdout.split('\n')[0].split(',');
+    const crossSectionCsv = (
+      await run('cross-section', '--spin', '0', '--a', '0', '--omega', '0.1', '--tol', '1e-3', '--csv')
+    ).stdout
+      .split('\n')[0]
+      .split(',');
     const pairs: [string[], string[]][] = [
       [header(greybodyTable([]).columns), header(tableColumns(grid, 'modes'))],
       [crossSectionCsv, header(tableColumns(grid, 'crossSection'))],

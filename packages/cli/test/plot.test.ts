@@ -44,7 +44,18 @@ describe('penumbra plot', () => {
 
   test('reads table.json directly and draws the same figure bytes twice (deterministic output)', async (context) => {
     if (buildProblem) context.skip(buildProblem);
-    const a = await run('plot', join(work, 'table', 'table.json'), '--quantity', 'gamma', '--spin', '0', '--a', '0.9', '--out', join(work, 'a.svg'));
+    const a = await run(
+      'plot',
+      join(work, 'table', 'table.json'),
+      '--quantity',
+      'gamma',
+      '--spin',
+      '0',
+      '--a',
+      '0.9',
+      '--out',
+      join(work, 'a.svg'),
+    );
     const b = await run('plot', join(work, 'table'), '--out', join(work, 'b.svg'));
     expect(a.code, a.stderr).toBe(0);
     expect(b.code, b.stderr).toBe(0);

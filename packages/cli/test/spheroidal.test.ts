@@ -30,7 +30,20 @@ describe('penumbra spheroidal', () => {
   });
 
   test('--theta 0:3.14159:50 adds 50 samples of S and dS/dθ; at c = 0, s = m = 0, l = 1 they equal sqrt(3/2) cosθ (normalised Legendre P₁) to 1e-15', async () => {
-    const result = await run('spheroidal', '--spin', '0', '--l', '1', '--m', '0', '--c', '0', '--theta', '0:3.14159:50', '--json');
+    const result = await run(
+      'spheroidal',
+      '--spin',
+      '0',
+      '--l',
+      '1',
+      '--m',
+      '0',
+      '--c',
+      '0',
+      '--theta',
+      '0:3.14159:50',
+      '--json',
+    );
     expect(result.code).toBe(0);
     const json = JSON.parse(result.stdout) as { S: { theta: number[]; S: number[]; dS: number[] } };
     expect(json.S.theta).toHaveLength(50);

@@ -28,15 +28,24 @@ beforeAll(() => {
 }, 180_000);
 afterAll(() => rmSync(work, { recursive: true, force: true }));
 
-function spawnTable(out: string): { child: ChildProcess; done: Promise<{ code: number | null; signal: NodeJS.Signals | null; stderr: string }> } {
-  const child = spawn(process.execPath, [cliBin, 'table', gridFile, '--out', out, '--workers', '1'], { cwd: repositoryRoot, stdio: ['ignore', 'ignore', 'pipe'] });
+function spawnTable(out: string): {
+  child: ChildProcess;
+  done: Promise<{ code: number | null; signal: NodeJS.Signals | null; stderr: string }>;
+} {
+  const child = spawn(process.execPath, [cliBin, 'table', gridFile, '--out', out, '--workers', '1'], {
+    cwd: repositoryRoot,
+    stdio: ['ignore', 'ignore', 'pipe'],
+  });
   let stderr = '';
   child.stderr!.on('data', (d) => (stderr += d));
-  const done = new Promise<{ code: number | null; signal: NodeJS.Signals | null; stderr: string }>((resolve) => child.on('close', (code, signal) => resolve({ code, signal, stderr })));
+  const done = new Promise<{ code: number | null; signal: NodeJS.Signals | null; stderr: string }>((resolve) =>
+    child.on('close', (code, signal) => resolve({ code, signal, stderr })),
+  );
   return { child, done };
 }
 
-const chunkCount = (out: string) => (existsSync(join(out, 'chunks')) ? readdirSync(join(out, 'chunks')).filter((n) => n.startsWith('chunk-')).length : 0);
+const chunkCount = (out: string) =>
+  existsSync(join(out, 'chunks')) ? readdirSync(join(out, 'chunks')).filter((n) => n.startsWith('chunk-')).length : 0;
 
 describe('killed and restarted runs', () => {
   test('a run killed with SIGKILL after its first chunk, then restarted, skips the finished chunks and equals an uninterrupted run byte for byte', async (context) => {

@@ -69,8 +69,27 @@ describe('penumbra table', () => {
   test('grid flags describe the same grid as the file: rerunning into the same directory skips every chunk', async (context) => {
     if (buildProblem) context.skip(buildProblem);
     const before = tableFiles(join(work, 'w1'));
-    const again = await run('table', '--spins', '0,1', '--a', '0,0.6', '--omega', '0.1:0.9:3', '--spacing', 'log', '--l', '1',
-      '--quantities', 'gamma,reflection', '--chunk-size', '2', '--out', join(work, 'w1'), '--workers', '1');
+    const again = await run(
+      'table',
+      '--spins',
+      '0,1',
+      '--a',
+      '0,0.6',
+      '--omega',
+      '0.1:0.9:3',
+      '--spacing',
+      'log',
+      '--l',
+      '1',
+      '--quantities',
+      'gamma,reflection',
+      '--chunk-size',
+      '2',
+      '--out',
+      join(work, 'w1'),
+      '--workers',
+      '1',
+    );
     expect(again.code, again.stderr).toBe(0);
     expect(again.stderr).toMatch(/resuming in .*: 6 of 6 chunks already finished/);
     expect(tableFiles(join(work, 'w1'))).toEqual(before);
@@ -78,15 +97,41 @@ describe('penumbra table', () => {
 
   describe('bad input: one message, exit code 2, nothing written', () => {
     const cases: [string, () => string[], RegExp][] = [
-      ['a malformed grid file', () => [writeRaw('bad.json', '{"fieldSpins": [0,'), '--out', join(work, 'n1')], /is not valid JSON/],
-      ['a contradictory grid (l range holding no s = 2 mode, both frequency forms)',
-        () => [writeGridFile(work, { ...GRID, fieldSpins: [2], frequencies: { values: [0.1], spacing: 'log' } }, 'c.json'), '--out', join(work, 'n2')],
-        /2 problems: \(1\) frequencies: give either "values" or .*; \(2\) l: the range 0…1 holds no mode of field spin 2/],
-      ['an output directory holding a different grid', () => [writeGridFile(work, { ...GRID, tolerance: 1e-7 }, 'd.json'), '--out', join(work, 'w1')], /already holds a different grid/],
-      ['an output directory that cannot be created (its parent is a file)', () => [gridFile, '--out', join(gridFile, 'sub')], /cannot be created: .* is not a directory/],
-      ['shard 5/4', () => [gridFile, '--out', join(work, 'n3'), '--shard', '5/4'], /--shard expects K\/N with integers 1 ≤ K ≤ N .* got '5\/4'/],
+      [
+        'a malformed grid file',
+        () => [writeRaw('bad.json', '{"fieldSpins": [0,'), '--out', join(work, 'n1')],
+        /is not valid JSON/,
+      ],
+      [
+        'a contradictory grid (l range holding no s = 2 mode, both frequency forms)',
+        () => [
+          writeGridFile(work, { ...GRID, fieldSpins: [2], frequencies: { values: [0.1], spacing: 'log' } }, 'c.json'),
+          '--out',
+          join(work, 'n2'),
+        ],
+        /2 problems: \(1\) frequencies: give either "values" or .*; \(2\) l: the range 0…1 holds no mode of field spin 2/,
+      ],
+      [
+        'an output directory holding a different grid',
+        () => [writeGridFile(work, { ...GRID, tolerance: 1e-7 }, 'd.json'), '--out', join(work, 'w1')],
+        /already holds a different grid/,
+      ],
+      [
+        'an output directory that cannot be created (its parent is a file)',
+        () => [gridFile, '--out', join(gridFile, 'sub')],
+        /cannot be created: .* is not a directory/,
+      ],
+      [
+        'shard 5/4',
+        () => [gridFile, '--out', join(work, 'n3'), '--shard', '5/4'],
+        /--shard expects K\/N with integers 1 ≤ K ≤ N .* got '5\/4'/,
+      ],
       ['shard 0/0', () => [gridFile, '--out', join(work, 'n4'), '--shard', '0/0'], /got '0\/0'/],
-      ['a grid file and grid flags together', () => [gridFile, '--a', '0.5', '--out', join(work, 'n5')], /either GRID.json or grid options/],
+      [
+        'a grid file and grid flags together',
+        () => [gridFile, '--a', '0.5', '--out', join(work, 'n5')],
+        /either GRID.json or grid options/,
+      ],
     ];
     for (const [name, args, message] of cases) {
       test(name, async () => {

@@ -53,7 +53,13 @@ export function requireFinite(parameter: string, x: unknown, allowed = 'a finite
 }
 
 /** Throw an InputError unless `x` is a finite number in [min, max]. */
-export function requireInRange(parameter: string, x: unknown, min: number, max: number, allowed = `${min} ≤ ${parameter} ≤ ${max}`): number {
+export function requireInRange(
+  parameter: string,
+  x: unknown,
+  min: number,
+  max: number,
+  allowed = `${min} ≤ ${parameter} ≤ ${max}`,
+): number {
   const v = requireFinite(parameter, x, allowed);
   if (!(v >= min && v <= max)) throw new InputError(parameter, allowed, v);
   return v;

@@ -17,5 +17,23 @@ export { type Hole, MAX_SOLVER_A_RATIO, validateHole } from './hole.js';
 export { type Mode, MAX_L, validateAngular, validateMode } from './mode.js';
 export { TOLERANCE_RANGE, validateTolerance } from './tolerance.js';
 export { MAX_GRID_POINTS, type GridSpacing, type FrequencyGrid, linearGrid, logGrid, gridValues } from './grids.js';
-export { type LShellRule, type LShellSum, type LShellVectorSum, geometricTailBound, sumLShells, sumLShellVectors } from './lShells.js';
-export { type Column, type Cell, type Table, headerCell, formatCell, csvField, csvHeader, csvRow, toCsv, toJsonTable } from './table.js';
+export {
+  type LShellRule,
+  type LShellSum,
+  type LShellVectorSum,
+  geometricTailBound,
+  sumLShells,
+  sumLShellVectors,
+} from './lShells.js';
+export {
+  type Column,
+  type Cell,
+  type Table,
+  headerCell,
+  formatCell,
+  csvField,
+  csvHeader,
+  csvRow,
+  toCsv,
+  toJsonTable,
+} from './table.js';

@@ -77,7 +77,10 @@ export function geometricTailBound(last: number, prev: number, what: string): { 
   const tail = geometricTail(last, prev);
   if (tail) return tail;
   throw new ConvergenceError(`${what}: l-shells are not decreasing`, {
-    method: METHOD, steps: 0, rhsEvaluations: 0, errorEstimate: Infinity,
+    method: METHOD,
+    steps: 0,
+    rhsEvaluations: 0,
+    errorEstimate: Infinity,
     message: `last two shells ${Math.abs(last)} and ${Math.abs(prev)} do not decrease`,
   });
 }
@@ -113,8 +116,14 @@ export function sumLShellVectors(
   let below = 0;
   const fail = (message: string, detail: string): never => {
     throw new ConvergenceError(message, {
-      method: METHOD, steps: shells.length, rhsEvaluations: 0, errorEstimate: Infinity, message: detail,
-      maxL: rule.maxL, lCut: rule.lCut, ...rule.context?.(),
+      method: METHOD,
+      steps: shells.length,
+      rhsEvaluations: 0,
+      errorEstimate: Infinity,
+      message: detail,
+      maxL: rule.maxL,
+      lCut: rule.lCut,
+      ...rule.context?.(),
     });
   };
   for (let l = lFirst; l <= rule.maxL; l++) {
@@ -136,7 +145,10 @@ export function sumLShellVectors(
   const prev = shells[shells.length - 2];
   const tails = last.sums.map((s, d) => {
     const p = prev?.sums[d] ?? Infinity;
-    return geometricTail(s, p) ?? fail(`${what}: l-shells are not decreasing`, `last two shells ${Math.abs(s)} and ${Math.abs(p)} do not decrease`);
+    return (
+      geometricTail(s, p) ??
+      fail(`${what}: l-shells are not decreasing`, `last two shells ${Math.abs(s)} and ${Math.abs(p)} do not decrease`)
+    );
   });
   return {
     totals,

@@ -31,7 +31,8 @@ export function validateMode(value: unknown, parameter = 'mode'): { spin: FieldS
     throw new InputError(parameter, 'an object { field: { spin }, l, m }', value);
   }
   for (const key of Object.keys(value)) {
-    if (key !== 'field' && key !== 'l' && key !== 'm') throw new InputError(`${parameter}.${key}`, 'the keys field, l, m', key, 'unknown key');
+    if (key !== 'field' && key !== 'l' && key !== 'm')
+      throw new InputError(`${parameter}.${key}`, 'the keys field, l, m', key, 'unknown key');
   }
   const v = value as { field?: unknown; l?: unknown; m?: unknown };
   const { spin } = validateField(v.field, `${parameter}.field`);

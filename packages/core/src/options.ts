@@ -17,7 +17,12 @@ export function validateOptions<O extends object>(options: unknown, spec: Option
   const out: Partial<O> = {};
   for (const key of Object.keys(given)) {
     if (!Object.hasOwn(spec, key)) {
-      throw new InputError(`${context}.${key}`, `one of the keys ${Object.keys(spec).join(', ') || '(none)'}`, key, 'unknown option');
+      throw new InputError(
+        `${context}.${key}`,
+        `one of the keys ${Object.keys(spec).join(', ') || '(none)'}`,
+        key,
+        'unknown option',
+      );
     }
     const value = given[key];
     if (value === undefined) continue;
@@ -50,7 +55,13 @@ export function isFunction<F extends (...args: never[]) => unknown>(value: unkno
 export function numberIn(min: number, max: number, integer = false): (value: unknown, parameter: string) => number {
   return (value, parameter) => {
     const allowed = `${integer ? 'an integer' : 'a number'} in [${min}, ${max}]`;
-    if (typeof value !== 'number' || !Number.isFinite(value) || value < min || value > max || (integer && !Number.isInteger(value))) {
+    if (
+      typeof value !== 'number' ||
+      !Number.isFinite(value) ||
+      value < min ||
+      value > max ||
+      (integer && !Number.isInteger(value))
+    ) {
       throw new InputError(parameter, allowed, value);
     }
     return value;

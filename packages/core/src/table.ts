@@ -27,7 +27,8 @@ export function headerCell(column: Column): string {
 /** A number in CSV/JSON text: shortest round-trip form; non-finite values spelt out. */
 export function formatCell(value: Cell): string {
   if (value === null) return '';
-  if (typeof value === 'number') return Number.isNaN(value) ? 'NaN' : value === Infinity ? 'Infinity' : value === -Infinity ? '-Infinity' : String(value);
+  if (typeof value === 'number')
+    return Number.isNaN(value) ? 'NaN' : value === Infinity ? 'Infinity' : value === -Infinity ? '-Infinity' : String(value);
   return String(value);
 }
 

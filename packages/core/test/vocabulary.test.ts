@@ -65,19 +65,32 @@ describe('options and tolerance', () => {
     expect(attempt(() => 1)).toMatchObject({ status: 'success', solution: 1 });
     expect(attempt(() => validateTolerance(2)).status).toBe('invalid-input');
     const d = { method: 'm', steps: 1, rhsEvaluations: 2, errorEstimate: 1, message: 'x' };
-    expect(attempt(() => { throw new ConvergenceError('no', d); }).status).toBe('not-converged');
-    expect(() => attempt(() => { throw new TypeError('bug'); })).toThrow(TypeError);
+    expect(
+      attempt(() => {
+        throw new ConvergenceError('no', d);
+      }).status,
+    ).toBe('not-converged');
+    expect(() =>
+      attempt(() => {
+        throw new TypeError('bug');
+      }),
+    ).toThrow(TypeError);
   });
 });
 
 describe('grids, l-shell sums and tables', () => {
   test('grids keep their endpoints exactly and refuse counts beyond 1e6 at once', () => {
     fc.assert(
-      fc.property(fc.double({ min: 1e-4, max: 10, noNaN: true }), fc.double({ min: 1e-4, max: 10, noNaN: true }), fc.integer({ min: 2, max: 50 }), (a, b, n) => {
-        const lin = linearGrid(a, b, n);
-        const log = logGrid(a, b, n);
-        return lin[0] === a && lin[n - 1] === b && log[0] === a && log[n - 1] === b && lin.length === n;
-      }),
+      fc.property(
+        fc.double({ min: 1e-4, max: 10, noNaN: true }),
+        fc.double({ min: 1e-4, max: 10, noNaN: true }),
+        fc.integer({ min: 2, max: 50 }),
+        (a, b, n) => {
+          const lin = linearGrid(a, b, n);
+          const log = logGrid(a, b, n);
+          return lin[0] === a && lin[n - 1] === b && log[0] === a && log[n - 1] === b && lin.length === n;
+        },
+      ),
       { seed: 42, numRuns: 200 },
     );
     expect(thrown(() => linearGrid(0, 1, 1e9)).parameter).toBe('count');
@@ -98,7 +111,7 @@ describe('grids, l-shell sums and tables', () => {
     expect(sum.tailBounds[1]).toBeGreaterThanOrEqual((2 - sum.totals[1]) * (1 - 1e-12));
     expect(sum.q[1]).toBe(0.5);
   });
-  test('a sum that hits maxL throws a ConvergenceError with full diagnostics, maxL and the caller\'s context', () => {
+  test("a sum that hits maxL throws a ConvergenceError with full diagnostics, maxL and the caller's context", () => {
     try {
       sumLShells(0, { lCut: 0, tol: 1e-6, maxL: 5, context: () => ({ rhsEvaluations: 42, omega: 0.3 }) }, () => 1);
       expect.unreachable();
@@ -112,7 +125,13 @@ describe('grids, l-shell sums and tables', () => {
   test('CSV fields with commas, quotes or newlines are quoted (RFC 4180); headers carry units', () => {
     expect(csvField('a,b')).toBe('"a,b"');
     expect(csvField('say "x"')).toBe('"say ""x"""');
-    const csv = toCsv({ columns: [{ name: 'omega', unit: '1/M' }, { name: 'label', unit: '' }], rows: [[0.5, 'x,y']] });
+    const csv = toCsv({
+      columns: [
+        { name: 'omega', unit: '1/M' },
+        { name: 'label', unit: '' },
+      ],
+      rows: [[0.5, 'x,y']],
+    });
     expect(csv).toBe('omega [1/M],label\n0.5,"x,y"\n');
   });
 });

@@ -3,14 +3,7 @@
  * spin that appears (one emissionTotals solve per spin), times each species'
  * degrees of freedom.
  */
-import {
-  isFunction,
-  validateHole,
-  validateOptions,
-  type Diagnostics,
-  type FieldSpin,
-  type Hole,
-} from '@penumbra/core';
+import { isFunction, validateHole, validateOptions, type Diagnostics, type FieldSpin, type Hole } from '@penumbra/core';
 import { emissionTotals, TOTALS_OPTIONS, type EmissionTotals, type EstimatedValue, type TotalsOptions } from './totals.js';
 import { resolveContent, type Species, type SpeciesSpec } from './species.js';
 import { requireProblem } from './validate.js';
@@ -85,7 +78,12 @@ export function contentTotals(problem: ContentProblem, options?: ContentOptions)
     return { ...s, numberRate: s.dof * r.numberRate.value, power: s.dof * r.power.value, torque: s.dof * r.torque.value };
   });
   const part = (key: 'numberRate' | 'power' | 'torque') =>
-    combine(species.map((s) => ({ value: s.dof * bySpin.get(s.spin)![key].value, absError: s.dof * bySpin.get(s.spin)![key].absError })));
+    combine(
+      species.map((s) => ({
+        value: s.dof * bySpin.get(s.spin)![key].value,
+        absError: s.dof * bySpin.get(s.spin)![key].absError,
+      })),
+    );
   const numberRate = part('numberRate');
   const power = part('power');
   const errorEstimate = Math.max(numberRate.relError, power.relError);

@@ -79,7 +79,13 @@ const OPTIONS = { odeTol: numberIn(1e-12, 1e-4), aStarThresholds: thresholds };
 
 function checkFunctions(value: unknown): PageFunctions {
   const fns = value as Partial<PageFunctions> | null;
-  if (typeof fns !== 'object' || fns === null || typeof fns.f !== 'function' || typeof fns.g !== 'function' || typeof fns.aMax !== 'number') {
+  if (
+    typeof fns !== 'object' ||
+    fns === null ||
+    typeof fns.f !== 'function' ||
+    typeof fns.g !== 'function' ||
+    typeof fns.aMax !== 'number'
+  ) {
     throw new InputError('functions', 'the result of pageFunctions ({ f, g, aMax, … })', value);
   }
   return fns as PageFunctions;
@@ -104,8 +110,13 @@ function run(fns: PageFunctions, aStar0: number, tol: number) {
   while (integ.step(U_END)) {
     if (++steps > 100000) {
       throw new ConvergenceError('evolution: too many ODE steps', {
-        method: METHOD, steps, rhsEvaluations: counter.evaluations, errorEstimate: Infinity,
-        message: `stopped after ${steps} steps at u = ${integ.t} (tolerance ${tol})`, u: integ.t, tol,
+        method: METHOD,
+        steps,
+        rhsEvaluations: counter.evaluations,
+        errorEstimate: Infinity,
+        message: `stopped after ${steps} steps at u = ${integ.t} (tolerance ${tol})`,
+        u: integ.t,
+        tol,
       });
     }
     track.push({ massRatio: Math.exp(-integ.t), aStar: integ.y[0], time: integ.y[1] });
@@ -188,7 +199,9 @@ export function evolveHole(problem: EvolutionProblem, options?: EvolutionOptions
   };
   if (!(change <= Math.max(100 * odeTol, 1e-10))) {
     throw new ConvergenceError('evolution: lifetime moves when the ODE tolerance is halved', {
-      ...diagnostics, lifetime: a.lifetime, lifetimeHalfTol: b.lifetime,
+      ...diagnostics,
+      lifetime: a.lifetime,
+      lifetimeHalfTol: b.lifetime,
     });
   }
   return { aStar0, lifetime: b.lifetime, track: b.track, crossings, diagnostics };

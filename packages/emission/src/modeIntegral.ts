@@ -105,7 +105,12 @@ export function integrateMode(
     const need = (i: number, bound: number) => weight * bound > 0.01 * Math.max(tolAbs[i], tolRel * value[i]);
     if (!need(0, b.number) && !need(1, b.energy)) break;
     const W2 = Math.min(W + 10 * T, MAX_MOMEGA);
-    q = adaptiveKronrod(f, [W, W2], tolAbs.map((t, i) => Math.max(t, tolRel * value[i])), 400);
+    q = adaptiveKronrod(
+      f,
+      [W, W2],
+      tolAbs.map((t, i) => Math.max(t, tolRel * value[i])),
+      400,
+    );
     value = value.map((v, i) => v + q.value[i]);
     error = error.map((e, i) => e + q.error[i]);
     evaluations += q.evaluations;

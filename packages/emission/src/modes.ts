@@ -67,12 +67,23 @@ function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): { gamma
   }
   let r: GreybodySolution;
   try {
-    r = greybody({ hole: { a: ctx.aStar }, mode: { field: { spin: ctx.spin }, l, m }, omega }, { tol: ctx.greybodyTol, reflection: false });
+    r = greybody(
+      { hole: { a: ctx.aStar }, mode: { field: { spin: ctx.spin }, l, m }, omega },
+      { tol: ctx.greybodyTol, reflection: false },
+    );
   } catch (e) {
     if (e instanceof ConvergenceError) {
-      throw new ConvergenceError(`greybody solve failed inside the emission sum (spin = ${ctx.spin}, l = ${l}, m = ${m}, a* = ${ctx.aStar}, Mω = ${omega})`, {
-        ...e.diagnostics, spin: ctx.spin, l, m, aStar: ctx.aStar, omega,
-      });
+      throw new ConvergenceError(
+        `greybody solve failed inside the emission sum (spin = ${ctx.spin}, l = ${l}, m = ${m}, a* = ${ctx.aStar}, Mω = ${omega})`,
+        {
+          ...e.diagnostics,
+          spin: ctx.spin,
+          l,
+          m,
+          aStar: ctx.aStar,
+          omega,
+        },
+      );
     }
     throw e;
   }

@@ -53,7 +53,8 @@ function checkTable(value: unknown): PageTable {
   const t = requireObject('table', value, 'a PageTable { aStar, theta, spins, tol, gammaCalls }');
   const n = Array.isArray(t.theta) ? t.theta.length : 0;
   if (n < 5) throw new InputError('table.theta', 'an array of at least 5 nodes', t.theta);
-  if (!Array.isArray(t.aStar) || t.aStar.length !== n) throw new InputError('table.aStar', `an array of ${n} values (one per θ node)`, t.aStar);
+  if (!Array.isArray(t.aStar) || t.aStar.length !== n)
+    throw new InputError('table.aStar', `an array of ${n} values (one per θ node)`, t.aStar);
   if (!Array.isArray(t.spins)) throw new InputError('table.spins', 'an array of per-spin rows', t.spins);
   return t as unknown as PageTable;
 }

@@ -81,7 +81,8 @@ const OPTIONS = { tol: validateTolerance, onPoint: isFunction<(done: number, tot
 const ALL_SPINS: readonly FieldSpin[] = [0, 0.5, 1, 2];
 
 function checkSpins(spins: unknown): FieldSpin[] {
-  if (!Array.isArray(spins) || spins.length === 0) throw new InputError('spins', 'a non-empty list of field spins 0, 1/2, 1, 2', spins);
+  if (!Array.isArray(spins) || spins.length === 0)
+    throw new InputError('spins', 'a non-empty list of field spins 0, 1/2, 1, 2', spins);
   return spins.map((s, i) => parseFieldSpin(s, `spins[${i}]`));
 }
 

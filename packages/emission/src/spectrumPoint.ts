@@ -72,7 +72,12 @@ export function spectrumPointUnit(ctx: ModeContext, omega: number, tol: number, 
     total += sum;
     return sum;
   };
-  const summed = sumLShells(ctx.spin, { lCut, tol, maxL, lMinToStop: ctx.spin + 1, context: () => ({ ...ctx.counters, omega }) }, shell, 'spectrum l-sum');
+  const summed = sumLShells(
+    ctx.spin,
+    { lCut, tol, maxL, lMinToStop: ctx.spin + 1, context: () => ({ ...ctx.counters, omega }) },
+    shell,
+    'spectrum l-sum',
+  );
   const last = summed.shells[summed.shells.length - 1].sum;
   const dropped = summed.tailBound + skipped;
   return {

@@ -98,10 +98,20 @@ export const TOTALS_OPTIONS = {
   onMode: isFunction<(mode: ModeTotal) => void>,
 };
 
-const METHOD = 'per-mode adaptive Gauss–Kronrod integrals of Γ·occupation/2π, summed over whole l-shells with geometric tail bounds';
+const METHOD =
+  'per-mode adaptive Gauss–Kronrod integrals of Γ·occupation/2π, summed over whole l-shells with geometric tail bounds';
 
 /** One shell's m-modes (co-rotating first), with the Boltzmann skip and the geometric m-truncation. */
-function shellTotals(ctx: ModeContext, l: number, tol: number, modeAbs: number, modeRel: number, acc: TotalsAccumulator, state: { first: boolean }, onMode?: (m: ModeTotal) => void): number[] {
+function shellTotals(
+  ctx: ModeContext,
+  l: number,
+  tol: number,
+  modeAbs: number,
+  modeRel: number,
+  acc: TotalsAccumulator,
+  state: { first: boolean },
+  onMode?: (m: ModeTotal) => void,
+): number[] {
   const { ms, weight } = shellMs(ctx, l);
   let sN = 0;
   let sE = 0;
@@ -227,7 +237,12 @@ export function emissionTotals(problem: TotalsProblem, options?: TotalsOptions):
     };
     if (converged || attempt >= 3) {
       if (!converged) {
-        throw new ConvergenceError('emission totals did not reach the requested accuracy', { ...diagnostics, spin, a, relError: rel });
+        throw new ConvergenceError('emission totals did not reach the requested accuracy', {
+          ...diagnostics,
+          spin,
+          a,
+          relError: rel,
+        });
       }
       const sign = a < 0 ? -1 : 1;
       const ev = (i: number, scale: number, s = 1): EstimatedValue => ({

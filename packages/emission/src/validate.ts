@@ -31,7 +31,8 @@ export function validateGrid(grid: unknown, mass: number, parameter = 'grid'): n
       if (!Array.isArray(g.values)) throw new InputError(`${parameter}.values`, 'an array of frequencies', g.values);
       values = g.values;
     } else {
-      if (g.spacing !== 'linear' && g.spacing !== 'log') throw new InputError(`${parameter}.spacing`, "'linear' or 'log'", g.spacing);
+      if (g.spacing !== 'linear' && g.spacing !== 'log')
+        throw new InputError(`${parameter}.spacing`, "'linear' or 'log'", g.spacing);
       values = gridValues(g as FrequencyGrid);
     }
   }
@@ -41,13 +42,23 @@ export function validateGrid(grid: unknown, mass: number, parameter = 'grid'): n
     const x = requireFinite(`${parameter}[${i}]`, w, 'a finite number > 0');
     if (!(x > 0)) throw new InputError(`${parameter}[${i}]`, 'a finite number > 0', x);
     if (i > 0 && !(x > out[i - 1])) {
-      throw new InputError(parameter, 'strictly increasing values', grid, `${parameter}[${i}] = ${x} ≤ ${parameter}[${i - 1}] = ${out[i - 1]}`);
+      throw new InputError(
+        parameter,
+        'strictly increasing values',
+        grid,
+        `${parameter}[${i}] = ${x} ≤ ${parameter}[${i - 1}] = ${out[i - 1]}`,
+      );
     }
     out.push(x);
   });
   const top = out[out.length - 1];
   if (top * mass > MOMEGA_RANGE.max) {
-    throw new InputError(`${parameter}[${out.length - 1}]`, `0 < Mω ≤ ${MOMEGA_RANGE.max}`, top, `the greybody solver covers Mω ≤ ${MOMEGA_RANGE.max}`);
+    throw new InputError(
+      `${parameter}[${out.length - 1}]`,
+      `0 < Mω ≤ ${MOMEGA_RANGE.max}`,
+      top,
+      `the greybody solver covers Mω ≤ ${MOMEGA_RANGE.max}`,
+    );
   }
   return out;
 }

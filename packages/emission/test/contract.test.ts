@@ -36,7 +36,9 @@ describe('the solve contract (problem → solve(problem, options) → solution w
     const hole = { a: 0 };
     const field = { spin: 1 as const };
     expect(inputError(() => emissionTotals({ hole, field }, { tolerance: 1e-4 } as never)).parameter).toBe('options.tolerance');
-    expect(inputError(() => emissionSpectrum({ hole, field, grid: [0.1] }, { onMode: () => {} } as never)).parameter).toBe('options.onMode');
+    expect(inputError(() => emissionSpectrum({ hole, field, grid: [0.1] }, { onMode: () => {} } as never)).parameter).toBe(
+      'options.onMode',
+    );
     expect(inputError(() => emissionTotals({ hole, field, omega: 0.1 } as never)).parameter).toBe('problem.omega');
     expect(inputError(() => contentTotals({ hole }, { points: 5 } as never)).parameter).toBe('options.points');
     expect(inputError(() => evolveHole({ functions: fns, aStar0: 0.5 }, { tol: 1e-8 } as never)).parameter).toBe('options.tol');
@@ -50,26 +52,46 @@ describe('the solve contract (problem → solve(problem, options) → solution w
     expect(inputError(() => pageTable({ spins: [3] as never })).parameter).toBe('spins[0]');
     expect(inputError(() => emissionTotals({ hole: { a: 0 }, field: { spin: 1 } }, { maxL: -1 })).parameter).toBe('maxL');
     expect(inputError(() => emissionTotals({ hole: { a: 0 }, field: { spin: 2 } }, { maxL: 1 })).parameter).toBe('maxL');
-    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [0.1] }, { maxL: 2.5 })).parameter).toBe('maxL');
-    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [0.1] }, { onPoint: 1 as never })).parameter).toBe('onPoint');
-    expect(inputError(() => evolveHole({ functions: fns, aStar0: 0.5 }, { aStarThresholds: [0.5, 1.5] })).parameter).toBe('aStarThresholds[1]');
+    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [0.1] }, { maxL: 2.5 })).parameter).toBe(
+      'maxL',
+    );
+    expect(
+      inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [0.1] }, { onPoint: 1 as never })).parameter,
+    ).toBe('onPoint');
+    expect(inputError(() => evolveHole({ functions: fns, aStar0: 0.5 }, { aStarThresholds: [0.5, 1.5] })).parameter).toBe(
+      'aStarThresholds[1]',
+    );
     expect(inputError(() => evolveHole({ functions: {} as never, aStar0: 0.5 })).parameter).toBe('functions');
     expect(inputError(() => pageFunctions({ table: { aStar: [0], theta: [0] } as never })).parameter).toBe('table.theta');
   });
   test('one tolerance range for every solve: 1e-12 … 1e-2 (core), refused outside with the key named', () => {
     expect(inputError(() => emissionTotals({ hole: { a: 0 }, field: { spin: 1 } }, { tol: 1e-13 })).parameter).toBe('tol');
-    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 1 }, grid: [0.1] }, { tol: 0.02 })).parameter).toBe('tol');
+    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 1 }, grid: [0.1] }, { tol: 0.02 })).parameter).toBe(
+      'tol',
+    );
     expect(inputError(() => pageTable({}, { tol: 0 })).parameter).toBe('tol');
   });
   test('the hole and field are checked by core: |a| ≤ 0.9999 M, mass > 0, field spin 0, 1/2, 1, 2', () => {
     expect(inputError(() => emissionTotals({ hole: { a: 0.99995 }, field: { spin: 1 } })).parameter).toBe('hole.a');
-    expect(inputError(() => emissionSpectrum({ hole: { a: 0, mass: -1 }, field: { spin: 1 }, grid: [0.1] })).parameter).toBe('hole.mass');
-    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 1.5 as never }, grid: [0.1] })).parameter).toBe('field.spin');
+    expect(inputError(() => emissionSpectrum({ hole: { a: 0, mass: -1 }, field: { spin: 1 }, grid: [0.1] })).parameter).toBe(
+      'hole.mass',
+    );
+    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 1.5 as never }, grid: [0.1] })).parameter).toBe(
+      'field.spin',
+    );
   });
-  test('a frequency grid may be core\'s FrequencyGrid; Mω above 30 and a decreasing grid are refused', () => {
-    expect(inputError(() => emissionSpectrum({ hole: { a: 0, mass: 2 }, field: { spin: 0 }, grid: [10, 16] })).parameter).toBe('grid[1]');
-    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: { spacing: 'linear', from: 0.3, to: 0.1, count: 3 } })).message).toMatch(/increasing/);
-    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: { spacing: 'cubic' } as never })).parameter).toBe('grid.spacing');
+  test("a frequency grid may be core's FrequencyGrid; Mω above 30 and a decreasing grid are refused", () => {
+    expect(inputError(() => emissionSpectrum({ hole: { a: 0, mass: 2 }, field: { spin: 0 }, grid: [10, 16] })).parameter).toBe(
+      'grid[1]',
+    );
+    expect(
+      inputError(() =>
+        emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: { spacing: 'linear', from: 0.3, to: 0.1, count: 3 } }),
+      ).message,
+    ).toMatch(/increasing/);
+    expect(
+      inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: { spacing: 'cubic' } as never })).parameter,
+    ).toBe('grid.spacing');
   });
   test('field spin "1/2" is the same field as 0.5: identical spectrum points, bit for bit', () => {
     const grid = { spacing: 'log', from: 0.05, to: 0.2, count: 2 } as const;
@@ -78,7 +100,7 @@ describe('the solve contract (problem → solve(problem, options) → solution w
     expect(text.field.spin).toBe(0.5);
     expect(text.points).toEqual(number.points);
   });
-  test('spectrum, totals, content totals and evolution carry diagnostics extending core\'s Diagnostics, with greybody RHS evaluations counted', () => {
+  test("spectrum, totals, content totals and evolution carry diagnostics extending core's Diagnostics, with greybody RHS evaluations counted", () => {
     const spectrum = emissionSpectrum({ hole: { a: 0.5 }, field: { spin: 0 }, grid: [0.1, 0.3] }, { tol: 1e-3 });
     expectDiagnostics(spectrum.diagnostics);
     expect(spectrum.diagnostics.rhsEvaluations).toBeGreaterThan(spectrum.diagnostics.gammaCalls);

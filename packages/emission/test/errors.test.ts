@@ -19,7 +19,11 @@ describe('typed errors (issue 5, bad input)', () => {
   });
   test('user content may override dof and add a new species with spin and dof', () => {
     const c = resolveContent(['photon', { name: 'graviton', dof: 0 }, { name: 'dark-scalar', spin: 0, dof: 3 }]);
-    expect(c.map((s) => [s.name, s.spin, s.dof])).toEqual([['photon', 1, 2], ['graviton', 2, 0], ['dark-scalar', 0, 3]]);
+    expect(c.map((s) => [s.name, s.spin, s.dof])).toEqual([
+      ['photon', 1, 2],
+      ['graviton', 2, 0],
+      ['dark-scalar', 0, 3],
+    ]);
   });
   test('masses ≤ 0 or non-finite throw InputError', () => {
     expect(() => emissionTotals({ hole: { a: 0, mass: 0 }, field: { spin: 1 } })).toThrow(InputError);
@@ -37,7 +41,7 @@ describe('typed errors (issue 5, bad input)', () => {
     expect(() => emissionTotals({ hole: { a: 0 }, field: { spin: 1 } }, { tol: 0.5 })).toThrow(InputError);
     expect(() => emissionTotals({ hole: { a: 0 }, field: { spin: 1 } }, { tol: 1e-14 })).toThrow(InputError);
     expect(() => emissionTotals({ hole: { a: 1 }, field: { spin: 1 } })).toThrow(InputError);
-    expect(() => emissionTotals({ hole: { a: 0 }, field: { spin: 3 / 2 as never } })).toThrow(InputError);
+    expect(() => emissionTotals({ hole: { a: 0 }, field: { spin: (3 / 2) as never } })).toThrow(InputError);
     expect(() => contentTotals({ hole: { a: 0 }, content: ['tachyon'] })).toThrow(InputError);
   });
   test('an l-sum that cannot converge within maxL throws ConvergenceError with its diagnostics', () => {
@@ -56,7 +60,15 @@ describe('typed errors (issue 5, bad input)', () => {
     const table: PageTable = {
       aStar: [0, 0.3, 0.6, 0.8, 0.9].map((x) => x),
       theta: [0, 1, 2, 3, 4].map((i) => (i * Math.asin(0.9)) / 4),
-      spins: [{ spin: 1, power: [1, 1, 1, 1, 1], torqueOverA: [3, 3, 3, 3, 3], powerError: [0, 0, 0, 0, 0], torqueOverAError: [0, 0, 0, 0, 0] }],
+      spins: [
+        {
+          spin: 1,
+          power: [1, 1, 1, 1, 1],
+          torqueOverA: [3, 3, 3, 3, 3],
+          powerError: [0, 0, 0, 0, 0],
+          torqueOverAError: [0, 0, 0, 0, 0],
+        },
+      ],
       tol: 1e-6,
       gammaCalls: 0,
     };

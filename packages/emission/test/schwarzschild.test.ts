@@ -40,7 +40,7 @@ describe('Schwarzschild emission against Page (1976)', () => {
     // f = −M² dM/dt ≈ 2.01e-4 for this content (Page 1976, value from memory), three figures
     expect(Math.abs(c.power.value / 2.01e-4 - 1)).toBeLessThan(3e-3);
   });
-  test('the spectrum integrated by Simpson\'s rule on 121 points reproduces the adaptive photon total to 1e-4', () => {
+  test("the spectrum integrated by Simpson's rule on 121 points reproduces the adaptive photon total to 1e-4", () => {
     const n = 121;
     const top = 1.5;
     // the integrand vanishes at ω = 0; the first node sits at Mω = 1e-4 instead
@@ -54,10 +54,13 @@ describe('Schwarzschild emission against Page (1976)', () => {
   // σ oscillates about 27πM² as l-shells cross the barrier; 1.5 % covers that ripple at Mω ≥ 2
   // (common practice, no source for the width).
   test('high-frequency tail: Σ(2l+1)Γ → 27(Mω)² (geometric optics σ = 27πM², Misner, Thorne & Wheeler 1973) within 1.5 % at Mω = 2 and 3', () => {
-    for (const [spin, w] of [[0, 2], [1, 3]] as const) {
+    for (const [spin, w] of [
+      [0, 2],
+      [1, 3],
+    ] as const) {
       const T = 1 / (8 * Math.PI);
       const p = emissionSpectrum({ hole: { a: 0 }, field: { spin }, grid: [w] }, { tol: 1e-6 }).points[0];
-      const geometricOptics = ((27 * w * w) / (2 * Math.PI)) / Math.expm1(w / T);
+      const geometricOptics = (27 * w * w) / (2 * Math.PI) / Math.expm1(w / T);
       expect(Math.abs(p.number / geometricOptics - 1)).toBeLessThan(0.015);
       expect(p.droppedBound / p.number).toBeLessThan(1e-6);
     }

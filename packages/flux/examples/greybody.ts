@@ -2,7 +2,9 @@ import { absorptionCrossSection, greybody, lowFrequencyGreybody } from '@penumbr
 
 // A photon mode (s = 1, l = m = 1) of a hole with a = 0.9 M, at Mω = 0.3.
 const photon = greybody({ hole: { a: 0.9 }, mode: { field: { spin: 1 }, l: 1, m: 1 }, omega: 0.3 });
-console.log(`photon: Γ = ${photon.gamma.toExponential(9)}, |Γ+R−1| = ${photon.residual.toExponential(1)}, error ≈ ${photon.relError.toExponential(1)}`);
+console.log(
+  `photon: Γ = ${photon.gamma.toExponential(9)}, |Γ+R−1| = ${photon.residual.toExponential(1)}, error ≈ ${photon.relError.toExponential(1)}`,
+);
 
 // Inside the superradiant band ω < mΩ_H the wave is amplified: Γ < 0.
 const graviton = greybody({ hole: { a: 0.99 }, mode: { field: { spin: 2 }, l: 2, m: 2 }, omega: 0.8 });

@@ -79,7 +79,8 @@ const OPTIONS = {
 export function absorptionCrossSection(problem: CrossSectionProblem, options?: CrossSectionOptions): CrossSectionSolution {
   const p = requireObject('problem', problem, 'an object { hole, field, omega }');
   for (const key of Object.keys(p)) {
-    if (!['hole', 'field', 'omega'].includes(key)) throw new InputError(`problem.${key}`, 'the keys hole, field, omega', key, 'unknown key');
+    if (!['hole', 'field', 'omega'].includes(key))
+      throw new InputError(`problem.${key}`, 'the keys hole, field, omega', key, 'unknown key');
   }
   const { spin } = validateField(p.field, 'field');
   const { a, mass } = validateHole(p.hole, 'hole');
@@ -97,7 +98,10 @@ export function absorptionCrossSection(problem: CrossSectionProblem, options?: C
     const weight = a === 0 ? 2 * l + 1 : 1;
     let sum = 0;
     for (const m of ms) {
-      const r = greybody({ hole: { a, mass }, mode: { field: { spin }, l, m }, omega }, { ...greybodyOptions, tol, reflection: false });
+      const r = greybody(
+        { hole: { a, mass }, mode: { field: { spin }, l, m }, omega },
+        { ...greybodyOptions, tol, reflection: false },
+      );
       onMode?.(r);
       sum += weight * r.gamma;
       errAbs += weight * Math.abs(r.gamma) * r.relError;

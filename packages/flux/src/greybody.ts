@@ -8,7 +8,15 @@
  * Teukolsky–Starobinsky map at the horizon; |Γ + R − 1| is then a genuine check
  * of both solves and of the flux normalisations (docs/method.md).
  */
-import { ConvergenceError, InputError, attempt, validateOptions, type Attempt, type Diagnostics, type FieldSpin } from '@penumbra/core';
+import {
+  ConvergenceError,
+  InputError,
+  attempt,
+  validateOptions,
+  type Attempt,
+  type Diagnostics,
+  type FieldSpin,
+} from '@penumbra/core';
 import { kerrHole, type KerrHole } from '@penumbra/kerr';
 import { radialSeparationConstant, spheroidalEigenvalue } from '@penumbra/spheroidal';
 import {
@@ -77,7 +85,6 @@ function prepare(problem: GreybodyProblem): Prepared {
   return { spin, l, m, hole, omega, A: eig.A, lambdaPlus };
 }
 
-
 /**
  * Integrator tolerance for a requested relative accuracy of Γ. Measured at
  * the default 1e-8: the achieved error is at most 6e-10 (median 1e-11), so
@@ -122,8 +129,16 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
     const gamma = fine.sign * Math.exp(fine.lnGamma);
     if (relError <= tol) {
       return result(p, {
-        gamma, reflection: fine.reflection, relError, k, C2, odeTol, attempts: attempt, integrator,
-        d: fine.diagnostics, extraEvaluations: coarse.diagnostics.rhsEvaluations,
+        gamma,
+        reflection: fine.reflection,
+        relError,
+        k,
+        C2,
+        odeTol,
+        attempts: attempt,
+        integrator,
+        d: fine.diagnostics,
+        extraEvaluations: coarse.diagnostics.rhsEvaluations,
       });
     }
     if (attempt === 3) {
@@ -131,7 +146,13 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
         ...fine.diagnostics,
         errorEstimate: relError,
         message: `relative error ${relError.toExponential(2)} > tol ${tol} after 3 attempts (last integrator tolerance ${odeTol})`,
-        spin, l: p.l, m, a: hole.a, omega, tol, odeTol,
+        spin,
+        l: p.l,
+        m,
+        a: hole.a,
+        omega,
+        tol,
+        odeTol,
       });
     }
     odeTol = Math.max(odeTol * 0.01, 1e-15);
@@ -168,9 +189,10 @@ function solveMode(p: Prepared, opts: TwoSidedOptions): ModeSolve {
   const sol = solveTwoSided({ hole, s: spin, m, omega, lambda: lambdaPlus }, opts);
   const C2 = starobinskyConstantSquared(spin, lambdaPlus, hole, m, omega);
   // R = |C|² |Y_out|² / (|h_s|² |Z_in|²), derived in docs/method.md.
-  const reflection = opts.reflection === false
-    ? Number.NaN
-    : Math.exp(Math.log(C2) + 2 * sol.logAbsYOutMinus - Math.log(horizonMapSquared(spin, hole, k)) - 2 * sol.logAbsZInPlus);
+  const reflection =
+    opts.reflection === false
+      ? Number.NaN
+      : Math.exp(Math.log(C2) + 2 * sol.logAbsYOutMinus - Math.log(horizonMapSquared(spin, hole, k)) - 2 * sol.logAbsZInPlus);
   return {
     lnGamma: Math.log(Math.abs(h)) - 2 * sol.logAbsZInPlus,
     sign: Math.sign(h),

@@ -33,13 +33,7 @@ export function horizonFactor(s: number, hole: KerrHole, omega: number, k: numbe
  * |C_s|², the squared Teukolsky–Starobinsky constant, from λ_{+s}
  * (λ_{−s} = λ_{+s} + 2s because A_{−s} = A_{+s} + 2s).
  */
-export function starobinskyConstantSquared(
-  s: number,
-  lambdaPlus: number,
-  hole: KerrHole,
-  m: number,
-  omega: number,
-): number {
+export function starobinskyConstantSquared(s: number, lambdaPlus: number, hole: KerrHole, m: number, omega: number): number {
   const a = hole.a;
   const M = hole.mass;
   const lm = lambdaPlus + 2 * s; // λ_{−s}

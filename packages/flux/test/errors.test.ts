@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { InputError } from '@penumbra/core';
-import { absorptionCrossSection, greybody, lowFrequencyGreybody, radialFunction, tryGreybody, type GreybodyProblem } from '@penumbra/flux';
+import {
+  absorptionCrossSection,
+  greybody,
+  lowFrequencyGreybody,
+  radialFunction,
+  tryGreybody,
+  type GreybodyProblem,
+} from '@penumbra/flux';
 
 type Flat = { spin: unknown; l: unknown; m: unknown; a: unknown; omega: unknown; mass?: unknown };
 const nest = ({ spin, l, m, a, omega, mass }: Flat): GreybodyProblem =>
@@ -39,7 +46,9 @@ describe('bad input gets a typed error naming the parameter and the allowed rang
   it('rejects a tolerance outside 1e-12 … 1e-2', () => {
     expect(() => greybody(ok, { tol: 1e-14 })).toThrow(InputError);
     expect(() => greybody(ok, { tol: 0.5 })).toThrow(/tol/);
-    expect(() => absorptionCrossSection({ hole: { a: 0 }, field: { spin: 0 }, omega: 0.1 }, { tol: Number.NaN })).toThrow(InputError);
+    expect(() => absorptionCrossSection({ hole: { a: 0 }, field: { spin: 0 }, omega: 0.1 }, { tol: Number.NaN })).toThrow(
+      InputError,
+    );
   });
   it("accepts the field spin '1/2' as 0.5 and gives the same Γ to the last bit", () => {
     const text = greybody({ hole: { a: 0.5 }, mode: { field: { spin: '1/2' }, l: 0.5, m: 0.5 }, omega: 0.3 });
@@ -62,7 +71,9 @@ describe('bad input gets a typed error naming the parameter and the allowed rang
     expect(parameter(() => greybody(ok, null as unknown as object))).toBe('options');
     expect(parameter(() => greybody(null as unknown as GreybodyProblem))).toBe('problem');
     expect(parameter(() => greybody({ ...ok, spin: 1 } as unknown as GreybodyProblem))).toBe('problem.spin');
-    expect(parameter(() => absorptionCrossSection({ hole: { a: 0 }, field: { spin: 0 }, omega: 0.1 }, { maxL: 500 }))).toBe('maxL');
+    expect(parameter(() => absorptionCrossSection({ hole: { a: 0 }, field: { spin: 0 }, omega: 0.1 }, { maxL: 500 }))).toBe(
+      'maxL',
+    );
     expect(parameter(() => lowFrequencyGreybody(nest({ ...flatOk, omega: -1 })))).toBe('omega');
     expect(parameter(() => lowFrequencyGreybody(nest({ ...flatOk, omega: '0.1' })))).toBe('omega');
     expect(parameter(() => radialFunction(ok, ['3'] as unknown as number[]))).toBe('radii[0]');

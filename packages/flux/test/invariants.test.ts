@@ -23,23 +23,39 @@ const modeArb = spinArb.chain((spin) =>
 describe('greybody invariants', () => {
   it('Γ_{s l m}(ω; a) = Γ_{s l −m}(ω; −a) to 1e-9 relative (property, fast-check)', () => {
     fc.assert(
-      fc.property(modeArb, fc.double({ min: -0.999, max: 0.999, noNaN: true }), fc.double({ min: 0.02, max: 2.5, noNaN: true }), (mode, a, omega) => {
-        const g1 = greybody({ hole: { a }, mode: { field: { spin: mode.spin }, l: mode.l, m: mode.m }, omega }, { tol: 1e-10, reflection: false });
-        const g2 = greybody({ hole: { a: -a }, mode: { field: { spin: mode.spin }, l: mode.l, m: -mode.m }, omega }, { tol: 1e-10, reflection: false });
-        return Math.abs(g1.gamma / g2.gamma - 1) < 1e-9;
-      }),
+      fc.property(
+        modeArb,
+        fc.double({ min: -0.999, max: 0.999, noNaN: true }),
+        fc.double({ min: 0.02, max: 2.5, noNaN: true }),
+        (mode, a, omega) => {
+          const g1 = greybody(
+            { hole: { a }, mode: { field: { spin: mode.spin }, l: mode.l, m: mode.m }, omega },
+            { tol: 1e-10, reflection: false },
+          );
+          const g2 = greybody(
+            { hole: { a: -a }, mode: { field: { spin: mode.spin }, l: mode.l, m: -mode.m }, omega },
+            { tol: 1e-10, reflection: false },
+          );
+          return Math.abs(g1.gamma / g2.gamma - 1) < 1e-9;
+        },
+      ),
       { numRuns: 30, seed: 3 },
     );
   });
 
   it('conserves flux: |Γ + R − 1| < 1e-8 with R from the −s field, and 0 ≤ Γ ≤ 1 outside the superradiant band (property, fast-check)', () => {
     fc.assert(
-      fc.property(modeArb, fc.double({ min: -0.9999, max: 0.9999, noNaN: true }), fc.double({ min: 1e-3, max: 4, noNaN: true }), (mode, a, omega) => {
-        const g = greybody({ hole: { a }, mode: { field: { spin: mode.spin }, l: mode.l, m: mode.m }, omega });
-        const superradiant = mode.spin !== 0.5 && omega < mode.m * kerrHole({ a: a }).omegaH;
-        const bounded = superradiant || (g.gamma >= 0 && g.gamma <= 1 + 1e-8);
-        return g.residual < 1e-8 && g.relError <= 1e-8 && bounded;
-      }),
+      fc.property(
+        modeArb,
+        fc.double({ min: -0.9999, max: 0.9999, noNaN: true }),
+        fc.double({ min: 1e-3, max: 4, noNaN: true }),
+        (mode, a, omega) => {
+          const g = greybody({ hole: { a }, mode: { field: { spin: mode.spin }, l: mode.l, m: mode.m }, omega });
+          const superradiant = mode.spin !== 0.5 && omega < mode.m * kerrHole({ a: a }).omegaH;
+          const bounded = superradiant || (g.gamma >= 0 && g.gamma <= 1 + 1e-8);
+          return g.residual < 1e-8 && g.relError <= 1e-8 && bounded;
+        },
+      ),
       { numRuns: 40, seed: 11 },
     );
   });

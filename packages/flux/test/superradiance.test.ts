@@ -19,15 +19,22 @@ function peakAmplification(spin: number, l: number, m: number, a: number, n = 40
   let bestW = 0;
   for (let i = 1; i < n; i++) {
     const w = (m * omegaH * i) / n;
-    const z = greybody({ hole: { a }, mode: { field: { spin }, l, m }, omega: w }, { tol: 1e-7, reflection: false }).amplification;
+    const z = greybody(
+      { hole: { a }, mode: { field: { spin }, l, m }, omega: w },
+      { tol: 1e-7, reflection: false },
+    ).amplification;
     if (z > best) [best, bestW] = [z, w];
   }
-  let lo = Math.max(bestW - (m * omegaH) / n, 1e-4), hi = Math.min(bestW + (m * omegaH) / n, m * omegaH * 0.9999);
-  const f = (w: number) => greybody({ hole: { a }, mode: { field: { spin }, l, m }, omega: w }, { tol: 1e-7, reflection: false }).amplification;
+  let lo = Math.max(bestW - (m * omegaH) / n, 1e-4),
+    hi = Math.min(bestW + (m * omegaH) / n, m * omegaH * 0.9999);
+  const f = (w: number) =>
+    greybody({ hole: { a }, mode: { field: { spin }, l, m }, omega: w }, { tol: 1e-7, reflection: false }).amplification;
   const g = (Math.sqrt(5) - 1) / 2;
   for (let i = 0; i < 25; i++) {
-    const x1 = hi - g * (hi - lo), x2 = lo + g * (hi - lo);
-    if (f(x1) > f(x2)) hi = x2; else lo = x1;
+    const x1 = hi - g * (hi - lo),
+      x2 = lo + g * (hi - lo);
+    if (f(x1) > f(x2)) hi = x2;
+    else lo = x1;
   }
   return Math.max(best, f((lo + hi) / 2));
 }
@@ -65,7 +72,8 @@ describe('superradiant amplification', () => {
         fc.double({ min: 0.3, max: 0.999, noNaN: true }),
         fc.double({ min: 0.05, max: 1.95, noNaN: true }),
         (spin, a, fraction) => {
-          const l = Math.max(spin, 1), m = l;
+          const l = Math.max(spin, 1),
+            m = l;
           const omegaH = kerrHole({ a: a }).omegaH;
           const omega = fraction * m * omegaH;
           const g = greybody({ hole: { a }, mode: { field: { spin }, l, m }, omega }, { tol: 1e-6, reflection: false });
@@ -78,17 +86,23 @@ describe('superradiant amplification', () => {
 
   it('s = 1/2 never amplifies: 0 < Γ ≤ 1 across the would-be superradiant band (property, fast-check)', () => {
     fc.assert(
-      fc.property(fc.double({ min: 0.3, max: 0.9999, noNaN: true }), fc.double({ min: 0.05, max: 1.5, noNaN: true }), (a, fraction) => {
-        const omega = fraction * 0.5 * kerrHole({ a: a }).omegaH;
-        const g = greybody({ hole: { a }, mode: { field: { spin: 0.5 }, l: 0.5, m: 0.5 }, omega }, { tol: 1e-6 });
-        return g.gamma > 0 && g.gamma <= 1 + 1e-9 && !g.superradiant;
-      }),
+      fc.property(
+        fc.double({ min: 0.3, max: 0.9999, noNaN: true }),
+        fc.double({ min: 0.05, max: 1.5, noNaN: true }),
+        (a, fraction) => {
+          const omega = fraction * 0.5 * kerrHole({ a: a }).omegaH;
+          const g = greybody({ hole: { a }, mode: { field: { spin: 0.5 }, l: 0.5, m: 0.5 }, omega }, { tol: 1e-6 });
+          return g.gamma > 0 && g.gamma <= 1 + 1e-9 && !g.superradiant;
+        },
+      ),
       { numRuns: 20, seed: 7 },
     );
   });
 
   it('Γ crosses zero smoothly at the threshold ω = mΩ_H (s = 2, a = 0.9): Γ/k is continuous within 1e-4 across ±1e-6', () => {
-    const a = 0.9, m = 2, l = 2;
+    const a = 0.9,
+      m = 2,
+      l = 2;
     const w0 = m * kerrHole({ a: a }).omegaH;
     const below = greybody({ hole: { a }, mode: { field: { spin: 2 }, l, m }, omega: w0 - 1e-6 });
     const above = greybody({ hole: { a }, mode: { field: { spin: 2 }, l, m }, omega: w0 + 1e-6 });

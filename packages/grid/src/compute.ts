@@ -52,7 +52,11 @@ function checked<S>(outcome: Attempt<S>, numbers: (solution: S) => number[], wha
   return { status: 'not-converged', message: `non-finite ${what} (${values.join(', ')})` };
 }
 
-const modeNumbers = (reflection: boolean) => (r: GreybodySolution) => [r.gamma, r.relError, ...(reflection ? [r.reflection, r.residual] : [])];
+const modeNumbers = (reflection: boolean) => (r: GreybodySolution) => [
+  r.gamma,
+  r.relError,
+  ...(reflection ? [r.reflection, r.residual] : []),
+];
 
 function modeRow(task: TaskMessage, l: number, m: number, outcome: Checked<GreybodySolution>, reflection: boolean): Row {
   const point = { spin: task.s, a: task.a, omega: task.omega, l, m };
@@ -69,7 +73,13 @@ function modeRow(task: TaskMessage, l: number, m: number, outcome: Checked<Greyb
 
 function solveMode(task: TaskMessage, l: number, m: number, reflection: boolean): Row {
   const problem = { hole: { a: task.a }, mode: { field: { spin: task.s as FieldSpin }, l, m }, omega: task.omega };
-  return modeRow(task, l, m, checked(tryGreybody(problem, { tol: task.tolerance, reflection }), modeNumbers(reflection), 'greybody result'), reflection);
+  return modeRow(
+    task,
+    l,
+    m,
+    checked(tryGreybody(problem, { tol: task.tolerance, reflection }), modeNumbers(reflection), 'greybody result'),
+    reflection,
+  );
 }
 
 /** m values of shell l, from −l to l. */
@@ -105,18 +115,37 @@ export function computeTask(task: TaskMessage): TaskResult {
     // The automatic l range of the mode table is the one the cross-section sum reaches.
     const solved: GreybodySolution[] = [];
     const outcome = attempt(() =>
-      absorptionCrossSection({ hole: { a: task.a }, field: { spin: task.s as FieldSpin }, omega: task.omega }, {
-        tol: task.tolerance,
-        onMode: (r) => void solved.push(r),
-      }),
+      absorptionCrossSection(
+        { hole: { a: task.a }, field: { spin: task.s as FieldSpin }, omega: task.omega },
+        {
+          tol: task.tolerance,
+          onMode: (r) => void solved.push(r),
+        },
+      ),
     );
     const cs = checked(outcome, (c) => [c.sigma, c.relError, c.diagnostics.droppedBound], 'cross-section');
-    const crossRow: Row = cs.status !== 'success'
-      ? { ...point, status: cs.status, sigma: null, relError: null, droppedBound: null, lMax: null, modes: solved.length, message: cs.message }
-      : {
-          ...point, status: 'success', sigma: cs.solution.sigma, relError: cs.solution.relError, droppedBound: cs.solution.diagnostics.droppedBound,
-          lMax: cs.solution.diagnostics.lMax, modes: cs.solution.diagnostics.modes, message: null,
-        };
+    const crossRow: Row =
+      cs.status !== 'success'
+        ? {
+            ...point,
+            status: cs.status,
+            sigma: null,
+            relError: null,
+            droppedBound: null,
+            lMax: null,
+            modes: solved.length,
+            message: cs.message,
+          }
+        : {
+            ...point,
+            status: 'success',
+            sigma: cs.solution.sigma,
+            relError: cs.solution.relError,
+            droppedBound: cs.solution.diagnostics.droppedBound,
+            lMax: cs.solution.diagnostics.lMax,
+            modes: cs.solution.diagnostics.modes,
+            message: null,
+          };
     if (q.includes('crossSection')) rows.crossSection = [crossRow];
     if (perMode && task.l === 'auto') {
       const modeRows: Row[] = [];
@@ -140,21 +169,44 @@ export function computeTask(task: TaskMessage): TaskResult {
 
   if (q.includes('spectra')) {
     const outcome = attempt(() => {
-      const spectrum = emissionSpectrum({ hole: { a: task.a }, field: { spin: task.s as FieldSpin }, grid: [task.omega] }, { tol: task.tolerance });
+      const spectrum = emissionSpectrum(
+        { hole: { a: task.a }, field: { spin: task.s as FieldSpin }, grid: [task.omega] },
+        { tol: task.tolerance },
+      );
       return spectrum.points[0];
     });
     const checkedPoint = checked(outcome, (x) => [x.number, x.energy, x.torque, x.relError, x.droppedBound], 'spectrum');
     if (checkedPoint.status !== 'success') {
-      rows.spectra = [{
-        ...point, status: checkedPoint.status, number: null, energy: null, torque: null, relError: null,
-        droppedBound: null, lMax: null, modes: null, message: checkedPoint.message,
-      }];
+      rows.spectra = [
+        {
+          ...point,
+          status: checkedPoint.status,
+          number: null,
+          energy: null,
+          torque: null,
+          relError: null,
+          droppedBound: null,
+          lMax: null,
+          modes: null,
+          message: checkedPoint.message,
+        },
+      ];
     } else {
       const p = checkedPoint.solution;
-      rows.spectra = [{
-        ...point, status: 'success', number: p.number, energy: p.energy, torque: p.torque, relError: p.relError,
-        droppedBound: p.droppedBound, lMax: p.lMax, modes: p.modes, message: null,
-      }];
+      rows.spectra = [
+        {
+          ...point,
+          status: 'success',
+          number: p.number,
+          energy: p.energy,
+          torque: p.torque,
+          relError: p.relError,
+          droppedBound: p.droppedBound,
+          lMax: p.lMax,
+          modes: p.modes,
+          message: null,
+        },
+      ];
     }
   }
   return { index: task.index, rows };

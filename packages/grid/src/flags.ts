@@ -38,16 +38,29 @@ export function gridFromFlags(flags: GridFlags): Record<string, unknown> {
   if (flags.omega !== undefined) {
     const parts = flags.omega.split(':');
     if (parts.length === 3) {
-      raw.frequencies = { spacing: flags.spacing ?? 'linear', from: number(parts[0]), to: number(parts[1]), count: number(parts[2]) };
+      raw.frequencies = {
+        spacing: flags.spacing ?? 'linear',
+        from: number(parts[0]),
+        to: number(parts[1]),
+        count: number(parts[2]),
+      };
     } else {
-      raw.frequencies = { values: list(flags.omega).map(number), ...(flags.spacing !== undefined ? { spacing: flags.spacing } : {}) };
+      raw.frequencies = {
+        values: list(flags.omega).map(number),
+        ...(flags.spacing !== undefined ? { spacing: flags.spacing } : {}),
+      };
     }
   } else if (flags.spacing !== undefined) {
     raw.frequencies = { spacing: flags.spacing };
   }
   if (flags.l !== undefined) {
     const parts = flags.l.split(':');
-    raw.l = flags.l.trim() === 'auto' ? 'auto' : parts.length === 2 ? { min: number(parts[0]), max: number(parts[1]) } : { max: number(flags.l) };
+    raw.l =
+      flags.l.trim() === 'auto'
+        ? 'auto'
+        : parts.length === 2
+          ? { min: number(parts[0]), max: number(parts[1]) }
+          : { max: number(flags.l) };
   }
   if (flags.tol !== undefined) raw.tolerance = number(flags.tol);
   if (flags.quantities !== undefined) raw.quantities = list(flags.quantities);

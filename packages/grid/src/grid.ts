@@ -78,7 +78,12 @@ const show = (value: unknown): string => {
 const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 const isFiniteNumber = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
 
-function checkList<T extends number>(problems: string[], key: string, raw: unknown, read: (item: unknown, at: string) => T | undefined): T[] {
+function checkList<T extends number>(
+  problems: string[],
+  key: string,
+  raw: unknown,
+  read: (item: unknown, at: string) => T | undefined,
+): T[] {
   if (!Array.isArray(raw) || raw.length === 0) {
     problems.push(`${key}: expected a non-empty list, got ${show(raw)}`);
     return [];
@@ -148,7 +153,9 @@ function checkFrequencies(problems: string[], raw: unknown): FrequencyGrid | und
     ok = false;
   }
   if (!ok) return undefined;
-  const f = from as number, t = to as number, n = count as number;
+  const f = from as number,
+    t = to as number,
+    n = count as number;
   if (n === 1 && f !== t) {
     problems.push(`frequencies: count = 1 needs from = to (got from ${f}, to ${t})`);
     return undefined;
@@ -187,10 +194,15 @@ function checkL(problems: string[], raw: unknown, spins: readonly number[], quan
     return undefined;
   }
   if (!perMode && quantities.length > 0) {
-    problems.push(`l: an explicit l range applies to gamma and reflection only; crossSection and spectra truncate their l-sums themselves (use "auto" or leave l out)`);
+    problems.push(
+      `l: an explicit l range applies to gamma and reflection only; crossSection and spectra truncate their l-sums themselves (use "auto" or leave l out)`,
+    );
   }
   for (const spin of spins) {
-    if (modeLs(spin, range).length === 0) problems.push(`l: the range ${range.min}…${range.max} holds no mode of field spin ${spin} (l ≥ ${spin}, l − spin an integer)`);
+    if (modeLs(spin, range).length === 0)
+      problems.push(
+        `l: the range ${range.min}…${range.max} holds no mode of field spin ${spin} (l ≥ ${spin}, l − spin an integer)`,
+      );
   }
   return range;
 }
@@ -228,7 +240,8 @@ export function validateGrid(raw: unknown): GridSpec {
     }
     return item === 0 ? 0 : item; // −0 and 0 are one hole
   });
-  if (raw.frequencies === undefined) problems.push('frequencies: missing (e.g. {"spacing": "log", "from": 0.01, "to": 2, "count": 50})');
+  if (raw.frequencies === undefined)
+    problems.push('frequencies: missing (e.g. {"spacing": "log", "from": 0.01, "to": 2, "count": 50})');
   const frequencies = raw.frequencies === undefined ? undefined : checkFrequencies(problems, raw.frequencies);
 
   let quantities: Quantity[] = [];
@@ -237,7 +250,8 @@ export function validateGrid(raw: unknown): GridSpec {
     problems.push(`quantities: expected a non-empty list of ${QUANTITIES.join(', ')}, got ${show(rawQ)}`);
   } else {
     rawQ.forEach((q, i) => {
-      if (!(QUANTITIES as readonly unknown[]).includes(q)) problems.push(`quantities[${i}]: expected one of ${QUANTITIES.join(', ')}, got ${show(q)}`);
+      if (!(QUANTITIES as readonly unknown[]).includes(q))
+        problems.push(`quantities[${i}]: expected one of ${QUANTITIES.join(', ')}, got ${show(q)}`);
       else if (quantities.includes(q as Quantity)) problems.push(`quantities[${i}]: '${q}' appears twice`);
       else quantities.push(q as Quantity);
     });
@@ -249,7 +263,9 @@ export function validateGrid(raw: unknown): GridSpec {
   const tolerance = raw.tolerance ?? DEFAULT_TOLERANCE;
   const [tolMin, tolMax] = quantities.includes('spectra') ? TOL_RANGE.spectra : TOL_RANGE.other;
   if (!isFiniteNumber(tolerance) || tolerance < tolMin || tolerance > tolMax) {
-    problems.push(`tolerance: expected a relative accuracy from ${tolMin} to ${tolMax}${quantities.includes('spectra') ? ' (spectra)' : ''}, got ${show(tolerance)}`);
+    problems.push(
+      `tolerance: expected a relative accuracy from ${tolMin} to ${tolMax}${quantities.includes('spectra') ? ' (spectra)' : ''}, got ${show(tolerance)}`,
+    );
   }
   const chunkSize = raw.chunkSize ?? DEFAULT_CHUNK_SIZE;
   if (!isFiniteNumber(chunkSize) || !Number.isInteger(chunkSize) || chunkSize < 1 || chunkSize > 10_000) {
@@ -257,7 +273,8 @@ export function validateGrid(raw: unknown): GridSpec {
   }
   if (frequencies && fieldSpins.length && holeA.length) {
     const tasks = fieldSpins.length * holeA.length * frequencyCount(frequencies);
-    if (tasks > MAX_TASKS) problems.push(`the grid has ${tasks} (spin, a, ω) points; split it into several grids of at most ${MAX_TASKS}`);
+    if (tasks > MAX_TASKS)
+      problems.push(`the grid has ${tasks} (spin, a, ω) points; split it into several grids of at most ${MAX_TASKS}`);
   }
   if (problems.length > 0 || !frequencies || !l) throw new GridError(problems);
   return { fieldSpins, holeA, frequencies, l, tolerance: tolerance as number, quantities, chunkSize: chunkSize as number };
@@ -265,9 +282,15 @@ export function validateGrid(raw: unknown): GridSpec {
 
 /** Stable text of a grid: fixed key order, so equal grids give equal bytes and hashes. */
 export function canonicalGridJson(grid: GridSpec): string {
-  const frequencies = 'values' in grid.frequencies
-    ? { values: grid.frequencies.values }
-    : { spacing: grid.frequencies.spacing, from: grid.frequencies.from, to: grid.frequencies.to, count: grid.frequencies.count };
+  const frequencies =
+    'values' in grid.frequencies
+      ? { values: grid.frequencies.values }
+      : {
+          spacing: grid.frequencies.spacing,
+          from: grid.frequencies.from,
+          to: grid.frequencies.to,
+          count: grid.frequencies.count,
+        };
   const l = grid.l === 'auto' ? 'auto' : { min: grid.l.min, max: grid.l.max };
   return JSON.stringify({
     fieldSpins: grid.fieldSpins,

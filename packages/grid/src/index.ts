@@ -12,10 +12,26 @@ export {
   canonicalGridJson,
   gridHash,
 } from './grid.js';
-export { type GridTask, type GridChunk, type ShardSpec, gridTasks, gridChunks, taskCost, parseShard, shardChunks } from './tasks.js';
+export {
+  type GridTask,
+  type GridChunk,
+  type ShardSpec,
+  gridTasks,
+  gridChunks,
+  taskCost,
+  parseShard,
+  shardChunks,
+} from './tasks.js';
 export { type Row, type RowStatus, type TableName, TABLE_NAMES, TABLE_FILES, tableColumns, gridTables } from './schema.js';
 export { type TaskMessage, type TaskResult, computeTask } from './compute.js';
-export { type FailureNote, type TableSummary, type AssembledTables, type TableFile, assembleTables, readTableFile } from './tables.js';
+export {
+  type FailureNote,
+  type TableSummary,
+  type AssembledTables,
+  type TableFile,
+  assembleTables,
+  readTableFile,
+} from './tables.js';
 export { type Progress, type RunOptions, type RunSummary, defaultWorkers, runProblems, runGrid } from './run.js';
 export { type MergeSummary, mergeRuns } from './merge.js';
 export { formatDuration, formatProgress, progressPrinter } from './progress.js';

@@ -64,7 +64,9 @@ export function mergeRuns(sources: readonly string[], out: string): MergeSummary
   }
   if (missing.length) {
     const list = missing.length > 12 ? `${missing.slice(0, 12).join(', ')}, … (${missing.length} in all)` : missing.join(', ');
-    problems.push(`incomplete: chunk${missing.length > 1 ? 's' : ''} ${list} of ${chunks.length} are in none of the directories (a shard not run or not finished?)`);
+    problems.push(
+      `incomplete: chunk${missing.length > 1 ? 's' : ''} ${list} of ${chunks.length} are in none of the directories (a shard not run or not finished?)`,
+    );
   }
   problems.push(...outputDirProblems(out, grid));
   if (problems.length) throw new GridError(problems, 'cannot merge');
@@ -75,10 +77,24 @@ export function mergeRuns(sources: readonly string[], out: string): MergeSummary
   chosen.forEach((c, i) => {
     if (resolve(c.source) !== outAbs) writeFileAtomic(join(out, CHUNK_DIR, chunkFileName(chunks[i].index)), c.text);
   });
-  const assembled = assembleTables(grid, chosen.flatMap((c) => c.results));
+  const assembled = assembleTables(
+    grid,
+    chosen.flatMap((c) => c.results),
+  );
   const files = writeTables(out, assembled);
-  writeFileAtomic(join(out, 'run.json'), JSON.stringify({
-    kind: 'merge', mergedAt: new Date(started).toISOString(), seconds: (Date.now() - started) / 1000, sources: sources.map((s) => resolve(s)), node: process.version,
-  }, null, 2) + '\n');
+  writeFileAtomic(
+    join(out, 'run.json'),
+    JSON.stringify(
+      {
+        kind: 'merge',
+        mergedAt: new Date(started).toISOString(),
+        seconds: (Date.now() - started) / 1000,
+        sources: sources.map((s) => resolve(s)),
+        node: process.version,
+      },
+      null,
+      2,
+    ) + '\n',
+  );
   return { gridHash: gridHash(grid), sources: [...sources], chunks: chunks.length, files, summary: assembled.summary };
 }

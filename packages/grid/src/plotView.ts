@@ -15,7 +15,9 @@ export interface GridTable {
   units: string;
   grid: unknown;
   summary: TableSummary;
-  tables: Partial<Record<TableName, { file: string; columns: { key: string; unit: string; description: string }[]; rows: Row[] }>>;
+  tables: Partial<
+    Record<TableName, { file: string; columns: { key: string; unit: string; description: string }[]; rows: Row[] }>
+  >;
 }
 
 /** The figure code's view of a table file. */
@@ -24,7 +26,11 @@ export function plotView(file: TableFile): GridTable {
   for (const [name, table] of Object.entries(file.tables) as [TableName, NonNullable<TableFile['tables'][TableName]>][]) {
     tables[name] = {
       file: table.file,
-      columns: table.columns.map((c) => ({ key: c.name === 'spin' ? 's' : c.name, unit: c.unit, description: c.description ?? '' })),
+      columns: table.columns.map((c) => ({
+        key: c.name === 'spin' ? 's' : c.name,
+        unit: c.unit,
+        description: c.description ?? '',
+      })),
       rows: table.rows.map(({ spin, status, ...rest }) => ({ s: spin, ...rest, status: status === 'success' ? 'ok' : status })),
     };
   }

@@ -65,15 +65,25 @@ export function defaultWorkers(): number {
 
 /** The message a worker receives for one task. */
 export function taskMessage(grid: GridSpec, task: GridTask): TaskMessage {
-  return { index: task.index, s: task.s, a: task.a, omega: task.omega, l: grid.l, tolerance: grid.tolerance, quantities: grid.quantities };
+  return {
+    index: task.index,
+    s: task.s,
+    a: task.a,
+    omega: task.omega,
+    l: grid.l,
+    tolerance: grid.tolerance,
+    quantities: grid.quantities,
+  };
 }
 
 /** Problems with the run options (beyond the grid itself), found without writing. */
 export function runProblems(options: Pick<RunOptions, 'grid' | 'out' | 'workers'>): string[] {
   const problems = outputDirProblems(options.out, options.grid);
   const w = options.workers;
-  if (w !== undefined && !(Number.isInteger(w) && w >= 0 && w <= 1024)) problems.push(`workers: expected an integer from 0 to 1024, got ${w}`);
-  if (options.workers !== 0 && !existsSync(WORKER_FILE)) problems.push(`the worker ${WORKER_FILE} is not built; run \`npx tsc -b\` at the repository root`);
+  if (w !== undefined && !(Number.isInteger(w) && w >= 0 && w <= 1024))
+    problems.push(`workers: expected an integer from 0 to 1024, got ${w}`);
+  if (options.workers !== 0 && !existsSync(WORKER_FILE))
+    problems.push(`the worker ${WORKER_FILE} is not built; run \`npx tsc -b\` at the repository root`);
   return problems;
 }
 
@@ -108,31 +118,43 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
     const elapsedSeconds = (Date.now() - started) / 1000;
     const fraction = totalCost > 0 && doneTasks < pendingTasks ? Math.min(doneCost / totalCost, 1) : 1;
     options.onProgress?.({
-      doneTasks, totalTasks: pendingTasks, fraction, elapsedSeconds,
+      doneTasks,
+      totalTasks: pendingTasks,
+      fraction,
+      elapsedSeconds,
       etaSeconds: fraction > 0 ? (elapsedSeconds * (1 - fraction)) / fraction : undefined,
     });
   };
 
-  const pool = workers > 0 && pending.length > 0
-    ? new (await loadPiscina())<TaskMessage, TaskResult>({ filename: WORKER_FILE, minThreads: workers, maxThreads: workers, idleTimeout: 60_000 })
-    : undefined;
-  const compute = (m: TaskMessage): Promise<TaskResult> => (pool ? pool.run(m) : new Promise((ok) => setImmediate(() => ok(computeTask(m)))));
+  const pool =
+    workers > 0 && pending.length > 0
+      ? new (await loadPiscina())<TaskMessage, TaskResult>({
+          filename: WORKER_FILE,
+          minThreads: workers,
+          maxThreads: workers,
+          idleTimeout: 60_000,
+        })
+      : undefined;
+  const compute = (m: TaskMessage): Promise<TaskResult> =>
+    pool ? pool.run(m) : new Promise((ok) => setImmediate(() => ok(computeTask(m))));
   const chunkCost = (c: GridChunk) => c.cost / Math.max(1, c.end - c.first);
   try {
     // All tasks are queued at once in chunk order; the FIFO queue finishes chunks roughly in order.
-    await Promise.all(pending.map(async (chunk) => {
-      const jobs: Promise<TaskResult>[] = [];
-      for (let i = chunk.first; i < chunk.end; i++) {
-        jobs.push(
-          compute(taskMessage(grid, tasks[i])).then((r) => {
-            report(chunkCost(chunk));
-            return r;
-          }),
-        );
-      }
-      const results = await Promise.all(jobs);
-      writeChunk(out, grid, chunk, results);
-    }));
+    await Promise.all(
+      pending.map(async (chunk) => {
+        const jobs: Promise<TaskResult>[] = [];
+        for (let i = chunk.first; i < chunk.end; i++) {
+          jobs.push(
+            compute(taskMessage(grid, tasks[i])).then((r) => {
+              report(chunkCost(chunk));
+              return r;
+            }),
+          );
+        }
+        const results = await Promise.all(jobs);
+        writeChunk(out, grid, chunk, results);
+      }),
+    );
   } finally {
     await pool?.destroy();
   }
@@ -154,14 +176,38 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
   }
   const seconds = (Date.now() - started) / 1000;
   const result: RunSummary = {
-    gridHash: gridHash(grid), shard, workers, chunksInShard: mine.length, chunksSkipped: mine.length - pending.length,
-    chunksComputed: pending.length, tasksComputed: pendingTasks, complete: missing === 0, missingChunks: missing, files, summary, seconds,
+    gridHash: gridHash(grid),
+    shard,
+    workers,
+    chunksInShard: mine.length,
+    chunksSkipped: mine.length - pending.length,
+    chunksComputed: pending.length,
+    tasksComputed: pendingTasks,
+    complete: missing === 0,
+    missingChunks: missing,
+    files,
+    summary,
+    seconds,
   };
-  writeFileAtomic(join(out, runFileName(shard)), JSON.stringify({
-    kind: 'run', startedAt: new Date(started).toISOString(), seconds, workers, shard: `${shard.k}/${shard.n}`,
-    chunksSkipped: result.chunksSkipped, chunksComputed: result.chunksComputed, tasksComputed: pendingTasks,
-    tasksPerSecond: seconds > 0 ? pendingTasks / seconds : null, node: process.version,
-  }, null, 2) + '\n');
+  writeFileAtomic(
+    join(out, runFileName(shard)),
+    JSON.stringify(
+      {
+        kind: 'run',
+        startedAt: new Date(started).toISOString(),
+        seconds,
+        workers,
+        shard: `${shard.k}/${shard.n}`,
+        chunksSkipped: result.chunksSkipped,
+        chunksComputed: result.chunksComputed,
+        tasksComputed: pendingTasks,
+        tasksPerSecond: seconds > 0 ? pendingTasks / seconds : null,
+        node: process.version,
+      },
+      null,
+      2,
+    ) + '\n',
+  );
   return result;
 }
 

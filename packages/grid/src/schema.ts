@@ -35,8 +35,16 @@ const status: Column = {
   unit: '',
   description: "'success', or why the numbers are missing: 'not-converged' or 'invalid-input' (reason in 'message')",
 };
-const message: Column = { name: 'message', unit: '', description: 'why the row failed, with the solver diagnostics; empty on success' };
-const relError = (of: string, extra = ''): Column => ({ name: 'relError', unit: '1', description: `estimated relative error of ${of}${extra}` });
+const message: Column = {
+  name: 'message',
+  unit: '',
+  description: 'why the row failed, with the solver diagnostics; empty on success',
+};
+const relError = (of: string, extra = ''): Column => ({
+  name: 'relError',
+  unit: '1',
+  description: `estimated relative error of ${of}${extra}`,
+});
 const lMax: Column = { name: 'lMax', unit: '1', description: 'largest l summed' };
 const modes: Column = { name: 'modes', unit: '', description: 'greybody solves' };
 
@@ -49,7 +57,11 @@ export function tableColumns(grid: GridSpec, table: TableName): Column[] {
       { name: 'l', unit: '1', description: 'spheroidal index l' },
       { name: 'm', unit: '1', description: 'azimuthal number m' },
       status,
-      { name: 'gamma', unit: '1', description: 'greybody factor Γ (absorbed fraction of the incident flux; < 0 when superradiant)' },
+      {
+        name: 'gamma',
+        unit: '1',
+        description: 'greybody factor Γ (absorbed fraction of the incident flux; < 0 when superradiant)',
+      },
       relError('Γ'),
       ...(reflection
         ? [

@@ -26,7 +26,9 @@ const CHUNK_FORMAT = 'penumbra-grid-chunk/2';
 
 /** The text of grid.json. */
 export function gridFileText(grid: GridSpec): string {
-  return JSON.stringify({ format: GRID_FORMAT, gridHash: gridHash(grid), grid: JSON.parse(canonicalGridJson(grid)) }, null, 2) + '\n';
+  return (
+    JSON.stringify({ format: GRID_FORMAT, gridHash: gridHash(grid), grid: JSON.parse(canonicalGridJson(grid)) }, null, 2) + '\n'
+  );
 }
 
 /** Reads DIR/grid.json; a problem text if it is not a valid grid file. */
@@ -61,7 +63,9 @@ export function outputDirProblems(dir: string, grid: GridSpec | undefined, optio
       const held = readGridFile(path);
       if (typeof held === 'string') problems.push(`${option} ${dir}: ${held}`);
       else if (grid && canonicalGridJson(held) !== canonicalGridJson(grid)) {
-        problems.push(`${option} ${dir} already holds a different grid (grid ${gridHash(held)}, this one ${gridHash(grid)}); choose another directory or remove it`);
+        problems.push(
+          `${option} ${dir} already holds a different grid (grid ${gridHash(held)}, this one ${gridHash(grid)}); choose another directory or remove it`,
+        );
       }
     } else if (readdirSync(path).length > 0) {
       problems.push(`${option} ${dir} exists, is not empty and holds no ${GRID_FILE}; choose an empty or new directory`);
@@ -112,7 +116,13 @@ export interface ChunkFile {
 
 /** The text of a chunk file. */
 export function chunkText(grid: GridSpec, chunk: GridChunk, results: TaskResult[]): string {
-  const file: ChunkFile = { format: CHUNK_FORMAT, gridHash: gridHash(grid), chunk: chunk.index, tasks: [chunk.first, chunk.end], results };
+  const file: ChunkFile = {
+    format: CHUNK_FORMAT,
+    gridHash: gridHash(grid),
+    chunk: chunk.index,
+    tasks: [chunk.first, chunk.end],
+    results,
+  };
   return JSON.stringify(file) + '\n';
 }
 
@@ -127,9 +137,15 @@ export function readChunk(dir: string, grid: GridSpec, chunk: GridChunk): ChunkF
   if (!existsSync(path)) return undefined;
   try {
     const file = JSON.parse(readFileSync(path, 'utf8')) as ChunkFile;
-    const ok = file.format === CHUNK_FORMAT && file.gridHash === gridHash(grid) && file.chunk === chunk.index
-      && file.tasks?.[0] === chunk.first && file.tasks?.[1] === chunk.end && Array.isArray(file.results)
-      && file.results.length === chunk.end - chunk.first && file.results.every((r, i) => r.index === chunk.first + i);
+    const ok =
+      file.format === CHUNK_FORMAT &&
+      file.gridHash === gridHash(grid) &&
+      file.chunk === chunk.index &&
+      file.tasks?.[0] === chunk.first &&
+      file.tasks?.[1] === chunk.end &&
+      Array.isArray(file.results) &&
+      file.results.length === chunk.end - chunk.first &&
+      file.results.every((r, i) => r.index === chunk.first + i);
     return ok ? file : undefined;
   } catch {
     return undefined;

@@ -70,8 +70,12 @@ export function assembleTables(grid: GridSpec, results: readonly TaskResult[]): 
     summary.failed[name] = failed.length;
     for (const r of failed) {
       const note: FailureNote = {
-        table: name, spin: r.spin as number, a: r.a as number, omega: r.omega as number,
-        status: r.status as FailureNote['status'], message: String(r.message),
+        table: name,
+        spin: r.spin as number,
+        a: r.a as number,
+        omega: r.omega as number,
+        status: r.status as FailureNote['status'],
+        message: String(r.message),
       };
       if (name === 'modes') Object.assign(note, { l: r.l as number, m: r.m as number });
       summary.failures.push(note);
@@ -80,7 +84,9 @@ export function assembleTables(grid: GridSpec, results: readonly TaskResult[]): 
     files.push({ name: TABLE_FILES[name], text: toCsv(table) });
     const json = toJsonTable(table);
     const rowLines = json.rows.map((r) => '      ' + JSON.stringify(r)).join(',\n');
-    jsonTables.push(`    ${JSON.stringify(name)}: {\n      "file": ${JSON.stringify(TABLE_FILES[name])},\n      "columns": ${JSON.stringify(json.columns)},\n      "rows": [\n${rowLines}\n      ]\n    }`);
+    jsonTables.push(
+      `    ${JSON.stringify(name)}: {\n      "file": ${JSON.stringify(TABLE_FILES[name])},\n      "columns": ${JSON.stringify(json.columns)},\n      "rows": [\n${rowLines}\n      ]\n    }`,
+    );
   }
   const head = {
     format: TABLE_FORMAT,

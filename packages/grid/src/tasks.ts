@@ -65,9 +65,10 @@ export function taskCost(grid: GridSpec, task: GridTask): number {
   let cost = 0;
   const sumModes = estimatedSumModes(task.s, task.a, task.omega);
   if (perMode) {
-    cost += grid.l === 'auto'
-      ? sumModes * (q.includes('reflection') ? 2.6 : 1)
-      : explicitModes(task.s, grid.l).length * reflectionFactor;
+    cost +=
+      grid.l === 'auto'
+        ? sumModes * (q.includes('reflection') ? 2.6 : 1)
+        : explicitModes(task.s, grid.l).length * reflectionFactor;
   }
   if (q.includes('crossSection') && !(perMode && grid.l === 'auto')) cost += sumModes;
   if (q.includes('spectra')) cost += sumModes;
@@ -99,7 +100,8 @@ export function parseShard(text: string): ShardSpec | string {
   const match = /^\s*(\d+)\s*\/\s*(\d+)\s*$/.exec(text);
   const rule = `--shard expects K/N with integers 1 ≤ K ≤ N (e.g. 3/8), got '${text}'`;
   if (!match) return rule;
-  const k = Number(match[1]), n = Number(match[2]);
+  const k = Number(match[1]),
+    n = Number(match[2]);
   if (!(n >= 1 && k >= 1 && k <= n) || n > 100_000) return rule;
   return { k, n };
 }

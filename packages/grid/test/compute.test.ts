@@ -4,26 +4,44 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { attempt, ConvergenceError, exactDiagnostics } from '@penumbra/core';
 
-const failing = (extra: object) => new ConvergenceError('greybody factor did not reach the requested accuracy', {
-  ...exactDiagnostics('test double'), message: 'relative error 3e-4 > tol', errorEstimate: 3e-4, ...extra,
-});
+const failing = (extra: object) =>
+  new ConvergenceError('greybody factor did not reach the requested accuracy', {
+    ...exactDiagnostics('test double'),
+    message: 'relative error 3e-4 > tol',
+    errorEstimate: 3e-4,
+    ...extra,
+  });
 
 // One mode of the grid refuses to converge; everything else is the real solver.
 vi.mock('@penumbra/flux', async (importOriginal) => {
   const real = await importOriginal<typeof import('@penumbra/flux')>();
   const greybody = (problem: import('@penumbra/flux').GreybodyProblem, options: object) => {
-    if (problem.mode.l === 1 && problem.mode.m === 1 && problem.omega === 0.3) throw failing({ l: 1, m: 1, relError: 3e-4, attempts: 3 });
+    if (problem.mode.l === 1 && problem.mode.m === 1 && problem.omega === 0.3)
+      throw failing({ l: 1, m: 1, relError: 3e-4, attempts: 3 });
     return real.greybody(problem, options);
   };
   return {
     ...real,
     greybody,
-    tryGreybody: (problem: import('@penumbra/flux').GreybodyProblem, options: object) => attempt(() => greybody(problem, options)),
+    tryGreybody: (problem: import('@penumbra/flux').GreybodyProblem, options: object) =>
+      attempt(() => greybody(problem, options)),
     // The l-sum meets the same failing mode after the modes of lower l and m.
-    absorptionCrossSection: (problem: import('@penumbra/flux').CrossSectionProblem, options: { tol: number; onMode?: (r: import('@penumbra/flux').GreybodySolution) => void }) => {
+    absorptionCrossSection: (
+      problem: import('@penumbra/flux').CrossSectionProblem,
+      options: { tol: number; onMode?: (r: import('@penumbra/flux').GreybodySolution) => void },
+    ) => {
       if (problem.omega !== 0.3) return real.absorptionCrossSection(problem, options);
-      for (const [l, m] of [[0, 0], [1, -1], [1, 0]]) {
-        options.onMode?.(real.greybody({ hole: problem.hole, mode: { field: problem.field, l, m }, omega: problem.omega }, { tol: options.tol, reflection: false }));
+      for (const [l, m] of [
+        [0, 0],
+        [1, -1],
+        [1, 0],
+      ]) {
+        options.onMode?.(
+          real.greybody(
+            { hole: problem.hole, mode: { field: problem.field, l, m }, omega: problem.omega },
+            { tol: options.tol, reflection: false },
+          ),
+        );
       }
       throw failing({ spin: problem.field.spin, l: 1, m: 1, relError: 3e-4 });
     },
@@ -34,9 +52,22 @@ const { assembleTables, computeTask, runGrid, validateGrid } = await import('@pe
 
 describe('failed modes', () => {
   test("a mode that does not converge becomes a row with status 'not-converged' and the solver's message with its diagnostics; the other modes of the point are computed", () => {
-    const r = computeTask({ index: 0, s: 0, a: 0.5, omega: 0.3, l: { min: 0, max: 1 }, tolerance: 1e-6, quantities: ['gamma', 'reflection'] });
+    const r = computeTask({
+      index: 0,
+      s: 0,
+      a: 0.5,
+      omega: 0.3,
+      l: { min: 0, max: 1 },
+      tolerance: 1e-6,
+      quantities: ['gamma', 'reflection'],
+    });
     const rows = r.rows.modes!;
-    expect(rows.map((row) => `${row.l},${row.m},${row.status}`)).toEqual(['0,0,success', '1,-1,success', '1,0,success', '1,1,not-converged']);
+    expect(rows.map((row) => `${row.l},${row.m},${row.status}`)).toEqual([
+      '0,0,success',
+      '1,-1,success',
+      '1,0,success',
+      '1,1,not-converged',
+    ]);
     const failed = rows[3];
     expect(failed.gamma).toBeNull();
     expect(failed.reflection).toBeNull();
@@ -46,7 +77,15 @@ describe('failed modes', () => {
   });
 
   test("a mode refused as input (l beyond core's MAX_L) becomes a row with status 'invalid-input' and the InputError's message", () => {
-    const r = computeTask({ index: 0, s: 0, a: 0.5, omega: 0.3, l: { min: 101, max: 101 }, tolerance: 1e-6, quantities: ['gamma'] });
+    const r = computeTask({
+      index: 0,
+      s: 0,
+      a: 0.5,
+      omega: 0.3,
+      l: { min: 101, max: 101 },
+      tolerance: 1e-6,
+      quantities: ['gamma'],
+    });
     const rows = r.rows.modes!;
     expect(rows).toHaveLength(203);
     expect(rows.every((row) => row.status === 'invalid-input' && row.gamma === null)).toBe(true);
@@ -54,7 +93,15 @@ describe('failed modes', () => {
   });
 
   test('in the automatic l range a failing mode (from the l-sum) fails the cross-section and is listed as a failed mode row, never a number', () => {
-    const r = computeTask({ index: 0, s: 0, a: 0.5, omega: 0.3, l: 'auto', tolerance: 1e-6, quantities: ['gamma', 'crossSection'] });
+    const r = computeTask({
+      index: 0,
+      s: 0,
+      a: 0.5,
+      omega: 0.3,
+      l: 'auto',
+      tolerance: 1e-6,
+      quantities: ['gamma', 'crossSection'],
+    });
     expect(r.rows.crossSection![0]).toMatchObject({ status: 'not-converged', sigma: null });
     const modes = r.rows.modes!;
     expect(modes.at(-1)).toMatchObject({ l: 1, m: 1, status: 'not-converged', gamma: null });
@@ -64,14 +111,30 @@ describe('failed modes', () => {
   test('a run with a failing mode completes every other point, leaves the CSV cells empty and lists the failure in the summary', async () => {
     const out = join(mkdtempSync(join(tmpdir(), 'penumbra-grid-')), 'run');
     try {
-      const grid = validateGrid({ fieldSpins: [0], holeA: [0.5], frequencies: { values: [0.1, 0.3] }, l: { max: 1 }, quantities: ['gamma'], chunkSize: 1 });
+      const grid = validateGrid({
+        fieldSpins: [0],
+        holeA: [0.5],
+        frequencies: { values: [0.1, 0.3] },
+        l: { max: 1 },
+        quantities: ['gamma'],
+        chunkSize: 1,
+      });
       const result = await runGrid({ grid, out, workers: 0 });
       expect(result.complete).toBe(true);
       expect(result.summary!.rows.modes).toBe(8);
       expect(result.summary!.failed.modes).toBe(1);
-      expect(result.summary!.failures[0]).toMatchObject({ table: 'modes', spin: 0, omega: 0.3, l: 1, m: 1, status: 'not-converged' });
+      expect(result.summary!.failures[0]).toMatchObject({
+        table: 'modes',
+        spin: 0,
+        omega: 0.3,
+        l: 1,
+        m: 1,
+        status: 'not-converged',
+      });
       const csv = readFileSync(join(out, 'modes.csv'), 'utf8').trim().split('\n');
-      expect(csv[8]).toMatch(/^0,0.5,0.3,1,1,not-converged,,,,,"greybody factor did not reach the requested accuracy; diagnostics: /);
+      expect(csv[8]).toMatch(
+        /^0,0.5,0.3,1,1,not-converged,,,,,"greybody factor did not reach the requested accuracy; diagnostics: /,
+      );
     } finally {
       rmSync(join(out, '..'), { recursive: true, force: true });
     }
@@ -94,19 +157,31 @@ describe('quantities', () => {
     expect(new Set(shell2.map((row) => row.gamma)).size).toBe(1);
     const sum = modes.reduce((acc, row) => acc + (row.gamma as number), 0);
     const sigma = r.rows.crossSection![0].sigma as number;
-    expect(Math.abs((Math.PI / omega ** 2) * sum / sigma - 1)).toBeLessThan(1e-12);
+    expect(Math.abs(((Math.PI / omega ** 2) * sum) / sigma - 1)).toBeLessThan(1e-12);
   });
 
   test('assembled tables carry units in the CSV header and the same rows in table.json', () => {
-    const grid = validateGrid({ fieldSpins: [0], holeA: [0], frequencies: { values: [0.2] }, quantities: ['crossSection', 'spectra'] });
+    const grid = validateGrid({
+      fieldSpins: [0],
+      holeA: [0],
+      frequencies: { values: [0.2] },
+      quantities: ['crossSection', 'spectra'],
+    });
     const results = [computeTask({ index: 0, s: 0, a: 0, omega: 0.2, l: 'auto', tolerance: 1e-6, quantities: grid.quantities })];
     const { files } = assembleTables(grid, results);
     expect(files.map((f) => f.name)).toEqual(['cross-section.csv', 'spectra.csv', 'table.json']);
-    expect(files[0].text.split('\n')[0]).toBe('spin [1],a [M],omega [1/M],status,sigma [M^2],relError [1],droppedBound [M^2],lMax [1],modes,message');
+    expect(files[0].text.split('\n')[0]).toBe(
+      'spin [1],a [M],omega [1/M],status,sigma [M^2],relError [1],droppedBound [M^2],lMax [1],modes,message',
+    );
     expect(files[1].text.split('\n')[0]).toMatch(/number \[1\],energy \[1\/M\],torque \[1\]/);
     const json = JSON.parse(files[2].text);
     expect(json.format).toBe('penumbra-grid-table/2');
-    expect(json.tables.crossSection.columns.map((c: { name: string }) => c.name)).toEqual(files[0].text.split('\n')[0].split(',').map((h) => h.replace(/ \[.*\]$/, '')));
+    expect(json.tables.crossSection.columns.map((c: { name: string }) => c.name)).toEqual(
+      files[0].text
+        .split('\n')[0]
+        .split(',')
+        .map((h) => h.replace(/ \[.*\]$/, '')),
+    );
     expect(json.tables.crossSection.rows[0]).toEqual({ ...results[0].rows.crossSection![0] });
     expect(json.tables.crossSection.rows[0].sigma).toBe(results[0].rows.crossSection![0].sigma);
   });

@@ -4,7 +4,15 @@ import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { gridValues } from '@penumbra/core';
 import {
-  canonicalGridJson, GridError, gridChunks, gridHash, gridTasks, parseShard, shardChunks, taskCost, validateGrid,
+  canonicalGridJson,
+  GridError,
+  gridChunks,
+  gridHash,
+  gridTasks,
+  parseShard,
+  shardChunks,
+  taskCost,
+  validateGrid,
 } from '@penumbra/grid';
 
 const base = {
@@ -55,16 +63,30 @@ describe('grid descriptions', () => {
   });
 
   test('contradictory grids are refused: both frequency forms, an l range holding no mode of a spin, an l range with sums only, a non-increasing list', () => {
-    expect(problemsOf({ ...base, frequencies: { values: [0.1], spacing: 'log', from: 0.1, to: 1, count: 3 } })[0]).toMatch(/either "values" or/);
+    expect(problemsOf({ ...base, frequencies: { values: [0.1], spacing: 'log', from: 0.1, to: 1, count: 3 } })[0]).toMatch(
+      /either "values" or/,
+    );
     expect(problemsOf({ ...base, fieldSpins: [2], l: { max: 1 } })[0]).toMatch(/holds no mode of field spin 2/);
-    expect(problemsOf({ ...base, quantities: ['crossSection'] })[0]).toMatch(/explicit l range applies to gamma and reflection only/);
+    expect(problemsOf({ ...base, quantities: ['crossSection'] })[0]).toMatch(
+      /explicit l range applies to gamma and reflection only/,
+    );
     expect(problemsOf({ ...base, frequencies: { values: [0.1, 0.3, 0.2] } })[0]).toMatch(/increase strictly/);
-    expect(problemsOf({ ...base, frequencies: { spacing: 'linear', from: 0.5, to: 0.5, count: 3 } })[0]).toMatch(/'to' \(0.5\) must exceed/);
+    expect(problemsOf({ ...base, frequencies: { spacing: 'linear', from: 0.5, to: 0.5, count: 3 } })[0]).toMatch(
+      /'to' \(0.5\) must exceed/,
+    );
   });
 
   test('the canonical text and hash ignore key order and defaults written out', () => {
     const a = validateGrid(base);
-    const b = validateGrid({ quantities: ['gamma'], tolerance: 1e-6, chunkSize: 16, l: { min: 0, max: 2 }, frequencies: base.frequencies, holeA: [0, -0 + 0.9], fieldSpins: [0, 1] });
+    const b = validateGrid({
+      quantities: ['gamma'],
+      tolerance: 1e-6,
+      chunkSize: 16,
+      l: { min: 0, max: 2 },
+      frequencies: base.frequencies,
+      holeA: [0, -0 + 0.9],
+      fieldSpins: [0, 1],
+    });
     expect(canonicalGridJson(a)).toBe(canonicalGridJson(b));
     expect(gridHash(a)).toBe(gridHash(b));
     expect(gridHash(validateGrid({ ...base, tolerance: 1e-7 }))).not.toBe(gridHash(a));
@@ -79,10 +101,22 @@ describe('grid descriptions', () => {
     expect(gridHash(grid)).toBe(nodeHash(canonicalGridJson(grid)));
     expect(gridHash(grid)).toBe('0b3dc01ed91535e2');
     fc.assert(
-      fc.property(fc.subarray([0, 0.5, 1, 2], { minLength: 1 }), fc.uniqueArray(fc.double({ min: -0.9999, max: 0.9999, noNaN: true }), { minLength: 1, maxLength: 4 }), fc.integer({ min: 1, max: 99 }), (fieldSpins, holeA, chunkSize) => {
-        const g = validateGrid({ ...base, fieldSpins, holeA: holeA.map((x) => (x === 0 ? 0 : x)), chunkSize, l: 'auto', quantities: ['crossSection'] });
-        expect(gridHash(g)).toBe(nodeHash(canonicalGridJson(g)));
-      }),
+      fc.property(
+        fc.subarray([0, 0.5, 1, 2], { minLength: 1 }),
+        fc.uniqueArray(fc.double({ min: -0.9999, max: 0.9999, noNaN: true }), { minLength: 1, maxLength: 4 }),
+        fc.integer({ min: 1, max: 99 }),
+        (fieldSpins, holeA, chunkSize) => {
+          const g = validateGrid({
+            ...base,
+            fieldSpins,
+            holeA: holeA.map((x) => (x === 0 ? 0 : x)),
+            chunkSize,
+            l: 'auto',
+            quantities: ['crossSection'],
+          });
+          expect(gridHash(g)).toBe(nodeHash(canonicalGridJson(g)));
+        },
+      ),
       { numRuns: 50 },
     );
   });
@@ -115,19 +149,24 @@ describe('shards', () => {
 
   test('shards partition the chunks exactly, deterministically, and each load is within one chunk of the mean (property, fast-check)', () => {
     fc.assert(
-      fc.property(fc.integer({ min: 2, max: 60 }), fc.integer({ min: 1, max: 9 }), fc.integer({ min: 1, max: 7 }), (count, n, chunkSize) => {
-        const grid = validateGrid({ ...base, frequencies: { spacing: 'linear', from: 0.01, to: 3, count }, chunkSize });
-        const chunks = gridChunks(grid);
-        const parts = Array.from({ length: n }, (_, i) => shardChunks(chunks, { k: i + 1, n }));
-        const all = parts.flat().sort((x, y) => x - y);
-        expect(all).toEqual(chunks.map((c) => c.index));
-        expect(shardChunks(chunks, { k: 1, n })).toEqual(parts[0]);
-        const loads = parts.map((p) => p.reduce((sum, i) => sum + chunks[i].cost, 0));
-        const mean = loads.reduce((x, y) => x + y, 0) / n;
-        const largest = Math.max(...chunks.map((c) => c.cost));
-        // Longest-processing-time-first keeps every shard within one chunk of the mean (Graham 1969 bound, common practice).
-        for (const load of loads) expect(Math.abs(load - mean)).toBeLessThanOrEqual(largest + 1e-9);
-      }),
+      fc.property(
+        fc.integer({ min: 2, max: 60 }),
+        fc.integer({ min: 1, max: 9 }),
+        fc.integer({ min: 1, max: 7 }),
+        (count, n, chunkSize) => {
+          const grid = validateGrid({ ...base, frequencies: { spacing: 'linear', from: 0.01, to: 3, count }, chunkSize });
+          const chunks = gridChunks(grid);
+          const parts = Array.from({ length: n }, (_, i) => shardChunks(chunks, { k: i + 1, n }));
+          const all = parts.flat().sort((x, y) => x - y);
+          expect(all).toEqual(chunks.map((c) => c.index));
+          expect(shardChunks(chunks, { k: 1, n })).toEqual(parts[0]);
+          const loads = parts.map((p) => p.reduce((sum, i) => sum + chunks[i].cost, 0));
+          const mean = loads.reduce((x, y) => x + y, 0) / n;
+          const largest = Math.max(...chunks.map((c) => c.cost));
+          // Longest-processing-time-first keeps every shard within one chunk of the mean (Graham 1969 bound, common practice).
+          for (const load of loads) expect(Math.abs(load - mean)).toBeLessThanOrEqual(largest + 1e-9);
+        },
+      ),
       { numRuns: 60 },
     );
   });

@@ -15,5 +15,14 @@ export {
   nearRegion,
   cardyEntropy,
 } from './kerr.js';
-export { CODATA2018, GM_SUN_IAU2015, SOLAR_MASS_KG, MASS_UNITS, type MassUnit, type UnitScales, massToKg, unitScales } from './units.js';
+export {
+  CODATA2018,
+  GM_SUN_IAU2015,
+  SOLAR_MASS_KG,
+  MASS_UNITS,
+  type MassUnit,
+  type UnitScales,
+  massToKg,
+  unitScales,
+} from './units.js';
 export { type PhysicalBackground, physicalBackground } from './physical.js';

@@ -43,7 +43,12 @@ export function kerrHole(hole: Hole): KerrHole {
   const massAllowed = `${MASS_RANGE.min} ≤ mass ≤ ${MASS_RANGE.max} (geometric units)`;
   requireFinite('mass', mass, massAllowed);
   if (!(mass >= MASS_RANGE.min && mass <= MASS_RANGE.max)) {
-    throw new InputError('mass', massAllowed, mass, 'outside it M², the area or T_H leave double range; physical masses go through physicalBackground');
+    throw new InputError(
+      'mass',
+      massAllowed,
+      mass,
+      'outside it M², the area or T_H leave double range; physical masses go through physicalBackground',
+    );
   }
   requireFinite('a', a, `a finite number with |a| < M = ${mass}`);
   if (!(Math.abs(a) < mass)) {
@@ -80,7 +85,12 @@ export function kerrHole(hole: Hole): KerrHole {
 
 /** Throw an InputError unless `hole` is a background made by `kerrHole`. */
 export function requireKerrHole(hole: unknown, parameter = 'hole'): KerrHole {
-  if (typeof hole !== 'object' || hole === null || typeof (hole as KerrHole).rPlus !== 'number' || typeof (hole as KerrHole).kappa !== 'number') {
+  if (
+    typeof hole !== 'object' ||
+    hole === null ||
+    typeof (hole as KerrHole).rPlus !== 'number' ||
+    typeof (hole as KerrHole).kappa !== 'number'
+  ) {
     throw new InputError(parameter, 'a hole background made by kerrHole({ a, mass })', hole);
   }
   return hole as KerrHole;

@@ -97,7 +97,8 @@ describe('identities for random holes (fast-check)', () => {
           // Vary (M, J) along (1, direction); S as a function of (M, J).
           const J = spinRatio * mass * mass;
           const entropyAt = (m: number, j: number) => kerrHole({ a: j / m, mass: m }).entropy;
-          const central = (h: number) => (entropyAt(mass + h, J + direction * h) - entropyAt(mass - h, J - direction * h)) / (2 * h);
+          const central = (h: number) =>
+            (entropyAt(mass + h, J + direction * h) - entropyAt(mass - h, J - direction * h)) / (2 * h);
           // S is singular at extremality |J| = M²: keep the step well inside that distance.
           const h = (1e-3 * (mass * mass - Math.abs(J))) / mass;
           const dS = (4 * central(h / 2) - central(h)) / 3;

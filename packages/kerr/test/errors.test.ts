@@ -1,6 +1,14 @@
 import { describe, expect, test } from 'vitest';
 import { InputError } from '@penumbra/core';
-import { kerrHole, massToKg, physicalBackground, tortoise, tortoiseFromHorizonDistance, unitScales, type MassUnit } from '@penumbra/kerr';
+import {
+  kerrHole,
+  massToKg,
+  physicalBackground,
+  tortoise,
+  tortoiseFromHorizonDistance,
+  unitScales,
+  type MassUnit,
+} from '@penumbra/kerr';
 
 function thrown(action: () => unknown): InputError {
   try {
@@ -72,9 +80,7 @@ describe('typed input errors name the parameter and its allowed range', () => {
   test('physical mass and unit are checked: mass > 0 and finite, unit one of g, kg, msun', () => {
     expect(thrown(() => massToKg(-1, 'g')).parameter).toBe('mass');
     expect(thrown(() => massToKg(Number.NaN, 'kg')).message).toContain('NaN');
-    expect(thrown(() => massToKg(1, 'lb' as MassUnit)).message).toBe(
-      `invalid unit = "lb": allowed one of 'g', 'kg', 'msun'`,
-    );
+    expect(thrown(() => massToKg(1, 'lb' as MassUnit)).message).toBe(`invalid unit = "lb": allowed one of 'g', 'kg', 'msun'`);
     expect(thrown(() => physicalBackground(kerrHole({ a: 0.5 }), 0, 'g')).parameter).toBe('mass');
     expect(thrown(() => unitScales(Number.POSITIVE_INFINITY)).parameter).toBe('mass');
   });

@@ -84,7 +84,9 @@ describe('tortoise coordinate r*(x), x = r − r+ (docs/kerr.md)', () => {
         const r = hole.rPlus + x;
         const xExact = r - hole.rPlus; // the x this r represents
         const back = radiusFromTortoise(hole, tortoise(hole, r)) - hole.rPlus;
-        expect(Math.abs(back - xExact) / xExact, `a = ${a}, x = ${x}`).toBeLessThan(1e-14 + 2 * Number.EPSILON * (hole.rPlus / xExact));
+        expect(Math.abs(back - xExact) / xExact, `a = ${a}, x = ${x}`).toBeLessThan(
+          1e-14 + 2 * Number.EPSILON * (hole.rPlus / xExact),
+        );
       }
     }
   });

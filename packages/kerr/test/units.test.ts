@@ -1,13 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import {
-  CODATA2018,
-  GM_SUN_IAU2015,
-  kerrHole,
-  massToKg,
-  physicalBackground,
-  SOLAR_MASS_KG,
-  unitScales,
-} from '@penumbra/kerr';
+import { CODATA2018, GM_SUN_IAU2015, kerrHole, massToKg, physicalBackground, SOLAR_MASS_KG, unitScales } from '@penumbra/kerr';
 
 const relativeError = (value: number, reference: number) => Math.abs(value - reference) / Math.abs(reference);
 
@@ -69,8 +61,12 @@ describe('physical units of the Hawking temperature and the horizon', () => {
     const schwarzschild = kerrHole({ a: 0 });
     const physicalKerr = physicalBackground(kerr, 5e14, 'g');
     const physicalSchwarzschild = physicalBackground(schwarzschild, 5e14, 'g');
-    expect(relativeError(physicalKerr.temperatureK / physicalSchwarzschild.temperatureK, kerr.temperature / schwarzschild.temperature)).toBeLessThan(1e-14);
-    expect(relativeError(physicalKerr.areaSquareMetres / physicalSchwarzschild.areaSquareMetres, kerr.area / schwarzschild.area)).toBeLessThan(1e-14);
+    expect(
+      relativeError(physicalKerr.temperatureK / physicalSchwarzschild.temperatureK, kerr.temperature / schwarzschild.temperature),
+    ).toBeLessThan(1e-14);
+    expect(
+      relativeError(physicalKerr.areaSquareMetres / physicalSchwarzschild.areaSquareMetres, kerr.area / schwarzschild.area),
+    ).toBeLessThan(1e-14);
     expect(relativeError(physicalKerr.omegaHPerSecond * physicalKerr.timeUnitSeconds, kerr.omegaH)).toBeLessThan(1e-14);
   });
 

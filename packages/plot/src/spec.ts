@@ -73,7 +73,13 @@ function allSeries(figure: Figure): Series[] {
 function rows(figure: Figure, series: readonly Series[]): Spec[] {
   const given = figure.join === 'given';
   return series.flatMap((s) =>
-    s.points.map(([x, y], i) => ({ x, y, series: s.name, ...(s.dash !== undefined ? { dash: s.dash } : {}), ...(given ? { order: i } : {}) })),
+    s.points.map(([x, y], i) => ({
+      x,
+      y,
+      series: s.name,
+      ...(s.dash !== undefined ? { dash: s.dash } : {}),
+      ...(given ? { order: i } : {}),
+    })),
   );
 }
 
@@ -84,7 +90,8 @@ function distinct(values: readonly (string | undefined)[]): string[] {
 /** The line mark and its encoding; `series` are every series of the figure, so that scales and legends cover all panels. */
 function linesMark(figure: Figure, series: readonly Series[], yDomain: readonly [number, number] | undefined): Spec {
   const mark: Spec = { type: 'line' };
-  if (figure.markers !== undefined && figure.markers !== false) mark.point = figure.markers === true ? true : { size: figure.markers };
+  if (figure.markers !== undefined && figure.markers !== false)
+    mark.point = figure.markers === true ? true : { size: figure.markers };
   if (figure.clip) mark.clip = true;
   if (figure.lineWidth !== undefined) mark.strokeWidth = figure.lineWidth;
   const xs = series.flatMap((s) => s.points.map((p) => p[0]));
@@ -93,12 +100,16 @@ function linesMark(figure: Figure, series: readonly Series[], yDomain: readonly 
     x: position('x', figure.x, xs, figure.x.domain),
     y: position('y', figure.y, ys, yDomain),
     color: {
-      field: 'series', type: 'nominal', title: figure.legend?.title ?? null, sort: distinct(series.map((s) => s.name)),
+      field: 'series',
+      type: 'nominal',
+      title: figure.legend?.title ?? null,
+      sort: distinct(series.map((s) => s.name)),
       ...(figure.legend?.position === 'bottom' ? { legend: { orient: 'bottom', columns: 1 } } : {}),
     },
   };
   const dashes = distinct([...(figure.legend?.dashes ?? []), ...series.map((s) => s.dash)]);
-  if (series.some((s) => s.dash !== undefined)) encoding.strokeDash = { field: 'dash', type: 'nominal', title: null, sort: dashes };
+  if (series.some((s) => s.dash !== undefined))
+    encoding.strokeDash = { field: 'dash', type: 'nominal', title: null, sort: dashes };
   if (figure.join === 'given') encoding.order = { field: 'order', type: 'quantitative' };
   return { mark, encoding };
 }
@@ -143,7 +154,10 @@ function rulesLayer(figure: Figure): Spec | undefined {
     data: { values: figure.rules.map((r) => ({ y: r.y, label: r.label })) },
     layer: [
       { mark: { type: 'rule', strokeDash: REFERENCE_DASH, color: RULE_COLOUR }, encoding: { y } },
-      { mark: { type: 'text', align: 'left', dx: 4, dy: -6, color: RULE_COLOUR, fontSize: 10 }, encoding: { y, x: { value: 4 }, text: { field: 'label' } } },
+      {
+        mark: { type: 'text', align: 'left', dx: 4, dy: -6, color: RULE_COLOUR, fontSize: 10 },
+        encoding: { y, x: { value: 4 }, text: { field: 'label' } },
+      },
     ],
   };
 }

@@ -4,7 +4,17 @@
  * a silently wrong picture.
  */
 import { InputError, isBoolean, numberIn, oneOf, requireObject, validateOptions, type OptionSpec } from '@penumbra/core';
-import { PLOT_STYLES, SCALE_TYPES, type Axis, type Figure, type Legend, type Panel, type Point, type Rule, type Series } from './figure.js';
+import {
+  PLOT_STYLES,
+  SCALE_TYPES,
+  type Axis,
+  type Figure,
+  type Legend,
+  type Panel,
+  type Point,
+  type Rule,
+  type Series,
+} from './figure.js';
 
 type Check<T> = (value: unknown, parameter: string) => T;
 
@@ -55,8 +65,15 @@ const size = numberIn(1, 10_000);
 
 const axis = object<Axis>(
   {
-    title: text, unit: text, scale: oneOf(SCALE_TYPES), domain: range, zero: isBoolean, nice: isBoolean,
-    format: text, ticks: list(finite), symlogConstant: numberIn(Number.MIN_VALUE, Number.MAX_VALUE),
+    title: text,
+    unit: text,
+    scale: oneOf(SCALE_TYPES),
+    domain: range,
+    zero: isBoolean,
+    nice: isBoolean,
+    format: text,
+    ticks: list(finite),
+    symlogConstant: numberIn(Number.MIN_VALUE, Number.MAX_VALUE),
   },
   ['title'],
 );
@@ -66,18 +83,35 @@ const rule = object<Rule>({ y: finite, label: text }, ['y', 'label']);
 const legend = object<Legend>({ title: text, position: oneOf(['right', 'bottom'] as const), dashes: list(text) }, []);
 
 const figureSpec: OptionSpec<Figure> = {
-  title: text, subtitle: text, x: axis, y: axis, series: list(series), panels: list(panel),
-  panelY: oneOf(['shared', 'independent'] as const), legend,
+  title: text,
+  subtitle: text,
+  x: axis,
+  y: axis,
+  series: list(series),
+  panels: list(panel),
+  panelY: oneOf(['shared', 'independent'] as const),
+  legend,
   markers: (value, parameter) => (typeof value === 'boolean' ? value : size(value, parameter)),
-  lineWidth: numberIn(0.1, 100), join: oneOf(['x', 'given'] as const), clip: isBoolean,
-  band: range, rules: list(rule), guide: list(point), width: size, height: size, style: oneOf(PLOT_STYLES),
+  lineWidth: numberIn(0.1, 100),
+  join: oneOf(['x', 'given'] as const),
+  clip: isBoolean,
+  band: range,
+  rules: list(rule),
+  guide: list(point),
+  width: size,
+  height: size,
+  style: oneOf(PLOT_STYLES),
 };
 
 /** Check a figure (see `Figure`) and return a clean copy; throws InputError naming the first bad key. */
 export function validateFigure(value: unknown, parameter = 'figure'): Figure {
   const figure = object<Figure>(figureSpec, ['x', 'y'])(value, parameter);
   if ((figure.series === undefined) === (figure.panels === undefined)) {
-    throw new InputError(`${parameter}.series`, 'exactly one of series (one chart) and panels (several)', figure.series ?? figure.panels);
+    throw new InputError(
+      `${parameter}.series`,
+      'exactly one of series (one chart) and panels (several)',
+      figure.series ?? figure.panels,
+    );
   }
   if (figure.panels?.length === 0) throw new InputError(`${parameter}.panels`, 'at least one panel', figure.panels);
   checkLogAxis(figure, 'x', parameter);
@@ -94,14 +128,18 @@ function checkLogAxis(figure: Figure, which: 'x' | 'y', parameter: string): void
     if (!(v > 0)) throw new InputError(where, allowed, v);
   };
   for (const [i, v] of (figure[which].domain ?? []).entries()) check(v, `${parameter}.${which}.domain[${i}]`);
-  const seriesLists = figure.series ? [{ series: figure.series, at: `${parameter}.series` }] : (figure.panels ?? []).map((p, i) => ({ series: p.series, at: `${parameter}.panels[${i}].series` }));
+  const seriesLists = figure.series
+    ? [{ series: figure.series, at: `${parameter}.series` }]
+    : (figure.panels ?? []).map((p, i) => ({ series: p.series, at: `${parameter}.panels[${i}].series` }));
   for (const { series: lines, at } of seriesLists) {
-    for (const [i, line] of lines.entries()) for (const [j, p] of line.points.entries()) check(p[index], `${at}[${i}].points[${j}][${index}]`);
+    for (const [i, line] of lines.entries())
+      for (const [j, p] of line.points.entries()) check(p[index], `${at}[${i}].points[${j}][${index}]`);
   }
   for (const [j, p] of (figure.guide ?? []).entries()) check(p[index], `${parameter}.guide[${j}][${index}]`);
   if (which === 'x') for (const [i, v] of (figure.band ?? []).entries()) check(v, `${parameter}.band[${i}]`);
   if (which === 'y') {
     for (const [i, r] of (figure.rules ?? []).entries()) check(r.y, `${parameter}.rules[${i}].y`);
-    for (const [i, p] of (figure.panels ?? []).entries()) for (const [k, v] of (p.yDomain ?? []).entries()) check(v, `${parameter}.panels[${i}].yDomain[${k}]`);
+    for (const [i, p] of (figure.panels ?? []).entries())
+      for (const [k, v] of (p.yDomain ?? []).entries()) check(v, `${parameter}.panels[${i}].yDomain[${k}]`);
   }
 }

@@ -14,8 +14,22 @@ const powerLaws: Figure = {
   x: { title: 'ω', unit: '1/M', scale: 'log' },
   y: { title: 'σ_abs', unit: 'M²', scale: 'log', format: '.0e' },
   series: [
-    { name: 'ω²', points: [[0.1, 0.01], [1, 1], [10, 100]] },
-    { name: 'ω³', points: [[0.1, 0.001], [1, 1], [10, 1000]] },
+    {
+      name: 'ω²',
+      points: [
+        [0.1, 0.01],
+        [1, 1],
+        [10, 100],
+      ],
+    },
+    {
+      name: 'ω³',
+      points: [
+        [0.1, 0.001],
+        [1, 1],
+        [10, 1000],
+      ],
+    },
   ],
   legend: { title: 'law' },
   markers: true,
@@ -35,10 +49,27 @@ describe('renderSvg', () => {
   });
 
   test('escapes markup in names and titles, so any text gives well-formed XML (property, 15 random figures)', async () => {
-    const label = fc.string({ unit: fc.constantFrom('a', 'Γ', ' ', '&', '<', '>', '"', "'", 'ω', '²'), minLength: 1, maxLength: 8 });
+    const label = fc.string({
+      unit: fc.constantFrom('a', 'Γ', ' ', '&', '<', '>', '"', "'", 'ω', '²'),
+      minLength: 1,
+      maxLength: 8,
+    });
     await fc.assert(
       fc.asyncProperty(label, label, label, async (title, name, axis) => {
-        const svg = await renderSvg({ title, x: { title: axis }, y: { title: 'y' }, series: [{ name, points: [[0, 1], [1, 2]] }] });
+        const svg = await renderSvg({
+          title,
+          x: { title: axis },
+          y: { title: 'y' },
+          series: [
+            {
+              name,
+              points: [
+                [0, 1],
+                [1, 2],
+              ],
+            },
+          ],
+        });
         expect(xmlProblems(svg)).toEqual([]);
       }),
       { numRuns: 15 },
@@ -57,7 +88,16 @@ describe('renderSvg', () => {
     const svg = await renderSvg({
       x: { title: 'ω' },
       y: { title: 'Γ', scale: 'symlog', format: '.0e' },
-      series: [{ name: 'Γ', points: [[0, -0.002], [1, 0.3], [2, 1]] }],
+      series: [
+        {
+          name: 'Γ',
+          points: [
+            [0, -0.002],
+            [1, 0.3],
+            [2, 1],
+          ],
+        },
+      ],
     });
     expect(xmlProblems(svg)).toEqual([]);
     const labels = texts(svg);
@@ -69,8 +109,22 @@ describe('renderSvg', () => {
       x: { title: 'x' },
       y: { title: 'y' },
       series: [
-        { name: 'l = 1', dash: 'm = −l', points: [[0, 1], [1, 2]] },
-        { name: 'l = 1', dash: 'm = +l', points: [[0, 2], [1, 3]] },
+        {
+          name: 'l = 1',
+          dash: 'm = −l',
+          points: [
+            [0, 1],
+            [1, 2],
+          ],
+        },
+        {
+          name: 'l = 1',
+          dash: 'm = +l',
+          points: [
+            [0, 2],
+            [1, 3],
+          ],
+        },
       ],
       legend: { dashes: ['m = +l', 'm = −l'] },
     };
@@ -82,9 +136,25 @@ describe('renderSvg', () => {
   });
 
   test('joins points by x unless asked to keep their order', () => {
-    const lines: Figure = { x: { title: 'x' }, y: { title: 'y' }, series: [{ name: 's', points: [[2, 1], [1, 2], [3, 3]] }] };
+    const lines: Figure = {
+      x: { title: 'x' },
+      y: { title: 'y' },
+      series: [
+        {
+          name: 's',
+          points: [
+            [2, 1],
+            [1, 2],
+            [3, 3],
+          ],
+        },
+      ],
+    };
     const byX = vegaLiteSpec(lines) as { encoding: Record<string, unknown> };
-    const given = vegaLiteSpec({ ...lines, join: 'given' }) as { encoding: Record<string, unknown>; data: { values: { order: number }[] } };
+    const given = vegaLiteSpec({ ...lines, join: 'given' }) as {
+      encoding: Record<string, unknown>;
+      data: { values: { order: number }[] };
+    };
     expect(byX.encoding.order).toBeUndefined();
     expect(given.encoding.order).toEqual({ field: 'order', type: 'quantitative' });
     expect(given.data.values.map((v) => v.order)).toEqual([0, 1, 2]);
@@ -94,9 +164,20 @@ describe('renderSvg', () => {
     const figure: Figure = {
       x: { title: 'x', scale: 'log' },
       y: { title: 'y', scale: 'log' },
-      series: [{ name: 's', points: [[1e-3, 2e-3], [1e-1, 5e-2]] }],
+      series: [
+        {
+          name: 's',
+          points: [
+            [1e-3, 2e-3],
+            [1e-1, 5e-2],
+          ],
+        },
+      ],
       band: [1e-2, 1e-1],
-      guide: [[1e-3, 1e-3], [1e-1, 1e-1]],
+      guide: [
+        [1e-3, 1e-3],
+        [1e-1, 1e-1],
+      ],
       rules: [{ y: 0.03, label: 'a reference level' }],
     };
     const spec = vegaLiteSpec(figure) as { layer: { mark?: { type: string } }[] };
@@ -109,8 +190,30 @@ describe('renderSvg', () => {
 
   test('draws panels that differ only in their series as one facet (panel titles as headers), and panels with their own y range as separate charts', async () => {
     const panels = [
-      { title: 'a = 0', series: [{ name: 's', points: [[0, 1], [1, 2]] as [number, number][] }] },
-      { title: 'a = 0.99', series: [{ name: 's', points: [[0, 3], [1, 1]] as [number, number][] }] },
+      {
+        title: 'a = 0',
+        series: [
+          {
+            name: 's',
+            points: [
+              [0, 1],
+              [1, 2],
+            ] as [number, number][],
+          },
+        ],
+      },
+      {
+        title: 'a = 0.99',
+        series: [
+          {
+            name: 's',
+            points: [
+              [0, 3],
+              [1, 1],
+            ] as [number, number][],
+          },
+        ],
+      },
     ];
     const shared: Figure = { title: 'Panels', x: { title: 'Mω' }, y: { title: 'Γ' }, panels, width: 200, height: 150 };
     expect(Object.keys(vegaLiteSpec(shared))).toContain('facet');

@@ -2,7 +2,19 @@ import { describe, expect, test } from 'vitest';
 import { InputError } from '@penumbra/core';
 import { renderSvg, validateFigure, type Figure } from '@penumbra/plot';
 
-const line: Figure = { x: { title: 'x' }, y: { title: 'y' }, series: [{ name: 's', points: [[1, 1], [2, 4]] }] };
+const line: Figure = {
+  x: { title: 'x' },
+  y: { title: 'y' },
+  series: [
+    {
+      name: 's',
+      points: [
+        [1, 1],
+        [2, 4],
+      ],
+    },
+  ],
+};
 
 /** The parameter an InputError names, or the error itself if something else was thrown. */
 function refusal(figure: unknown): unknown {
@@ -31,7 +43,20 @@ describe('validateFigure', () => {
   });
 
   test('refuses non-finite and malformed points, naming the point', () => {
-    expect(refusal({ ...line, series: [{ name: 's', points: [[1, 1], [2, NaN]] }] })).toBe('figure.series[0].points[1][1]');
+    expect(
+      refusal({
+        ...line,
+        series: [
+          {
+            name: 's',
+            points: [
+              [1, 1],
+              [2, NaN],
+            ],
+          },
+        ],
+      }),
+    ).toBe('figure.series[0].points[1][1]');
     expect(refusal({ ...line, series: [{ name: 's', points: [[1, Infinity]] }] })).toBe('figure.series[0].points[0][1]');
     expect(refusal({ ...line, series: [{ name: 's', points: [[1, 2, 3]] }] })).toBe('figure.series[0].points[0]');
     expect(refusal({ ...line, series: [{ points: [] }] })).toBe('figure.series[0].name');
@@ -40,12 +65,39 @@ describe('validateFigure', () => {
   test('refuses values a log axis cannot show (zero or negative), including domain ends, band edges and rules', () => {
     const logY: Figure = { ...line, y: { title: 'y', scale: 'log' } };
     expect(refusal(logY)).toBe('accepted');
-    expect(refusal({ ...logY, series: [{ name: 's', points: [[1, 1], [2, 0]] }] })).toBe('figure.series[0].points[1][1]');
+    expect(
+      refusal({
+        ...logY,
+        series: [
+          {
+            name: 's',
+            points: [
+              [1, 1],
+              [2, 0],
+            ],
+          },
+        ],
+      }),
+    ).toBe('figure.series[0].points[1][1]');
     expect(refusal({ ...logY, rules: [{ y: -1, label: 'r' }] })).toBe('figure.rules[0].y');
     expect(refusal({ ...line, x: { title: 'x', scale: 'log', domain: [0, 1] } })).toBe('figure.x.domain[0]');
     expect(refusal({ ...line, x: { title: 'x', scale: 'log' }, band: [-1, 1] })).toBe('figure.band[0]');
     // a symmetric-log axis takes both signs
-    expect(refusal({ ...line, y: { title: 'y', scale: 'symlog' }, series: [{ name: 's', points: [[1, -1], [2, 0]] }] })).toBe('accepted');
+    expect(
+      refusal({
+        ...line,
+        y: { title: 'y', scale: 'symlog' },
+        series: [
+          {
+            name: 's',
+            points: [
+              [1, -1],
+              [2, 0],
+            ],
+          },
+        ],
+      }),
+    ).toBe('accepted');
   });
 
   test('requires exactly one of series and panels, and ranges with from < to', () => {
@@ -56,6 +108,8 @@ describe('validateFigure', () => {
   });
 
   test('renderSvg refuses a malformed figure before drawing it', async () => {
-    await expect(renderSvg({ ...line, y: { title: 'y', scale: 'log' }, series: [{ name: 's', points: [[1, -1]] }] })).rejects.toThrow(InputError);
+    await expect(
+      renderSvg({ ...line, y: { title: 'y', scale: 'log' }, series: [{ name: 's', points: [[1, -1]] }] }),
+    ).rejects.toThrow(InputError);
   });
 });

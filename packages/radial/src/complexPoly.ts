@@ -80,7 +80,8 @@ export function derivative(p: CPoly): CPoly {
 
 /** p(y) as [re, im] (Horner's rule; outside the hot loops). */
 export function cpolyAt(p: CPoly, y: number): [number, number] {
-  let re = 0, im = 0;
+  let re = 0,
+    im = 0;
   for (let j = p.re.length - 1; j >= 0; j--) {
     re = re * y + p.re[j];
     im = im * y + p.im[j];

@@ -65,12 +65,19 @@ export function radialEquation(hole: KerrHole, mode: RadialMode, center = 0): Ra
   const dDelta = derivative(delta);
   const varpi = add(mul(r, r), cpoly([a * a]));
   const K = add(scale(varpi, omega), cpoly([-a * mode.m]));
-  const U = add(
-    mul(K, K),
-    scale(mul(dDelta, K), 0, -s),
-    mul(delta, add(cpoly([-lambda]), scale(r, 0, 4 * s * omega))),
-  );
-  return { center, s, A: mul(delta, delta), B: scale(mul(delta, dDelta), s + 1), C: U, delta, dDelta, K, varpi, substituted: null };
+  const U = add(mul(K, K), scale(mul(dDelta, K), 0, -s), mul(delta, add(cpoly([-lambda]), scale(r, 0, 4 * s * omega))));
+  return {
+    center,
+    s,
+    A: mul(delta, delta),
+    B: scale(mul(delta, dDelta), s + 1),
+    C: U,
+    delta,
+    dDelta,
+    K,
+    varpi,
+    substituted: null,
+  };
 }
 
 /**

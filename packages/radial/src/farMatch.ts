@@ -49,8 +49,10 @@ export function chooseMatch(hole: KerrHole, mode: RadialMode, fixed?: number): F
     const vin = evaluateFar(hole, mode, inSeries, r);
     const vout = evaluateFar(hole, mode, outSeries, r);
     if (vin.converged && vout.converged) return { r, vin, vout };
-    if (fixed !== undefined) throw seriesFailure('far-zone series do not converge at the requested matching radius', r, vin, vout);
-    if (attempt + 1 >= LADDER_STEPS) throw seriesFailure('far-zone series did not converge at any matching radius tried', r, vin, vout);
+    if (fixed !== undefined)
+      throw seriesFailure('far-zone series do not converge at the requested matching radius', r, vin, vout);
+    if (attempt + 1 >= LADDER_STEPS)
+      throw seriesFailure('far-zone series did not converge at any matching radius tried', r, vin, vout);
     r *= LADDER_RATIO;
   }
 }
@@ -65,7 +67,10 @@ export interface MatchedAmplitudes {
 
 /** Solve R = Z_in R_in + Z_out R_out at the matching radius (2×2 complex system); y = (Re R, Im R, Re R', Im R'). */
 export function matchAmplitudes(y: ArrayLike<number>, vin: FarValue, vout: FarValue): MatchedAmplitudes {
-  const [ir, ii] = vin.R, [idr, idi] = vin.dR, [or, oi] = vout.R, [odr, odi] = vout.dR;
+  const [ir, ii] = vin.R,
+    [idr, idi] = vin.dR,
+    [or, oi] = vout.R,
+    [odr, odi] = vout.dR;
   const detRe = ir * odr - ii * odi - (idr * or - idi * oi);
   const detIm = ir * odi + ii * odr - (idr * oi + idi * or);
   const numInRe = y[0] * odr - y[1] * odi - (y[2] * or - y[3] * oi);

@@ -71,13 +71,17 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
   const B = padTo(far.B, 5);
   const Q = padTo(far.C, 5);
   // Leading balance: B4 p + C3 = 0 with B4 = 2iσω.
-  const b4r = B.re[4], b4i = B.im[4];
-  const c3r = Q.re[3], c3i = Q.im[3];
+  const b4r = B.re[4],
+    b4i = B.im[4];
+  const c3r = Q.re[3],
+    c3i = Q.im[3];
   const bb = b4r * b4r + b4i * b4i;
   const p = -(c3r * b4r + c3i * b4i) / bb; // real by construction
-  const cRe = [1], cIm = [0];
+  const cRe = [1],
+    cIm = [0];
   for (let N = 1; N < maxTerms; N++) {
-    let rr = 0, ri = 0;
+    let rr = 0,
+      ri = 0;
     for (let j = 0; j <= 4; j++) {
       const n = N + j - 5;
       if (n < 0) continue;
@@ -99,7 +103,8 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
       ri += Q.re[j] * cIm[n] + Q.im[j] * cRe[n];
     }
     // c_N = rest / (B4 N)
-    const dr = b4r * N, di = b4i * N;
+    const dr = b4r * N,
+      di = b4i * N;
     const den = dr * dr + di * di;
     cRe.push((rr * dr + ri * di) / den);
     cIm.push((ri * dr - rr * di) / den);
@@ -112,34 +117,45 @@ export function evaluateFar(hole: KerrHole, mode: RadialMode, series: FarSeries,
   const omega = mode.omega;
   const { cRe, cIm, p, sigma } = series;
   const inv = 1 / r;
-  let sRe = 0, sIm = 0, tRe = 0, tIm = 0;
+  let sRe = 0,
+    sIm = 0,
+    tRe = 0,
+    tIm = 0;
   let pw = 1;
   let small = 0;
   let terms = 0;
   let truncation = 1;
   let converged = false;
-  let prev1 = Infinity, prev2 = Infinity;
+  let prev1 = Infinity,
+    prev2 = Infinity;
   for (let n = 0; n < cRe.length; n++) {
-    const termRe = cRe[n] * pw, termIm = cIm[n] * pw;
+    const termRe = cRe[n] * pw,
+      termIm = cIm[n] * pw;
     const mag = Math.hypot(termRe, termIm);
     // Divergence has set in after two successive increases (a single uptick
     // can follow a coefficient that vanishes by accident).
     if (n > 3 && mag > prev1 && prev1 > prev2 && mag > 1e-17 * Math.hypot(sRe, sIm)) break;
     prev2 = prev1;
     prev1 = mag;
-    sRe += termRe; sIm += termIm;
-    tRe += (p - n) * termRe; tIm += (p - n) * termIm;
+    sRe += termRe;
+    sIm += termIm;
+    tRe += (p - n) * termRe;
+    tIm += (p - n) * termIm;
     terms = n + 1;
     truncation = mag / Math.hypot(sRe, sIm);
     if (truncation < 1e-17) {
-      if (++small >= 3) { converged = true; break; }
+      if (++small >= 3) {
+        converged = true;
+        break;
+      }
     } else small = 0;
     pw *= inv;
   }
   const rs = tortoiseFromHorizonDistance(hole, r - hole.rPlus);
   const rp = Math.pow(r, p);
   const ph = sigma * omega * rs;
-  const eRe = rp * Math.cos(ph), eIm = rp * Math.sin(ph);
+  const eRe = rp * Math.cos(ph),
+    eIm = rp * Math.sin(ph);
   // g = r^p S, g' = r^{p−1} T; R = e g, R' = e (g' + i(W/Δ) g), W/Δ = σωϖ/Δ
   const R: [number, number] = [eRe * sRe - eIm * sIm, eRe * sIm + eIm * sRe];
   const w = cpolyAt(series.W, r)[0] / cpolyAt(series.delta, r)[0];

@@ -41,7 +41,12 @@ export function horizonWavenumber(hole: KerrHole, mode: RadialMode): number {
  * r = r+ + x0, from its Frobenius series; `eq` is the mode's equation about r+
  * (built here if not given).
  */
-export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number, eq: RadialEquation = radialEquation(hole, mode, hole.rPlus)): HorizonStart {
+export function horizonSeriesStart(
+  hole: KerrHole,
+  mode: RadialMode,
+  x0: number,
+  eq: RadialEquation = radialEquation(hole, mode, hole.rPlus),
+): HorizonStart {
   const { rPlus, rMinus, mass: M } = hole;
   const s = mode.s;
   const b = rPlus - rMinus;
@@ -54,10 +59,12 @@ export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number,
 
   // Δ² = A2 x² + A3 x³ + A4 x⁴, (s+1)ΔΔ' = B1 x + B2 x² + B3 x³ (both real) and U = Σ C_j x^j,
   // x = r − r+, from the one definition; the recurrence is unrolled over these.
-  if (eq.center !== rPlus || eq.s !== s) throw new Error('horizonSeriesStart: the equation must be the mode\'s, about r+');
+  if (eq.center !== rPlus || eq.s !== s) throw new Error("horizonSeriesStart: the equation must be the mode's, about r+");
   const [, , A2, A3, A4] = padTo(eq.A, 5).re;
   const [, B1, B2, B3] = padTo(eq.B, 4).re;
-  const C = padTo(eq.C, 5), Cre = C.re, Cim = C.im;
+  const C = padTo(eq.C, 5),
+    Cre = C.re,
+    Cim = C.im;
 
   // d_0: |d_0| = b^{−s}; phase from the additive constant of r*.
   const phaseConst = rPlus - cPlus * Math.log(2 * M) - cMinus * Math.log(b / (2 * M));
@@ -66,7 +73,8 @@ export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number,
   const dIm: number[] = [mag0 * Math.sin(-k * phaseConst)];
 
   // Partial sums S = Σ d_n x0^n and S' = Σ (n + ν) d_n x0^n.
-  let sRe = dRe[0], sIm = dIm[0];
+  let sRe = dRe[0],
+    sIm = dIm[0];
   let tRe = nuRe * dRe[0] - nuIm * dIm[0];
   let tIm = nuRe * dIm[0] + nuIm * dRe[0];
   let pw = 1;
@@ -76,10 +84,12 @@ export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number,
   let scaleMax = Math.hypot(sRe, sIm);
   for (; n < MAX_TERMS; n++) {
     // numerator = −[ (A3 (μ1)(μ1−1) + B2 μ1 + C1) d_{n−1} + (A4 (μ2)(μ2−1) + B3 μ2 + C2) d_{n−2} + C3 d_{n−3} + C4 d_{n−4} ]
-    let numRe = 0, numIm = 0;
+    let numRe = 0,
+      numIm = 0;
     // j = 1 term (index n−1): μ1 = n − 1 + ν
     {
-      const mr = n - 1 + nuRe, mi = nuIm;
+      const mr = n - 1 + nuRe,
+        mi = nuIm;
       // μ(μ−1) = (mr + i mi)(mr − 1 + i mi)
       const pr = mr * (mr - 1) - mi * mi;
       const pi = mr * mi + mi * (mr - 1);
@@ -89,7 +99,8 @@ export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number,
       numIm += cr * dIm[n - 1] + ci * dRe[n - 1];
     }
     if (n >= 2) {
-      const mr = n - 2 + nuRe, mi = nuIm;
+      const mr = n - 2 + nuRe,
+        mi = nuIm;
       const pr = mr * (mr - 1) - mi * mi;
       const pi = mr * mi + mi * (mr - 1);
       const cr = A4 * pr + B3 * mr + Cre[2];
@@ -106,7 +117,8 @@ export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number,
       numIm += Cre[4] * dIm[n - 4] + Cim[4] * dRe[n - 4];
     }
     // F(n + ν) = A2 μ(μ−1) + B1 μ + C0, μ = n + ν
-    const mr = n + nuRe, mi = nuIm;
+    const mr = n + nuRe,
+      mi = nuIm;
     const fr = A2 * (mr * (mr - 1) - mi * mi) + B1 * mr + Cre[0];
     const fi = A2 * (mr * mi + mi * (mr - 1)) + B1 * mi + Cim[0];
     const den = fr * fr + fi * fi;
@@ -116,7 +128,8 @@ export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number,
     dRe.push(dnRe);
     dIm.push(dnIm);
     pw *= x0;
-    const termRe = dnRe * pw, termIm = dnIm * pw;
+    const termRe = dnRe * pw,
+      termIm = dnIm * pw;
     sRe += termRe;
     sIm += termIm;
     tRe += mr * termRe - mi * termIm;
@@ -146,7 +159,8 @@ export function horizonSeriesStart(hole: KerrHole, mode: RadialMode, x0: number,
   const lx = Math.log(x0);
   const mag = Math.exp(nuRe * lx);
   const ph = nuIm * lx;
-  const xnRe = mag * Math.cos(ph), xnIm = mag * Math.sin(ph);
+  const xnRe = mag * Math.cos(ph),
+    xnIm = mag * Math.sin(ph);
   const R: [number, number] = [xnRe * sRe - xnIm * sIm, xnRe * sIm + xnIm * sRe];
   const dR: [number, number] = [(xnRe * tRe - xnIm * tIm) / x0, (xnRe * tIm + xnIm * tRe) / x0];
   // Cancellation among terms costs accuracy: report it through truncation.

@@ -113,7 +113,8 @@ function odexStepper(rhs: Rhs, tol: number, maxSteps: number): Stepper {
 function cashKarpStepper(rhs: Rhs, tol: number, rPlus: number, maxSteps: number): Stepper {
   return {
     advance(y, r, rEnd, h, overflow) {
-      let magR = 1, magD = 1;
+      let magR = 1,
+        magD = 1;
       const integrator = ode45(y, rhs, r, h, {
         tol,
         verbose: false,

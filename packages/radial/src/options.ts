@@ -89,7 +89,8 @@ function radiusGrid(value: unknown, parameter: string): readonly number[] {
   const allowed = 'an array of finite radii in non-decreasing order';
   if (!Array.isArray(value)) throw new InputError(parameter, allowed, value);
   value.forEach((r, i) => {
-    if (typeof r !== 'number' || !Number.isFinite(r) || (i > 0 && r < value[i - 1])) throw new InputError(parameter, allowed, value);
+    if (typeof r !== 'number' || !Number.isFinite(r) || (i > 0 && r < value[i - 1]))
+      throw new InputError(parameter, allowed, value);
   });
   return value as readonly number[];
 }

@@ -27,23 +27,35 @@ function phaseAt(hole: KerrHole, mode: RadialMode, r: number): number {
  * (R, R') ↔ (u, u') in place, with u = e^{iφ}R, u' = e^{iφ}(R' + iK/Δ R);
  * direction −1 inverts. `eq` supplies K and Δ.
  */
-export function convertPhase(hole: KerrHole, mode: RadialMode, eq: RadialEquation, r: number, y: Float64Array | number[], direction: 1 | -1): void {
+export function convertPhase(
+  hole: KerrHole,
+  mode: RadialMode,
+  eq: RadialEquation,
+  r: number,
+  y: Float64Array | number[],
+  direction: 1 | -1,
+): void {
   const phi = direction * phaseAt(hole, mode, r);
-  const c = Math.cos(phi), sn = Math.sin(phi);
+  const c = Math.cos(phi),
+    sn = Math.sin(phi);
   const x = r - eq.center;
   const W = (direction * cpolyAt(eq.K, x)[0]) / cpolyAt(eq.delta, x)[0];
   if (direction === 1) {
     // u' = e^{iφ}(R' + iWR)
-    const dRe = y[2] - W * y[1], dIm = y[3] + W * y[0];
-    const uRe = c * y[0] - sn * y[1], uIm = sn * y[0] + c * y[1];
+    const dRe = y[2] - W * y[1],
+      dIm = y[3] + W * y[0];
+    const uRe = c * y[0] - sn * y[1],
+      uIm = sn * y[0] + c * y[1];
     y[2] = c * dRe - sn * dIm;
     y[3] = sn * dRe + c * dIm;
     y[0] = uRe;
     y[1] = uIm;
   } else {
     // R = e^{−iφ}u, R' = e^{−iφ}(u' − iWu); here W already carries the sign.
-    const RRe = c * y[0] - sn * y[1], RIm = sn * y[0] + c * y[1];
-    const dRe = c * y[2] - sn * y[3], dIm = sn * y[2] + c * y[3];
+    const RRe = c * y[0] - sn * y[1],
+      RIm = sn * y[0] + c * y[1];
+    const dRe = c * y[2] - sn * y[3],
+      dIm = sn * y[2] + c * y[3];
     y[0] = RRe;
     y[1] = RIm;
     y[2] = dRe - W * RIm;

@@ -20,11 +20,18 @@ export interface EvaluationCounter {
 const MAX_DEGREE = 4;
 
 /** Offsets of the coefficient blocks in the one typed array the right-hand side reads. */
-const D = 0, BR = 3, BI = BR + MAX_DEGREE + 1, CR = BI + MAX_DEGREE + 1, CI = CR + MAX_DEGREE + 1, SIZE = CI + MAX_DEGREE + 1;
+const D = 0,
+  BR = 3,
+  BI = BR + MAX_DEGREE + 1,
+  CR = BI + MAX_DEGREE + 1,
+  CI = CR + MAX_DEGREE + 1,
+  SIZE = CI + MAX_DEGREE + 1;
 
 function isSquareOfDelta(eq: RadialEquation): boolean {
   const square = mul(eq.delta, eq.delta);
-  return eq.A.re.length === square.re.length && eq.A.re.every((x, j) => x === square.re[j] && eq.A.im[j] === 0 && square.im[j] === 0);
+  return (
+    eq.A.re.length === square.re.length && eq.A.re.every((x, j) => x === square.re[j] && eq.A.im[j] === 0 && square.im[j] === 0)
+  );
 }
 
 /** Δ, B and C packed into one typed array at the offsets above (one array: measured faster than several, or than closure constants). */

@@ -53,14 +53,29 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
   const counter = { evaluations: 0 };
   const y = new Float64Array([start.R[0], start.R[1], start.dR[0], start.dR[1]]);
   const seg = integrateLeg({
-    hole, mode, equation, y, from: r0, to: match.r, stops: opts.grid, tol: opts.tol, integrator: opts.integrator,
-    maxSteps: opts.maxSteps, variable: opts.variable, counter, method,
+    hole,
+    mode,
+    equation,
+    y,
+    from: r0,
+    to: match.r,
+    stops: opts.grid,
+    tol: opts.tol,
+    integrator: opts.integrator,
+    maxSteps: opts.maxSteps,
+    variable: opts.variable,
+    counter,
+    method,
   });
   const { zIn, zOut } = matchAmplitudes(y, match.vin, match.vout);
   const farTruncation = Math.max(match.vin.truncation, match.vout.truncation);
   const amplification = oneSidedAmplification(hole, mode.s, mode.omega, start.x0, match.r);
   const errorEstimate = singleSolveErrorEstimate({
-    steps: seg.steps, tol: opts.tol, horizonTruncation: start.truncation, farTruncation, amplification,
+    steps: seg.steps,
+    tol: opts.tol,
+    horizonTruncation: start.truncation,
+    farTruncation,
+    amplification,
   });
   return {
     status: 'success',

@@ -64,21 +64,45 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   }
   const counter = { evaluations: 0 };
   // Legs are built field by field (object spreads were measured at several µs each).
-  const leg = (mode: RadialMode, equation: RadialEquation, y: Float64Array, from: number, to: number, stops: readonly number[], logScale = 0): Leg => ({
-    hole, mode, equation, y, from, to, stops, tol: opts.tol, integrator: opts.integrator, maxSteps: opts.maxSteps,
-    variable: opts.variable, counter, logScale, method,
+  const leg = (
+    mode: RadialMode,
+    equation: RadialEquation,
+    y: Float64Array,
+    from: number,
+    to: number,
+    stops: readonly number[],
+    logScale = 0,
+  ): Leg => ({
+    hole,
+    mode,
+    equation,
+    y,
+    from,
+    to,
+    stops,
+    tol: opts.tol,
+    integrator: opts.integrator,
+    maxSteps: opts.maxSteps,
+    variable: opts.variable,
+    counter,
+    logScale,
+    method,
   });
 
   // −s leg: horizon → switching radius (→ far zone for Y_out).
   const y = new Float64Array([start.R[0], start.R[1], start.dR[0], start.dR[1]]);
   const segMinus = integrateLeg(leg(minus, minusEquation, y, r0, opts.reflection ? matchMinus.r : rSwitch, [...inner, rSwitch]));
-  const minusAmps = opts.reflection ? matchAmplitudes(y, matchMinus.vin, matchMinus.vout) : { zIn: NO_AMPLITUDE, zOut: NO_AMPLITUDE };
+  const minusAmps = opts.reflection
+    ? matchAmplitudes(y, matchMinus.vin, matchMinus.vout)
+    : { zIn: NO_AMPLITUDE, zOut: NO_AMPLITUDE };
 
   // Map (R, R') of the −s field to the +s field at the switching radius, then the +s leg to the far zone.
   const atSwitch = segMinus.raw[segMinus.raw.length - 1];
   const rawSwitch = applyStarobinskyMap(starobinskyMapAt(hole, minus, rSwitch), atSwitch.y);
   const yPlus = new Float64Array(rawSwitch);
-  const segPlus = integrateLeg(leg(plus, radialEquation(hole, plus, hole.rPlus), yPlus, rSwitch, matchPlus.r, outer, atSwitch.logScale));
+  const segPlus = integrateLeg(
+    leg(plus, radialEquation(hole, plus, hole.rPlus), yPlus, rSwitch, matchPlus.r, outer, atSwitch.logScale),
+  );
   const amp = matchAmplitudes(yPlus, matchPlus.vin, matchPlus.vout);
   const k = horizonWavenumber(hole, plus);
   const h = starobinskyHorizonFactor(hole, s, k);

@@ -22,7 +22,8 @@ interface Series {
 
 /** The first n coefficients of a polynomial (already in powers of h = r − r0). */
 function fromPoly(q: CPoly, n: number): Series {
-  const re = new Array<number>(n).fill(0), im = new Array<number>(n).fill(0);
+  const re = new Array<number>(n).fill(0),
+    im = new Array<number>(n).fill(0);
   for (let i = 0; i < Math.min(n, q.re.length); i++) {
     re[i] = q.re[i];
     im[i] = q.im[i];
@@ -35,7 +36,8 @@ function negate(a: Series): Series {
 }
 
 function mul(a: Series, b: Series, n: number): Series {
-  const re = new Array<number>(n).fill(0), im = new Array<number>(n).fill(0);
+  const re = new Array<number>(n).fill(0),
+    im = new Array<number>(n).fill(0);
   for (let i = 0; i < n; i++) {
     for (let j = 0; i + j < n; j++) {
       re[i + j] += a.re[i] * b.re[j] - a.im[i] * b.im[j];
@@ -47,10 +49,12 @@ function mul(a: Series, b: Series, n: number): Series {
 
 /** a / b for a series b with b_0 ≠ 0. */
 function div(a: Series, b: Series, n: number): Series {
-  const re = new Array<number>(n).fill(0), im = new Array<number>(n).fill(0);
+  const re = new Array<number>(n).fill(0),
+    im = new Array<number>(n).fill(0);
   const d = b.re[0] * b.re[0] + b.im[0] * b.im[0];
   for (let k = 0; k < n; k++) {
-    let xr = a.re[k], xi = a.im[k];
+    let xr = a.re[k],
+      xi = a.im[k];
     for (let j = 1; j <= k; j++) {
       xr -= b.re[j] * re[k - j] - b.im[j] * im[k - j];
       xi -= b.re[j] * im[k - j] + b.im[j] * re[k - j];
@@ -63,7 +67,8 @@ function div(a: Series, b: Series, n: number): Series {
 
 function deriv(a: Series): Series {
   const n = a.re.length - 1;
-  const re = new Array<number>(n), im = new Array<number>(n);
+  const re = new Array<number>(n),
+    im = new Array<number>(n);
   for (let i = 0; i < n; i++) {
     re[i] = (i + 1) * a.re[i + 1];
     im[i] = (i + 1) * a.im[i + 1];
@@ -77,8 +82,13 @@ function trunc(a: Series, n: number): Series {
 
 function add(...xs: Series[]): Series {
   const n = xs[0].re.length;
-  const re = new Array<number>(n).fill(0), im = new Array<number>(n).fill(0);
-  for (const x of xs) for (let i = 0; i < n; i++) { re[i] += x.re[i]; im[i] += x.im[i]; }
+  const re = new Array<number>(n).fill(0),
+    im = new Array<number>(n).fill(0);
+  for (const x of xs)
+    for (let i = 0; i < n; i++) {
+      re[i] += x.re[i];
+      im[i] += x.im[i];
+    }
   return { re, im };
 }
 
@@ -117,9 +127,13 @@ export function starobinskyMapAt(hole: KerrHole, minus: RadialMode, r: number): 
   let beta: Series = { re: new Array<number>(n).fill(0), im: new Array<number>(n).fill(0) };
   for (let j = 0; j < twoS; j++) {
     const len = alpha.re.length - 1;
-    const ad = deriv(alpha), bd = deriv(beta);
-    const a = trunc(alpha, len), b = trunc(beta, len);
-    const Wt = trunc(W, len), Pt = trunc(P, len), Qt = trunc(Q, len);
+    const ad = deriv(alpha),
+      bd = deriv(beta);
+    const a = trunc(alpha, len),
+      b = trunc(beta, len);
+    const Wt = trunc(W, len),
+      Pt = trunc(P, len),
+      Qt = trunc(Q, len);
     const nextAlpha = add(ad, mul(b, Qt, len), timesMinusI(mul(Wt, a, len)));
     const nextBeta = add(a, bd, mul(b, Pt, len), timesMinusI(mul(Wt, b, len)));
     alpha = nextAlpha;
@@ -131,10 +145,7 @@ export function starobinskyMapAt(hole: KerrHole, minus: RadialMode, r: number): 
   const a0: [number, number] = [alpha.re[0], alpha.im[0]];
   const b0: [number, number] = [beta.re[0], beta.im[0]];
   // d/dr(αR + βR') = (α' + βQ) R + (α + β' + βP) R'
-  const a1: [number, number] = [
-    alpha.re[1] + b0[0] * Q0[0] - b0[1] * Q0[1],
-    alpha.im[1] + b0[0] * Q0[1] + b0[1] * Q0[0],
-  ];
+  const a1: [number, number] = [alpha.re[1] + b0[0] * Q0[0] - b0[1] * Q0[1], alpha.im[1] + b0[0] * Q0[1] + b0[1] * Q0[0]];
   const b1: [number, number] = [
     a0[0] + beta.re[1] + b0[0] * P0[0] - b0[1] * P0[1],
     a0[1] + beta.im[1] + b0[0] * P0[1] + b0[1] * P0[0],
@@ -145,8 +156,10 @@ export function starobinskyMapAt(hole: KerrHole, minus: RadialMode, r: number): 
 /** (R_{+s}, R'_{+s}) as [re, im, re, im] from y = (Re R, Im R, Re R', Im R') of the −s field. */
 export function applyStarobinskyMap(map: StarobinskyMap, y: ArrayLike<number>): number[] {
   const c = (z: [number, number], re: number, im: number) => [z[0] * re - z[1] * im, z[0] * im + z[1] * re];
-  const [p0r, p0i] = c(map.a0, y[0], y[1]), [p1r, p1i] = c(map.b0, y[2], y[3]);
-  const [q0r, q0i] = c(map.a1, y[0], y[1]), [q1r, q1i] = c(map.b1, y[2], y[3]);
+  const [p0r, p0i] = c(map.a0, y[0], y[1]),
+    [p1r, p1i] = c(map.b0, y[2], y[3]);
+  const [q0r, q0i] = c(map.a1, y[0], y[1]),
+    [q1r, q1i] = c(map.b1, y[2], y[3]);
   return [p0r + p1r, p0i + p1i, q0r + q1r, q0i + q1i];
 }
 
@@ -156,9 +169,11 @@ export function applyStarobinskyMap(map: StarobinskyMap, y: ArrayLike<number>): 
  */
 export function starobinskyHorizonFactor(hole: KerrHole, s: number, k: number): [number, number] {
   const tM = 2 * hole.mass * hole.rPlus;
-  let re = 1, im = 0;
+  let re = 1,
+    im = 0;
   for (let j = 0; j < 2 * s; j++) {
-    const fr = 2 * tM * (s - j) * hole.kappa, fi = -2 * tM * k;
+    const fr = 2 * tM * (s - j) * hole.kappa,
+      fi = -2 * tM * k;
     const nr = re * fr - im * fi;
     im = re * fi + im * fr;
     re = nr;

@@ -10,7 +10,16 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { kerrHole } from '@penumbra/kerr';
-import { cpolyAt, equationRhs, makeStepper, phaseEquation, radialEquation, scale, substitutePhase, type CPoly } from '@penumbra/radial/internal';
+import {
+  cpolyAt,
+  equationRhs,
+  makeStepper,
+  phaseEquation,
+  radialEquation,
+  scale,
+  substitutePhase,
+  type CPoly,
+} from '@penumbra/radial/internal';
 
 type C = [number, number];
 const cmul = (x: C, y: C): C => [x[0] * y[0] - x[1] * y[1], x[0] * y[1] + x[1] * y[0]];
@@ -111,7 +120,10 @@ describe('the radial equation, written once', () => {
       const dy = [0, 0, 0, 0];
       rhs(dy, y, r);
       const { delta, dDelta, U } = published(0.9, 1, 2, 2, 0.5, -1.5, r);
-      const want = cadd(cmul(creal((-3 * dDelta) / delta), [y[2], y[3]]), cmul([-U[0] / delta ** 2, -U[1] / delta ** 2], [y[0], y[1]]));
+      const want = cadd(
+        cmul(creal((-3 * dDelta) / delta), [y[2], y[3]]),
+        cmul([-U[0] / delta ** 2, -U[1] / delta ** 2], [y[0], y[1]]),
+      );
       expect(dy.slice(0, 2)).toEqual([y[2], y[3]]);
       expect(relErr([dy[2], dy[3]], want, Math.hypot(...want))).toBeLessThan(1e-12);
     }

@@ -17,7 +17,13 @@ const modes = [
   { a: 0.999, s: -2, m: 2, omega: 0.8, lambda: 2.2 },
 ];
 
-function wronskian(hole: ReturnType<typeof kerrHole>, s: number, r: number, p: { R: number[]; dR: number[] }, q: { R: number[]; dR: number[] }) {
+function wronskian(
+  hole: ReturnType<typeof kerrHole>,
+  s: number,
+  r: number,
+  p: { R: number[]; dR: number[] },
+  q: { R: number[]; dR: number[] },
+) {
   const re = p.R[0] * q.dR[0] - p.R[1] * q.dR[1] - (p.dR[0] * q.R[0] - p.dR[1] * q.R[1]);
   const im = p.R[0] * q.dR[1] + p.R[1] * q.dR[0] - (p.dR[0] * q.R[1] + p.dR[1] * q.R[0]);
   const w = Math.pow((r - hole.rPlus) * (r - hole.rMinus), s + 1);
@@ -28,8 +34,10 @@ describe('far-zone asymptotic series', () => {
   for (const { a, ...mode } of modes) {
     it(`in and out series have a constant Wronskian between two radii to 1e-13 (a=${a}, s=${mode.s}, Mω=${mode.omega})`, () => {
       const hole = kerrHole({ a: a });
-      const fin = farSeries(hole, mode, -1), fout = farSeries(hole, mode, 1);
-      const r1 = 60 / mode.omega, r2 = 3 * r1;
+      const fin = farSeries(hole, mode, -1),
+        fout = farSeries(hole, mode, 1);
+      const r1 = 60 / mode.omega,
+        r2 = 3 * r1;
       const w1 = wronskian(hole, mode.s, r1, evaluateFar(hole, mode, fin, r1), evaluateFar(hole, mode, fout, r1));
       const w2 = wronskian(hole, mode.s, r2, evaluateFar(hole, mode, fin, r2), evaluateFar(hole, mode, fout, r2));
       expect(Math.hypot(w1[0] - w2[0], w1[1] - w2[1]) / Math.hypot(w1[0], w1[1])).toBeLessThan(1e-13);
@@ -47,7 +55,8 @@ describe('horizon Frobenius series', () => {
     it(`summed at x₁ it agrees with the series at x₀ integrated to x₁ to 1e-10 (a=${a}, s=${mode.s})`, () => {
       const hole = kerrHole({ a: a });
       const b = hole.rPlus - hole.rMinus;
-      const x0 = 0.05 * b, x1 = 0.2 * b;
+      const x0 = 0.05 * b,
+        x1 = 0.2 * b;
       const direct = horizonSeriesStart(hole, mode, x1);
       const sol = solveRadial({ hole, ...mode }, { tol: 1e-13, startFraction: 0.05, grid: [hole.rPlus + x1] });
       const got = sol.samples[0];

@@ -30,7 +30,8 @@ describe('Teukolsky–Starobinsky map', () => {
       const rp = horizonSeriesStart(hole, plus, x);
       const map = starobinskyMapAt(hole, minus, hole.rPlus + x);
       const mul = (z: number[], w: number[]) => [z[0] * w[0] - z[1] * w[1], z[0] * w[1] + z[1] * w[0]];
-      const a0R = mul(map.a0, rm.R), b0dR = mul(map.b0, rm.dR);
+      const a0R = mul(map.a0, rm.R),
+        b0dR = mul(map.b0, rm.dR);
       const mapped = [a0R[0] + b0dR[0], a0R[1] + b0dR[1]];
       const expected = mul(starobinskyHorizonFactor(hole, c.s, c.omega - c.m * hole.omegaH), rp.R);
       const err = Math.hypot(mapped[0] - expected[0], mapped[1] - expected[1]) / Math.hypot(expected[0], expected[1]);
@@ -90,9 +91,10 @@ describe('formulation independence', () => {
       const hole = kerrHole({ a: c.a });
       const p = { hole, s: c.s, m: c.m, omega: c.omega, lambda: c.lambda };
       const plain = c.s === 0 ? solveRadial(p, { tol: 1e-12 }).logAbsZIn : solveTwoSided(p, { tol: 1e-12 }).logAbsZInPlus;
-      const phase = c.s === 0
-        ? solveRadial(p, { tol: 1e-12, variable: 'phase' }).logAbsZIn
-        : solveTwoSided(p, { tol: 1e-12, variable: 'phase' }).logAbsZInPlus;
+      const phase =
+        c.s === 0
+          ? solveRadial(p, { tol: 1e-12, variable: 'phase' }).logAbsZIn
+          : solveTwoSided(p, { tol: 1e-12, variable: 'phase' }).logAbsZInPlus;
       expect(Math.abs(plain - phase)).toBeLessThan(1e-9);
     }
   });

@@ -21,7 +21,10 @@ for (const spin of spins) {
       const r = schwarzschildGreybody({ field: { spin }, l, omega });
       times.push(performance.now() - t0);
       if (r.gamma < 1e-30) continue;
-      const ref = integrateOnce({ field: { spin }, l, omega }, { stepTolerance: 1e-16, startOffset: 0.05, matchRadius: 2 * r.diagnostics.matchRadius });
+      const ref = integrateOnce(
+        { field: { spin }, l, omega },
+        { stepTolerance: 1e-16, startOffset: 0.05, matchRadius: 2 * r.diagnostics.matchRadius },
+      );
       const rel = Math.abs(r.gamma / ref.gamma - 1);
       rows++;
       if (rel > worst.rel) worst = { rel, spin, l, omega, relError: r.diagnostics.errorEstimate };
@@ -31,12 +34,21 @@ for (const spin of spins) {
 }
 times.sort((a, b) => a - b);
 console.log(`rows with Γ ≥ 1e-30: ${rows}`);
-console.log(`largest |Γ/Γ_ref − 1| = ${worst.rel.toExponential(2)} at s=${worst.spin} l=${worst.l} Mω=${worst.omega} (its errorEstimate ${worst.relError?.toExponential(2)})`);
+console.log(
+  `largest |Γ/Γ_ref − 1| = ${worst.rel.toExponential(2)} at s=${worst.spin} l=${worst.l} Mω=${worst.omega} (its errorEstimate ${worst.relError?.toExponential(2)})`,
+);
 console.log(`largest (actual error)/(errorEstimate) = ${worstEstimateRatio.toFixed(3)}`);
-console.log(`time per mode (both integrations), ms: median ${times[times.length >> 1].toFixed(1)}, 90% ${times[Math.floor(0.9 * times.length)].toFixed(1)}, max ${times[times.length - 1].toFixed(1)}`);
+console.log(
+  `time per mode (both integrations), ms: median ${times[times.length >> 1].toFixed(1)}, 90% ${times[Math.floor(0.9 * times.length)].toFixed(1)}, max ${times[times.length - 1].toFixed(1)}`,
+);
 
 console.log('\nstep-tolerance model: relative error of Γ vs Cash–Karp step tolerance');
-for (const [spin, l, omega] of [[0, 0, 5], [2, 6, 1.2], [1, 3, 0.8], [0.5, 2.5, 0.02]]) {
+for (const [spin, l, omega] of [
+  [0, 0, 5],
+  [2, 6, 1.2],
+  [1, 3, 0.8],
+  [0.5, 2.5, 0.02],
+]) {
   const ref = integrateOnce({ field: { spin }, l, omega }, { stepTolerance: 1e-16, startOffset: 0.1 });
   const line = [`s=${spin} l=${l} Mω=${omega}`];
   for (const st of [1e-10, 1e-12, 1e-14]) {

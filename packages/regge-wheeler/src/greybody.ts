@@ -10,7 +10,12 @@
  */
 import { ConvergenceError, type Diagnostics, type FieldSpin } from '@penumbra/core';
 import { DEFAULT_START_OFFSET, defaultMatchRadius, integrate, type SingleIntegration } from './integrate.js';
-import { type SchwarzschildGreybodyOptions, type SchwarzschildGreybodyProblem, validateGreybodyOptions, validateProblem } from './problem.js';
+import {
+  type SchwarzschildGreybodyOptions,
+  type SchwarzschildGreybodyProblem,
+  validateGreybodyOptions,
+  validateProblem,
+} from './problem.js';
 
 /** How Γ was obtained: core's Diagnostics plus the radii and series terms of the returned integration. */
 export interface SchwarzschildGreybodyDiagnostics extends Diagnostics {
@@ -63,7 +68,10 @@ const RELATIVE_ERROR_FLOOR = 3e-13;
  * options, and ConvergenceError (full diagnostics) when the estimate stays
  * above tol.
  */
-export function schwarzschildGreybody(problem: SchwarzschildGreybodyProblem, options?: SchwarzschildGreybodyOptions): SchwarzschildGreybodySolution {
+export function schwarzschildGreybody(
+  problem: SchwarzschildGreybodyProblem,
+  options?: SchwarzschildGreybodyOptions,
+): SchwarzschildGreybodySolution {
   const p = validateProblem(problem);
   const { tol } = validateGreybodyOptions(options);
   let factor = 1;
@@ -107,7 +115,12 @@ export function schwarzschildGreybody(problem: SchwarzschildGreybodyProblem, opt
   };
   if (!converged) {
     throw new ConvergenceError(`greybody factor did not reach relative accuracy ${tol}`, {
-      spin: p.spin, l: p.l, omega: p.omega, mass: p.mass, gamma: run.gamma, ...diagnostics,
+      spin: p.spin,
+      l: p.l,
+      omega: p.omega,
+      mass: p.mass,
+      gamma: run.gamma,
+      ...diagnostics,
     });
   }
   return {

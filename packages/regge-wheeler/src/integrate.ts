@@ -43,9 +43,18 @@ const MATCH_RADIUS_GROWTH = 1.5;
 const MAX_MATCH_MOVES = 60;
 
 /** What a failed integration reports: full core Diagnostics plus the mode and radii. */
-function failure(p: ModeProblem, message: string, work: { steps: number; rhsEvaluations: number }, extra: object): Diagnostics & Record<string, unknown> {
+function failure(
+  p: ModeProblem,
+  message: string,
+  work: { steps: number; rhsEvaluations: number },
+  extra: object,
+): Diagnostics & Record<string, unknown> {
   return {
-    spin: p.spin, l: p.l, omega: p.omega, mass: p.mass, ...extra,
+    spin: p.spin,
+    l: p.l,
+    omega: p.omega,
+    mass: p.mass,
+    ...extra,
     method: 'single integration (horizon series, Cash–Karp RK45, far-zone series)',
     steps: work.steps,
     rhsEvaluations: work.rhsEvaluations,
@@ -94,7 +103,12 @@ export function integrate(base: Omit<ModeProblem, 'diracSign'>, controls: Integr
     if (++moves > MAX_MATCH_MOVES) {
       throw new ConvergenceError(
         'far-zone asymptotic series did not converge',
-        failure(p, `no convergence after ${MAX_MATCH_MOVES} moves of the matching radius`, { steps: 0, rhsEvaluations: 0 }, { matchRadius, seriesTerms: far.terms }),
+        failure(
+          p,
+          `no convergence after ${MAX_MATCH_MOVES} moves of the matching radius`,
+          { steps: 0, rhsEvaluations: 0 },
+          { matchRadius, seriesTerms: far.terms },
+        ),
       );
     }
     matchRadius *= MATCH_RADIUS_GROWTH;
@@ -102,13 +116,21 @@ export function integrate(base: Omit<ModeProblem, 'diracSign'>, controls: Integr
   }
   const stepTolerance =
     controls.stepTolerance ??
-    Math.max(MIN_STEP_TOLERANCE, (controls.stepToleranceFactor ?? 1) * stepToleranceFor(controls.tol, p, startOffset, matchRadius));
+    Math.max(
+      MIN_STEP_TOLERANCE,
+      (controls.stepToleranceFactor ?? 1) * stepToleranceFor(controls.tol, p, startOffset, matchRadius),
+    );
 
   const start = horizonSeries(p, x0);
   if (!start.converged) {
     throw new ConvergenceError(
       'horizon series did not converge',
-      failure(p, `no convergence in ${start.terms} terms at r0 = ${r0}`, { steps: 0, rhsEvaluations: 0 }, { startRadius: r0, seriesTerms: start.terms }),
+      failure(
+        p,
+        `no convergence in ${start.terms} terms at r0 = ${r0}`,
+        { steps: 0, rhsEvaluations: 0 },
+        { startRadius: r0, seriesTerms: start.terms },
+      ),
     );
   }
   const y = new Float64Array([start.psiRe, start.psiIm, start.dpsiRe, start.dpsiIm]);

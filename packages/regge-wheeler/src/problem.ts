@@ -122,7 +122,12 @@ export function validateProblem(problem: unknown): Omit<ModeProblem, 'diracSign'
     throw new InputError('mass', 'a finite number > 0', mass);
   }
   if (mass * omega > MAX_M_OMEGA) {
-    throw new InputError('omega', `M ω ≤ ${MAX_M_OMEGA}`, omega, 'beyond that Γ = 1 to machine precision for any l the solver is meant for');
+    throw new InputError(
+      'omega',
+      `M ω ≤ ${MAX_M_OMEGA}`,
+      omega,
+      'beyond that Γ = 1 to machine precision for any l the solver is meant for',
+    );
   }
   const kind: PotentialKind = spin === 0.5 ? 'dirac' : 'regge-wheeler';
   return { kind, spin, l, omega, mass };

@@ -51,12 +51,18 @@ export function horizonSeries(p: ModeProblem, x: number): SeriesValue {
   const dvdr = isDirac ? b / (2 * v * r * r) : 1 / b;
 
   // Last four coefficients a_{n}, a_{n−1}, a_{n−2}, a_{n−3}.
-  let a0r = 1, a0i = 0; // a_n
-  let a1r = 0, a1i = 0; // a_{n−1}
-  let a2r = 0, a2i = 0; // a_{n−2}
-  let a3r = 0, a3i = 0; // a_{n−3}
-  let hRe = 1, hIm = 0; // Σ a_n v^n
-  let hvRe = 0, hvIm = 0; // Σ n a_n v^{n−1}
+  let a0r = 1,
+    a0i = 0; // a_n
+  let a1r = 0,
+    a1i = 0; // a_{n−1}
+  let a2r = 0,
+    a2i = 0; // a_{n−2}
+  let a3r = 0,
+    a3i = 0; // a_{n−3}
+  let hRe = 1,
+    hIm = 0; // Σ a_n v^n
+  let hvRe = 0,
+    hvIm = 0; // Σ n a_n v^{n−1}
   let vPow = 1; // v^n
   let smallRun = 0;
   let n = 0;
@@ -99,10 +105,14 @@ export function horizonSeries(p: ModeProblem, x: number): SeriesValue {
     const den2 = denRe * denRe + denIm * denIm;
     const nextRe = (numRe * denRe + numIm * denIm) / den2;
     const nextIm = (numIm * denRe - numRe * denIm) / den2;
-    a3r = a2r; a3i = a2i;
-    a2r = a1r; a2i = a1i;
-    a1r = a0r; a1i = a0i;
-    a0r = nextRe; a0i = nextIm;
+    a3r = a2r;
+    a3i = a2i;
+    a2r = a1r;
+    a2i = a1i;
+    a1r = a0r;
+    a1i = a0i;
+    a0r = nextRe;
+    a0i = nextIm;
 
     const order = n + 1;
     const derivWeight = order * vPow; // n a_n v^{n−1} for the new coefficient
@@ -175,8 +185,10 @@ export function outgoingFarSeries(p: ModeProblem, r: number): SeriesValue {
   const tRe = new Float64Array(FAR_SERIES_MAX_TERMS + 1);
   const tIm = new Float64Array(FAR_SERIES_MAX_TERMS + 1);
   tRe[0] = 1;
-  let uRe = 1, uIm = 0; // Σ T_n
-  let duRe = 0, duIm = 0; // Σ −n T_n  (= r du/dr)
+  let uRe = 1,
+    uIm = 0; // Σ T_n
+  let duRe = 0,
+    duIm = 0; // Σ −n T_n  (= r du/dr)
   const twoOmegaR = 2 * p.omega * r;
   const flatTermination = Math.ceil(p.l) + 2;
   let smallRun = 0;

@@ -50,7 +50,9 @@ describe('input validation throws InputError naming the parameter', () => {
   ];
   for (const [parameter, options] of badOptions) {
     it(`rejects the option ${parameter} in ${show(options)}`, () => {
-      expect(parameterOf(() => schwarzschildGreybody({ field: { spin: 0 }, l: 0, omega: 0.1 }, options as never))).toBe(parameter);
+      expect(parameterOf(() => schwarzschildGreybody({ field: { spin: 0 }, l: 0, omega: 0.1 }, options as never))).toBe(
+        parameter,
+      );
     });
   }
 

@@ -28,7 +28,13 @@ describe('flux conservation Γ + R = 1 (Wronskian identity of a real potential)'
 });
 
 describe('Dirac potential: the supersymmetric partners W² + dW/dr* and W² − dW/dr* (Chandrasekhar 1983)', () => {
-  for (const [l, omega] of [[0.5, 1e-3], [0.5, 0.2], [1.5, 0.35], [3.5, 0.9], [6.5, 5]] as const) {
+  for (const [l, omega] of [
+    [0.5, 1e-3],
+    [0.5, 0.2],
+    [1.5, 0.35],
+    [3.5, 0.9],
+    [6.5, 5],
+  ] as const) {
     it(`give the same Γ to 1e-10 relative for l = ${l}, Mω = ${omega}`, () => {
       const plus = integrateOnce({ field: { spin: 0.5 }, l, omega }, { diracSign: 1 });
       const minus = integrateOnce({ field: { spin: 0.5 }, l, omega }, { diracSign: -1 });
@@ -39,7 +45,13 @@ describe('Dirac potential: the supersymmetric partners W² + dW/dr* and W² − 
 
 // Each case: Γ must not move when a numerical choice moves. Stated tolerance 1e-10 relative (the requirement).
 const CASES: Array<[number, number, number]> = [
-  [0, 0, 1e-3], [0, 3, 0.4], [0.5, 2.5, 0.05], [1, 1, 0.25], [2, 2, 0.6], [2, 6, 1.5], [1, 4, 5],
+  [0, 0, 1e-3],
+  [0, 3, 0.4],
+  [0.5, 2.5, 0.05],
+  [1, 1, 0.25],
+  [2, 2, 0.6],
+  [2, 6, 1.5],
+  [1, 4, 5],
 ];
 
 describe('independence of the numerical choices (change in Γ ≤ 1e-10 relative)', () => {

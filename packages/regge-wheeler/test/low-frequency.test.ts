@@ -4,7 +4,14 @@ import { pageLowFrequencyGamma } from './page-formula.js';
 
 // (spin, l) pairs with Γ ≥ 1e-30 at Mω = 1e-4 and 1e-3.
 const MODES: Array<[number, number]> = [
-  [0, 0], [0, 1], [0, 2], [0.5, 0.5], [0.5, 1.5], [1, 1], [1, 2], [2, 2],
+  [0, 0],
+  [0, 1],
+  [0, 2],
+  [0.5, 0.5],
+  [0.5, 1.5],
+  [1, 1],
+  [1, 2],
+  [2, 2],
 ];
 
 describe('low-frequency limit: Page, Phys. Rev. D 13, 198 (1976) / Starobinsky & Churilov (1974) formula from physics.md', () => {

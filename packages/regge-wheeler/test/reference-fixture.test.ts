@@ -39,7 +39,10 @@ describe.skipIf(allRows.length === 0)('mpmath high-precision reference (test/fix
       const reference = row.gamma_str !== undefined ? Number(row.gamma_str) : row.gamma;
       const ours = schwarzschildGreybody({ field: { spin: row.spin }, l: row.l, omega, mass: row.M ?? 1 });
       const rel = Math.abs(ours.gamma / reference - 1);
-      if (!(rel <= 1e-9)) failures.push(`${row.route} s=${row.spin} l=${row.l} Mω=${omega}: ${ours.gamma} vs ${reference} (rel ${rel.toExponential(2)})`);
+      if (!(rel <= 1e-9))
+        failures.push(
+          `${row.route} s=${row.spin} l=${row.l} Mω=${omega}: ${ours.gamma} vs ${reference} (rel ${rel.toExponential(2)})`,
+        );
     }
     expect(failures).toEqual([]);
   });

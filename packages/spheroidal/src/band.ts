@@ -67,11 +67,7 @@ export function buildBand(s: number, m: number, c: number, lFirst: number, strid
   let norm = 0;
   for (let i = 0; i < size; i++) {
     const row =
-      Math.abs(d0[i]) +
-      Math.abs(d1[i]) +
-      Math.abs(d2[i]) +
-      (i > 0 ? Math.abs(d1[i - 1]) : 0) +
-      (i > 1 ? Math.abs(d2[i - 2]) : 0);
+      Math.abs(d0[i]) + Math.abs(d1[i]) + Math.abs(d2[i]) + (i > 0 ? Math.abs(d1[i - 1]) : 0) + (i > 1 ? Math.abs(d2[i - 2]) : 0);
     if (row > norm) norm = row;
   }
   return { s, m, c, lFirst, stride, size, d0, d1, d2, e0, e1, e2, norm: Math.max(norm, 1) };

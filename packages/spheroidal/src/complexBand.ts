@@ -9,18 +9,32 @@ import type { Tally } from './diagnostics.js';
  */
 export interface ComplexBand {
   size: number;
-  d0r: Float64Array; d0i: Float64Array;
-  d1r: Float64Array; d1i: Float64Array;
-  d2r: Float64Array; d2i: Float64Array;
-  e0r: Float64Array; e0i: Float64Array;
-  e1r: Float64Array; e1i: Float64Array;
-  e2r: Float64Array; e2i: Float64Array;
+  d0r: Float64Array;
+  d0i: Float64Array;
+  d1r: Float64Array;
+  d1i: Float64Array;
+  d2r: Float64Array;
+  d2i: Float64Array;
+  e0r: Float64Array;
+  e0i: Float64Array;
+  e1r: Float64Array;
+  e1i: Float64Array;
+  e2r: Float64Array;
+  e2i: Float64Array;
   /** max row sum of |K|: the scale for tolerances */
   norm: number;
 }
 
 /** The complex band K(c) and ∂K/∂c at c = cr + i·ci, assembled from the shared terms (bandTerms.ts). */
-export function buildComplexBand(s: number, m: number, cr: number, ci: number, lFirst: number, stride: 1 | 2, size: number): ComplexBand {
+export function buildComplexBand(
+  s: number,
+  m: number,
+  cr: number,
+  ci: number,
+  lFirst: number,
+  stride: 1 | 2,
+  size: number,
+): ComplexBand {
   const terms = bandTerms(s, m, lFirst, stride, size);
   const [x2Diagonal, x2First, x2Second] = terms.squared;
   const [xDiagonal, xFirst] = terms.linear;
@@ -35,8 +49,18 @@ export function buildComplexBand(s: number, m: number, cr: number, ci: number, l
   const mk = () => new Float64Array(size);
   const band: ComplexBand = {
     size,
-    d0r: mk(), d0i: mk(), d1r: mk(), d1i: mk(), d2r: mk(), d2i: mk(),
-    e0r: mk(), e0i: mk(), e1r: mk(), e1i: mk(), e2r: mk(), e2i: mk(),
+    d0r: mk(),
+    d0i: mk(),
+    d1r: mk(),
+    d1i: mk(),
+    d2r: mk(),
+    d2i: mk(),
+    e0r: mk(),
+    e0i: mk(),
+    e1r: mk(),
+    e1i: mk(),
+    e2r: mk(),
+    e2i: mk(),
     norm: 1,
   };
   combineTerms(band.d0r, size, terms.spherical, pr, x2Diagonal, qr, xDiagonal);
@@ -69,16 +93,37 @@ export function buildComplexBand(s: number, m: number, cr: number, ci: number, l
 
 /** y = M x for a complex symmetric band given by diagonals (r0,i0,r1,i1,r2,i2). */
 function complexBandMultiply(
-  r0: Float64Array, i0: Float64Array, r1: Float64Array, i1: Float64Array, r2: Float64Array, i2: Float64Array,
-  n: number, xr: Float64Array, xi: Float64Array, yr: Float64Array, yi: Float64Array,
+  r0: Float64Array,
+  i0: Float64Array,
+  r1: Float64Array,
+  i1: Float64Array,
+  r2: Float64Array,
+  i2: Float64Array,
+  n: number,
+  xr: Float64Array,
+  xi: Float64Array,
+  yr: Float64Array,
+  yi: Float64Array,
 ): void {
   for (let k = 0; k < n; k++) {
     let vr = r0[k] * xr[k] - i0[k] * xi[k];
     let vi = r0[k] * xi[k] + i0[k] * xr[k];
-    if (k + 1 < n) { vr += r1[k] * xr[k + 1] - i1[k] * xi[k + 1]; vi += r1[k] * xi[k + 1] + i1[k] * xr[k + 1]; }
-    if (k + 2 < n) { vr += r2[k] * xr[k + 2] - i2[k] * xi[k + 2]; vi += r2[k] * xi[k + 2] + i2[k] * xr[k + 2]; }
-    if (k >= 1) { vr += r1[k - 1] * xr[k - 1] - i1[k - 1] * xi[k - 1]; vi += r1[k - 1] * xi[k - 1] + i1[k - 1] * xr[k - 1]; }
-    if (k >= 2) { vr += r2[k - 2] * xr[k - 2] - i2[k - 2] * xi[k - 2]; vi += r2[k - 2] * xi[k - 2] + i2[k - 2] * xr[k - 2]; }
+    if (k + 1 < n) {
+      vr += r1[k] * xr[k + 1] - i1[k] * xi[k + 1];
+      vi += r1[k] * xi[k + 1] + i1[k] * xr[k + 1];
+    }
+    if (k + 2 < n) {
+      vr += r2[k] * xr[k + 2] - i2[k] * xi[k + 2];
+      vi += r2[k] * xi[k + 2] + i2[k] * xr[k + 2];
+    }
+    if (k >= 1) {
+      vr += r1[k - 1] * xr[k - 1] - i1[k - 1] * xi[k - 1];
+      vi += r1[k - 1] * xi[k - 1] + i1[k - 1] * xr[k - 1];
+    }
+    if (k >= 2) {
+      vr += r2[k - 2] * xr[k - 2] - i2[k - 2] * xi[k - 2];
+      vi += r2[k - 2] * xi[k - 2] + i2[k - 2] * xr[k - 2];
+    }
     yr[k] = vr;
     yi[k] = vi;
   }
@@ -101,9 +146,12 @@ function bilinear(n: number, xr: Float64Array, xi: Float64Array, yr: Float64Arra
  */
 function complexShiftedSolve(band: ComplexBand, sr: number, si: number, xr: Float64Array, xi: Float64Array): void {
   const n = band.size;
-  const Dr = new Float64Array(n), Di = new Float64Array(n);
-  const L1r = new Float64Array(n), L1i = new Float64Array(n);
-  const L2r = new Float64Array(n), L2i = new Float64Array(n);
+  const Dr = new Float64Array(n),
+    Di = new Float64Array(n);
+  const L1r = new Float64Array(n),
+    L1i = new Float64Array(n);
+  const L2r = new Float64Array(n),
+    L2i = new Float64Array(n);
   const pivmin = 1e-30 * band.norm;
   for (let k = 0; k < n; k++) {
     let dr = band.d0r[k] - sr;
@@ -121,7 +169,10 @@ function complexShiftedSolve(band: ComplexBand, sr: number, si: number, xr: Floa
       dr -= qr * Dr[k - 2] - qi * Di[k - 2];
       di -= qr * Di[k - 2] + qi * Dr[k - 2];
     }
-    if (Math.hypot(dr, di) < pivmin) { dr = pivmin; di = 0; }
+    if (Math.hypot(dr, di) < pivmin) {
+      dr = pivmin;
+      di = 0;
+    }
     Dr[k] = dr;
     Di[k] = di;
     const dd = dr * dr + di * di;
@@ -180,7 +231,10 @@ function normalise(n: number, xr: Float64Array, xi: Float64Array): number {
   let s2 = 0;
   for (let k = 0; k < n; k++) s2 += xr[k] * xr[k] + xi[k] * xi[k];
   const inv = 1 / Math.sqrt(s2);
-  for (let k = 0; k < n; k++) { xr[k] *= inv; xi[k] *= inv; }
+  for (let k = 0; k < n; k++) {
+    xr[k] *= inv;
+    xi[k] *= inv;
+  }
   return inv;
 }
 
@@ -190,13 +244,21 @@ function normalise(n: number, xr: Float64Array, xi: Float64Array): number {
  * Returns null if it does not settle within 12 steps. Each step is one
  * factorisation, counted in `tally`.
  */
-export function complexRqi(band: ComplexBand, shift: ComplexValue, xr0: Float64Array, xi0: Float64Array, tally: Tally): ComplexPair | null {
+export function complexRqi(
+  band: ComplexBand,
+  shift: ComplexValue,
+  xr0: Float64Array,
+  xi0: Float64Array,
+  tally: Tally,
+): ComplexPair | null {
   const n = band.size;
-  const xr = new Float64Array(n), xi = new Float64Array(n);
+  const xr = new Float64Array(n),
+    xi = new Float64Array(n);
   xr.set(xr0.subarray(0, Math.min(n, xr0.length)));
   xi.set(xi0.subarray(0, Math.min(n, xi0.length)));
   normalise(n, xr, xi);
-  const yr = new Float64Array(n), yi = new Float64Array(n);
+  const yr = new Float64Array(n),
+    yi = new Float64Array(n);
   let sigma = shift;
   const tol = 4e-16 * band.norm;
   for (let it = 1; it <= 12; it++) {

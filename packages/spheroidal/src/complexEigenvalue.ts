@@ -88,7 +88,10 @@ const METHOD = 'spectral-complex+leaver';
  * bad problem or options (outside the range included) and ConvergenceError
  * (with full diagnostics) on failure.
  */
-export function spheroidalEigenvalueComplex(problem: ComplexSpheroidalProblem, options?: ComplexSpheroidalOptions): ComplexSpheroidalEigenvalue {
+export function spheroidalEigenvalueComplex(
+  problem: ComplexSpheroidalProblem,
+  options?: ComplexSpheroidalOptions,
+): ComplexSpheroidalEigenvalue {
   const { s, l, m, c } = validateComplexProblem(problem);
   validateComplexOptions(options);
   const real = solveMode({ s, l, m, c: c.re }, { continuation: false });
@@ -99,7 +102,10 @@ export function spheroidalEigenvalueComplex(problem: ComplexSpheroidalProblem, o
   let size = Math.max(estimateSize(s, m, absC, lFirst, stride, index, coldGuess), index + 3, real.spectral?.band.size ?? 0);
   let spectralIterations = 0;
   const fail = (message: string, detail: string, extra: object) =>
-    new ConvergenceError(message, failureDiagnostics(METHOD, detail, spectralIterations, tally.evaluations, { s, l, m, c, size, ...extra }));
+    new ConvergenceError(
+      message,
+      failureDiagnostics(METHOD, detail, spectralIterations, tally.evaluations, { s, l, m, c, size, ...extra }),
+    );
 
   for (let growth = 0; growth < 4; growth++) {
     let pair: ComplexPair;
@@ -113,7 +119,8 @@ export function spheroidalEigenvalueComplex(problem: ComplexSpheroidalProblem, o
       if (real.spectral) xr.set(real.spectral.vector.subarray(0, Math.min(size, real.spectral.vector.length)));
       else xr[index] = 1;
       const start = complexRqi(band, { re: real.result.A, im: 0 }, xr, new Float64Array(size), tally);
-      if (!start) throw fail('complex spectral start at Re c failed', 'Rayleigh-quotient iteration did not settle in 12 steps', {});
+      if (!start)
+        throw fail('complex spectral start at Re c failed', 'Rayleigh-quotient iteration did not settle in 12 steps', {});
       pair = start;
       spectralIterations += start.iterations;
     }
@@ -128,9 +135,17 @@ export function spheroidalEigenvalueComplex(problem: ComplexSpheroidalProblem, o
       const next = complexRqi(band, guess, pair.xr, pair.xi, tally);
       const predictionError = next ? Math.hypot(next.A.re - guess.re, next.A.im - guess.im) : Infinity;
       const stepSize = Math.abs(dc) * Math.max(1, Math.hypot(pair.slope.re, pair.slope.im));
-      if (!next || overlap(size, pair.xr, pair.xi, next.xr, next.xi) < 0.95 || predictionError > 0.5 * stepSize + 1e-12 * band.norm) {
+      if (
+        !next ||
+        overlap(size, pair.xr, pair.xi, next.xr, next.xi) < 0.95 ||
+        predictionError > 0.5 * stepSize + 1e-12 * band.norm
+      ) {
         dt /= 2;
-        if (dt < 1e-6) throw fail('complex-c continuation stalled (branch point near the path?)', `path step below 1e-6 at t = ${t}`, { t, pathSteps });
+        if (dt < 1e-6)
+          throw fail('complex-c continuation stalled (branch point near the path?)', `path step below 1e-6 at t = ${t}`, {
+            t,
+            pathSteps,
+          });
         continue;
       }
       pair = next;
@@ -141,7 +156,10 @@ export function spheroidalEigenvalueComplex(problem: ComplexSpheroidalProblem, o
       dt = Math.min(dt * 1.5, 0.25 / Math.max(Math.abs(c.im), 1e-300));
     }
     // Truncation check on the eigenvector's tail, as for real c.
-    const tail = stride === 1 ? Math.max(Math.hypot(pair.xr[size - 1], pair.xi[size - 1]), Math.hypot(pair.xr[size - 2], pair.xi[size - 2])) : Math.hypot(pair.xr[size - 1], pair.xi[size - 1]);
+    const tail =
+      stride === 1
+        ? Math.max(Math.hypot(pair.xr[size - 1], pair.xi[size - 1]), Math.hypot(pair.xr[size - 2], pair.xi[size - 2]))
+        : Math.hypot(pair.xr[size - 1], pair.xi[size - 1]);
     if (tail > 1e-16) {
       size = Math.ceil(size * 1.5) + 8;
       continue;
@@ -168,12 +186,23 @@ export function spheroidalEigenvalueComplex(problem: ComplexSpheroidalProblem, o
     };
     if (!root.converged) {
       throw new ConvergenceError('Newton on the complex Leaver continued fraction did not converge', {
-        s, l, m, c, ...diagnostics, errorEstimate: Infinity, message: `Newton did not converge in ${root.iterations} steps`,
+        s,
+        l,
+        m,
+        c,
+        ...diagnostics,
+        errorEstimate: Infinity,
+        message: `Newton did not converge in ${root.iterations} steps`,
       });
     }
     if (!(agreement <= COMPLEX_AGREEMENT_LIMIT)) {
       throw new ConvergenceError('complex continued fraction and spectral eigenvalues disagree', {
-        s, l, m, c, ...diagnostics, message: `agreement ${agreement.toExponential(1)} above ${COMPLEX_AGREEMENT_LIMIT}`,
+        s,
+        l,
+        m,
+        c,
+        ...diagnostics,
+        message: `agreement ${agreement.toExponential(1)} above ${COMPLEX_AGREEMENT_LIMIT}`,
       });
     }
     // The spectral value is the result: against 30-digit values it is at

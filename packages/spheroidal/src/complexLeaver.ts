@@ -36,32 +36,50 @@ export function leaverFunctionComplex(
   const gammaI = (n: number) => gammaScale.im * r.gammaWeight(n);
 
   // Lower part t_j = β_j − α_{j−1}γ_j / t_{j−1}, dβ/dA = −1.
-  let lowR = 0, lowI = 0, dLowR = 0, dLowI = 0;
+  let lowR = 0,
+    lowI = 0,
+    dLowR = 0,
+    dLowI = 0;
   if (inversion > 0) {
-    let tr = betaR(0), ti = betaI(0), dtr = -1, dti = 0;
+    let tr = betaR(0),
+      ti = betaI(0),
+      dtr = -1,
+      dti = 0;
     for (let j = 1; j <= inversion; j++) {
-      const pr = alpha(j - 1) * gammaR(j), pi = alpha(j - 1) * gammaI(j);
+      const pr = alpha(j - 1) * gammaR(j),
+        pi = alpha(j - 1) * gammaI(j);
       const q = cdiv({ re: pr, im: pi }, { re: tr, im: ti }); // p/t
       const q2 = cdiv(q, { re: tr, im: ti }); // p/t²
       const dq = { re: q2.re * dtr - q2.im * dti, im: q2.re * dti + q2.im * dtr }; // p dt / t²
       if (j === inversion) {
-        lowR = -q.re; lowI = -q.im; dLowR = dq.re; dLowI = dq.im;
+        lowR = -q.re;
+        lowI = -q.im;
+        dLowR = dq.re;
+        dLowI = dq.im;
       } else {
-        tr = betaR(j) - q.re; ti = betaI(j) - q.im;
-        dtr = -1 + dq.re; dti = dq.im;
+        tr = betaR(j) - q.re;
+        ti = betaI(j) - q.im;
+        dtr = -1 + dq.re;
+        dti = dq.im;
       }
     }
   }
   const upper = (depth: number) => {
     const start = inversion + depth;
-    let tr = betaR(start), ti = betaI(start), dtr = -1, dti = 0;
+    let tr = betaR(start),
+      ti = betaI(start),
+      dtr = -1,
+      dti = 0;
     for (let n = start - 1; n > inversion; n--) {
-      const ar = -alpha(n) * gammaR(n + 1), ai = -alpha(n) * gammaI(n + 1);
+      const ar = -alpha(n) * gammaR(n + 1),
+        ai = -alpha(n) * gammaI(n + 1);
       const q = cdiv({ re: ar, im: ai }, { re: tr, im: ti });
       const q2 = cdiv(q, { re: tr, im: ti });
       const dq = { re: q2.re * dtr - q2.im * dti, im: q2.re * dti + q2.im * dtr };
-      tr = betaR(n) + q.re; ti = betaI(n) + q.im;
-      dtr = -1 - dq.re; dti = -dq.im;
+      tr = betaR(n) + q.re;
+      ti = betaI(n) + q.im;
+      dtr = -1 - dq.re;
+      dti = -dq.im;
     }
     const a1 = { re: -alpha(inversion) * gammaR(inversion + 1), im: -alpha(inversion) * gammaI(inversion + 1) };
     const v = cdiv(a1, { re: tr, im: ti });
@@ -75,7 +93,14 @@ export function leaverFunctionComplex(
     if (next > MAX_DEPTH) {
       throw new ConvergenceError(
         'complex Leaver continued fraction did not converge',
-        failureDiagnostics('leaver-continued-fraction-complex', `no stable value within ${MAX_DEPTH} terms`, depth, 1, { s, m, c, A, inversion, depth }),
+        failureDiagnostics('leaver-continued-fraction-complex', `no stable value within ${MAX_DEPTH} terms`, depth, 1, {
+          s,
+          m,
+          c,
+          A,
+          inversion,
+          depth,
+        }),
       );
     }
     const current = upper(next);

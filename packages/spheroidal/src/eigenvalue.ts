@@ -2,7 +2,12 @@ import { ConvergenceError, requireFinite, type Diagnostics } from '@penumbra/cor
 import { basisLayout, buildBand } from './band.js';
 import { failureDiagnostics, type Tally } from './diagnostics.js';
 import { leaverRoot } from './leaver.js';
-import { type SpheroidalOptions, type SpheroidalProblem, validateSpheroidalOptions, validateSpheroidalProblem } from './problem.js';
+import {
+  type SpheroidalOptions,
+  type SpheroidalProblem,
+  validateSpheroidalOptions,
+  validateSpheroidalProblem,
+} from './problem.js';
 import { lowestL, sphericalEigenvalue } from './quantum.js';
 import {
   type SpectralSolution,
@@ -68,7 +73,8 @@ const AGREEMENT_LIMIT = 1e-9;
 /** Four rounding units: the assembled matrix elements carry a few rounding errors each. */
 const ROUNDING_FLOOR = 4 * Number.EPSILON;
 
-const SPECTRAL_MESSAGE = 'converged: eigenvalue bisected to adjacent floats by Sylvester counts on a truncation whose eigenvector tail is below 1e-16';
+const SPECTRAL_MESSAGE =
+  'converged: eigenvalue bisected to adjacent floats by Sylvester counts on a truncation whose eigenvector tail is below 1e-16';
 
 interface ModeState {
   c: number;
@@ -109,10 +115,20 @@ export function solveMode(problem: unknown, options: unknown): SolvedMode {
   if (c === 0) {
     const A = sphericalEigenvalue(s, l);
     const result: SpheroidalEigenvalue = {
-      s, l, m, c, A, E: A + s * (s + 1),
+      s,
+      l,
+      m,
+      c,
+      A,
+      E: A + s * (s + 1),
       diagnostics: {
-        method: 'exact', steps: 0, rhsEvaluations: 0, errorEstimate: 0,
-        message: 'exact: A = (l − s)(l + s + 1) at c = 0', truncation: 1, residual: 0,
+        method: 'exact',
+        steps: 0,
+        rhsEvaluations: 0,
+        errorEstimate: 0,
+        message: 'exact: A = (l − s)(l + s + 1) at c = 0',
+        truncation: 1,
+        residual: 0,
       },
     };
     if (useCache) remember(key, { c, leaver, result, spectral: null });
@@ -207,7 +223,13 @@ function settle(
   }
   throw new ConvergenceError(
     'spheroidal spectral expansion did not converge in the deterministic finish',
-    failureDiagnostics(solved.method, 'eigenvector tail above 1e-16 after 8 truncations', steps, tally.evaluations, { s, m, c, index, size }),
+    failureDiagnostics(solved.method, 'eigenvector tail above 1e-16 after 8 truncations', steps, tally.evaluations, {
+      s,
+      m,
+      c,
+      index,
+      size,
+    }),
   );
 }
 

@@ -64,14 +64,20 @@ class HarmonicEvaluator {
   /** V(x) = Σ b_l v_l(x) and V′(x), with v_l = u_l / (sin^α(θ/2) cos^β(θ/2)) polynomials in x. */
   reduced(x: number): { V: number; dV: number } {
     const { a, b, weights } = this;
-    let vPrev = 0, v = this.start, dvPrev = 0, dv = 0;
+    let vPrev = 0,
+      v = this.start,
+      dvPrev = 0,
+      dv = 0;
     let V = weights[0] * v;
     let dV = 0;
     for (let j = 0; j + 1 < weights.length; j++) {
       const aPrev = j > 0 ? a[j - 1] : 0;
       const vNext = ((x - b[j]) * v - aPrev * vPrev) / a[j];
       const dvNext = ((x - b[j]) * dv + v - aPrev * dvPrev) / a[j];
-      vPrev = v; v = vNext; dvPrev = dv; dv = dvNext;
+      vPrev = v;
+      v = vNext;
+      dvPrev = dv;
+      dv = dvNext;
       V += weights[j + 1] * v;
       dV += weights[j + 1] * dv;
     }

@@ -4,7 +4,12 @@
  * of the public API; they may change without notice.
  */
 export { type ContinuedFractionValue, type LeaverRoot, leaverFunction, leaverRoot } from './leaver.js';
-export { type ComplexContinuedFractionValue, type ComplexLeaverRoot, leaverFunctionComplex, leaverRootComplex } from './complexLeaver.js';
+export {
+  type ComplexContinuedFractionValue,
+  type ComplexLeaverRoot,
+  leaverFunctionComplex,
+  leaverRootComplex,
+} from './complexLeaver.js';
 export { type Band, basisLayout, buildBand } from './band.js';
 export { type ComplexBand, buildComplexBand } from './complexBand.js';
 export type { Tally } from './diagnostics.js';

@@ -56,8 +56,14 @@ export function leaverFunction(
   }
 
   // Upper part a1/(b1 + a2/(b2 + …)), a_k = −α_{N+k−1}γ_{N+k}, b_k = β_{N+k}.
-  let pPrev = 1, p = 0, qPrev = 0, q = 1; // convergent P_0/Q_0 = 0/1
-  let dpPrev = 0, dp = 0, dqPrev = 0, dq = 0;
+  let pPrev = 1,
+    p = 0,
+    qPrev = 0,
+    q = 1; // convergent P_0/Q_0 = 0/1
+  let dpPrev = 0,
+    dp = 0,
+    dqPrev = 0,
+    dq = 0;
   let value = 0;
   let derivative = 0;
   let depth = 0;
@@ -70,16 +76,32 @@ export function leaverFunction(
     const qNew = bk * q + ak * qPrev;
     const dpNew = bk * dp - p + ak * dpPrev;
     const dqNew = bk * dq - q + ak * dqPrev;
-    pPrev = p; p = pNew; qPrev = q; q = qNew;
-    dpPrev = dp; dp = dpNew; dqPrev = dq; dq = dqNew;
+    pPrev = p;
+    p = pNew;
+    qPrev = q;
+    q = qNew;
+    dpPrev = dp;
+    dp = dpNew;
+    dqPrev = dq;
+    dq = dqNew;
     // Rescale to keep the recurrences in range.
     const scale = Math.abs(q) > 1e-300 ? 1 / q : 1;
-    p *= scale; pPrev *= scale; q *= scale; qPrev *= scale;
-    dp *= scale; dpPrev *= scale; dq *= scale; dqPrev *= scale;
+    p *= scale;
+    pPrev *= scale;
+    q *= scale;
+    qPrev *= scale;
+    dp *= scale;
+    dpPrev *= scale;
+    dq *= scale;
+    dqPrev *= scale;
     const v = p / q;
     const dv = (dp * q - p * dq) / (q * q);
     depth = k;
-    if (k > 2 && Math.abs(v - value) <= 1e-17 * Math.abs(v) + 1e-300 && Math.abs(dv - derivative) <= 1e-13 * Math.abs(dv) + 1e-300) {
+    if (
+      k > 2 &&
+      Math.abs(v - value) <= 1e-17 * Math.abs(v) + 1e-300 &&
+      Math.abs(dv - derivative) <= 1e-13 * Math.abs(dv) + 1e-300
+    ) {
       value = v;
       derivative = dv;
       converged = true;
@@ -91,7 +113,14 @@ export function leaverFunction(
   if (!converged) {
     throw new ConvergenceError(
       'Leaver continued fraction did not converge',
-      failureDiagnostics('leaver-continued-fraction', `no convergence within ${MAX_DEPTH} terms`, depth, 1, { s, m, c, A, inversion, depth }),
+      failureDiagnostics('leaver-continued-fraction', `no convergence within ${MAX_DEPTH} terms`, depth, 1, {
+        s,
+        m,
+        c,
+        A,
+        inversion,
+        depth,
+      }),
     );
   }
   // Re-sum the tail backwards from beyond the forward convergence depth: the
@@ -156,7 +185,14 @@ export function leaverRoot(
   throw new ConvergenceError(
     'Newton iteration on Leaver continued fraction did not converge',
     failureDiagnostics('leaver-newton', `no convergence in ${iterations} Newton steps`, iterations, iterations, {
-      s, m, c, start, inversion, A, lastStep, depth,
+      s,
+      m,
+      c,
+      start,
+      inversion,
+      A,
+      lastStep,
+      depth,
     }),
   );
 }

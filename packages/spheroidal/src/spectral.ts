@@ -62,7 +62,12 @@ function tailIsConverged(vector: Float64Array, size: number, stride: 1 | 2): boo
   return tail < TAIL_TOLERANCE;
 }
 
-function finishSolution(band: Band, vector: Float64Array, iterations: number, method: SpectralSolution['method']): SpectralSolution {
+function finishSolution(
+  band: Band,
+  vector: Float64Array,
+  iterations: number,
+  method: SpectralSolution['method'],
+): SpectralSolution {
   const n = band.size;
   let norm2 = 0;
   for (let i = 0; i < n; i++) norm2 += vector[i] * vector[i];
@@ -119,7 +124,13 @@ export function solveDense(
   }
   throw new ConvergenceError(
     'spheroidal spectral expansion did not converge',
-    failureDiagnostics('spectral-dense', 'eigenvector tail above 1e-16 after 8 truncations', 8, tally.evaluations, { s, m, c, index, size }),
+    failureDiagnostics('spectral-dense', 'eigenvector tail above 1e-16 after 8 truncations', 8, tally.evaluations, {
+      s,
+      m,
+      c,
+      index,
+      size,
+    }),
   );
 }
 

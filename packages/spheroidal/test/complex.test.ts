@@ -9,16 +9,18 @@ const dist = (a: Z, b: Z) => Math.hypot(a.re - b.re, a.im - b.im) / Math.max(1, 
 const A = (s: number, l: number, m: number, c: Z) => spheroidalEigenvalueComplex({ s, l, m, c }).A;
 
 // Modes and complex c inside the supported range |c| ≤ 10, |Im c| ≤ |Re c|, |Im c| ≤ 4.
-const modeArb = fc
-  .constantFrom(-2, -1, -0.5, 0, 0.5, 1, 2)
-  .chain((s) =>
-    fc.integer({ min: 0, max: 4 }).chain((dl) => {
-      const l = Math.abs(s) + dl;
-      return fc.integer({ min: 0, max: 2 * l }).map((k) => ({ s, l, m: -l + k }));
-    }),
-  );
+const modeArb = fc.constantFrom(-2, -1, -0.5, 0, 0.5, 1, 2).chain((s) =>
+  fc.integer({ min: 0, max: 4 }).chain((dl) => {
+    const l = Math.abs(s) + dl;
+    return fc.integer({ min: 0, max: 2 * l }).map((k) => ({ s, l, m: -l + k }));
+  }),
+);
 const cArb = fc
-  .record({ r: fc.double({ min: 0.05, max: 9.9, noNaN: true }), t: fc.double({ min: -1, max: 1, noNaN: true }), flip: fc.boolean() })
+  .record({
+    r: fc.double({ min: 0.05, max: 9.9, noNaN: true }),
+    t: fc.double({ min: -1, max: 1, noNaN: true }),
+    flip: fc.boolean(),
+  })
   .map(({ r, t, flip }) => {
     const re = r * Math.cos((t * Math.PI) / 4) * (flip ? -1 : 1);
     const im = Math.max(-4, Math.min(4, r * Math.sin((t * Math.PI) / 4)));
@@ -27,7 +29,12 @@ const cArb = fc
 
 describe('spheroidalEigenvalueComplex', () => {
   it('reduces to the real-c eigenvalue at Im c = 0 (bit-identical) and as Im c → 0: Re A to 1e-13, Im A / Im c → dA/dc of the real eigenvalue (Cauchy–Riemann) to 1e-6', () => {
-    for (const [s, l, m, c] of [[-2, 2, 2, 1.5], [0, 3, 1, -6], [1, 4, -2, 9.5], [0.5, 1.5, 0.5, 3]] as const) {
+    for (const [s, l, m, c] of [
+      [-2, 2, 2, 1.5],
+      [0, 3, 1, -6],
+      [1, 4, -2, 9.5],
+      [0.5, 1.5, 0.5, 3],
+    ] as const) {
       const real = (x: number) => spheroidalEigenvalue({ s, l, m, c: x }, { continuation: false }).A;
       const exact = A(s, l, m, { re: c, im: 0 });
       expect(Object.is(exact.re, real(c))).toBe(true);
@@ -56,7 +63,10 @@ describe('spheroidalEigenvalueComplex', () => {
       for (let l = Math.abs(s); l <= Math.abs(s) + 3; l++) {
         for (let m = -l; m <= l; m++) {
           const [A0, A1, A2] = smallCSeries(s, l, m);
-          for (const c of [{ re: 0.008, im: 0.006 }, { re: -0.015, im: 0.013 }]) {
+          for (const c of [
+            { re: 0.008, im: 0.006 },
+            { re: -0.015, im: 0.013 },
+          ]) {
             const c2 = { re: c.re * c.re - c.im * c.im, im: 2 * c.re * c.im };
             const series = { re: A0 + A1 * c.re + A2 * c2.re, im: A1 * c.im + A2 * c2.im };
             const got = A(s, l, m, c);
@@ -72,7 +82,14 @@ describe('spheroidalEigenvalueComplex', () => {
     for (const s of [-2, 0, 0.5, 1]) {
       for (const l of [Math.abs(s), Math.abs(s) + 3]) {
         for (const m of [-l, l]) {
-          for (const [re, im] of [[9.7, 2], [-7, 4], [4, -4], [2.5, 1], [-0.3, -0.3], [6, -3.5]]) {
+          for (const [re, im] of [
+            [9.7, 2],
+            [-7, 4],
+            [4, -4],
+            [2.5, 1],
+            [-0.3, -0.3],
+            [6, -3.5],
+          ]) {
             const r = spheroidalEigenvalueComplex({ s, l, m, c: { re, im } });
             worst = Math.max(worst, r.diagnostics.agreement);
           }

@@ -38,7 +38,9 @@ describe('the solve contract of the spheroidal solves', () => {
     expect(parameterOf(() => spheroidalEigenvalue(q, { leaver: 'on' } as never))).toBe('leaver');
     expect(parameterOf(() => spheroidalEigenvalue(q, { continuation: 'yes' } as never))).toBe('continuation');
     expect(parameterOf(() => spheroidalHarmonic(q, { leavers: 'check' } as never))).toBe('options.leavers');
-    expect(parameterOf(() => spheroidalEigenvalueComplex({ ...q, c: { re: 1, im: 0.5 } }, { leaver: 'check' } as never))).toBe('options.leaver');
+    expect(parameterOf(() => spheroidalEigenvalueComplex({ ...q, c: { re: 1, im: 0.5 } }, { leaver: 'check' } as never))).toBe(
+      'options.leaver',
+    );
     expect(spheroidalEigenvalue(q, {}).A).toBe(spheroidalEigenvalue(q).A);
   });
 
@@ -54,7 +56,12 @@ describe('the solve contract of the spheroidal solves', () => {
       expect(d.errorEstimate).toBeLessThan(1e-10);
       expect(d.message).toMatch(/^converged/);
     }
-    expect(spheroidalEigenvalue({ s: 1, l: 2, m: 0, c: 0 }).diagnostics).toMatchObject({ method: 'exact', steps: 0, rhsEvaluations: 0, errorEstimate: 0 });
+    expect(spheroidalEigenvalue({ s: 1, l: 2, m: 0, c: 0 }).diagnostics).toMatchObject({
+      method: 'exact',
+      steps: 0,
+      rhsEvaluations: 0,
+      errorEstimate: 0,
+    });
   });
 
   it('gives an errorEstimate at or above the actual difference from scipy.special.obl_cv on every fixture row (s = 0, |c| ≤ 20)', () => {
@@ -81,11 +88,23 @@ describe('the solve contract of the spheroidal solves', () => {
   });
 
   it('assembles the complex band at Im c = 0 with exactly the real band’s entries (bit-identical: both build K = A₀ − c²X² + 2csX from the same terms)', () => {
-    for (const [s, l, m, c] of [[-2, 3, 1, 4.7], [0, 4, 1, -9.3], [0.5, 2.5, -1.5, 1.1], [2, 7, -7, 20]] as const) {
+    for (const [s, l, m, c] of [
+      [-2, 3, 1, 4.7],
+      [0, 4, 1, -9.3],
+      [0.5, 2.5, -1.5, 1.1],
+      [2, 7, -7, 20],
+    ] as const) {
       const { lFirst, stride } = basisLayout(s, l, m);
       const real = buildBand(s, m, c, lFirst, stride, 30);
       const complex = buildComplexBand(s, m, c, 0, lFirst, stride, 30);
-      for (const [r, z] of [[real.d0, complex.d0r], [real.d1, complex.d1r], [real.d2, complex.d2r], [real.e0, complex.e0r], [real.e1, complex.e1r], [real.e2, complex.e2r]]) {
+      for (const [r, z] of [
+        [real.d0, complex.d0r],
+        [real.d1, complex.d1r],
+        [real.d2, complex.d2r],
+        [real.e0, complex.e0r],
+        [real.e1, complex.e1r],
+        [real.e2, complex.e2r],
+      ]) {
         expect(Array.from(z)).toEqual(Array.from(r));
       }
     }

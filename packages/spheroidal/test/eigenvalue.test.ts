@@ -1,11 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { ConvergenceError, InputError } from '@penumbra/core';
-import {
-  clearSpheroidalCache,
-  radialSeparationConstant,
-  smallCSeries,
-  spheroidalEigenvalue,
-} from '@penumbra/spheroidal';
+import { clearSpheroidalCache, radialSeparationConstant, smallCSeries, spheroidalEigenvalue } from '@penumbra/spheroidal';
 import { describe, expect, it } from 'vitest';
 import { relativeError } from './helpers.js';
 

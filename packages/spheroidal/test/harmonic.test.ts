@@ -6,7 +6,12 @@ import { gaussLegendre, legendre, relativeError } from './helpers.js';
 const spinArb = fc.constantFrom(-2, -1, -0.5, 0, 0.5, 1, 2);
 /** (s, l, m, c) with l ≤ |s| + 8 and |c| ≤ 20. */
 const modeArb = fc
-  .record({ s: spinArb, dl: fc.integer({ min: 0, max: 8 }), mFrac: fc.double({ min: 0, max: 1, noNaN: true }), c: fc.double({ min: -20, max: 20, noNaN: true }) })
+  .record({
+    s: spinArb,
+    dl: fc.integer({ min: 0, max: 8 }),
+    mFrac: fc.double({ min: 0, max: 1, noNaN: true }),
+    c: fc.double({ min: -20, max: 20, noNaN: true }),
+  })
   .map(({ s, dl, mFrac, c }) => {
     const l = Math.abs(s) + dl;
     const m = -l + Math.min(Math.floor(mFrac * (2 * l + 1)), 2 * l);
@@ -132,7 +137,13 @@ describe('spheroidalHarmonic', () => {
   });
 
   it('keeps its phase continuous along c ∈ [−20, 20]: consecutive coefficient vectors overlap positively', () => {
-    for (const [s, l, m] of [[-2, 2, 2], [-2, 4, -1], [0, 3, 1], [0.5, 2.5, -0.5], [1, 5, 0]] as const) {
+    for (const [s, l, m] of [
+      [-2, 2, 2],
+      [-2, 4, -1],
+      [0, 3, 1],
+      [0.5, 2.5, -0.5],
+      [1, 5, 0],
+    ] as const) {
       let previous: { L: Float64Array; b: Float64Array } | null = null;
       for (let k = 0; k <= 160; k++) {
         const c = -20 + 0.25 * k;

@@ -5,7 +5,9 @@ afterEach(() => vi.restoreAllMocks());
 
 test('the README example is examples/spheroidal.ts verbatim, runs, and shows A_{−2} = A_{+2} + 4 (physics notes) to 12 decimals', async () => {
   const readme = readFileSync(new URL('../README.md', import.meta.url), 'utf8');
-  expect(/```ts\n([\s\S]*?)```/.exec(readme)?.[1]).toBe(readFileSync(new URL('../examples/spheroidal.ts', import.meta.url), 'utf8'));
+  expect(/```ts\n([\s\S]*?)```/.exec(readme)?.[1]).toBe(
+    readFileSync(new URL('../examples/spheroidal.ts', import.meta.url), 'utf8'),
+  );
   const lines: string[] = [];
   vi.spyOn(console, 'log').mockImplementation((line: string) => void lines.push(line));
   await import('../examples/spheroidal.js');

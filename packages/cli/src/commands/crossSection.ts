@@ -50,7 +50,10 @@ Example:
     const spin = parseFieldSpin('--spin', requireOption(values.spin, '--spin', 'the field spin'));
     const a = parseNumber('--a', requireOption(values.a, '--a', "the hole's a/M"));
     const grid = parseRange('--omega', requireOption(values.omega, '--omega', 'the frequency Mω'), {
-      min: 0, exclusive: true, log: values.log ?? false, maxCount: 10_000,
+      min: 0,
+      exclusive: true,
+      log: values.log ?? false,
+      maxCount: 10_000,
     });
     const tol = values.tol === undefined ? 1e-6 : parseNumber('--tol', values.tol);
     const progress = progressReporter(io, 'cross-section: frequencies done', grid.count);
@@ -65,7 +68,10 @@ Example:
       csv: () => ({ columns: COLUMNS, rows: rows.map((r) => COLUMNS.map((c) => r[c.name as keyof typeof r])) }),
       text: () =>
         `absorption cross-section, s = ${spin}, a = ${a} M (σ in M²; 27π = ${formatNumber(27 * Math.PI, 6)})\n` +
-        formatTable([['Mω', 'σ/M²', 'l max', 'rel. error'], ...rows.map((r) => [formatNumber(r.omega, 6), formatNumber(r.sigma, 8), String(r.lMax), formatError(r.relError)])]),
+        formatTable([
+          ['Mω', 'σ/M²', 'l max', 'rel. error'],
+          ...rows.map((r) => [formatNumber(r.omega, 6), formatNumber(r.sigma, 8), String(r.lMax), formatError(r.relError)]),
+        ]),
     });
     return 0;
   },

@@ -40,17 +40,28 @@ Options:
     const results: { label: string; r: GreybodySolution }[] = [];
     for (const mode of DEMO_MODES) {
       for (const omega of DEMO_OMEGAS) {
-        results.push({ label: mode.label, r: greybody({ hole: { a: DEMO_A_STAR }, mode: { field: { spin: mode.spin }, l: mode.l, m: mode.m }, omega }) });
+        results.push({
+          label: mode.label,
+          r: greybody({ hole: { a: DEMO_A_STAR }, mode: { field: { spin: mode.spin }, l: mode.l, m: mode.m }, omega }),
+        });
       }
     }
     writeOutput(io, format, {
       json: () => ({ hole: backgroundJson(report), greybody: results.map(({ r }) => greybodyJson(r)) }),
       text: () =>
-        'penumbra demo hole\n' + backgroundText(report) + '\n' +
+        'penumbra demo hole\n' +
+        backgroundText(report) +
+        '\n' +
         'greybody factors (Γ < 0: superradiant amplification)\n' +
         formatTable([
           ['mode', 'Mω', 'Γ', '|Γ+R−1|', 'rel. error'],
-          ...results.map(({ label, r }) => [label, formatNumber(r.omega, 4), formatNumber(r.gamma, 9), formatError(r.residual), formatError(r.relError)]),
+          ...results.map(({ label, r }) => [
+            label,
+            formatNumber(r.omega, 4),
+            formatNumber(r.gamma, 9),
+            formatError(r.residual),
+            formatError(r.relError),
+          ]),
         ]),
     });
     return 0;

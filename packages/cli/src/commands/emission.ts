@@ -47,7 +47,8 @@ Example:
     const tol = values.tol === undefined ? 1e-6 : parseNumber('--tol', values.tol);
     const mass = values.mass === undefined ? undefined : parseNumber('--mass', values.mass, { min: 0, exclusive: true });
     const unit = parseMassUnit('--unit', values.unit ?? 'g');
-    const grid = values.omega === undefined ? undefined : parseRange('--omega', values.omega, { min: 0, exclusive: true, maxCount: 10_000 });
+    const grid =
+      values.omega === undefined ? undefined : parseRange('--omega', values.omega, { min: 0, exclusive: true, maxCount: 10_000 });
 
     let modes = 0;
     const totals = emissionTotals(
@@ -60,12 +61,21 @@ Example:
       },
     );
     const progress = grid ? progressReporter(io, 'emission spectrum: frequencies done', grid.count) : undefined;
-    const spectrum = grid ? emissionSpectrum({ hole: { a }, field: { spin: spin as FieldSpin }, grid: grid.values }, { tol, onPoint: (done) => progress?.(done) }) : undefined;
+    const spectrum = grid
+      ? emissionSpectrum(
+          { hole: { a }, field: { spin: spin as FieldSpin }, grid: grid.values },
+          { tol, onPoint: (done) => progress?.(done) },
+        )
+      : undefined;
     const pick = (x: { value: number; relError: number }) => ({ value: x.value, relError: x.relError });
     const physical =
       mass === undefined
         ? undefined
-        : toPhysicalRates({ numberRate: totals.numberRate.value, power: totals.power.value, torque: totals.torque.value }, mass, unit);
+        : toPhysicalRates(
+            { numberRate: totals.numberRate.value, power: totals.power.value, torque: totals.torque.value },
+            mass,
+            unit,
+          );
     const rows = spectrum?.points.map((p) => ({
       omega: p.omega,
       number: p.number,
@@ -89,7 +99,9 @@ Example:
         ...(rows ? { spectrum: rows } : {}),
       }),
       csv: () => (rows ? spectrumTable(rows, mass !== undefined) : totalsTable(totals, physical)),
-      text: () => `Hawking emission per degree of freedom, s = ${spin}, a = ${a} M (geometric units of M)\n` + emissionText(totals, physical, rows),
+      text: () =>
+        `Hawking emission per degree of freedom, s = ${spin}, a = ${a} M (geometric units of M)\n` +
+        emissionText(totals, physical, rows),
     });
     return 0;
   },

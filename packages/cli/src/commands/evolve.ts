@@ -24,7 +24,7 @@ const trackColumns = (unit: string): Column[] => [
 /** `penumbra evolve`. */
 export const command: Command = {
   name: 'evolve',
-  summary: 'evaporation history of a hole: lifetime and the track a*(M) from Page\'s f(a*), g(a*)',
+  summary: "evaporation history of a hole: lifetime and the track a*(M) from Page's f(a*), g(a*)",
   usage: `Usage: penumbra evolve --a A [--mass M --unit g|kg|msun] [--content LIST] [--below A1,A2,…] [--table-points N] [--json|--csv]
 
 Integrates dM/dt = −f(a*)/M², dJ/dt = −g(a*) a*/M (Page 1976) from a* = a/M.
@@ -62,16 +62,23 @@ Example:
     const unit = parseMassUnit('--unit', values.unit ?? 'g');
     const content = values.content === undefined ? undefined : values.content.split(',').map((s) => s.trim());
     if (content) resolveContent(content);
-    const below = values.below === undefined ? [0.5, 0.1] : parseNumberList('--below', values.below, { min: 0, max: 1, exclusive: true });
-    const nPrint = values.points === undefined ? 40 : parseNumber('--points', values.points, { min: 2, max: 100_000, integer: true });
+    const below =
+      values.below === undefined ? [0.5, 0.1] : parseNumberList('--below', values.below, { min: 0, max: 1, exclusive: true });
+    const nPrint =
+      values.points === undefined ? 40 : parseNumber('--points', values.points, { min: 2, max: 100_000, integer: true });
     let table: PageTable;
     if (values['table-points'] !== undefined) {
       const n = parseNumber('--table-points', values['table-points'], { min: 5, max: 2000, integer: true });
-      table = pageTable({ points: n, aMax: Math.max(0.99, aStar) }, { onPoint: (done, total) => io.stderr(`evolve: f, g table ${done}/${total}\n`) });
+      table = pageTable(
+        { points: n, aMax: Math.max(0.99, aStar) },
+        { onPoint: (done, total) => io.stderr(`evolve: f, g table ${done}/${total}\n`) },
+      );
     } else {
       table = bundledPageTable();
       if (aStar > table.aStar[table.aStar.length - 1]) {
-        throw new UsageError(`--a ${aStar} is beyond the shipped table (a* ≤ ${table.aStar[table.aStar.length - 1]}); add --table-points N`);
+        throw new UsageError(
+          `--a ${aStar} is beyond the shipped table (a* ≤ ${table.aStar[table.aStar.length - 1]}); add --table-points N`,
+        );
       }
     }
     const fns = pageFunctions({ table, content });
@@ -105,7 +112,10 @@ Example:
         `evaporation of a hole of ${formatNumber(mass, 6)} ${unit}, a* = ${aStar}\n` +
         `lifetime: ${formatNumber(result.lifetimeSeconds, 6)} s  (${formatNumber(ev.lifetime, 8)} M₀³ in Planck units)\n` +
         result.crossings.map((c) => `a* < ${c.aStar} after ${formatNumber(c.timeSeconds, 6)} s\n`).join('') +
-        formatTable([['t [s]', `M [${unit}]`, 'a*'], ...track.map((p) => [formatNumber(p.timeSeconds, 6), formatNumber(p.mass, 6), formatNumber(p.aStar, 6)])]),
+        formatTable([
+          ['t [s]', `M [${unit}]`, 'a*'],
+          ...track.map((p) => [formatNumber(p.timeSeconds, 6), formatNumber(p.mass, 6), formatNumber(p.aStar, 6)]),
+        ]),
     });
     return 0;
   },

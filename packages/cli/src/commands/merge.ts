@@ -35,7 +35,9 @@ Example:
       if (error instanceof GridError) throw new UsageError(error.message);
       throw error;
     }
-    io.stderr(`penumbra merge: ${result.chunks} chunks from ${result.sources.length} directories: ${countsText(result.summary)}; wrote ${result.files.join(', ')}\n`);
+    io.stderr(
+      `penumbra merge: ${result.chunks} chunks from ${result.sources.length} directories: ${countsText(result.summary)}; wrote ${result.files.join(', ')}\n`,
+    );
     io.stderr(failuresText(result.summary));
     return 0;
   },

@@ -28,12 +28,16 @@ Example:
   penumbra plot out/table.json --quantity gamma --spin 1 --a 0.9 --out gamma.svg
 `,
   async run(argv, io) {
-    const { values, positionals } = parseOptions(argv, {
-      out: { type: 'string' },
-      quantity: { type: 'string' },
-      spin: { type: 'string' },
-      a: { type: 'string' },
-    }, true);
+    const { values, positionals } = parseOptions(
+      argv,
+      {
+        out: { type: 'string' },
+        quantity: { type: 'string' },
+        spin: { type: 'string' },
+        a: { type: 'string' },
+      },
+      true,
+    );
     const problems: string[] = [];
     if (positionals.length !== 1) problems.push(`expected one TABLE (a directory or table.json), got ${positionals.length}`);
     if (values.out === undefined) problems.push('missing --out FIG.svg');
@@ -66,7 +70,12 @@ Example:
         }
       }
     }
-    if (problems.length) throw new UsageError(problems.length === 1 ? problems[0] : `${problems.length} problems: ${problems.map((p, i) => `(${i + 1}) ${p}`).join('; ')}`);
+    if (problems.length)
+      throw new UsageError(
+        problems.length === 1
+          ? problems[0]
+          : `${problems.length} problems: ${problems.map((p, i) => `(${i + 1}) ${p}`).join('; ')}`,
+      );
     let result: Awaited<ReturnType<typeof tableFigure>>;
     try {
       result = tableFigure(table!, { quantity, s, a });
@@ -76,7 +85,9 @@ Example:
     }
     writeFileAtomic(values.out!, await renderSvg(result.figure));
     const omitted = result.omitted ? `, ${result.omitted} failed rows left out` : '';
-    io.stderr(`penumbra plot: ${result.quantity}: ${result.series.length} series, ${result.points} points${omitted}; ${result.xLog ? 'log' : 'linear'} ω axis, ${result.yScale} y axis; wrote ${values.out}\n`);
+    io.stderr(
+      `penumbra plot: ${result.quantity}: ${result.series.length} series, ${result.points} points${omitted}; ${result.xLog ? 'log' : 'linear'} ω axis, ${result.yScale} y axis; wrote ${values.out}\n`,
+    );
     return 0;
   },
 };

@@ -47,7 +47,8 @@ Examples:
     let c: number;
     let hole: { a: number; omega: number } | undefined;
     if (values.c !== undefined) {
-      if (values.a !== undefined || values.omega !== undefined) throw new UsageError('give either --c or --a with --omega, not both');
+      if (values.a !== undefined || values.omega !== undefined)
+        throw new UsageError('give either --c or --a with --omega, not both');
       c = parseNumber('--c', values.c);
     } else {
       const a = parseNumber('--a', requireOption(values.a, '--a', "the hole's a; or give --c"));
@@ -84,7 +85,9 @@ Examples:
       if (samples && thetas) {
         lines.push('', 'θ                 S(θ)              dS/dθ');
         thetas.forEach((theta, i) => {
-          lines.push(`${formatNumber(theta, 8).padEnd(18)}${formatNumber(samples.S[i], 12).padEnd(18)}${formatNumber(samples.dS[i], 12)}`);
+          lines.push(
+            `${formatNumber(theta, 8).padEnd(18)}${formatNumber(samples.S[i], 12).padEnd(18)}${formatNumber(samples.dS[i], 12)}`,
+          );
         });
       }
       return lines.join('\n') + '\n';

@@ -1,7 +1,18 @@
 import { existsSync, readFileSync } from 'node:fs';
 import {
-  defaultWorkers, formatDuration, GridError, gridFromFlags, hasGridFlags, parseShard, progressPrinter, runGrid, runProblems,
-  validateGrid, type GridSpec, type RunSummary, type ShardSpec,
+  defaultWorkers,
+  formatDuration,
+  GridError,
+  gridFromFlags,
+  hasGridFlags,
+  parseShard,
+  progressPrinter,
+  runGrid,
+  runProblems,
+  validateGrid,
+  type GridSpec,
+  type RunSummary,
+  type ShardSpec,
 } from '@penumbra/grid';
 import { UsageError, type Command } from '../command.js';
 import { countsText, failuresText } from '../gridSummary.js';
@@ -51,31 +62,43 @@ Every problem with the grid, the directory or the options is reported at
 once, with exit code 2, before anything is written.
 `,
   async run(argv, io) {
-    const { values, positionals } = parseOptions(argv, {
-      out: { type: 'string' },
-      workers: { type: 'string' },
-      shard: { type: 'string' },
-      quiet: { type: 'boolean' },
-      spins: { type: 'string' },
-      a: { type: 'string' },
-      omega: { type: 'string' },
-      spacing: { type: 'string' },
-      l: { type: 'string' },
-      tol: { type: 'string' },
-      quantities: { type: 'string' },
-      'chunk-size': { type: 'string' },
-    }, true);
+    const { values, positionals } = parseOptions(
+      argv,
+      {
+        out: { type: 'string' },
+        workers: { type: 'string' },
+        shard: { type: 'string' },
+        quiet: { type: 'boolean' },
+        spins: { type: 'string' },
+        a: { type: 'string' },
+        omega: { type: 'string' },
+        spacing: { type: 'string' },
+        l: { type: 'string' },
+        tol: { type: 'string' },
+        quantities: { type: 'string' },
+        'chunk-size': { type: 'string' },
+      },
+      true,
+    );
     const problems: string[] = [];
     const flags = {
-      spins: values.spins, a: values.a, omega: values.omega, spacing: values.spacing, l: values.l,
-      tol: values.tol, quantities: values.quantities, chunkSize: values['chunk-size'],
+      spins: values.spins,
+      a: values.a,
+      omega: values.omega,
+      spacing: values.spacing,
+      l: values.l,
+      tol: values.tol,
+      quantities: values.quantities,
+      chunkSize: values['chunk-size'],
     };
     let raw: unknown;
     if (positionals.length > 1) problems.push(`expected one grid file, got ${positionals.length}: ${positionals.join(' ')}`);
-    if (positionals.length >= 1 && hasGridFlags(flags)) problems.push('give either GRID.json or grid options (--spins, --a, --omega, ...), not both');
+    if (positionals.length >= 1 && hasGridFlags(flags))
+      problems.push('give either GRID.json or grid options (--spins, --a, --omega, ...), not both');
     else if (positionals.length === 1) raw = readGridJson(positionals[0], problems);
     else if (hasGridFlags(flags)) raw = gridFromFlags(flags);
-    else if (positionals.length === 0) problems.push('missing the grid: give GRID.json or grid options (--spins, --a, --omega, ...)');
+    else if (positionals.length === 0)
+      problems.push('missing the grid: give GRID.json or grid options (--spins, --a, --omega, ...)');
 
     let grid: GridSpec | undefined;
     if (raw !== undefined) {
@@ -95,18 +118,28 @@ once, with exit code 2, before anything is written.
     let workers = defaultWorkers();
     if (values.workers !== undefined) {
       workers = Number(values.workers.trim() === '' ? Number.NaN : values.workers);
-      if (!(Number.isInteger(workers) && workers >= 1 && workers <= 1024)) problems.push(`--workers expects an integer from 1 to 1024, got '${values.workers}'`);
+      if (!(Number.isInteger(workers) && workers >= 1 && workers <= 1024))
+        problems.push(`--workers expects an integer from 1 to 1024, got '${values.workers}'`);
     }
     if (values.out === undefined) problems.push('missing --out DIR (the output directory)');
     else if (grid) problems.push(...runProblems({ grid, out: values.out, workers }));
-    if (problems.length) throw new UsageError(problems.length === 1 ? problems[0] : `${problems.length} problems: ${problems.map((p, i) => `(${i + 1}) ${p}`).join('; ')}`);
+    if (problems.length)
+      throw new UsageError(
+        problems.length === 1
+          ? problems[0]
+          : `${problems.length} problems: ${problems.map((p, i) => `(${i + 1}) ${p}`).join('; ')}`,
+      );
 
     const out = values.out!;
     const showProgress = !values.quiet;
     const result = await runGrid({
-      grid: grid!, out, workers, shard,
+      grid: grid!,
+      out,
+      workers,
+      shard,
       onStart: (info) => {
-        if (info.skipped > 0) io.stderr(`penumbra table: resuming in ${out}: ${info.skipped} of ${info.chunks} chunks already finished\n`);
+        if (info.skipped > 0)
+          io.stderr(`penumbra table: resuming in ${out}: ${info.skipped} of ${info.chunks} chunks already finished\n`);
       },
       onProgress: showProgress ? progressPrinter(io.stderr, Boolean(process.stderr.isTTY)) : undefined,
     });
