@@ -5,6 +5,7 @@
 //  2. growth of the cost with Mω up to 20 and with l up to 50.
 // Run with `npm run bench` (builds first). Results: bench/results/cost-<date>.json.
 import os from 'node:os';
+import { FIELD_SPINS } from '@penumbra/core';
 import { greybody } from '@penumbra/flux';
 import { clearSpheroidalCache } from '@penumbra/spheroidal';
 import { fmt, maximum, median, relDiff, table, writeResult } from './lib.mjs';
@@ -15,7 +16,7 @@ const asProblem = (x) => ({ hole: { a: x.a }, mode: { field: { spin: x.spin }, l
 const TOL = 1e-8;
 const BUDGET_SECONDS = Number(process.env.PENUMBRA_COST_BUDGET ?? 150);
 const SEED = 20240607;
-const SPINS = [0, 0.5, 1, 2];
+const SPINS = FIELD_SPINS;
 const SPIN_PARAMETERS = [0, 0.7, 0.99];
 const OMEGAS = Array.from({ length: 40 }, (_, i) => 0.01 * Math.pow(300, i / 39));
 

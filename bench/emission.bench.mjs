@@ -9,6 +9,7 @@
 import { Worker, isMainThread, parentPort } from 'node:worker_threads';
 import { fileURLToPath } from 'node:url';
 import os from 'node:os';
+import { FIELD_SPINS } from '@penumbra/core';
 
 if (!isMainThread) {
   const { emissionTotals } = await import('@penumbra/emission');
@@ -94,9 +95,9 @@ if (!isMainThread) {
     );
     const tasks = [];
     for (let i = tablePoints - 1; i >= 0; i--)
-      for (const spin of [0, 0.5, 1, 2]) tasks.push({ spin, a: aStar[i], tol: tableTol, i });
+      for (const spin of FIELD_SPINS) tasks.push({ spin, a: aStar[i], tol: tableTol, i });
     const res = await pool(tasks, 'f, g table');
-    const spins = [0, 0.5, 1, 2].map((spin) => {
+    const spins = FIELD_SPINS.map((spin) => {
       const get = (i) => res.results.find((r) => r.i === i && r.spin === spin);
       const torqueOverA = aStar.map((a, i) => (i === 0 ? NaN : get(i).torque.value / a));
       const torqueOverAError = aStar.map((a, i) => (i === 0 ? NaN : get(i).torque.absError / a));

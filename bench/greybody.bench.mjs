@@ -5,6 +5,7 @@
 // Times: process CPU time (immune to preemption on a shared machine) and wall time.
 // Run with `npm run bench` (builds first). Results: bench/results/greybody-<date>.json.
 import os from 'node:os';
+import { FIELD_SPINS } from '@penumbra/core';
 import { greybody } from '@penumbra/flux';
 import { schwarzschildGreybody } from '@penumbra/regge-wheeler';
 import { clearSpheroidalCache, spheroidalEigenvalue } from '@penumbra/spheroidal';
@@ -17,7 +18,7 @@ const TOL = 1e-8; // penumbra's default tolerance, and the peer's requested accu
 const REFERENCE_TOL = 1e-12;
 // Both sides: each mode timed this many times, the median kept (shared machines see load spikes).
 const TIMING_REPEATS = 3;
-const SPINS = [0, 0.5, 1, 2];
+const SPINS = FIELD_SPINS;
 const SPIN_PARAMETERS = [0, 0.7, 0.99];
 const OMEGAS = [0.05, 0.3, 0.8, 2];
 // Peer at the requested accuracy (rtol = tol) and tightened until its accuracy

@@ -1,7 +1,7 @@
 // Number and label formatting for the validation report: one formatter for
 // every section, so a number reads the same wherever it appears; spins are
 // written by the project's own formatFieldSpin.
-import { formatFieldSpin } from '@penumbra/core';
+import { FIELD_SPINS, formatFieldSpin } from '@penumbra/core';
 
 /** `digits` significant figures; exponent form outside [1e-3, 1e6). */
 export function sig(x, digits = 6) {
@@ -28,7 +28,7 @@ export function mdTable(header, rows) {
 }
 
 /** The field spins the report covers. */
-export const SPINS = [0, 0.5, 1, 2];
+export const SPINS = FIELD_SPINS;
 
 /** A field's name in words with its spin. */
 export const spinName = { 0: 'scalar (s = 0)', 0.5: 'neutrino (s = 1/2)', 1: 'photon (s = 1)', 2: 'graviton (s = 2)' };

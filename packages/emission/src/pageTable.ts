@@ -10,6 +10,7 @@
  * g0 + g2 a*².
  */
 import {
+  FIELD_SPINS,
   InputError,
   MAX_SOLVER_A_RATIO,
   isFunction,
@@ -78,7 +79,7 @@ export interface PageTableSolution extends PageTable {
 }
 
 const OPTIONS = { tol: validateTolerance, onPoint: isFunction<(done: number, total: number) => void> };
-const ALL_SPINS: readonly FieldSpin[] = [0, 0.5, 1, 2];
+const ALL_SPINS: readonly FieldSpin[] = FIELD_SPINS;
 
 function checkSpins(spins: unknown): FieldSpin[] {
   if (!Array.isArray(spins) || spins.length === 0)
