@@ -1,4 +1,4 @@
-/** What the two routes return. */
+/** What the two routes return (a failure throws; `attempt` from core turns that into a status). */
 import type { RadialDiagnostics } from './diagnostics.js';
 
 /** A complex number { re, im }. */
@@ -21,8 +21,6 @@ export interface RadialSample {
 
 /** Result of `solveRadial`: the ingoing-at-horizon solution's amplitudes at infinity. */
 export interface RadialSolution {
-  /** always 'success': failures throw */
-  status: 'success';
   /** Z_in relative to a horizon amplitude of 1; true value = zIn · e^{logScale} */
   zIn: Complex2;
   /** Z_out, scaled like zIn */
@@ -43,8 +41,6 @@ export interface RadialSolution {
 
 /** Result of `solveTwoSided` (s > 0): amplitudes of the +s and −s solutions, each read where it dominates. */
 export interface TwoSidedSolution {
-  /** always 'success': failures throw */
-  status: 'success';
   /** ln|Z_in| of the +|s| solution normalised to Δ^{−s} e^{−ikr*} at the horizon */
   logAbsZInPlus: number;
   /** ln|Z_out| of the same solution (loses digits like (ωr)^{2s}; for diagnostics) */

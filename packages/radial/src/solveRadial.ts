@@ -78,7 +78,6 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
     amplification,
   });
   return {
-    status: 'success',
     zIn,
     zOut,
     logScale: seg.logScale,

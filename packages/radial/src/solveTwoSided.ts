@@ -137,7 +137,6 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   const steps = segMinus.steps + segPlus.steps;
   const errorEstimate = singleSolveErrorEstimate({ steps, tol: opts.tol, horizonTruncation, farTruncation, amplification: 1 });
   return {
-    status: 'success',
     logAbsZInPlus: logAbs(amp.zIn) + segPlus.logScale - logH,
     logAbsZOutPlus: logAbs(amp.zOut) + segPlus.logScale - logH,
     logAbsYOutMinus: logAbs(minusAmps.zOut) + segMinus.logScale,
