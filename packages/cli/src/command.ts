@@ -8,7 +8,9 @@
 
 /** Where a command writes. Each call writes the text as given (include the trailing newline). */
 export interface CliIO {
+  /** Write results (the command's output proper). */
   stdout(text: string): void;
+  /** Write errors, progress and notices, kept apart from results so stdout stays machine-readable. */
   stderr(text: string): void;
 }
 
@@ -26,8 +28,11 @@ export interface Command {
 
 /** A registry entry: what `penumbra --help` lists, and how to load the command only when it is called. */
 export interface CommandEntry {
+  /** the word after `penumbra` (the same as the loaded command's name) */
   name: string;
+  /** one line for the command list of `penumbra --help` */
   summary: string;
+  /** Import the command's module; called only when the command is run or its help is asked for. */
   load(): Promise<{ command: Command }>;
 }
 

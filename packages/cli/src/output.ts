@@ -24,7 +24,9 @@ export function outputFormat(values: { json?: boolean; csv?: boolean }): OutputF
 
 /** How a command's result looks in each format; only the chosen one is built. */
 export interface Output {
+  /** Build the text output (the default format). */
   text(): string;
+  /** Build the value written as the `--json` document. */
   json(): unknown;
   /** required when the command accepts --csv */
   csv?(): Table;

@@ -24,6 +24,7 @@ export interface Diagnostics {
 /** Outcome of a solve that does not throw. */
 export type Status = 'success' | 'not-converged' | 'invalid-input';
 
+/** A solve's outcome as a value: its solution `S`, or the error it threw, with a one-line message. */
 export type Attempt<S> =
   | { status: 'success'; solution: S; message: string }
   | { status: 'not-converged'; error: ConvergenceError; message: string }

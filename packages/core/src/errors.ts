@@ -8,6 +8,7 @@
  */
 import type { Diagnostics } from './diagnostics.js';
 
+/** A caller-given `parameter` outside its `allowed` range; `value` is what was given. */
 export class InputError extends Error {
   override readonly name = 'InputError';
   constructor(
@@ -20,6 +21,7 @@ export class InputError extends Error {
   }
 }
 
+/** A computation that did not reach its requested accuracy; `diagnostics` says how far it got. */
 export class ConvergenceError<D extends Diagnostics = Diagnostics> extends Error {
   override readonly name = 'ConvergenceError';
   constructor(

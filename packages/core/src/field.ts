@@ -11,6 +11,7 @@ import { InputError } from './errors.js';
 
 /** Field spins penumbra computes, in one list. */
 export const FIELD_SPINS = [0, 0.5, 1, 2] as const;
+/** A field spin as a number: 0, 0.5, 1 or 2. */
 export type FieldSpin = (typeof FIELD_SPINS)[number];
 
 /** A field spin as a caller may write it: a number, or the text '0', '1/2', '1', '2'. */
@@ -18,8 +19,10 @@ export type FieldSpinInput = FieldSpin | '0' | '1/2' | '1' | '2';
 
 /** Signed spin weights of the Teukolsky equations (s = ±spin). */
 export const SPIN_WEIGHTS = [-2, -1, -0.5, 0, 0.5, 1, 2] as const;
+/** A signed spin weight s of one Teukolsky equation. */
 export type SpinWeight = (typeof SPIN_WEIGHTS)[number];
 
+/** What propagates on the hole; today a massless field, given by its spin. */
 export interface Field {
   /** field spin 0, 1/2, 1 or 2 ('1/2' accepted) */
   readonly spin: FieldSpinInput;

@@ -5,10 +5,13 @@
  */
 import { InputError, requireFinite } from './errors.js';
 
+/** Largest number of points a grid may have, so a typo cannot start unbounded work. */
 export const MAX_GRID_POINTS = 1_000_000;
 
+/** Spacing of a generated grid: equal steps, or equal ratios. */
 export type GridSpacing = 'linear' | 'log';
 
+/** A frequency grid: `count` points from `from` to `to` with a spacing, or an explicit list of values. */
 export type FrequencyGrid = { spacing: GridSpacing; from: number; to: number; count: number } | { values: readonly number[] };
 
 function checkCount(count: unknown, parameter: string): number {

@@ -5,6 +5,7 @@
  */
 import { InputError, requireFinite } from './errors.js';
 
+/** A Kerr hole as a caller gives it: spin parameter a and mass M (geometric units). */
 export interface Hole {
   /** spin parameter a = J/M in the units of `mass`, |a| < M */
   readonly a: number;

@@ -17,6 +17,7 @@
 import type { Diagnostics } from './diagnostics.js';
 import { ConvergenceError } from './errors.js';
 
+/** When a sum over l-shells may stop, and when it has failed to converge. */
 export interface LShellRule {
   /** geometric-optics cut: shells with l ≤ lCut never end the sum */
   lCut: number;
@@ -35,8 +36,11 @@ export interface LShellRule {
   context?: () => Partial<Diagnostics> & Record<string, unknown>;
 }
 
+/** A converged sum over l-shells, with its tail bound. */
 export interface LShellSum {
+  /** sum of the shells summed */
   total: number;
+  /** each shell's l and its sum over m */
   shells: { l: number; sum: number }[];
   /** largest l summed */
   lMax: number;

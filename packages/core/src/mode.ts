@@ -5,6 +5,7 @@
 import { InputError, requireFinite } from './errors.js';
 import { validateField, type Field, type FieldSpin } from './field.js';
 
+/** A field with its angular numbers l and m. */
 export interface Mode {
   readonly field: Field;
   readonly l: number;

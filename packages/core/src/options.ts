@@ -41,11 +41,16 @@ export function oneOf<T extends string>(allowed: readonly T[]): (value: unknown,
   };
 }
 
+/** A validator accepting only true or false. */
 export function isBoolean(value: unknown, parameter: string): boolean {
   if (typeof value !== 'boolean') throw new InputError(parameter, 'true or false', value);
   return value;
 }
 
+/**
+ * A validator accepting any function (its arguments are not checked).
+ * @typeParam F the function type the caller expects
+ */
 export function isFunction<F extends (...args: never[]) => unknown>(value: unknown, parameter: string): F {
   if (typeof value !== 'function') throw new InputError(parameter, 'a function', value);
   return value as F;

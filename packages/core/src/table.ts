@@ -12,8 +12,10 @@ export interface Column {
   readonly description?: string;
 }
 
+/** One value of a table row; null is an empty cell. */
 export type Cell = number | string | boolean | null;
 
+/** Named columns with units, and rows with one cell per column. */
 export interface Table {
   readonly columns: readonly Column[];
   readonly rows: readonly (readonly Cell[])[];

@@ -18,7 +18,9 @@ export interface PageFunctionsProblem {
 
 /** f(a*) and g(a*) of a content, with their error estimates. */
 export interface PageFunctions {
+  /** mass-loss rate f(a*) = −M² dM/dt, interpolated, dimensionless (G = c = ħ = 1) */
   f: (aStar: number) => number;
+  /** spin-loss rate g(a*) = −(M/a*) dJ/dt, interpolated, dimensionless (G = c = ħ = 1) */
   g: (aStar: number) => number;
   /** largest a* of the table */
   aMax: number;

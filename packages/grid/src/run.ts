@@ -35,6 +35,7 @@ export interface RunOptions {
   /** worker threads (default: every core); 0 computes in this thread, without a pool */
   workers?: number;
   shard?: ShardSpec;
+  /** called after each task completes, with the progress of the run so far */
   onProgress?: (p: Progress) => void;
   /** called once before work starts */
   onStart?: (info: { chunks: number; skipped: number; pending: number; tasks: number }) => void;

@@ -305,6 +305,7 @@ export interface NearRegion {
   cR: number;
 }
 
+/** The near-region temperatures T_L, T_R (dimensionless) and central charges c_L = c_R = 12 J of a hole; an InputError at a = 0. */
 export function nearRegion(hole: KerrHole): NearRegion {
   requireKerrHole(hole);
   if (hole.a === 0) throw new InputError('a', 'a ≠ 0 (the near-region temperatures diverge at a = 0)', hole.a);

@@ -2,8 +2,11 @@
 import { requireKerrHole, type KerrHole } from './kerr.js';
 import { CODATA2018, massToKg, unitScales, type MassUnit } from './units.js';
 
+/** A hole's mass, temperature, horizon and time scale in SI (and GeV) units. */
 export interface PhysicalBackground {
+  /** mass in kilograms */
   massKg: number;
+  /** mass in grams */
   massGrams: number;
   /** Hawking temperature in kelvin */
   temperatureK: number;

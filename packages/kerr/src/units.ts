@@ -69,6 +69,7 @@ export interface UnitScales {
   kelvin: number;
 }
 
+/** The SI scale factors for a hole of mass `massKg` (kilograms, finite and > 0). */
 export function unitScales(massKg: number): UnitScales {
   const { c, G, hbar, kB, eV } = CODATA2018;
   if (!(massKg > 0) || !Number.isFinite(massKg)) throw new InputError('mass', 'a finite number > 0', massKg);
