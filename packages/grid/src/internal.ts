@@ -18,7 +18,10 @@ export {
   chunkText,
   writeChunk,
   readChunk,
+  inspectChunk,
+  chunkPath,
+  type ChunkRead,
 } from './store.js';
 export { TABLE_JSON, tableCsv, writeTables } from './tables.js';
-export { WORKER_FILE, taskMessage, runFileName } from './run.js';
+export { WORKER_FILE, taskMessage, runFileName, computeChunks } from './run.js';
 export { plotView } from './plotView.js';
