@@ -91,7 +91,9 @@ describe('resuming a run killed part-way while tasks finish out of order', () =>
       await expect(killed).rejects.toThrow('killed');
       expect(done.size).toBe(killAfter);
 
-      const complete = chunks.filter((c) => Array.from({ length: c.end - c.first }, (_, i) => c.first + i).every((i) => done.has(i)));
+      const complete = chunks.filter((c) =>
+        Array.from({ length: c.end - c.first }, (_, i) => c.first + i).every((i) => done.has(i)),
+      );
       for (const c of chunks) expect(existsSync(chunkPath(out, c.index)), `chunk ${c.index}`).toBe(complete.includes(c));
       expect(existsSync(join(out, 'modes.csv'))).toBe(false);
 
