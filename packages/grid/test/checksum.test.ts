@@ -92,4 +92,19 @@ describe('chunk checksums', () => {
       expect(tableFiles(dir)).toEqual(tableFiles(reference));
     });
   }
+
+  test('a chunk of format 2 (no checksum) is not corrupt but older: resume recomputes it without a corrupt notice; merge refuses it naming the file and its format', async () => {
+    const dir = damagedCopy('format 2', (t) =>
+      t.replace('penumbra-grid-chunk/3', 'penumbra-grid-chunk/2').replace(/,"sha256":"[0-9a-f]{64}"\}\n$/, '}\n'),
+    );
+    expect(inspectChunk(dir, grid, chunk)).toMatchObject({ status: 'old', format: 'penumbra-grid-chunk/2' });
+    expect(() => mergeRuns([dir], join(work, 'merged-format-2'))).toThrow(
+      `${chunkPath(dir, chunk.index)} is an older chunk format (penumbra-grid-chunk/2)`,
+    );
+    const corrupt: string[] = [];
+    const resumed = await runGrid({ grid, out: dir, workers: 0, onCorruptChunk: ({ path }) => corrupt.push(path) });
+    expect(corrupt).toEqual([]);
+    expect(resumed.tasksComputed).toBe(chunk.end - chunk.first);
+    expect(tableFiles(dir)).toEqual(tableFiles(reference));
+  });
 });
