@@ -23,5 +23,5 @@ export {
   type ChunkRead,
 } from './store.js';
 export { TABLE_JSON, tableCsv, writeTables } from './tables.js';
-export { WORKER_FILE, taskMessage, runFileName, computeChunks } from './run.js';
+export { WORKER_FILE, taskMessage, runFileName } from './run.js';
 export { plotView } from './plotView.js';

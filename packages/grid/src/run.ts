@@ -228,10 +228,13 @@ const IN_FLIGHT_PER_WORKER = 2;
 
 /** How computeChunks starts tasks and reports finished ones. */
 interface ChunkCallbacks {
+  /** starts task `task` (its grid index) */
   start: (task: number) => Promise<TaskResult>;
   /** called once per chunk, as soon as every task of it has finished, in whatever order they finished */
   chunkDone: (chunk: GridChunk, results: TaskResult[]) => void;
+  /** called after each finished task (after `chunkDone` if it completed its chunk) */
   taskDone: (chunk: GridChunk) => void;
+  /** stops new work once aborted */
   signal: AbortSignal | undefined;
 }
 
@@ -241,7 +244,7 @@ interface ChunkCallbacks {
  * to `chunkDone` the moment its last task finishes. The first failure or an
  * abort stops new work; tasks still running are awaited but their results dropped.
  */
-export function computeChunks(chunks: readonly GridChunk[], window: number, on: ChunkCallbacks): Promise<void> {
+function computeChunks(chunks: readonly GridChunk[], window: number, on: ChunkCallbacks): Promise<void> {
   const queue: { chunk: GridChunk; slot: number; results: TaskResult[]; left: { n: number } }[] = [];
   for (const chunk of chunks) {
     const results = new Array<TaskResult>(chunk.end - chunk.first);
