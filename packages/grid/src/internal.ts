@@ -18,6 +18,9 @@ export {
   chunkText,
   writeChunk,
   readChunk,
+  inspectChunk,
+  chunkPath,
+  type ChunkRead,
 } from './store.js';
 export { TABLE_JSON, tableCsv, writeTables } from './tables.js';
 export { WORKER_FILE, taskMessage, runFileName } from './run.js';

@@ -3,11 +3,11 @@
  * duplicated chunks byte-identical. The result is the directory a single
  * run would have written (apart from its run.json timing file).
  */
-import { existsSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { canonicalGridJson, GridError, gridHash, type GridSpec } from './grid.js';
 import { writeFileAtomic } from './files.js';
-import { CHUNK_DIR, chunkFileName, GRID_FILE, initOutputDir, outputDirProblems, readChunk, readGridFile } from './store.js';
+import { CHUNK_DIR, chunkFileName, GRID_FILE, initOutputDir, inspectChunk, outputDirProblems, readGridFile } from './store.js';
 import { assembleTables, writeTables, type TableSummary } from './tables.js';
 import type { TaskResult } from './compute.js';
 import { gridChunks } from './tasks.js';
@@ -52,15 +52,21 @@ export function mergeRuns(sources: readonly string[], out: string): MergeSummary
   const missing: number[] = [];
   for (const chunk of chunks) {
     let pick: (typeof chosen)[number] | undefined;
+    let found = false;
     for (const dir of sources) {
-      const file = readChunk(dir, grid, chunk);
-      if (!file) continue;
-      const text = readFileSync(join(dir, CHUNK_DIR, chunkFileName(chunk.index)), 'utf8');
+      const read = inspectChunk(dir, grid, chunk);
+      if (read.status !== 'missing') found = true;
+      if (read.status === 'corrupt')
+        problems.push(`${read.path} is corrupt (${read.problem}); rerun 'penumbra table' on ${dir} to recompute it`);
+      if (read.status === 'old')
+        problems.push(`${read.path} is an older chunk format (${read.format}); rerun 'penumbra table' on ${dir} to recompute it`);
+      if (read.status !== 'ok') continue;
+      const { text, file } = read;
       if (!pick) pick = { source: dir, text, results: file.results };
       else if (pick.text !== text) problems.push(`chunk ${chunk.index} differs between ${pick.source} and ${dir}`);
     }
     if (pick) chosen.push(pick);
-    else missing.push(chunk.index);
+    else if (!found) missing.push(chunk.index);
   }
   if (missing.length) {
     const list = missing.length > 12 ? `${missing.slice(0, 12).join(', ')}, … (${missing.length} in all)` : missing.join(', ');

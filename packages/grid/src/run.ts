@@ -10,7 +10,7 @@ import { fileURLToPath } from 'node:url';
 import { computeTask, type TaskMessage, type TaskResult } from './compute.js';
 import { GridError, gridHash, type GridSpec } from './grid.js';
 import { writeFileAtomic } from './files.js';
-import { initOutputDir, outputDirProblems, readChunk, writeChunk } from './store.js';
+import { initOutputDir, inspectChunk, outputDirProblems, readChunk, writeChunk } from './store.js';
 import { assembleTables, writeTables, type TableSummary } from './tables.js';
 import { gridChunks, gridTasks, shardChunks, type GridChunk, type GridTask, type ShardSpec } from './tasks.js';
 
@@ -39,6 +39,12 @@ export interface RunOptions {
   onProgress?: (p: Progress) => void;
   /** called once before work starts */
   onStart?: (info: { chunks: number; skipped: number; pending: number; tasks: number }) => void;
+  /** called for each chunk file found corrupt, before it is recomputed */
+  onCorruptChunk?: (info: { path: string; problem: string }) => void;
+  /** stops the run: no task is started and no chunk written after it fires; runGrid then rejects */
+  signal?: AbortSignal;
+  /** computes one task instead of the worker pool (tests use it to finish tasks out of order) */
+  compute?: (message: TaskMessage) => Promise<TaskResult>;
 }
 
 /** What a run did. */
@@ -49,6 +55,8 @@ export interface RunSummary {
   chunksInShard: number;
   chunksSkipped: number;
   chunksComputed: number;
+  /** chunk files of this shard that failed verification and were recomputed */
+  chunksCorrupt: number;
   tasksComputed: number;
   /** every chunk of the grid is in the directory and the tables were written */
   complete: boolean;
@@ -106,7 +114,15 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
   const chunks = gridChunks(grid, tasks);
   const mine = shardChunks(chunks, shard).map((i) => chunks[i]);
   initOutputDir(out, grid);
-  const pending = mine.filter((c) => readChunk(out, grid, c) === undefined);
+  let corrupt = 0;
+  const pending = mine.filter((c) => {
+    const read = inspectChunk(out, grid, c);
+    if (read.status === 'corrupt') {
+      corrupt++;
+      options.onCorruptChunk?.({ path: read.path, problem: read.problem });
+    }
+    return read.status !== 'ok';
+  });
   const pendingTasks = pending.reduce((n, c) => n + c.end - c.first, 0);
   options.onStart?.({ chunks: mine.length, skipped: mine.length - pending.length, pending: pending.length, tasks: pendingTasks });
 
@@ -128,7 +144,7 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
   };
 
   const pool =
-    workers > 0 && pending.length > 0
+    !options.compute && workers > 0 && pending.length > 0
       ? new (await loadPiscina())<TaskMessage, TaskResult>({
           filename: WORKER_FILE,
           minThreads: workers,
@@ -136,26 +152,16 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
           idleTimeout: 60_000,
         })
       : undefined;
-  const compute = (m: TaskMessage): Promise<TaskResult> =>
-    pool ? pool.run(m) : new Promise((ok) => setImmediate(() => ok(computeTask(m))));
-  const chunkCost = (c: GridChunk) => c.cost / Math.max(1, c.end - c.first);
+  const compute =
+    options.compute ??
+    ((m: TaskMessage): Promise<TaskResult> => (pool ? pool.run(m) : new Promise((ok) => setImmediate(() => ok(computeTask(m))))));
   try {
-    // All tasks are queued at once in chunk order; the FIFO queue finishes chunks roughly in order.
-    await Promise.all(
-      pending.map(async (chunk) => {
-        const jobs: Promise<TaskResult>[] = [];
-        for (let i = chunk.first; i < chunk.end; i++) {
-          jobs.push(
-            compute(taskMessage(grid, tasks[i])).then((r) => {
-              report(chunkCost(chunk));
-              return r;
-            }),
-          );
-        }
-        const results = await Promise.all(jobs);
-        writeChunk(out, grid, chunk, results);
-      }),
-    );
+    await computeChunks(pending, Math.max(1, workers) * IN_FLIGHT_PER_WORKER, {
+      start: (i) => compute(taskMessage(grid, tasks[i])),
+      chunkDone: (chunk, results) => writeChunk(out, grid, chunk, results),
+      taskDone: (chunk) => report(chunk.cost / Math.max(1, chunk.end - chunk.first)),
+      signal: options.signal,
+    });
   } finally {
     await pool?.destroy();
   }
@@ -183,6 +189,7 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
     chunksInShard: mine.length,
     chunksSkipped: mine.length - pending.length,
     chunksComputed: pending.length,
+    chunksCorrupt: corrupt,
     tasksComputed: pendingTasks,
     complete: missing === 0,
     missingChunks: missing,
@@ -201,6 +208,7 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
         shard: `${shard.k}/${shard.n}`,
         chunksSkipped: result.chunksSkipped,
         chunksComputed: result.chunksComputed,
+        chunksCorrupt: corrupt,
         tasksComputed: pendingTasks,
         tasksPerSecond: seconds > 0 ? pendingTasks / seconds : null,
         node: process.version,
@@ -210,6 +218,91 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
     ) + '\n',
   );
   return result;
+}
+
+/**
+ * Tasks handed to the pool ahead of the free workers: enough to keep every
+ * worker busy, few enough that tasks finish close to task order, so chunks
+ * complete (and are written) steadily instead of all near the end.
+ */
+const IN_FLIGHT_PER_WORKER = 2;
+
+/** How computeChunks starts tasks and reports finished ones. */
+interface ChunkCallbacks {
+  /** starts task `task` (its grid index) */
+  start: (task: number) => Promise<TaskResult>;
+  /** called once per chunk, as soon as every task of it has finished, in whatever order they finished */
+  chunkDone: (chunk: GridChunk, results: TaskResult[]) => void;
+  /** called after each finished task (after `chunkDone` if it completed its chunk) */
+  taskDone: (chunk: GridChunk) => void;
+  /** stops new work once aborted */
+  signal: AbortSignal | undefined;
+}
+
+/**
+ * Runs the tasks of `chunks` in task order with at most `window` in flight,
+ * keeping per chunk the count of tasks still running, so each chunk is handed
+ * to `chunkDone` the moment its last task finishes. The first failure or an
+ * abort stops new work; tasks still running are awaited but their results dropped.
+ */
+function computeChunks(chunks: readonly GridChunk[], window: number, on: ChunkCallbacks): Promise<void> {
+  const queue: { chunk: GridChunk; slot: number; results: TaskResult[]; left: { n: number } }[] = [];
+  for (const chunk of chunks) {
+    const results = new Array<TaskResult>(chunk.end - chunk.first);
+    const left = { n: chunk.end - chunk.first };
+    for (let slot = 0; slot < results.length; slot++) queue.push({ chunk, slot, results, left });
+  }
+  return new Promise<void>((resolve, reject) => {
+    let next = 0;
+    let running = 0;
+    let failure: unknown;
+    const stopped = () => failure !== undefined || on.signal?.aborted === true;
+    const settle = () => {
+      if (running > 0) return;
+      if (failure !== undefined) reject(failure);
+      else if (on.signal?.aborted) reject(abortReason(on.signal));
+      else if (next >= queue.length) resolve();
+    };
+    const pump = () => {
+      while (!stopped() && running < window && next < queue.length) {
+        const item = queue[next++];
+        running++;
+        let started: Promise<TaskResult>;
+        try {
+          started = on.start(item.chunk.first + item.slot);
+        } catch (error) {
+          started = Promise.reject(error);
+        }
+        started.then(
+          (result) => {
+            running--;
+            if (!stopped()) {
+              try {
+                item.results[item.slot] = result;
+                if (--item.left.n === 0) on.chunkDone(item.chunk, item.results);
+                on.taskDone(item.chunk);
+              } catch (error) {
+                failure ??= error;
+              }
+            }
+            pump();
+            settle();
+          },
+          (error) => {
+            running--;
+            failure ??= error ?? new Error('a task failed');
+            settle();
+          },
+        );
+      }
+      settle();
+    };
+    pump();
+  });
+}
+
+function abortReason(signal: AbortSignal): unknown {
+  return signal.reason ?? new Error('the run was aborted');
 }
 
 /** The pool library, loaded only by a run that computes (not by merges, plots or a package import). */

@@ -2,13 +2,15 @@
  * The output directory of a grid run:
  *
  *   grid.json              the validated grid (its identity)
- *   chunks/chunk-NNNNNN.json  finished chunks, each written atomically
+ *   chunks/chunk-NNNNNN.json  finished chunks, each written atomically and closed by a checksum
  *   modes.csv, cross-section.csv, spectra.csv, table.json
  *                          the assembled tables (tables.ts), written once every chunk exists
  *   run.json / run-shard-K-of-N.json   timing and worker counts (never compared)
  */
 import { accessSync, constants, existsSync, mkdirSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
+import { sha256 } from '@noble/hashes/sha2.js';
+import { bytesToHex, utf8ToBytes } from '@noble/hashes/utils.js';
 import { canonicalGridJson, GridError, gridHash, validateGrid, type GridSpec } from './grid.js';
 import type { TaskResult } from './compute.js';
 import { removeStaleTemporaries, writeFileAtomic } from './files.js';
@@ -21,8 +23,13 @@ export const CHUNK_DIR = 'chunks';
 /** Written since the grid key `holeSpins` became `holeA`; format 1 files are still read. */
 const GRID_FORMAT = 'penumbra-grid/2';
 const READ_GRID_FORMATS = ['penumbra-grid/1', GRID_FORMAT];
-/** Chunk rows are keyed by column name (`spin`, `status`, `message`, …); older chunks are recomputed. */
-const CHUNK_FORMAT = 'penumbra-grid-chunk/2';
+/**
+ * Chunk rows are keyed by column name (`spin`, `status`, `message`, …) and the
+ * file ends in a sha256 of everything before it; older chunks are recomputed.
+ */
+const CHUNK_FORMAT = 'penumbra-grid-chunk/3';
+/** The checksum closes the file: `…,"sha256":"<64 hex digits>"}` and a newline. */
+const CHECKSUM_TAIL = /,"sha256":"([0-9a-f]{64})"\}\n$/;
 
 /** The text of grid.json. */
 export function gridFileText(grid: GridSpec): string {
@@ -112,44 +119,100 @@ export interface ChunkFile {
   chunk: number;
   tasks: [number, number];
   results: TaskResult[];
+  /** sha256 (hex) of the file text before the `"sha256"` key */
+  sha256: string;
 }
 
-/** The text of a chunk file. */
+/** The text of a chunk file: its JSON on one line, closed by the sha256 of the text before the checksum key. */
 export function chunkText(grid: GridSpec, chunk: GridChunk, results: TaskResult[]): string {
-  const file: ChunkFile = {
+  const body = JSON.stringify({
     format: CHUNK_FORMAT,
     gridHash: gridHash(grid),
     chunk: chunk.index,
     tasks: [chunk.first, chunk.end],
     results,
-  };
-  return JSON.stringify(file) + '\n';
+  }).slice(0, -1);
+  return `${body},"sha256":"${chunkChecksum(body)}"}\n`;
+}
+
+function chunkChecksum(body: string): string {
+  return bytesToHex(sha256(utf8ToBytes(body)));
 }
 
 /** Writes a finished chunk atomically. */
 export function writeChunk(dir: string, grid: GridSpec, chunk: GridChunk, results: TaskResult[]): void {
-  writeFileAtomic(join(dir, CHUNK_DIR, chunkFileName(chunk.index)), chunkText(grid, chunk, results));
+  writeFileAtomic(chunkPath(dir, chunk.index), chunkText(grid, chunk, results));
 }
 
-/** A finished chunk, or undefined if the file is missing or does not belong to this grid, chunk and format. */
-export function readChunk(dir: string, grid: GridSpec, chunk: GridChunk): ChunkFile | undefined {
-  const path = join(dir, CHUNK_DIR, chunkFileName(chunk.index));
-  if (!existsSync(path)) return undefined;
+/** The path of chunk `index` in run directory `dir`. */
+export const chunkPath = (dir: string, index: number) => join(dir, CHUNK_DIR, chunkFileName(index));
+
+/**
+ * What a chunk file holds: `missing` (no file), `old` (a readable chunk of an
+ * older format, recomputed on resume), `corrupt` (fails its checksum, is cut
+ * short, or belongs to another grid or chunk: `problem` says which), or `ok`
+ * with the parsed file and its exact text.
+ */
+export type ChunkRead =
+  | { status: 'missing'; path: string }
+  | { status: 'old'; path: string; format: string }
+  | { status: 'corrupt'; path: string; problem: string }
+  | { status: 'ok'; path: string; file: ChunkFile; text: string };
+
+/** Reads and verifies chunk `chunk` of `grid` in `dir` (see ChunkRead). */
+export function inspectChunk(dir: string, grid: GridSpec, chunk: GridChunk): ChunkRead {
+  const path = chunkPath(dir, chunk.index);
+  if (!existsSync(path)) return { status: 'missing', path };
+  let text: string;
   try {
-    const file = JSON.parse(readFileSync(path, 'utf8')) as ChunkFile;
-    const ok =
-      file.format === CHUNK_FORMAT &&
-      file.gridHash === gridHash(grid) &&
-      file.chunk === chunk.index &&
-      file.tasks?.[0] === chunk.first &&
-      file.tasks?.[1] === chunk.end &&
-      Array.isArray(file.results) &&
-      file.results.length === chunk.end - chunk.first &&
-      file.results.every((r, i) => r.index === chunk.first + i);
-    return ok ? file : undefined;
+    text = readFileSync(path, 'utf8');
+  } catch (error) {
+    return { status: 'corrupt', path, problem: `unreadable (${(error as Error).message})` };
+  }
+  const corrupt = (problem: string): ChunkRead => ({ status: 'corrupt', path, problem });
+  const tail = CHECKSUM_TAIL.exec(text);
+  if (!tail) {
+    // A whole chunk of an older format (no checksum) is recomputed, not an error.
+    const format = oldChunkFormat(text);
+    if (format) return { status: 'old', path, format };
+    return corrupt(text.endsWith('\n') ? 'no checksum at its end' : 'cut short (no trailing newline)');
+  }
+  const body = text.slice(0, tail.index);
+  if (chunkChecksum(body) !== tail[1]) return corrupt('its sha256 checksum does not match its content');
+  let file: ChunkFile;
+  try {
+    file = JSON.parse(`${body}}`) as ChunkFile;
+  } catch {
+    return corrupt('not valid JSON');
+  }
+  if (file.format !== CHUNK_FORMAT) return corrupt(`unknown format ${JSON.stringify(file.format)}`);
+  if (file.gridHash !== gridHash(grid)) return corrupt(`belongs to grid ${file.gridHash}, not ${gridHash(grid)}`);
+  const shaped =
+    file.chunk === chunk.index &&
+    file.tasks?.[0] === chunk.first &&
+    file.tasks?.[1] === chunk.end &&
+    Array.isArray(file.results) &&
+    file.results.length === chunk.end - chunk.first &&
+    file.results.every((r, i) => r?.index === chunk.first + i);
+  if (!shaped) return corrupt(`does not hold tasks ${chunk.first}…${chunk.end - 1} of chunk ${chunk.index}`);
+  return { status: 'ok', path, file, text };
+}
+
+function oldChunkFormat(text: string): string | undefined {
+  try {
+    const format = (JSON.parse(text) as { format?: unknown })?.format;
+    return typeof format === 'string' && format.startsWith('penumbra-grid-chunk/') && format !== CHUNK_FORMAT
+      ? format
+      : undefined;
   } catch {
     return undefined;
   }
+}
+
+/** A verified chunk, or undefined if the file is missing, of an older format or corrupt. */
+export function readChunk(dir: string, grid: GridSpec, chunk: GridChunk): ChunkFile | undefined {
+  const read = inspectChunk(dir, grid, chunk);
+  return read.status === 'ok' ? read.file : undefined;
 }
 
 // Transitional: plot.ts reads the table type from here until it moves to its own package.

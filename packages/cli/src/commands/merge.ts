@@ -10,8 +10,9 @@ export const command: Command = {
   usage: `Usage: penumbra merge DIR... --out OUT
 
 Checks that every DIR holds the same grid, that together they hold every
-chunk of it and that a chunk found twice is the same, then writes OUT with
-the tables a single unsharded run would have written (byte for byte; only
+chunk of it, that every chunk passes its checksum and that a chunk found
+twice is the same, then writes OUT with the tables a single unsharded run
+would have written (byte for byte; only
 OUT/run.json, the timing record, differs). OUT may be new, empty, or one of
 the DIRs. Any problem: one message, exit code 2, nothing written.
 

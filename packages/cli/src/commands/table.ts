@@ -29,7 +29,8 @@ Computes every point of the grid on a pool of worker threads and writes
 DIR/modes.csv, DIR/cross-section.csv, DIR/spectra.csv (units in the headers,
 geometric units with M = 1) and DIR/table.json. Points are written in chunks,
 each atomically: rerunning the same command after an interruption skips the
-finished chunks and gives the same bytes. A mode that does not converge is a
+finished chunks and gives the same bytes. Each chunk file ends in a sha256
+checksum; a chunk that fails it (edited, cut short) is named and recomputed. A mode that does not converge is a
 row with status 'not-converged' and the solver's message, never a number.
 CSV headers are camelCase names with units in brackets (relError [1]), the
 same names as the keys of table.json. See docs/grid.md.
@@ -137,6 +138,7 @@ once, with exit code 2, before anything is written.
       out,
       workers,
       shard,
+      onCorruptChunk: ({ path, problem }) => io.stderr(`penumbra table: ${path} is corrupt (${problem}); recomputing it\n`),
       onStart: (info) => {
         if (info.skipped > 0)
           io.stderr(`penumbra table: resuming in ${out}: ${info.skipped} of ${info.chunks} chunks already finished\n`);
