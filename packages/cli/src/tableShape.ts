@@ -6,7 +6,7 @@
 import type { GridTable } from '@penumbra/grid';
 
 const isRecord = (x: unknown): x is Record<string, unknown> => typeof x === 'object' && x !== null && !Array.isArray(x);
-const isFinite = (x: unknown): boolean => typeof x === 'number' && Number.isFinite(x);
+const isFiniteNumber = (x: unknown): boolean => typeof x === 'number' && Number.isFinite(x);
 /** the keys every row needs to be placed in a figure */
 const ROW_KEYS = ['s', 'a', 'omega'];
 
@@ -28,7 +28,7 @@ export function tableShapeProblem(table: GridTable): string | undefined {
       for (const key of numeric) {
         const value = row[key];
         const required = ROW_KEYS.includes(key) || row.status === 'ok';
-        if (!(isFinite(value) || (!required && value === null)))
+        if (!(isFiniteNumber(value) || (!required && value === null)))
           return `${where}.${key === 's' ? 'spin' : key} = ${JSON.stringify(value) ?? 'undefined'} is not a finite number`;
       }
     }
