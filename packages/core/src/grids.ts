@@ -25,7 +25,8 @@ export function linearGrid(from: number, to: number, count: number): number[] {
   const b = requireFinite('to', to);
   const n = checkCount(count, 'count');
   if (n === 1) return [a];
-  return Array.from({ length: n }, (_, i) => (i === n - 1 ? b : a + ((b - a) * i) / (n - 1)));
+  // a(1 − t) + bt stays finite for any finite ends (b − a could overflow)
+  return Array.from({ length: n }, (_, i) => (i === n - 1 ? b : a * (1 - i / (n - 1)) + b * (i / (n - 1))));
 }
 
 /** `count` geometrically spaced points from `from` to `to` (both > 0), endpoints exact. */
@@ -36,7 +37,10 @@ export function logGrid(from: number, to: number, count: number): number[] {
   if (!(b > 0)) throw new InputError('to', 'a finite number > 0', b);
   const n = checkCount(count, 'count');
   if (n === 1) return [a];
-  return Array.from({ length: n }, (_, i) => (i === 0 ? a : i === n - 1 ? b : a * (b / a) ** (i / (n - 1))));
+  // in logarithms: b / a could overflow for ends far apart (e.g. subnormal a)
+  const la = Math.log(a);
+  const lb = Math.log(b);
+  return Array.from({ length: n }, (_, i) => (i === 0 ? a : i === n - 1 ? b : Math.exp(la + ((lb - la) * i) / (n - 1))));
 }
 
 /** The points of a frequency grid. */
