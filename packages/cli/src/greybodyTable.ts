@@ -13,6 +13,8 @@ export function greybodyJson(r: GreybodySolution): Record<string, unknown> {
     mass: r.hole.mass,
     omega: r.omega,
     gamma: r.gamma,
+    ...(r.log10Gamma === undefined ? {} : { log10Gamma: r.log10Gamma }),
+    underflow: r.underflow,
     reflection: r.reflection,
     residual: r.residual,
     relError: r.relError,
@@ -31,6 +33,11 @@ const COLUMNS: Column[] = [
   { name: 'a', unit: 'M', description: "the hole's spin parameter a = J/M" },
   { name: 'omega', unit: '1/M', description: 'wave frequency ω' },
   { name: 'gamma', unit: '1', description: 'greybody factor Γ (absorbed fraction of the incident flux; < 0 when superradiant)' },
+  {
+    name: 'log10Gamma',
+    unit: '1',
+    description: 'log10 |Γ|; carries Γ where it is below the normal double range (gamma is then 0); empty at k = 0 exactly',
+  },
   { name: 'reflection', unit: '1', description: 'reflected fraction, from an independent solve' },
   { name: 'residual', unit: '1', description: '|Γ + reflection − 1|, a check of both solves' },
   { name: 'relError', unit: '1', description: 'estimated relative error of Γ' },
@@ -51,6 +58,7 @@ export function greybodyTable(results: readonly GreybodySolution[]): Table {
       r.hole.a,
       r.omega,
       r.gamma,
+      r.log10Gamma ?? null,
       r.reflection,
       r.residual,
       r.relError,
@@ -68,11 +76,18 @@ export function greybodyTextRows(results: readonly GreybodySolution[]): string[]
     ['Mω', 'Γ', 'reflection', '|Γ+R−1|', 'rel. error', ''],
     ...results.map((r) => [
       formatNumber(r.omega, 6),
-      formatNumber(r.gamma, 10),
+      formatGamma(r),
       formatNumber(r.reflection, 10),
       formatError(r.residual),
       formatError(r.relError),
       r.superradiant ? 'superradiant' : '',
     ]),
   ];
+}
+
+/** Γ as text; below the normal double range its log10 value, e.g. "−10^-330.2 (below double range)". */
+export function formatGamma(r: Pick<GreybodySolution, 'gamma' | 'log10Gamma' | 'underflow' | 'superradiant'>): string {
+  if (!r.underflow || r.log10Gamma === undefined) return formatNumber(r.gamma, 10);
+  const sign = r.superradiant ? '−' : '';
+  return `${sign}10^${r.log10Gamma.toFixed(1)} (below double range)`;
 }

@@ -82,10 +82,17 @@ export interface NumberConstraints {
   integer?: boolean;
 }
 
+/**
+ * The decimal numbers the command line accepts: optional sign, digits with an
+ * optional fraction (or a leading-dot fraction), optional exponent. Number()
+ * alone would also take '0x1', '0b1', 'Infinity' and '' (as 0).
+ */
+const DECIMAL_NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+
 /** A finite number from the command line, e.g. parseNumber('--mass', '1e15', { min: 0, exclusive: true }). */
 export function parseNumber(option: string, text: string, constraints: NumberConstraints = {}): number {
   const trimmed = text.trim();
-  const value = trimmed === '' ? Number.NaN : Number(trimmed);
+  const value = DECIMAL_NUMBER.test(trimmed) ? Number(trimmed) : Number.NaN;
   if (!Number.isFinite(value)) throw new UsageError(`${option} expects a finite number, got '${text}'`);
   const { min, max, exclusive = false, integer = false } = constraints;
   if (integer && !Number.isInteger(value)) throw new UsageError(`${option} expects an integer, got '${text}'`);
@@ -136,7 +143,7 @@ export function parseFieldSpin(
   const trimmed = text.trim();
   const signed = allowNegative && /^[+-]/.test(trimmed);
   const magnitude = signed ? trimmed.slice(1) : trimmed;
-  const number = magnitude === '' || magnitude.includes('/') ? Number.NaN : Number(magnitude);
+  const number = DECIMAL_NUMBER.test(magnitude) ? Number(magnitude) : Number.NaN;
   const read = attempt(() => parseCoreFieldSpin(Number.isFinite(number) ? number : magnitude));
   if (read.status !== 'success') {
     const names = FIELD_SPINS.map(formatFieldSpin).join(', ');

@@ -32,7 +32,7 @@ describe('penumbra greybody', () => {
       .trim()
       .split('\n');
     expect(csv[0]).toBe(
-      'spin [1],l [1],m [1],a [M],omega [1/M],gamma [1],reflection [1],residual [1],relError [1],k [1/M],superradiant,matchRadius [M],rhsEvaluations',
+      'spin [1],l [1],m [1],a [M],omega [1/M],gamma [1],log10Gamma [1],reflection [1],residual [1],relError [1],k [1/M],superradiant,matchRadius [M],rhsEvaluations',
     );
     expect(csv).toHaveLength(4);
     // Every CSV column is a JSON key (matchRadius and rhsEvaluations of the diagnostics) with the same value.

@@ -82,6 +82,13 @@ describe('penumbra kerr', () => {
     [['kerr', '--a', '0.5', '--mass', '1', '--unit', 'lb'], /--unit expects one of g, kg, msun, got 'lb'/],
     [['kerr', '--a', '0.5', '--mass', '-3', '--unit', 'g'], /--mass must be > 0, got -3/],
     [['kerr', '--a', '0.5', '--mass', '0'], /--mass must be > 0/],
+    [
+      ['kerr', '--a', '0.5', '--mass', '1e155', '--json'],
+      /^penumbra: --mass must be in 1e-150 ≤ mass ≤ 1e\+150 \(geometric units\), got 1e155/,
+    ],
+    [['kerr', '--a', '0.5', '--mass', '1e300', '--unit', 'g', '--json'], /--mass must be in 1e-97 ≤ mass ≤ 1e\+103 g, got 1e300/],
+    [['kerr', '--a', '0.5', '--mass', '1e-300', '--unit', 'kg'], /--mass must be in 1e-100 ≤ mass ≤ 1e\+100 kg/],
+    [['kerr', '--a', '0.5', '--mass', '1e300', '--unit', 'msun'], /--mass must be in 5\.03e-131 ≤ mass ≤ 5\.03e\+69 msun/],
     [['kerr', '--a', '0.5', '--spin', '2'], /unknown option '--spin'/],
     [['kerr', '--a'], /argument missing/],
     [['kerr', '--a', '0.5', 'extra'], /unexpected argument 'extra'/i],

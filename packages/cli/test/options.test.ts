@@ -28,6 +28,26 @@ describe('CLI parsing helpers', () => {
     expect(parseOptions(['stray'], options, true).positionals).toEqual(['stray']);
   });
 
+  test('parseNumber and parseFieldSpin accept only decimal numbers: no hex, binary, octal, Infinity, empty or blank text', () => {
+    for (const text of ['0x1', '0b1', '0o1', 'Infinity', '-Infinity', '', '   ', '1e', '.', '+', '1_000', '1.2.3', 'e5', 'NaN']) {
+      expect(() => parseNumber('--x', text), text).toThrow(UsageError);
+      expect(() => parseFieldSpin('--spin', text), text).toThrow(UsageError);
+    }
+    expect(() => parseFieldSpin('--spin', '0x1')).toThrow('--spin expects a field spin');
+    for (const [text, value] of [
+      ['1', 1],
+      ['-2.5', -2.5],
+      ['+.5', 0.5],
+      ['3.', 3],
+      ['1e-3', 1e-3],
+      ['2E+2', 200],
+      [' 7 ', 7],
+    ] as const)
+      expect(parseNumber('--x', text)).toBe(value);
+    expect(parseFieldSpin('--spin', '1/2')).toBe(0.5);
+    expect(parseFieldSpin('--spin', '-2', { allowNegative: true })).toBe(-2);
+  });
+
   test('parseNumber accepts finite numbers within the constraints and names the option otherwise', () => {
     expect(parseNumber('--x', ' 1e15 ')).toBe(1e15);
     expect(parseNumber('--l', '3', { min: 0, integer: true })).toBe(3);

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { chmodSync, cpSync, existsSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { ensureBuilt, writeGridFile } from '../../grid/test/support.js';
@@ -80,5 +80,58 @@ describe('penumbra plot', () => {
     const missing = await run('plot', join(work, 'nowhere'), '--out', join(work, 'bad.svg'));
     expect(missing.code).toBe(2);
     expect(missing.stderr).toMatch(/does not exist/);
+  });
+
+  test('a read-only (0444) target is refused with exit 2 and left unchanged, even for root', async (context) => {
+    if (buildProblem) context.skip(buildProblem);
+    const out = join(work, 'readonly.svg');
+    writeFileSync(out, 'keep');
+    chmodSync(out, 0o444);
+    const result = await run('plot', join(work, 'table'), '--out', out);
+    expect(result.code).toBe(2);
+    expect(result.stderr).toMatch(/^penumbra: --out [^\n]*readonly\.svg is read-only; refusing to replace it[^\n]*\n$/);
+    expect(readFileSync(out, 'utf8')).toBe('keep');
+    expect(statSync(out).mode & 0o777).toBe(0o444);
+  });
+
+  test('a write that fails (no such directory under /proc) is one line naming --out and the error code, exit 2, not an internal error', async (context) => {
+    if (buildProblem) context.skip(buildProblem);
+    if (!existsSync('/proc/self')) context.skip('no /proc');
+    const result = await run('plot', join(work, 'table'), '--out', '/proc/penumbra-test.svg');
+    expect(result.code).toBe(2);
+    expect(result.stderr).toMatch(
+      /^penumbra: invalid --out = "\/proc\/penumbra-test\.svg": allowed a file penumbra can write \(E[A-Z]+\)\n$/,
+    );
+  });
+
+  test('rows of the wrong shape are refused with one line naming the file and the first bad entry, exit 2, no file written', async (context) => {
+    if (buildProblem) context.skip(buildProblem);
+    const mutations: [(row: Record<string, unknown>) => void, RegExp][] = [
+      [(r) => (r.gamma = 'abc'), /rows\[0\]\.gamma = "abc" is not a finite number/],
+      [(r) => delete r.omega, /rows\[0\]\.omega = undefined is not a finite number/],
+      [(r) => (r.status = 5), /rows\[0\]\.status is not a string/],
+    ];
+    for (const [mutate, message] of mutations) {
+      const dir = join(work, 'bad-table');
+      rmSync(dir, { recursive: true, force: true });
+      cpSync(join(work, 'table'), dir, { recursive: true });
+      const file = JSON.parse(readFileSync(join(dir, 'table.json'), 'utf8'));
+      for (const row of file.tables.modes.rows) mutate(row);
+      writeFileSync(join(dir, 'table.json'), JSON.stringify(file));
+      const out = join(work, 'bad-shape.svg');
+      const result = await run('plot', dir, '--out', out);
+      expect(result.code).toBe(2);
+      expect(result.stderr).toMatch(/^penumbra: cannot read [^\n]*bad-table: not a well-formed penumbra table [^\n]*\n$/);
+      expect(result.stderr).toMatch(message);
+      expect(existsSync(out)).toBe(false);
+    }
+    writeFileSync(
+      join(work, 'null-rows.json'),
+      JSON.stringify({ format: 'penumbra-grid-table/2', tables: { modes: { columns: [], rows: [null] } } }),
+    );
+    const nullRows = await run('plot', join(work, 'null-rows.json'), '--out', join(work, 'bad-shape.svg'));
+    expect(nullRows.code).toBe(2);
+    expect(nullRows.stderr).toMatch(/^penumbra: cannot read [^\n]*null-rows\.json: not a well-formed penumbra table[^\n]*\n$/);
+    expect(nullRows.stderr).not.toMatch(/Cannot read properties|Cannot destructure/);
   });
 });

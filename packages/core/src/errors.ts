@@ -17,7 +17,10 @@ export class InputError extends Error {
     readonly value: unknown,
     detail?: string,
   ) {
-    super(`invalid ${parameter} = ${formatValue(value)}: allowed ${allowed}` + (detail ? ` (${detail})` : ''));
+    // String(): a caller's symbol or object as the name must not turn the report into a TypeError
+    super(
+      `invalid ${String(parameter)} = ${formatValue(value)}: allowed ${String(allowed)}` + (detail ? ` (${String(detail)})` : ''),
+    );
   }
 }
 

@@ -28,7 +28,11 @@ export function linearGrid(from: number, to: number, count: number): number[] {
   const b = requireFinite('to', to);
   const n = checkCount(count, 'count');
   if (n === 1) return [a];
-  return Array.from({ length: n }, (_, i) => (i === n - 1 ? b : a + ((b - a) * i) / (n - 1)));
+  const span = b - a;
+  // (b − a)·i overflows only for ends near ±1e308: then a(1 − t) + bt, which stays finite
+  if (!Number.isFinite(span * (n - 1)))
+    return Array.from({ length: n }, (_, i) => (i === n - 1 ? b : a * (1 - i / (n - 1)) + b * (i / (n - 1))));
+  return Array.from({ length: n }, (_, i) => (i === n - 1 ? b : a + (span * i) / (n - 1)));
 }
 
 /** `count` geometrically spaced points from `from` to `to` (both > 0), endpoints exact. */
@@ -39,7 +43,13 @@ export function logGrid(from: number, to: number, count: number): number[] {
   if (!(b > 0)) throw new InputError('to', 'a finite number > 0', b);
   const n = checkCount(count, 'count');
   if (n === 1) return [a];
-  return Array.from({ length: n }, (_, i) => (i === 0 ? a : i === n - 1 ? b : a * (b / a) ** (i / (n - 1))));
+  const ratio = b / a;
+  if (Number.isFinite(ratio) && ratio > 0)
+    return Array.from({ length: n }, (_, i) => (i === 0 ? a : i === n - 1 ? b : a * ratio ** (i / (n - 1))));
+  // b / a overflows (or underflows) for ends far apart, e.g. a subnormal a: in logarithms
+  const la = Math.log(a);
+  const lb = Math.log(b);
+  return Array.from({ length: n }, (_, i) => (i === 0 ? a : i === n - 1 ? b : Math.exp(la + ((lb - la) * i) / (n - 1))));
 }
 
 /** The points of a frequency grid. */

@@ -58,6 +58,8 @@ export function isFunction<F extends (...args: never[]) => unknown>(value: unkno
 
 /** A validator for a finite number in [min, max] (integer if asked). */
 export function numberIn(min: number, max: number, integer = false): (value: unknown, parameter: string) => number {
+  if (typeof min !== 'number' || typeof max !== 'number' || !(min <= max))
+    throw new InputError('numberIn bounds', 'numbers min ≤ max', [min, max]);
   return (value, parameter) => {
     const allowed = `${integer ? 'an integer' : 'a number'} in [${min}, ${max}]`;
     if (

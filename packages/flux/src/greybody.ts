@@ -51,8 +51,19 @@ export interface GreybodySolution {
   hole: { a: number; mass: number };
   mode: { field: { spin: FieldSpin }; l: number; m: number };
   omega: number;
-  /** absorbed fraction of the incident flux; negative in the superradiant band (bosons) */
+  /**
+   * absorbed fraction of the incident flux; negative in the superradiant band
+   * (bosons). When |Γ| is below the normal double range (`underflow`), 0.
+   */
   gamma: number;
+  /**
+   * log10 |Γ|, finite: it carries Γ when `gamma` underflows (e.g. s = 2, l = 30,
+   * Mω = 1e-5 gives about 10^-330). Absent only at the exact superradiant
+   * threshold k = 0, where Γ = 0 exactly.
+   */
+  log10Gamma?: number;
+  /** true when |Γ| < 2.2250738585072014e-308 (not a normal double): `gamma` is then 0 and `log10Gamma` holds the value */
+  underflow: boolean;
   /** reflected fraction, from an independent solve (NaN when not asked for) */
   reflection: number;
   /** |Γ + reflection − 1|, an accuracy check of both solves and the normalisations */
@@ -116,7 +127,7 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
   // At the superradiant threshold k = 0 exactly the ingoing and outgoing horizon
   // solutions coincide; Γ vanishes there for bosons (it is proportional to k).
   if (k === 0 && spin !== 0.5) {
-    return result(p, { gamma: 0, reflection: 1, relError: 0, k, C2, odeTol: tol, attempts: 0, integrator, extraEvaluations: 0 });
+    return result(p, { sign: 0, reflection: 1, relError: 0, k, C2, odeTol: tol, attempts: 0, integrator, extraEvaluations: 0 });
   }
 
   let odeTol = odeTolerance(tol);
@@ -126,10 +137,10 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
     const coarse = solveMode(p, { ...common, tol: odeTol * 10, reflection: false });
     // ln-difference of Γ is its relative difference.
     const relError = Math.abs(Math.expm1(fine.lnGamma - coarse.lnGamma)) + 1e-15;
-    const gamma = fine.sign * Math.exp(fine.lnGamma);
     if (relError <= tol) {
       return result(p, {
-        gamma,
+        sign: fine.sign,
+        lnGamma: fine.lnGamma,
         reflection: fine.reflection,
         relError,
         k,
@@ -202,7 +213,10 @@ function solveMode(p: Prepared, opts: TwoSidedOptions): ModeSolve {
 }
 
 interface Outcome {
-  gamma: number;
+  /** sign of Γ (0 at the exact threshold, where Γ = 0) */
+  sign: number;
+  /** ln |Γ| (absent at the exact threshold) */
+  lnGamma?: number;
   reflection: number;
   relError: number;
   k: number;
@@ -216,19 +230,27 @@ interface Outcome {
   extraEvaluations: number;
 }
 
+/** ln of the smallest normal double, 2.2250738585072014e-308. */
+const LN_MIN_NORMAL = Math.log(2.2250738585072014e-308);
+
 function result(
   p: Prepared,
-  { gamma, reflection, relError, k, C2, odeTol, attempts, integrator, d, extraEvaluations }: Outcome,
+  { sign, lnGamma, reflection, relError, k, C2, odeTol, attempts, integrator, d, extraEvaluations }: Outcome,
 ): GreybodySolution {
+  // Γ below the normal double range is reported through log10Gamma, never as a subnormal.
+  const underflow = lnGamma !== undefined && lnGamma < LN_MIN_NORMAL;
+  const gamma = lnGamma === undefined || underflow ? 0 : sign * Math.exp(lnGamma);
   return {
     hole: { a: p.hole.a, mass: p.hole.mass },
     mode: { field: { spin: p.spin }, l: p.l, m: p.m },
     omega: p.omega,
     gamma,
+    ...(lnGamma === undefined ? {} : { log10Gamma: lnGamma / Math.LN10 }),
+    underflow,
     reflection,
     residual: Math.abs(gamma + reflection - 1),
     relError,
-    amplification: -gamma,
+    amplification: gamma === 0 ? 0 : -gamma,
     k,
     superradiant: p.spin !== 0.5 && k < 0,
     diagnostics: {
@@ -236,11 +258,12 @@ function result(
       errorEstimate: relError,
       message: d
         ? `converged: estimated relative error ${relError.toExponential(2)} after ${attempts} attempt(s)`
-        : 'k = ω − mΩ_H = 0 exactly: ingoing and outgoing horizon solutions coincide and Γ = 0',
+        : 'k = ω − mΩ_H = 0 exactly: ingoing and outgoing horizon solutions coincide and Γ = 0 (no integration: startRadius = matchRadius = 0)',
       integrator,
       odeTol,
-      startRadius: d?.startRadius ?? Number.NaN,
-      matchRadius: d?.matchRadius ?? Number.NaN,
+      // no integration at the exact threshold: 0 says "no radius used", not NaN
+      startRadius: d?.startRadius ?? 0,
+      matchRadius: d?.matchRadius ?? 0,
       horizonTerms: d?.horizonTerms ?? 0,
       farTerms: d?.farTerms ?? 0,
       steps: d?.steps ?? 0,

@@ -25,4 +25,4 @@ export {
   massToKg,
   unitScales,
 } from './units.js';
-export { type PhysicalBackground, physicalBackground } from './physical.js';
+export { type PhysicalBackground, PHYSICAL_MASS_RANGE_KG, physicalBackground } from './physical.js';

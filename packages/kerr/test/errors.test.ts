@@ -84,4 +84,31 @@ describe('typed input errors name the parameter and its allowed range', () => {
     expect(thrown(() => physicalBackground(kerrHole({ a: 0.5 }), 0, 'g')).parameter).toBe('mass');
     expect(thrown(() => unitScales(Number.POSITIVE_INFINITY)).parameter).toBe('mass');
   });
+
+  test('physicalBackground refuses masses whose quantities leave the normal double range (1e-100 … 1e100 kg), and every value inside is finite and nonzero', () => {
+    const hole = kerrHole({ a: 0.5 });
+    for (const [mass, unit] of [
+      [1e300, 'g'],
+      [1e-300, 'kg'],
+      [1e300, 'msun'],
+      [1e101, 'kg'],
+      [1e-98, 'g'],
+    ] as const) {
+      const error = thrown(() => physicalBackground(hole, mass, unit));
+      expect(error.parameter).toBe('mass');
+      expect(error.message).toContain(unit);
+    }
+    for (const [mass, unit] of [
+      [1e100, 'kg'],
+      [1e-100, 'kg'],
+      [1e103, 'g'],
+      [1e-97, 'g'],
+      [5e69, 'msun'],
+      [6e-131, 'msun'],
+    ] as const) {
+      for (const value of Object.values(physicalBackground(hole, mass, unit))) {
+        expect(Number.isFinite(value) && Math.abs(value) >= 2.2250738585072014e-308).toBe(true);
+      }
+    }
+  });
 });

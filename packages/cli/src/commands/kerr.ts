@@ -1,3 +1,4 @@
+import { InputError } from '@penumbra/core';
 import { backgroundJson, backgroundReport, backgroundText } from '../background.js';
 import { UsageError, type Command } from '../command.js';
 import { parseHoleA, parseMassUnit, parseNumber, parseOptions, requireOption } from '../options.js';
@@ -36,8 +37,19 @@ Examples:
     const unit = values.unit === undefined ? undefined : parseMassUnit('--unit', values.unit);
     if (unit !== undefined && values.mass === undefined) throw new UsageError('--unit needs --mass');
     const mass = values.mass === undefined ? 1 : parseNumber('--mass', values.mass, { min: 0, exclusive: true });
-    const report = backgroundReport({ aStar, mass, unit });
+    const report = massChecked(values.mass, () => backgroundReport({ aStar, mass, unit }));
     writeOutput(io, format, { json: () => backgroundJson(report), text: () => backgroundText(report) });
     return 0;
   },
 };
+
+/** A mass the background cannot represent becomes one line naming --mass and its range. */
+function massChecked<T>(text: string | undefined, compute: () => T): T {
+  try {
+    return compute();
+  } catch (error) {
+    if (error instanceof InputError && error.parameter === 'mass')
+      throw new UsageError(`--mass must be in ${error.allowed}, got ${text}`);
+    throw error;
+  }
+}

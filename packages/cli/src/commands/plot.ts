@@ -1,10 +1,12 @@
-import { existsSync, statSync } from 'node:fs';
+import { accessSync, constants, existsSync, statSync } from 'node:fs';
+import { InputError } from '@penumbra/core';
 import { dirname, resolve } from 'node:path';
 import { GridError, readTable, writeFileAtomic, type GridTable } from '@penumbra/grid';
 import { renderSvg } from '@penumbra/plot';
 import { UsageError, type Command } from '../command.js';
 import { parseFieldSpin, parseNumber, parseOptions } from '../options.js';
 import { PLOT_QUANTITIES, tableFigure, type PlotQuantity } from '../tableFigure.js';
+import { tableShapeProblem } from '../tableShape.js';
 
 export const command: Command = {
   name: 'plot',
@@ -66,7 +68,14 @@ Example:
         try {
           table = readTable(path);
         } catch (error) {
-          problems.push(`cannot read ${path}: ${(error as Error).message}`);
+          // a TypeError here means a file of the wrong shape; its text names no file
+          const detail = error instanceof TypeError ? 'not a well-formed penumbra table' : (error as Error).message;
+          problems.push(`cannot read ${path}: ${detail}`);
+        }
+        const shape = table && tableShapeProblem(table);
+        if (shape) {
+          problems.push(`cannot read ${path}: not a well-formed penumbra table (${shape})`);
+          table = undefined;
         }
       }
     }
@@ -83,7 +92,13 @@ Example:
       if (error instanceof GridError) throw new UsageError(error.message);
       throw error;
     }
-    writeFileAtomic(values.out!, await renderSvg(result.figure));
+    const svg = await renderSvg(result.figure);
+    try {
+      writeFileAtomic(values.out!, svg);
+    } catch (error) {
+      const code = (error as NodeJS.ErrnoException).code;
+      throw new InputError('--out', 'a file penumbra can write', values.out, code ?? (error as Error).message);
+    }
     const omitted = result.omitted ? `, ${result.omitted} failed rows left out` : '';
     io.stderr(
       `penumbra plot: ${result.quantity}: ${result.series.length} series, ${result.points} points${omitted}; ${result.xLog ? 'log' : 'linear'} ω axis, ${result.yScale} y axis; wrote ${values.out}\n`,
@@ -97,5 +112,18 @@ function svgTargetProblems(out: string): string[] {
   if (existsSync(path) && statSync(path).isDirectory()) return [`--out ${out} is a directory; give a file name such as fig.svg`];
   const parent = dirname(path);
   if (!existsSync(parent) || !statSync(parent).isDirectory()) return [`--out ${out}: directory ${parent} does not exist`];
+  if (!writable(parent)) return [`--out ${out}: directory ${parent} is not writable`];
+  // A read-only file (no write bit at all, or not writable by this user) is never replaced, not even by root.
+  if (existsSync(path) && (!writable(path) || (statSync(path).mode & 0o222) === 0))
+    return [`--out ${out} is read-only; refusing to replace it`];
   return [];
+}
+
+function writable(path: string): boolean {
+  try {
+    accessSync(path, constants.W_OK);
+    return true;
+  } catch {
+    return false;
+  }
 }

@@ -118,7 +118,7 @@ once, with exit code 2, before anything is written.
     }
     let workers = defaultWorkers();
     if (values.workers !== undefined) {
-      workers = Number(values.workers.trim() === '' ? Number.NaN : values.workers);
+      workers = /^\s*\d+\s*$/.test(values.workers) ? Number(values.workers) : Number.NaN;
       if (!(Number.isInteger(workers) && workers >= 1 && workers <= 1024))
         problems.push(`--workers expects an integer from 1 to 1024, got '${values.workers}'`);
     }
