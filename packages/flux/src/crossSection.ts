@@ -88,6 +88,17 @@ export function absorptionCrossSection(problem: CrossSectionProblem, options?: C
   const { maxL = MAX_SUM_L, onMode, ...greybodyOptions } = validateOptions<CrossSectionOptions>(options, OPTIONS);
   const tol = greybodyOptions.tol ?? 1e-8;
   if (maxL < spin) throw new InputError('maxL', `${spin} ≤ maxL ≤ ${MAX_SUM_L}`, maxL);
+  // The sum may stop only above the geometric-optics cut 5Mω, and only after two shells beyond it:
+  // refuse at once a frequency whose cut the l range cannot pass, instead of solving every mode up to maxL first.
+  const highestMOmega = (maxL - 2) / 5;
+  if (omega * mass > highestMOmega) {
+    throw new InputError(
+      'omega',
+      `Mω ≤ (maxL − 2)/5 = ${highestMOmega} for maxL = ${maxL}`,
+      omega,
+      'the l-sum must pass l = 5Mω and cannot',
+    );
+  }
   let errAbs = 0;
   let modes = 0;
   let steps = 0;
