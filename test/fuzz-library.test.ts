@@ -142,6 +142,8 @@ const ENTRIES: Entry[] = [
     args: [or(fc.string()), or(fc.double()), or(fc.double()), or(fc.double())],
   },
   { name: 'requireObject', call: fn(core.requireObject), args: [or(fc.string()), hostile] },
+  // keys is the caller's own constant list (type-trusted); the value is the hostile part.
+  { name: 'requireKeyedObject', call: fn(core.requireKeyedObject), args: [or(fc.string()), hostile, fc.constant(['a', 'mass'])] },
   { name: 'parseFieldSpin', call: fn(core.parseFieldSpin), args: [or(fc.constantFrom(0, 0.5, '1/2', 1, 2, 3)), or(fc.string())] },
   { name: 'validateField', call: fn(core.validateField), args: [or(fc.record({ spin: or(spinArb) })), or(fc.string())] },
   { name: 'isFermion', call: fn(core.isFermion), args: [or(spinArb)] },

@@ -70,6 +70,31 @@ export function requireInRange(
   return v;
 }
 
+/**
+ * Throw an InputError unless `x` is a plain object whose keys are all among
+ * `keys` (missing keys are the caller's to check); an unknown key is named as
+ * `parameter.key`, so a misspelt key is refused rather than ignored.
+ */
+export function requireKeyedObject(
+  parameter: string,
+  x: unknown,
+  keys: readonly string[],
+  allowed = `an object { ${keys.join(', ')} }`,
+): Record<string, unknown> {
+  const value = requireObject(parameter, x, allowed);
+  for (const key of Object.keys(value)) {
+    if (!keys.includes(key)) {
+      throw new InputError(
+        `${parameter}.${key}`,
+        `${keys.length === 1 ? 'the key' : 'the keys'} ${keys.join(', ')}`,
+        key,
+        'unknown key',
+      );
+    }
+  }
+  return value;
+}
+
 /** Throw an InputError unless `x` is a plain object (not null, not an array). */
 export function requireObject(parameter: string, x: unknown, allowed = 'an object'): Record<string, unknown> {
   if (typeof x !== 'object' || x === null || Array.isArray(x)) throw new InputError(parameter, allowed, x);

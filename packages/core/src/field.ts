@@ -7,7 +7,7 @@
  * signed spin weight `s` = ±spin of one equation (±1/2, ±1, ±2). "Spin" alone
  * never means the hole's a/M: that is `a` (with the mass) or `aStar` = a/M.
  */
-import { InputError } from './errors.js';
+import { InputError, requireKeyedObject } from './errors.js';
 
 /** Field spins penumbra computes, in one list. */
 export const FIELD_SPINS = [0, 0.5, 1, 2] as const;
@@ -43,13 +43,8 @@ export function parseFieldSpin(value: unknown, parameter = 'spin'): FieldSpin {
 
 /** Validate a field object and return it with its spin as a number. */
 export function validateField(value: unknown, parameter = 'field'): { spin: FieldSpin } {
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
-    throw new InputError(parameter, `an object { spin } with spin ${ALLOWED}`, value);
-  }
-  for (const key of Object.keys(value)) {
-    if (key !== 'spin') throw new InputError(`${parameter}.${key}`, 'the key spin', key, 'unknown key');
-  }
-  return { spin: parseFieldSpin((value as { spin?: unknown }).spin, `${parameter}.spin`) };
+  const field = requireKeyedObject(parameter, value, ['spin'], `an object { spin } with spin ${ALLOWED}`);
+  return { spin: parseFieldSpin(field.spin, `${parameter}.spin`) };
 }
 
 /** Half-integer spins are fermions (Fermi–Dirac occupation, never superradiant). */

@@ -3,7 +3,7 @@
  * M = 1). The derived background (horizons, Ω_H, κ, T_H) is @penumbra/kerr's
  * `kerrHole`. Negative a is a hole counter-rotating relative to m > 0.
  */
-import { InputError, requireFinite } from './errors.js';
+import { InputError, requireFinite, requireKeyedObject } from './errors.js';
 
 /** A Kerr hole as a caller gives it: spin parameter a and mass M (geometric units). */
 export interface Hole {
@@ -22,13 +22,7 @@ export const MAX_SOLVER_A_RATIO = 0.9999;
 
 /** Validate a hole object; `maxARatio` is the largest |a|/M accepted (strictly below 1 by default). */
 export function validateHole(value: unknown, parameter = 'hole', maxARatio = MAX_SOLVER_A_RATIO): { a: number; mass: number } {
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
-    throw new InputError(parameter, 'an object { a, mass? } with |a| < mass', value);
-  }
-  for (const key of Object.keys(value)) {
-    if (key !== 'a' && key !== 'mass') throw new InputError(`${parameter}.${key}`, 'the keys a, mass', key, 'unknown key');
-  }
-  const { a, mass = 1 } = value as { a?: unknown; mass?: unknown };
+  const { a, mass = 1 } = requireKeyedObject(parameter, value, ['a', 'mass'], 'an object { a, mass? } with |a| < mass');
   const M = requireFinite(`${parameter}.mass`, mass, 'a finite number > 0');
   if (!(M > 0) || !Number.isFinite(M * M)) throw new InputError(`${parameter}.mass`, 'a finite number > 0 with M² finite', M);
   const bound = maxARatio < 1 ? `|a| ≤ ${maxARatio} M = ${maxARatio * M}` : `|a| < M = ${M}`;

@@ -1,4 +1,4 @@
-export { InputError, ConvergenceError, requireFinite, requireInRange, requireObject } from './errors.js';
+export { InputError, ConvergenceError, requireFinite, requireInRange, requireObject, requireKeyedObject } from './errors.js';
 export { type Diagnostics, type Status, type Attempt, attempt, exactDiagnostics } from './diagnostics.js';
 export { type OptionSpec, validateOptions, oneOf, isBoolean, isFunction, numberIn } from './options.js';
 export {

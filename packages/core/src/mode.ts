@@ -2,7 +2,7 @@
  * A mode: a field and its angular numbers (l, m), with l ≥ spin, |m| ≤ l and
  * l − spin, m − spin integers (half-integer l, m for fermions).
  */
-import { InputError, requireFinite } from './errors.js';
+import { InputError, requireFinite, requireKeyedObject } from './errors.js';
 import { validateField, type Field, type FieldSpin } from './field.js';
 
 /** A field with its angular numbers l and m. */
@@ -28,14 +28,7 @@ export function validateAngular(spin: FieldSpin, l: unknown, m: unknown, paramet
 
 /** Validate a mode object; returns its field spin as a number. */
 export function validateMode(value: unknown, parameter = 'mode'): { spin: FieldSpin; l: number; m: number } {
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
-    throw new InputError(parameter, 'an object { field: { spin }, l, m }', value);
-  }
-  for (const key of Object.keys(value)) {
-    if (key !== 'field' && key !== 'l' && key !== 'm')
-      throw new InputError(`${parameter}.${key}`, 'the keys field, l, m', key, 'unknown key');
-  }
-  const v = value as { field?: unknown; l?: unknown; m?: unknown };
+  const v = requireKeyedObject(parameter, value, ['field', 'l', 'm'], 'an object { field: { spin }, l, m }');
   const { spin } = validateField(v.field, `${parameter}.field`);
   return { spin, ...validateAngular(spin, v.l, v.m, parameter) };
 }

@@ -3,16 +3,21 @@
  * only, frequency grids, l limits. Errors name the parameter the caller gave
  * (`problem.grid`, `grid[3]`, `maxL`) and its allowed range.
  */
-import { InputError, MAX_L, gridValues, numberIn, requireFinite, requireObject, type FrequencyGrid } from '@penumbra/core';
+import {
+  InputError,
+  MAX_L,
+  gridValues,
+  numberIn,
+  requireFinite,
+  requireKeyedObject,
+  requireObject,
+  type FrequencyGrid,
+} from '@penumbra/core';
 import { MOMEGA_RANGE } from '@penumbra/flux';
 
-/** A problem object with exactly the given keys (missing optional keys are fine). */
+/** A problem object with the given keys only (missing optional keys are fine): core's requireKeyedObject. */
 export function requireProblem(problem: unknown, keys: readonly string[], parameter = 'problem'): Record<string, unknown> {
-  const p = requireObject(parameter, problem, `an object { ${keys.join(', ')} }`);
-  for (const key of Object.keys(p)) {
-    if (!keys.includes(key)) throw new InputError(`${parameter}.${key}`, `the keys ${keys.join(', ')}`, key, 'unknown key');
-  }
-  return p;
+  return requireKeyedObject(parameter, problem, keys);
 }
 
 const GRID_ALLOWED = 'an array of increasing frequencies > 0, or a FrequencyGrid { spacing, from, to, count } | { values }';

@@ -14,7 +14,7 @@ import {
   InputError,
   isFunction,
   numberIn,
-  requireObject,
+  requireKeyedObject,
   sumLShells,
   validateField,
   validateHole,
@@ -77,11 +77,7 @@ const OPTIONS = {
  * InputError for bad input, ConvergenceError if the l-sum does not converge.
  */
 export function absorptionCrossSection(problem: CrossSectionProblem, options?: CrossSectionOptions): CrossSectionSolution {
-  const p = requireObject('problem', problem, 'an object { hole, field, omega }');
-  for (const key of Object.keys(p)) {
-    if (!['hole', 'field', 'omega'].includes(key))
-      throw new InputError(`problem.${key}`, 'the keys hole, field, omega', key, 'unknown key');
-  }
+  const p = requireKeyedObject('problem', problem, ['hole', 'field', 'omega']);
   const { spin } = validateField(p.field, 'field');
   const { a, mass } = validateHole(p.hole, 'hole');
   const omega = validateOmega(p.omega, mass);

@@ -10,7 +10,7 @@ import {
   numberIn,
   oneOf,
   requireFinite,
-  requireObject,
+  requireKeyedObject,
   validateHole,
   validateMode,
   validateOptions,
@@ -50,16 +50,9 @@ export function validateOmega(omega: unknown, mass: number, parameter = 'omega')
   return w;
 }
 
-function requireKeys(value: Record<string, unknown>, keys: readonly string[], parameter: string): void {
-  for (const key of Object.keys(value)) {
-    if (!keys.includes(key)) throw new InputError(`${parameter}.${key}`, `the keys ${keys.join(', ')}`, key, 'unknown key');
-  }
-}
-
 /** Validate a greybody problem { hole, mode, omega }. */
 export function checkProblem(problem: unknown, anyPositiveOmega = false): CheckedProblem {
-  const p = requireObject('problem', problem, 'an object { hole, mode, omega }');
-  requireKeys(p, ['hole', 'mode', 'omega'], 'problem');
+  const p = requireKeyedObject('problem', problem, ['hole', 'mode', 'omega']);
   const { spin, l, m } = validateMode(p.mode, 'mode');
   const { a, mass } = validateHole(p.hole, 'hole');
   const omega = anyPositiveOmega ? positiveOmega(p.omega) : validateOmega(p.omega, mass);
