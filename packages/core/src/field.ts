@@ -1,13 +1,14 @@
 /**
- * A field: what propagates on the hole. Today a field is its spin (massless
- * fields); the massive-fields work adds its mass here, in one place.
+ * A field: what propagates on the hole, given by its spin and its mass.
+ * The mass is Mμ — the field's rest mass μ (ħ = c = G = 1, an inverse
+ * length) times the hole's mass M — so a field of mass 0 is massless.
  *
  * Two spins appear in the Teukolsky equations and are kept apart by name:
  * the field spin `spin` ∈ {0, 1/2, 1, 2} (≥ 0, what a user chooses) and the
  * signed spin weight `s` = ±spin of one equation (±1/2, ±1, ±2). "Spin" alone
  * never means the hole's a/M: that is `a` (with the mass) or `aStar` = a/M.
  */
-import { InputError, requireKeyedObject } from './errors.js';
+import { InputError, requireFinite, requireKeyedObject } from './errors.js';
 
 /** Field spins penumbra computes, in one list. */
 export const FIELD_SPINS = [0, 0.5, 1, 2] as const;
@@ -22,11 +23,22 @@ export const SPIN_WEIGHTS = [-2, -1, -0.5, 0, 0.5, 1, 2] as const;
 /** A signed spin weight s of one Teukolsky equation. */
 export type SpinWeight = (typeof SPIN_WEIGHTS)[number];
 
-/** What propagates on the hole; today a massless field, given by its spin. */
+/** What propagates on the hole: a field spin and a rest mass. */
 export interface Field {
   /** field spin 0, 1/2, 1 or 2 ('1/2' accepted) */
   readonly spin: FieldSpinInput;
+  /** rest mass as Mμ (units of 1/M, 0 ≤ Mμ < 30; default 0, massless) */
+  readonly mass?: number;
 }
+
+/** A validated field: spin as a number, mass as Mμ (0 when massless). */
+export interface CheckedField {
+  readonly spin: FieldSpin;
+  readonly mass: number;
+}
+
+/** Allowed field masses Mμ: massless up to (below) the largest Mω the solvers take. */
+export const FIELD_MASS_RANGE = { min: 0, max: 30 } as const;
 
 const ALLOWED = 'one of 0, 1/2, 1, 2';
 const TEXT: Record<string, FieldSpin> = { '0': 0, '1/2': 0.5, '0.5': 0.5, '1': 1, '2': 2 };
@@ -41,10 +53,34 @@ export function parseFieldSpin(value: unknown, parameter = 'spin'): FieldSpin {
   throw new InputError(parameter, ALLOWED, value);
 }
 
-/** Validate a field object and return it with its spin as a number. */
-export function validateField(value: unknown, parameter = 'field'): { spin: FieldSpin } {
-  const field = requireKeyedObject(parameter, value, ['spin'], `an object { spin } with spin ${ALLOWED}`);
-  return { spin: parseFieldSpin(field.spin, `${parameter}.spin`) };
+/** Validate a field object and return it with its spin as a number and its mass (0 if absent). */
+export function validateField(value: unknown, parameter = 'field'): CheckedField {
+  const field = requireKeyedObject(parameter, value, ['spin', 'mass'], `an object { spin, mass? } with spin ${ALLOWED}`);
+  const spin = parseFieldSpin(field.spin, `${parameter}.spin`);
+  return { spin, mass: field.mass === undefined ? 0 : parseFieldMass(field.mass, `${parameter}.mass`) };
+}
+
+/** Read a field mass Mμ: a finite number with 0 ≤ Mμ < 30. */
+export function parseFieldMass(value: unknown, parameter = 'field.mass'): number {
+  const allowed = `${FIELD_MASS_RANGE.min} ≤ Mμ < ${FIELD_MASS_RANGE.max} (units of 1/M)`;
+  const mu = requireFinite(parameter, value, allowed);
+  if (!(mu >= FIELD_MASS_RANGE.min && mu < FIELD_MASS_RANGE.max)) throw new InputError(parameter, allowed, mu);
+  return mu;
+}
+
+/**
+ * Refuse a massive field where a computation has only the massless equations:
+ * a mass silently ignored would be a wrong number.
+ */
+export function requireMassless(field: CheckedField, parameter = 'field.mass', what = 'this computation'): void {
+  if (field.mass !== 0) {
+    throw new InputError(
+      parameter,
+      `0 (${what} takes massless fields only)`,
+      field.mass,
+      'massive fields are not supported here',
+    );
+  }
 }
 
 /** Half-integer spins are fermions (Fermi–Dirac occupation, never superradiant). */

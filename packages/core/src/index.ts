@@ -8,8 +8,12 @@ export {
   type FieldSpinInput,
   type SpinWeight,
   type Field,
+  type CheckedField,
+  FIELD_MASS_RANGE,
   parseFieldSpin,
+  parseFieldMass,
   validateField,
+  requireMassless,
   isFermion,
   formatFieldSpin,
 } from './field.js';

@@ -26,9 +26,9 @@ export function validateAngular(spin: FieldSpin, l: unknown, m: unknown, paramet
   return { l: L, m: Mz };
 }
 
-/** Validate a mode object; returns its field spin as a number. */
-export function validateMode(value: unknown, parameter = 'mode'): { spin: FieldSpin; l: number; m: number } {
-  const v = requireKeyedObject(parameter, value, ['field', 'l', 'm'], 'an object { field: { spin }, l, m }');
-  const { spin } = validateField(v.field, `${parameter}.field`);
-  return { spin, ...validateAngular(spin, v.l, v.m, parameter) };
+/** Validate a mode object; returns its field spin as a number and its mass Mμ (0 when massless). */
+export function validateMode(value: unknown, parameter = 'mode'): { spin: FieldSpin; fieldMass: number; l: number; m: number } {
+  const v = requireKeyedObject(parameter, value, ['field', 'l', 'm'], 'an object { field: { spin, mass? }, l, m }');
+  const { spin, mass } = validateField(v.field, `${parameter}.field`);
+  return { spin, fieldMass: mass, ...validateAngular(spin, v.l, v.m, parameter) };
 }

@@ -9,6 +9,8 @@ import {
   logGrid,
   oneOf,
   parseFieldSpin,
+  requireMassless,
+  validateField,
   sumLShells,
   sumLShellVectors,
   toCsv,
@@ -38,11 +40,21 @@ describe('field spins', () => {
     expect(thrown(() => parseFieldSpin('x')).allowed).toBe('one of 0, 1/2, 1, 2');
   });
   test('a mode needs l ≥ spin, |m| ≤ l, l − spin and m − spin integers', () => {
-    expect(validateMode({ field: { spin: '1/2' }, l: 0.5, m: -0.5 })).toEqual({ spin: 0.5, l: 0.5, m: -0.5 });
+    expect(validateMode({ field: { spin: '1/2' }, l: 0.5, m: -0.5 })).toEqual({ spin: 0.5, fieldMass: 0, l: 0.5, m: -0.5 });
     expect(thrown(() => validateMode({ field: { spin: 1 }, l: 0, m: 0 })).parameter).toBe('mode.l');
     expect(thrown(() => validateMode({ field: { spin: 1 }, l: 2, m: 3 })).parameter).toBe('mode.m');
     expect(thrown(() => validateMode({ field: { spin: 1 }, l: 2, m: 0, n: 1 })).parameter).toBe('mode.n');
     expect(thrown(() => validateMode(null)).parameter).toBe('mode');
+  });
+  test('a field carries its mass Mμ: absent means 0; negative, NaN, text or ≥ 30 refused naming field.mass', () => {
+    expect(validateField({ spin: 0 })).toEqual({ spin: 0, mass: 0 });
+    expect(validateField({ spin: '1/2', mass: 0.25 })).toEqual({ spin: 0.5, mass: 0.25 });
+    for (const bad of [-1e-3, Number.NaN, '0.1', null, 30, Number.POSITIVE_INFINITY]) {
+      expect(thrown(() => validateField({ spin: 0, mass: bad })).parameter).toBe('field.mass');
+    }
+    expect(thrown(() => validateMode({ field: { spin: 1, mass: -1 }, l: 1, m: 0 })).parameter).toBe('mode.field.mass');
+    expect(thrown(() => requireMassless({ spin: 1, mass: 0.1 })).parameter).toBe('field.mass');
+    expect(() => requireMassless({ spin: 1, mass: 0 })).not.toThrow();
   });
   test('a hole needs a finite mass > 0 and |a| ≤ 0.9999 M for the solver; unknown keys refused', () => {
     expect(validateHole({ a: -0.5 })).toEqual({ a: -0.5, mass: 1 });

@@ -16,6 +16,7 @@ import {
   type FieldSpin,
   type FrequencyGrid,
   type Hole,
+  requireMassless,
 } from '@penumbra/core';
 import { modeContext } from './modes.js';
 import { spectrumPointUnit, type SpectrumPoint } from './spectrumPoint.js';
@@ -71,7 +72,9 @@ const OPTIONS = {
  */
 export function emissionSpectrum(problem: SpectrumProblem, options?: SpectrumOptions): EmissionSpectrum {
   const p = requireProblem(problem, ['hole', 'field', 'grid']);
-  const { spin } = validateField(p.field, 'field');
+  const field = validateField(p.field, 'field');
+  requireMassless(field, 'field.mass', 'the emission spectrum');
+  const { spin } = field;
   const { a, mass } = validateHole(p.hole, 'hole');
   const omegas = validateGrid(p.grid, mass);
   const { tol = 1e-6, maxL = 80, onPoint } = validateOptions<SpectrumOptions>(options, OPTIONS);

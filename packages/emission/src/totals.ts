@@ -28,6 +28,7 @@ import {
   type Field,
   type FieldSpin,
   type Hole,
+  requireMassless,
 } from '@penumbra/core';
 import { boltzmannTailBound, modeContext, shellMs, torqueTailBound, type ModeContext } from './modes.js';
 import { emptyAccumulator, integrateMode, type ModeTotal, type TotalsAccumulator, type Triple } from './modeIntegral.js';
@@ -200,7 +201,9 @@ function totalsUnit(ctx: ModeContext, tol: number, maxL: number, looseness: numb
  */
 export function emissionTotals(problem: TotalsProblem, options?: TotalsOptions): EmissionTotals {
   const p = requireProblem(problem, ['hole', 'field']);
-  const { spin } = validateField(p.field, 'field');
+  const field = validateField(p.field, 'field');
+  requireMassless(field, 'field.mass', 'emission totals');
+  const { spin } = field;
   const { a, mass } = validateHole(p.hole, 'hole');
   const { tol = 1e-6, maxL = 60, onMode } = validateOptions<TotalsOptions>(options, TOTALS_OPTIONS);
   checkMaxL(maxL, spin);

@@ -23,6 +23,7 @@ import {
   type Field,
   type FieldSpin,
   type Hole,
+  requireMassless,
 } from '@penumbra/core';
 import { greybody, type GreybodySolution } from './greybody.js';
 import { GREYBODY_OPTIONS, MAX_SUM_L, validateOmega, type GreybodyOptions } from './validate.js';
@@ -78,7 +79,9 @@ const OPTIONS = {
  */
 export function absorptionCrossSection(problem: CrossSectionProblem, options?: CrossSectionOptions): CrossSectionSolution {
   const p = requireKeyedObject('problem', problem, ['hole', 'field', 'omega']);
-  const { spin } = validateField(p.field, 'field');
+  const field = validateField(p.field, 'field');
+  requireMassless(field, 'field.mass', 'the cross-section');
+  const { spin } = field;
   const { a, mass } = validateHole(p.hole, 'hole');
   const omega = validateOmega(p.omega, mass);
   const { maxL = MAX_SUM_L, onMode, ...greybodyOptions } = validateOptions<CrossSectionOptions>(options, OPTIONS);

@@ -18,6 +18,7 @@ import {
   type FieldSpin,
   type Hole,
   type Mode,
+  requireMassless,
 } from '@penumbra/core';
 import { INTEGRATORS, type IntegratorName } from '@penumbra/radial';
 
@@ -53,7 +54,8 @@ export function validateOmega(omega: unknown, mass: number, parameter = 'omega')
 /** Validate a greybody problem { hole, mode, omega }. */
 export function checkProblem(problem: unknown, anyPositiveOmega = false): CheckedProblem {
   const p = requireKeyedObject('problem', problem, ['hole', 'mode', 'omega']);
-  const { spin, l, m } = validateMode(p.mode, 'mode');
+  const { spin, fieldMass, l, m } = validateMode(p.mode, 'mode');
+  requireMassless({ spin, mass: fieldMass }, 'mode.field.mass', 'the greybody solver');
   const { a, mass } = validateHole(p.hole, 'hole');
   const omega = anyPositiveOmega ? positiveOmega(p.omega) : validateOmega(p.omega, mass);
   return { spin, l, m, a, mass, omega };

@@ -16,6 +16,7 @@ import {
   type Field,
   type FieldSpin,
   type OptionSpec,
+  requireMassless,
 } from '@penumbra/core';
 import type { ModeProblem, PotentialKind } from './potentials.js';
 
@@ -108,7 +109,9 @@ export function validateProblem(problem: unknown): Omit<ModeProblem, 'diracSign'
     if (!KEYS.includes(key)) throw new InputError(key, `one of the keys ${KEYS.join(', ')}`, key, 'unknown key');
   }
   const q = problem as { field?: unknown; l?: unknown; omega?: unknown; mass?: unknown };
-  const { spin } = validateField(q.field, 'field');
+  const field = validateField(q.field, 'field');
+  requireMassless(field, 'field.mass', 'the Schwarzschild reference solver');
+  const { spin } = field;
   const { l, omega } = q;
   if (typeof l !== 'number' || !Number.isFinite(l) || l < spin || !Number.isInteger(l - spin)) {
     throw new InputError('l', `l ≥ ${spin} with l − spin an integer`, l);
