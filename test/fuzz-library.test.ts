@@ -145,7 +145,20 @@ const ENTRIES: Entry[] = [
   // keys is the caller's own constant list (type-trusted); the value is the hostile part.
   { name: 'requireKeyedObject', call: fn(core.requireKeyedObject), args: [or(fc.string()), hostile, fc.constant(['a', 'mass'])] },
   { name: 'parseFieldSpin', call: fn(core.parseFieldSpin), args: [or(fc.constantFrom(0, 0.5, '1/2', 1, 2, 3)), or(fc.string())] },
-  { name: 'validateField', call: fn(core.validateField), args: [or(fc.record({ spin: or(spinArb) })), or(fc.string())] },
+  {
+    name: 'validateField',
+    call: fn(core.validateField),
+    args: [
+      or(fc.record({ spin: or(spinArb), mass: or(fc.double({ min: 0, max: 40 })) }, { requiredKeys: ['spin'] })),
+      or(fc.string()),
+    ],
+  },
+  { name: 'parseFieldMass', call: fn(core.parseFieldMass), args: [or(fc.double({ min: -1, max: 40 })), or(fc.string())] },
+  {
+    name: 'requireMassless',
+    call: fn(core.requireMassless),
+    args: [fc.record({ spin: spinArb, mass: fc.constantFrom(0, 0.3) }), or(fc.string()), or(fc.string())],
+  },
   { name: 'isFermion', call: fn(core.isFermion), args: [or(spinArb)] },
   { name: 'formatFieldSpin', call: fn(core.formatFieldSpin), args: [or(spinArb)] },
   { name: 'geometricTailBound', call: fn(core.geometricTailBound), args: [or(fc.double()), or(fc.double()), or(fc.string())] },

@@ -76,7 +76,7 @@ export function requireMassless(field: CheckedField, parameter = 'field.mass', w
   if (field.mass !== 0) {
     throw new InputError(
       parameter,
-      `0 (${what} takes massless fields only)`,
+      `0 (${String(what)} takes massless fields only)`,
       field.mass,
       'massive fields are not supported here',
     );
