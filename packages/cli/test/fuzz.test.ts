@@ -82,6 +82,7 @@ const FLAGS: Record<string, string[]> = {
   demo: ['--json', '--csv'],
   merge: [],
   plot: [],
+  explore: [],
 };
 const OPTIONS: Record<string, string[]> = {
   kerr: ['a', 'mass', 'unit'],
@@ -94,8 +95,10 @@ const OPTIONS: Record<string, string[]> = {
   demo: [],
   merge: ['out'],
   plot: ['out', 'quantity', 'spin', 'a'],
+  explore: ['port', 'host', 'out'],
 };
-const EXPENSIVE = new Set(['demo', 'emission', 'evolve', 'table', 'merge']);
+// explore always carries a poison value too: a valid command line would serve until interrupted.
+const EXPENSIVE = new Set(['demo', 'emission', 'evolve', 'table', 'merge', 'explore']);
 
 /** One command line for `command`: options in random order, hostile or plausible values, stray tokens. */
 function argvFor(command: string): fc.Arbitrary<string[]> {

@@ -54,6 +54,11 @@ export const commands: readonly CommandEntry[] = [
     load: () => import('./emission.js'),
   },
   {
+    name: 'explore',
+    summary: 'an explorer page in the browser: Γ(ω), σ(ω), emission spectra and evaporation, computed in the page',
+    load: () => import('./explore.js'),
+  },
+  {
     name: 'evolve',
     summary: "evaporation history of a hole: lifetime and the track a*(M) from Page's f(a*), g(a*)",
     load: () => import('./evolve.js'),
