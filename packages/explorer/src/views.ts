@@ -118,7 +118,7 @@ export function greybodyView(s: ExplorerState, onProgress?: ProgressCallback): V
   const figure: Figure = {
     title: `Greybody factor Γ(ω), spin ${s.spin === 0.5 ? '½' : s.spin}, a/M = ${s.aStar}`,
     subtitle: bandTop > 0 ? `shaded: superradiant band 0 < ω < mΩ_H = ${printNumber(bandTop)}/M (Γ < 0 there)` : undefined,
-    x: { title: 'Mω', scale: s.spacing === 'log' ? 'log' : 'linear' },
+    x: { title: 'Mω', scale: s.spacing === 'log' ? 'log' : 'linear', domain: [s.from, s.to], nice: false },
     y: { title: 'Γ', scale: negative ? 'linear' : autoScale(gammas.filter((g) => g > 0)), zero: negative },
     series,
     legend: { title: 'mode' },
@@ -165,7 +165,7 @@ export function crossSectionView(s: ExplorerState, onProgress?: ProgressCallback
     rows,
     figure: {
       title: `Absorption cross-section σ(ω), spin ${s.spin === 0.5 ? '½' : s.spin}, a/M = ${s.aStar}`,
-      x: { title: 'Mω', scale: s.spacing === 'log' ? 'log' : 'linear' },
+      x: { title: 'Mω', scale: s.spacing === 'log' ? 'log' : 'linear', domain: [s.from, s.to], nice: false },
       y: { title: 'σ', unit: 'M²', scale: 'linear' },
       series: [{ name: 'σ', points: rows.map((r) => [r[0], r[1]] as const) }],
       rules,
