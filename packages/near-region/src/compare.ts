@@ -46,7 +46,11 @@ export function compareNearRegion(problem: GreybodyProblem, options?: NearRegion
   const checked = checkNearRegionProblem(problem, 0.9999);
   const { tol } = validateOptions<NearRegionComparisonOptions>(options, { tol: validateTolerance });
   const exact = greybody(
-    { hole: { a: checked.a, mass: checked.mass }, mode: { field: { spin: checked.spin }, l: checked.l, m: checked.m }, omega: checked.omega },
+    {
+      hole: { a: checked.a, mass: checked.mass },
+      mode: { field: { spin: checked.spin }, l: checked.l, m: checked.m },
+      omega: checked.omega,
+    },
     { tol, reflection: false },
   );
   const form = formOf(checked);

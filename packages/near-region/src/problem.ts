@@ -4,7 +4,15 @@
  * a > 0: T_L and T_R diverge as a → 0, and a counter-rotating hole (a < 0)
  * is the mirror image of (|a|, −m), so it is asked for in that form.
  */
-import { InputError, requireFinite, requireKeyedObject, requireMassless, validateHole, validateMode, type FieldSpin } from '@penumbra/core';
+import {
+  InputError,
+  requireFinite,
+  requireKeyedObject,
+  requireMassless,
+  validateHole,
+  validateMode,
+  type FieldSpin,
+} from '@penumbra/core';
 
 /** A checked problem: numbers only, mass filled in. */
 export interface CheckedNearRegionProblem {
