@@ -52,8 +52,8 @@ export interface NearRegionForm {
 
 /**
  * The near-region form of Γ for one mode (validated like `greybody`, but any
- * 0 < a < M and any ω > 0; a = 0 and a < 0 are refused, see the package
- * README). Holds for Mω ≪ 1; its first correction is O(Mω).
+ * 1e-8 M ≤ a < M and 0 < Mω ≤ 30; a = 0 and a < 0 are refused, see the package
+ * README; a ≥ 1e-8 M, Mω ≤ 30). Holds for Mω ≪ 1; its first correction is O(Mω).
  *
  * @example nearRegionForm({ hole: { a: 0.5 }, mode: { field: { spin: 1 }, l: 1, m: 1 }, omega: 1e-3 })
  */

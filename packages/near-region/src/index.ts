@@ -16,3 +16,4 @@ export {
   validityPointsTable,
   validityEdgesTable,
 } from './validityMap.js';
+export { MIN_A_RATIO, MAX_MOMEGA } from './problem.js';

@@ -14,6 +14,12 @@ import {
   type FieldSpin,
 } from '@penumbra/core';
 
+/** Smallest a/M the form takes: T_L = M/(2πa) and ω_L = 2M²ω/a stay far inside the double range. */
+export const MIN_A_RATIO = 1e-8;
+
+/** Largest Mω the form takes (the exact solver's upper end; the form itself is a low-frequency statement). */
+export const MAX_MOMEGA = 30;
+
 /** A checked problem: numbers only, mass filled in. */
 export interface CheckedNearRegionProblem {
   spin: FieldSpin;
@@ -25,25 +31,28 @@ export interface CheckedNearRegionProblem {
 }
 
 /**
- * Validate { hole, mode, omega } for the near-region form: 0 < a < M (a ≤
- * `maxARatio`·M when given), ω > 0 finite, a massless field.
+ * Validate { hole, mode, omega } for the near-region form: 1e-8 M ≤ a < M (a ≤
+ * `maxARatio`·M when given), 0 < Mω ≤ 30, a massless field.
  */
 export function checkNearRegionProblem(problem: unknown, maxARatio = 1): CheckedNearRegionProblem {
   const p = requireKeyedObject('problem', problem, ['hole', 'mode', 'omega']);
   const { spin, fieldMass, l, m } = validateMode(p.mode, 'mode');
   requireMassless({ spin, mass: fieldMass }, 'mode.field.mass', 'the near-region form');
   const { a, mass } = validateHole(p.hole, 'hole', maxARatio);
+  const aRange = `${MIN_A_RATIO} M ≤ a ${maxARatio < 1 ? `≤ ${maxARatio} M` : '< M'}`;
   if (!(a > 0)) {
     throw new InputError(
       'hole.a',
-      maxARatio < 1 ? `0 < a ≤ ${maxARatio} M` : '0 < a < M',
+      aRange,
       a,
       a === 0
         ? 'T_L and T_R diverge as a → 0: the two-temperature form needs rotation'
         : 'a counter-rotating hole is the mirror image of (|a|, −m): give a > 0 and −m',
     );
   }
-  const omega = requireFinite('omega', p.omega, 'a finite number > 0 (units of 1/M)');
-  if (!(omega > 0)) throw new InputError('omega', 'a finite number > 0 (units of 1/M)', omega);
+  if (a < MIN_A_RATIO * mass) throw new InputError('hole.a', aRange, a, 'below it T_L ∝ 1/a leaves the double range');
+  const omegaRange = `0 < Mω ≤ ${MAX_MOMEGA} (ω in units of 1/M)`;
+  const omega = requireFinite('omega', p.omega, omegaRange);
+  if (!(omega > 0 && omega * mass <= MAX_MOMEGA)) throw new InputError('omega', omegaRange, omega);
   return { spin, l, m, a, mass, omega };
 }

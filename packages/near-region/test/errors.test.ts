@@ -24,12 +24,14 @@ describe('input validation: InputError naming the parameter', () => {
     expect(() => nearRegionForm({ hole: { a: -0.5 }, mode, omega: 0.01 })).toThrow(/mirror image of \(\|a\|, −m\)/);
   });
 
-  test('the comparison keeps the solver ranges: a ≤ 0.9999 M and 1e-5 ≤ Mω ≤ 30; the form alone takes any 0 < a < M, ω > 0', () => {
+  test('the comparison keeps the solver ranges: a ≤ 0.9999 M and 1e-5 ≤ Mω ≤ 30; the form alone takes 1e-8 M ≤ a < M, 0 < Mω ≤ 30', () => {
     expect(parameterOf(() => compareNearRegion({ hole: { a: 0.99995 }, mode, omega: 0.01 }))).toBe('hole.a');
     expect(parameterOf(() => compareNearRegion({ hole: { a: 0.5 }, mode, omega: 1e-6 }))).toBe('omega');
     // Mω = 1e-6 < mΩ_H: a superradiant (negative) Γ_near, outside the solver's ranges but within the form's
     expect(nearRegionForm({ hole: { a: 0.99995 }, mode, omega: 1e-6 }).gammaNearRegion).toBeLessThan(0);
     expect(parameterOf(() => nearRegionForm({ hole: { a: 1 }, mode, omega: 0.01 }))).toBe('hole.a');
+    expect(parameterOf(() => nearRegionForm({ hole: { a: 5e-324 }, mode, omega: 0.01 }))).toBe('hole.a');
+    expect(parameterOf(() => nearRegionForm({ hole: { a: 0.5 }, mode, omega: 31 }))).toBe('omega');
     expect(parameterOf(() => nearRegionForm({ hole: { a: 0.5 }, mode, omega: 0 }))).toBe('omega');
     expect(parameterOf(() => nearRegionForm({ hole: { a: 0.5 }, mode, omega: Number.NaN }))).toBe('omega');
   });
