@@ -46,15 +46,19 @@ const mapSeconds = (performance.now() - t0) / 1000;
 writeFileSync(join(out, 'validity-points.csv'), toCsv(validityPointsTable(maps)));
 const edges = validityEdgesTable(maps);
 writeFileSync(join(out, 'validity-edges.csv'), toCsv(edges));
-writeFileSync(join(out, 'validity-edges.json'), `${JSON.stringify(toJsonTable(edges), null, 1)}\n`);
+writeFileSync(join(out, 'validity-edges.json'), `${JSON.stringify(toJsonTable(edges), null, 2)}\n`);
 
 console.log(`validity map: ${maps.length} modes × ${A_VALUES.length} a × ${OMEGAS.length} Mω in ${mapSeconds.toFixed(0)} s`);
-console.log('largest Mω on the grid (10 per decade) with |Γ_near/Γ − 1| ≤ 1 % / 10 % there and below; min–max over a = 0.1 … 0.99');
+console.log(
+  'largest Mω on the grid (10 per decade) with |Γ_near/Γ − 1| ≤ 1 % / 10 % there and below; min–max over a = 0.1 … 0.99',
+);
 for (const map of maps) {
   const e1 = map.edges.map((e) => e.within1Percent ?? 0);
   const e10 = map.edges.map((e) => e.within10Percent ?? 0);
   const range = (v) => `${Math.min(...v).toExponential(1)}–${Math.max(...v).toExponential(1)}`;
-  console.log(`  s = ${spinText(map.mode.field.spin)}, l = ${map.mode.l}, m = ${mText(map.mode.m)}: 1 %: ${range(e1)}, 10 %: ${range(e10)}`);
+  console.log(
+    `  s = ${spinText(map.mode.field.spin)}, l = ${map.mode.l}, m = ${mText(map.mode.m)}: 1 %: ${range(e1)}, 10 %: ${range(e10)}`,
+  );
 }
 
 // 2. The first-order rate as Mω → 0 at a = 0.5, against exact Γ; the Page–Starobinsky formula beside it.
@@ -79,7 +83,10 @@ const rateColumns = [
   { name: 'nearRegionRateAt1e-4', unit: 'M', description: '(Γ_near/Γ − 1)/ω at Mω = 1e-4, a = 0.5' },
   { name: 'pageRateAt1e-4', unit: 'M', description: '(Γ_Page/Γ − 1)/ω at Mω = 1e-4, a = 0.5 (Page 1976)' },
 ];
-const rateTable = { columns: rateColumns, rows: rates.map((r) => [r.spin, r.l, r.m, r['near0.001'], r['near0.0001'], r['page0.0001']]) };
+const rateTable = {
+  columns: rateColumns,
+  rows: rates.map((r) => [r.spin, r.l, r.m, r['near0.001'], r['near0.0001'], r['page0.0001']]),
+};
 writeFileSync(join(out, 'rates.csv'), toCsv(rateTable));
 console.log('\nfirst-order rate (ratio − 1)/Mω at a = 0.5 (a linear approach has equal rates at 1e-3 and 1e-4; −2π = −6.283)');
 for (const r of rates) {
@@ -178,4 +185,6 @@ const extremalFigure = {
   height: 260,
 };
 writeFileSync(join(out, 'near-extremal.svg'), `${await renderSvg(extremalFigure)}\n`);
-console.log(`\nwrote ${out}/{validity-points.csv, validity-edges.csv, validity-edges.json, rates.csv, near-extremal.csv, validity-map.svg, near-extremal.svg}`);
+console.log(
+  `\nwrote ${out}/{validity-points.csv, validity-edges.csv, validity-edges.json, rates.csv, near-extremal.csv, validity-map.svg, near-extremal.svg}`,
+);
