@@ -148,6 +148,12 @@ const ENTRIES: Entry[] = [
   { name: 'parseFieldSpin', call: fn(core.parseFieldSpin), args: [or(fc.constantFrom(0, 0.5, '1/2', 1, 2, 3)), or(fc.string())] },
   { name: 'validateField', call: fn(core.validateField), args: [or(fc.record({ spin: or(spinArb) })), or(fc.string())] },
   { name: 'isFermion', call: fn(core.isFermion), args: [or(spinArb)] },
+  { name: 'parseFieldMass', call: fn(core.parseFieldMass), args: [or(fc.double({ min: 0, max: 40 })), or(fc.string())] },
+  {
+    name: 'requireMassless',
+    call: fn(core.requireMassless),
+    args: [or(fc.record({ spin: spinArb, mass: fc.constantFrom(0, 0.1) })), or(fc.string()), or(fc.string())],
+  },
   { name: 'formatFieldSpin', call: fn(core.formatFieldSpin), args: [or(spinArb)] },
   { name: 'geometricTailBound', call: fn(core.geometricTailBound), args: [or(fc.double()), or(fc.double()), or(fc.string())] },
   {
@@ -622,6 +628,7 @@ const LEFT: Record<string, string> = {
   radialSeparationConstant: 'overflows for |ω| near 1e308 (inputs unchecked)',
   unitScales: 'Infinity for masses near 1e-300 kg (physicalBackground checks its range)',
   evolutionTimeUnitSeconds: 'Infinity for masses beyond about 1e100 kg',
+  requireMassless: 'trusts its type: takes the output of validateField',
   conformalWeights: 'trusts its types: takes a checked spin and l',
   logMatchingFactor: 'trusts its types: takes a checked spin, l, Mω and T_L',
   validityPointsTable: 'trusts its type: takes the output of validityMap',
