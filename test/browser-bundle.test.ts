@@ -67,7 +67,7 @@ async function expectNoBuiltins(name: string): Promise<string> {
 }
 
 describe('browser bundles (esbuild, platform browser, format esm) import no Node built-in', () => {
-  for (const name of ['core', 'kerr', 'spheroidal', 'regge-wheeler']) {
+  for (const name of ['core', 'kerr', 'spheroidal', 'regge-wheeler', 'near-region']) {
     test(`packages/${name}: no node: or bare built-in import in the bundle`, async () => {
       await expectNoBuiltins(name);
     });

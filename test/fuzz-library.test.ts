@@ -17,6 +17,7 @@ import * as flux from '@penumbra/flux';
 import * as rw from '@penumbra/regge-wheeler';
 import * as emission from '@penumbra/emission';
 import * as plot from '@penumbra/plot';
+import * as nearRegion from '@penumbra/near-region';
 
 const SEED = 20261203;
 /** Keys whose value may be NaN by contract (reflection: false skips the reflection solve). */
@@ -545,6 +546,42 @@ const ENTRIES: Entry[] = [
   { name: 'autoScale', call: fn(plot.autoScale), args: [or(fc.array(or(fc.double()), { maxLength: 5 })), or(fc.double())] },
   { name: 'axisTitle', call: fn(plot.axisTitle), args: [or(fc.record({ title: or(fc.string()), unit: or(fc.string()) }))] },
   { name: 'validateFigure', call: fn(plot.validateFigure), args: [or(figure), or(fc.string())] },
+  // near-region
+  {
+    name: 'nearRegionForm',
+    call: fn(nearRegion.nearRegionForm),
+    args: [or(fc.record({ hole: or(hole), mode: or(modeArb), omega: or(smallOmega) }))],
+  },
+  {
+    name: 'compareNearRegion',
+    call: fn(nearRegion.compareNearRegion),
+    args: [or(fc.record({ hole: or(hole), mode: or(modeArb), omega: or(smallOmega) })), or(fc.record({ tol: or(cheapTol) }))],
+    runs: 40,
+  },
+  { name: 'thermalFactor', call: fn(nearRegion.thermalFactor), args: [or(spinArb)] },
+  { name: 'conformalWeights', call: fn(nearRegion.conformalWeights), args: [or(spinArb), or(fc.integer({ min: 0, max: 4 }))] },
+  {
+    name: 'logMatchingFactor',
+    call: fn(nearRegion.logMatchingFactor),
+    args: [or(spinArb), or(fc.integer({ min: 0, max: 4 })), or(smallOmega), or(fc.double({ min: 0.1, max: 10 }))],
+  },
+  { name: 'validityPointsTable', call: fn(nearRegion.validityPointsTable), args: [or(fc.constant([]))] },
+  { name: 'validityEdgesTable', call: fn(nearRegion.validityEdgesTable), args: [or(fc.constant([]))] },
+  {
+    name: 'validityMap',
+    call: fn(nearRegion.validityMap),
+    args: [
+      or(
+        fc.record({
+          mode: or(modeArb),
+          aValues: or(fc.array(or(aStar), { maxLength: 2 })),
+          omegaValues: or(fc.array(or(smallOmega), { maxLength: 2 })),
+        }),
+      ),
+      fc.record({ tol: or(fc.constant(1e-2)) }),
+    ],
+    runs: 20,
+  },
 ];
 
 /** The first non-finite number in a result (outside NON_FINITE_KEYS), as a path; functions are not walked. */
@@ -598,6 +635,11 @@ const LEFT: Record<string, string> = {
   radialSeparationConstant: 'overflows for |ω| near 1e308 (inputs unchecked)',
   unitScales: 'Infinity for masses near 1e-300 kg (physicalBackground checks its range)',
   evolutionTimeUnitSeconds: 'Infinity for masses beyond about 1e100 kg',
+  requireMassless: 'trusts its type: takes the output of validateField',
+  conformalWeights: 'trusts its types: takes a checked spin and l',
+  logMatchingFactor: 'trusts its types: takes a checked spin, l, Mω and T_L',
+  validityPointsTable: 'trusts its type: takes the output of validityMap',
+  validityEdgesTable: 'trusts its type: takes the output of validityMap',
 };
 
 const typed = (error: unknown) => error instanceof core.InputError || error instanceof core.ConvergenceError;
@@ -647,7 +689,7 @@ describe('hostile-input fuzz of the library packages (fast-check, fixed seed)', 
 
   test('every exported function of the library packages is in the fuzz list', () => {
     const covered = new Set([...ENTRIES.map((e) => e.name), 'renderSvg', 'InputError', 'ConvergenceError']);
-    const modules = { core, kerr, spheroidal, radial, flux, rw, emission, plot };
+    const modules = { core, kerr, spheroidal, radial, flux, rw, emission, plot, nearRegion };
     const missing = Object.values(modules).flatMap((m) =>
       Object.entries(m)
         .filter(([name, v]) => typeof v === 'function' && !covered.has(name))

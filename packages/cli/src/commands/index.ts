@@ -29,6 +29,11 @@ export const commands: readonly CommandEntry[] = [
     load: () => import('./crossSection.js'),
   },
   {
+    name: 'near-region',
+    summary: 'two-temperature (near-region) form of Γ for one mode: T_L, T_R, c_L, c_R, weights, and its ratio to the exact Γ',
+    load: () => import('./nearRegion.js'),
+  },
+  {
     name: 'table',
     summary: 'compute a grid of Γ, reflection, cross-sections or spectra on every core; sharded and resumable',
     load: () => import('./table.js'),
