@@ -27,6 +27,7 @@ import {
   type RadialSample,
   type TwoSidedOptions,
 } from '@penumbra/radial';
+import { checkGeometry, gammaErrorEstimate, roundingFloor } from './errorEstimate.js';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
 import { GREYBODY_OPTIONS, checkGreybodyOptions, checkProblem, type GreybodyOptions, type GreybodyProblem } from './validate.js';
 
@@ -105,6 +106,26 @@ function odeTolerance(tol: number): number {
   return Math.max(tol * 1e-3, 1e-14);
 }
 
+/** An estimate within this factor of the rounding floor after the last attempt has stalled on rounding, not on the integration. */
+const STALL_FACTOR = 10;
+
+/**
+ * The refusal of a tolerance below the rounding floor of this mode's solve:
+ * an InputError naming `tol`, with the reason and the tightest tolerance
+ * available here (the floor rounded up to two figures).
+ */
+function tolBelowRoundingFloor(tol: number, floor: number, evaluations: number): InputError {
+  // (`floor` is the rounding floor, or the estimate reached where it stalled at a few times that floor)
+  const unit = 10 ** (Math.floor(Math.log10(floor)) - 1);
+  const tightest = Number((Math.ceil(floor / unit) * unit).toPrecision(2));
+  return new InputError(
+    'tol',
+    `tol ≥ ${tightest} for this mode`,
+    tol,
+    `double rounding over ${evaluations} right-hand-side evaluations limits the relative accuracy of Γ to about ${floor.toExponential(1)} for this mode; a looser tol or a smaller |a| or Mω reaches it`,
+  );
+}
+
 /**
  * The greybody factor Γ of one mode: the fraction of an incident wave's flux
  * the hole absorbs, with the reflection from an independent solve and an
@@ -134,9 +155,11 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
   const wantReflection = options.reflection !== false;
   for (let attempt = 1; attempt <= 3; attempt++) {
     const fine = solveMode(p, { ...common, tol: odeTol, reflection: wantReflection });
-    const coarse = solveMode(p, { ...common, tol: odeTol * 10, reflection: false });
-    // ln-difference of Γ is its relative difference.
-    const relError = Math.abs(Math.expm1(fine.lnGamma - coarse.lnGamma)) + 1e-15;
+    // The check solve moves the start and matching radii too, so it sees the series truncation and part of the rounding (errorEstimate.ts).
+    const check = solveMode(p, { ...checkGeometry(hole, fine.diagnostics), integrator, tol: odeTol * 10, reflection: false });
+    const floor = roundingFloor(fine.diagnostics);
+    if (attempt === 1 && floor > tol) throw tolBelowRoundingFloor(tol, floor, fine.diagnostics.rhsEvaluations);
+    const relError = gammaErrorEstimate(fine.sign, fine.lnGamma, check.lnGamma, fine.diagnostics.errorEstimate, floor);
     if (relError <= tol) {
       return result(p, {
         sign: fine.sign,
@@ -149,14 +172,16 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
         attempts: attempt,
         integrator,
         d: fine.diagnostics,
-        extraEvaluations: coarse.diagnostics.rhsEvaluations,
+        extraEvaluations: check.diagnostics.rhsEvaluations,
       });
     }
     if (attempt === 3) {
+      // Stalled at the rounding level: no integrator tolerance reaches tol here, so tol is refused (naming the tightest available).
+      if (relError <= STALL_FACTOR * floor) throw tolBelowRoundingFloor(tol, relError, fine.diagnostics.rhsEvaluations);
       throw new ConvergenceError('greybody factor did not reach the requested accuracy', {
         ...fine.diagnostics,
         errorEstimate: relError,
-        message: `relative error ${relError.toExponential(2)} > tol ${tol} after 3 attempts (last integrator tolerance ${odeTol})`,
+        message: `relative error ${relError.toExponential(2)} > tol ${tol} after 3 attempts (last integrator tolerance ${odeTol}; rounding floor ${floor.toExponential(2)})`,
         spin,
         l: p.l,
         m,
