@@ -25,8 +25,9 @@ export const CHECK_MATCH_FACTOR = 1.4;
  * right-hand-side evaluations (rounding errors of the state add up like a
  * random walk). The factor: the largest ratio of true error (against the
  * mpmath fixture) to ε√N over the fixture rows at tol 1e-12, 1e-10 and 1e-8
- * is about 13 once the check solve moves the radii; 25 leaves a margin of two
- * (common practice, no source).
+ * is about 24, and with the other terms of the estimate every row's estimate
+ * is at least 2.7 times its true error (bench/honesty.bench.mjs); common
+ * practice, no source.
  */
 export const ROUNDING_FACTOR = 25;
 
