@@ -58,7 +58,7 @@ function honesty(label, rows, solve) {
   out.worst.sort((x, y) => y.ratio - x.ratio);
   const sec = (performance.now() - t0) / 1e3;
   console.log(
-    `${label}: ${rows.length} modes in ${sec.toFixed(0)} s — solved ${out.solved}, refused up front ${out.refused}, ConvergenceError ${out.notConverged}`,
+    `${label}: ${rows.length} modes in ${sec.toFixed(0)} s — solved ${out.solved}, refused (InputError naming tol) ${out.refused}, ConvergenceError ${out.notConverged}`,
   );
   console.log(
     `  estimates below true error: ${out.below} of ${out.solved}; max ratio true/estimate ${fmt(maximum(out.ratios))}, median ${fmt(median(out.ratios))}`,
