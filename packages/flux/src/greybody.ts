@@ -27,6 +27,7 @@ import {
   type RadialSample,
   type TwoSidedOptions,
 } from '@penumbra/radial';
+import { checkGeometry, gammaErrorEstimate, roundingFloor } from './errorEstimate.js';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
 import { GREYBODY_OPTIONS, checkGreybodyOptions, checkProblem, type GreybodyOptions, type GreybodyProblem } from './validate.js';
 
@@ -68,7 +69,7 @@ export interface GreybodySolution {
   reflection: number;
   /** |Γ + reflection − 1|, an accuracy check of both solves and the normalisations */
   residual: number;
-  /** estimated relative error of Γ (from a solve at a ten times looser tolerance) */
+  /** estimated relative error of Γ (a check solve at a ten times looser tolerance from moved start and matching radii, plus a rounding floor; errorEstimate.ts) */
   relError: number;
   /** amplification factor Z = −Γ (positive when the wave is amplified) */
   amplification: number;
@@ -105,12 +106,36 @@ function odeTolerance(tol: number): number {
   return Math.max(tol * 1e-3, 1e-14);
 }
 
+/** An estimate within this factor of the rounding floor after the last attempt has stalled on rounding, not on the integration. */
+const STALL_FACTOR = 10;
+
+/**
+ * The refusal of a tolerance below what double rounding allows for this mode:
+ * an InputError naming `tol`, with the reason (the rounding floor `floor`)
+ * and the tightest tolerance available here, the best estimate reached
+ * (`reached`) rounded up to two figures: the same request at that tolerance
+ * repeats the same deterministic solves (the working tolerance is the same
+ * for every tol ≤ 1e-11) and is met.
+ */
+function tolBelowRoundingFloor(tol: number, floor: number, reached: number, evaluations: number): InputError {
+  const unit = 10 ** (Math.floor(Math.log10(reached)) - 1);
+  const tightest = Number((Math.ceil(reached / unit) * unit).toPrecision(2));
+  return new InputError(
+    'tol',
+    `tol ≥ ${tightest} for this mode`,
+    tol,
+    `double rounding over ${evaluations} right-hand-side evaluations puts a floor of ${floor.toExponential(1)} under the relative error of Γ for this mode; a looser tol, or a smaller |a| or Mω, is reachable`,
+  );
+}
+
 /**
  * The greybody factor Γ of one mode: the fraction of an incident wave's flux
  * the hole absorbs, with the reflection from an independent solve and an
- * error estimate from a solve at a ten times looser tolerance. Throws
- * InputError for a bad problem or option, ConvergenceError (with diagnostics)
- * if the requested accuracy is not reached.
+ * error estimate from a check solve (errorEstimate.ts). Throws
+ * InputError for a bad problem or option, InputError naming `tol` (with the
+ * tightest tolerance available) when double rounding rules the requested
+ * accuracy out for this mode, and ConvergenceError (with diagnostics) if the
+ * requested accuracy is not reached otherwise.
  *
  * @example greybody({ hole: { a: 0.9 }, mode: { field: { spin: 1 }, l: 1, m: 1 }, omega: 0.3 })
  */
@@ -132,11 +157,16 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
 
   let odeTol = odeTolerance(tol);
   const wantReflection = options.reflection !== false;
+  let best = Number.POSITIVE_INFINITY;
   for (let attempt = 1; attempt <= 3; attempt++) {
     const fine = solveMode(p, { ...common, tol: odeTol, reflection: wantReflection });
-    const coarse = solveMode(p, { ...common, tol: odeTol * 10, reflection: false });
-    // ln-difference of Γ is its relative difference.
-    const relError = Math.abs(Math.expm1(fine.lnGamma - coarse.lnGamma)) + 1e-15;
+    // The check solve moves the start and matching radii too, so it sees the series truncation and part of the rounding (errorEstimate.ts).
+    const check = solveMode(p, { ...checkGeometry(hole, fine.diagnostics), integrator, tol: odeTol * 10, reflection: false });
+    const floor = roundingFloor(fine.diagnostics);
+    const relError = gammaErrorEstimate(fine.sign, fine.lnGamma, check.lnGamma, fine.diagnostics.errorEstimate, floor);
+    // The best estimate of any attempt is what a repeated request reaches (the solves are deterministic).
+    best = Math.min(best, relError);
+    if (attempt === 1 && floor > tol) throw tolBelowRoundingFloor(tol, floor, best, fine.diagnostics.rhsEvaluations);
     if (relError <= tol) {
       return result(p, {
         sign: fine.sign,
@@ -149,14 +179,16 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
         attempts: attempt,
         integrator,
         d: fine.diagnostics,
-        extraEvaluations: coarse.diagnostics.rhsEvaluations,
+        extraEvaluations: check.diagnostics.rhsEvaluations,
       });
     }
     if (attempt === 3) {
+      // Stalled at the rounding level: no integrator tolerance reaches tol here, so tol is refused (naming the tightest available).
+      if (relError <= STALL_FACTOR * floor) throw tolBelowRoundingFloor(tol, floor, best, fine.diagnostics.rhsEvaluations);
       throw new ConvergenceError('greybody factor did not reach the requested accuracy', {
         ...fine.diagnostics,
         errorEstimate: relError,
-        message: `relative error ${relError.toExponential(2)} > tol ${tol} after 3 attempts (last integrator tolerance ${odeTol})`,
+        message: `relative error ${relError.toExponential(2)} > tol ${tol} after 3 attempts (last integrator tolerance ${odeTol}; rounding floor ${floor.toExponential(2)})`,
         spin,
         l: p.l,
         m,

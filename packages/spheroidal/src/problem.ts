@@ -31,11 +31,14 @@ export interface SpheroidalProblem {
 /** Options of the real-c solves (`spheroidalEigenvalue`, `spheroidalHarmonic`). */
 export interface SpheroidalOptions {
   /**
-   * Leaver's continued fraction as a second method: 'off' (default), 'check'
-   * (solve it from the spectral value and report the agreement), or 'polish'
-   * (also adopt its root when the two agree to 1e-9). Measured against a
-   * 40-digit reference the spectral value is already at rounding level
-   * (docs/spheroidal.md), so 'polish' does not improve real-c eigenvalues.
+   * Leaver's continued fraction as a second method: 'off' (default: the
+   * spectral value alone), 'check' (solve the fraction by Newton from the
+   * spectral value and report the agreement; above 1e-7 it is a
+   * ConvergenceError), or 'polish' (check, and adopt the root only where it
+   * agrees within the spectral error bound). Measured against a 40-digit
+   * reference the spectral value is already at rounding level while the
+   * fraction loses digits at large |c| (docs/spheroidal.md), so 'polish'
+   * never moves a real-c value beyond its error estimate.
    */
   leaver?: 'off' | 'check' | 'polish';
   /** Use and update the per-mode continuation cache (default true). */
