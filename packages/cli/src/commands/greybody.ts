@@ -21,6 +21,7 @@ Options:
   --m M        azimuthal number, |m| ≤ l with m − S an integer
   --a A        the hole's spin parameter a/M; negative: counter-rotating relative to m > 0
   --omega W    frequency Mω in [1e-5, 30], or a grid START:STOP:COUNT
+  --field-mass MU  the field's mass Mμ (units of 1/M, default 0; spin 0 only; needs Mω > Mμ)
   --log        space a frequency grid geometrically
   --tol T      requested relative accuracy of Γ (default 1e-8, 1e-12 … 1e-2)
   --json       JSON: one object, or an array for a grid
@@ -33,6 +34,7 @@ and an error estimate; a mode that cannot reach --tol is an error, not a number.
 Examples:
   penumbra greybody --spin 1 --l 1 --m 1 --a 0.9 --omega 0.3 --json
   penumbra greybody --spin 2 --l 2 --m 2 --a 0.99 --omega 0.01:2:40 --csv
+  penumbra greybody --spin 0 --l 1 --m 1 --a 0.9 --omega 0.4 --field-mass 0.3 --json
 `,
   run(argv, io) {
     const { values } = parseOptions(argv, {
@@ -43,6 +45,7 @@ Examples:
       omega: { type: 'string' },
       log: { type: 'boolean' },
       tol: { type: 'string' },
+      'field-mass': { type: 'string' },
       ...OUTPUT_OPTIONS,
     });
     const format = outputFormat(values);
@@ -53,17 +56,22 @@ Examples:
     const omegaText = requireOption(values.omega, '--omega', 'the frequency Mω or START:STOP:COUNT');
     const grid = parseRange('--omega', omegaText, { min: 0, exclusive: true, log: values.log ?? false, maxCount: 10_000 });
     const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol);
+    const fieldMass = values['field-mass'] === undefined ? 0 : parseNumber('--field-mass', values['field-mass'], { min: 0 });
+    // A massless field is passed without a mass, so --field-mass 0 is the massless computation exactly.
+    const field = fieldMass > 0 ? { spin: spin as FieldSpin, mass: fieldMass } : { spin: spin as FieldSpin };
     const results: GreybodySolution[] = [];
     const progress = progressReporter(io, 'greybody: frequencies done', grid.count);
     for (const [i, omega] of grid.values.entries()) {
-      results.push(greybody({ hole: { a }, mode: { field: { spin: spin as FieldSpin }, l, m }, omega }, { tol }));
+      results.push(greybody({ hole: { a }, mode: { field, l, m }, omega }, { tol }));
       progress(i + 1);
     }
     const single = grid.count === 1 && !omegaText.includes(':');
     writeOutput(io, format, {
       json: () => (single ? greybodyJson(results[0]) : results.map(greybodyJson)),
       csv: () => greybodyTable(results),
-      text: () => `greybody factor, s = ${spin}, l = ${l}, m = ${m}, a = ${a} M\n` + formatTable(greybodyTextRows(results)),
+      text: () =>
+        `greybody factor, s = ${spin}, l = ${l}, m = ${m}, a = ${a} M${fieldMass > 0 ? `, Mμ = ${fieldMass}` : ''}\n` +
+        formatTable(greybodyTextRows(results)),
     });
     return 0;
   },
