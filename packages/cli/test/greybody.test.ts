@@ -13,6 +13,72 @@ describe('penumbra greybody', () => {
     expect(json.gamma).toBe(greybody({ hole: { a: 0.9 }, mode: { field: { spin: 1 }, l: 1, m: 1 }, omega: 0.3 }).gamma);
     expect(json.diagnostics).toHaveProperty('rhsEvaluations');
   });
+  test('--field-mass: a massive scalar prints the massless keys plus fieldMass, equal to the library; --field-mass 0 prints the massless output byte for byte', async () => {
+    const args = ['greybody', '--spin', '0', '--l', '1', '--m', '1', '--a', '0.9', '--omega', '0.4'];
+    const massive = await run(...args, '--field-mass', '0.3', '--json');
+    expect(massive.code).toBe(0);
+    const json = JSON.parse(massive.stdout);
+    const massless = JSON.parse((await run(...args, '--json')).stdout);
+    expect(Object.keys(json).filter((k) => k !== 'fieldMass')).toEqual(Object.keys(massless));
+    expect(json.fieldMass).toBe(0.3);
+    expect(json.gamma).toBe(
+      greybody({ hole: { a: 0.9 }, mode: { field: { spin: 0, mass: 0.3 }, l: 1, m: 1 }, omega: 0.4 }).gamma,
+    );
+    expect((await run(...args, '--field-mass', '0', '--json')).stdout).toBe((await run(...args, '--json')).stdout);
+  });
+  test('--field-mass refuses ω ≤ μ (no wave reaches infinity) and a massive field of spin 1, naming the parameter', async () => {
+    const below = await run(
+      'greybody',
+      '--spin',
+      '0',
+      '--l',
+      '1',
+      '--m',
+      '1',
+      '--a',
+      '0.9',
+      '--omega',
+      '0.25',
+      '--field-mass',
+      '0.3',
+    );
+    expect(below.code).not.toBe(0);
+    expect(below.stderr).toMatch(/omega/);
+    expect(below.stderr).toMatch(/no wave reaches infinity/);
+    const vector = await run(
+      'greybody',
+      '--spin',
+      '1',
+      '--l',
+      '1',
+      '--m',
+      '1',
+      '--a',
+      '0.9',
+      '--omega',
+      '0.4',
+      '--field-mass',
+      '0.3',
+    );
+    expect(vector.code).not.toBe(0);
+    expect(vector.stderr).toMatch(/field\.mass/);
+    const negative = await run(
+      'greybody',
+      '--spin',
+      '0',
+      '--l',
+      '1',
+      '--m',
+      '1',
+      '--a',
+      '0.9',
+      '--omega',
+      '0.4',
+      '--field-mass',
+      '-1',
+    );
+    expect(negative.code).not.toBe(0);
+  });
   test('accepts half-integer spins and mode numbers as 1/2 and 0.5', async () => {
     const a = JSON.parse(
       (await run('greybody', '--spin', '1/2', '--l', '3/2', '--m', '-1/2', '--a', '0.5', '--omega', '0.4', '--json')).stdout,
