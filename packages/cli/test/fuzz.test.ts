@@ -87,7 +87,7 @@ const FLAGS: Record<string, string[]> = {
 const OPTIONS: Record<string, string[]> = {
   kerr: ['a', 'mass', 'unit'],
   greybody: ['spin', 'l', 'm', 'a', 'omega', 'tol', 'field-mass'],
-  'cross-section': ['spin', 'a', 'omega', 'tol'],
+  'cross-section': ['spin', 'a', 'omega', 'tol', 'field-mass'],
   spheroidal: ['spin', 'l', 'm', 'c', 'a', 'omega', 'theta'],
   emission: ['a', 'spin', 'mass', 'unit', 'omega', 'tol'],
   evolve: ['a', 'mass', 'unit', 'content', 'below', 'table-points', 'points'],

@@ -165,6 +165,16 @@ describe('massive scalar cross-section', () => {
     expect(massive.field).toEqual({ spin: 0, mass: 0.3 });
   });
 
+  it('geometric optics for slow particles: σ → π b_c², b_c² = M²(8v⁴ + 20v² − 1 + (1 + 8v²)^{3/2})/(2v⁴) (capture of massive particles by a Schwarzschild hole, value from memory; 27M² at v = 1, 16M²/v² as v → 0) — within 3 % at Mω = 3 for v = 0.8 and 0.6', () => {
+    for (const v of [0.8, 0.6]) {
+      const mu = 3 * Math.sqrt(1 - v * v);
+      const s = absorptionCrossSection({ hole: { a: 0 }, field: { spin: 0, mass: mu }, omega: 3 }, { tol: 1e-6 });
+      const v2 = v * v;
+      const bc2 = (8 * v2 * v2 + 20 * v2 - 1 + (1 + 8 * v2) ** 1.5) / (2 * v2 * v2);
+      expect(Math.abs(s.sigma / (Math.PI * bc2) - 1), `v=${v}`).toBeLessThan(0.03);
+    }
+  });
+
   it('refuses Mω ≤ Mμ with an InputError naming omega', () => {
     expect(() => absorptionCrossSection({ hole: { a: 0 }, field: { spin: 0, mass: 0.5 }, omega: 0.4 })).toThrow(
       expect.objectContaining({ parameter: 'omega' }),

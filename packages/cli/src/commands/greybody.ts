@@ -1,6 +1,7 @@
 import type { FieldSpin } from '@penumbra/core';
 import { greybody, type GreybodySolution } from '@penumbra/flux';
 import type { Command } from '../command.js';
+import { FIELD_MASS_HELP, fieldWithMass } from '../fieldMass.js';
 import { formatTable } from '../format.js';
 import { greybodyJson, greybodyTable, greybodyTextRows } from '../greybodyTable.js';
 import { parseFieldSpin, parseModeNumber, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
@@ -21,7 +22,7 @@ Options:
   --m M        azimuthal number, |m| ≤ l with m − S an integer
   --a A        the hole's spin parameter a/M; negative: counter-rotating relative to m > 0
   --omega W    frequency Mω in [1e-5, 30], or a grid START:STOP:COUNT
-  --field-mass MU  the field's mass Mμ (units of 1/M, default 0; spin 0 only; needs Mω > Mμ)
+  ${FIELD_MASS_HELP}
   --log        space a frequency grid geometrically
   --tol T      requested relative accuracy of Γ (default 1e-8, 1e-12 … 1e-2)
   --json       JSON: one object, or an array for a grid
@@ -56,9 +57,8 @@ Examples:
     const omegaText = requireOption(values.omega, '--omega', 'the frequency Mω or START:STOP:COUNT');
     const grid = parseRange('--omega', omegaText, { min: 0, exclusive: true, log: values.log ?? false, maxCount: 10_000 });
     const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol);
-    const fieldMass = values['field-mass'] === undefined ? 0 : parseNumber('--field-mass', values['field-mass'], { min: 0 });
-    // A massless field is passed without a mass, so --field-mass 0 is the massless computation exactly.
-    const field = fieldMass > 0 ? { spin: spin as FieldSpin, mass: fieldMass } : { spin: spin as FieldSpin };
+    const field = fieldWithMass(spin as FieldSpin, values['field-mass']);
+    const fieldMass = field.mass ?? 0;
     const results: GreybodySolution[] = [];
     const progress = progressReporter(io, 'greybody: frequencies done', grid.count);
     for (const [i, omega] of grid.values.entries()) {
