@@ -146,6 +146,13 @@ const ENTRIES: Entry[] = [
   { name: 'requireKeyedObject', call: fn(core.requireKeyedObject), args: [or(fc.string()), hostile, fc.constant(['a', 'mass'])] },
   { name: 'parseFieldSpin', call: fn(core.parseFieldSpin), args: [or(fc.constantFrom(0, 0.5, '1/2', 1, 2, 3)), or(fc.string())] },
   { name: 'validateField', call: fn(core.validateField), args: [or(fc.record({ spin: or(spinArb) })), or(fc.string())] },
+  { name: 'parseFieldMass', call: fn(core.parseFieldMass), args: [or(fc.double({ min: 0, max: 40 })), or(fc.string())] },
+  // the field is a validated CheckedField (type-trusted); the parameter names are the hostile part.
+  {
+    name: 'requireMassless',
+    call: fn(core.requireMassless),
+    args: [fc.record({ spin: spinArb, mass: fc.double({ min: 0, max: 1, noNaN: true }) }), or(fc.string()), or(fc.string())],
+  },
   { name: 'isFermion', call: fn(core.isFermion), args: [or(spinArb)] },
   { name: 'formatFieldSpin', call: fn(core.formatFieldSpin), args: [or(spinArb)] },
   { name: 'geometricTailBound', call: fn(core.geometricTailBound), args: [or(fc.double()), or(fc.double()), or(fc.string())] },
