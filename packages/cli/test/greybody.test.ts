@@ -26,6 +26,17 @@ describe('penumbra greybody', () => {
     );
     expect((await run(...args, '--field-mass', '0', '--json')).stdout).toBe((await run(...args, '--json')).stdout);
   });
+  test('--field-mass with --field-mass-unit MeV and a hole mass converts μc² to Mμ = GMμc²/(ħc³) (CODATA 2018 G, h, c, eV) to 1e-12, and needs --mass', async () => {
+    const args = ['greybody', '--spin', '0', '--l', '0', '--m', '0', '--a', '0', '--omega', '0.5'];
+    const r = await run(...args, '--field-mass', '135', '--field-mass-unit', 'MeV', '--mass', '1e14', '--unit', 'g', '--json');
+    expect(r.code).toBe(0);
+    const [G, hbar, c, eV] = [6.6743e-11, 6.62607015e-34 / (2 * Math.PI), 299792458, 1.602176634e-19];
+    const expected = (G * 1e11 * 135e6 * eV) / (hbar * c ** 3);
+    expect(Math.abs(JSON.parse(r.stdout).fieldMass / expected - 1)).toBeLessThan(1e-12);
+    const missing = await run(...args, '--field-mass', '135', '--field-mass-unit', 'MeV');
+    expect(missing.code).toBe(2);
+    expect(missing.stderr).toMatch(/--mass/);
+  });
   test('--field-mass refuses ω ≤ μ (no wave reaches infinity) and a massive field of spin 1, naming the parameter', async () => {
     const below = await run(
       'greybody',

@@ -1,7 +1,7 @@
 import type { FieldSpin } from '@penumbra/core';
 import { greybody, type GreybodySolution } from '@penumbra/flux';
 import type { Command } from '../command.js';
-import { FIELD_MASS_HELP, fieldWithMass } from '../fieldMass.js';
+import { FIELD_MASS_HELP, FIELD_MASS_OPTIONS, fieldWithMass } from '../fieldMass.js';
 import { formatTable } from '../format.js';
 import { greybodyJson, greybodyTable, greybodyTextRows } from '../greybodyTable.js';
 import { parseFieldSpin, parseModeNumber, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
@@ -23,6 +23,8 @@ Options:
   --a A        the hole's spin parameter a/M; negative: counter-rotating relative to m > 0
   --omega W    frequency Mω in [1e-5, 30], or a grid START:STOP:COUNT
   ${FIELD_MASS_HELP}
+  --mass M     hole mass, only to convert --field-mass from an energy unit (results stay in units of M)
+  --unit U     g, kg or msun (default g)
   --log        space a frequency grid geometrically
   --tol T      requested relative accuracy of Γ (default 1e-8, 1e-12 … 1e-2)
   --json       JSON: one object, or an array for a grid
@@ -36,6 +38,7 @@ Examples:
   penumbra greybody --spin 1 --l 1 --m 1 --a 0.9 --omega 0.3 --json
   penumbra greybody --spin 2 --l 2 --m 2 --a 0.99 --omega 0.01:2:40 --csv
   penumbra greybody --spin 0 --l 1 --m 1 --a 0.9 --omega 0.4 --field-mass 0.3 --json
+  penumbra greybody --spin 0 --l 0 --m 0 --a 0 --omega 0.5 --field-mass 135 --field-mass-unit MeV --mass 1e14
 `,
   run(argv, io) {
     const { values } = parseOptions(argv, {
@@ -46,7 +49,9 @@ Examples:
       omega: { type: 'string' },
       log: { type: 'boolean' },
       tol: { type: 'string' },
-      'field-mass': { type: 'string' },
+      ...FIELD_MASS_OPTIONS,
+      mass: { type: 'string' },
+      unit: { type: 'string' },
       ...OUTPUT_OPTIONS,
     });
     const format = outputFormat(values);
@@ -57,7 +62,7 @@ Examples:
     const omegaText = requireOption(values.omega, '--omega', 'the frequency Mω or START:STOP:COUNT');
     const grid = parseRange('--omega', omegaText, { min: 0, exclusive: true, log: values.log ?? false, maxCount: 10_000 });
     const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol);
-    const field = fieldWithMass(spin as FieldSpin, values['field-mass']);
+    const field = fieldWithMass(spin as FieldSpin, values);
     const fieldMass = field.mass ?? 0;
     const results: GreybodySolution[] = [];
     const progress = progressReporter(io, 'greybody: frequencies done', grid.count);
