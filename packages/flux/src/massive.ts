@@ -7,7 +7,11 @@ import { InputError, formatFieldSpin, type FieldSpin } from '@penumbra/core';
 import type { GreybodySolution } from './greybody.js';
 import type { CheckedProblem, GreybodyOptions } from './validate.js';
 
-/** A massive-field solver of its own: the checked problem and the caller's options in, the usual solution out. */
+/**
+ * A massive-field solver of its own: the checked problem and the caller's
+ * (unvalidated) options in — it validates them, and may accept options of its
+ * own — the usual solution out. Adding one is one entry in MASSIVE_ROUTES.
+ */
 export type MassiveSolver = (problem: CheckedProblem, options: GreybodyOptions | undefined) => GreybodySolution;
 
 /**
