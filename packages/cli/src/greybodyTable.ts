@@ -11,6 +11,8 @@ export function greybodyJson(r: GreybodySolution): Record<string, unknown> {
     m: r.mode.m,
     a: r.hole.a,
     mass: r.hole.mass,
+    // the field's mass Mμ, only for a massive field (massless output is unchanged)
+    ...(r.mode.field.mass === undefined ? {} : { fieldMass: r.mode.field.mass }),
     omega: r.omega,
     gamma: r.gamma,
     ...(r.log10Gamma === undefined ? {} : { log10Gamma: r.log10Gamma }),

@@ -66,6 +66,8 @@ const PLAUSIBLE: Record<string, string[]> = {
   m: ['0', '1', '-1', '1/2', '-1/2', '2'],
   omega: ['0.1', '0.3', '1e-5', '0.01:0.5:3', '0.1:0.2:2', '31', '0'],
   tol: ['1e-2', '1e-3', '1e-13', '0.5'],
+  'field-mass': ['0', '0.05', '0.3', '-0.1', '30', '135'],
+  'field-mass-unit': ['MeV', 'GeV', 'eV', 'TeV'],
   mass: ['1', '2', '1e15', '1e155', '1e-160'],
   unit: ['g', 'kg', 'msun', 'lb'],
   c: ['0', '0.5', '-2', '1e3'],
@@ -86,8 +88,8 @@ const FLAGS: Record<string, string[]> = {
 };
 const OPTIONS: Record<string, string[]> = {
   kerr: ['a', 'mass', 'unit'],
-  greybody: ['spin', 'l', 'm', 'a', 'omega', 'tol'],
-  'cross-section': ['spin', 'a', 'omega', 'tol'],
+  greybody: ['spin', 'l', 'm', 'a', 'omega', 'tol', 'field-mass', 'field-mass-unit', 'mass', 'unit'],
+  'cross-section': ['spin', 'a', 'omega', 'tol', 'field-mass', 'field-mass-unit', 'mass', 'unit'],
   spheroidal: ['spin', 'l', 'm', 'c', 'a', 'omega', 'theta'],
   emission: ['a', 'spin', 'mass', 'unit', 'omega', 'tol'],
   evolve: ['a', 'mass', 'unit', 'content', 'below', 'table-points', 'points'],

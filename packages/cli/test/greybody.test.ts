@@ -13,6 +13,83 @@ describe('penumbra greybody', () => {
     expect(json.gamma).toBe(greybody({ hole: { a: 0.9 }, mode: { field: { spin: 1 }, l: 1, m: 1 }, omega: 0.3 }).gamma);
     expect(json.diagnostics).toHaveProperty('rhsEvaluations');
   });
+  test('--field-mass: a massive scalar prints the massless keys plus fieldMass, equal to the library; --field-mass 0 prints the massless output byte for byte', async () => {
+    const args = ['greybody', '--spin', '0', '--l', '1', '--m', '1', '--a', '0.9', '--omega', '0.4'];
+    const massive = await run(...args, '--field-mass', '0.3', '--json');
+    expect(massive.code).toBe(0);
+    const json = JSON.parse(massive.stdout);
+    const massless = JSON.parse((await run(...args, '--json')).stdout);
+    expect(Object.keys(json).filter((k) => k !== 'fieldMass')).toEqual(Object.keys(massless));
+    expect(json.fieldMass).toBe(0.3);
+    expect(json.gamma).toBe(
+      greybody({ hole: { a: 0.9 }, mode: { field: { spin: 0, mass: 0.3 }, l: 1, m: 1 }, omega: 0.4 }).gamma,
+    );
+    expect((await run(...args, '--field-mass', '0', '--json')).stdout).toBe((await run(...args, '--json')).stdout);
+  });
+  test('--field-mass with --field-mass-unit MeV and a hole mass converts μc² to Mμ = GMμc²/(ħc³) (CODATA 2018 G, h, c, eV) to 1e-12, and needs --mass', async () => {
+    const args = ['greybody', '--spin', '0', '--l', '0', '--m', '0', '--a', '0', '--omega', '0.5'];
+    const r = await run(...args, '--field-mass', '135', '--field-mass-unit', 'MeV', '--mass', '1e14', '--unit', 'g', '--json');
+    expect(r.code).toBe(0);
+    const [G, hbar, c, eV] = [6.6743e-11, 6.62607015e-34 / (2 * Math.PI), 299792458, 1.602176634e-19];
+    const expected = (G * 1e11 * 135e6 * eV) / (hbar * c ** 3);
+    expect(Math.abs(JSON.parse(r.stdout).fieldMass / expected - 1)).toBeLessThan(1e-12);
+    const missing = await run(...args, '--field-mass', '135', '--field-mass-unit', 'MeV');
+    expect(missing.code).toBe(2);
+    expect(missing.stderr).toMatch(/--mass/);
+  });
+  test('--field-mass refuses ω ≤ μ (no wave reaches infinity) and a massive field of spin 1, naming the parameter', async () => {
+    const below = await run(
+      'greybody',
+      '--spin',
+      '0',
+      '--l',
+      '1',
+      '--m',
+      '1',
+      '--a',
+      '0.9',
+      '--omega',
+      '0.25',
+      '--field-mass',
+      '0.3',
+    );
+    expect(below.code).not.toBe(0);
+    expect(below.stderr).toMatch(/omega/);
+    expect(below.stderr).toMatch(/no wave reaches infinity/);
+    const vector = await run(
+      'greybody',
+      '--spin',
+      '1',
+      '--l',
+      '1',
+      '--m',
+      '1',
+      '--a',
+      '0.9',
+      '--omega',
+      '0.4',
+      '--field-mass',
+      '0.3',
+    );
+    expect(vector.code).not.toBe(0);
+    expect(vector.stderr).toMatch(/field\.mass/);
+    const negative = await run(
+      'greybody',
+      '--spin',
+      '0',
+      '--l',
+      '1',
+      '--m',
+      '1',
+      '--a',
+      '0.9',
+      '--omega',
+      '0.4',
+      '--field-mass',
+      '-1',
+    );
+    expect(negative.code).not.toBe(0);
+  });
   test('accepts half-integer spins and mode numbers as 1/2 and 0.5', async () => {
     const a = JSON.parse(
       (await run('greybody', '--spin', '1/2', '--l', '3/2', '--m', '-1/2', '--a', '0.5', '--omega', '0.4', '--json')).stdout,

@@ -31,11 +31,14 @@ export interface ModeContext {
   fermion: boolean;
   greybodyTol: number;
   counters: ModeCounters;
+  /** field mass Mμ (0 when massless; only spin 0 has a massive greybody route) */
+  fieldMass: number;
 }
 
-/** The context of a field of spin `spin` on the unit-mass hole with a/M = aStar ≥ 0. */
-export function modeContext(spin: FieldSpin, aStar: number, greybodyTol: number): ModeContext {
+/** The context of a field of spin `spin` (and mass Mμ, default 0) on the unit-mass hole with a/M = aStar ≥ 0. */
+export function modeContext(spin: FieldSpin, aStar: number, greybodyTol: number, fieldMass = 0): ModeContext {
   return {
+    fieldMass,
     spin,
     aStar,
     hole: kerrHole({ a: aStar, mass: 1 }),
@@ -60,6 +63,9 @@ export interface ModeRate {
 }
 
 function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): { gamma: number; relError: number } {
+  // Below the mass threshold no wave reaches infinity: nothing is emitted there.
+  if (ctx.fieldMass > 0 && !(omega > ctx.fieldMass)) return { gamma: 0, relError: 0 };
+  const field = ctx.fieldMass > 0 ? { spin: ctx.spin, mass: ctx.fieldMass } : { spin: ctx.spin };
   if (omega < MIN_MOMEGA) {
     // Page's low-frequency formula; its first correction is ~2πMω (physics notes).
     const g = lowFrequencyGreybody({ hole: { a: ctx.aStar }, mode: { field: { spin: ctx.spin }, l, m }, omega });
@@ -67,10 +73,7 @@ function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): { gamma
   }
   let r: GreybodySolution;
   try {
-    r = greybody(
-      { hole: { a: ctx.aStar }, mode: { field: { spin: ctx.spin }, l, m }, omega },
-      { tol: ctx.greybodyTol, reflection: false },
-    );
+    r = greybody({ hole: { a: ctx.aStar }, mode: { field, l, m }, omega }, { tol: ctx.greybodyTol, reflection: false });
   } catch (e) {
     if (e instanceof ConvergenceError) {
       throw new ConvergenceError(

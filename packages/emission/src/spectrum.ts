@@ -16,8 +16,9 @@ import {
   type FieldSpin,
   type FrequencyGrid,
   type Hole,
-  requireMassless,
+  InputError,
 } from '@penumbra/core';
+import { MOMEGA_RANGE } from '@penumbra/flux';
 import { modeContext } from './modes.js';
 import { spectrumPointUnit, type SpectrumPoint } from './spectrumPoint.js';
 import { checkMaxL, maxLOption, requireProblem, validateGrid } from './validate.js';
@@ -51,7 +52,9 @@ export interface SpectrumDiagnostics extends Diagnostics {
 /** The spectrum of one field on one hole, per degree of freedom. */
 export interface EmissionSpectrum {
   hole: { a: number; mass: number };
-  field: { spin: FieldSpin };
+  /** the field; `mass` (Mμ) only for a massive field */
+  field: { spin: FieldSpin; mass?: number };
+  /** points at Mω ≤ Mμ (below a massive field's threshold) are zero: nothing reaches infinity there */
   points: SpectrumPoint[];
   diagnostics: SpectrumDiagnostics;
 }
@@ -73,17 +76,25 @@ const OPTIONS = {
 export function emissionSpectrum(problem: SpectrumProblem, options?: SpectrumOptions): EmissionSpectrum {
   const p = requireProblem(problem, ['hole', 'field', 'grid']);
   const field = validateField(p.field, 'field');
-  requireMassless(field, 'field.mass', 'the emission spectrum');
-  const { spin } = field;
+  const { spin, mass: fieldMass } = field;
+  // A massive field is computed for spin 0 only (the greybody solver refuses other spins, naming mode.field.mass);
+  // lighter than the solver's lowest Mω it is indistinguishable from massless there and is refused rather than guessed.
+  if (fieldMass > 0 && spin !== 0) {
+    throw new InputError('field.mass', '0 for spin ≠ 0 (massive fields are computed for spin 0)', fieldMass);
+  }
+  if (fieldMass > 0 && fieldMass < MOMEGA_RANGE.min) {
+    throw new InputError('field.mass', `0 or Mμ ≥ ${MOMEGA_RANGE.min}`, fieldMass);
+  }
   const { a, mass } = validateHole(p.hole, 'hole');
   const omegas = validateGrid(p.grid, mass);
   const { tol = 1e-6, maxL = 80, onPoint } = validateOptions<SpectrumOptions>(options, OPTIONS);
   checkMaxL(maxL, spin);
   // Γ to a tenth of the point's tolerance, never below the solver's floor.
-  const ctx = modeContext(spin, Math.abs(a) / mass, Math.max(tol / 10, TOLERANCE_RANGE.min));
+  const ctx = modeContext(spin, Math.abs(a) / mass, Math.max(tol / 10, TOLERANCE_RANGE.min), fieldMass);
   const sign = a < 0 ? -1 : 1;
   const points = omegas.map((w, i) => {
-    const point = spectrumPointUnit(ctx, w * mass, tol, maxL);
+    const point =
+      w * mass > fieldMass || fieldMass === 0 ? spectrumPointUnit(ctx, w * mass, tol, maxL) : belowThreshold(w * mass);
     onPoint?.(i + 1, omegas.length);
     // Rescale from the unit-mass hole: d²N/dtdω and d²J/dtdω are scale-free (ħ = 1), d²E/dtdω ∝ 1/M.
     return { ...point, omega: w, energy: point.energy / mass, torque: sign * point.torque };
@@ -91,7 +102,7 @@ export function emissionSpectrum(problem: SpectrumProblem, options?: SpectrumOpt
   const errorEstimate = Math.max(...points.map((pt) => pt.relError));
   return {
     hole: { a, mass },
-    field: { spin },
+    field: fieldMass > 0 ? { spin, mass: fieldMass } : { spin },
     points,
     diagnostics: {
       method: 'Σ over whole l-shells of Γ·occupation/2π, geometric tail and Boltzmann bounds',
@@ -103,4 +114,9 @@ export function emissionSpectrum(problem: SpectrumProblem, options?: SpectrumOpt
       tol,
     },
   };
+}
+
+/** A spectrum point below a massive field's threshold (Mω ≤ Mμ): no wave reaches infinity, every rate is 0. */
+function belowThreshold(omega: number): SpectrumPoint {
+  return { omega, number: 0, energy: 0, torque: 0, relError: 0, droppedBound: 0, torqueDroppedBound: 0, lMax: 0, modes: 0 };
 }

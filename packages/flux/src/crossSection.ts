@@ -1,6 +1,7 @@
 /**
- * Absorption cross-section σ(ω) = (π/ω²) Σ_{l,m} Γ_{slm}(ω), the partial-wave
- * sum over all modes of one helicity (the s = 0 low-frequency limit σ → A_H is
+ * Absorption cross-section σ(ω) = (π/k∞²) Σ_{l,m} Γ_{slm}(ω), the partial-wave
+ * sum over all modes of one helicity, k∞ = √(ω² − μ²) the wavenumber at
+ * infinity (= ω when massless; the s = 0 low-frequency limit σ → A_H is
  * Das, Gibbons & Mathur, Phys. Rev. Lett. 78, 417 (1997)).
  *
  * l-truncation rule: sum whole l-shells (all m) from l = s upward; stop once
@@ -23,10 +24,9 @@ import {
   type Field,
   type FieldSpin,
   type Hole,
-  requireMassless,
 } from '@penumbra/core';
 import { greybody, type GreybodySolution } from './greybody.js';
-import { GREYBODY_OPTIONS, MAX_SUM_L, validateOmega, type GreybodyOptions } from './validate.js';
+import { GREYBODY_OPTIONS, MAX_SUM_L, requireAboveThreshold, validateOmega, type GreybodyOptions } from './validate.js';
 
 /** A field on a hole at one frequency: σ sums over all of its modes. */
 export interface CrossSectionProblem {
@@ -55,7 +55,8 @@ export interface CrossSectionDiagnostics extends Diagnostics {
 /** The absorption cross-section of one field, with its l-shell breakdown. */
 export interface CrossSectionSolution {
   hole: { a: number; mass: number };
-  field: { spin: FieldSpin };
+  /** the field; `mass` (Mμ) is present only for a massive field */
+  field: { spin: FieldSpin; mass?: number };
   omega: number;
   /** σ in units of M² (geometric) */
   sigma: number;
@@ -80,10 +81,11 @@ const OPTIONS = {
 export function absorptionCrossSection(problem: CrossSectionProblem, options?: CrossSectionOptions): CrossSectionSolution {
   const p = requireKeyedObject('problem', problem, ['hole', 'field', 'omega']);
   const field = validateField(p.field, 'field');
-  requireMassless(field, 'field.mass', 'the cross-section');
-  const { spin } = field;
+  const { spin, mass: fieldMass } = field;
   const { a, mass } = validateHole(p.hole, 'hole');
   const omega = validateOmega(p.omega, mass);
+  requireAboveThreshold(omega, mass, fieldMass);
+  const fieldOut = fieldMass > 0 ? { spin, mass: fieldMass } : { spin };
   const { maxL = MAX_SUM_L, onMode, ...greybodyOptions } = validateOptions<CrossSectionOptions>(options, OPTIONS);
   const tol = greybodyOptions.tol ?? 1e-8;
   if (maxL < spin) throw new InputError('maxL', `${spin} ≤ maxL ≤ ${MAX_SUM_L}`, maxL);
@@ -109,7 +111,7 @@ export function absorptionCrossSection(problem: CrossSectionProblem, options?: C
     let sum = 0;
     for (const m of ms) {
       const r = greybody(
-        { hole: { a, mass }, mode: { field: { spin }, l, m }, omega },
+        { hole: { a, mass }, mode: { field: fieldOut, l, m }, omega },
         { ...greybodyOptions, tol, reflection: false },
       );
       onMode?.(r);
@@ -123,11 +125,13 @@ export function absorptionCrossSection(problem: CrossSectionProblem, options?: C
   };
   const lFirst = spin;
   const summed = sumLShells(lFirst, { lCut: omega * 5 * mass, tol, maxL }, shell, 'cross-section l-sum');
-  const scale = Math.PI / (omega * omega);
+  // π/k∞², k∞² = ω² − μ² (μ = Mμ/M); exactly π/ω² when massless.
+  const mu = fieldMass / mass;
+  const scale = Math.PI / (fieldMass === 0 ? omega * omega : (omega - mu) * (omega + mu));
   const relError = (errAbs + summed.tailBound) / Math.abs(summed.total);
   return {
     hole: { a, mass },
-    field: { spin },
+    field: fieldOut,
     omega,
     sigma: scale * summed.total,
     relError,

@@ -29,7 +29,15 @@ import {
 } from '@penumbra/radial';
 import { checkGeometry, gammaErrorEstimate, roundingFloor } from './errorEstimate.js';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
-import { GREYBODY_OPTIONS, checkGreybodyOptions, checkProblem, type GreybodyOptions, type GreybodyProblem } from './validate.js';
+import { massiveRoute } from './massive.js';
+import {
+  GREYBODY_OPTIONS,
+  checkGreybodyOptions,
+  checkProblem,
+  type CheckedProblem,
+  type GreybodyOptions,
+  type GreybodyProblem,
+} from './validate.js';
 
 /** How a greybody factor was computed; `errorEstimate` is the relative error of Γ. */
 export interface GreybodyDiagnostics extends Diagnostics {
@@ -50,7 +58,8 @@ export interface GreybodyDiagnostics extends Diagnostics {
 /** The greybody factor of one mode, with the problem it answers. */
 export interface GreybodySolution {
   hole: { a: number; mass: number };
-  mode: { field: { spin: FieldSpin }; l: number; m: number };
+  /** the mode; `field.mass` (Mμ) is present only for a massive field */
+  mode: { field: { spin: FieldSpin; mass?: number }; l: number; m: number };
   omega: number;
   /**
    * absorbed fraction of the incident flux; negative in the superradiant band
@@ -81,6 +90,12 @@ export interface GreybodySolution {
 
 interface Prepared {
   spin: FieldSpin;
+  /** field mass Mμ as given (0 when massless) */
+  fieldMass: number;
+  /** μ = Mμ/M, the field mass in the units of ω */
+  mu: number;
+  /** k∞ = √(ω² − μ²), the wavenumber at infinity (= ω when massless) */
+  kInf: number;
   l: number;
   m: number;
   hole: KerrHole;
@@ -89,12 +104,26 @@ interface Prepared {
   lambdaPlus: number;
 }
 
-function prepare(problem: GreybodyProblem): Prepared {
-  const { spin, l, m, a, mass, omega } = checkProblem(problem);
+/**
+ * The separated mode. A massive scalar has the spheroidal equation with
+ * c² = a²(ω² − μ²) and λ = A + a²ω² − 2amω (docs/massive-fields.md); with
+ * μ = 0 every number is the massless one exactly.
+ */
+function prepare(checked: CheckedProblem): Prepared {
+  const { spin, fieldMass, l, m, a, mass, omega } = checked;
   const hole = kerrHole({ a, mass });
-  const eig = spheroidalEigenvalue({ s: spin, l, m, c: a * omega });
+  const mu = fieldMass / mass;
+  const kInf = mu === 0 ? omega : Math.sqrt((omega - mu) * (omega + mu));
+  const eig = spheroidalEigenvalue({ s: spin, l, m, c: a * kInf });
   const lambdaPlus = radialSeparationConstant(eig.A, a, omega, m);
-  return { spin, l, m, hole, omega, A: eig.A, lambdaPlus };
+  return { spin, fieldMass, mu, kInf, l, m, hole, omega, A: eig.A, lambdaPlus };
+}
+
+/** The checked problem and its route: a massive field with a solver of its own is returned as `own`. */
+function route(problem: GreybodyProblem) {
+  const checked = checkProblem(problem);
+  const massive = massiveRoute(checked);
+  return { checked, own: typeof massive === 'function' ? massive : undefined };
 }
 
 /**
@@ -140,7 +169,9 @@ function tolBelowRoundingFloor(tol: number, floor: number, reached: number, eval
  * @example greybody({ hole: { a: 0.9 }, mode: { field: { spin: 1 }, l: 1, m: 1 }, omega: 0.3 })
  */
 export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): GreybodySolution {
-  const p = prepare(problem);
+  const { checked, own } = route(problem);
+  if (own) return own(checked, options);
+  const p = prepare(checked);
   options = checkGreybodyOptions(options);
   const tol = options.tol ?? 1e-8;
   const integrator = options.integrator ?? 'odex';
@@ -219,9 +250,10 @@ interface ModeSolve {
 function solveMode(p: Prepared, opts: TwoSidedOptions): ModeSolve {
   const { spin, hole, omega, m, lambdaPlus } = p;
   const k = omega - m * hole.omegaH;
-  const h = horizonFactor(spin, hole, omega, k);
   if (spin === 0) {
-    const sol = solveRadial({ hole, s: 0, m, omega, lambda: lambdaPlus }, opts);
+    // The flux at infinity carries k∞ (= ω when massless): Γ = (k/k∞)(2Mr+)/|Z_in|².
+    const h = horizonFactor(0, hole, p.kInf, k);
+    const sol = solveRadial({ hole, s: 0, m, omega, lambda: lambdaPlus, ...(p.mu > 0 ? { mu: p.mu } : {}) }, opts);
     return {
       lnGamma: Math.log(Math.abs(h)) - 2 * sol.logAbsZIn,
       sign: Math.sign(h),
@@ -229,6 +261,7 @@ function solveMode(p: Prepared, opts: TwoSidedOptions): ModeSolve {
       diagnostics: sol.diagnostics,
     };
   }
+  const h = horizonFactor(spin, hole, omega, k);
   const sol = solveTwoSided({ hole, s: spin, m, omega, lambda: lambdaPlus }, opts);
   const C2 = starobinskyConstantSquared(spin, lambdaPlus, hole, m, omega);
   // R = |C|² |Y_out|² / (|h_s|² |Z_in|²), derived in docs/method.md.
@@ -274,7 +307,7 @@ function result(
   const gamma = lnGamma === undefined || underflow ? 0 : sign * Math.exp(lnGamma);
   return {
     hole: { a: p.hole.a, mass: p.hole.mass },
-    mode: { field: { spin: p.spin }, l: p.l, m: p.m },
+    mode: { field: p.fieldMass > 0 ? { spin: p.spin, mass: p.fieldMass } : { spin: p.spin }, l: p.l, m: p.m },
     omega: p.omega,
     gamma,
     ...(lnGamma === undefined ? {} : { log10Gamma: lnGamma / Math.LN10 }),
@@ -319,14 +352,22 @@ export function radialFunction(
   radii: readonly number[],
   options?: Pick<GreybodyOptions, 'tol' | 'integrator'>,
 ): { samples: RadialSample[]; logAbsZIn: number; logAbsZOut: number; diagnostics: RadialDiagnostics } {
-  const p = prepare(problem);
+  const { checked: problemChecked, own } = route(problem);
+  if (own)
+    throw new InputError(
+      'mode.field.mass',
+      '0 or a spin-0 field',
+      problemChecked.fieldMass,
+      'radialFunction takes massive fields of spin 0 only',
+    );
+  const p = prepare(problemChecked);
   const checked = validateOptions<Pick<GreybodyOptions, 'tol' | 'integrator'>>(options, {
     tol: GREYBODY_OPTIONS.tol,
     integrator: GREYBODY_OPTIONS.integrator,
   });
   const tol = checked.tol ?? 1e-8;
   const sorted = checkRadii(radii, p.hole).sort((x, y) => x - y);
-  const radial = { hole: p.hole, s: p.spin, m: p.m, omega: p.omega, lambda: p.lambdaPlus };
+  const radial = { hole: p.hole, s: p.spin, m: p.m, omega: p.omega, lambda: p.lambdaPlus, ...(p.mu > 0 ? { mu: p.mu } : {}) };
   const opts = { tol: odeTolerance(tol), grid: sorted, integrator: checked.integrator };
   if (p.spin === 0) {
     const sol = solveRadial(radial, opts);

@@ -9,6 +9,7 @@
  * with k = ω − mΩ_H. Valid for Mω ≪ 1 and (l + 1)Mω ≪ 1; its first correction
  * is roughly a factor 1 + 2πMω.
  */
+import { requireMassless } from '@penumbra/core';
 import { kerrHole } from '@penumbra/kerr';
 import { checkProblem, type GreybodyProblem } from './validate.js';
 
@@ -31,7 +32,8 @@ function doubleFactorial(n: number): number {
  * solve: it carries no error estimate and holds only for Mω ≪ 1.
  */
 export function lowFrequencyGreybody(problem: GreybodyProblem): number {
-  const { spin: s, l, m, a, mass, omega } = checkProblem(problem, true);
+  const { spin: s, fieldMass, l, m, a, mass, omega } = checkProblem(problem, true);
+  requireMassless({ spin: s, mass: fieldMass }, 'mode.field.mass', 'the low-frequency formula');
   const hole = kerrHole({ a, mass });
   const k = omega - m * hole.omegaH;
   const kap = hole.kappa;

@@ -18,7 +18,6 @@ import {
   type FieldSpin,
   type Hole,
   type Mode,
-  requireMassless,
 } from '@penumbra/core';
 import { INTEGRATORS, type IntegratorName } from '@penumbra/radial';
 
@@ -36,6 +35,8 @@ export interface GreybodyProblem {
 /** A checked problem: numbers only, defaults filled. */
 export interface CheckedProblem {
   spin: FieldSpin;
+  /** field mass Mμ (0 when massless) */
+  fieldMass: number;
   l: number;
   m: number;
   a: number;
@@ -51,14 +52,33 @@ export function validateOmega(omega: unknown, mass: number, parameter = 'omega')
   return w;
 }
 
-/** Validate a greybody problem { hole, mode, omega }. */
+/**
+ * Validate a greybody problem { hole, mode, omega }. A massive field must be
+ * above its mass threshold (Mω > Mμ); whether its spin has a massive solver
+ * is decided by the dispatch (massive.ts).
+ */
 export function checkProblem(problem: unknown, anyPositiveOmega = false): CheckedProblem {
   const p = requireKeyedObject('problem', problem, ['hole', 'mode', 'omega']);
   const { spin, fieldMass, l, m } = validateMode(p.mode, 'mode');
-  requireMassless({ spin, mass: fieldMass }, 'mode.field.mass', 'the greybody solver');
   const { a, mass } = validateHole(p.hole, 'hole');
   const omega = anyPositiveOmega ? positiveOmega(p.omega) : validateOmega(p.omega, mass);
-  return { spin, l, m, a, mass, omega };
+  requireAboveThreshold(omega, mass, fieldMass);
+  return { spin, fieldMass, l, m, a, mass, omega };
+}
+
+/**
+ * Refuse ω ≤ μ (Mω ≤ Mμ) for a field of mass Mμ: there k∞² = ω² − μ² ≤ 0, no
+ * wave reaches infinity (the modes are bound), and Γ is undefined.
+ */
+export function requireAboveThreshold(omega: number, mass: number, fieldMass: number, parameter = 'omega'): void {
+  if (fieldMass > 0 && !(omega * mass > fieldMass)) {
+    throw new InputError(
+      parameter,
+      `Mω > Mμ = ${fieldMass} (above the field's mass threshold)`,
+      omega,
+      'for ω ≤ μ no wave reaches infinity: the modes are bound states and no greybody factor exists',
+    );
+  }
 }
 
 function positiveOmega(omega: unknown): number {

@@ -3,9 +3,11 @@
  * with polynomial coefficients (multiplying through by Δ):
  *
  *   Δ² R'' + (s+1) Δ Δ' R' + U(r) R = 0,
- *   U = K² − is Δ' K + Δ(4isωr − λ),   K = (r² + a²)ω − am,   Δ' = 2(r − M),
+ *   U = K² − is Δ' K + Δ(4isωr − λ − μ²r²),   K = (r² + a²)ω − am,   Δ' = 2(r − M),
  *
- * Teukolsky, ApJ 185, 635 (1973). Derivation: docs/method.md, section 1.
+ * Teukolsky, ApJ 185, 635 (1973). Derivation: docs/method.md, section 1. The
+ * mass term −μ²r² is the Klein–Gordon one and is allowed for s = 0 only
+ * (massive fields of other spins obey other equations): docs/massive-fields.md.
  *
  * Every user takes its coefficients from `radialEquation`: the integrator
  * right-hand side (rhs.ts, about r+), the horizon series (about r+), the
@@ -27,6 +29,13 @@ export interface RadialMode {
   omega: number;
   /** radial separation constant λ = A + a²ω² − 2amω for this s */
   lambda: number;
+  /** field mass μ (units of 1/M for M = 1, i.e. Mμ/M); s = 0 only; default 0 */
+  mu?: number;
+}
+
+/** The field mass μ of a mode (0 when absent). */
+export function fieldMassOf(mode: RadialMode): number {
+  return mode.mu ?? 0;
 }
 
 /**
@@ -65,7 +74,10 @@ export function radialEquation(hole: KerrHole, mode: RadialMode, center = 0): Ra
   const dDelta = derivative(delta);
   const varpi = add(mul(r, r), cpoly([a * a]));
   const K = add(scale(varpi, omega), cpoly([-a * mode.m]));
-  const U = add(mul(K, K), scale(mul(dDelta, K), 0, -s), mul(delta, add(cpoly([-lambda]), scale(r, 0, 4 * s * omega))));
+  const mu = fieldMassOf(mode);
+  // −λ + 4isωr, and −μ²r² for a massive scalar (kept out of the polynomial when μ = 0, so massless is unchanged bit for bit)
+  const inner = add(cpoly([-lambda]), scale(r, 0, 4 * s * omega));
+  const U = add(mul(K, K), scale(mul(dDelta, K), 0, -s), mul(delta, mu === 0 ? inner : add(inner, scale(mul(r, r), -mu * mu))));
   return {
     center,
     s,

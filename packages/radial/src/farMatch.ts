@@ -5,7 +5,7 @@
  */
 import type { KerrHole } from '@penumbra/kerr';
 import { ConvergenceError } from '@penumbra/core';
-import { evaluateFar, farSeries, type FarValue } from './farSeries.js';
+import { evaluateFar, farSeries, farWavenumber, type FarValue } from './farSeries.js';
 import type { RadialMode } from './equation.js';
 import type { Complex2 } from './solution.js';
 
@@ -37,14 +37,15 @@ function seriesFailure(message: string, r: number, vin: FarValue, vout: FarValue
 }
 
 /**
- * The smallest radius on a geometric ladder from max(6M, r+ + 4M, 20/|ω|)
- * where both asymptotic series converge to 1e-17; or exactly `fixed`, if given.
+ * The smallest radius on a geometric ladder from max(6M, r+ + 4M, 20/|k∞|)
+ * (k∞ = ω when massless) where both asymptotic series converge to 1e-17; or
+ * exactly `fixed`, if given.
  */
 export function chooseMatch(hole: KerrHole, mode: RadialMode, fixed?: number): FarMatch {
   const inSeries = farSeries(hole, mode, -1);
   const outSeries = farSeries(hole, mode, 1);
   const M = hole.mass;
-  let r = fixed ?? Math.max(6 * M, hole.rPlus + 4 * M, 20 / Math.abs(mode.omega));
+  let r = fixed ?? Math.max(6 * M, hole.rPlus + 4 * M, 20 / Math.abs(farWavenumber(hole, mode).kInf));
   for (let attempt = 0; ; attempt++) {
     const vin = evaluateFar(hole, mode, inSeries, r);
     const vout = evaluateFar(hole, mode, outSeries, r);

@@ -10,11 +10,17 @@
  * a recurrence (docs/method.md). The series is asymptotic: we sum it until the
  * terms fall below 1e-17 of the sum, and report failure if they turn upward
  * first, so the caller can move the matching radius outward.
+ *
+ * A massive scalar (s = 0, μ > 0) carries the long-range phase of its 2Mμ²/r
+ * tail: R = e^{iσφ} r^{−1} Σ c_n r^{−n} with φ = k∞ r* + (Mμ²/k∞) L(r),
+ * k∞ = √(ω² − μ²), L' = r/Δ (L ~ ln r), i.e. W = σ(k∞ϖ + (Mμ²/k∞) r). The
+ * same recurrence then holds (docs/massive-fields.md); at μ = 0 it is the
+ * massless series exactly.
  */
 import type { KerrHole } from '@penumbra/kerr';
 import { tortoiseFromHorizonDistance } from '@penumbra/kerr';
-import { cpolyAt, padTo, scale, type CPoly } from './complexPoly.js';
-import { radialEquation, substitutePhase, type RadialMode } from './equation.js';
+import { add, cpoly, cpolyAt, padTo, scale, type CPoly } from './complexPoly.js';
+import { fieldMassOf, radialEquation, substitutePhase, type RadialMode } from './equation.js';
 
 /** Coefficients of one far-zone series, R = e^{iσωr*} r^p Σ c_n r^{−n}. */
 export interface FarSeries {
@@ -26,8 +32,12 @@ export interface FarSeries {
   cRe: number[];
   /** imaginary parts of c_n */
   cIm: number[];
-  /** the substituted phase numerator W = σωϖ (φ' = W/Δ), in powers of r */
+  /** the substituted phase numerator W = σ(k∞ϖ + βr) (φ' = W/Δ), in powers of r */
   W: CPoly;
+  /** k∞ = √(ω² − μ²) (= ω for a massless field) */
+  kInf: number;
+  /** coefficient β = Mμ²/k∞ of the long-range phase β L(r), L' = r/Δ (0 when massless) */
+  beta: number;
   /** Δ in powers of r */
   delta: CPoly;
 }
@@ -53,7 +63,7 @@ const CACHE_SIZE = 64;
 
 /** Coefficients c_n (n < maxTerms) of the series with σ = ±1. */
 export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerms = 120): FarSeries {
-  const key = `${hole.mass},${hole.a},${mode.s},${mode.m},${mode.omega},${mode.lambda},${sigma},${maxTerms}`;
+  const key = `${hole.mass},${hole.a},${mode.s},${mode.m},${mode.omega},${mode.lambda},${fieldMassOf(mode)},${sigma},${maxTerms}`;
   const hit = cache.get(key);
   if (hit) return hit;
   const series = buildFarSeries(hole, mode, sigma, maxTerms);
@@ -65,7 +75,8 @@ export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTe
 function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerms: number): FarSeries {
   // Δ² g'' + Δ[2iσωϖ + (s+1)Δ'] g' + Q_σ g = 0 in powers of r; the r⁴ terms of Q_σ cancel exactly.
   const eq = radialEquation(hole, mode);
-  const W = scale(eq.varpi, sigma * mode.omega);
+  const { kInf, beta } = farWavenumber(hole, mode);
+  const W = beta === 0 ? scale(eq.varpi, sigma * kInf) : add(scale(eq.varpi, sigma * kInf), cpoly([0, sigma * beta]));
   const far = substitutePhase(eq, W);
   const A = padTo(far.A, 5);
   const B = padTo(far.B, 5);
@@ -109,13 +120,32 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
     cRe.push((rr * dr + ri * di) / den);
     cIm.push((ri * dr - rr * di) / den);
   }
-  return { sigma, p, cRe, cIm, W, delta: eq.delta };
+  return { sigma, p, cRe, cIm, W, delta: eq.delta, kInf, beta };
+}
+
+/**
+ * k∞ = √(ω² − μ²) and the long-range phase coefficient β = Mμ²/k∞ of a mode
+ * (k∞ = ω and β = 0 exactly when massless); ω > μ is the caller's to check.
+ */
+export function farWavenumber(hole: KerrHole, mode: RadialMode): { kInf: number; beta: number } {
+  const mu = fieldMassOf(mode);
+  if (mu === 0) return { kInf: mode.omega, beta: 0 };
+  const kInf = Math.sign(mode.omega) * Math.sqrt((mode.omega - mu) * (mode.omega + mu));
+  return { kInf, beta: (hole.mass * mu * mu) / kInf };
+}
+
+/**
+ * L(r) = ∫ r/Δ dr = ln(r − r+) + (r−/(r+ − r−)) ln((r − r+)/(r − r−)) (→ ln r),
+ * written with log1p so that it stays accurate as r+ − r− shrinks.
+ */
+export function longRangeLog(hole: KerrHole, r: number): number {
+  const b = hole.rPlus - hole.rMinus;
+  return Math.log(r - hole.rPlus) + (hole.rMinus / b) * Math.log1p(-b / (r - hole.rMinus));
 }
 
 /** Evaluate R and R' of a far-zone series solution at radius r. */
-export function evaluateFar(hole: KerrHole, mode: RadialMode, series: FarSeries, r: number): FarValue {
-  const omega = mode.omega;
-  const { cRe, cIm, p, sigma } = series;
+export function evaluateFar(hole: KerrHole, _mode: RadialMode, series: FarSeries, r: number): FarValue {
+  const { cRe, cIm, p, sigma, kInf, beta } = series;
   const inv = 1 / r;
   let sRe = 0,
     sIm = 0,
@@ -153,10 +183,10 @@ export function evaluateFar(hole: KerrHole, mode: RadialMode, series: FarSeries,
   }
   const rs = tortoiseFromHorizonDistance(hole, r - hole.rPlus);
   const rp = Math.pow(r, p);
-  const ph = sigma * omega * rs;
+  const ph = beta === 0 ? sigma * kInf * rs : sigma * (kInf * rs + beta * longRangeLog(hole, r));
   const eRe = rp * Math.cos(ph),
     eIm = rp * Math.sin(ph);
-  // g = r^p S, g' = r^{p−1} T; R = e g, R' = e (g' + i(W/Δ) g), W/Δ = σωϖ/Δ
+  // g = r^p S, g' = r^{p−1} T; R = e g, R' = e (g' + i(W/Δ) g), W/Δ = σ(k∞ϖ + βr)/Δ
   const R: [number, number] = [eRe * sRe - eIm * sIm, eRe * sIm + eIm * sRe];
   const w = cpolyAt(series.W, r)[0] / cpolyAt(series.delta, r)[0];
   const gpRe = tRe * inv - w * sIm;

@@ -3,7 +3,7 @@ import { requireFinite, requireObject, InputError } from '@penumbra/core';
 import type { KerrHole } from '@penumbra/kerr';
 import type { RadialMode } from './equation.js';
 
-/** The input of `solveRadial` and `solveTwoSided`: `{ hole, s, m, omega, lambda }`. */
+/** The input of `solveRadial` and `solveTwoSided`: `{ hole, s, m, omega, lambda, mu? }` (mu: s = 0, solveRadial only). */
 export interface RadialProblem extends RadialMode {
   /** the background, from `kerrHole` of @penumbra/kerr */
   hole: KerrHole;
@@ -18,5 +18,12 @@ export function validateProblem(problem: RadialProblem): RadialMode {
   const { omega, lambda } = problem;
   if (!Number.isFinite(omega) || omega === 0) throw new InputError('omega', 'a finite non-zero frequency', omega);
   requireFinite('lambda', lambda);
-  return { s, m, omega, lambda };
+  if (problem.mu === undefined || problem.mu === 0) return { s, m, omega, lambda };
+  const mu = requireFinite('mu', problem.mu, 'a field mass μ ≥ 0');
+  if (!(mu > 0)) throw new InputError('mu', 'a field mass μ ≥ 0', mu);
+  if (s !== 0) throw new InputError('mu', '0 for s ≠ 0 (the mass term is the Klein–Gordon one, s = 0 only)', mu);
+  if (!(Math.abs(omega) > mu)) {
+    throw new InputError('omega', `|ω| > μ = ${mu}`, omega, 'below the mass threshold no wave reaches infinity (bound states)');
+  }
+  return { s, m, omega, lambda, mu };
 }

@@ -9,7 +9,14 @@
  * docs/method-schwarzschild-reference.md.
  */
 import { ConvergenceError, type Diagnostics, type FieldSpin } from '@penumbra/core';
-import { DEFAULT_START_OFFSET, defaultMatchRadius, integrate, type SingleIntegration } from './integrate.js';
+import {
+  DEFAULT_START_OFFSET,
+  defaultMatchRadius,
+  integrate,
+  type IntegrationControls,
+  type SingleIntegration,
+} from './integrate.js';
+import { integrateMassiveScalar, massiveMatchRadius } from './massiveIntegrate.js';
 import {
   type SchwarzschildGreybodyOptions,
   type SchwarzschildGreybodyProblem,
@@ -46,7 +53,9 @@ export interface SchwarzschildGreybodySolution {
   l: number;
   omega: number;
   mass: number;
-  /** Γ = 1/|A_in|², the absorbed fraction of the incident flux */
+  /** field mass Mμ, present only for a massive field */
+  fieldMass?: number;
+  /** Γ = 1/|A_in|² (ω/(k|A_in|²) for a massive field), the absorbed fraction of the incident flux */
   gamma: number;
   /** |A_out/A_in|², the reflected fraction */
   reflection: number;
@@ -74,18 +83,23 @@ export function schwarzschildGreybody(
 ): SchwarzschildGreybodySolution {
   const p = validateProblem(problem);
   const { tol } = validateGreybodyOptions(options);
+  // A massive scalar has its own series (long-range far-zone phase); everything else goes through `integrate`.
+  const massive = p.fieldMass > 0 ? { l: p.l, omega: p.omega, mu: p.fieldMass / p.mass, mass: p.mass } : undefined;
+  const integrateMode = (controls: IntegrationControls): SingleIntegration =>
+    massive ? integrateMassiveScalar(massive, controls) : integrate(p, controls);
+  const firstMatch = massive ? massiveMatchRadius(massive) : defaultMatchRadius(p);
   let factor = 1;
   let steps = 0;
   let rhsEvaluations = 0;
   let last: SingleIntegration | undefined;
   let relError = Infinity;
   for (let attempt = 0; attempt < 3; attempt++) {
-    const coarse = integrate(p, { tol, stepToleranceFactor: factor, startOffset: DEFAULT_START_OFFSET });
-    const fine = integrate(p, {
+    const coarse = integrateMode({ tol, stepToleranceFactor: factor, startOffset: DEFAULT_START_OFFSET });
+    const fine = integrateMode({
       tol,
       stepToleranceFactor: factor / 8,
       startOffset: 0.6 * DEFAULT_START_OFFSET,
-      matchRadius: 1.4 * defaultMatchRadius(p),
+      matchRadius: 1.4 * firstMatch,
     });
     steps += coarse.steps + fine.steps;
     rhsEvaluations += coarse.rhsEvaluations + fine.rhsEvaluations;
@@ -101,7 +115,11 @@ export function schwarzschildGreybody(
   const converged = relError <= tol;
   const diagnostics: SchwarzschildGreybodyDiagnostics = {
     method:
-      (p.kind === 'dirac' ? 'Dirac potential W² + dW/dr*' : 'Regge–Wheeler potential') +
+      (massive
+        ? 'massive Klein–Gordon potential, long-range far-zone phase'
+        : p.kind === 'dirac'
+          ? 'Dirac potential W² + dW/dr*'
+          : 'Regge–Wheeler potential') +
       '; horizon Frobenius series, Cash–Karp RK45 in r, asymptotic-series match; error from two independent integrations',
     steps,
     rhsEvaluations,
@@ -128,6 +146,7 @@ export function schwarzschildGreybody(
     l: p.l,
     omega: p.omega,
     mass: p.mass,
+    ...(massive ? { fieldMass: p.fieldMass } : {}),
     gamma: run.gamma,
     reflection: run.reflection,
     residual: run.residual,

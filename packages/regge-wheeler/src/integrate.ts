@@ -15,6 +15,7 @@ import {
   validateIntegrationOptions,
   validateProblem,
 } from './problem.js';
+import { integrateMassiveScalar } from './massiveIntegrate.js';
 import { horizonSeries, outgoingFarSeries, tortoiseFromHorizonDistance, type WaveState } from './series.js';
 
 /** The outcome of one integration (no error estimate: that needs a second one). */
@@ -205,7 +206,11 @@ export function integrate(base: Omit<ModeProblem, 'diracSign'>, controls: Integr
  */
 export function integrateOnce(problem: SchwarzschildGreybodyProblem, options?: IntegrationOptions): SingleIntegration {
   const base = validateProblem(problem);
-  return integrate(base, validateIntegrationOptions(options));
+  const controls = validateIntegrationOptions(options);
+  if (base.fieldMass > 0) {
+    return integrateMassiveScalar({ l: base.l, omega: base.omega, mu: base.fieldMass / base.mass, mass: base.mass }, controls);
+  }
+  return integrate(base, controls);
 }
 
 /**

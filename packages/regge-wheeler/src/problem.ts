@@ -22,7 +22,7 @@ import type { ModeProblem, PotentialKind } from './potentials.js';
 
 /** One Schwarzschild greybody problem (geometric units G = c = 1). */
 export interface SchwarzschildGreybodyProblem {
-  /** the field: spin 0, 1/2 ('1/2' accepted), 1 or 2 (Γ is the same for ±s) */
+  /** the field: spin 0, 1/2 ('1/2' accepted), 1 or 2 (Γ is the same for ±s); a mass Mμ > 0 for spin 0 only, with Mω > Mμ */
   readonly field: Field;
   /** multipole, spin ≤ l ≤ MAX_REFERENCE_L with l − spin an integer */
   readonly l: number;
@@ -101,7 +101,7 @@ export function validateIntegrationOptions(options: unknown): IntegrationOptions
 const KEYS = ['field', 'l', 'omega', 'mass'];
 
 /** Validate a problem; InputErrors name the key as the caller wrote it ('field.spin', 'l', 'omega', 'mass'). */
-export function validateProblem(problem: unknown): Omit<ModeProblem, 'diracSign'> & { spin: FieldSpin } {
+export function validateProblem(problem: unknown): Omit<ModeProblem, 'diracSign'> & { spin: FieldSpin; fieldMass: number } {
   if (typeof problem !== 'object' || problem === null || Array.isArray(problem)) {
     throw new InputError('problem', 'an object { field: { spin }, l, omega, mass? }', problem);
   }
@@ -110,8 +110,9 @@ export function validateProblem(problem: unknown): Omit<ModeProblem, 'diracSign'
   }
   const q = problem as { field?: unknown; l?: unknown; omega?: unknown; mass?: unknown };
   const field = validateField(q.field, 'field');
-  requireMassless(field, 'field.mass', 'the Schwarzschild reference solver');
-  const { spin } = field;
+  // The massive Klein–Gordon potential is here (massiveSeries.ts); other massive spins are not.
+  if (field.spin !== 0) requireMassless(field, 'field.mass', 'the Schwarzschild reference solver for spin ≠ 0');
+  const { spin, mass: fieldMass } = field;
   const { l, omega } = q;
   if (typeof l !== 'number' || !Number.isFinite(l) || l < spin || !Number.isInteger(l - spin)) {
     throw new InputError('l', `l ≥ ${spin} with l − spin an integer`, l);
@@ -132,6 +133,9 @@ export function validateProblem(problem: unknown): Omit<ModeProblem, 'diracSign'
       'beyond that Γ = 1 to machine precision for any l the solver is meant for',
     );
   }
+  if (fieldMass > 0 && !(omega * mass > fieldMass)) {
+    throw new InputError('omega', `Mω > Mμ = ${fieldMass}`, omega, 'for ω ≤ μ no wave reaches infinity (bound states)');
+  }
   const kind: PotentialKind = spin === 0.5 ? 'dirac' : 'regge-wheeler';
-  return { kind, spin, l, omega, mass };
+  return { kind, spin, l, omega, mass, fieldMass };
 }

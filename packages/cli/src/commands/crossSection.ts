@@ -1,6 +1,7 @@
 import type { Column, FieldSpin } from '@penumbra/core';
 import { absorptionCrossSection } from '@penumbra/flux';
 import type { Command } from '../command.js';
+import { FIELD_MASS_HELP, FIELD_MASS_OPTIONS, fieldWithMass } from '../fieldMass.js';
 import { formatError, formatNumber, formatTable } from '../format.js';
 import { parseFieldSpin, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
 import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
@@ -22,12 +23,16 @@ export const command: Command = {
   summary: 'absorption cross-section σ(ω) = (π/ω²) Σ Γ_slm, with its l-truncation bound',
   usage: `Usage: penumbra cross-section --spin S --a A --omega W|START:STOP:COUNT [--tol T] [--json|--csv]
 
-Geometric units (M = 1): σ in M², ω is Mω, a is a/M.
+Geometric units (M = 1): σ in M², ω is Mω, a is a/M. For a massive field
+σ = (π/k∞²) Σ Γ with k∞ = √(ω² − μ²) the wavenumber at infinity.
 
 Options:
   --spin S     field spin: 0, 1/2, 1, 2
   --a A        the hole's spin parameter a/M (|a/M| ≤ 0.9999)
   --omega W    frequency Mω, or a grid START:STOP:COUNT
+  ${FIELD_MASS_HELP}
+  --mass M     hole mass, only to convert --field-mass from an energy unit (results stay in units of M)
+  --unit U     g, kg or msun (default g)
   --log        space a frequency grid geometrically
   --tol T      relative accuracy of each Γ and of the l-sum (default 1e-6)
   --json       JSON array of {omega, sigma, lMax, droppedBound, relError, modes}
@@ -44,6 +49,9 @@ Example:
       omega: { type: 'string' },
       log: { type: 'boolean' },
       tol: { type: 'string' },
+      ...FIELD_MASS_OPTIONS,
+      mass: { type: 'string' },
+      unit: { type: 'string' },
       ...OUTPUT_OPTIONS,
     });
     const format = outputFormat(values);
@@ -56,9 +64,10 @@ Example:
       maxCount: 10_000,
     });
     const tol = values.tol === undefined ? 1e-6 : parseNumber('--tol', values.tol);
+    const field = fieldWithMass(spin as FieldSpin, values);
     const progress = progressReporter(io, 'cross-section: frequencies done', grid.count);
     const rows = grid.values.map((omega, i) => {
-      const r = absorptionCrossSection({ hole: { a }, field: { spin: spin as FieldSpin }, omega }, { tol });
+      const r = absorptionCrossSection({ hole: { a }, field, omega }, { tol });
       progress(i + 1);
       const { lMax, droppedBound, modes } = r.diagnostics;
       return { omega, sigma: r.sigma, lMax, droppedBound, relError: r.relError, modes };
@@ -67,7 +76,7 @@ Example:
       json: () => rows,
       csv: () => ({ columns: COLUMNS, rows: rows.map((r) => COLUMNS.map((c) => r[c.name as keyof typeof r])) }),
       text: () =>
-        `absorption cross-section, s = ${spin}, a = ${a} M (σ in M²; 27π = ${formatNumber(27 * Math.PI, 6)})\n` +
+        `absorption cross-section, s = ${spin}, a = ${a} M${field.mass ? `, Mμ = ${field.mass}` : ''} (σ in M²; 27π = ${formatNumber(27 * Math.PI, 6)})\n` +
         formatTable([
           ['Mω', 'σ/M²', 'l max', 'rel. error'],
           ...rows.map((r) => [formatNumber(r.omega, 6), formatNumber(r.sigma, 8), String(r.lMax), formatError(r.relError)]),

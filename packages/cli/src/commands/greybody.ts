@@ -1,6 +1,7 @@
 import type { FieldSpin } from '@penumbra/core';
 import { greybody, type GreybodySolution } from '@penumbra/flux';
 import type { Command } from '../command.js';
+import { FIELD_MASS_HELP, FIELD_MASS_OPTIONS, fieldWithMass } from '../fieldMass.js';
 import { formatTable } from '../format.js';
 import { greybodyJson, greybodyTable, greybodyTextRows } from '../greybodyTable.js';
 import { parseFieldSpin, parseModeNumber, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
@@ -21,6 +22,9 @@ Options:
   --m M        azimuthal number, |m| ≤ l with m − S an integer
   --a A        the hole's spin parameter a/M; negative: counter-rotating relative to m > 0
   --omega W    frequency Mω in [1e-5, 30], or a grid START:STOP:COUNT
+  ${FIELD_MASS_HELP}
+  --mass M     hole mass, only to convert --field-mass from an energy unit (results stay in units of M)
+  --unit U     g, kg or msun (default g)
   --log        space a frequency grid geometrically
   --tol T      requested relative accuracy of Γ (default 1e-8, 1e-12 … 1e-2)
   --json       JSON: one object, or an array for a grid
@@ -33,6 +37,8 @@ and an error estimate; a mode that cannot reach --tol is an error, not a number.
 Examples:
   penumbra greybody --spin 1 --l 1 --m 1 --a 0.9 --omega 0.3 --json
   penumbra greybody --spin 2 --l 2 --m 2 --a 0.99 --omega 0.01:2:40 --csv
+  penumbra greybody --spin 0 --l 1 --m 1 --a 0.9 --omega 0.4 --field-mass 0.3 --json
+  penumbra greybody --spin 0 --l 0 --m 0 --a 0 --omega 0.5 --field-mass 135 --field-mass-unit MeV --mass 1e14
 `,
   run(argv, io) {
     const { values } = parseOptions(argv, {
@@ -43,6 +49,9 @@ Examples:
       omega: { type: 'string' },
       log: { type: 'boolean' },
       tol: { type: 'string' },
+      ...FIELD_MASS_OPTIONS,
+      mass: { type: 'string' },
+      unit: { type: 'string' },
       ...OUTPUT_OPTIONS,
     });
     const format = outputFormat(values);
@@ -53,17 +62,21 @@ Examples:
     const omegaText = requireOption(values.omega, '--omega', 'the frequency Mω or START:STOP:COUNT');
     const grid = parseRange('--omega', omegaText, { min: 0, exclusive: true, log: values.log ?? false, maxCount: 10_000 });
     const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol);
+    const field = fieldWithMass(spin as FieldSpin, values);
+    const fieldMass = field.mass ?? 0;
     const results: GreybodySolution[] = [];
     const progress = progressReporter(io, 'greybody: frequencies done', grid.count);
     for (const [i, omega] of grid.values.entries()) {
-      results.push(greybody({ hole: { a }, mode: { field: { spin: spin as FieldSpin }, l, m }, omega }, { tol }));
+      results.push(greybody({ hole: { a }, mode: { field, l, m }, omega }, { tol }));
       progress(i + 1);
     }
     const single = grid.count === 1 && !omegaText.includes(':');
     writeOutput(io, format, {
       json: () => (single ? greybodyJson(results[0]) : results.map(greybodyJson)),
       csv: () => greybodyTable(results),
-      text: () => `greybody factor, s = ${spin}, l = ${l}, m = ${m}, a = ${a} M\n` + formatTable(greybodyTextRows(results)),
+      text: () =>
+        `greybody factor, s = ${spin}, l = ${l}, m = ${m}, a = ${a} M${fieldMass > 0 ? `, Mμ = ${fieldMass}` : ''}\n` +
+        formatTable(greybodyTextRows(results)),
     });
     return 0;
   },
