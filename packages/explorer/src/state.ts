@@ -27,6 +27,8 @@ export interface ExplorerState {
   unit: HoleMassUnit;
   /** field spin (greybody and cross-section views) */
   spin: FieldSpin;
+  /** field rest mass Mμ (greybody and cross-section views; 0 is massless) */
+  fieldMass: number;
   /** the l values of the greybody view */
   l: number[];
   /** the m values of the greybody view, or 'all' for every |m| ≤ l */
@@ -50,6 +52,7 @@ export const VIEW_DEFAULTS: Record<ViewName, ExplorerState> = {
     mass: 1,
     unit: 'geometric',
     spin: 2,
+    fieldMass: 0,
     l: [2],
     m: [2],
     from: 0.05,
@@ -65,6 +68,7 @@ export const VIEW_DEFAULTS: Record<ViewName, ExplorerState> = {
     mass: 1,
     unit: 'geometric',
     spin: 0,
+    fieldMass: 0,
     l: [],
     m: 'all',
     from: 0.05,
@@ -80,6 +84,7 @@ export const VIEW_DEFAULTS: Record<ViewName, ExplorerState> = {
     mass: 1e15,
     unit: 'g',
     spin: 1,
+    fieldMass: 0,
     l: [],
     m: 'all',
     from: 0.02,
@@ -95,6 +100,7 @@ export const VIEW_DEFAULTS: Record<ViewName, ExplorerState> = {
     mass: 1e15,
     unit: 'g',
     spin: 1,
+    fieldMass: 0,
     l: [],
     m: 'all',
     from: 0.02,
@@ -106,7 +112,7 @@ export const VIEW_DEFAULTS: Record<ViewName, ExplorerState> = {
   },
 };
 
-const KEYS = ['view', 'a', 'mass', 'unit', 'spin', 'l', 'm', 'from', 'to', 'count', 'spacing', 'species', 'tol'];
+const KEYS = ['view', 'a', 'mass', 'unit', 'spin', 'mu', 'l', 'm', 'from', 'to', 'count', 'spacing', 'species', 'tol'];
 
 function number(key: string, text: string): number {
   const v = text.trim() === '' ? Number.NaN : Number(text);
@@ -146,6 +152,8 @@ export function parseState(query: string): ExplorerState {
   if (unit !== undefined) s.unit = oneOfList('unit', unit, HOLE_MASS_UNITS);
   const spin = get('spin');
   if (spin !== undefined) s.spin = parseFieldSpin(spin, 'spin');
+  const mu = get('mu');
+  if (mu !== undefined) s.fieldMass = number('mu', mu);
   const l = get('l');
   if (l !== undefined) s.l = list('l', l);
   const m = get('m');
@@ -169,6 +177,7 @@ export function formatState(s: ExplorerState): string {
   params.set('mass', String(s.mass));
   params.set('unit', s.unit);
   params.set('spin', s.spin === 0.5 ? '1/2' : String(s.spin));
+  if (s.fieldMass !== 0) params.set('mu', String(s.fieldMass));
   if (s.view === 'greybody') {
     params.set('l', s.l.join(','));
     params.set('m', s.m === 'all' ? 'all' : s.m.join(','));

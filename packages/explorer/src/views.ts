@@ -5,7 +5,7 @@
  * in the page's Web Worker and, unchanged, in Node (the tests compare the
  * page's printed numbers with these). Bad input is the library's InputError.
  */
-import { InputError, linearGrid, logGrid, validateHole, validateTolerance, type Column } from '@penumbra/core';
+import { InputError, linearGrid, logGrid, validateHole, validateTolerance, type Column, type Field } from '@penumbra/core';
 import {
   bundledPageTable,
   emissionSpectrum,
@@ -57,6 +57,11 @@ function frequencies(s: ExplorerState): number[] {
   return s.spacing === 'log' ? logGrid(s.from, s.to, s.count) : linearGrid(s.from, s.to, s.count);
 }
 
+/** The field of a state: massless unless Mμ > 0 (a massive field is only sent where the user asked for one). */
+function field(s: ExplorerState): Field {
+  return s.fieldMass === 0 ? { spin: s.spin } : { spin: s.spin, mass: s.fieldMass };
+}
+
 function physicalUnit(s: ExplorerState): MassUnit | undefined {
   return s.unit === 'geometric' ? undefined : s.unit;
 }
@@ -104,7 +109,7 @@ export function greybodyView(s: ExplorerState, onProgress?: ProgressCallback): V
   for (const { l, m } of modes) {
     const points: [number, number][] = [];
     for (const omega of omegas) {
-      const g = greybody({ hole: { a: s.aStar }, mode: { field: { spin: s.spin }, l, m }, omega }, { tol });
+      const g = greybody({ hole: { a: s.aStar }, mode: { field: field(s), l, m }, omega }, { tol });
       rows.push([l, m, omega, g.gamma, g.relError]);
       points.push([omega, g.gamma]);
       onProgress?.(++done, modes.length * omegas.length);
@@ -116,7 +121,7 @@ export function greybodyView(s: ExplorerState, onProgress?: ProgressCallback): V
   const gammas = rows.map((r) => r[3]);
   const negative = gammas.some((g) => g < 0);
   const figure: Figure = {
-    title: `Greybody factor Γ(ω), spin ${s.spin === 0.5 ? '½' : s.spin}, a/M = ${s.aStar}`,
+    title: `Greybody factor Γ(ω), spin ${s.spin === 0.5 ? '½' : s.spin}${s.fieldMass ? `, Mμ = ${s.fieldMass}` : ''}, a/M = ${s.aStar}`,
     subtitle: bandTop > 0 ? `shaded: superradiant band 0 < ω < mΩ_H = ${printNumber(bandTop)}/M (Γ < 0 there)` : undefined,
     x: { title: 'Mω', scale: s.spacing === 'log' ? 'log' : 'linear', domain: [s.from, s.to], nice: false },
     y: { title: 'Γ', scale: negative ? 'linear' : autoScale(gammas.filter((g) => g > 0)), zero: negative },
@@ -147,7 +152,7 @@ export function crossSectionView(s: ExplorerState, onProgress?: ProgressCallback
   const omegas = frequencies(s);
   const rows: number[][] = [];
   omegas.forEach((omega, i) => {
-    const c = absorptionCrossSection({ hole: { a: s.aStar }, field: { spin: s.spin }, omega }, { tol });
+    const c = absorptionCrossSection({ hole: { a: s.aStar }, field: field(s), omega }, { tol });
     rows.push([omega, c.sigma, c.sigma / (27 * Math.PI), c.relError]);
     onProgress?.(i + 1, omegas.length);
   });
@@ -164,7 +169,7 @@ export function crossSectionView(s: ExplorerState, onProgress?: ProgressCallback
     ],
     rows,
     figure: {
-      title: `Absorption cross-section σ(ω), spin ${s.spin === 0.5 ? '½' : s.spin}, a/M = ${s.aStar}`,
+      title: `Absorption cross-section σ(ω), spin ${s.spin === 0.5 ? '½' : s.spin}${s.fieldMass ? `, Mμ = ${s.fieldMass}` : ''}, a/M = ${s.aStar}`,
       x: { title: 'Mω', scale: s.spacing === 'log' ? 'log' : 'linear', domain: [s.from, s.to], nice: false },
       y: { title: 'σ', unit: 'M²', scale: 'linear' },
       series: [{ name: 'σ', points: rows.map((r) => [r[0], r[1]] as const) }],

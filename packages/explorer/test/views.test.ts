@@ -62,6 +62,14 @@ describe('the views compute with the library and refuse bad input with the libra
     // Ω_H = a/(2Mr+) (Teukolsky & Press 1974): the superradiant band of m = 1 ends at Ω_H.
     expect(view.figure.band?.[1]).toBeCloseTo(0.9 / (2 * (1 + Math.sqrt(1 - 0.81))), 12);
   });
+  test('a massive scalar (mu = Mμ) gives the same Γ as flux greybody with field.mass, and ω ≤ μ is refused naming omega', () => {
+    const view = computeView(parseState('?view=greybody&a=0.9&spin=0&mu=0.3&l=1&m=1&from=0.35&to=0.5&count=2'));
+    for (const [l, m, omega, gamma] of view.rows) {
+      const g = greybody({ hole: { a: 0.9 }, mode: { field: { spin: 0, mass: 0.3 }, l, m }, omega }, { tol: 1e-8 });
+      expect(printNumber(gamma)).toBe(printNumber(g.gamma));
+    }
+    expect(refused('?view=greybody&spin=0&mu=0.3&l=1&m=1&from=0.1&to=0.5')).toBe('omega');
+  });
   test('a ≥ 1, ω ≤ 0, l < |s| and a spectrum without a physical mass are refused naming what the user set', () => {
     expect(refused('?view=greybody&a=1')).toBe('hole.a');
     expect(refused('?view=greybody&from=-0.1')).toBe('from');

@@ -9,7 +9,7 @@ import { printNumber, shortNumber, type ViewResult } from '../views.js';
 import type { ComputeRequest, WorkerReply } from './messages.js';
 
 const $ = <T extends HTMLElement>(id: string): T => document.getElementById(id) as T;
-const FIELDS = ['view', 'a', 'mass', 'unit', 'spin', 'l', 'm', 'from', 'to', 'count', 'spacing', 'species', 'tol'] as const;
+const FIELDS = ['view', 'a', 'mass', 'unit', 'spin', 'mu', 'l', 'm', 'from', 'to', 'count', 'spacing', 'species', 'tol'] as const;
 
 let worker: Worker | undefined;
 let requestId = 0;
@@ -39,6 +39,7 @@ function fillForm(s: ExplorerState): void {
     mass: shortNumber(s.mass),
     unit: s.unit,
     spin: s.spin === 0.5 ? '1/2' : String(s.spin),
+    mu: shortNumber(s.fieldMass),
     l: s.l.join(','),
     m: s.m === 'all' ? 'all' : s.m.join(','),
     from: shortNumber(s.from),
@@ -55,8 +56,8 @@ function fillForm(s: ExplorerState): void {
 /** Show only the fields the chosen view uses. */
 function showFieldsOf(view: ViewName): void {
   const used: Record<ViewName, string[]> = {
-    greybody: ['a', 'spin', 'l', 'm', 'from', 'to', 'count', 'spacing', 'tol'],
-    'cross-section': ['a', 'spin', 'from', 'to', 'count', 'spacing', 'tol'],
+    greybody: ['a', 'spin', 'mu', 'l', 'm', 'from', 'to', 'count', 'spacing', 'tol'],
+    'cross-section': ['a', 'spin', 'mu', 'from', 'to', 'count', 'spacing', 'tol'],
     spectrum: ['a', 'mass', 'unit', 'species', 'from', 'to', 'count', 'spacing', 'tol'],
     evolution: ['a', 'mass', 'unit'],
   };
