@@ -44,15 +44,16 @@ export function roundOut(value: number): number {
   const decade = 10 ** Math.floor(Math.log10(magnitude));
   let rounded = Math.ceil(magnitude / decade - 1e-9) * decade;
   rounded = Number(rounded.toPrecision(1));
-  return Math.sign(value) * rounded;
+  // beyond the normal double range the rounding has no room: keep the value
+  return Number.isFinite(rounded) && rounded >= magnitude ? Math.sign(value) * rounded : value;
 }
 
-/** The domain of a symmetric-log axis: the data's range with each end rounded out to one significant figure. */
+/** The domain of a symmetric-log axis: the data's range and zero, each end rounded out to one significant figure. */
 export function symlogDomain(values: readonly number[]): [number, number] {
   if (values.length === 0) return [-1, 1];
   const low = smallest(values);
   const high = largest(values);
-  return [low < 0 ? roundOut(low) : low, high > 0 ? roundOut(high) : high];
+  return [Math.min(0, roundOut(low)), Math.max(0, roundOut(high))];
 }
 
 /**
@@ -73,8 +74,8 @@ export function symlogTicks(
     [-1, -low],
     [1, high],
   ] as const) {
-    if (!(end > constant)) continue;
-    for (const t of decadeTicks(constant, end)) ticks.add(sign * t);
+    if (!(end > 0)) continue;
+    if (end > constant) for (const t of decadeTicks(constant, end)) ticks.add(sign * t);
     ticks.add(sign * end);
   }
   const inside = [...ticks].filter((t) => t >= low && t <= high).sort((p, q) => p - q);
