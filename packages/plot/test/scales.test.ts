@@ -25,7 +25,7 @@ describe('symlogTicks', () => {
   test('gives zero, the rounded-out ends and the decades between, with 1, 2, 5 in each decade when there are two or fewer', () => {
     // negative side: only the end −0.002 (it is the linear width); positive side 0.002 … 0.9: 1, 2, 5 per decade and the end
     expect(symlogTicks([-0.002, 0.3, 0.9])).toEqual([-0.002, 0, 0.002, 0.005, 0.01, 0.02, 0.05, 0.1, 0.2, 0.5, 0.9]);
-    expect(symlogTicks([])).toEqual([0]);
+    expect(symlogTicks([])).toEqual([-1, 0, 1]); // no data: the axis spans −1 … 1
   });
 
   test('reaches the extreme of the data: the superradiant minimum −0.555 gets the end tick −0.6 and every decade from 10⁻⁶ of the peak', () => {
