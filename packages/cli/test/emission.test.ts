@@ -43,7 +43,15 @@ describe('penumbra emission', () => {
     const j = JSON.parse((await run(...args, '--json')).stdout);
     const text = (await run(...args)).stdout.split('\n');
     const head = text.findIndex((line) => line.includes('Mω'));
-    for (const column of ['d²N/dtdω [1]', 'd²E/dtdω [1/M]', 'd²J/dtdω [1]', 'rel. error', 'l max', 'E [GeV]', 'd²N/dtdE [GeV⁻¹ s⁻¹]'])
+    for (const column of [
+      'd²N/dtdω [1]',
+      'd²E/dtdω [1/M]',
+      'd²J/dtdω [1]',
+      'rel. error',
+      'l max',
+      'E [GeV]',
+      'd²N/dtdE [GeV⁻¹ s⁻¹]',
+    ])
       expect(text[head]).toContain(column);
     const cells = text[head + 2].trim().split(/\s+/).map(Number);
     const row = j.spectrum[1];

@@ -36,7 +36,15 @@ describe('symlogTicks', () => {
   });
 
   test('labels ticks as a physicist writes them: decimals from 0.001, superscript powers of ten beyond, true minus signs', () => {
-    expect([0, 0.6, -0.01, 1e-4, -2e-5, 3e18, 1000].map(tickLabel)).toEqual(['0', '0.6', '−0.01', '10⁻⁴', '−2×10⁻⁵', '3×10¹⁸', '1000']);
+    expect([0, 0.6, -0.01, 1e-4, -2e-5, 3e18, 1000].map(tickLabel)).toEqual([
+      '0',
+      '0.6',
+      '−0.01',
+      '10⁻⁴',
+      '−2×10⁻⁵',
+      '3×10¹⁸',
+      '1000',
+    ]);
   });
 
   test('gives at most 15 ticks, in increasing order and always with zero, for any data (property, 100 runs)', () => {
