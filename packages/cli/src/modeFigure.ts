@@ -122,7 +122,7 @@ export function modeFigure(all: readonly PlotRow[], quantity: ModeQuantity, opti
             .sort((p, q) => p - q)
             .map((l) => `l = ${halfLabel(l)}`),
         },
-    markers: drawn.length / Math.max(1, kept.series.length) <= 40,
+    markers: kept.series.length <= 6 && drawn.length / Math.max(1, kept.series.length) <= 40,
     clip: true,
     ...(band ? { band, bandLabel: 'superradiant' } : {}),
     ...(marks.length ? { marks } : {}),

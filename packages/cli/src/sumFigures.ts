@@ -107,7 +107,7 @@ export function crossSectionFigure(all: readonly PlotRow[], options: PlotOptions
     y: scaled({ title: 'σ', unit: 'M²' }, yScale, true),
     series: kept.series,
     legend: { title: 'field, hole' },
-    markers: good.length / Math.max(1, kept.series.length) <= 40,
+    markers: kept.series.length <= 6 && good.length / Math.max(1, kept.series.length) <= 40,
     rules,
   };
   return result(figure, 'crossSection', kept.series, omitted);
@@ -175,7 +175,7 @@ export function spectrumFigure(
     y: scaled(yAxis, yScale),
     series: kept.series,
     legend: { title: 'species, hole' },
-    markers: good.length / Math.max(1, kept.series.length) <= 40,
+    markers: kept.series.length <= 6 && good.length / Math.max(1, kept.series.length) <= 40,
   };
   return result(figure, energy ? 'energySpectra' : 'spectra', kept.series, omitted);
 }

@@ -37,16 +37,24 @@ export function symlogConstant(values: readonly number[]): number {
   return Math.max(smallest(magnitudes), largest(magnitudes) * 10 ** -SYMLOG_DECADES);
 }
 
-/** A value rounded away from zero to one significant figure (0.555 → 0.6, −0.555 → −0.6, 0.93 → 1). */
+/**
+ * A value rounded away from zero to a round number, 1, 1.5, 2, 3, 4, 5, 6 or 8
+ * times a power of ten (0.555 → 0.6, −0.555 → −0.6, 0.93 → 1); a value within
+ * 1 % above a round number keeps it (1.0000001 → 1), so a curve that touches
+ * 1 does not stretch the axis to 1.5.
+ */
 export function roundOut(value: number): number {
   if (value === 0 || !Number.isFinite(value)) return value;
   const magnitude = Math.abs(value);
   const decade = 10 ** Math.floor(Math.log10(magnitude));
-  let rounded = Math.ceil(magnitude / decade - 1e-9) * decade;
-  rounded = Number(rounded.toPrecision(1));
-  // beyond the normal double range the rounding has no room: keep the value
-  return Number.isFinite(rounded) && rounded >= magnitude ? Math.sign(value) * rounded : value;
+  if (!(decade > 0) || !Number.isFinite(decade)) return value;
+  const mantissa = magnitude / decade;
+  const step = ROUND_MANTISSAS.find((m) => mantissa <= m * 1.01) ?? 10;
+  const rounded = Number((step * decade).toPrecision(2));
+  return Number.isFinite(rounded) ? Math.sign(value) * rounded : value;
 }
+
+const ROUND_MANTISSAS = [1, 1.5, 2, 3, 4, 5, 6, 8, 10];
 
 /** The domain of a symmetric-log axis: the data's range and zero, each end rounded out to one significant figure. */
 export function symlogDomain(values: readonly number[]): [number, number] {

@@ -99,7 +99,8 @@ function linesMark(figure: Figure, series: readonly Series[], y: Axis, yDomain: 
   const every = allSeries(figure);
   const xs = every.flatMap((s) => s.points.map((p) => p[0]));
   const ys = series.flatMap((s) => s.points.map((p) => p[1]));
-  const legendPlace = figure.legend?.position === 'bottom' ? { orient: 'bottom', columns: 1 } : {};
+  // legend symbols are short strokes in the line's colour and dash, also where points are drawn
+  const legendPlace = { symbolType: 'stroke', ...(figure.legend?.position === 'bottom' ? { orient: 'bottom', columns: 1 } : {}) };
   const hidden = figure.legend?.visible === false;
   const encoding: Spec = {
     x: position('x', figure.x, xs, figure.x.domain, xTitle),
@@ -121,7 +122,7 @@ function linesMark(figure: Figure, series: readonly Series[], y: Axis, yDomain: 
         title: figure.legend?.dashTitle ?? null,
         sort: distinct([...(figure.legend?.dashes ?? []), ...every.map((s) => s.dash)]),
         scale: { range: DASHES.map((d) => [...d]) },
-        legend: hidden ? null : { ...legendPlace, symbolStrokeColor: '#333' },
+        legend: hidden ? null : { ...legendPlace, encode: { symbols: { update: { stroke: { value: '#333' } } } } },
       };
   } else {
     // one legend: colour and dash on the same field; series i takes colour i mod 9 and dash ⌊i/9⌋
@@ -129,7 +130,7 @@ function linesMark(figure: Figure, series: readonly Series[], y: Axis, yDomain: 
     const colours = names.map((_, i) => PALETTE[i % PAIRED_COLOURS]);
     const dashes = names.map((_, i) => [...DASHES[Math.floor(i / PAIRED_COLOURS) % DASHES.length]]);
     const title = figure.legend?.title ?? null;
-    const legend = hidden ? { legend: null } : Object.keys(legendPlace).length ? { legend: legendPlace } : {};
+    const legend = { legend: hidden ? null : legendPlace };
     encoding.color = { field: 'series', type: 'nominal', title, sort: names, scale: { range: colours }, ...legend };
     encoding.strokeDash = { field: 'series', type: 'nominal', title, sort: names, scale: { range: dashes }, ...legend };
   }
@@ -239,8 +240,8 @@ function rulesLayer(figure: Figure): Spec | undefined {
     layer: [
       { mark: { type: 'rule', strokeDash: REFERENCE_DASH, color: STYLE.rule, clip: true }, encoding: { y } },
       {
-        mark: { type: 'text', align: 'right', dx: -4, dy: -6, color: STYLE.rule, fontSize: 10, clip: true },
-        encoding: { y, x: { value: figure.width ?? 560 }, text: { field: 'label' } },
+        mark: { type: 'text', align: 'left', dx: 4, dy: -6, color: STYLE.rule, fontSize: 10, clip: true },
+        encoding: { y, x: { value: 0 }, text: { field: 'label' } },
       },
     ],
   };
