@@ -149,6 +149,7 @@ const SUPERSCRIPT: Record<string, string> = {
  */
 export function tickLabel(value: number): string {
   if (value === 0) return '0';
+  if (!Number.isFinite(value)) return String(value).replace('-', '−');
   const sign = value < 0 ? '−' : '';
   const magnitude = Math.abs(value);
   if (magnitude >= 1e-3 && magnitude < 1e4) return sign + String(Number(magnitude.toPrecision(3)));
