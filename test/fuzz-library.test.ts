@@ -545,6 +545,7 @@ const ENTRIES: Entry[] = [
   // plot
   { name: 'autoScale', call: fn(plot.autoScale), args: [or(fc.array(or(fc.double()), { maxLength: 5 })), or(fc.double())] },
   { name: 'axisTitle', call: fn(plot.axisTitle), args: [or(fc.record({ title: or(fc.string()), unit: or(fc.string()) }))] },
+  { name: 'tickLabel', call: fn(plot.tickLabel), args: [or(fc.double())] },
   { name: 'validateFigure', call: fn(plot.validateFigure), args: [or(figure), or(fc.string())] },
   // near-region
   {
@@ -628,6 +629,7 @@ const LEFT: Record<string, string> = {
   toPhysicalSpectrum: 'trusts its type: takes an EmissionSpectrum',
   autoScale: 'trusts its type: values must be an array',
   axisTitle: 'trusts its type: a missing axis is a TypeError',
+  tickLabel: 'trusts its type: a non-number is a TypeError',
   delta: 'overflows to Infinity for |r| > 1e154 (r unchecked)',
   tortoiseDerivative: 'NaN/Infinity at or inside the horizon (r unchecked)',
   tortoiseFromHorizonDistance: 'Infinity for a subnormal horizon distance',

@@ -98,11 +98,30 @@ export function emissionText(
   }
   let out = formatTable(t);
   if (spectrum) {
-    out += 'spectrum:\n';
-    out += formatTable([
-      ['Mω', 'd²N/dtdω', 'd²E/dtdω', 'l max'],
-      ...spectrum.map((r) => [formatNumber(r.omega, 6), formatNumber(r.number, 8), formatNumber(r.energy, 8), String(r.lMax)]),
-    ]);
+    out += 'spectrum per degree of freedom:\n';
+    out += formatTable(spectrumTextRows(spectrum));
   }
   return out;
+}
+
+/** The spectrum as aligned text rows, header first, with units: every column the JSON and CSV carry. */
+export function spectrumTextRows(spectrum: readonly SpectrumRow[]): string[][] {
+  const physical = spectrum.every((r) => r.energyGeV !== undefined && r.perGeVPerSecond !== undefined);
+  const header = ['Mω', 'd²N/dtdω [1]', 'd²E/dtdω [1/M]', 'd²J/dtdω [1]', 'rel. error', 'l max'];
+  if (physical) header.push('E [GeV]', 'd²N/dtdE [GeV⁻¹ s⁻¹]');
+  return [
+    header,
+    ...spectrum.map((r) => {
+      const cells = [
+        formatNumber(r.omega, 6),
+        formatNumber(r.number, 8),
+        formatNumber(r.energy, 8),
+        formatNumber(r.torque, 8),
+        formatError(r.relError),
+        String(r.lMax),
+      ];
+      if (physical) cells.push(formatNumber(r.energyGeV!, 6), formatNumber(r.perGeVPerSecond!, 6));
+      return cells;
+    }),
+  ];
 }

@@ -38,3 +38,8 @@ export {
   totalsTable,
   spectrumTable,
 } from './emissionOutput.js';
+export { plotFigure, drawableQuantities } from './plotFigure.js';
+export { readPlotData, dataKind, type PlotData, type PlotRow, type DataKind } from './plotRead.js';
+export { PLOT_QUANTITIES, type PlotQuantity, type PlotOptions, type PlotResult } from './plotCommon.js';
+export { parseCsvRows } from './csvRead.js';
+export { spectrumTextRows } from './emissionOutput.js';

@@ -38,6 +38,26 @@ describe('penumbra emission', () => {
     const cells = csv[2].split(',').map(Number);
     expect(cells).toEqual(['omega', 'number', 'energy', 'torque', 'relError', 'lMax'].map((k) => j.spectrum[1][k]));
   });
+  test('the text spectrum carries every column of the JSON rows with units in the header, and E [GeV], d²N/dtdE [GeV⁻¹ s⁻¹] with --mass, each equal to the JSON value to 6 significant figures', async () => {
+    const args = ['emission', '--a', '0.5', '--spin', '1', '--omega', '0.1:0.3:3', '--mass', '1e15', '--tol', '1e-3'];
+    const j = JSON.parse((await run(...args, '--json')).stdout);
+    const text = (await run(...args)).stdout.split('\n');
+    const head = text.findIndex((line) => line.includes('Mω'));
+    for (const column of [
+      'd²N/dtdω [1]',
+      'd²E/dtdω [1/M]',
+      'd²J/dtdω [1]',
+      'rel. error',
+      'l max',
+      'E [GeV]',
+      'd²N/dtdE [GeV⁻¹ s⁻¹]',
+    ])
+      expect(text[head]).toContain(column);
+    const cells = text[head + 2].trim().split(/\s+/).map(Number);
+    const row = j.spectrum[1];
+    const expected = [row.omega, row.number, row.energy, row.torque, row.relError, row.lMax, row.energyGeV, row.perGeVPerSecond];
+    for (const [i, value] of expected.entries()) expect(Math.abs(cells[i] / value - 1)).toBeLessThan(i === 4 ? 0.05 : 5e-6);
+  });
   test('without --omega the CSV holds the totals, one row per quantity and unit, with the values of the JSON output', async () => {
     const json = JSON.parse((await run('emission', '--a', '0', '--spin', '0', '--tol', '1e-3', '--json')).stdout);
     const csv = (await run('emission', '--a', '0', '--spin', '0', '--tol', '1e-3', '--csv')).stdout.trim().split('\n');

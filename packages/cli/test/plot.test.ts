@@ -15,6 +15,12 @@ const GRID = {
   quantities: ['gamma'],
 };
 
+/** The text content of every <text> element. */
+const texts = (svg: string) => [...svg.matchAll(/<text[^>]*>([^<]*)<\/text>/g)].map((m) => m[1]);
+/** The tick labels of the y axes (Vega marks each axis group with its title in aria-label). */
+const yTickLabels = (svg: string) =>
+  [...svg.matchAll(/aria-label="Y-axis[^"]*"[\s\S]*?role-axis-label[^>]*>([\s\S]*?)<\/g>/g)].flatMap((m) => texts(m[1]));
+
 let work = '';
 let buildProblem: string | undefined;
 
@@ -33,13 +39,38 @@ describe('penumbra plot', () => {
     const out = join(work, 'gamma.svg');
     const result = await run('plot', join(work, 'table'), '--out', out);
     expect(result.code, result.stderr).toBe(0);
-    expect(result.stderr).toMatch(/gamma: 4 series, 20 points; log ω axis, symlog y axis/);
+    expect(result.stderr).toMatch(/gamma: 4 series, 20 points; log x axis, symlog y axis/);
     const svg = readFileSync(out, 'utf8');
     expect(svg.startsWith('<svg')).toBe(true);
-    expect(svg).toContain('ω [1/M]');
-    expect(svg).toContain('Γ (absorbed fraction of the incident flux, dimensionless)');
-    expect(svg).toContain('l = 1, m = 1');
-    expect(svg).toContain('s = 0, a = 0.9 M');
+    const labels = texts(svg);
+    for (const label of ['ω [1/M]', 'Γₛₗₘ', 'm = 1', 'm = −1', 'l = 0', 'l = 1', 'Ωₕ', 'superradiant'])
+      expect(labels).toContain(label);
+    expect(labels.some((t) => t.startsWith('s = 0, a = 0.9 M'))).toBe(true);
+    // the superradiant band is drawn, and the symmetric-log axis has a tick in every decade from 10⁻⁶ of the peak to the ends
+    expect(svg).toContain('fill="#fbe3b8"');
+    const ticks = yTickLabels(svg);
+    expect(ticks).toContain('0');
+    const negative = ticks.filter((t) => t.startsWith('−'));
+    expect(negative.length).toBeGreaterThanOrEqual(3);
+  });
+
+  test("reads the table's own modes.csv as well as its table.json: the same series and points", async (context) => {
+    if (buildProblem) context.skip(buildProblem);
+    const fromCsv = await run('plot', join(work, 'table', 'modes.csv'), '--out', join(work, 'csv.svg'));
+    const fromJson = await run('plot', join(work, 'table', 'table.json'), '--out', join(work, 'json.svg'));
+    expect(fromCsv.code, fromCsv.stderr).toBe(0);
+    expect(fromCsv.stderr.replace(/wrote .*/, '')).toBe(fromJson.stderr.replace(/wrote .*/, ''));
+  });
+
+  test('--l and --m select modes: one series, a linear y axis for Γ > 0 data, and the rest left out of the legend', async (context) => {
+    if (buildProblem) context.skip(buildProblem);
+    const out = join(work, 'l1m1.svg');
+    const result = await run('plot', join(work, 'table'), '--l', '1', '--m', '0:1', '--y-scale', 'log', '--out', out);
+    expect(result.code, result.stderr).toBe(0);
+    expect(result.stderr).toMatch(/gamma: 2 series/);
+    const labels = texts(readFileSync(out, 'utf8'));
+    expect(labels).toContain('m = 0');
+    expect(labels).not.toContain('m = −1');
   });
 
   test('reads table.json directly and draws the same figure bytes twice (deterministic output)', async (context) => {
@@ -65,8 +96,8 @@ describe('penumbra plot', () => {
   test('a quantity the table lacks, a spin not in it or a missing table: exit 2, one message, no file', async (context) => {
     if (buildProblem) context.skip(buildProblem);
     const cases: [string[], RegExp][] = [
-      [['--quantity', 'crossSection'], /the table has no crossSection; it can draw gamma/],
-      [['--spin', '2'], /field spin 2 is not in the table \(it has 0\)/],
+      [['--quantity', 'crossSection'], /the data has no crossSection; it can draw gamma, amplification/],
+      [['--spin', '2'], /field spin 2 is not in the data \(it has 0\)/],
       [['--quantity', 'flux'], /--quantity expects one of/],
     ];
     for (const [args, message] of cases) {

@@ -11,7 +11,7 @@ export const SCALE_TYPES = ['linear', 'log', 'symlog'] as const;
 /** One of `SCALE_TYPES`. */
 export type ScaleType = (typeof SCALE_TYPES)[number];
 
-/** Looks: `'plain'` is Vega's default look; `'report'` has larger fonts, a lighter grid and a darker frame (the validation report's figures). */
+/** Looks: `'plain'` is penumbra's own look (light grid, left-aligned title, small margins); `'report'` has larger fonts, a lighter grid and a darker frame (the validation report's figures). */
 export const PLOT_STYLES = ['plain', 'report'] as const;
 
 /** One of `PLOT_STYLES`. */
@@ -44,11 +44,13 @@ export type Point = readonly [x: number, y: number];
 
 /** One line of a chart. */
 export interface Series {
-  /** legend entry (colour): the legend lists names in order of first appearance, and equal names share a colour */
+  /** the series' name: its legend entry when no series has `colour` or `dash` (each name then gets its own colour and dash pair) */
   readonly name: string;
   /** the points, joined in order of x unless the figure says `join: 'given'` */
   readonly points: readonly Point[];
-  /** optional second grouping, drawn as a dash pattern with a legend of its own (e.g. `'m = −l'`) */
+  /** colour group (e.g. `'m = 2'`): series with equal groups share a colour, listed in the colour legend (default: the name) */
+  readonly colour?: string;
+  /** dash group (e.g. `'l = 3'`), drawn as a dash pattern with a legend of its own */
   readonly dash?: string;
 }
 
@@ -58,6 +60,8 @@ export interface Panel {
   readonly title: string;
   /** the panel's lines */
   readonly series: readonly Series[];
+  /** this panel's own vertical axis (title, unit, scale), instead of the figure's */
+  readonly y?: Axis;
   /** this panel's own y range (panels with one are drawn as separate charts with their own y axes) */
   readonly yDomain?: readonly [number, number];
 }
@@ -70,12 +74,26 @@ export interface Rule {
   readonly label: string;
 }
 
-/** The legend of the series names. */
+/** A vertical reference line with a label, e.g. the superradiant edge mΩ_H. */
+export interface Marker {
+  /** position on the x axis */
+  readonly x: number;
+  /** text written beside the line, at the top */
+  readonly label: string;
+}
+
+/** The legends of the series: one for colour, one for dash (when series carry `dash`). */
 export interface Legend {
-  /** legend title (default none) */
+  /** colour legend title (default none) */
   readonly title?: string;
+  /** dash legend title (default none) */
+  readonly dashTitle?: string;
+  /** order of the colour groups in their legend (default: order of first appearance) */
+  readonly colours?: readonly string[];
   /** `'right'` (default) or `'bottom'` (one entry per row, for long names) */
   readonly position?: 'right' | 'bottom';
+  /** `false` draws no legend (e.g. one line per panel, named by its axis) */
+  readonly visible?: boolean;
   /** order of the dash groups in their legend (default: order of first appearance) */
   readonly dashes?: readonly string[];
 }
@@ -98,8 +116,10 @@ export interface Figure {
   readonly y: Axis;
   /** the lines of a one-chart figure (exactly one of `series`, `panels`) */
   readonly series?: readonly Series[];
-  /** the panels of a figure with several charts, left to right */
+  /** the panels of a figure with several charts */
   readonly panels?: readonly Panel[];
+  /** `'row'` (default): panels left to right; `'column'`: stacked top to bottom, sharing the x axis */
+  readonly panelLayout?: 'row' | 'column';
   /** `'shared'` (default): one y scale for every panel; `'independent'`: each panel fits its own data */
   readonly panelY?: 'shared' | 'independent';
   readonly legend?: Legend;
@@ -113,6 +133,10 @@ export interface Figure {
   readonly clip?: boolean;
   /** shaded x range [from, to], e.g. a frequency band */
   readonly band?: readonly [number, number];
+  /** text written in the band, at the top */
+  readonly bandLabel?: string;
+  /** vertical reference lines with labels */
+  readonly marks?: readonly Marker[];
   /** horizontal reference lines with labels */
   readonly rules?: readonly Rule[];
   /** a dashed grey reference curve outside the legend, e.g. y = x */

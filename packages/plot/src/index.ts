@@ -8,10 +8,11 @@ export {
   type Series,
   type Panel,
   type Rule,
+  type Marker,
   type Legend,
   type Figure,
   axisTitle,
 } from './figure.js';
-export { autoScale } from './scales.js';
+export { autoScale, tickLabel } from './scales.js';
 export { validateFigure } from './validate.js';
 export { renderSvg } from './render.js';

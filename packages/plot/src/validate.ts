@@ -10,6 +10,7 @@ import {
   type Axis,
   type Figure,
   type Legend,
+  type Marker,
   type Panel,
   type Point,
   type Rule,
@@ -77,10 +78,21 @@ const axis = object<Axis>(
   },
   ['title'],
 );
-const series = object<Series>({ name: text, points: list(point), dash: text }, ['name', 'points']);
-const panel = object<Panel>({ title: text, series: list(series), yDomain: range }, ['title', 'series']);
+const series = object<Series>({ name: text, points: list(point), colour: text, dash: text }, ['name', 'points']);
+const panel = object<Panel>({ title: text, series: list(series), y: axis, yDomain: range }, ['title', 'series']);
+const marker = object<Marker>({ x: finite, label: text }, ['x', 'label']);
 const rule = object<Rule>({ y: finite, label: text }, ['y', 'label']);
-const legend = object<Legend>({ title: text, position: oneOf(['right', 'bottom'] as const), dashes: list(text) }, []);
+const legend = object<Legend>(
+  {
+    title: text,
+    dashTitle: text,
+    colours: list(text),
+    visible: isBoolean,
+    position: oneOf(['right', 'bottom'] as const),
+    dashes: list(text),
+  },
+  [],
+);
 
 const figureSpec: OptionSpec<Figure> = {
   title: text,
@@ -90,12 +102,15 @@ const figureSpec: OptionSpec<Figure> = {
   series: list(series),
   panels: list(panel),
   panelY: oneOf(['shared', 'independent'] as const),
+  panelLayout: oneOf(['row', 'column'] as const),
   legend,
   markers: (value, parameter) => (typeof value === 'boolean' ? value : size(value, parameter)),
   lineWidth: numberIn(0.1, 100),
   join: oneOf(['x', 'given'] as const),
   clip: isBoolean,
   band: range,
+  bandLabel: text,
+  marks: list(marker),
   rules: list(rule),
   guide: list(point),
   width: size,
@@ -121,22 +136,38 @@ export function validateFigure(value: unknown, parameter = 'figure'): Figure {
 
 /** A log axis shows positive values only: every point, domain end, band edge, rule and guide point on it must be > 0. */
 function checkLogAxis(figure: Figure, which: 'x' | 'y', parameter: string): void {
-  if (figure[which].scale !== 'log') return;
+  const panelLog = which === 'y' && (figure.panels ?? []).some((p) => p.y?.scale === 'log');
+  if (figure[which].scale !== 'log' && !panelLog) return;
   const index = which === 'x' ? 0 : 1;
   const allowed = `values > 0 on a log ${which} axis`;
   const check = (v: number, where: string) => {
     if (!(v > 0)) throw new InputError(where, allowed, v);
   };
-  for (const [i, v] of (figure[which].domain ?? []).entries()) check(v, `${parameter}.${which}.domain[${i}]`);
+  if (figure[which].scale === 'log') checkFigureLevel(figure, which, parameter, check);
   const seriesLists = figure.series
     ? [{ series: figure.series, at: `${parameter}.series` }]
-    : (figure.panels ?? []).map((p, i) => ({ series: p.series, at: `${parameter}.panels[${i}].series` }));
+    : (figure.panels ?? [])
+        .map((p, i) => ({
+          series: p.series,
+          at: `${parameter}.panels[${i}].series`,
+          log: (p.y ?? figure[which]).scale === 'log',
+        }))
+        .filter((p) => which === 'x' || p.log);
   for (const { series: lines, at } of seriesLists) {
     for (const [i, line] of lines.entries())
       for (const [j, p] of line.points.entries()) check(p[index], `${at}[${i}].points[${j}][${index}]`);
   }
+}
+
+/** The figure-level values on a log axis: domain, guide, band, markers, rules. */
+function checkFigureLevel(figure: Figure, which: 'x' | 'y', parameter: string, check: (v: number, where: string) => void): void {
+  const index = which === 'x' ? 0 : 1;
+  for (const [i, v] of (figure[which].domain ?? []).entries()) check(v, `${parameter}.${which}.domain[${i}]`);
   for (const [j, p] of (figure.guide ?? []).entries()) check(p[index], `${parameter}.guide[${j}][${index}]`);
-  if (which === 'x') for (const [i, v] of (figure.band ?? []).entries()) check(v, `${parameter}.band[${i}]`);
+  if (which === 'x') {
+    for (const [i, v] of (figure.band ?? []).entries()) check(v, `${parameter}.band[${i}]`);
+    for (const [i, m] of (figure.marks ?? []).entries()) check(m.x, `${parameter}.marks[${i}].x`);
+  }
   if (which === 'y') {
     for (const [i, r] of (figure.rules ?? []).entries()) check(r.y, `${parameter}.rules[${i}].y`);
     for (const [i, p] of (figure.panels ?? []).entries())

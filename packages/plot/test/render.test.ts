@@ -46,6 +46,7 @@ describe('renderSvg', () => {
     expect(count(svg, /aria-roledescription="point"/g)).toBe(6);
     // log axes labelled in the requested format
     expect(labels).toContain('1e+3');
+    expect(labels).toContain('1e-3');
   });
 
   test('escapes markup in names and titles, so any text gives well-formed XML (property, 15 random figures)', async () => {
@@ -84,7 +85,7 @@ describe('renderSvg', () => {
     expect(first).toContain('clip-path="url(#clip1)"');
   });
 
-  test('labels a symmetric-log axis with signed powers of ten and zero, across the data', async () => {
+  test('labels a symmetric-log axis with signed powers of ten, zero and the rounded-out ends, across the data', async () => {
     const svg = await renderSvg({
       x: { title: 'ω' },
       y: { title: 'Γ', scale: 'symlog', format: '.0e' },
@@ -101,7 +102,27 @@ describe('renderSvg', () => {
     });
     expect(xmlProblems(svg)).toEqual([]);
     const labels = texts(svg);
-    for (const tick of ['−1e-3', '0e+0', '1e-3', '1e-2', '1e-1', '1e+0']) expect(labels).toContain(tick);
+    // the data run from −0.002 to 1: the domain is [−0.002, 1], the linear width 0.002
+    for (const tick of ['−2e-3', '0e+0', '1e-2', '1e-1', '1e+0']) expect(labels).toContain(tick);
+  });
+
+  test('labels log and symmetric-log ticks with superscript powers of ten and a true minus sign when no format is given', async () => {
+    const svg = await renderSvg({
+      x: { title: 'ω' },
+      y: { title: 'Γ', scale: 'symlog' },
+      series: [
+        {
+          name: 'Γ',
+          points: [
+            [0, -0.555],
+            [1, -1e-6],
+            [2, 1],
+          ],
+        },
+      ],
+    });
+    const labels = texts(svg);
+    for (const tick of ['−0.6', '−0.1', '−0.01', '−0.001', '−10⁻⁴', '−10⁻⁵', '0', '1']) expect(labels).toContain(tick);
   });
 
   test('draws dash groups with a legend of their own, in the order asked for', async () => {
@@ -181,10 +202,10 @@ describe('renderSvg', () => {
       rules: [{ y: 0.03, label: 'a reference level' }],
     };
     const spec = vegaLiteSpec(figure) as { layer: { mark?: { type: string } }[] };
-    expect(spec.layer.map((l) => l.mark?.type ?? 'rules')).toEqual(['rect', 'line', 'line', 'rules']);
+    expect(spec.layer.map((l) => l.mark?.type ?? 'layers')).toEqual(['layers', 'line', 'line', 'layers']);
     const svg = await renderSvg(figure);
     expect(xmlProblems(svg)).toEqual([]);
-    expect(svg).toContain('fill="#f4d9a6"');
+    expect(svg).toContain('fill="#fbe3b8"');
     expect(texts(svg)).toContain('a reference level');
   });
 
@@ -232,11 +253,11 @@ describe('renderSvg', () => {
     }
   });
 
-  test("the 'report' style sets the report's font; the 'plain' style keeps Vega's", async () => {
+  test("the 'report' style sets the report's font; the 'plain' style has penumbra's own (DejaVu Sans first)", async () => {
     const plain = await renderSvg(powerLaws);
     const report = await renderSvg({ ...powerLaws, style: 'report' });
     expect(report).toContain('font-family="Helvetica, Arial, sans-serif"');
-    expect(plain).not.toContain('Helvetica');
+    expect(plain).toContain('font-family="DejaVu Sans, Helvetica, Arial, sans-serif"');
   });
 });
 

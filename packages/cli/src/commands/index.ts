@@ -45,7 +45,7 @@ export const commands: readonly CommandEntry[] = [
   },
   {
     name: 'plot',
-    summary: "draw a table from 'penumbra table' as an SVG figure (Γ(ω) by mode, σ(ω), spectra)",
+    summary: 'draw what a penumbra command wrote (CSV, JSON or a table) as an SVG figure',
     load: () => import('./plot.js'),
   },
   {
