@@ -5,8 +5,9 @@
  * spin-±1/2 spherical harmonics (diracAngularMatrix.ts, docs/massive-dirac.md).
  *
  * Labels: j (half-integer, j ≥ |m|), m and `kappaSign` = ±1. At a = 0,
- * λ = −kappaSign·(j + ½): kappaSign is the sign of the Dirac quantum number
- * κ = ±(j + ½), negative for j = l_orbital + ½ (κ = −1 is the s-wave). The
+ * λ = kappaSign·(j + ½) = κ, the Dirac quantum number, negative for
+ * j = l_orbital + ½ (κ = −1 is the s-wave: near threshold it is the mode that
+ * is absorbed most, docs/massive-dirac.md). The
  * eigenvalues of a symmetric one-parameter family do not cross, so the label
  * follows λ continuously by its rank among the positive or negative eigenvalues.
  */
@@ -24,7 +25,7 @@ export interface DiracAngularProblem {
   readonly aOmega: number;
   /** aμ, with μ the field's rest mass */
   readonly aMu: number;
-  /** sign of κ = ±(j + ½) (the value at a = 0); −1 includes the s-wave j = ½ */
+  /** sign of κ = λ(a = 0) = ±(j + ½); −1 includes the s-wave j = ½ */
   readonly kappaSign: 1 | -1;
 }
 
@@ -38,7 +39,7 @@ export interface DiracAngularDiagnostics extends Diagnostics {
 
 /** The separation constant λ and how it was obtained. */
 export interface DiracAngularEigenvalue {
-  /** Chandrasekhar's λ; λ = −kappaSign·(j + ½) at a = 0 */
+  /** Chandrasekhar's λ; λ = kappaSign·(j + ½) at a = 0 */
   lambda: number;
   diagnostics: DiracAngularDiagnostics;
 }
@@ -81,7 +82,7 @@ export function diracAngularEigenvalue(problem: DiracAngularProblem): DiracAngul
     const values = evd.realEigenvalues;
     const order = values.map((_, i) => i).sort((p, q) => values[p] - values[q]);
     // count negative and count positive eigenvalues; rank from zero outwards.
-    const column = kappaSign < 0 ? order[count + rank] : order[count - 1 - rank];
+    const column = kappaSign > 0 ? order[count + rank] : order[count - 1 - rank];
     const V = evd.eigenvectorMatrix;
     const n = 2 * count;
     const tail = Math.max(Math.abs(V.get(n - 1, column)), Math.abs(V.get(n - 2, column)));

@@ -1,4 +1,4 @@
-import type { FieldSpin } from '@penumbra/core';
+import { InputError, type FieldSpin } from '@penumbra/core';
 import { greybody, type GreybodySolution } from '@penumbra/flux';
 import type { Command } from '../command.js';
 import { formatTable } from '../format.js';
@@ -6,6 +6,13 @@ import { greybodyJson, greybodyTable, greybodyTextRows } from '../greybodyTable.
 import { parseFieldSpin, parseModeNumber, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
 import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
 import { progressReporter } from '../progress.js';
+
+/** --kappa-sign: 1 or -1. */
+function parseKappaSign(text: string): 1 | -1 {
+  const k = parseNumber('--kappa-sign', text);
+  if (k !== 1 && k !== -1) throw new InputError('--kappa-sign', '1 or -1', text);
+  return k;
+}
 
 /** `penumbra greybody`. */
 export const command: Command = {
@@ -21,6 +28,9 @@ Options:
   --m M        azimuthal number, |m| ≤ l with m − S an integer
   --a A        the hole's spin parameter a/M; negative: counter-rotating relative to m > 0
   --omega W    frequency Mω in [1e-5, 30], or a grid START:STOP:COUNT
+  --field-mass MU   the field's rest mass Mμ (default 0); Γ needs ω > μ
+  --kappa-sign K    massive spin 1/2 only: the sign (1 or -1) of the Dirac
+               quantum number κ = ±(l + 1/2); -1 includes the s-wave
   --log        space a frequency grid geometrically
   --tol T      requested relative accuracy of Γ (default 1e-8, 1e-12 … 1e-2)
   --json       JSON: one object, or an array for a grid
@@ -41,6 +51,8 @@ Examples:
       m: { type: 'string' },
       a: { type: 'string' },
       omega: { type: 'string' },
+      'field-mass': { type: 'string' },
+      'kappa-sign': { type: 'string' },
       log: { type: 'boolean' },
       tol: { type: 'string' },
       ...OUTPUT_OPTIONS,
@@ -53,10 +65,15 @@ Examples:
     const omegaText = requireOption(values.omega, '--omega', 'the frequency Mω or START:STOP:COUNT');
     const grid = parseRange('--omega', omegaText, { min: 0, exclusive: true, log: values.log ?? false, maxCount: 10_000 });
     const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol);
+    const fieldMass = values['field-mass'] === undefined ? undefined : parseNumber('--field-mass', values['field-mass']);
+    const kappaSign = values['kappa-sign'] === undefined ? undefined : parseKappaSign(values['kappa-sign']);
+    const field = { spin: spin as FieldSpin, ...(fieldMass === undefined ? {} : { mass: fieldMass }) };
     const results: GreybodySolution[] = [];
     const progress = progressReporter(io, 'greybody: frequencies done', grid.count);
     for (const [i, omega] of grid.values.entries()) {
-      results.push(greybody({ hole: { a }, mode: { field: { spin: spin as FieldSpin }, l, m }, omega }, { tol }));
+      results.push(
+        greybody({ hole: { a }, mode: { field, l, m, ...(kappaSign === undefined ? {} : { kappaSign }) }, omega }, { tol }),
+      );
       progress(i + 1);
     }
     const single = grid.count === 1 && !omegaText.includes(':');
