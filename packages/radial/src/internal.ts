@@ -21,3 +21,4 @@ export { type ErrorBudget, singleSolveErrorEstimate, singleSolveMessage } from '
 export { diracRhs } from './dirac/equation.js';
 export { type DiracFarSeries, diracFarSeries, evaluateDiracFar, farMatrices } from './dirac/farSeries.js';
 export { type DiracHorizonStart, diracHorizonStart } from './dirac/horizonSeries.js';
+export type { C, V2, M2 } from './dirac/complex2.js';
