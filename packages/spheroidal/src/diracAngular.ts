@@ -12,8 +12,7 @@
  * follows λ continuously by its rank among the positive or negative eigenvalues.
  */
 import { ConvergenceError, InputError, requireFinite, type Diagnostics } from '@penumbra/core';
-import { EigenvalueDecomposition } from 'ml-matrix';
-import { diracAngularMatrix } from './diracAngularMatrix.js';
+import { bandEigenvalue, diracAngularBand } from './diracAngularMatrix.js';
 
 /** One angular problem of the massive Dirac field. */
 export interface DiracAngularProblem {
@@ -33,8 +32,8 @@ export interface DiracAngularProblem {
 export interface DiracAngularDiagnostics extends Diagnostics {
   /** number of j values kept (matrix size 2·truncation) */
   truncation: number;
-  /** ‖Hb − λb‖ of the normalised eigenvector */
-  residual: number;
+  /** |λ(truncation) − λ(truncation − 12)|, the truncation check */
+  truncationChange: number;
 }
 
 /** The separation constant λ and how it was obtained. */
@@ -46,8 +45,6 @@ export interface DiracAngularEigenvalue {
 
 /** Largest |aω| and |aμ| accepted (the radial solvers' range of Mω times |a| ≤ M). */
 export const MAX_DIRAC_A_OMEGA = 30;
-
-const TAIL = 1e-15;
 
 function check(problem: DiracAngularProblem): DiracAngularProblem {
   const j = requireFinite('j', problem?.j, 'a half-integer 1/2 ≤ j ≤ 100');
@@ -66,8 +63,8 @@ function check(problem: DiracAngularProblem): DiracAngularProblem {
 
 /**
  * λ of the massive Dirac angular pair for (j, m, kappaSign) at (aω, aμ).
- * Throws InputError for a bad problem, ConvergenceError if the eigenvector's
- * tail does not fall below 1e-15.
+ * Throws InputError for a bad problem, ConvergenceError if λ still moves by
+ * more than 4e-16 relative when the truncation grows by 12 values of j.
  *
  * @example diracAngularEigenvalue({ j: 0.5, m: 0.5, aOmega: 0.3, aMu: 0.1, kappaSign: -1 }).lambda
  */
@@ -75,57 +72,49 @@ export function diracAngularEigenvalue(problem: DiracAngularProblem): DiracAngul
   const { j, m, aOmega, aMu, kappaSign } = check(problem);
   const rank = j - Math.abs(m);
   const strength = Math.abs(aOmega) + Math.abs(aMu);
-  let count = Math.ceil(rank + 2 * strength + 20);
-  for (let attempt = 1; attempt <= 6; attempt++) {
-    const H = diracAngularMatrix(m, aOmega, aMu, count);
-    const evd = new EigenvalueDecomposition(H, { assumeSymmetric: true });
-    const values = evd.realEigenvalues;
-    const order = values.map((_, i) => i).sort((p, q) => values[p] - values[q]);
-    // count negative and count positive eigenvalues; rank from zero outwards.
-    const column = kappaSign > 0 ? order[count + rank] : order[count - 1 - rank];
-    const V = evd.eigenvectorMatrix;
-    const n = 2 * count;
-    const tail = Math.max(Math.abs(V.get(n - 1, column)), Math.abs(V.get(n - 2, column)));
-    if (tail < TAIL) {
-      const lambda = values[column];
-      const residual = residualOf(H, V, column, lambda);
-      const errorEstimate = Math.max(residual, 4 * Number.EPSILON * (j + 1 + strength)) / Math.max(1, Math.abs(lambda));
+  let count = Math.ceil(rank + 2 * strength + 12);
+  let evaluations = 0;
+  const solve = (n: number) => {
+    const band = diracAngularBand(m, aOmega, aMu, n);
+    // n negative and n positive eigenvalues at a = 0; rank from zero outwards.
+    const index = kappaSign > 0 ? n + rank : n - 1 - rank;
+    const root = bandEigenvalue(band, index);
+    evaluations += root.counts;
+    return { lambda: root.value, norm: band.norm };
+  };
+  let previous = solve(count);
+  for (let attempt = 1; attempt <= 8; attempt++) {
+    const next = solve(count + 12);
+    const change = Math.abs(next.lambda - previous.lambda);
+    const rounding = 8 * Number.EPSILON * next.norm;
+    if (change <= Math.max(rounding, 4e-16 * Math.abs(next.lambda))) {
+      const errorEstimate = (change + rounding) / Math.max(1, Math.abs(next.lambda));
       return {
-        lambda,
+        lambda: next.lambda,
         diagnostics: {
-          method: 'spectral (spin-±1/2 spherical harmonics, dense symmetric eigen-solve)',
+          method: 'spectral (spin-±1/2 spherical harmonics): bisection by Sylvester counts of the symmetric band',
           steps: attempt,
-          rhsEvaluations: attempt,
+          rhsEvaluations: evaluations,
           errorEstimate,
-          message: `converged: eigenvector tail ${tail.toExponential(1)} < ${TAIL} with ${count} values of j`,
-          truncation: count,
-          residual,
+          message: `converged: λ moved by ${change.toExponential(1)} when the truncation grew from ${count} to ${count + 12} values of j`,
+          truncation: count + 12,
+          truncationChange: change,
         },
       };
     }
-    count = Math.ceil(count * 1.5);
+    previous = next;
+    count += 12;
   }
   throw new ConvergenceError('Dirac angular expansion did not converge', {
     method: 'spectral (spin-±1/2 spherical harmonics)',
-    steps: 6,
-    rhsEvaluations: 6,
+    steps: 8,
+    rhsEvaluations: evaluations,
     errorEstimate: Infinity,
-    message: 'eigenvector tail above 1e-15 after 6 truncations',
+    message: 'λ still moving after 8 truncation increases',
     j,
     m,
     aOmega,
     aMu,
     kappaSign,
   });
-}
-
-function residualOf(H: import('ml-matrix').Matrix, V: import('ml-matrix').Matrix, column: number, lambda: number): number {
-  const n = H.rows;
-  let r2 = 0;
-  for (let i = 0; i < n; i++) {
-    let s = -lambda * V.get(i, column);
-    for (let k = Math.max(0, i - 3); k <= Math.min(n - 1, i + 3); k++) s += H.get(i, k) * V.get(k, column);
-    r2 += s * s;
-  }
-  return Math.sqrt(r2);
 }

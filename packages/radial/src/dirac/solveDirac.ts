@@ -10,7 +10,7 @@ import { ConvergenceError, type Diagnostics } from '@penumbra/core';
 import { makeStepper, type IntegratorName } from '../integrators.js';
 import { type C, type V2, cabs, cdiv, cmul, csub } from './complex2.js';
 import { type DiracRadialProblem, diracRhs } from './equation.js';
-import { diracFarSeries, evaluateDiracFar, farMatrices } from './farSeries.js';
+import { type DiracFarSeries, diracFarSeries, evaluateDiracFar, farMatrices } from './farSeries.js';
 import { diracHorizonStart } from './horizonSeries.js';
 
 /** Options of one massive Dirac radial solve. */
@@ -45,8 +45,30 @@ export interface DiracRadialSolution {
   diagnostics: DiracRadialDiagnostics;
 }
 
-const FAR_TERMS = 80;
+const FAR_TERMS = 50;
 const FAR_ACCEPT = 1e-16;
+
+let lastFar: { key: string; sIn: DiracFarSeries; sOut: DiracFarSeries } | null = null;
+
+/** The incoming and outgoing far series; the last pair is kept (a greybody solve asks twice for the same mode). */
+function farPair(p: DiracRadialProblem, kInf: number): { sIn: DiracFarSeries; sOut: DiracFarSeries } {
+  const key = [p.hole.a, p.hole.mass, p.omega, p.m, p.mu, p.lambda].join(',');
+  if (lastFar?.key === key) return lastFar;
+  const mats = farMatrices(p, FAR_TERMS);
+  const q = p.mu / (p.omega + kInf);
+  const cIn: V2 = [
+    [1, 0],
+    [-q, 0],
+  ];
+  const cOut: V2 = [
+    [-q, 0],
+    [1, 0],
+  ];
+  const sIn = diracFarSeries(mats, [0, -kInf], cIn, [0, kInf], cOut);
+  const sOut = diracFarSeries(mats, [0, kInf], cOut, [0, -kInf], cIn);
+  lastFar = { key, sIn, sOut };
+  return lastFar;
+}
 
 /** Solve once; Γ = (ω + k∞)/(2k∞|A|²), reflection |B/A|² (docs/massive-dirac.md). */
 export function solveMassiveDiracRadial(p: DiracRadialProblem, options: DiracRadialOptions): DiracRadialSolution {
@@ -69,20 +91,7 @@ export function solveMassiveDiracRadial(p: DiracRadialProblem, options: DiracRad
     }
   }
   // far-zone series of the two waves
-  const mats = farMatrices(p, FAR_TERMS);
-  const nuIn: C = [0, -kInf];
-  const nuOut: C = [0, kInf];
-  const q = mu / (omega + kInf);
-  const cIn: V2 = [
-    [1, 0],
-    [-q, 0],
-  ];
-  const cOut: V2 = [
-    [-q, 0],
-    [1, 0],
-  ];
-  const sIn = diracFarSeries(mats, nuIn, cIn, nuOut, cOut);
-  const sOut = diracFarSeries(mats, nuOut, cOut, nuIn, cIn);
+  const { sIn, sOut } = farPair(p, kInf);
   let R = options.matchRadius ?? Math.max(50 * hole.mass, (20 + p.lambda * p.lambda) / kInf);
   let fIn = evaluateDiracFar(sIn, R);
   let fOut = evaluateDiracFar(sOut, R);
