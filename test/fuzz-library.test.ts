@@ -146,6 +146,12 @@ const ENTRIES: Entry[] = [
   { name: 'requireKeyedObject', call: fn(core.requireKeyedObject), args: [or(fc.string()), hostile, fc.constant(['a', 'mass'])] },
   { name: 'parseFieldSpin', call: fn(core.parseFieldSpin), args: [or(fc.constantFrom(0, 0.5, '1/2', 1, 2, 3)), or(fc.string())] },
   { name: 'validateField', call: fn(core.validateField), args: [or(fc.record({ spin: or(spinArb) })), or(fc.string())] },
+  { name: 'parseFieldMass', call: fn(core.parseFieldMass), args: [or(fc.double({ min: -1, max: 40 })), or(fc.string())] },
+  {
+    name: 'requireMassless',
+    call: fn(core.requireMassless),
+    args: [or(fc.record({ spin: or(spinArb), mass: or(fc.double({ min: 0, max: 1 })) })), or(fc.string()), or(fc.string())],
+  },
   { name: 'isFermion', call: fn(core.isFermion), args: [or(spinArb)] },
   { name: 'formatFieldSpin', call: fn(core.formatFieldSpin), args: [or(spinArb)] },
   { name: 'geometricTailBound', call: fn(core.geometricTailBound), args: [or(fc.double()), or(fc.double()), or(fc.string())] },
@@ -434,7 +440,40 @@ const ENTRIES: Entry[] = [
     ],
     runs: 60,
   },
+  { name: 'solveMassiveDiracRadial', call: fn(radial.solveMassiveDiracRadial), args: [] },
+  {
+    name: 'diracAngularEigenvalue',
+    call: fn(spheroidal.diracAngularEigenvalue),
+    args: [
+      or(
+        fc.record({
+          j: or(fc.constantFrom(0.5, 1.5, 2.5)),
+          m: or(fc.constantFrom(-0.5, 0.5, 1.5)),
+          aOmega: or(fc.double({ min: -3, max: 3, noNaN: true })),
+          aMu: or(fc.double({ min: -3, max: 3, noNaN: true })),
+          kappaSign: or(fc.constantFrom(1, -1)),
+        }),
+      ),
+    ],
+    runs: 60,
+  },
   // regge-wheeler
+  {
+    name: 'schwarzschildMassiveDiracGreybody',
+    call: fn(rw.schwarzschildMassiveDiracGreybody),
+    args: [
+      or(
+        fc.record({
+          l: or(fc.constantFrom(0.5, 1.5)),
+          kappaSign: or(fc.constantFrom(1, -1)),
+          omega: or(fc.constantFrom(0.4, 0.05)),
+          fieldMass: or(fc.constantFrom(0.2, 0.3)),
+        }),
+      ),
+      or(fc.constant(undefined)),
+    ],
+    runs: 8,
+  },
   {
     name: 'schwarzschildGreybody',
     call: fn(rw.schwarzschildGreybody),
@@ -572,6 +611,8 @@ const LEFT: Record<string, string> = {
   cardyEntropy: 'trusts its type: takes the output of nearRegion',
   sphericalEigenvalue: 'trusts its types (s, l unchecked)',
   horizonFactor: 'trusts its types: takes a KerrHole from kerrHole',
+  requireMassless: 'trusts its type: takes the output of validateField',
+  solveMassiveDiracRadial: 'trusts its types: takes a KerrHole from kerrHole and a λ from diracAngularEigenvalue',
   starobinskyConstantSquared: 'trusts its types: takes a KerrHole from kerrHole',
   horizonMapSquared: 'trusts its types: takes a KerrHole from kerrHole',
   toPhysicalRates: 'trusts its type: takes an EmissionTotals',
