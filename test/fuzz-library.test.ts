@@ -448,7 +448,40 @@ const ENTRIES: Entry[] = [
     ],
     runs: 60,
   },
+  { name: 'solveMassiveDiracRadial', call: fn(radial.solveMassiveDiracRadial), args: [] },
+  {
+    name: 'diracAngularEigenvalue',
+    call: fn(spheroidal.diracAngularEigenvalue),
+    args: [
+      or(
+        fc.record({
+          j: or(fc.constantFrom(0.5, 1.5, 2.5)),
+          m: or(fc.constantFrom(-0.5, 0.5, 1.5)),
+          aOmega: or(fc.double({ min: -3, max: 3, noNaN: true })),
+          aMu: or(fc.double({ min: -3, max: 3, noNaN: true })),
+          kappaSign: or(fc.constantFrom(1, -1)),
+        }),
+      ),
+    ],
+    runs: 60,
+  },
   // regge-wheeler
+  {
+    name: 'schwarzschildMassiveDiracGreybody',
+    call: fn(rw.schwarzschildMassiveDiracGreybody),
+    args: [
+      or(
+        fc.record({
+          l: or(fc.constantFrom(0.5, 1.5)),
+          kappaSign: or(fc.constantFrom(1, -1)),
+          omega: or(fc.constantFrom(0.4, 0.05)),
+          fieldMass: or(fc.constantFrom(0.2, 0.3)),
+        }),
+      ),
+      or(fc.constant(undefined)),
+    ],
+    runs: 8,
+  },
   {
     name: 'schwarzschildGreybody',
     call: fn(rw.schwarzschildGreybody),
@@ -623,6 +656,8 @@ const LEFT: Record<string, string> = {
   cardyEntropy: 'trusts its type: takes the output of nearRegion',
   sphericalEigenvalue: 'trusts its types (s, l unchecked)',
   horizonFactor: 'trusts its types: takes a KerrHole from kerrHole',
+  requireMassless: 'trusts its type: takes the output of validateField',
+  solveMassiveDiracRadial: 'trusts its types: takes a KerrHole from kerrHole and a λ from diracAngularEigenvalue',
   starobinskyConstantSquared: 'trusts its types: takes a KerrHole from kerrHole',
   horizonMapSquared: 'trusts its types: takes a KerrHole from kerrHole',
   toPhysicalRates: 'trusts its type: takes an EmissionTotals',
@@ -637,7 +672,6 @@ const LEFT: Record<string, string> = {
   radialSeparationConstant: 'overflows for |ω| near 1e308 (inputs unchecked)',
   unitScales: 'Infinity for masses near 1e-300 kg (physicalBackground checks its range)',
   evolutionTimeUnitSeconds: 'Infinity for masses beyond about 1e100 kg',
-  requireMassless: 'trusts its type: takes the output of validateField',
   conformalWeights: 'trusts its types: takes a checked spin and l',
   logMatchingFactor: 'trusts its types: takes a checked spin, l, Mω and T_L',
   validityPointsTable: 'trusts its type: takes the output of validityMap',

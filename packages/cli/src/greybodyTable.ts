@@ -9,6 +9,7 @@ export function greybodyJson(r: GreybodySolution): Record<string, unknown> {
     spin: r.mode.field.spin,
     l: r.mode.l,
     m: r.mode.m,
+    ...(r.mode.kappaSign === undefined ? {} : { fieldMass: r.mode.field.mass, kappaSign: r.mode.kappaSign }),
     a: r.hole.a,
     mass: r.hole.mass,
     // the field's mass Mμ, only for a massive field (massless output is unchanged)

@@ -10,6 +10,13 @@ export interface Mode {
   readonly field: Field;
   readonly l: number;
   readonly m: number;
+  /**
+   * Massive Dirac modes only (spin 1/2): the sign of the Dirac quantum number
+   * κ = ±(l + ½) — the sign of Chandrasekhar's separation constant, its value
+   * at a = 0 — which tells apart the two modes of one j = l; −1 includes the
+   * s-wave. At mass 0 both signs give the same Γ (docs/massive-dirac.md).
+   */
+  readonly kappaSign?: 1 | -1;
 }
 
 /** Largest l the solvers take (the spheroidal and radial series are tested to it). */
@@ -26,9 +33,21 @@ export function validateAngular(spin: FieldSpin, l: unknown, m: unknown, paramet
   return { l: L, m: Mz };
 }
 
-/** Validate a mode object; returns its field spin as a number and its mass Mμ (0 when massless). */
-export function validateMode(value: unknown, parameter = 'mode'): { spin: FieldSpin; fieldMass: number; l: number; m: number } {
-  const v = requireKeyedObject(parameter, value, ['field', 'l', 'm'], 'an object { field: { spin, mass? }, l, m }');
+/** Validate a mode object; returns its field spin as a number, its mass Mμ (0 when massless) and kappaSign when given. */
+export function validateMode(
+  value: unknown,
+  parameter = 'mode',
+): { spin: FieldSpin; fieldMass: number; l: number; m: number; kappaSign?: 1 | -1 } {
+  const v = requireKeyedObject(
+    parameter,
+    value,
+    ['field', 'l', 'm', 'kappaSign'],
+    'an object { field: { spin, mass? }, l, m, kappaSign? }',
+  );
   const { spin, mass } = validateField(v.field, `${parameter}.field`);
-  return { spin, fieldMass: mass, ...validateAngular(spin, v.l, v.m, parameter) };
+  const angular = { spin, fieldMass: mass, ...validateAngular(spin, v.l, v.m, parameter) };
+  if (v.kappaSign === undefined) return angular;
+  if (spin !== 0.5) throw new InputError(`${parameter}.kappaSign`, 'absent (kappaSign labels spin-1/2 modes only)', v.kappaSign);
+  if (v.kappaSign !== 1 && v.kappaSign !== -1) throw new InputError(`${parameter}.kappaSign`, '1 or −1', v.kappaSign);
+  return { ...angular, kappaSign: v.kappaSign };
 }

@@ -28,6 +28,7 @@ import {
   type TwoSidedOptions,
 } from '@penumbra/radial';
 import { checkGeometry, gammaErrorEstimate, roundingFloor } from './errorEstimate.js';
+import { isMassiveDirac, massiveDiracGreybody } from './massiveDirac.js';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
 import { massiveRoute } from './massive.js';
 import {
@@ -47,10 +48,10 @@ export interface GreybodyDiagnostics extends Diagnostics {
   matchRadius: number;
   horizonTerms: number;
   farTerms: number;
-  /** the spheroidal eigenvalue A_{+s l m}(aω) and radial constant λ used */
+  /** the spheroidal eigenvalue A_{+s l m}(aω) and radial constant λ used (massive Dirac: both are Chandrasekhar's λ) */
   eigenvalue: number;
   lambda: number;
-  /** |C_s|² (Teukolsky–Starobinsky) */
+  /** |C_s|² (Teukolsky–Starobinsky; massive Dirac: λ², which is |C_{1/2}|² at μ = 0) */
   starobinskySquared: number;
   attempts: number;
 }
@@ -58,8 +59,8 @@ export interface GreybodyDiagnostics extends Diagnostics {
 /** The greybody factor of one mode, with the problem it answers. */
 export interface GreybodySolution {
   hole: { a: number; mass: number };
-  /** the mode; `field.mass` (Mμ) is present only for a massive field */
-  mode: { field: { spin: FieldSpin; mass?: number }; l: number; m: number };
+  /** the mode; a massive Dirac mode also carries its field mass and kappaSign (docs/massive-dirac.md) */
+  mode: { field: { spin: FieldSpin; mass?: number }; l: number; m: number; kappaSign?: 1 | -1 };
   omega: number;
   /**
    * absorbed fraction of the incident flux; negative in the superradiant band
@@ -169,6 +170,7 @@ function tolBelowRoundingFloor(tol: number, floor: number, reached: number, eval
  * @example greybody({ hole: { a: 0.9 }, mode: { field: { spin: 1 }, l: 1, m: 1 }, omega: 0.3 })
  */
 export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): GreybodySolution {
+  if (isMassiveDirac(problem)) return massiveDiracGreybody(problem, options);
   const { checked, own } = route(problem);
   if (own) return own(checked, options);
   const p = prepare(checked);

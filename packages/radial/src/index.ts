@@ -13,3 +13,10 @@ export { RADIAL_VARIABLES, type RadialOptions, type RadialVariable, type TwoSide
 export { INTEGRATORS, type IntegratorName } from './integrators.js';
 export type { Complex2, RadialSample, RadialSolution, TwoSidedSolution } from './solution.js';
 export type { RadialDiagnostics } from './diagnostics.js';
+export type { DiracRadialProblem } from './dirac/equation.js';
+export {
+  solveMassiveDiracRadial,
+  type DiracRadialOptions,
+  type DiracRadialDiagnostics,
+  type DiracRadialSolution,
+} from './dirac/solveDirac.js';

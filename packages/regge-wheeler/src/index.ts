@@ -9,3 +9,9 @@ export {
   type SchwarzschildGreybodySolution,
   schwarzschildGreybody,
 } from './greybody.js';
+export {
+  type SchwarzschildMassiveDiracProblem,
+  type SchwarzschildMassiveDiracOptions,
+  type SchwarzschildMassiveDiracSolution,
+  schwarzschildMassiveDiracGreybody,
+} from './massiveDirac.js';

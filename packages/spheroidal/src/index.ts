@@ -21,3 +21,10 @@ export {
   type ComplexSpheroidalEigenvalue,
   spheroidalEigenvalueComplex,
 } from './complexEigenvalue.js';
+export {
+  type DiracAngularProblem,
+  type DiracAngularDiagnostics,
+  type DiracAngularEigenvalue,
+  diracAngularEigenvalue,
+  MAX_DIRAC_A_OMEGA,
+} from './diracAngular.js';

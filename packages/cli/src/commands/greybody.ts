@@ -1,4 +1,4 @@
-import type { FieldSpin } from '@penumbra/core';
+import { InputError, type FieldSpin } from '@penumbra/core';
 import { greybody, type GreybodySolution } from '@penumbra/flux';
 import type { Command } from '../command.js';
 import { FIELD_MASS_HELP, FIELD_MASS_OPTIONS, fieldWithMass } from '../fieldMass.js';
@@ -7,6 +7,13 @@ import { greybodyJson, greybodyTable, greybodyTextRows } from '../greybodyTable.
 import { parseFieldSpin, parseModeNumber, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
 import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
 import { progressReporter } from '../progress.js';
+
+/** --kappa-sign: 1 or -1. */
+function parseKappaSign(text: string): 1 | -1 {
+  const k = parseNumber('--kappa-sign', text);
+  if (k !== 1 && k !== -1) throw new InputError('--kappa-sign', '1 or -1', text);
+  return k;
+}
 
 /** `penumbra greybody`. */
 export const command: Command = {
@@ -25,6 +32,8 @@ Options:
   ${FIELD_MASS_HELP}
   --mass M     hole mass, only to convert --field-mass from an energy unit (results stay in units of M)
   --unit U     g, kg or msun (default g)
+  --kappa-sign K    massive spin 1/2 only: the sign (1 or -1) of the Dirac
+               quantum number κ = ±(l + 1/2); -1 includes the s-wave
   --log        space a frequency grid geometrically
   --tol T      requested relative accuracy of Γ (default 1e-8, 1e-12 … 1e-2)
   --json       JSON: one object, or an array for a grid
@@ -47,6 +56,7 @@ Examples:
       m: { type: 'string' },
       a: { type: 'string' },
       omega: { type: 'string' },
+      'kappa-sign': { type: 'string' },
       log: { type: 'boolean' },
       tol: { type: 'string' },
       ...FIELD_MASS_OPTIONS,
@@ -64,10 +74,13 @@ Examples:
     const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol);
     const field = fieldWithMass(spin as FieldSpin, values);
     const fieldMass = field.mass ?? 0;
+    const kappaSign = values['kappa-sign'] === undefined ? undefined : parseKappaSign(values['kappa-sign']);
     const results: GreybodySolution[] = [];
     const progress = progressReporter(io, 'greybody: frequencies done', grid.count);
     for (const [i, omega] of grid.values.entries()) {
-      results.push(greybody({ hole: { a }, mode: { field, l, m }, omega }, { tol }));
+      results.push(
+        greybody({ hole: { a }, mode: { field, l, m, ...(kappaSign === undefined ? {} : { kappaSign }) }, omega }, { tol }),
+      );
       progress(i + 1);
     }
     const single = grid.count === 1 && !omegaText.includes(':');

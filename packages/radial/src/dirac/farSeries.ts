@@ -1,0 +1,140 @@
+/**
+ * Far-zone solutions of the massive Dirac pair as asymptotic series
+ *   P = e^{νr} r^ρ Σ_n c_n r^{−n},  ν = ∓ i k∞,  k∞ = √(ω² − μ²),
+ * from the 1/r expansion dP/dr = Σ_j M_j r^{−j} P (docs/massive-dirac.md).
+ * ρ follows from solvability at first order: for the incoming wave
+ * ρ = −i M(2ω² − μ²)/k∞, the long-range (Coulomb-type) logarithmic phase.
+ */
+import {
+  type C,
+  type M2,
+  type V2,
+  ZERO,
+  cabs,
+  cadd,
+  cdiv,
+  cexp,
+  cmul,
+  cscale,
+  csub,
+  dot,
+  mv,
+  vadd,
+  vnorm,
+  vscale,
+} from './complex2.js';
+import type { DiracRadialProblem } from './equation.js';
+import { seriesPower, seriesProduct } from './realSeries.js';
+
+/** One far-zone series. */
+export interface DiracFarSeries {
+  nu: C;
+  rho: C;
+  coefficients: V2[];
+}
+
+/** M_j, j = 0 … count − 1: the 1/r expansion of the pair's matrix. */
+export function farMatrices(p: DiracRadialProblem, count: number): M2[] {
+  const { hole, omega, m, mu, lambda } = p;
+  const { a, mass } = hole;
+  const q = [1, -2 * mass, a * a];
+  const d = seriesPower(q, -1, count); // (1 − 2Mt + a²t²)^{−1}
+  const e = seriesPower(q, -0.5, count);
+  const kd = seriesProduct([omega, 0, omega * a * a - a * m], d, count); // K/Δ
+  const out: M2[] = [];
+  for (let j = 0; j < count; j++) {
+    const re = j > 0 ? lambda * e[j - 1] : 0;
+    out.push([
+      [
+        [0, -kd[j]],
+        [re, -mu * e[j]],
+      ],
+      [
+        [re, mu * e[j]],
+        [0, kd[j]],
+      ],
+    ]);
+  }
+  return out;
+}
+
+function minus(m: M2, nu: C): M2 {
+  return [
+    [csub(m[0][0], nu), m[0][1]],
+    [m[1][0], csub(m[1][1], nu)],
+  ];
+}
+
+/** A left null vector of a singular 2×2 matrix. */
+function leftNull(b: M2): V2 {
+  const l: V2 = [b[1][0], cscale(b[0][0], -1)];
+  return cabs(l[0]) + cabs(l[1]) > 0 ? l : [b[1][1], cscale(b[0][1], -1)];
+}
+
+/**
+ * The series of the wave with exponent ν (eigenvalue of M₀) and leading vector
+ * c0; `other`/`nuOther` are M₀'s other eigenpair, used to solve the singular
+ * systems (M₀ − ν)c = b.
+ */
+export function diracFarSeries(mats: M2[], nu: C, c0: V2, nuOther: C, other: V2): DiracFarSeries {
+  const N = mats.length;
+  const l = leftNull(minus(mats[0], nu));
+  const lOther = leftNull(minus(mats[0], nuOther));
+  const lc0 = dot(l, c0);
+  const rho = cdiv(dot(l, mv(mats[1], c0)), lc0);
+  const gap = csub(nuOther, nu);
+  const lOe = dot(lOther, other);
+  const particular = (b: V2): V2 => vscale(other, cdiv(dot(lOther, b), cmul(lOe, gap)));
+  const c: V2[] = [c0];
+  let pending: V2 | null = null; // p_{n−1}, awaiting its multiple of c0
+  const sum = (n: number, from: number): V2 => {
+    let s: V2 = [ZERO, ZERO];
+    for (let j = from; j <= n && j < N; j++) s = vadd(s, mv(mats[j], c[n - j]));
+    return s;
+  };
+  for (let n = 1; n < N; n++) {
+    if (pending) {
+      // choose α so that ℓ·b_n = 0, then c_{n−1} = p + α c0
+      const shift: C = [rho[0] - n + 1, rho[1]];
+      const t = csub(dot(l, csub2(vscale(pending, shift), mv(mats[1], pending))), dot(l, sumFrom2(mats, c, n)));
+      const alpha = cdiv(t, cscale(lc0, n - 1));
+      c[n - 1] = vadd(pending, vscale(c0, alpha));
+    }
+    const shift: C = [rho[0] - n + 1, rho[1]];
+    const b = csub2(vscale(c[n - 1], shift), sum(n, 1));
+    pending = particular(b);
+    c.push(pending);
+  }
+  c.pop(); // the last coefficient lacks its c0 part
+  return { nu, rho, coefficients: c };
+}
+
+function csub2(a: V2, b: V2): V2 {
+  return [csub(a[0], b[0]), csub(a[1], b[1])];
+}
+
+/** Σ_{j≥2} M_j c_{n−j}. */
+function sumFrom2(mats: M2[], c: V2[], n: number): V2 {
+  let s: V2 = [ZERO, ZERO];
+  for (let j = 2; j <= n && j < mats.length; j++) s = vadd(s, mv(mats[j], c[n - j]));
+  return s;
+}
+
+/** The series at r, summed to its smallest term; `lastTerm` is that term relative to the sum. */
+export function evaluateDiracFar(series: DiracFarSeries, r: number): { value: V2; lastTerm: number } {
+  let s: V2 = [ZERO, ZERO];
+  let pw = 1;
+  let prev = Infinity;
+  let last = Infinity;
+  for (const cn of series.coefficients) {
+    const term = vscale(cn, [pw, 0]);
+    const size = vnorm(term);
+    if (size > prev && size > 0) break;
+    s = vadd(s, term);
+    prev = size;
+    last = size;
+    pw /= r;
+  }
+  const phase = cexp(cadd(cscale(series.nu, r), cscale(series.rho, Math.log(r))));
+  return { value: vscale(s, phase), lastTerm: last / Math.max(vnorm(s), 1e-300) };
+}

@@ -1,0 +1,137 @@
+/**
+ * The Chandrasekhar angular pair of the massive Dirac field as a symmetric
+ * matrix eigenproblem (derivation: docs/massive-dirac.md).
+ *
+ * With ℒ = D − aω sinθ, ℒ† = D̃ + aω sinθ, D = ∂θ + m/sinθ + ½cotθ,
+ * D̃ = ∂θ − m/sinθ + ½cotθ, the pair
+ *   ℒ S₊ = −(λ − aμ cosθ) S₋,   ℒ† S₋ = (λ + aμ cosθ) S₊
+ * is λ (S₊, S₋) = H (S₊, S₋) with H = [[−aμ cosθ, ℒ†], [−ℒ, aμ cosθ]].
+ * Basis: u_j, the orthonormal s = +1/2 spin-weighted harmonics (j ≥ |m|), and
+ * v_j = D u_j/(j + ½), orthonormal because D̃D u_j = −(j + ½)² u_j. With
+ * X = ⟨u|cosθ|u⟩ (coupling.ts) and L_j = (j + ½)²:
+ *   ⟨v_i|cosθ|v_j⟩ = ½[(L_i + L_j − 1) X_ij + 2m δ_ij] / ((i + ½)(j + ½)),
+ *   ⟨u_i|sinθ|v_j⟩ = ½[(L_i − L_j − 1) X_ij + 2m δ_ij] / (j + ½).
+ */
+import { Matrix } from 'ml-matrix';
+import { cosDiagonal, cosOffDiagonal } from './coupling.js';
+
+const S = 0.5;
+
+function cosElement(ji: number, jj: number, m: number): number {
+  if (ji === jj) return cosDiagonal(ji, m, S);
+  if (ji === jj + 1) return cosOffDiagonal(jj, m, S);
+  if (jj === ji + 1) return cosOffDiagonal(ji, m, S);
+  return 0;
+}
+
+/** ⟨v_i|cosθ|v_j⟩ for the basis v_j = D u_j/(j + ½). */
+export function cosElementLowered(ji: number, jj: number, m: number): number {
+  const Li = (ji + 0.5) ** 2;
+  const Lj = (jj + 0.5) ** 2;
+  return (0.5 * ((Li + Lj - 1) * cosElement(ji, jj, m) + (ji === jj ? 2 * m : 0))) / ((ji + 0.5) * (jj + 0.5));
+}
+
+/** ⟨u_i|sinθ|v_j⟩. */
+export function sinElementMixed(ji: number, jj: number, m: number): number {
+  const Li = (ji + 0.5) ** 2;
+  const Lj = (jj + 0.5) ** 2;
+  return (0.5 * ((Li - Lj - 1) * cosElement(ji, jj, m) + (ji === jj ? 2 * m : 0))) / (jj + 0.5);
+}
+
+/**
+ * The truncated matrix H in the interleaved basis (u_{j0}, v_{j0}, u_{j0+1}, …),
+ * j0 = |m|, with `count` values of j (size 2·count).
+ */
+export function diracAngularMatrix(m: number, aOmega: number, aMu: number, count: number): Matrix {
+  const j0 = Math.abs(m);
+  const H = new Matrix(2 * count, 2 * count);
+  for (let p = 0; p < count; p++) {
+    for (let q = Math.max(0, p - 1); q <= Math.min(count - 1, p + 1); q++) {
+      const ji = j0 + p;
+      const jj = j0 + q;
+      H.set(2 * p, 2 * q, -aMu * cosElement(ji, jj, m));
+      H.set(2 * p + 1, 2 * q + 1, aMu * cosElementLowered(ji, jj, m));
+      H.set(2 * p, 2 * q + 1, (p === q ? -(jj + 0.5) : 0) + aOmega * sinElementMixed(ji, jj, m));
+      H.set(2 * q + 1, 2 * p, H.get(2 * p, 2 * q + 1));
+    }
+  }
+  return H;
+}
+
+/** The matrix H as a symmetric band of half-width 3: rows[i][k] = H[i][i + k], k = 0…3. */
+export interface DiracBand {
+  size: number;
+  rows: Float64Array[];
+  /** max row sum of |H| (bounds every eigenvalue) */
+  norm: number;
+}
+
+/** H in band storage (same basis and elements as diracAngularMatrix). */
+export function diracAngularBand(m: number, aOmega: number, aMu: number, count: number): DiracBand {
+  const size = 2 * count;
+  const rows = Array.from({ length: size }, () => new Float64Array(4));
+  const j0 = Math.abs(m);
+  const set = (i: number, k: number, v: number) => {
+    if (k >= i && k - i <= 3) rows[i][k - i] = v;
+  };
+  for (let p = 0; p < count; p++) {
+    for (let q = Math.max(0, p - 1); q <= Math.min(count - 1, p + 1); q++) {
+      const ji = j0 + p;
+      const jj = j0 + q;
+      set(2 * p, 2 * q, -aMu * cosElement(ji, jj, m));
+      set(2 * p + 1, 2 * q + 1, aMu * cosElementLowered(ji, jj, m));
+      const mixed = (p === q ? -(jj + 0.5) : 0) + aOmega * sinElementMixed(ji, jj, m);
+      set(2 * p, 2 * q + 1, mixed);
+      set(2 * q + 1, 2 * p, mixed);
+    }
+  }
+  let norm = 0;
+  for (let i = 0; i < size; i++) {
+    let sum = 0;
+    for (let k = 0; k < 4; k++) sum += Math.abs(rows[i][k]) + (k > 0 && i - k >= 0 ? Math.abs(rows[i - k][k]) : 0);
+    norm = Math.max(norm, sum);
+  }
+  return { size, rows, norm };
+}
+
+/** Number of eigenvalues below σ (Sylvester's law of inertia on the LDLᵀ of H − σI). */
+export function countBelow(band: DiracBand, sigma: number): number {
+  const n = band.size;
+  const w = 3;
+  // L stored by rows: l[i][k] = L[i][i − 1 − k]
+  const d = new Float64Array(n);
+  const l: Float64Array[] = [];
+  let negatives = 0;
+  const tiny = Number.EPSILON * band.norm * 1e-3 + Number.MIN_VALUE;
+  for (let i = 0; i < n; i++) {
+    const li = new Float64Array(w);
+    for (let jj = Math.max(0, i - w); jj < i; jj++) {
+      // L[i][jj] = (H[i][jj] − Σ_{k<jj} L[i][k] L[jj][k] d_k)/d_jj
+      let v = band.rows[jj][i - jj];
+      for (let k = Math.max(0, i - w); k < jj; k++) v -= li[i - 1 - k] * l[jj][jj - 1 - k] * d[k];
+      li[i - 1 - jj] = v / d[jj];
+    }
+    let di = band.rows[i][0] - sigma;
+    for (let k = Math.max(0, i - w); k < i; k++) di -= li[i - 1 - k] * li[i - 1 - k] * d[k];
+    if (di === 0) di = -tiny;
+    if (di < 0) negatives++;
+    d[i] = di;
+    l.push(li);
+  }
+  return negatives;
+}
+
+/** The index-th eigenvalue (ascending, from 0) of the band, bisected to adjacent floats. */
+export function bandEigenvalue(band: DiracBand, index: number): { value: number; counts: number } {
+  let lo = -band.norm - 1;
+  let hi = band.norm + 1;
+  let counts = 0;
+  for (let it = 0; it < 200; it++) {
+    const mid = 0.5 * (lo + hi);
+    if (mid <= lo || mid >= hi) break;
+    counts++;
+    if (countBelow(band, mid) > index) hi = mid;
+    else lo = mid;
+  }
+  return { value: 0.5 * (lo + hi), counts };
+}
