@@ -9,3 +9,12 @@ export {
   type SchwarzschildGreybodySolution,
   schwarzschildGreybody,
 } from './greybody.js';
+export {
+  type ProcaGreybodyProblem,
+  type ProcaGreybodyOptions,
+  type ProcaPolarization,
+  PROCA_POLARIZATIONS,
+  DEFAULT_PROCA_TOLERANCE,
+  MAX_PROCA_L,
+} from './proca/problem.js';
+export { type ProcaGreybodyDiagnostics, type ProcaGreybodySolution, procaGreybody } from './proca/greybody.js';
