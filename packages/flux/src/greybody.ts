@@ -27,7 +27,9 @@ import {
   type RadialSample,
   type TwoSidedOptions,
 } from '@penumbra/radial';
+import type { ProcaPolarization } from '@penumbra/regge-wheeler';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
+import { isMassiveVector, massiveVectorGreybody } from './massiveVector.js';
 import { GREYBODY_OPTIONS, checkGreybodyOptions, checkProblem, type GreybodyOptions, type GreybodyProblem } from './validate.js';
 
 /** How a greybody factor was computed; `errorEstimate` is the relative error of Γ. */
@@ -49,8 +51,10 @@ export interface GreybodyDiagnostics extends Diagnostics {
 /** The greybody factor of one mode, with the problem it answers. */
 export interface GreybodySolution {
   hole: { a: number; mass: number };
-  mode: { field: { spin: FieldSpin }; l: number; m: number };
+  mode: { field: { spin: FieldSpin; mass?: number }; l: number; m: number };
   omega: number;
+  /** massive vector only: the polarisation computed (docs/massive-vector.md) */
+  polarization?: ProcaPolarization;
   /**
    * absorbed fraction of the incident flux; negative in the superradiant band
    * (bosons). When |Γ| is below the normal double range (`underflow`), 0.
@@ -115,8 +119,12 @@ function odeTolerance(tol: number): number {
  * @example greybody({ hole: { a: 0.9 }, mode: { field: { spin: 1 }, l: 1, m: 1 }, omega: 0.3 })
  */
 export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): GreybodySolution {
+  if (isMassiveVector(problem)) return massiveVectorGreybody(problem, checkGreybodyOptions(options));
   const p = prepare(problem);
   options = checkGreybodyOptions(options);
+  if (options.polarization !== undefined) {
+    throw new InputError('polarization', 'absent (a polarisation is chosen only for a massive vector)', options.polarization);
+  }
   const tol = options.tol ?? 1e-8;
   const integrator = options.integrator ?? 'odex';
   const { spin, hole, omega, m, lambdaPlus } = p;
