@@ -1,5 +1,5 @@
 import type { FieldSpin } from '@penumbra/core';
-import { greybody, type GreybodySolution } from '@penumbra/flux';
+import { greybody, type GreybodySolution, type ProcaPolarization } from '@penumbra/flux';
 import type { Command } from '../command.js';
 import { formatTable } from '../format.js';
 import { greybodyJson, greybodyTable, greybodyTextRows } from '../greybodyTable.js';
@@ -22,6 +22,9 @@ Options:
   --a A        the hole's spin parameter a/M; negative: counter-rotating relative to m > 0
   --omega W    frequency Mω in [1e-5, 30], or a grid START:STOP:COUNT
   --log        space a frequency grid geometrically
+  --field-mass MU  the field's mass Mμ (default 0); a massive vector needs --a 0 and Mω > Mμ
+  --polarization P massive vector only: odd, even-1, even-2 (l ≥ 1) or monopole (l = 0);
+               default odd (monopole at l = 0); see docs/massive-vector.md
   --tol T      requested relative accuracy of Γ (default 1e-8, 1e-12 … 1e-2)
   --json       JSON: one object, or an array for a grid
   --csv        CSV with units in the header
@@ -33,6 +36,7 @@ and an error estimate; a mode that cannot reach --tol is an error, not a number.
 Examples:
   penumbra greybody --spin 1 --l 1 --m 1 --a 0.9 --omega 0.3 --json
   penumbra greybody --spin 2 --l 2 --m 2 --a 0.99 --omega 0.01:2:40 --csv
+  penumbra greybody --spin 1 --l 1 --m 0 --a 0 --omega 0.3 --field-mass 0.1 --polarization even-2 --json
 `,
   run(argv, io) {
     const { values } = parseOptions(argv, {
@@ -43,6 +47,8 @@ Examples:
       omega: { type: 'string' },
       log: { type: 'boolean' },
       tol: { type: 'string' },
+      'field-mass': { type: 'string' },
+      polarization: { type: 'string' },
       ...OUTPUT_OPTIONS,
     });
     const format = outputFormat(values);
@@ -53,10 +59,14 @@ Examples:
     const omegaText = requireOption(values.omega, '--omega', 'the frequency Mω or START:STOP:COUNT');
     const grid = parseRange('--omega', omegaText, { min: 0, exclusive: true, log: values.log ?? false, maxCount: 10_000 });
     const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol);
+    const fieldMass = values['field-mass'] === undefined ? undefined : parseNumber('--field-mass', values['field-mass']);
+    const polarization = values.polarization as ProcaPolarization | undefined;
+    const field = fieldMass === undefined ? { spin: spin as FieldSpin } : { spin: spin as FieldSpin, mass: fieldMass };
+    const options = polarization === undefined ? { tol } : { tol, polarization };
     const results: GreybodySolution[] = [];
     const progress = progressReporter(io, 'greybody: frequencies done', grid.count);
     for (const [i, omega] of grid.values.entries()) {
-      results.push(greybody({ hole: { a }, mode: { field: { spin: spin as FieldSpin }, l, m }, omega }, { tol }));
+      results.push(greybody({ hole: { a }, mode: { field, l, m }, omega }, options));
       progress(i + 1);
     }
     const single = grid.count === 1 && !omegaText.includes(':');
