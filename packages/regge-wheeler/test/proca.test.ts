@@ -77,7 +77,7 @@ describe('Proca far zone: the answer does not move with the matching radius (lon
       const model = sectorModel(sector, l, omega, mu);
       const near = integrateProca(model, { startOffset: 0.15, stepTolerance: 1e-14, matchRadius: 80 });
       const far = integrateProca(model, { startOffset: 0.15, stepTolerance: 1e-14, matchRadius: 400 });
-      near.gammas.forEach((g, i) => expect(relative(g, far.gammas[i])).toBeLessThan(1e-9));
+      for (const [i, g] of near.gammas.entries()) expect(relative(g, far.gammas[i])).toBeLessThan(1e-9);
     });
   }
 });

@@ -7,7 +7,7 @@
 import createIntegrator from 'ode45-cash-karp';
 import { ConvergenceError, type Diagnostics } from '@penumbra/core';
 import { tortoiseFromHorizonDistance } from '../series.js';
-import { type C, abs2, adjoint, choleskyUpper, hermitianEigen2, matMul, solve } from './complex.js';
+import { type Complex, abs2, adjoint, choleskyUpper, hermitianEigen2, matMul, solve } from './complex.js';
 import { qAt, type SectorModel } from './sectors.js';
 import { farWaveNumbers, horizonSolution, outgoingFarSolution, type SeriesState } from './series.js';
 
@@ -61,7 +61,7 @@ function failure(model: SectorModel, message: string, steps: number, rhsEvaluati
   };
 }
 
-function rotation(angle: number, n: number): C[] {
+function rotation(angle: number, n: number): Complex[] {
   if (n === 1) return [[1, 0]];
   const c = Math.cos(angle);
   const s = Math.sin(angle);
@@ -187,7 +187,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   }
   // Matching matrix: columns Φin_c, Φout_c (2N-vectors (u, P)); Φin = conj(Φout).
   const dim = 2 * N;
-  const F: C[] = new Array(dim * dim);
+  const F: Complex[] = new Array(dim * dim);
   for (let c = 0; c < N; c++) {
     const s = far[c];
     for (let i = 0; i < N; i++) {
@@ -197,7 +197,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
       F[(N + i) * dim + N + c] = s.p[i];
     }
   }
-  const rhs: C[] = new Array(dim * N);
+  const rhs: Complex[] = new Array(dim * N);
   for (let j = 0; j < N; j++) {
     for (let i = 0; i < N; i++) {
       rhs[i * N + j] = [y[j * block + 2 * i], y[j * block + 2 * i + 1]];
@@ -205,8 +205,8 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
     }
   }
   const amp = solve(F, rhs, dim, N);
-  const Ain: C[] = [];
-  const Aout: C[] = [];
+  const Ain: Complex[] = [];
+  const Aout: Complex[] = [];
   for (let c = 0; c < N; c++) for (let j = 0; j < N; j++) Ain.push(amp[c * N + j]);
   for (let c = 0; c < N; c++) for (let j = 0; j < N; j++) Aout.push(amp[(N + c) * N + j]);
   return {
@@ -227,7 +227,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
  * T = t†t; R = r†r with r = S_∞ A_out A_in⁻¹ S_∞⁻¹. The stored solutions are
  * the true ones divided by e^{logRescale}.
  */
-function absorption(model: SectorModel, AinRaw: C[], AoutRaw: C[], logRescale: number, angle: number) {
+function absorption(model: SectorModel, AinRaw: Complex[], AoutRaw: Complex[], logRescale: number, angle: number) {
   const N = model.channels;
   const { k } = farWaveNumbers(model);
   // Another raw basis at both ends (real rotation B): horizon solutions H B,
@@ -236,11 +236,11 @@ function absorption(model: SectorModel, AinRaw: C[], AoutRaw: C[], logRescale: n
   const Bt = adjoint(B, N);
   const Ain = matMul(matMul(Bt, AinRaw, N), B, N);
   const Aout = matMul(matMul(Bt, AoutRaw, N), B, N);
-  const D: C[] = [];
+  const D: Complex[] = [];
   for (let i = 0; i < N; i++) for (let j = 0; j < N; j++) D.push([i === j ? k * model.infinityWeights[i] : 0, 0]);
   const Sinf = choleskyUpper(matMul(matMul(Bt, D, N), B, N), N);
   const SH = choleskyUpper(matMul(matMul(Bt, model.horizonFlux, N), B, N), N);
-  const identity: C[] =
+  const identity: Complex[] =
     N === 1
       ? [[1, 0]]
       : [
@@ -282,7 +282,7 @@ function absorption(model: SectorModel, AinRaw: C[], AoutRaw: C[], logRescale: n
         const vi = v[i];
         const vj = v[j];
         // conj(vi) a vj
-        const avj: C = [a[0] * vj[0] - a[1] * vj[1], a[0] * vj[1] + a[1] * vj[0]];
+        const avj: Complex = [a[0] * vj[0] - a[1] * vj[1], a[0] * vj[1] + a[1] * vj[0]];
         re += vi[0] * avj[0] + vi[1] * avj[1];
       }
     }

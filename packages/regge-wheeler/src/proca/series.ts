@@ -3,13 +3,13 @@
  * Derivations: docs/massive-vector.md.
  */
 import { tortoiseFromHorizonDistance } from '../series.js';
-import type { C } from './complex.js';
+import type { Complex } from './complex.js';
 import type { SectorModel } from './sectors.js';
 
 /** u and P = du/dr* of one solution at one radius, one entry per channel. */
 export interface ChannelState {
-  u: C[];
-  p: C[];
+  u: Complex[];
+  p: Complex[];
 }
 
 /** A series value with the number of terms summed and whether the terms fell below the floor. */
@@ -58,18 +58,18 @@ export function horizonSolution(model: SectorModel, start: number, x: number): S
     }
     return W[j];
   };
-  const a: C[][] = [];
-  const a0: C[] = [];
+  const a: Complex[][] = [];
+  const a0: Complex[] = [];
   for (let i = 0; i < N; i++) a0.push([i === start ? 1 : 0, 0]);
   a.push(a0);
-  const h: C[] = a0.map((z) => [z[0], z[1]] as C);
-  const hd: C[] = a0.map(() => [0, 0] as C); // dh/dt
+  const h: Complex[] = a0.map((z) => [z[0], z[1]] as Complex);
+  const hd: Complex[] = a0.map(() => [0, 0] as Complex); // dh/dt
   let tPow = 1;
   let smallRun = 0;
   let converged = false;
   let n = 0;
   for (; n < HORIZON_MAX_TERMS; n++) {
-    const next: C[] = [];
+    const next: Complex[] = [];
     const denRe = (n + 1) * (n + 1);
     const denIm = -(n + 1) * 2 * Omega;
     const den2 = denRe * denRe + denIm * denIm;
@@ -122,9 +122,9 @@ export function horizonSolution(model: SectorModel, start: number, x: number): S
   const phase = -model.omega * tortoiseFromHorizonDistance(1, x);
   const cph = Math.cos(phase);
   const sph = Math.sin(phase);
-  const rot = (z: C): C => [cph * z[0] - sph * z[1], cph * z[1] + sph * z[0]];
-  const u: C[] = [];
-  const p: C[] = [];
+  const rot = (z: Complex): Complex => [cph * z[0] - sph * z[1], cph * z[1] + sph * z[0]];
+  const u: Complex[] = [];
+  const p: Complex[] = [];
   for (let i = 0; i < N; i++) {
     u.push(rot(h[i]));
     p.push(rot([model.omega * h[i][1] + 0.5 * f * hd[i][0], -model.omega * h[i][0] + 0.5 * f * hd[i][1]]));
@@ -155,25 +155,25 @@ export function outgoingFarSolution(model: SectorModel, start: number, r: number
   const Q1 = model.qCoeffs[1] ?? new Array<number>(N * N).fill(0);
   // a_j, b_j (complex scalars) and C_j (complex matrices), j = 2, 3, 4.
   const aj = [0, 0, 1, -4, 4];
-  const bj: C[] = [
+  const bj: Complex[] = [
     [0, 0],
     [0, -2 * k],
     [1, -2 * (eta - 2 * k)],
     [-6, 8 * eta],
     [8, -8 * eta],
   ];
-  const scalarC: C[] = [
+  const scalarC: Complex[] = [
     [0, 0],
     [0, 0],
     [4 * model.mu * model.mu - d2 - L, -eta],
     [4 * d2 + 2 * L, 6 * eta],
     [-4 * d2, -8 * eta],
   ];
-  const Cj: C[][] = [[], []];
+  const Cj: Complex[][] = [[], []];
   for (let j = 2; j <= 4; j++) {
-    const m: C[] = [];
+    const m: Complex[] = [];
     for (let i = 0; i < N * N; i++) {
-      const diag = i % (N + 1) === 0 ? scalarC[j] : ([0, 0] as C);
+      const diag = i % (N + 1) === 0 ? scalarC[j] : ([0, 0] as Complex);
       const qv = j === 2 ? -Q0[i] : j === 3 ? -(Q1[i] - 2 * Q0[i]) : 2 * Q1[i];
       m.push([diag[0] + qv, diag[1]]);
     }
@@ -181,18 +181,18 @@ export function outgoingFarSolution(model: SectorModel, start: number, r: number
   }
   const y = 1 / r;
   // T_n = c_n y^n (vectors).
-  const T: C[][] = [];
-  const first: C[] = [];
+  const T: Complex[][] = [];
+  const first: Complex[] = [];
   for (let i = 0; i < N; i++) first.push([i === start ? 1 : 0, 0]);
   T.push(first);
-  const w: C[] = first.map((z) => [z[0], z[1]] as C);
-  const Dw: C[] = first.map(() => [0, 0] as C);
+  const w: Complex[] = first.map((z) => [z[0], z[1]] as Complex);
+  const Dw: Complex[] = first.map(() => [0, 0] as Complex);
   let smallRun = 0;
   let converged = false;
   let previous = 1;
   let n = 1;
   for (; n <= FAR_MAX_TERMS; n++) {
-    const next: C[] = [];
+    const next: Complex[] = [];
     for (let i = 0; i < N; i++) {
       let re = 0;
       let im = 0;
@@ -246,9 +246,9 @@ export function outgoingFarSolution(model: SectorModel, start: number, r: number
   const phase = k * tortoiseFromHorizonDistance(1, r - 2) + eta * Math.log(r);
   const cph = Math.cos(phase);
   const sph = Math.sin(phase);
-  const rot = (z: C): C => [cph * z[0] - sph * z[1], cph * z[1] + sph * z[0]];
-  const u: C[] = [];
-  const p: C[] = [];
+  const rot = (z: Complex): Complex => [cph * z[0] - sph * z[1], cph * z[1] + sph * z[0]];
+  const u: Complex[] = [];
+  const p: Complex[] = [];
   for (let i = 0; i < N; i++) {
     u.push(rot(w[i]));
     p.push(rot([-g * w[i][1] - f * y * Dw[i][0], g * w[i][0] - f * y * Dw[i][1]]));
