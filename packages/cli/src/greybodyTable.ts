@@ -7,6 +7,8 @@ import { formatError, formatNumber } from './format.js';
 export function greybodyJson(r: GreybodySolution): Record<string, unknown> {
   return {
     spin: r.mode.field.spin,
+    ...(r.mode.field.mass ? { fieldMass: r.mode.field.mass } : {}),
+    ...(r.polarization === undefined ? {} : { polarization: r.polarization }),
     l: r.mode.l,
     m: r.mode.m,
     ...(r.mode.kappaSign === undefined ? {} : { fieldMass: r.mode.field.mass, kappaSign: r.mode.kappaSign }),

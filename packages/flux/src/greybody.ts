@@ -27,6 +27,7 @@ import {
   type RadialSample,
   type TwoSidedOptions,
 } from '@penumbra/radial';
+import type { ProcaPolarization } from '@penumbra/regge-wheeler';
 import { checkGeometry, gammaErrorEstimate, roundingFloor } from './errorEstimate.js';
 import { isMassiveDirac, massiveDiracGreybody } from './massiveDirac.js';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
@@ -39,6 +40,7 @@ import {
   type GreybodyOptions,
   type GreybodyProblem,
 } from './validate.js';
+import { isMassiveVector, massiveVectorGreybody } from './massiveVector.js';
 
 /** How a greybody factor was computed; `errorEstimate` is the relative error of Γ. */
 export interface GreybodyDiagnostics extends Diagnostics {
@@ -62,6 +64,8 @@ export interface GreybodySolution {
   /** the mode; a massive Dirac mode also carries its field mass and kappaSign (docs/massive-dirac.md) */
   mode: { field: { spin: FieldSpin; mass?: number }; l: number; m: number; kappaSign?: 1 | -1 };
   omega: number;
+  /** massive vector only: the polarisation computed (docs/massive-vector.md) */
+  polarization?: ProcaPolarization;
   /**
    * absorbed fraction of the incident flux; negative in the superradiant band
    * (bosons). When |Γ| is below the normal double range (`underflow`), 0.
@@ -171,10 +175,14 @@ function tolBelowRoundingFloor(tol: number, floor: number, reached: number, eval
  */
 export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): GreybodySolution {
   if (isMassiveDirac(problem)) return massiveDiracGreybody(problem, options);
+  if (isMassiveVector(problem)) return massiveVectorGreybody(problem, checkGreybodyOptions(options));
   const { checked, own } = route(problem);
   if (own) return own(checked, options);
   const p = prepare(checked);
   options = checkGreybodyOptions(options);
+  if (options.polarization !== undefined) {
+    throw new InputError('polarization', 'absent (a polarisation is chosen only for a massive vector)', options.polarization);
+  }
   const tol = options.tol ?? 1e-8;
   const integrator = options.integrator ?? 'odex';
   const { spin, hole, omega, m, lambdaPlus } = p;

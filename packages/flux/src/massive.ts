@@ -25,11 +25,10 @@ const MASSIVE_ROUTES: Partial<Record<FieldSpin, MassiveRoute>> = {
   0: 'klein-gordon',
 };
 
-/** Field spins with a massive route, for messages. */
+/** Field spins with a massive route, for messages: spin 1/2 and spin 1 are dispatched in `greybody` before this table is read. */
 function massiveSpins(): string {
-  return Object.keys(MASSIVE_ROUTES)
-    .map((s) => formatFieldSpin(Number(s)))
-    .join(', ');
+  const here = Object.keys(MASSIVE_ROUTES).map((s) => formatFieldSpin(Number(s)));
+  return [...here, '1/2 (greybody only)', '1 (greybody at a = 0 only)'].join(', ');
 }
 
 /** The route of a massive problem; undefined when the field is massless; InputError for a spin without one. */

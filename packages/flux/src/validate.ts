@@ -20,6 +20,7 @@ import {
   type Mode,
 } from '@penumbra/core';
 import { INTEGRATORS, type IntegratorName } from '@penumbra/radial';
+import { PROCA_POLARIZATIONS, type ProcaPolarization } from '@penumbra/regge-wheeler';
 
 /** Frequencies the solver covers, as Mω. */
 export const MOMEGA_RANGE = { min: 1e-5, max: 30 } as const;
@@ -99,6 +100,8 @@ export interface GreybodyOptions {
   matchRadius?: number;
   /** also compute the reflection coefficient from the −|s| field (default true) */
   reflection?: boolean;
+  /** massive vector only (spin 1, mass > 0): which polarisation (default 'odd', or 'monopole' at l = 0); see docs/massive-vector.md */
+  polarization?: ProcaPolarization;
 }
 
 /** Validators of the greybody options, shared by every solve that passes them on. */
@@ -112,6 +115,7 @@ export const GREYBODY_OPTIONS = {
   },
   matchRadius: numberIn(3, 1e8),
   reflection: isBoolean,
+  polarization: oneOf(PROCA_POLARIZATIONS),
 };
 
 /** Validate greybody options (unknown keys and integrator names refused). */

@@ -15,3 +15,12 @@ export {
   type SchwarzschildMassiveDiracSolution,
   schwarzschildMassiveDiracGreybody,
 } from './massiveDirac.js';
+export {
+  type ProcaGreybodyProblem,
+  type ProcaGreybodyOptions,
+  type ProcaPolarization,
+  PROCA_POLARIZATIONS,
+  DEFAULT_PROCA_TOLERANCE,
+  MAX_PROCA_L,
+} from './proca/problem.js';
+export { type ProcaGreybodyDiagnostics, type ProcaGreybodySolution, procaGreybody } from './proca/greybody.js';

@@ -1,5 +1,5 @@
 import { InputError, type FieldSpin } from '@penumbra/core';
-import { greybody, type GreybodySolution } from '@penumbra/flux';
+import { greybody, type GreybodySolution, type ProcaPolarization } from '@penumbra/flux';
 import type { Command } from '../command.js';
 import { FIELD_MASS_HELP, FIELD_MASS_OPTIONS, fieldWithMass } from '../fieldMass.js';
 import { formatTable } from '../format.js';
@@ -35,6 +35,9 @@ Options:
   --kappa-sign K    massive spin 1/2 only: the sign (1 or -1) of the Dirac
                quantum number κ = ±(l + 1/2); -1 includes the s-wave
   --log        space a frequency grid geometrically
+  --field-mass MU  the field's mass Mμ (default 0); a massive vector needs --a 0 and Mω > Mμ
+  --polarization P massive vector only: odd, even-1, even-2 (l ≥ 1) or monopole (l = 0);
+               default odd (monopole at l = 0); see docs/massive-vector.md
   --tol T      requested relative accuracy of Γ (default 1e-8, 1e-12 … 1e-2)
   --json       JSON: one object, or an array for a grid
   --csv        CSV with units in the header
@@ -48,6 +51,7 @@ Examples:
   penumbra greybody --spin 2 --l 2 --m 2 --a 0.99 --omega 0.01:2:40 --csv
   penumbra greybody --spin 0 --l 1 --m 1 --a 0.9 --omega 0.4 --field-mass 0.3 --json
   penumbra greybody --spin 0 --l 0 --m 0 --a 0 --omega 0.5 --field-mass 135 --field-mass-unit MeV --mass 1e14
+  penumbra greybody --spin 1 --l 1 --m 0 --a 0 --omega 0.3 --field-mass 0.1 --polarization even-2 --json
 `,
   run(argv, io) {
     const { values } = parseOptions(argv, {
@@ -62,6 +66,7 @@ Examples:
       ...FIELD_MASS_OPTIONS,
       mass: { type: 'string' },
       unit: { type: 'string' },
+      polarization: { type: 'string' },
       ...OUTPUT_OPTIONS,
     });
     const format = outputFormat(values);
@@ -75,11 +80,13 @@ Examples:
     const field = fieldWithMass(spin as FieldSpin, values);
     const fieldMass = field.mass ?? 0;
     const kappaSign = values['kappa-sign'] === undefined ? undefined : parseKappaSign(values['kappa-sign']);
+    const polarization = values.polarization as ProcaPolarization | undefined;
+    const options = polarization === undefined ? { tol } : { tol, polarization };
     const results: GreybodySolution[] = [];
     const progress = progressReporter(io, 'greybody: frequencies done', grid.count);
     for (const [i, omega] of grid.values.entries()) {
       results.push(
-        greybody({ hole: { a }, mode: { field, l, m, ...(kappaSign === undefined ? {} : { kappaSign }) }, omega }, { tol }),
+        greybody({ hole: { a }, mode: { field, l, m, ...(kappaSign === undefined ? {} : { kappaSign }) }, omega }, options),
       );
       progress(i + 1);
     }

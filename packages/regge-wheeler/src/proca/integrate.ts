@@ -1,0 +1,297 @@
+/**
+ * One horizon-to-far-zone integration of a Proca sector (M = 1): horizon
+ * series for each channel, Cash–Karp RK45 in r for all channels at once,
+ * match to the far-zone series, and the absorption matrix from the flux
+ * weights (docs/massive-vector.md).
+ */
+import createIntegrator from 'ode45-cash-karp';
+import { ConvergenceError, type Diagnostics } from '@penumbra/core';
+import { tortoiseFromHorizonDistance } from '../series.js';
+import { type Complex, abs2, adjoint, choleskyUpper, hermitianEigen2, matMul, solve } from './complex.js';
+import { qAt, type SectorModel } from './sectors.js';
+import { farWaveNumbers, horizonSolution, outgoingFarSolution, type SeriesState } from './series.js';
+
+/** Knobs of one integration (the tests turn them to show Γ does not depend on them). */
+export interface ProcaIntegrationControls {
+  /** start at r0 = 2(1 + startOffset), 0 < startOffset ≤ 0.5 */
+  startOffset: number;
+  /** first matching radius tried (units of M), moved outward until the far series converges */
+  matchRadius?: number;
+  /** local error tolerance of the Cash–Karp steps */
+  stepTolerance: number;
+  /** rotate the horizon and far channel bases by this angle (radians) before forming Γ; the eigen-Γ must not move */
+  basisAngle?: number;
+}
+
+/** What one integration gives: absorption eigenvalues (descending) and their reflections. */
+export interface ProcaIntegration {
+  /** transmission eigenvalues Γ (descending; one entry for a one-channel sector) */
+  gammas: number[];
+  /** reflected fraction in each transmission eigen-polarisation */
+  reflections: number[];
+  /** largest entry of |T + R − 1| (flux conservation of the 2×2 S-matrix) */
+  residual: number;
+  /** diagonal entries of T in the channel basis (depend on the basis; their sum does not) */
+  channelDiagonal: number[];
+  startRadius: number;
+  matchRadius: number;
+  steps: number;
+  rhsEvaluations: number;
+  seriesTerms: number;
+}
+
+const MAX_STEPS = 3_000_000;
+const RESCALE = 1e100;
+const MATCH_GROWTH = 1.5;
+const MAX_MATCH_MOVES = 60;
+
+/** First matching radius: far enough that k∞ r ≫ 1 and the centrifugal terms are tame. */
+export function defaultProcaMatchRadius(model: SectorModel): number {
+  const { k } = farWaveNumbers(model);
+  return Math.max(10, (20 + 0.5 * (model.L + 2 * model.l + 2)) / k);
+}
+
+function failure(model: SectorModel, message: string, steps: number, rhsEvaluations: number): Diagnostics {
+  return {
+    method: `Proca ${model.sector} sector, l = ${model.l}, Mω = ${model.omega}, Mμ = ${model.mu}: single integration`,
+    steps,
+    rhsEvaluations,
+    errorEstimate: Infinity,
+    message,
+  };
+}
+
+function rotation(angle: number, n: number): Complex[] {
+  if (n === 1) return [[1, 0]];
+  const c = Math.cos(angle);
+  const s = Math.sin(angle);
+  return [
+    [c, 0],
+    [-s, 0],
+    [s, 0],
+    [c, 0],
+  ];
+}
+
+/** One integration with explicit knobs. Throws ConvergenceError when a series or the integrator fails. */
+export function integrateProca(model: SectorModel, controls: ProcaIntegrationControls): ProcaIntegration {
+  const N = model.channels;
+  const x0 = 2 * controls.startOffset;
+  const r0 = 2 + x0;
+  let matchRadius = controls.matchRadius ?? defaultProcaMatchRadius(model);
+  if (!(matchRadius > 2 * r0)) matchRadius = 2 * r0;
+  const farAt = (r: number): SeriesState[] => Array.from({ length: N }, (_, c) => outgoingFarSolution(model, c, r));
+  let far = farAt(matchRadius);
+  let moves = 0;
+  while (!far.every((s) => s.converged)) {
+    if (++moves > MAX_MATCH_MOVES) {
+      throw new ConvergenceError(
+        'far-zone asymptotic series did not converge',
+        failure(model, 'matching radius moved too often', 0, 0),
+      );
+    }
+    matchRadius *= MATCH_GROWTH;
+    far = farAt(matchRadius);
+  }
+  const starts = Array.from({ length: N }, (_, c) => horizonSolution(model, c, x0));
+  if (!starts.every((s) => s.converged)) {
+    throw new ConvergenceError('horizon series did not converge', failure(model, `no convergence at r0 = ${r0}`, 0, 0));
+  }
+  // State: for each horizon solution j, u (N complex) then P (N complex).
+  const block = 4 * N;
+  const y = new Float64Array(N * block);
+  starts.forEach((s, j) => {
+    for (let i = 0; i < N; i++) {
+      y[j * block + 2 * i] = s.u[i][0];
+      y[j * block + 2 * i + 1] = s.u[i][1];
+      y[j * block + 2 * N + 2 * i] = s.p[i][0];
+      y[j * block + 2 * N + 2 * i + 1] = s.p[i][1];
+    }
+  });
+  const w2 = model.omega * model.omega;
+  const mu2 = model.mu * model.mu;
+  let rhsEvaluations = 0;
+  // du/dr = P/f,  dP/dr = [μ² + L/r² + Q(1/r)/r² − ω²/f] u.
+  const deriv = (dydr: Float64Array, s: Float64Array, r: number): void => {
+    rhsEvaluations++;
+    const invF = r / (r - 2);
+    const inv2 = 1 / (r * r);
+    const q = qAt(model, 1 / r);
+    const diag = mu2 + model.L * inv2 - w2 * invF;
+    for (let j = 0; j < N; j++) {
+      const o = j * block;
+      for (let i = 0; i < N; i++) {
+        dydr[o + 2 * i] = s[o + 2 * N + 2 * i] * invF;
+        dydr[o + 2 * i + 1] = s[o + 2 * N + 2 * i + 1] * invF;
+        let re = diag * s[o + 2 * i];
+        let im = diag * s[o + 2 * i + 1];
+        for (let c = 0; c < N; c++) {
+          re += q[i * N + c] * inv2 * s[o + 2 * c];
+          im += q[i * N + c] * inv2 * s[o + 2 * c + 1];
+        }
+        dydr[o + 2 * N + 2 * i] = re;
+        dydr[o + 2 * N + 2 * i + 1] = im;
+      }
+    }
+  };
+  const norms = new Float64Array(2 * N);
+  const errorScale = (i: number, dt: number, _yi: number, dydt: number): number => {
+    const j = Math.floor(i / block);
+    const part = i % block < 2 * N ? 0 : 1;
+    return norms[2 * j + part] + Math.abs(dt * dydt) + 1e-300;
+  };
+  const updateNorms = () => {
+    for (let j = 0; j < N; j++) {
+      let a = 0;
+      let b = 0;
+      for (let i = 0; i < 2 * N; i++) {
+        a += y[j * block + i] ** 2;
+        b += y[j * block + 2 * N + i] ** 2;
+      }
+      norms[2 * j] = Math.sqrt(a);
+      norms[2 * j + 1] = Math.sqrt(b);
+    }
+  };
+  updateNorms();
+  const integrator = createIntegrator(y, deriv, r0, 0.01 * x0, {
+    tol: controls.stepTolerance,
+    verbose: false,
+    errorScaleFunction: errorScale,
+  });
+  let steps = 0;
+  let logRescale = 0;
+  let more = true;
+  while (more) {
+    more = integrator.step(matchRadius);
+    steps++;
+    updateNorms();
+    let size = 0;
+    for (let i = 0; i < y.length; i++) size += Math.abs(y[i]);
+    if (!Number.isFinite(size)) {
+      throw new ConvergenceError(
+        'integration produced a non-finite state',
+        failure(model, `non-finite after ${steps} steps`, steps, rhsEvaluations),
+      );
+    }
+    if (size > RESCALE) {
+      for (let i = 0; i < y.length; i++) y[i] /= RESCALE;
+      logRescale += Math.log(RESCALE);
+      updateNorms();
+    }
+    if (steps > MAX_STEPS) {
+      throw new ConvergenceError(
+        'integration step budget exhausted',
+        failure(model, `more than ${MAX_STEPS} steps`, steps, rhsEvaluations),
+      );
+    }
+  }
+  // Matching matrix: columns Φin_c, Φout_c (2N-vectors (u, P)); Φin = conj(Φout).
+  const dim = 2 * N;
+  const F: Complex[] = new Array(dim * dim);
+  for (let c = 0; c < N; c++) {
+    const s = far[c];
+    for (let i = 0; i < N; i++) {
+      F[i * dim + c] = [s.u[i][0], -s.u[i][1]];
+      F[(N + i) * dim + c] = [s.p[i][0], -s.p[i][1]];
+      F[i * dim + N + c] = s.u[i];
+      F[(N + i) * dim + N + c] = s.p[i];
+    }
+  }
+  const rhs: Complex[] = new Array(dim * N);
+  for (let j = 0; j < N; j++) {
+    for (let i = 0; i < N; i++) {
+      rhs[i * N + j] = [y[j * block + 2 * i], y[j * block + 2 * i + 1]];
+      rhs[(N + i) * N + j] = [y[j * block + 2 * N + 2 * i], y[j * block + 2 * N + 2 * i + 1]];
+    }
+  }
+  const amp = solve(F, rhs, dim, N);
+  const Ain: Complex[] = [];
+  const Aout: Complex[] = [];
+  for (let c = 0; c < N; c++) for (let j = 0; j < N; j++) Ain.push(amp[c * N + j]);
+  for (let c = 0; c < N; c++) for (let j = 0; j < N; j++) Aout.push(amp[(N + c) * N + j]);
+  return {
+    ...absorption(model, Ain, Aout, logRescale, controls.basisAngle ?? 0),
+    startRadius: r0,
+    matchRadius,
+    steps,
+    rhsEvaluations,
+    seriesTerms: starts.reduce((a, s) => a + s.terms, 0) + far.reduce((a, s) => a + s.terms, 0),
+  };
+}
+
+/**
+ * Absorption and reflection matrices from the amplitudes of the horizon
+ * solutions (columns) in the incoming and outgoing far channels (rows).
+ * With S_∞ = diag √(k∞ D_c) and S_H the Cholesky factor of the horizon flux
+ * matrix, the unit-flux transmission amplitude is t = S_H A_in⁻¹ S_∞⁻¹ and
+ * T = t†t; R = r†r with r = S_∞ A_out A_in⁻¹ S_∞⁻¹. The stored solutions are
+ * the true ones divided by e^{logRescale}.
+ */
+function absorption(model: SectorModel, AinRaw: Complex[], AoutRaw: Complex[], logRescale: number, angle: number) {
+  const N = model.channels;
+  const { k } = farWaveNumbers(model);
+  // Another raw basis at both ends (real rotation B): horizon solutions H B,
+  // far channels Φ B; then A → B⁻¹ A B and the flux matrices → Bᵀ (·) B.
+  const B = rotation(angle, N);
+  const Bt = adjoint(B, N);
+  const Ain = matMul(matMul(Bt, AinRaw, N), B, N);
+  const Aout = matMul(matMul(Bt, AoutRaw, N), B, N);
+  const D: Complex[] = [];
+  for (let i = 0; i < N; i++) for (let j = 0; j < N; j++) D.push([i === j ? k * model.infinityWeights[i] : 0, 0]);
+  const Sinf = choleskyUpper(matMul(matMul(Bt, D, N), B, N), N);
+  const SH = choleskyUpper(matMul(matMul(Bt, model.horizonFlux, N), B, N), N);
+  const identity: Complex[] =
+    N === 1
+      ? [[1, 0]]
+      : [
+          [1, 0],
+          [0, 0],
+          [0, 0],
+          [1, 0],
+        ];
+  const SinfInv = solve(Sinf, identity, N, N);
+  const AinInv = solve(Ain, identity, N, N);
+  const tRot = matMul(matMul(SH, AinInv, N), SinfInv, N);
+  const T = matMul(adjoint(tRot, N), tRot, N);
+  const rAmp = matMul(matMul(matMul(Sinf, Aout, N), AinInv, N), SinfInv, N);
+  const R = matMul(adjoint(rAmp, N), rAmp, N);
+  const scale = Math.exp(-2 * logRescale);
+  let residual = 0;
+  for (let i = 0; i < N; i++) {
+    for (let j = 0; j < N; j++) {
+      const e = scale * T[i * N + j][0] + R[i * N + j][0] - (i === j ? 1 : 0);
+      residual = Math.max(residual, Math.hypot(e, scale * T[i * N + j][1] + R[i * N + j][1]));
+    }
+  }
+  const channelDiagonal = Array.from({ length: N }, (_, i) => scale * T[i * N + i][0]);
+  if (N === 1) {
+    return { gammas: [scale * T[0][0]], reflections: [R[0][0]], residual, channelDiagonal };
+  }
+  // det T = |det t|², formed without cancellation.
+  const detT = abs2([
+    tRot[0][0] * tRot[3][0] - tRot[0][1] * tRot[3][1] - (tRot[1][0] * tRot[2][0] - tRot[1][1] * tRot[2][1]),
+    tRot[0][0] * tRot[3][1] + tRot[0][1] * tRot[3][0] - (tRot[1][0] * tRot[2][1] + tRot[1][1] * tRot[2][0]),
+  ]);
+  const eig = hermitianEigen2(T[0][0], T[1], T[3][0], detT);
+  const reflections = eig.vectors.map((v) => {
+    // v† R v
+    let re = 0;
+    for (let i = 0; i < 2; i++) {
+      for (let j = 0; j < 2; j++) {
+        const a = R[i * 2 + j];
+        const vi = v[i];
+        const vj = v[j];
+        // conj(vi) a vj
+        const avj: Complex = [a[0] * vj[0] - a[1] * vj[1], a[0] * vj[1] + a[1] * vj[0]];
+        re += vi[0] * avj[0] + vi[1] * avj[1];
+      }
+    }
+    return re;
+  });
+  return { gammas: [scale * eig.values[0], scale * eig.values[1]], reflections, residual, channelDiagonal };
+}
+
+/** Tortoise span of an integration (for the step-tolerance rule). */
+export function tortoiseSpan(startOffset: number, matchRadius: number): number {
+  return tortoiseFromHorizonDistance(1, matchRadius - 2) - tortoiseFromHorizonDistance(1, 2 * startOffset);
+}

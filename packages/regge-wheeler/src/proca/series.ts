@@ -1,0 +1,257 @@
+/**
+ * Series solutions of the Proca sectors at the two ends (M = 1).
+ * Derivations: docs/massive-vector.md.
+ */
+import { tortoiseFromHorizonDistance } from '../series.js';
+import type { Complex } from './complex.js';
+import type { SectorModel } from './sectors.js';
+
+/** u and P = du/dr* of one solution at one radius, one entry per channel. */
+export interface ChannelState {
+  u: Complex[];
+  p: Complex[];
+}
+
+/** A series value with the number of terms summed and whether the terms fell below the floor. */
+export interface SeriesState extends ChannelState {
+  terms: number;
+  converged: boolean;
+}
+
+const HORIZON_MAX_TERMS = 1500;
+const FAR_MAX_TERMS = 400;
+const TERM_FLOOR = 1e-17;
+/** Relative size of the last kept term of the asymptotic far-zone series. */
+export const FAR_TOLERANCE = 1e-16;
+
+/** Binomial coefficient of (1 + t)^{−k}: (−1)^j C(k + j − 1, j). */
+function inverseBinomial(k: number, j: number): number {
+  let c = 1;
+  for (let i = 1; i <= j; i++) c = (c * (k + i - 1)) / i;
+  return j % 2 === 0 ? c : -c;
+}
+
+/**
+ * Ingoing horizon solution u = e^{−iωr*} h(t), t = (r − 2)/2, h(0) = e_start
+ * (the unit vector of channel `start`). With W(t) = (2μ)²(1+t)² + L + Q(1/(2(1+t))):
+ *   (n+1)(n+1 − 2iΩ) a_{n+1} = −n(n−1) a_n + 2iΩ[2n a_n + (n−1) a_{n−1}] + Σ_j W_j a_{n−j},
+ * Ω = 2ω.
+ */
+export function horizonSolution(model: SectorModel, start: number, x: number): SeriesState {
+  const N = model.channels;
+  const NN = N * N;
+  const Omega = 2 * model.omega;
+  const t = x / 2;
+  // W_j, j = 0 … HORIZON_MAX_TERMS, computed lazily.
+  const W: number[][] = [];
+  const wAt = (j: number): number[] => {
+    while (W.length <= j) {
+      const jj = W.length;
+      const out = new Array<number>(NN).fill(0);
+      const mass = 4 * model.mu * model.mu * (jj === 0 ? 1 : jj === 1 ? 2 : jj === 2 ? 1 : 0);
+      for (let i = 0; i < N; i++) out[i * N + i] += mass + (jj === 0 ? model.L : 0);
+      model.qCoeffs.forEach((q, k) => {
+        const c = 0.5 ** k * (k === 0 ? (jj === 0 ? 1 : 0) : inverseBinomial(k, jj));
+        for (let i = 0; i < NN; i++) out[i] += q[i] * c;
+      });
+      W.push(out);
+    }
+    return W[j];
+  };
+  const a: Complex[][] = [];
+  const a0: Complex[] = [];
+  for (let i = 0; i < N; i++) a0.push([i === start ? 1 : 0, 0]);
+  a.push(a0);
+  const h: Complex[] = a0.map((z) => [z[0], z[1]] as Complex);
+  const hd: Complex[] = a0.map(() => [0, 0] as Complex); // dh/dt
+  let tPow = 1;
+  let smallRun = 0;
+  let converged = false;
+  let n = 0;
+  for (; n < HORIZON_MAX_TERMS; n++) {
+    const next: Complex[] = [];
+    const denRe = (n + 1) * (n + 1);
+    const denIm = -(n + 1) * 2 * Omega;
+    const den2 = denRe * denRe + denIm * denIm;
+    for (let i = 0; i < N; i++) {
+      const an = a[n][i];
+      let re = -n * (n - 1) * an[0] - 2 * Omega * 2 * n * an[1];
+      let im = -n * (n - 1) * an[1] + 2 * Omega * 2 * n * an[0];
+      if (n >= 1) {
+        const am = a[n - 1][i];
+        re -= 2 * Omega * (n - 1) * am[1];
+        im += 2 * Omega * (n - 1) * am[0];
+      }
+      for (let j = 0; j <= n; j++) {
+        const wj = wAt(j);
+        const src = a[n - j];
+        for (let k = 0; k < N; k++) {
+          const wv = wj[i * N + k];
+          if (wv === 0) continue;
+          re += wv * src[k][0];
+          im += wv * src[k][1];
+        }
+      }
+      next.push([(re * denRe + im * denIm) / den2, (im * denRe - re * denIm) / den2]);
+    }
+    a.push(next);
+    const order = n + 1;
+    const dWeight = order * tPow;
+    tPow *= t;
+    let termSize = 0;
+    let scale = 0;
+    for (let i = 0; i < N; i++) {
+      h[i][0] += next[i][0] * tPow;
+      h[i][1] += next[i][1] * tPow;
+      hd[i][0] += next[i][0] * dWeight;
+      hd[i][1] += next[i][1] * dWeight;
+      termSize += Math.hypot(next[i][0], next[i][1]) * tPow * (1 + order);
+      scale += Math.hypot(h[i][0], h[i][1]) + t * Math.hypot(hd[i][0], hd[i][1]);
+    }
+    if (termSize < TERM_FLOOR * scale) {
+      if (++smallRun >= 3) {
+        converged = true;
+        n++;
+        break;
+      }
+    } else smallRun = 0;
+  }
+  // u = e^{−iωr*} h;  du/dr* = e^{−iωr*} (−iω h + f dh/dr), dh/dr = (dh/dt)/2.
+  const r = 2 + x;
+  const f = x / r;
+  const phase = -model.omega * tortoiseFromHorizonDistance(1, x);
+  const cph = Math.cos(phase);
+  const sph = Math.sin(phase);
+  const rot = (z: Complex): Complex => [cph * z[0] - sph * z[1], cph * z[1] + sph * z[0]];
+  const u: Complex[] = [];
+  const p: Complex[] = [];
+  for (let i = 0; i < N; i++) {
+    u.push(rot(h[i]));
+    p.push(rot([model.omega * h[i][1] + 0.5 * f * hd[i][0], -model.omega * h[i][0] + 0.5 * f * hd[i][1]]));
+  }
+  return { u, p, terms: n + 1, converged };
+}
+
+/** k∞ = √(ω² − μ²) and the long-range phase coefficient η = μ²/k∞ (M = 1). */
+export function farWaveNumbers(model: SectorModel): { k: number; eta: number } {
+  const k = Math.sqrt((model.omega - model.mu) * (model.omega + model.mu));
+  return { k, eta: (model.mu * model.mu) / k };
+}
+
+/**
+ * Outgoing far-zone solution u = e^{i(k r* + η ln r)} Σ c_n r^{−n}, c_0 = e_start.
+ * With y = 1/r and D = y d/dy the equation for w = Σ c_n y^n is
+ * Σ_j y^j [a_j D² + b_j D + C_j] w = 0 (docs/massive-vector.md), whose
+ * y^{n+1} coefficient gives
+ *   2ik n c_n = Σ_{j≥2} [a_j (n+1−j)² + b_j (n+1−j) + C_j] c_{n+1−j}.
+ * The incoming solution is its complex conjugate (real coefficients).
+ */
+export function outgoingFarSolution(model: SectorModel, start: number, r: number): SeriesState {
+  const N = model.channels;
+  const { k, eta } = farWaveNumbers(model);
+  const L = model.L;
+  const d2 = eta * eta;
+  const Q0 = model.qCoeffs[0];
+  const Q1 = model.qCoeffs[1] ?? new Array<number>(N * N).fill(0);
+  // a_j, b_j (complex scalars) and C_j (complex matrices), j = 2, 3, 4.
+  const aj = [0, 0, 1, -4, 4];
+  const bj: Complex[] = [
+    [0, 0],
+    [0, -2 * k],
+    [1, -2 * (eta - 2 * k)],
+    [-6, 8 * eta],
+    [8, -8 * eta],
+  ];
+  const scalarC: Complex[] = [
+    [0, 0],
+    [0, 0],
+    [4 * model.mu * model.mu - d2 - L, -eta],
+    [4 * d2 + 2 * L, 6 * eta],
+    [-4 * d2, -8 * eta],
+  ];
+  const Cj: Complex[][] = [[], []];
+  for (let j = 2; j <= 4; j++) {
+    const m: Complex[] = [];
+    for (let i = 0; i < N * N; i++) {
+      const diag = i % (N + 1) === 0 ? scalarC[j] : ([0, 0] as Complex);
+      const qv = j === 2 ? -Q0[i] : j === 3 ? -(Q1[i] - 2 * Q0[i]) : 2 * Q1[i];
+      m.push([diag[0] + qv, diag[1]]);
+    }
+    Cj.push(m);
+  }
+  const y = 1 / r;
+  // T_n = c_n y^n (vectors).
+  const T: Complex[][] = [];
+  const first: Complex[] = [];
+  for (let i = 0; i < N; i++) first.push([i === start ? 1 : 0, 0]);
+  T.push(first);
+  const w: Complex[] = first.map((z) => [z[0], z[1]] as Complex);
+  const Dw: Complex[] = first.map(() => [0, 0] as Complex);
+  let smallRun = 0;
+  let converged = false;
+  let previous = 1;
+  let n = 1;
+  for (; n <= FAR_MAX_TERMS; n++) {
+    const next: Complex[] = [];
+    for (let i = 0; i < N; i++) {
+      let re = 0;
+      let im = 0;
+      for (let j = 2; j <= 4; j++) {
+        const idx = n + 1 - j;
+        if (idx < 0) continue;
+        const src = T[idx];
+        const yj = y ** (j - 1); // T_{n+1−j} y^{j−1} = c_{n+1−j} y^n
+        const coeffRe = aj[j] * idx * idx + bj[j][0] * idx;
+        const coeffIm = bj[j][1] * idx;
+        for (let c = 0; c < N; c++) {
+          let mr = Cj[j][i * N + c][0];
+          let mi = Cj[j][i * N + c][1];
+          if (c === i) {
+            mr += coeffRe;
+            mi += coeffIm;
+          }
+          re += (mr * src[c][0] - mi * src[c][1]) * yj;
+          im += (mr * src[c][1] + mi * src[c][0]) * yj;
+        }
+      }
+      // T_n = num / (2ik n)
+      const d = 2 * k * n;
+      next.push([im / d, -re / d]);
+    }
+    T.push(next);
+    let size = 0;
+    let scale = 0;
+    for (let i = 0; i < N; i++) {
+      w[i][0] += next[i][0];
+      w[i][1] += next[i][1];
+      Dw[i][0] += n * next[i][0];
+      Dw[i][1] += n * next[i][1];
+      size += Math.hypot(next[i][0], next[i][1]) * (n + 1);
+      scale += Math.hypot(w[i][0], w[i][1]);
+    }
+    if (size < FAR_TOLERANCE * scale) {
+      if (++smallRun >= 3) {
+        converged = true;
+        break;
+      }
+    } else {
+      smallRun = 0;
+      if (n > model.l + 3 && size > previous && size > 1e-3 * scale) break;
+    }
+    previous = size;
+  }
+  // u = e^{iS} w;  du/dr* = e^{iS} (i g w − f y D w), g = k + f η / r.
+  const f = 1 - 2 * y;
+  const g = k + f * eta * y;
+  const phase = k * tortoiseFromHorizonDistance(1, r - 2) + eta * Math.log(r);
+  const cph = Math.cos(phase);
+  const sph = Math.sin(phase);
+  const rot = (z: Complex): Complex => [cph * z[0] - sph * z[1], cph * z[1] + sph * z[0]];
+  const u: Complex[] = [];
+  const p: Complex[] = [];
+  for (let i = 0; i < N; i++) {
+    u.push(rot(w[i]));
+    p.push(rot([-g * w[i][1] - f * y * Dw[i][0], g * w[i][0] - f * y * Dw[i][1]]));
+  }
+  return { u, p, terms: n, converged };
+}
