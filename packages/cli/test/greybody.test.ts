@@ -37,7 +37,7 @@ describe('penumbra greybody', () => {
     expect(missing.code).toBe(2);
     expect(missing.stderr).toMatch(/--mass/);
   });
-  test('--field-mass refuses ω ≤ μ (no wave reaches infinity) and a massive field of spin 1, naming the parameter', async () => {
+  test('--field-mass refuses ω ≤ μ (no wave reaches infinity) and a massive field of spin 2 (no massive route), naming the parameter', async () => {
     const below = await run(
       'greybody',
       '--spin',
@@ -59,9 +59,9 @@ describe('penumbra greybody', () => {
     const vector = await run(
       'greybody',
       '--spin',
-      '1',
+      '2',
       '--l',
-      '1',
+      '2',
       '--m',
       '1',
       '--a',

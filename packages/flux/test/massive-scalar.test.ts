@@ -116,7 +116,7 @@ describe('massive scalar greybody factor', () => {
   });
 
   it('refuses a massive field of a spin without a massive route with an InputError naming mode.field.mass', () => {
-    expect(() => greybody({ hole: { a: 0.5 }, mode: { field: { spin: 1, mass: 0.1 }, l: 1, m: 1 }, omega: 0.4 })).toThrow(
+    expect(() => greybody({ hole: { a: 0.5 }, mode: { field: { spin: 2, mass: 0.1 }, l: 2, m: 1 }, omega: 0.4 })).toThrow(
       expect.objectContaining({ parameter: 'mode.field.mass' }),
     );
   });
