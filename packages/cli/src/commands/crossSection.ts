@@ -4,7 +4,7 @@ import type { Command } from '../command.js';
 import { formatError, formatNumber, formatTable } from '../format.js';
 import { parseFieldSpin, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
 import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
-import { progressReporter } from '../progress.js';
+import { progressReporter, shellProgress } from '../progress.js';
 
 /** The CSV columns: the keys of the JSON rows. */
 const COLUMNS: Column[] = [
@@ -26,7 +26,7 @@ Geometric units (M = 1): σ in M², ω is Mω, a is a/M.
 
 Options:
   --spin S     field spin: 0, 1/2, 1, 2
-  --a A        the hole's spin parameter a/M (|a/M| ≤ 0.9999)
+  --a A        the hole's spin parameter a/M (|a/M| ≤ 0.99999)
   --omega W    frequency Mω, or a grid START:STOP:COUNT
   --log        space a frequency grid geometrically
   --tol T      relative accuracy of each Γ and of the l-sum (default 1e-6)
@@ -58,7 +58,8 @@ Example:
     const tol = values.tol === undefined ? 1e-6 : parseNumber('--tol', values.tol);
     const progress = progressReporter(io, 'cross-section: frequencies done', grid.count);
     const rows = grid.values.map((omega, i) => {
-      const r = absorptionCrossSection({ hole: { a }, field: { spin: spin as FieldSpin }, omega }, { tol });
+      const onMode = shellProgress(io, `cross-section at Mω = ${omega}`, 5 * omega);
+      const r = absorptionCrossSection({ hole: { a }, field: { spin: spin as FieldSpin }, omega }, { tol, onMode });
       progress(i + 1);
       const { lMax, droppedBound, modes } = r.diagnostics;
       return { omega, sigma: r.sigma, lMax, droppedBound, relError: r.relError, modes };
