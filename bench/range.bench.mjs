@@ -21,7 +21,7 @@ const OMEGAS = quick ? [1, 30] : [0.1, 1, 10, 20, 30];
 const LS = quick ? [2, 200] : [2, 50, 105, 150, 200];
 
 const cpuMs = () => process.cpuUsage().user / 1000;
-const lm = (spin, l, m) => (spin === 0.5 ? { l: l - 0.5, m: m - 0.5 } : { l, m });
+const lm = (spin, l, m) => (spin === 0.5 ? { l: l - 0.5, m: m < 0 ? m + 0.5 : Math.max(m - 0.5, 0.5) } : { l, m });
 
 function sweep() {
   const rows = [];
