@@ -48,6 +48,12 @@ function sweep() {
               Object.assign(row, { ok: false, cpuMs: cpuMs() - t0, error: `${e.name}: ${e.message.slice(0, 120)}` });
             }
             rows.push(row);
+            // one line per mode as it is measured, so a partial run still reports
+            console.log(
+              row.ok
+                ? `  s=${spin} a=${a} Mω=${omega} l=${row.l} m=${row.m}: |Γ+R−1| ${fmt(row.residual)}, relError ${fmt(row.relError)}, ${row.steps} steps, ${fmt(row.cpuMs)} CPU ms`
+                : `  s=${spin} a=${a} Mω=${omega} l=${row.l} m=${row.m}: ${row.error}`,
+            );
           }
   return rows;
 }
