@@ -18,7 +18,7 @@ export interface Hole {
  * Frobenius start needs r+ − r− > 0 (0.0089 M here), and the near-horizon
  * solution winds like x^{−ik/2κ} with k/2κ ∝ 1/(r+ − r−), so the steps grow
  * as the horizons merge: at Mω = 30 a mode took 1.1e4 steps at
- * a = 0.9999 M and 5e4 (|m| ≲ 10) to 1.8e5 (|m| = 150) at a = 0.99999 M,
+ * a = 0.9999 M and 5e4 (|m| ≲ 10) to 3.1e5 (l = 200, m = −200) at a = 0.99999 M,
  * against a budget of 1e6 (docs/method.md, "Near extremality"). The extremal
  * hole is a limit, not an input.
  */
