@@ -234,6 +234,13 @@ const ENTRIES: Entry[] = [
     ],
   },
   {
+    name: 'requireLShellReach',
+    call: fn(core.requireLShellReach),
+    args: [or(fc.integer({ min: 0, max: 3 })), or(fc.record({ lCut: fc.double(), tol: cheapTol, maxL: fc.integer() }))],
+  },
+  { name: 'retrogradeImpactParameter', call: fn(kerr.retrogradeImpactParameter), args: [or(fc.double())] },
+  { name: 'automaticMaxL', call: fn(flux.automaticMaxL), args: [or(fc.double()), or(fc.double())] },
+  {
     name: 'sumLShellVectors',
     call: fn(core.sumLShellVectors),
     args: [
@@ -671,9 +678,12 @@ const LEFT: Record<string, string> = {
   toJsonTable: 'trusts its type: rows must be an array',
   sumLShells: 'trusts its type: `shell` must be a function',
   sumLShellVectors: 'trusts its type: `shell` must be a function',
+  requireLShellReach: 'trusts its types: takes the LShellRule its caller builds',
   oneOf: 'trusts its type: `allowed` must be an array',
   gridValues: 'trusts its type: a non-object grid is a TypeError',
   cardyEntropy: 'trusts its type: takes the output of nearRegion',
+  retrogradeImpactParameter: 'trusts its type: takes a* of a validated hole',
+  automaticMaxL: 'trusts its types: takes Mω and a* of a validated problem',
   sphericalEigenvalue: 'trusts its types (s, l unchecked)',
   horizonFactor: 'trusts its types: takes a KerrHole from kerrHole',
   requireMassless: 'trusts its type: takes the output of validateField',

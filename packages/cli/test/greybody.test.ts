@@ -125,7 +125,7 @@ describe('penumbra greybody', () => {
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
     expect(r.stderr).toMatch(/^penumbra: .*l/);
   });
-  test('refuses |a| > 0.9999 and ω ≤ 0 with exit code 2', async () => {
+  test('refuses |a| > M and ω ≤ 0 with exit code 2', async () => {
     expect((await run('greybody', '--spin', '0', '--l', '0', '--m', '0', '--a', '1.2', '--omega', '0.3')).code).toBe(2);
     expect((await run('greybody', '--spin', '0', '--l', '0', '--m', '0', '--a', '0.5', '--omega', '0')).code).toBe(2);
   });

@@ -26,6 +26,7 @@ export {
   type LShellSum,
   type LShellVectorSum,
   geometricTailBound,
+  requireLShellReach,
   sumLShells,
   sumLShellVectors,
 } from './lShells.js';

@@ -89,6 +89,40 @@ export function geometricTailBound(last: number, prev: number, what: string): { 
   });
 }
 
+/**
+ * The smallest l at which a sum under `rule` could stop: past the cut, at or
+ * past `lMinToStop`, with `shellsBelow` negligible shells in a row.
+ */
+function earliestStop(lFirst: number, rule: LShellRule): number {
+  const need = rule.shellsBelow ?? 2;
+  // the first l strictly above lCut with l − lFirst an integer (half-integer l for fermions)
+  const past = lFirst + Math.max(0, Math.floor(rule.lCut - lFirst) + 1);
+  return Math.max(past, rule.lMinToStop ?? lFirst) + need - 1;
+}
+
+/**
+ * Refuse, before any shell is computed, a sum that could not stop within
+ * rule.maxL: a ConvergenceError whose diagnostics name the limit (`maxL`, and
+ * `limit` when the caller says where it comes from, e.g. core's MAX_L).
+ */
+export function requireLShellReach(lFirst: number, rule: LShellRule, what = 'l-shell sum', limit?: string): void {
+  const needed = earliestStop(lFirst, rule);
+  if (!(needed > rule.maxL)) return;
+  const source = limit ? ` (${limit})` : '';
+  throw new ConvergenceError(`${what} would need l up to at least ${needed}, beyond maxL = ${rule.maxL}${source}`, {
+    method: METHOD,
+    steps: 0,
+    rhsEvaluations: 0,
+    errorEstimate: Infinity,
+    message: `the sum may stop only past the geometric-optics cut lCut = ${rule.lCut} after ${rule.shellsBelow ?? 2} negligible shells, at l ≥ ${needed} > maxL = ${rule.maxL}${source}; refused before any work`,
+    maxL: rule.maxL,
+    lCut: rule.lCut,
+    lNeeded: needed,
+    ...(limit ? { limit } : {}),
+    ...rule.context?.(),
+  });
+}
+
 /** Sum `shell(l)` for l = lFirst, lFirst + 1, … under `rule`; see the module comment. */
 export function sumLShells(lFirst: number, rule: LShellRule, shell: (l: number) => number, what = 'l-shell sum'): LShellSum {
   const r = sumLShellVectors(lFirst, rule, (l) => [shell(l)], what);
@@ -115,6 +149,7 @@ export function sumLShellVectors(
 ): LShellVectorSum {
   const need = rule.shellsBelow ?? 2;
   const lMinToStop = rule.lMinToStop ?? lFirst;
+  requireLShellReach(lFirst, rule, what);
   const shells: { l: number; sums: number[] }[] = [];
   const totals: number[] = [];
   let below = 0;

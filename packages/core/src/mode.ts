@@ -19,8 +19,13 @@ export interface Mode {
   readonly kappaSign?: 1 | -1;
 }
 
-/** Largest l the solvers take (the spheroidal and radial series are tested to it). */
-export const MAX_L = 100;
+/**
+ * Largest l the solvers take (the spheroidal and radial solvers are tested to
+ * it). 230 covers every l-sum of the documented range Mω ≤ 30: its
+ * geometric-optics cut is Mω·b with b ≤ 7M (the retrograde capture impact
+ * parameter as a → M), l ≈ 210, plus 20 shells for Γ to fall below 1e-12.
+ */
+export const MAX_L = 230;
 
 /** Validate angular numbers for a field spin. */
 export function validateAngular(spin: FieldSpin, l: unknown, m: unknown, parameter = 'mode'): { l: number; m: number } {

@@ -56,7 +56,7 @@ describe('field spins', () => {
     expect(thrown(() => requireMassless({ spin: 1, mass: 0.1 })).parameter).toBe('field.mass');
     expect(() => requireMassless({ spin: 1, mass: 0 })).not.toThrow();
   });
-  test('a hole needs a finite mass > 0 and |a| ≤ 0.9999 M for the solver; unknown keys refused', () => {
+  test('a hole needs a finite mass > 0 and |a| ≤ 0.99999 M for the solver; unknown keys refused', () => {
     expect(validateHole({ a: -0.5 })).toEqual({ a: -0.5, mass: 1 });
     expect(thrown(() => validateHole({ a: 1 })).parameter).toBe('hole.a');
     expect(thrown(() => validateHole({ a: 0.5, mass: -1 })).parameter).toBe('hole.mass');

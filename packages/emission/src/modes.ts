@@ -129,17 +129,8 @@ export function boltzmannTailBound(ctx: ModeContext, m: number, W: number): { nu
   return { number, energy: number * (W + T) };
 }
 
-/**
- * Retrograde equatorial photon-orbit impact parameter, b = 3√(M r) + a with
- * r = 2M[1 + cos((2/3) arccos(a/M))] (Bardeen, Press & Teukolsky, ApJ 178,
- * 347 (1972)): 3√3 M at a = 0, 7M at a = M. It bounds the capture impact
- * parameter of every mode, so beyond l + 1/2 ≈ ω·b the l-shells are below the
- * barrier and fall geometrically.
- */
-export function retrogradeImpactParameter(aStar: number): number {
-  const r = 2 * (1 + Math.cos((2 / 3) * Math.acos(Math.abs(aStar))));
-  return 3 * Math.sqrt(r) + Math.abs(aStar);
-}
+/** The retrograde photon-orbit impact parameter (units of M), from @penumbra/kerr. */
+export { retrogradeImpactParameter } from '@penumbra/kerr';
 
 /** The m values of shell l in the order they are summed (co-rotating first). */
 export function shellMs(ctx: ModeContext, l: number): { ms: number[]; weight: number } {

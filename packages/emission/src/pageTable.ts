@@ -53,7 +53,7 @@ export interface PageTable {
 export interface PageTableProblem {
   /** grid points (default 50, 5 … 2000) */
   readonly points?: number;
-  /** largest a* (default 0.99, at most 0.9999) */
+  /** largest a* (default 0.99, at most MAX_SOLVER_A_RATIO = 0.99999) */
   readonly aMax?: number;
   /** field spins (default 0, 1/2, 1, 2; '1/2' accepted) */
   readonly spins?: readonly FieldSpinInput[];

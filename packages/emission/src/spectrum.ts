@@ -5,8 +5,10 @@
  * rescaled (docs/emission.md); a < 0 flips the sign of the torque.
  */
 import {
+  MAX_L,
   TOLERANCE_RANGE,
   isFunction,
+  requireLShellReach,
   validateField,
   validateHole,
   validateOptions,
@@ -20,7 +22,8 @@ import {
 } from '@penumbra/core';
 import { MOMEGA_RANGE } from '@penumbra/flux';
 import { modeContext } from './modes.js';
-import { spectrumPointUnit, type SpectrumPoint } from './spectrumPoint.js';
+import { automaticMaxL } from '@penumbra/flux';
+import { spectrumLCut, spectrumPointUnit, type SpectrumPoint } from './spectrumPoint.js';
 import { checkMaxL, maxLOption, requireProblem, validateGrid } from './validate.js';
 
 /** A field on a hole and the frequencies (units of 1/M, increasing, Mω ≤ 30) to sample. */
@@ -35,7 +38,11 @@ export interface SpectrumProblem {
 export interface SpectrumOptions {
   /** relative accuracy of each point (default 1e-6, range 1e-12 … 1e-2) */
   tol?: number;
-  /** largest l allowed before the sum counts as not converged (default 80, at most 100) */
+  /**
+   * largest l allowed before the sum counts as not converged (at most core's
+   * MAX_L; default @penumbra/flux's `automaticMaxL` at the highest frequency:
+   * its geometric-optics cut plus 20 shells)
+   */
   maxL?: number;
   /** called after each frequency (progress reporting) */
   onPoint?: (done: number, total: number) => void;
@@ -87,10 +94,19 @@ export function emissionSpectrum(problem: SpectrumProblem, options?: SpectrumOpt
   }
   const { a, mass } = validateHole(p.hole, 'hole');
   const omegas = validateGrid(p.grid, mass);
-  const { tol = 1e-6, maxL = 80, onPoint } = validateOptions<SpectrumOptions>(options, OPTIONS);
-  checkMaxL(maxL, spin);
+  const { tol = 1e-6, maxL: givenMaxL, onPoint } = validateOptions<SpectrumOptions>(options, OPTIONS);
+  const aStar = Math.abs(a) / mass;
+  const top = Math.max(...omegas) * mass;
+  const maxL = checkMaxL(givenMaxL ?? automaticMaxL(top, aStar), spin);
+  // Every point's l-sum must be able to stop within maxL: refuse the grid before its first point, not at its last.
+  requireLShellReach(
+    spin,
+    { lCut: spectrumLCut(aStar, top), tol, maxL, lMinToStop: spin + 1 },
+    `spectrum l-sum at Mω = ${top}`,
+    givenMaxL === undefined ? `core's MAX_L = ${MAX_L}, the largest l the solvers take` : 'the maxL option',
+  );
   // Γ to a tenth of the point's tolerance, never below the solver's floor.
-  const ctx = modeContext(spin, Math.abs(a) / mass, Math.max(tol / 10, TOLERANCE_RANGE.min), fieldMass);
+  const ctx = modeContext(spin, aStar, Math.max(tol / 10, TOLERANCE_RANGE.min), fieldMass);
   const sign = a < 0 ? -1 : 1;
   const points = omegas.map((w, i) => {
     const point =

@@ -38,9 +38,14 @@ export interface SpectrumPoint {
   modes: number;
 }
 
+/** The geometric-optics cut of the l-sum at Mω for a hole of a* = |a|/M. */
+export function spectrumLCut(aStar: number, mOmega: number): number {
+  return mOmega * retrogradeImpactParameter(aStar) - 0.5;
+}
+
 /** Spectrum point for the unit-mass hole of `ctx` (a* ≥ 0) at frequency ω. */
 export function spectrumPointUnit(ctx: ModeContext, omega: number, tol: number, maxL = 80): SpectrumPoint {
-  const lCut = omega * retrogradeImpactParameter(ctx.aStar) - 0.5;
+  const lCut = spectrumLCut(ctx.aStar, omega);
   // The running sum of the finished shells, the scale of the Boltzmann skip below.
   let total = 0;
   let torque = 0;

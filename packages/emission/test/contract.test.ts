@@ -71,8 +71,8 @@ describe('the solve contract (problem → solve(problem, options) → solution w
     );
     expect(inputError(() => pageTable({}, { tol: 0 })).parameter).toBe('tol');
   });
-  test('the hole and field are checked by core: |a| ≤ 0.9999 M, mass > 0, field spin 0, 1/2, 1, 2', () => {
-    expect(inputError(() => emissionTotals({ hole: { a: 0.99995 }, field: { spin: 1 } })).parameter).toBe('hole.a');
+  test('the hole and field are checked by core: |a| ≤ 0.99999 M, mass > 0, field spin 0, 1/2, 1, 2', () => {
+    expect(inputError(() => emissionTotals({ hole: { a: 0.999995 }, field: { spin: 1 } })).parameter).toBe('hole.a');
     expect(inputError(() => emissionSpectrum({ hole: { a: 0, mass: -1 }, field: { spin: 1 }, grid: [0.1] })).parameter).toBe(
       'hole.mass',
     );

@@ -16,6 +16,7 @@ import {
   isFunction,
   numberIn,
   requireKeyedObject,
+  requireLShellReach,
   sumLShells,
   validateField,
   validateHole,
@@ -26,7 +27,15 @@ import {
   type Hole,
 } from '@penumbra/core';
 import { greybody, type GreybodySolution } from './greybody.js';
-import { GREYBODY_OPTIONS, MAX_SUM_L, requireAboveThreshold, validateOmega, type GreybodyOptions } from './validate.js';
+import {
+  GREYBODY_OPTIONS,
+  MAX_L_LIMIT,
+  MAX_SUM_L,
+  automaticMaxL,
+  requireAboveThreshold,
+  validateOmega,
+  type GreybodyOptions,
+} from './validate.js';
 
 /** A field on a hole at one frequency: σ sums over all of its modes. */
 export interface CrossSectionProblem {
@@ -37,7 +46,10 @@ export interface CrossSectionProblem {
 }
 
 export interface CrossSectionOptions extends GreybodyOptions {
-  /** largest l before the sum counts as not converged (default and maximum ${MAX_SUM_L}) */
+  /**
+   * largest l before the sum counts as not converged (at most MAX_SUM_L;
+   * default `automaticMaxL(Mω, a*)`, the geometric-optics cut plus 20 shells)
+   */
   maxL?: number;
   /** called with every mode solved */
   onMode?: (solution: GreybodySolution) => void;
@@ -86,13 +98,15 @@ export function absorptionCrossSection(problem: CrossSectionProblem, options?: C
   const omega = validateOmega(p.omega, mass);
   requireAboveThreshold(omega, mass, fieldMass);
   const fieldOut = fieldMass > 0 ? { spin, mass: fieldMass } : { spin };
-  const { maxL = MAX_SUM_L, onMode, ...greybodyOptions } = validateOptions<CrossSectionOptions>(options, OPTIONS);
+  const { maxL: givenMaxL, onMode, ...greybodyOptions } = validateOptions<CrossSectionOptions>(options, OPTIONS);
   const tol = greybodyOptions.tol ?? 1e-8;
+  const maxL =
+    givenMaxL ?? Math.max(automaticMaxL(omega * mass, Math.abs(a) / mass), Math.min(MAX_SUM_L, Math.ceil(5 * omega * mass) + 2));
   if (maxL < spin) throw new InputError('maxL', `${spin} ≤ maxL ≤ ${MAX_SUM_L}`, maxL);
   // The sum may stop only above the geometric-optics cut 5Mω, and only after two shells beyond it:
-  // refuse at once a frequency whose cut the l range cannot pass, instead of solving every mode up to maxL first.
+  // refuse at once a frequency whose cut the given l range cannot pass, instead of solving every mode up to maxL first.
   const highestMOmega = (maxL - 2) / 5;
-  if (omega * mass > highestMOmega) {
+  if (givenMaxL !== undefined && omega * mass > highestMOmega) {
     throw new InputError(
       'omega',
       `Mω ≤ (maxL − 2)/5 = ${highestMOmega} for maxL = ${maxL}`,
@@ -124,7 +138,10 @@ export function absorptionCrossSection(problem: CrossSectionProblem, options?: C
     return sum;
   };
   const lFirst = spin;
-  const summed = sumLShells(lFirst, { lCut: omega * 5 * mass, tol, maxL }, shell, 'cross-section l-sum');
+  // A limit of the solvers (not the caller's maxL) that the sum would exceed is refused here, before any solve.
+  const rule = { lCut: omega * 5 * mass, tol, maxL };
+  requireLShellReach(lFirst, rule, 'cross-section l-sum', givenMaxL === undefined ? MAX_L_LIMIT : 'the maxL option');
+  const summed = sumLShells(lFirst, rule, shell, 'cross-section l-sum');
   // π/k∞², k∞² = ω² − μ² (μ = Mμ/M); exactly π/ω² when massless.
   const mu = fieldMass / mass;
   const scale = Math.PI / (fieldMass === 0 ? omega * omega : (omega - mu) * (omega + mu));

@@ -1,5 +1,5 @@
 export { greybody, tryGreybody, radialFunction, MAX_RADII, type GreybodyDiagnostics, type GreybodySolution } from './greybody.js';
-export { MOMEGA_RANGE, type GreybodyProblem, type GreybodyOptions } from './validate.js';
+export { MOMEGA_RANGE, L_TAIL_MARGIN, automaticMaxL, type GreybodyProblem, type GreybodyOptions } from './validate.js';
 export type { ProcaPolarization } from '@penumbra/regge-wheeler';
 export { lowFrequencyGreybody } from './lowFrequency.js';
 export {

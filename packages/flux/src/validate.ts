@@ -19,6 +19,7 @@ import {
   type Hole,
   type Mode,
 } from '@penumbra/core';
+import { retrogradeImpactParameter } from '@penumbra/kerr';
 import { INTEGRATORS, type IntegratorName } from '@penumbra/radial';
 import { PROCA_POLARIZATIONS, type ProcaPolarization } from '@penumbra/regge-wheeler';
 
@@ -125,3 +126,23 @@ export function checkGreybodyOptions(options: unknown): GreybodyOptions {
 
 /** Largest l an l-sum may reach (the spheroidal solver's range). */
 export const MAX_SUM_L = MAX_L;
+
+/**
+ * Shells past the geometric-optics cut that an automatic maxL allows. Beyond
+ * the barrier peak Γ falls about e^{−2π} per unit of l (the WKB barrier
+ * formula, Iyer & Will, Phys. Rev. D 35, 3621 (1987)), so 20 shells take it
+ * far below the tightest tolerance 1e-12.
+ */
+export const L_TAIL_MARGIN = 20;
+
+/** Where an l-sum's limit comes from, for the diagnostics of a sum refused up front. */
+export const MAX_L_LIMIT = `core's MAX_L = ${MAX_L}, the largest l the solvers take`;
+
+/**
+ * The maxL an l-sum at frequency Mω on a hole of a* = |a|/M gets by default:
+ * its geometric-optics cut Mω·b_retro(a*) − 1/2 plus L_TAIL_MARGIN shells,
+ * capped at MAX_L (a sum that would need more is refused before any work).
+ */
+export function automaticMaxL(mOmega: number, aStar: number): number {
+  return Math.min(MAX_L, Math.ceil(mOmega * retrogradeImpactParameter(aStar) - 0.5) + L_TAIL_MARGIN);
+}

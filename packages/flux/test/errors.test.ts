@@ -21,7 +21,7 @@ const bad: [string, Record<string, unknown>, string][] = [
   ['l − s not an integer', { spin: 0.5, l: 1, m: 0.5 }, 'mode.l'],
   ['|m| > l', { m: 2 }, 'mode.m'],
   ['m − s not an integer', { spin: 0.5, l: 0.5, m: 0 }, 'mode.m'],
-  ['|a| > 0.9999 M', { a: 0.99995 }, 'hole.a'],
+  ['|a| > 0.99999 M', { a: 0.999995 }, 'hole.a'],
   ['a = M (extremal)', { a: 1 }, 'hole.a'],
   ['a NaN', { a: Number.NaN }, 'hole.a'],
   ['ω = 0', { omega: 0 }, 'omega'],

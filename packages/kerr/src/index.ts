@@ -26,3 +26,4 @@ export {
   unitScales,
 } from './units.js';
 export { type PhysicalBackground, PHYSICAL_MASS_RANGE_KG, physicalBackground } from './physical.js';
+export { retrogradeImpactParameter } from './photonOrbit.js';

@@ -53,7 +53,7 @@ export interface StepperSpec {
   rhs: Rhs;
   /** local relative tolerance */
   tol: number;
-  /** r+ (the error weights of Cash–Karp scale R' by |R|/(r − r+)) */
+  /** r+ in the integrator's argument (the error weights of Cash–Karp scale R' by |R|/(r − r+)); 0 when the argument is x = r − r+ */
   rPlus: number;
   /** step limit of one advance call */
   maxSteps: number;
@@ -101,8 +101,9 @@ function odexStepper(rhs: Rhs, tol: number, maxSteps: number): Stepper {
         }
         return true;
       });
+      if (res.outcome === 1) throw new Error(`odex exceeded its step limit of ${maxSteps} steps at argument ${rLast}`);
       if (res.outcome !== 0 && !stopped) {
-        throw new Error(`odex stopped with outcome ${res.outcome} at r = ${rLast}`);
+        throw new Error(`odex stopped with outcome ${res.outcome} at argument ${rLast} (r, or r − r+ near extremality)`);
       }
       for (let i = 0; i < 4; i++) y[i] = res.y[i];
       return { r: stopped ? rLast : rEnd, steps: res.nStep, h: hLast };
@@ -127,7 +128,7 @@ function cashKarpStepper(rhs: Rhs, tol: number, rPlus: number, maxSteps: number)
       let steps = 0;
       while (integrator.step(rEnd)) {
         steps++;
-        if (steps > maxSteps) throw new Error(`cash-karp exceeded ${maxSteps} steps at r = ${integrator.t}`);
+        if (steps > maxSteps) throw new Error(`cash-karp exceeded ${maxSteps} steps at argument ${integrator.t}`);
         if (Math.abs(y[0]) + Math.abs(y[1]) > overflow) return { r: integrator.t, steps, h: integrator.dt };
       }
       steps++;

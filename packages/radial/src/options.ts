@@ -22,7 +22,7 @@ export interface RadialOptions {
   matchRadius?: number;
   /** radii (non-decreasing) at which to record R and R'; those outside the integrated range are skipped by `solveRadial` */
   grid?: readonly number[];
-  /** abort after this many steps (default 2e5) */
+  /** abort after this many steps (default 1e6: a = 0.99999 M, Mω = 30, |m| = 150 was measured at 1.8e5) */
   maxSteps?: number;
   /** ODE integrator (default 'odex') */
   integrator?: IntegratorName;
@@ -67,7 +67,7 @@ export interface ResolvedOptions {
 /** Defaults of the options that have one. */
 export const RADIAL_DEFAULTS: Readonly<Pick<ResolvedOptions, 'tol' | 'maxSteps' | 'integrator' | 'variable' | 'reflection'>> = {
   tol: 1e-12,
-  maxSteps: 200_000,
+  maxSteps: 1_000_000,
   integrator: INTEGRATORS[0],
   variable: RADIAL_VARIABLES[0],
   reflection: true,

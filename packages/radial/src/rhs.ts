@@ -50,16 +50,18 @@ function packCoefficients(eq: RadialEquation): Float64Array {
 }
 
 /**
- * The right-hand side of `eq`, counting its calls in `counter`. The
+ * The right-hand side of `eq`, counting its calls in `counter`; its argument
+ * is the radius minus `origin` (default 0: the argument is r itself). The
  * coefficient of R'' is Δ² for every equation built here, so Δ (degree 2) is
  * evaluated and squared; B and C are evaluated by Horner's rule, and a real B
  * (the unsubstituted equation) skips its imaginary part. (Measured: the
  * coefficients held in many closure variables, or a complex B throughout,
  * cost 10–25 % of a whole solve.)
  */
-export function equationRhs(eq: RadialEquation, counter: EvaluationCounter): Rhs {
+export function equationRhs(eq: RadialEquation, counter: EvaluationCounter, origin = 0): Rhs {
   if (!isSquareOfDelta(eq)) throw new Error('radial equation: the coefficient of R″ must be Δ²');
-  const c = eq.center;
+  // An argument measured from the expansion point needs no subtraction (and loses no digits to one).
+  const c = eq.center - origin;
   const k = packCoefficients(eq);
   if (eq.B.im.every((x) => x === 0)) {
     return (dy, y, r) => {

@@ -58,6 +58,7 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
     equation,
     y,
     from: r0,
+    fromOffset: start.x0,
     to: match.r,
     stops: opts.grid,
     tol: opts.tol,

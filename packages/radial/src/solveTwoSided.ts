@@ -72,12 +72,14 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
     to: number,
     stops: readonly number[],
     logScale = 0,
+    fromOffset?: number,
   ): Leg => ({
     hole,
     mode,
     equation,
     y,
     from,
+    fromOffset,
     to,
     stops,
     tol: opts.tol,
@@ -91,7 +93,9 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
 
   // −s leg: horizon → switching radius (→ far zone for Y_out).
   const y = new Float64Array([start.R[0], start.R[1], start.dR[0], start.dR[1]]);
-  const segMinus = integrateLeg(leg(minus, minusEquation, y, r0, opts.reflection ? matchMinus.r : rSwitch, [...inner, rSwitch]));
+  const segMinus = integrateLeg(
+    leg(minus, minusEquation, y, r0, opts.reflection ? matchMinus.r : rSwitch, [...inner, rSwitch], 0, start.x0),
+  );
   const minusAmps = opts.reflection
     ? matchAmplitudes(y, matchMinus.vin, matchMinus.vout)
     : { zIn: NO_AMPLITUDE, zOut: NO_AMPLITUDE };

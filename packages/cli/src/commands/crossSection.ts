@@ -5,7 +5,7 @@ import { FIELD_MASS_HELP, FIELD_MASS_OPTIONS, fieldWithMass } from '../fieldMass
 import { formatError, formatNumber, formatTable } from '../format.js';
 import { parseFieldSpin, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
 import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
-import { progressReporter } from '../progress.js';
+import { progressReporter, shellProgress } from '../progress.js';
 
 /** The CSV columns: the keys of the JSON rows. */
 const COLUMNS: Column[] = [
@@ -28,7 +28,7 @@ Geometric units (M = 1): σ in M², ω is Mω, a is a/M. For a massive field
 
 Options:
   --spin S     field spin: 0, 1/2, 1, 2
-  --a A        the hole's spin parameter a/M (|a/M| ≤ 0.9999)
+  --a A        the hole's spin parameter a/M (|a/M| ≤ 0.99999)
   --omega W    frequency Mω, or a grid START:STOP:COUNT
   ${FIELD_MASS_HELP}
   --mass M     hole mass, only to convert --field-mass from an energy unit (results stay in units of M)
@@ -67,7 +67,8 @@ Example:
     const field = fieldWithMass(spin as FieldSpin, values);
     const progress = progressReporter(io, 'cross-section: frequencies done', grid.count);
     const rows = grid.values.map((omega, i) => {
-      const r = absorptionCrossSection({ hole: { a }, field, omega }, { tol });
+      const onMode = shellProgress(io, `cross-section at Mω = ${omega}`, 5 * omega);
+      const r = absorptionCrossSection({ hole: { a }, field, omega }, { tol, onMode });
       progress(i + 1);
       const { lMax, droppedBound, modes } = r.diagnostics;
       return { omega, sigma: r.sigma, lMax, droppedBound, relError: r.relError, modes };

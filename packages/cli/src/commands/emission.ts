@@ -17,7 +17,7 @@ the hole mass M: numberRate ∝ 1/M, power ∝ 1/M², torque dJ/dt ∝ 1/M (ħ =
 With --mass they are also given in s⁻¹, W, GeV s⁻¹ and J.
 
 Options:
-  --a A         the hole's spin parameter a/M (|a/M| ≤ 0.9999)
+  --a A         the hole's spin parameter a/M (|a/M| ≤ 0.99999)
   --spin S      field spin: 0, 1/2, 1, 2
   --mass M      hole mass for physical units (with --unit, default g)
   --unit U      g, kg or msun

@@ -21,7 +21,7 @@ export const command: Command = {
   summary: 'greybody factor Γ_slm(ω), reflection and diagnostics for one mode, at one frequency or a range',
   usage: `Usage: penumbra greybody --spin S --l L --m M --a A --omega W|START:STOP:COUNT [options]
 
-Geometric units: the hole mass is 1, ω is Mω, a is a/M (|a/M| ≤ 0.9999).
+Geometric units: the hole mass is 1, ω is Mω, a is a/M (|a/M| ≤ 0.99999).
 
 Options:
   --spin S     field spin: 0, 1/2 (or 0.5), 1, 2
