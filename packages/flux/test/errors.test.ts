@@ -74,8 +74,10 @@ describe('bad input gets a typed error naming the parameter and the allowed rang
     expect(parameter(() => absorptionCrossSection({ hole: { a: 0 }, field: { spin: 0 }, omega: 0.1 }, { maxL: 500 }))).toBe(
       'maxL',
     );
-    // σ at Mω = 30 would need l > 150, beyond the l range: refused at once, not after thousands of solves.
-    expect(parameter(() => absorptionCrossSection({ hole: { a: 0.5 }, field: { spin: 0 }, omega: 30 }))).toBe('omega');
+    // σ at Mω = 30 needs l > 150, beyond a caller's maxL = 50: refused at once, not after thousands of solves.
+    expect(parameter(() => absorptionCrossSection({ hole: { a: 0.5 }, field: { spin: 0 }, omega: 30 }, { maxL: 50 }))).toBe(
+      'omega',
+    );
     expect(parameter(() => lowFrequencyGreybody(nest({ ...flatOk, omega: -1 })))).toBe('omega');
     expect(parameter(() => lowFrequencyGreybody(nest({ ...flatOk, omega: '0.1' })))).toBe('omega');
     expect(parameter(() => radialFunction(ok, ['3'] as unknown as number[]))).toBe('radii[0]');
