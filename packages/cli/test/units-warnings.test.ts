@@ -59,7 +59,12 @@ describe('one meaning of --mass, visible accuracy warnings, honest milestones, h
     expect(isInaccurate(1e-3)).toBe(false);
     expect(isInaccurate(Number.NaN)).toBe(true);
     let stderr = '';
-    const io = { stdout: () => {}, stderr: (t: string) => void (stderr += t) };
+    const io = {
+      stdout: () => {},
+      stderr: (t: string) => {
+        stderr += t;
+      },
+    };
     warnInaccurate(io, [{ what: 'lifetime', relError: 1e-5 }]);
     expect(stderr).toBe('');
     warnInaccurate(io, [

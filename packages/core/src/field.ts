@@ -73,6 +73,7 @@ export function parseFieldMass(value: unknown, parameter = 'field.mass'): number
  * a mass silently ignored would be a wrong number.
  */
 export function requireMassless(field: CheckedField, parameter = 'field.mass', what = 'this computation'): void {
+  if (typeof field !== 'object' || field === null) throw new InputError('field', 'a checked field { spin, mass }', field);
   if (field.mass !== 0) {
     throw new InputError(
       parameter,

@@ -33,6 +33,8 @@ export function validateOptions<O extends object>(options: unknown, spec: Option
 
 /** A validator accepting one of a fixed list of names (methods, integrators, units). */
 export function oneOf<T extends string>(allowed: readonly T[]): (value: unknown, parameter: string) => T {
+  if (!Array.isArray(allowed) || allowed.length === 0 || !allowed.every((a) => typeof a === 'string'))
+    throw new InputError('allowed', 'a non-empty array of strings', allowed);
   return (value, parameter) => {
     if (typeof value !== 'string' || !(allowed as readonly string[]).includes(value)) {
       throw new InputError(parameter, `one of ${allowed.map((a) => `'${a}'`).join(', ')}`, value);

@@ -10,7 +10,7 @@
  */
 import ode45 from 'ode45-cash-karp';
 import { ConvergenceError, InputError, numberIn, requireFinite, validateOptions, type Diagnostics } from '@penumbra/core';
-import { massToKg, unitScales, CODATA2018, type MassUnit } from '@penumbra/kerr';
+import { CODATA2018, PHYSICAL_MASS_RANGE_KG, requirePhysicalMass, unitScales, type MassUnit } from '@penumbra/kerr';
 import type { PageFunctions } from './pageFunctions.js';
 import { requireProblem } from './validate.js';
 
@@ -220,7 +220,13 @@ export function evolveHole(problem: EvolutionProblem, options?: EvolutionOptions
  * (Planck time × (M₀/m_P)³).
  */
 export function evolutionTimeUnitSeconds(mass: number, unit: MassUnit): number {
-  const kg = massToKg(mass, unit);
+  // t ∝ M³: below about 1e-90 kg the time unit leaves the normal double range
+  const kg = requirePhysicalMass(
+    mass,
+    unit,
+    { min: 1e-90, max: PHYSICAL_MASS_RANGE_KG.max },
+    'outside it the time unit G²M³/(ħc⁴) leaves the normal double range',
+  );
   const u = unitScales(kg);
   // t_M × (M/m_P)² with (M/m_P)² = G M²/(ħ c) = M c² t_M/ħ
   return (u.second * kg * CODATA2018.c ** 2 * u.second) / CODATA2018.hbar;
