@@ -21,7 +21,11 @@ function run(label, file, pattern) {
   const out = `${r.stdout}\n${r.stderr}`;
   const line = out.split('\n').find((l) => l.includes(pattern));
   const counts = line ? JSON.parse(line.slice(line.indexOf('{'))) : undefined;
-  const summary = out.split('\n').find((l) => /Tests\s+\d/.test(l))?.trim() ?? '(no summary)';
+  const summary =
+    out
+      .split('\n')
+      .find((l) => /Tests\s+\d/.test(l))
+      ?.trim() ?? '(no summary)';
   const seconds = ((Date.now() - t0) / 1000).toFixed(0);
   if (!counts) {
     console.log(`${label}: no outcome line (vitest exit ${r.status}); ${summary}`);

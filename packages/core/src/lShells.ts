@@ -98,7 +98,8 @@ function checkSumArguments(lFirst: unknown, rule: unknown, shell: unknown, what:
     throw new InputError('lFirst', 'an integer or half-integer in [0, 1000]', lFirst);
   const r = requireObject('rule', rule, 'an l-shell rule {lCut, tol, maxL, …}');
   // lCut may be ±Infinity (no cut, or never stop below it), not NaN
-  if (typeof r.lCut !== 'number' || Number.isNaN(r.lCut)) throw new InputError('rule.lCut', 'a number (±Infinity allowed)', r.lCut);
+  if (typeof r.lCut !== 'number' || Number.isNaN(r.lCut))
+    throw new InputError('rule.lCut', 'a number (±Infinity allowed)', r.lCut);
   const tol = requireFinite('rule.tol', r.tol, 'a number in [0, 1]');
   if (!(tol >= 0 && tol <= 1)) throw new InputError('rule.tol', 'a number in [0, 1]', tol);
   const maxL = requireFinite('rule.maxL', r.maxL, 'a number in [lFirst, lFirst + 1000]');
