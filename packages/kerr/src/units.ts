@@ -51,6 +51,13 @@ export function requirePhysicalMass(
   rangeKg: { min: number; max: number } = PHYSICAL_MASS_RANGE_KG,
   why = 'outside it the temperature, area or entropy leave the normal double range',
 ): number {
+  if (
+    typeof rangeKg !== 'object' ||
+    rangeKg === null ||
+    !(rangeKg.min > 0 && rangeKg.min <= rangeKg.max && rangeKg.max < Infinity)
+  )
+    throw new InputError('rangeKg', 'a range { min, max } with 0 < min ≤ max < Infinity', rangeKg);
+  if (typeof why !== 'string') throw new InputError('why', 'a string', why);
   const kg = massToKg(mass, unit);
   if (!(kg >= rangeKg.min && kg <= rangeKg.max)) {
     const perKg = massToKg(1, unit);
@@ -74,6 +81,9 @@ export function massToKg(mass: number, unit: MassUnit): number {
     case 'kg':
       return mass;
     case 'msun':
+      // 1e308 msun leaves the double range in kg
+      if (!Number.isFinite(mass * SOLAR_MASS_KG))
+        throw new InputError('mass', `a mass ≤ ${Number.MAX_VALUE / SOLAR_MASS_KG} msun`, mass);
       return mass * SOLAR_MASS_KG;
     default:
       throw new InputError('unit', "one of 'g', 'kg', 'msun'", unit);
