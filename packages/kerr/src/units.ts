@@ -58,9 +58,15 @@ export function requirePhysicalMass(
   )
     throw new InputError('rangeKg', 'a range { min, max } with 0 < min ≤ max < Infinity', rangeKg);
   if (typeof why !== 'string') throw new InputError('why', 'a string', why);
+  const perKg = massToKg(1, unit);
+  requireFinite('mass', mass, 'a finite number > 0');
+  // compared in the caller's unit first: 1e300 msun is out of range, not an overflow in kg
+  if (!(mass >= rangeKg.min / perKg && mass <= rangeKg.max / perKg)) {
+    const range = `${fmt(rangeKg.min / perKg)} ≤ mass ≤ ${fmt(rangeKg.max / perKg)} ${unit}`;
+    throw new InputError('mass', range, mass, why);
+  }
   const kg = massToKg(mass, unit);
   if (!(kg >= rangeKg.min && kg <= rangeKg.max)) {
-    const perKg = massToKg(1, unit);
     const range = `${fmt(rangeKg.min / perKg)} ≤ mass ≤ ${fmt(rangeKg.max / perKg)} ${unit}`;
     throw new InputError('mass', range, mass, why);
   }
