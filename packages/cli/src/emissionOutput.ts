@@ -1,5 +1,6 @@
 /** Hawking emission totals and spectra as CSV tables and as text, for `penumbra emission`. */
 import type { Cell, Column, Table } from '@penumbra/core';
+import { INACCURATE_COLUMN, isInaccurate } from './accuracy.js';
 import { formatError, formatNumber, formatTable } from './format.js';
 
 /** A total with its error estimate. */
@@ -30,6 +31,8 @@ export interface SpectrumRow {
   torque: number;
   relError: number;
   lMax: number;
+  /** relError above 1e-3 */
+  inaccurate: boolean;
   energyGeV?: number;
   perGeVPerSecond?: number;
 }
@@ -42,6 +45,7 @@ const SPECTRUM_COLUMNS: Column[] = [
   { name: 'torque', unit: '1', description: 'd²J/(dt dω) per degree of freedom' },
   { name: 'relError', unit: '1', description: "estimated relative error of 'number'" },
   { name: 'lMax', unit: '1', description: 'largest l summed' },
+  INACCURATE_COLUMN,
 ];
 /** Added with --mass. */
 const PHYSICAL_SPECTRUM_COLUMNS: Column[] = [
@@ -54,20 +58,21 @@ const TOTALS_COLUMNS: Column[] = [
   { name: 'value', unit: '', description: "the rate in the row's unit" },
   { name: 'unit', unit: '', description: 'unit of the value' },
   { name: 'relError', unit: '1', description: 'estimated relative error' },
+  INACCURATE_COLUMN,
 ];
 
 /** The totals as a table: geometric units, then physical units when given. */
 export function totalsTable(totals: Totals, physical?: PhysicalTotals): Table {
   const rows: Cell[][] = [
-    ['numberRate', totals.numberRate.value, '1/M', totals.numberRate.relError],
-    ['power', totals.power.value, '1/M^2', totals.power.relError],
-    ['torque', totals.torque.value, '1/M', totals.torque.relError],
+    ['numberRate', totals.numberRate.value, '1/M', totals.numberRate.relError, isInaccurate(totals.numberRate.relError)],
+    ['power', totals.power.value, '1/M^2', totals.power.relError, isInaccurate(totals.power.relError)],
+    ['torque', totals.torque.value, '1/M', totals.torque.relError, isInaccurate(totals.torque.relError)],
   ];
   if (physical) {
     rows.push(
-      ['numberRate', physical.numberRatePerSecond, 's^-1', totals.numberRate.relError],
-      ['power', physical.powerWatts, 'W', totals.power.relError],
-      ['torque', physical.torqueJoules, 'J', totals.torque.relError],
+      ['numberRate', physical.numberRatePerSecond, 's^-1', totals.numberRate.relError, isInaccurate(totals.numberRate.relError)],
+      ['power', physical.powerWatts, 'W', totals.power.relError, isInaccurate(totals.power.relError)],
+      ['torque', physical.torqueJoules, 'J', totals.torque.relError, isInaccurate(totals.torque.relError)],
     );
   }
   return { columns: TOTALS_COLUMNS, rows };

@@ -1,6 +1,7 @@
 /** Greybody results as JSON, as a CSV table and as text, shared by the greybody and demo commands. */
 import type { Column, Table } from '@penumbra/core';
 import type { GreybodySolution } from '@penumbra/flux';
+import { INACCURATE_COLUMN, isInaccurate } from './accuracy.js';
 import { formatError, formatNumber } from './format.js';
 
 /** One result as the JSON object of `penumbra greybody --json`. */
@@ -23,6 +24,7 @@ export function greybodyJson(r: GreybodySolution): Record<string, unknown> {
     reflection: r.reflection,
     residual: r.residual,
     relError: r.relError,
+    inaccurate: isInaccurate(r.relError),
     amplification: r.amplification,
     k: r.k,
     superradiant: r.superradiant,
@@ -50,6 +52,7 @@ const COLUMNS: Column[] = [
   { name: 'superradiant', unit: '', description: 'true where a boson wave is amplified (k < 0)' },
   { name: 'matchRadius', unit: 'M', description: 'radius where the horizon and far solutions are matched' },
   { name: 'rhsEvaluations', unit: '', description: 'right-hand-side evaluations' },
+  INACCURATE_COLUMN,
 ];
 
 /** Results as the table of `penumbra greybody --csv`. */
@@ -71,6 +74,7 @@ export function greybodyTable(results: readonly GreybodySolution[]): Table {
       r.superradiant,
       r.diagnostics.matchRadius,
       r.diagnostics.rhsEvaluations,
+      isInaccurate(r.relError),
     ]),
   };
 }

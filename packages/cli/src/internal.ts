@@ -16,7 +16,15 @@ export {
   parseRange,
   parseMassUnit,
   parseModeNumber,
+  parseMassOption,
+  parseNameList,
+  closest,
+  type MassOption,
+  type MassValues,
+  GEOMETRIC_UNIT,
 } from './options.js';
+export { ACCURACY_LIMIT, INACCURATE_COLUMN, type Estimated, isInaccurate, warnInaccurate } from './accuracy.js';
+export { type LimitName, limitsHelp } from './limits.js';
 export {
   type OutputFormat,
   type Output,

@@ -32,8 +32,61 @@ export function parseOptions<const O extends OptionsConfig>(
   try {
     return parseArgs({ args, options, strict: true, allowPositionals });
   } catch (error) {
-    throw new UsageError(conciseParseError(error));
+    throw new UsageError(withSuggestion(conciseParseError(error), options));
   }
+}
+
+/** "unknown option '--omgea'" gains "; did you mean --omega?" when one option is close. */
+function withSuggestion(message: string, options: OptionsConfig): string {
+  const unknown = /^unknown option '--([^'=]+)/.exec(message);
+  if (!unknown) return message;
+  const near = closest(unknown[1], Object.keys(options));
+  return near === undefined ? message : `${message}; did you mean --${near}?`;
+}
+
+/** Edit distance (insert, delete, substitute, swap two neighbours) between two short words. */
+function editDistance(a: string, b: string): number {
+  const d = Array.from({ length: a.length + 1 }, (_, i) =>
+    Array.from({ length: b.length + 1 }, (_, j) => (i === 0 ? j : j === 0 ? i : 0)),
+  );
+  for (let i = 1; i <= a.length; i++) {
+    for (let j = 1; j <= b.length; j++) {
+      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
+      d[i][j] = Math.min(d[i - 1][j] + 1, d[i][j - 1] + 1, d[i - 1][j - 1] + cost);
+      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) d[i][j] = Math.min(d[i][j], d[i - 2][j - 2] + 1);
+    }
+  }
+  return d[a.length][b.length];
+}
+
+/**
+ * The candidate nearest to a mistyped word, if it is near enough to be the
+ * likely intent (at most 2 edits, and fewer than half the word's letters).
+ */
+export function closest(word: string, candidates: readonly string[]): string | undefined {
+  let best: string | undefined;
+  let bestDistance = Infinity;
+  for (const c of candidates) {
+    const distance = editDistance(word.toLowerCase(), c.toLowerCase());
+    if (distance < bestDistance) [best, bestDistance] = [c, distance];
+  }
+  return bestDistance <= 2 && bestDistance < Math.max(word.length, 2) / 2 ? best : undefined;
+}
+
+/**
+ * A comma-separated list of names from `known`, e.g. --content
+ * photon,graviton; an unknown name is a UsageError listing the known ones
+ * (and the nearest one when it looks like a typo).
+ */
+export function parseNameList(option: string, text: string, known: readonly string[]): string[] {
+  const names = text.split(',').map((s) => s.trim());
+  for (const name of names) {
+    if (known.includes(name)) continue;
+    const near = closest(name, known);
+    const hint = near === undefined ? '' : `; did you mean ${near}?`;
+    throw new UsageError(`${option} expects a comma-separated list of ${known.join(', ')}, got '${name}'${hint}`);
+  }
+  return names;
 }
 
 const NEGATIVE_NUMBER = /^-(\d|\.\d|inf)/i;
@@ -163,15 +216,23 @@ export interface ParsedRange {
 }
 
 /**
- * A grid 'START:STOP:COUNT' (endpoints included) or a single value 'X'.
- * `log: true` spaces the points geometrically (START, STOP > 0). Each end
- * is checked against `constraints`.
+ * A grid 'START:STOP:COUNT' (endpoints included), a list 'X1,X2,…' (as
+ * `table` takes) or a single value 'X'. `log: true` spaces the points
+ * geometrically (START, STOP > 0). Each end (each list value) is checked
+ * against `constraints`.
  */
 export function parseRange(
   option: string,
   text: string,
   { log = false, maxCount = 100_000, ...constraints }: NumberConstraints & { log?: boolean; maxCount?: number } = {},
 ): ParsedRange {
+  if (text.includes(',')) {
+    if (text.includes(':')) throw new UsageError(`${option} expects START:STOP:COUNT or a list X1,X2,…, not both, got '${text}'`);
+    const values = parseNumberList(option, text, constraints);
+    if (values.length > maxCount) throw new UsageError(`${option} takes at most ${maxCount} values, got ${values.length}`);
+    if (log && values.some((v) => !(v > 0))) throw new UsageError(`${option} must be > 0 on a logarithmic grid, got '${text}'`);
+    return { start: values[0], stop: values[values.length - 1], count: values.length, values };
+  }
   const parts = text.split(':');
   if (parts.length === 1) {
     const value = parseNumber(option, parts[0], constraints);
@@ -193,6 +254,50 @@ export function parseRange(
 export function parseMassUnit(option: string, text: string): MassUnit {
   if ((MASS_UNITS as readonly string[]).includes(text)) return text as MassUnit;
   throw new UsageError(`${option} expects one of ${MASS_UNITS.join(', ')}, got '${text}'`);
+}
+
+/**
+ * The mass unit the command line writes for geometric units (G = c = 1, the
+ * mass only sets the length scale); `kerr` takes it, the physical commands do not.
+ */
+export const GEOMETRIC_UNIT = 'geometric';
+
+/** A hole mass from the command line: the number of --mass and the unit of --unit. */
+export interface MassOption<U extends string> {
+  mass: number;
+  unit: U;
+}
+
+/** The raw --mass and --unit of a command line. */
+export interface MassValues {
+  mass?: string;
+  unit?: string;
+}
+
+/**
+ * --mass and --unit, given together or not at all (undefined). One rule in
+ * every command: a mass always names its unit, so `--mass 1e15` alone is
+ * refused rather than read as grams in one command and as geometric units in
+ * another. `geometric` lets `kerr` take a mass in geometric units.
+ */
+export function parseMassOption(values: MassValues): MassOption<MassUnit> | undefined;
+/** The same, also taking `--unit geometric`. */
+export function parseMassOption(
+  values: MassValues,
+  options: { geometric: true },
+): MassOption<MassUnit | typeof GEOMETRIC_UNIT> | undefined;
+export function parseMassOption(
+  values: MassValues,
+  { geometric = false } = {},
+): MassOption<MassUnit | typeof GEOMETRIC_UNIT> | undefined {
+  const units: string[] = geometric ? [...MASS_UNITS, GEOMETRIC_UNIT] : [...MASS_UNITS];
+  if (values.mass === undefined && values.unit === undefined) return undefined;
+  if (values.mass === undefined) throw new UsageError('--unit needs --mass');
+  if (values.unit === undefined)
+    throw new UsageError(`--mass needs --unit (${units.join(', ')}): a mass without its unit is ambiguous`);
+  if (!units.includes(values.unit)) throw new UsageError(`--unit expects one of ${units.join(', ')}, got '${values.unit}'`);
+  const mass = parseNumber('--mass', values.mass, { min: 0, exclusive: true });
+  return { mass, unit: values.unit as MassUnit | typeof GEOMETRIC_UNIT };
 }
 
 /** A mode number that may be half-integer: '3', '-1/2', '1.5'; the physics checks live in the solvers. */

@@ -33,10 +33,12 @@ describe('penumbra emission', () => {
     const csv = (await run('emission', '--a', '0', '--spin', '0', '--omega', '0.1:0.3:3', '--tol', '1e-3', '--csv')).stdout
       .trim()
       .split('\n');
-    expect(csv[0]).toBe('omega [1/M],number [1],energy [1/M],torque [1],relError [1],lMax [1]');
+    expect(csv[0]).toBe('omega [1/M],number [1],energy [1/M],torque [1],relError [1],lMax [1],inaccurate');
     expect(csv).toHaveLength(4);
-    const cells = csv[2].split(',').map(Number);
-    expect(cells).toEqual(['omega', 'number', 'energy', 'torque', 'relError', 'lMax'].map((k) => j.spectrum[1][k]));
+    const cells = csv[2].split(',');
+    expect(cells).toEqual(
+      ['omega', 'number', 'energy', 'torque', 'relError', 'lMax', 'inaccurate'].map((k) => String(j.spectrum[1][k])),
+    );
   });
   test('the text spectrum carries every column of the JSON rows with units in the header, and E [GeV], d²N/dtdE [GeV⁻¹ s⁻¹] with --mass, each equal to the JSON value to 6 significant figures', async () => {
     const args = ['emission', '--a', '0.5', '--spin', '1', '--omega', '0.1:0.3:3', '--mass', '1e15', '--tol', '1e-3'];
@@ -61,8 +63,8 @@ describe('penumbra emission', () => {
   test('without --omega the CSV holds the totals, one row per quantity and unit, with the values of the JSON output', async () => {
     const json = JSON.parse((await run('emission', '--a', '0', '--spin', '0', '--tol', '1e-3', '--json')).stdout);
     const csv = (await run('emission', '--a', '0', '--spin', '0', '--tol', '1e-3', '--csv')).stdout.trim().split('\n');
-    expect(csv[0]).toBe('quantity,value,unit,relError [1]');
-    expect(csv[2]).toBe(`power,${json.power.value},1/M^2,${json.power.relError}`);
+    expect(csv[0]).toBe('quantity,value,unit,relError [1],inaccurate');
+    expect(csv[2]).toBe(`power,${json.power.value},1/M^2,${json.power.relError},${json.power.inaccurate}`);
   });
   test('bad input gives one readable line and exit code 2', async () => {
     for (const argv of [

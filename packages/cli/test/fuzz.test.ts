@@ -15,6 +15,8 @@ import { join } from 'node:path';
 import { run } from './helpers.js';
 
 const SEED = 20261203;
+/** bench/fuzz.bench.mjs sets PENUMBRA_FUZZ_SCALE to multiply every run count (same seed). */
+const SCALE = Math.max(1, Number(process.env.PENUMBRA_FUZZ_SCALE ?? 1) || 1);
 const work = mkdtempSync(join(tmpdir(), 'penumbra-fuzz-'));
 afterAll(() => rmSync(work, { recursive: true, force: true }));
 
@@ -162,7 +164,7 @@ describe('hostile command lines (fast-check, fixed seed)', () => {
   test.each(COMMANDS)(
     'penumbra %s: random options and hostile values exit 0, 2 or 3 with one stderr line and no stack trace (seeded)',
     async (command) => {
-      await fc.assert(fc.asyncProperty(argvFor(command), check), { seed: SEED, numRuns: RUNS[command] ?? 40 });
+      await fc.assert(fc.asyncProperty(argvFor(command), check), { seed: SEED, numRuns: (RUNS[command] ?? 40) * SCALE });
     },
   );
 
@@ -171,7 +173,7 @@ describe('hostile command lines (fast-check, fixed seed)', () => {
     async (command) => {
       await fc.assert(fc.asyncProperty(completeArgv(command), check), {
         seed: SEED,
-        numRuns: command === 'cross-section' ? 25 : 80,
+        numRuns: (command === 'cross-section' ? 25 : 80) * SCALE,
       });
     },
   );
@@ -186,12 +188,16 @@ describe('hostile command lines (fast-check, fixed seed)', () => {
         // a bare command name would run it with no options (demo computes): keep a poison token
         await check(COMMANDS.includes(argv[0]) ? [...argv, '--bogus'] : argv);
       }),
-      { seed: SEED, numRuns: 60 },
+      { seed: SEED, numRuns: 60 * SCALE },
     );
   });
 
   test('the fuzz reaches the solvers: some command lines succeed (exit 0) and many are refused (exit 2)', () => {
     console.log(`cli fuzz exit codes: ${JSON.stringify(Object.fromEntries(tally))}`);
+    // exit 0 printed a result, 2 is a refused input (UsageError or InputError), 3 a ConvergenceError
+    const classes = { finite: tally.get(0) ?? 0, InputError: tally.get(2) ?? 0, ConvergenceError: tally.get(3) ?? 0 };
+    const other = [...tally.values()].reduce((a, b) => a + b, 0) - classes.finite - classes.InputError - classes.ConvergenceError;
+    console.log(`cli fuzz outcomes: ${JSON.stringify({ ...classes, other })}`);
     expect(tally.get(0) ?? 0).toBeGreaterThan(20);
     expect(tally.get(2) ?? 0).toBeGreaterThan(200);
   });

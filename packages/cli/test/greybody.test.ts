@@ -109,7 +109,7 @@ describe('penumbra greybody', () => {
       .trim()
       .split('\n');
     expect(csv[0]).toBe(
-      'spin [1],l [1],m [1],a [M],omega [1/M],gamma [1],log10Gamma [1],reflection [1],residual [1],relError [1],k [1/M],superradiant,matchRadius [M],rhsEvaluations',
+      'spin [1],l [1],m [1],a [M],omega [1/M],gamma [1],log10Gamma [1],reflection [1],residual [1],relError [1],k [1/M],superradiant,matchRadius [M],rhsEvaluations,inaccurate',
     );
     expect(csv).toHaveLength(4);
     // Every CSV column is a JSON key (matchRadius and rhsEvaluations of the diagnostics) with the same value.
@@ -136,8 +136,10 @@ describe('penumbra cross-section', () => {
     const args = ['cross-section', '--spin', '0', '--a', '0', '--omega', '0.5', '--tol', '1e-4'];
     const json = JSON.parse((await run(...args, '--json')).stdout);
     const csv = (await run(...args, '--csv')).stdout.trim().split('\n');
-    expect(csv[0]).toBe('omega [1/M],sigma [M^2],lMax [1],droppedBound [M^2],relError [1],modes');
-    expect(csv[1]).toBe(['omega', 'sigma', 'lMax', 'droppedBound', 'relError', 'modes'].map((k) => String(json[0][k])).join(','));
+    expect(csv[0]).toBe('omega [1/M],sigma [M^2],lMax [1],droppedBound [M^2],relError [1],modes,inaccurate');
+    expect(csv[1]).toBe(
+      ['omega', 'sigma', 'lMax', 'droppedBound', 'relError', 'modes', 'inaccurate'].map((k) => String(json[0][k])).join(','),
+    );
   });
 
   test('s = 0 at a = 0 and Mω = 2 is within 5 % of the capture cross-section 27πM² (Misner, Thorne & Wheeler 1973)', async () => {

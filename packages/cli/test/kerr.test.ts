@@ -61,8 +61,11 @@ describe('penumbra kerr', () => {
     expect(negative.omegaH).toBe(-positive.omegaH);
   });
 
-  test('--mass without --unit is the geometric mass: --a 0.5 --mass 2 gives r+ = 2(1 + √0.75) to 1e-15 relative', async () => {
-    const json = JSON.parse((await run('kerr', '--a', '0.5', '--mass', '2', '--json')).stdout) as Record<string, number>;
+  test('--unit geometric takes the geometric mass: --a 0.5 --mass 2 gives r+ = 2(1 + √0.75) to 1e-15 relative', async () => {
+    const json = JSON.parse((await run('kerr', '--a', '0.5', '--mass', '2', '--unit', 'geometric', '--json')).stdout) as Record<
+      string,
+      number
+    >;
     expect(relativeError(json.rPlus, 2 * (1 + Math.sqrt(0.75)))).toBeLessThan(1e-15);
   });
 
@@ -79,11 +82,15 @@ describe('penumbra kerr', () => {
     [['kerr', '--a', 'abc'], /--a expects a finite number, got 'abc'/],
     [['kerr', '--a', 'NaN'], /--a expects a finite number/],
     [['kerr', '--a', '0.5', '--unit', 'g'], /--unit needs --mass/],
-    [['kerr', '--a', '0.5', '--mass', '1', '--unit', 'lb'], /--unit expects one of g, kg, msun, got 'lb'/],
+    [['kerr', '--a', '0.5', '--mass', '1', '--unit', 'lb'], /--unit expects one of g, kg, msun, geometric, got 'lb'/],
     [['kerr', '--a', '0.5', '--mass', '-3', '--unit', 'g'], /--mass must be > 0, got -3/],
-    [['kerr', '--a', '0.5', '--mass', '0'], /--mass must be > 0/],
+    [['kerr', '--a', '0.5', '--mass', '0', '--unit', 'geometric'], /--mass must be > 0/],
     [
-      ['kerr', '--a', '0.5', '--mass', '1e155', '--json'],
+      ['kerr', '--a', '0.5', '--mass', '2'],
+      /^penumbra: --mass needs --unit \(g, kg, msun, geometric\): a mass without its unit is ambiguous/,
+    ],
+    [
+      ['kerr', '--a', '0.5', '--mass', '1e155', '--unit', 'geometric', '--json'],
       /^penumbra: --mass must be in 1e-150 ≤ mass ≤ 1e\+150 \(geometric units\), got 1e155/,
     ],
     [['kerr', '--a', '0.5', '--mass', '1e300', '--unit', 'g', '--json'], /--mass must be in 1e-97 ≤ mass ≤ 1e\+103 g, got 1e300/],

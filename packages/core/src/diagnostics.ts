@@ -35,6 +35,7 @@ export type Attempt<S> =
  * non-convergence; any other error (a bug) still throws.
  */
 export function attempt<S>(solve: () => S): Attempt<S> {
+  if (typeof solve !== 'function') throw new InputError('solve', 'a function', solve);
   try {
     return { status: 'success', solution: solve(), message: 'converged' };
   } catch (error) {
@@ -46,5 +47,7 @@ export function attempt<S>(solve: () => S): Attempt<S> {
 
 /** Diagnostics for a result that needed no computation (e.g. an exact value). */
 export function exactDiagnostics(method: string, message = 'exact'): Diagnostics {
+  if (typeof method !== 'string') throw new InputError('method', 'a string', method);
+  if (typeof message !== 'string') throw new InputError('message', 'a string', message);
   return { method, steps: 0, rhsEvaluations: 0, errorEstimate: 0, message };
 }

@@ -51,6 +51,15 @@ function safeJson(v: unknown): string {
   }
 }
 
+/**
+ * A parameter name (or other label) given by the caller must be a string: a
+ * symbol in a template string would be a TypeError. Not re-exported by index.ts.
+ */
+export function requireLabel(label: string, value: unknown): string {
+  if (typeof value !== 'string') throw new InputError(label, 'a string', value);
+  return value;
+}
+
 /** Throw an InputError unless `x` is a finite number. */
 export function requireFinite(parameter: string, x: unknown, allowed = 'a finite number'): number {
   if (typeof x !== 'number' || !Number.isFinite(x)) throw new InputError(parameter, allowed, x);
@@ -63,8 +72,9 @@ export function requireInRange(
   x: unknown,
   min: number,
   max: number,
-  allowed = `${min} ≤ ${parameter} ≤ ${max}`,
+  allowed = `${String(min)} ≤ ${String(parameter)} ≤ ${String(max)}`,
 ): number {
+  if (typeof min !== 'number' || typeof max !== 'number') throw new InputError('min, max', 'numbers', [min, max]);
   const v = requireFinite(parameter, x, allowed);
   if (!(v >= min && v <= max)) throw new InputError(parameter, allowed, v);
   return v;
@@ -81,6 +91,7 @@ export function requireKeyedObject(
   keys: readonly string[],
   allowed = `an object { ${keys.join(', ')} }`,
 ): Record<string, unknown> {
+  requireLabel('parameter', parameter);
   const value = requireObject(parameter, x, allowed);
   for (const key of Object.keys(value)) {
     if (!keys.includes(key)) {

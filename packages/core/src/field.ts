@@ -8,7 +8,7 @@
  * signed spin weight `s` = ±spin of one equation (±1/2, ±1, ±2). "Spin" alone
  * never means the hole's a/M: that is `a` (with the mass) or `aStar` = a/M.
  */
-import { InputError, requireFinite, requireKeyedObject } from './errors.js';
+import { InputError, requireFinite, requireKeyedObject, requireLabel } from './errors.js';
 
 /** Field spins penumbra computes, in one list. */
 export const FIELD_SPINS = [0, 0.5, 1, 2] as const;
@@ -55,6 +55,7 @@ export function parseFieldSpin(value: unknown, parameter = 'spin'): FieldSpin {
 
 /** Validate a field object and return it with its spin as a number and its mass (0 if absent). */
 export function validateField(value: unknown, parameter = 'field'): CheckedField {
+  requireLabel('parameter', parameter);
   const field = requireKeyedObject(parameter, value, ['spin', 'mass'], `an object { spin, mass? } with spin ${ALLOWED}`);
   const spin = parseFieldSpin(field.spin, `${parameter}.spin`);
   return { spin, mass: field.mass === undefined ? 0 : parseFieldMass(field.mass, `${parameter}.mass`) };
@@ -73,6 +74,9 @@ export function parseFieldMass(value: unknown, parameter = 'field.mass'): number
  * a mass silently ignored would be a wrong number.
  */
 export function requireMassless(field: CheckedField, parameter = 'field.mass', what = 'this computation'): void {
+  if (typeof field !== 'object' || field === null) throw new InputError('field', 'a checked field { spin, mass }', field);
+  requireLabel('parameter', parameter);
+  requireLabel('what', what);
   if (field.mass !== 0) {
     throw new InputError(
       parameter,

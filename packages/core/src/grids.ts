@@ -3,7 +3,7 @@
  * geometric spacing; or an explicit list. Bounded in size so a typo cannot
  * start unbounded work.
  */
-import { InputError, requireFinite } from './errors.js';
+import { InputError, requireFinite, requireObject } from './errors.js';
 
 /** Largest number of points a grid may have, so a typo cannot start unbounded work. */
 export const MAX_GRID_POINTS = 1_000_000;
@@ -54,6 +54,19 @@ export function logGrid(from: number, to: number, count: number): number[] {
 
 /** The points of a frequency grid. */
 export function gridValues(grid: FrequencyGrid): number[] {
-  if ('values' in grid) return [...grid.values];
-  return grid.spacing === 'log' ? logGrid(grid.from, grid.to, grid.count) : linearGrid(grid.from, grid.to, grid.count);
+  const g = requireObject('grid', grid, 'a grid {spacing, from, to, count} or {values}');
+  if ('values' in g) {
+    if (!Array.isArray(g.values) || g.values.length > MAX_GRID_POINTS)
+      throw new InputError('grid.values', `an array of at most ${MAX_GRID_POINTS} finite numbers`, g.values);
+    return g.values.map((v, i) => requireFinite(`grid.values[${i}]`, v));
+  }
+  if (g.spacing !== 'linear' && g.spacing !== 'log') throw new InputError('grid.spacing', "'linear' or 'log'", g.spacing);
+  const [from, to, count] = [g.from, g.to, g.count] as number[];
+  try {
+    return g.spacing === 'log' ? logGrid(from, to, count) : linearGrid(from, to, count);
+  } catch (error) {
+    // name the caller's keys: grid.from rather than from
+    if (error instanceof InputError) throw new InputError(`grid.${error.parameter}`, error.allowed, error.value);
+    throw error;
+  }
 }

@@ -3,7 +3,7 @@
  * M = 1). The derived background (horizons, Ω_H, κ, T_H) is @penumbra/kerr's
  * `kerrHole`. Negative a is a hole counter-rotating relative to m > 0.
  */
-import { InputError, requireFinite, requireKeyedObject } from './errors.js';
+import { InputError, requireFinite, requireKeyedObject, requireLabel } from './errors.js';
 
 /** A Kerr hole as a caller gives it: spin parameter a and mass M (geometric units). */
 export interface Hole {
@@ -26,6 +26,9 @@ export const MAX_SOLVER_A_RATIO = 0.99999;
 
 /** Validate a hole object; `maxARatio` is the largest |a|/M accepted (strictly below 1 by default). */
 export function validateHole(value: unknown, parameter = 'hole', maxARatio = MAX_SOLVER_A_RATIO): { a: number; mass: number } {
+  requireLabel('parameter', parameter);
+  if (typeof maxARatio !== 'number' || !(maxARatio > 0 && maxARatio <= 1))
+    throw new InputError('maxARatio', 'a number in (0, 1]', maxARatio);
   const { a, mass = 1 } = requireKeyedObject(parameter, value, ['a', 'mass'], 'an object { a, mass? } with |a| < mass');
   const M = requireFinite(`${parameter}.mass`, mass, 'a finite number > 0');
   if (!(M > 0) || !Number.isFinite(M * M)) throw new InputError(`${parameter}.mass`, 'a finite number > 0 with M² finite', M);

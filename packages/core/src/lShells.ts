@@ -15,7 +15,7 @@
  * of them is, and each gets its own tail bound.
  */
 import type { Diagnostics } from './diagnostics.js';
-import { ConvergenceError } from './errors.js';
+import { ConvergenceError, InputError, requireFinite, requireObject } from './errors.js';
 
 /** When a sum over l-shells may stop, and when it has failed to converge. */
 export interface LShellRule {
@@ -78,6 +78,9 @@ function geometricTail(last: number, prev: number): { bound: number; q: number }
 
 /** Bound on the geometric tail after shells `prev`, `last`; throws if they do not decrease. */
 export function geometricTailBound(last: number, prev: number, what: string): { bound: number; q: number } {
+  requireFinite('last', last);
+  requireFinite('prev', prev);
+  if (typeof what !== 'string') throw new InputError('what', 'a string', what);
   const tail = geometricTail(last, prev);
   if (tail) return tail;
   throw new ConvergenceError(`${what}: l-shells are not decreasing`, {
@@ -123,8 +126,32 @@ export function requireLShellReach(lFirst: number, rule: LShellRule, what = 'l-s
   });
 }
 
+/** The arguments of an l-shell sum, checked for callers outside TypeScript (maxL bounds the work). */
+function checkSumArguments(lFirst: unknown, rule: unknown, shell: unknown, what: unknown): void {
+  if (typeof lFirst !== 'number' || !Number.isInteger(2 * lFirst) || lFirst < 0 || lFirst > 1000)
+    throw new InputError('lFirst', 'an integer or half-integer in [0, 1000]', lFirst);
+  const r = requireObject('rule', rule, 'an l-shell rule {lCut, tol, maxL, …}');
+  // lCut may be ±Infinity (no cut, or never stop below it), not NaN
+  if (typeof r.lCut !== 'number' || Number.isNaN(r.lCut))
+    throw new InputError('rule.lCut', 'a number (±Infinity allowed)', r.lCut);
+  const tol = requireFinite('rule.tol', r.tol, 'a number in [0, 1]');
+  if (!(tol >= 0 && tol <= 1)) throw new InputError('rule.tol', 'a number in [0, 1]', tol);
+  const maxL = requireFinite('rule.maxL', r.maxL, 'a number in [lFirst, lFirst + 1000]');
+  if (!(maxL >= lFirst && maxL <= lFirst + 1000)) throw new InputError('rule.maxL', 'a number in [lFirst, lFirst + 1000]', maxL);
+  if (r.shellsBelow !== undefined) {
+    const n = r.shellsBelow;
+    if (typeof n !== 'number' || !Number.isInteger(n) || n < 1 || n > 1000)
+      throw new InputError('rule.shellsBelow', 'an integer in [1, 1000]', n);
+  }
+  if (r.lMinToStop !== undefined) requireFinite('rule.lMinToStop', r.lMinToStop);
+  if (r.context !== undefined && typeof r.context !== 'function') throw new InputError('rule.context', 'a function', r.context);
+  if (typeof shell !== 'function') throw new InputError('shell', 'a function', shell);
+  if (typeof what !== 'string') throw new InputError('what', 'a string', what);
+}
+
 /** Sum `shell(l)` for l = lFirst, lFirst + 1, … under `rule`; see the module comment. */
 export function sumLShells(lFirst: number, rule: LShellRule, shell: (l: number) => number, what = 'l-shell sum'): LShellSum {
+  checkSumArguments(lFirst, rule, shell, what);
   const r = sumLShellVectors(lFirst, rule, (l) => [shell(l)], what);
   return {
     total: r.totals[0],
@@ -147,6 +174,7 @@ export function sumLShellVectors(
   shell: (l: number) => readonly number[],
   what = 'l-shell sum',
 ): LShellVectorSum {
+  checkSumArguments(lFirst, rule, shell, what);
   const need = rule.shellsBelow ?? 2;
   const lMinToStop = rule.lMinToStop ?? lFirst;
   requireLShellReach(lFirst, rule, what);
@@ -166,7 +194,12 @@ export function sumLShellVectors(
     });
   };
   for (let l = lFirst; l <= rule.maxL; l++) {
-    const sums = [...shell(l)];
+    const out: unknown = shell(l);
+    if (!Array.isArray(out) || out.length === 0 || !out.every((x) => typeof x === 'number' && Number.isFinite(x)))
+      fail(`${what}: shell ${l} is not a list of finite numbers`, `shell(${l}) returned ${String(out)}`);
+    const sums = [...(out as number[])];
+    if (totals.length > 0 && sums.length !== totals.length)
+      fail(`${what}: shell ${l} has ${sums.length} quantities, not ${totals.length}`, `shell(${l}) changed length`);
     if (totals.length === 0) totals.push(...sums.map(() => 0));
     for (const [d, s] of sums.entries()) totals[d] += s;
     shells.push({ l, sums });

@@ -2,7 +2,7 @@
  * Option validation shared by every solve: unknown keys and unknown method
  * names are refused with an InputError naming the key.
  */
-import { InputError, requireObject } from './errors.js';
+import { InputError, requireObject, requireLabel } from './errors.js';
 
 /** One validator per accepted key; each returns the cleaned value. */
 export type OptionSpec<O> = { [K in keyof O]-?: (value: unknown, parameter: string) => O[K] };
@@ -12,6 +12,8 @@ export type OptionSpec<O> = { [K in keyof O]-?: (value: unknown, parameter: stri
  * `options` itself may be undefined (no options). Returns a fresh object.
  */
 export function validateOptions<O extends object>(options: unknown, spec: OptionSpec<O>, context = 'options'): Partial<O> {
+  requireLabel('context', context);
+  if (typeof spec !== 'object' || spec === null) throw new InputError('spec', 'an object of validators', spec);
   if (options === undefined) return {};
   const given = requireObject(context, options, `an object with keys ${Object.keys(spec).join(', ') || '(none)'}`);
   const out: Partial<O> = {};
@@ -33,6 +35,8 @@ export function validateOptions<O extends object>(options: unknown, spec: Option
 
 /** A validator accepting one of a fixed list of names (methods, integrators, units). */
 export function oneOf<T extends string>(allowed: readonly T[]): (value: unknown, parameter: string) => T {
+  if (!Array.isArray(allowed) || allowed.length === 0 || !allowed.every((a) => typeof a === 'string'))
+    throw new InputError('allowed', 'a non-empty array of strings', allowed);
   return (value, parameter) => {
     if (typeof value !== 'string' || !(allowed as readonly string[]).includes(value)) {
       throw new InputError(parameter, `one of ${allowed.map((a) => `'${a}'`).join(', ')}`, value);

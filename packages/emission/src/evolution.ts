@@ -10,7 +10,7 @@
  */
 import ode45 from 'ode45-cash-karp';
 import { ConvergenceError, InputError, numberIn, requireFinite, validateOptions, type Diagnostics } from '@penumbra/core';
-import { massToKg, unitScales, CODATA2018, type MassUnit } from '@penumbra/kerr';
+import { CODATA2018, PHYSICAL_MASS_RANGE_KG, requirePhysicalMass, unitScales, type MassUnit } from '@penumbra/kerr';
 import type { PageFunctions } from './pageFunctions.js';
 import { requireProblem } from './validate.js';
 
@@ -59,8 +59,12 @@ export interface Evolution {
   /** lifetime in units of M₀³ (Planck units); multiply by M₀³ */
   lifetime: number;
   track: TrackPoint[];
-  /** time (units of M₀³) at which a* first falls below each threshold; NaN if never */
-  crossings: { aStar: number; time: number }[];
+  /**
+   * time (units of M₀³) at which a* first falls below each threshold; NaN if
+   * never. A threshold at or above aStar0 is no milestone: time 0 with
+   * `atStart: true` (a* starts at or below it).
+   */
+  crossings: { aStar: number; time: number; atStart: boolean }[];
   diagnostics: EvolutionDiagnostics;
 }
 
@@ -133,10 +137,14 @@ function run(fns: PageFunctions, aStar0: number, tol: number) {
   return { lifetime, track, us, steps, deriv, counter };
 }
 
-/** Time at which a* first falls below `target`, by Hermite interpolation in u between steps. */
+/**
+ * Time at which a* first falls below `target`, by Hermite interpolation in u
+ * between steps. A target at or above the starting a* gives 0: the hole starts
+ * there, and the first step would otherwise be read as a crossing.
+ */
 function crossing(r: ReturnType<typeof run>, target: number): number {
   const { track, us, deriv } = r;
-  if (track[0].aStar < target) return 0;
+  if (track[0].aStar <= target) return 0;
   for (let i = 1; i < us.length; i++) {
     if (track[i].aStar < target) {
       const u0 = us[i - 1];
@@ -186,7 +194,7 @@ export function evolveHole(problem: EvolutionProblem, options?: EvolutionOptions
   const b = run(fns, aStar0, odeTol / 2);
   const change = Math.abs(a.lifetime - b.lifetime) / b.lifetime;
   const tableError = Math.max(fns.interpolationError.f + fns.nodeError.f, fns.interpolationError.g + fns.nodeError.g);
-  const crossings = aStarThresholds.map((t) => ({ aStar: t, time: crossing(b, t) }));
+  const crossings = aStarThresholds.map((t) => ({ aStar: t, time: crossing(b, t), atStart: aStar0 <= t }));
   const diagnostics: EvolutionDiagnostics = {
     method: METHOD,
     steps: b.steps,
@@ -212,7 +220,13 @@ export function evolveHole(problem: EvolutionProblem, options?: EvolutionOptions
  * (Planck time × (M₀/m_P)³).
  */
 export function evolutionTimeUnitSeconds(mass: number, unit: MassUnit): number {
-  const kg = massToKg(mass, unit);
+  // t ∝ M³: below about 1e-90 kg the time unit leaves the normal double range
+  const kg = requirePhysicalMass(
+    mass,
+    unit,
+    { min: 1e-90, max: PHYSICAL_MASS_RANGE_KG.max },
+    'outside it the time unit G²M³/(ħc⁴) leaves the normal double range',
+  );
   const u = unitScales(kg);
   // t_M × (M/m_P)² with (M/m_P)² = G M²/(ħ c) = M c² t_M/ħ
   return (u.second * kg * CODATA2018.c ** 2 * u.second) / CODATA2018.hbar;

@@ -43,24 +43,29 @@ export function resolveContent(content: readonly SpeciesSpec[] = DEFAULT_CONTENT
   }
   const known = Object.keys(KNOWN_SPECIES).join(', ');
   const out: Species[] = [];
-  for (const spec of content) {
+  for (const [i, spec] of content.entries()) {
+    const at = `content[${i}]`;
     if (typeof spec === 'string') {
       const s = KNOWN_SPECIES[spec];
-      if (!s) throw new InputError('species', `one of ${known}, or {name, spin, dof}`, spec);
+      if (!s) throw new InputError(at, `one of ${known}, or {name, spin, dof}`, spec);
       out.push({ ...s });
       continue;
     }
     if (typeof spec !== 'object' || spec === null || typeof spec.name !== 'string') {
-      throw new InputError('species', `a name (${known}) or {name, spin, dof}`, spec);
+      throw new InputError(
+        typeof spec === 'object' && spec !== null ? `${at}.name` : at,
+        `a name (${known}) or {name, spin, dof}`,
+        spec,
+      );
     }
     const base = KNOWN_SPECIES[spec.name];
     if (!base && (spec.spin === undefined || spec.dof === undefined)) {
-      throw new InputError('species', `one of ${known}, or a new species with both spin and dof`, spec);
+      throw new InputError(at, `one of ${known}, or a new species with both spin and dof`, spec);
     }
-    const spin = parseFieldSpin(spec.spin ?? base.spin, 'species.spin');
+    const spin = parseFieldSpin(spec.spin ?? base.spin, `${at}.spin`);
     const dof = spec.dof ?? base.dof;
     if (typeof dof !== 'number' || !Number.isFinite(dof) || dof < 0) {
-      throw new InputError('dof', 'a finite number ≥ 0', dof, `species ${spec.name}`);
+      throw new InputError(`${at}.dof`, 'a finite number ≥ 0', dof, `species ${spec.name}`);
     }
     out.push({ name: spec.name, spin, dof });
   }

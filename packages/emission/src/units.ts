@@ -8,7 +8,21 @@
  * d²N/(dt dE) = N̂(ω)/(t_M E_M), where the hatted values are those of the unit
  * hole. Constants: CODATA 2018 via @penumbra/kerr.
  */
-import { CODATA2018, massToKg, unitScales, type MassUnit } from '@penumbra/kerr';
+import { InputError, requireFinite, requireObject } from '@penumbra/core';
+import { CODATA2018, requirePhysicalMass, unitScales, type MassUnit } from '@penumbra/kerr';
+
+function checkGeometricMass(geometricMass: unknown): number {
+  const M = requireFinite('geometricMass', geometricMass, 'a finite number > 0');
+  if (!(M > 0)) throw new InputError('geometricMass', 'a finite number > 0', M);
+  return M;
+}
+
+/** Every value finite, or an InputError naming `parameter` (the input whose size made it overflow). */
+function allFinite<T extends Record<string, number>>(values: T, parameter: string, given: unknown): T {
+  if (!Object.values(values).every(Number.isFinite))
+    throw new InputError(parameter, 'values whose SI conversion stays within the double range for this mass', given);
+  return values;
+}
 
 /** Rates in SI (and a few convenient) units. */
 export interface PhysicalRates {
@@ -35,21 +49,27 @@ export function toPhysicalRates(
   unit: MassUnit,
   geometricMass = 1,
 ): PhysicalRates {
-  const kg = massToKg(mass, unit);
+  const r = requireObject('rates', rates, 'rates { numberRate, power, torque }');
+  for (const key of ['numberRate', 'power', 'torque']) requireFinite(`rates.${key}`, r[key]);
+  const kg = requirePhysicalMass(mass, unit);
   const u = unitScales(kg);
-  const M = geometricMass;
+  const M = checkGeometricMass(geometricMass);
   const N = rates.numberRate * M;
   const P = rates.power * M * M;
   const J = rates.torque * M;
-  return {
-    massKg: kg,
-    numberRatePerSecond: N / u.second,
-    // u.joule = ħ/t_M is the energy unit, so energy per time unit is P·u.joule/t_M.
-    powerWatts: (P * u.joule) / u.second,
-    powerGeVPerSecond: (P * u.GeV) / u.second,
-    torqueJoules: (J * CODATA2018.hbar) / u.second,
-    torqueHbarPerSecond: J / u.second,
-  };
+  return allFinite(
+    {
+      massKg: kg,
+      numberRatePerSecond: N / u.second,
+      // u.joule = ħ/t_M is the energy unit, so energy per time unit is P·u.joule/t_M.
+      powerWatts: (P * u.joule) / u.second,
+      powerGeVPerSecond: (P * u.GeV) / u.second,
+      torqueJoules: (J * CODATA2018.hbar) / u.second,
+      torqueHbarPerSecond: J / u.second,
+    },
+    'rates',
+    rates,
+  );
 }
 
 /** d²N/(dt dE) in GeV⁻¹ s⁻¹ and E in GeV for a spectrum value of the unit hole (geometric ω = Mω). */
@@ -59,7 +79,10 @@ export function toPhysicalSpectrum(
   unit: MassUnit,
   geometricMass = 1,
 ): { energyGeV: number; perGeVPerSecond: number } {
-  const u = unitScales(massToKg(mass, unit));
-  const w = point.omega * geometricMass;
-  return { energyGeV: w * u.GeV, perGeVPerSecond: point.number / (u.second * u.GeV) };
+  const p = requireObject('point', point, 'a spectrum point { omega, number }');
+  const omega = requireFinite('point.omega', p.omega);
+  const number = requireFinite('point.number', p.number);
+  const u = unitScales(requirePhysicalMass(mass, unit));
+  const w = omega * checkGeometricMass(geometricMass);
+  return allFinite({ energyGeV: w * u.GeV, perGeVPerSecond: number / (u.second * u.GeV) }, 'point', point);
 }

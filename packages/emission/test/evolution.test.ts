@@ -68,6 +68,15 @@ describe('evaporation history', () => {
     expect(ev.lifetime).toBeLessThan(evolveHole({ functions: defaultFns, aStar0: 0 }).lifetime);
     expect(ev.diagnostics.halvedTolChange).toBeLessThan(1e-6);
   });
+  test('a threshold at or above the starting a* is no milestone: time 0 with atStart (exactly), a lower one is crossed after the start', () => {
+    const ev = evolveHole({ functions: defaultFns, aStar0: 0.5 }, { aStarThresholds: [0.6, 0.5, 0.4] });
+    expect(ev.crossings.map((c) => [c.time, c.atStart])).toEqual([
+      [0, true],
+      [0, true],
+      [ev.crossings[2].time, false],
+    ]);
+    expect(ev.crossings[2].time).toBeGreaterThan(0);
+  });
   test('interpolated f and g between nodes agree with a direct computation within the stated interpolation + node error (scalar content)', () => {
     const scalar = pageFunctions({ table, content: ['scalar'] });
     const a = 0.5; // between nodes of the θ = arcsin a* grid

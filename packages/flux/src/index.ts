@@ -9,4 +9,4 @@ export {
   type CrossSectionSolution,
   type CrossSectionDiagnostics,
 } from './crossSection.js';
-export { horizonFactor, starobinskyConstantSquared, horizonMapSquared } from './normalisation.js';
+export { horizonFactor, starobinskyConstantSquared, horizonMapSquared } from './publicNormalisation.js';

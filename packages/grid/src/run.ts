@@ -24,7 +24,11 @@ export interface Progress {
   /** estimated-cost fraction done, 0 … 1 */
   fraction: number;
   elapsedSeconds: number;
-  /** seconds left, from the cost rate so far; undefined before the first task ends */
+  /**
+   * seconds left, from the cost rate since the first task ended (worker start-up
+   * left out); undefined until enough tasks have ended to measure a rate
+   * (twice the workers, and at least 5 % of the tasks)
+   */
   etaSeconds: number | undefined;
 }
 
@@ -129,17 +133,28 @@ export async function runGrid(options: RunOptions): Promise<RunSummary> {
   const totalCost = pending.reduce((sum, c) => sum + c.cost, 0);
   let doneCost = 0;
   let doneTasks = 0;
+  // The first task's end marks the start of the rate: before it, worker start-up and module
+  // loading dominate, and an ETA from the first few tasks read minutes for a 15 s run.
+  let firstEnd: { seconds: number; fraction: number } | undefined;
+  const tasksBeforeEta = Math.max(2 * Math.max(1, workers), Math.ceil(0.05 * pendingTasks));
   const report = (cost: number) => {
     doneCost += cost;
     doneTasks++;
     const elapsedSeconds = (Date.now() - started) / 1000;
     const fraction = totalCost > 0 && doneTasks < pendingTasks ? Math.min(doneCost / totalCost, 1) : 1;
+    firstEnd ??= { seconds: elapsedSeconds, fraction };
+    const measured = fraction - firstEnd.fraction;
     options.onProgress?.({
       doneTasks,
       totalTasks: pendingTasks,
       fraction,
       elapsedSeconds,
-      etaSeconds: fraction > 0 ? (elapsedSeconds * (1 - fraction)) / fraction : undefined,
+      etaSeconds:
+        fraction === 1
+          ? 0
+          : doneTasks >= tasksBeforeEta && measured > 0
+            ? ((elapsedSeconds - firstEnd.seconds) * (1 - fraction)) / measured
+            : undefined,
     });
   };
 

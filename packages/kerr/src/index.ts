@@ -23,7 +23,9 @@ export {
   type MassUnit,
   type UnitScales,
   massToKg,
+  PHYSICAL_MASS_RANGE_KG,
+  requirePhysicalMass,
   unitScales,
 } from './units.js';
-export { type PhysicalBackground, PHYSICAL_MASS_RANGE_KG, physicalBackground } from './physical.js';
+export { type PhysicalBackground, physicalBackground } from './physical.js';
 export { retrogradeImpactParameter } from './photonOrbit.js';

@@ -85,11 +85,14 @@ export function kerrHole(hole: Hole): KerrHole {
 
 /** Throw an InputError unless `hole` is a background made by `kerrHole`. */
 export function requireKerrHole(hole: unknown, parameter = 'hole'): KerrHole {
+  const h = hole as Partial<KerrHole> | null;
   if (
-    typeof hole !== 'object' ||
-    hole === null ||
-    typeof (hole as KerrHole).rPlus !== 'number' ||
-    typeof (hole as KerrHole).kappa !== 'number'
+    typeof h !== 'object' ||
+    h === null ||
+    // a hole from kerrHole has these finite, with r+ > r− (a changed field is refused, not computed with)
+    !(['a', 'mass', 'rPlus', 'rMinus', 'kappa', 'omegaH'] as const).every((k) => Number.isFinite(h[k])) ||
+    !((h.rPlus as number) > (h.rMinus as number)) ||
+    !((h.mass as number) > 0 && Math.abs(h.a as number) < (h.mass as number))
   ) {
     throw new InputError(parameter, 'a hole background made by kerrHole({ a, mass })', hole);
   }
@@ -100,7 +103,10 @@ export function requireKerrHole(hole: unknown, parameter = 'hole'): KerrHole {
 export function delta(hole: KerrHole, r: number): number {
   requireKerrHole(hole);
   requireFinite('r', r);
-  return (r - hole.rPlus) * (r - hole.rMinus);
+  const d = (r - hole.rPlus) * (r - hole.rMinus);
+  // (r − r+)(r − r−) overflows for |r| beyond about 1e154
+  if (!Number.isFinite(d)) throw new InputError('r', 'a radius with Δ(r) in the double range (|r| ≲ 1e154)', r);
+  return d;
 }
 
 /**
@@ -116,8 +122,16 @@ export function tortoiseFromHorizonDistance(hole: KerrHole, x: number): number {
   requireKerrHole(hole);
   // NaN or x ≤ 0 lies on or inside the horizon; x = +Infinity would return Infinity silently.
   if (typeof x !== 'number' || !(x > 0 && x < Infinity)) throw new InputError('x', 'a finite number > 0 (x = r − r+)', x);
+  return checkedTortoise(hole, x, 'x');
+}
+
+/** r*(x), refused naming `parameter` where it leaves the double range (x subnormal, ln x near −745). */
+function checkedTortoise(hole: KerrHole, x: number, parameter: string): number {
   const { hi, lo } = tortoiseTerms(hole, x);
-  return hi + lo;
+  const rStar = hi + lo;
+  if (!Number.isFinite(rStar))
+    throw new InputError(parameter, 'a point whose r* is a finite double (not within a subnormal distance of r+)', x);
+  return rStar;
 }
 
 /**
@@ -181,12 +195,17 @@ export function tortoise(hole: KerrHole, r: number): number {
   requireKerrHole(hole);
   requireFinite('r', r);
   if (!(r > hole.rPlus)) throw new InputError('r', `r > r+ = ${hole.rPlus}`, r);
-  return tortoiseFromHorizonDistance(hole, r - hole.rPlus);
+  return checkedTortoise(hole, r - hole.rPlus, 'r');
 }
 
-/** Derivative of r* with respect to r: (r² + a²)/Δ. */
+/** Derivative of r* with respect to r: (r² + a²)/Δ, for r outside the outer horizon. */
 export function tortoiseDerivative(hole: KerrHole, r: number): number {
-  return (r * r + hole.a * hole.a) / delta(hole, r);
+  requireKerrHole(hole);
+  requireFinite('r', r);
+  if (!(r > hole.rPlus)) throw new InputError('r', `r > r+ = ${hole.rPlus}`, r);
+  const value = (r * r + hole.a * hole.a) / delta(hole, r);
+  if (!Number.isFinite(value)) throw new InputError('r', 'a radius whose dr*/dr is a finite double', r);
+  return value;
 }
 
 /** Result of inverting the tortoise coordinate, with its diagnostics. */
@@ -308,18 +327,26 @@ export interface NearRegion {
 /** The near-region temperatures T_L, T_R (dimensionless) and central charges c_L = c_R = 12 J of a hole; an InputError at a = 0. */
 export function nearRegion(hole: KerrHole): NearRegion {
   requireKerrHole(hole);
-  if (hole.a === 0) throw new InputError('a', 'a ≠ 0 (the near-region temperatures diverge at a = 0)', hole.a);
+  if (hole.a === 0) throw new InputError('hole.a', 'a ≠ 0 (the near-region temperatures diverge at a = 0)', hole.a);
   const { rPlus, rMinus, a } = hole;
   const J = hole.angularMomentum;
-  return {
+  const n = {
     TL: (rPlus + rMinus) / (4 * Math.PI * a),
     TR: horizonGap(hole.mass, a) / (4 * Math.PI * a),
     cL: 12 * J,
     cR: 12 * J,
   };
+  // a tiny a (subnormal, or |a/M| ≲ 1e-300) puts T_L, T_R or J outside the double range
+  if (!Object.values(n).every((v) => Number.isFinite(v) && v !== 0))
+    throw new InputError('hole.a', '|a| large enough that T_L, T_R and J are normal doubles', a);
+  return n;
 }
 
 /** Cardy entropy (π²/3)(c_L T_L + c_R T_R); equals A/4 identically. */
 export function cardyEntropy(n: NearRegion): number {
-  return ((Math.PI * Math.PI) / 3) * (n.cL * n.TL + n.cR * n.TR);
+  if (typeof n !== 'object' || n === null) throw new InputError('n', 'the result of nearRegion ({TL, TR, cL, cR})', n);
+  for (const key of ['TL', 'TR', 'cL', 'cR'] as const) requireFinite(`n.${key}`, n[key]);
+  const s = ((Math.PI * Math.PI) / 3) * (n.cL * n.TL + n.cR * n.TR);
+  if (!Number.isFinite(s)) throw new InputError('n', 'near-region values whose Cardy entropy is a finite double', n);
+  return s;
 }

@@ -1,14 +1,6 @@
 /** Background quantities of a hole in physical units. */
 import { requireKerrHole, type KerrHole } from './kerr.js';
-import { InputError } from '@penumbra/core';
-import { CODATA2018, massToKg, unitScales, type MassUnit } from './units.js';
-
-/**
- * Physical masses physicalBackground accepts, in kg. Inside it every quantity
- * (T_H ∝ 1/M up to 1e123 K, area and entropy ∝ M² down to 1e-253 m²) is a
- * normal double; outside it some would overflow to Infinity or underflow to 0.
- */
-export const PHYSICAL_MASS_RANGE_KG = { min: 1e-100, max: 1e100 } as const;
+import { CODATA2018, requirePhysicalMass, unitScales, type MassUnit } from './units.js';
 
 /** A hole's mass, temperature, horizon and time scale in SI (and GeV) units. */
 export interface PhysicalBackground {
@@ -38,12 +30,7 @@ export interface PhysicalBackground {
  */
 export function physicalBackground(hole: KerrHole, mass: number, unit: MassUnit): PhysicalBackground {
   requireKerrHole(hole);
-  const kg = massToKg(mass, unit);
-  if (!(kg >= PHYSICAL_MASS_RANGE_KG.min && kg <= PHYSICAL_MASS_RANGE_KG.max)) {
-    const perKg = massToKg(1, unit);
-    const range = `${fmt(PHYSICAL_MASS_RANGE_KG.min / perKg)} ≤ mass ≤ ${fmt(PHYSICAL_MASS_RANGE_KG.max / perKg)} ${unit}`;
-    throw new InputError('mass', range, mass, 'outside it the temperature, area or entropy leave the normal double range');
-  }
+  const kg = requirePhysicalMass(mass, unit);
   const u = unitScales(kg);
   const M = hole.mass;
   // Geometric quantities scale with the hole mass: T ∝ 1/M, lengths ∝ M.
@@ -60,8 +47,4 @@ export function physicalBackground(hole: KerrHole, mass: number, unit: MassUnit)
     entropyKB: (hole.entropy / (M * M)) * ((kg * kg * CODATA2018.G) / (CODATA2018.hbar * CODATA2018.c)),
     timeUnitSeconds: u.second,
   };
-}
-
-function fmt(x: number): string {
-  return Number(x.toPrecision(3)).toString();
 }

@@ -33,6 +33,50 @@ export type MassUnit = 'g' | 'kg' | 'msun';
 /** Every MassUnit, for validation and help texts. */
 export const MASS_UNITS: readonly MassUnit[] = ['g', 'kg', 'msun'];
 
+/**
+ * Physical masses physicalBackground accepts, in kg. Inside it every quantity
+ * (T_H ∝ 1/M up to 1e123 K, area and entropy ∝ M² down to 1e-253 m²) is a
+ * normal double; outside it some would overflow to Infinity or underflow to 0.
+ */
+export const PHYSICAL_MASS_RANGE_KG = { min: 1e-100, max: 1e100 } as const;
+
+/**
+ * A physical mass `mass` in `unit` as kilograms, refused with an InputError
+ * naming `mass` (the range given in the caller's unit) outside `rangeKg`.
+ * `why` says what leaves the double range outside it.
+ */
+export function requirePhysicalMass(
+  mass: number,
+  unit: MassUnit,
+  rangeKg: { min: number; max: number } = PHYSICAL_MASS_RANGE_KG,
+  why = 'outside it the temperature, area or entropy leave the normal double range',
+): number {
+  if (
+    typeof rangeKg !== 'object' ||
+    rangeKg === null ||
+    !(rangeKg.min > 0 && rangeKg.min <= rangeKg.max && rangeKg.max < Infinity)
+  )
+    throw new InputError('rangeKg', 'a range { min, max } with 0 < min ≤ max < Infinity', rangeKg);
+  if (typeof why !== 'string') throw new InputError('why', 'a string', why);
+  const perKg = massToKg(1, unit);
+  requireFinite('mass', mass, 'a finite number > 0');
+  // compared in the caller's unit first: 1e300 msun is out of range, not an overflow in kg
+  if (!(mass >= rangeKg.min / perKg && mass <= rangeKg.max / perKg)) {
+    const range = `${fmt(rangeKg.min / perKg)} ≤ mass ≤ ${fmt(rangeKg.max / perKg)} ${unit}`;
+    throw new InputError('mass', range, mass, why);
+  }
+  const kg = massToKg(mass, unit);
+  if (!(kg >= rangeKg.min && kg <= rangeKg.max)) {
+    const range = `${fmt(rangeKg.min / perKg)} ≤ mass ≤ ${fmt(rangeKg.max / perKg)} ${unit}`;
+    throw new InputError('mass', range, mass, why);
+  }
+  return kg;
+}
+
+function fmt(x: number): string {
+  return Number(x.toPrecision(3)).toString();
+}
+
 /** Convert a mass in the given unit to kilograms. */
 export function massToKg(mass: number, unit: MassUnit): number {
   requireFinite('mass', mass, 'a finite number > 0');
@@ -43,6 +87,9 @@ export function massToKg(mass: number, unit: MassUnit): number {
     case 'kg':
       return mass;
     case 'msun':
+      // 1e308 msun leaves the double range in kg
+      if (!Number.isFinite(mass * SOLAR_MASS_KG))
+        throw new InputError('mass', `a mass ≤ ${Number.MAX_VALUE / SOLAR_MASS_KG} msun`, mass);
       return mass * SOLAR_MASS_KG;
     default:
       throw new InputError('unit', "one of 'g', 'kg', 'msun'", unit);
@@ -72,7 +119,10 @@ export interface UnitScales {
 /** The SI scale factors for a hole of mass `massKg` (kilograms, finite and > 0). */
 export function unitScales(massKg: number): UnitScales {
   const { c, G, hbar, kB, eV } = CODATA2018;
-  if (!(massKg > 0) || !Number.isFinite(massKg)) throw new InputError('mass', 'a finite number > 0', massKg);
+  const { min, max } = PHYSICAL_MASS_RANGE_KG;
+  // outside the physical range the scales (t_M, E_M) leave the normal double range
+  if (typeof massKg !== 'number' || !(massKg >= min && massKg <= max))
+    throw new InputError('massKg', `${min} ≤ massKg ≤ ${max}`, massKg);
   const second = (G * massKg) / c ** 3;
   const joule = hbar / second;
   return {

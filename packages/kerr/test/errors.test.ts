@@ -82,7 +82,9 @@ describe('typed input errors name the parameter and its allowed range', () => {
     expect(thrown(() => massToKg(Number.NaN, 'kg')).message).toContain('NaN');
     expect(thrown(() => massToKg(1, 'lb' as MassUnit)).message).toBe(`invalid unit = "lb": allowed one of 'g', 'kg', 'msun'`);
     expect(thrown(() => physicalBackground(kerrHole({ a: 0.5 }), 0, 'g')).parameter).toBe('mass');
-    expect(thrown(() => unitScales(Number.POSITIVE_INFINITY)).parameter).toBe('mass');
+    // unitScales takes kilograms: its parameter is massKg, and its range is physicalBackground's
+    expect(thrown(() => unitScales(Number.POSITIVE_INFINITY)).parameter).toBe('massKg');
+    expect(thrown(() => unitScales(1e-300)).parameter).toBe('massKg');
   });
 
   test('physicalBackground refuses masses whose quantities leave the normal double range (1e-100 … 1e100 kg), and every value inside is finite and nonzero', () => {

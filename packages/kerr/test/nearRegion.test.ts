@@ -37,6 +37,6 @@ describe('near-region temperatures and the Cardy formula (Phys. Rev. D 82, 02400
 
   test('the near-region description needs rotation: a = 0 throws InputError naming a', () => {
     expect(() => nearRegion(kerrHole({ a: 0 }))).toThrow(InputError);
-    expect(() => nearRegion(kerrHole({ a: 0 }))).toThrow(/invalid a = 0/);
+    expect(() => nearRegion(kerrHole({ a: 0 }))).toThrow(/invalid hole.a = 0/);
   });
 });

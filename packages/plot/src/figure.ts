@@ -1,3 +1,4 @@
+import { InputError } from '@penumbra/core';
 /**
  * The figure model: named series of (x, y) points on two axes with titles,
  * units and scales, drawn as lines in one chart or in panels side by side.
@@ -151,5 +152,8 @@ export interface Figure {
 
 /** An axis title with its unit: `'ω [1/M]'`. */
 export function axisTitle(axis: Pick<Axis, 'title' | 'unit'>): string {
+  if (typeof axis !== 'object' || axis === null) throw new InputError('axis', 'an axis { title, unit? }', axis);
+  if (typeof axis.title !== 'string') throw new InputError('axis.title', 'a string', axis.title);
+  if (axis.unit !== undefined && typeof axis.unit !== 'string') throw new InputError('axis.unit', 'a string', axis.unit);
   return axis.unit ? `${axis.title} [${axis.unit}]` : axis.title;
 }

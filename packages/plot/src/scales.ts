@@ -3,6 +3,7 @@
  * logarithmic axis, and log and symmetric-log axes need ticks chosen for
  * them (Vega's own put none between the decades a reader needs).
  */
+import { InputError } from '@penumbra/core';
 import type { ScaleType } from './figure.js';
 
 /**
@@ -11,6 +12,12 @@ import type { ScaleType } from './figure.js';
  * that span, or with fewer than two nonzero values, `'linear'`.
  */
 export function autoScale(values: readonly number[], minSpan = 100): ScaleType {
+  if (!Array.isArray(values)) throw new InputError('values', 'an array of finite numbers', values);
+  values.forEach((v, i) => {
+    if (typeof v !== 'number' || !Number.isFinite(v)) throw new InputError(`values[${i}]`, 'a finite number', v);
+  });
+  if (typeof minSpan !== 'number' || !(minSpan >= 1 && minSpan < Infinity))
+    throw new InputError('minSpan', 'a finite number ≥ 1', minSpan);
   const magnitudes = values.map(Math.abs).filter((v) => v > 0);
   if (magnitudes.length < 2) return 'linear';
   const span = largest(magnitudes) / smallest(magnitudes);

@@ -120,6 +120,7 @@ const figureSpec: OptionSpec<Figure> = {
 
 /** Check a figure (see `Figure`) and return a clean copy; throws InputError naming the first bad key. */
 export function validateFigure(value: unknown, parameter = 'figure'): Figure {
+  if (typeof parameter !== 'string') throw new InputError('parameter', 'a string', parameter);
   const figure = object<Figure>(figureSpec, ['x', 'y'])(value, parameter);
   if ((figure.series === undefined) === (figure.panels === undefined)) {
     throw new InputError(

@@ -17,6 +17,7 @@ import {
   type FieldSpin,
   type OptionSpec,
   requireMassless,
+  requireKeyedObject,
 } from '@penumbra/core';
 import type { ModeProblem, PotentialKind } from './potentials.js';
 
@@ -100,14 +101,10 @@ export function validateIntegrationOptions(options: unknown): IntegrationOptions
 
 const KEYS = ['field', 'l', 'omega', 'mass'];
 
-/** Validate a problem; InputErrors name the key as the caller wrote it ('field.spin', 'l', 'omega', 'mass'). */
+/** Validate a problem; InputErrors name the key as the caller wrote it ('field.spin', 'l', 'omega', 'mass'; an unknown key as 'problem.key'). */
 export function validateProblem(problem: unknown): Omit<ModeProblem, 'diracSign'> & { spin: FieldSpin; fieldMass: number } {
-  if (typeof problem !== 'object' || problem === null || Array.isArray(problem)) {
-    throw new InputError('problem', 'an object { field: { spin }, l, omega, mass? }', problem);
-  }
-  for (const key of Object.keys(problem)) {
-    if (!KEYS.includes(key)) throw new InputError(key, `one of the keys ${KEYS.join(', ')}`, key, 'unknown key');
-  }
+  // core's check: an unknown key is named problem.key
+  requireKeyedObject('problem', problem, KEYS, 'an object { field: { spin }, l, omega, mass? }');
   const q = problem as { field?: unknown; l?: unknown; omega?: unknown; mass?: unknown };
   const field = validateField(q.field, 'field');
   // The massive Klein–Gordon potential is here (massiveSeries.ts); other massive spins are not.

@@ -32,7 +32,7 @@ describe('input validation throws InputError naming the parameter', () => {
     ['omega', { field: { spin: 0 }, l: 0, omega: Number.NaN }],
     ['omega', { field: { spin: 0 }, l: 0, omega: Number.POSITIVE_INFINITY }],
     ['mass', { field: { spin: 0 }, l: 0, omega: 0.1, mass: 0 }],
-    ['m', { field: { spin: 0 }, l: 0, m: 0, omega: 0.1 }],
+    ['problem.m', { field: { spin: 0 }, l: 0, m: 0, omega: 0.1 }],
   ];
   for (const [parameter, problem] of bad) {
     it(`rejects ${parameter} in ${show(problem)}`, () => {

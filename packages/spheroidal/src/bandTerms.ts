@@ -1,5 +1,5 @@
 import { cosDiagonal, cosOffDiagonal } from './coupling.js';
-import { sphericalEigenvalue } from './quantum.js';
+import { sphericalA0 } from './quantum.js';
 
 /**
  * The c-independent pieces of the spectral matrix
@@ -51,7 +51,7 @@ export function bandTerms(s: number, m: number, lFirst: number, stride: 1 | 2, s
   for (let i = 0; i < n; i++) {
     const j = stride * i;
     const aPrev = j === 0 ? aBelow : a[j - 1];
-    spherical[i] = sphericalEigenvalue(s, lFirst + j);
+    spherical[i] = sphericalA0(s, lFirst + j);
     x2Diagonal[i] = aPrev * aPrev + b[j] * b[j] + a[j] * a[j];
     xDiagonal[i] = b[j];
     const x2Skip = a[j] * a[j + 1]; // ⟨l|X²|l+2⟩

@@ -16,7 +16,7 @@ import {
 } from './complexProblem.js';
 import { failureDiagnostics, type Tally } from './diagnostics.js';
 import { solveMode } from './eigenvalue.js';
-import { lowestL, sphericalEigenvalue } from './quantum.js';
+import { lowestL, sphericalA0 } from './quantum.js';
 import { estimateSize } from './spectral.js';
 
 /** How a complex-c eigenvalue was obtained (core's Diagnostics plus the path and check details). */
@@ -98,7 +98,7 @@ export function spheroidalEigenvalueComplex(
   const tally: Tally = { evaluations: real.result.diagnostics.rhsEvaluations };
   const { lFirst, stride, index } = basisLayout(s, l, m);
   const absC = Math.hypot(c.re, c.im);
-  const coldGuess = sphericalEigenvalue(s, l) - 0.5 * absC * absC;
+  const coldGuess = sphericalA0(s, l) - 0.5 * absC * absC;
   let size = Math.max(estimateSize(s, m, absC, lFirst, stride, index, coldGuess), index + 3, real.spectral?.band.size ?? 0);
   let spectralIterations = 0;
   const fail = (message: string, detail: string, extra: object) =>

@@ -60,17 +60,22 @@ function parseComplexC(value: unknown): ComplexValue {
   try {
     z = new Complex(value as ComplexValue);
   } catch {
-    throw new InputError('c', 'a complex number { re, im }', value);
+    throw new InputError('problem.c', 'a complex number { re, im }', value);
   }
   if (value === null || value === undefined || typeof value === 'boolean' || !Number.isFinite(z.re) || !Number.isFinite(z.im)) {
-    throw new InputError('c', 'a finite complex number { re, im }', value);
+    throw new InputError('problem.c', 'a finite complex number { re, im }', value);
   }
   const re = z.re;
   const im = z.im;
-  if (Math.hypot(re, im) > MAX_COMPLEX_C) throw new InputError('c', `|c| ≤ ${MAX_COMPLEX_C}`, { re, im });
+  if (Math.hypot(re, im) > MAX_COMPLEX_C) throw new InputError('problem.c', `|c| ≤ ${MAX_COMPLEX_C}`, { re, im });
   if (Math.abs(im) > MAX_COMPLEX_ARG_RATIO * Math.abs(re)) {
-    throw new InputError('c', `|Im c| ≤ |Re c|`, { re, im }, 'the continuation from the real axis is verified only there');
+    throw new InputError(
+      'problem.c',
+      `|Im c| ≤ |Re c|`,
+      { re, im },
+      'the continuation from the real axis is verified only there',
+    );
   }
-  if (Math.abs(im) > MAX_COMPLEX_IM_C) throw new InputError('c', `|Im c| ≤ ${MAX_COMPLEX_IM_C}`, { re, im });
+  if (Math.abs(im) > MAX_COMPLEX_IM_C) throw new InputError('problem.c', `|Im c| ≤ ${MAX_COMPLEX_IM_C}`, { re, im });
   return { re, im };
 }

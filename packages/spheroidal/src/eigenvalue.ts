@@ -1,4 +1,4 @@
-import { ConvergenceError, requireFinite, type Diagnostics } from '@penumbra/core';
+import { ConvergenceError, InputError, requireFinite, type Diagnostics } from '@penumbra/core';
 import { basisLayout, buildBand } from './band.js';
 import { failureDiagnostics, type Tally } from './diagnostics.js';
 import { leaverRoot } from './leaver.js';
@@ -8,7 +8,7 @@ import {
   validateSpheroidalOptions,
   validateSpheroidalProblem,
 } from './problem.js';
-import { lowestL, sphericalEigenvalue } from './quantum.js';
+import { lowestL, sphericalA0 } from './quantum.js';
 import {
   type SpectralSolution,
   estimateSize,
@@ -119,7 +119,7 @@ export function solveMode(problem: unknown, options: unknown): SolvedMode {
   }
 
   if (c === 0) {
-    const A = sphericalEigenvalue(s, l);
+    const A = sphericalA0(s, l);
     const result: SpheroidalEigenvalue = {
       s,
       l,
@@ -147,7 +147,7 @@ export function solveMode(problem: unknown, options: unknown): SolvedMode {
   // solves work on the same band (see `settle`).
   // Six terms beyond the estimate: a failed tail check costs a second bisection,
   // six more terms cost little (measured on the bench workload).
-  const size = Math.max(estimateSize(s, m, c, lFirst, stride, index, sphericalEigenvalue(s, l) - 0.5 * c * c) + 6, index + 3);
+  const size = Math.max(estimateSize(s, m, c, lFirst, stride, index, sphericalA0(s, l) - 0.5 * c * c) + 6, index + 3);
   let spectral: SpectralSolution | null = null;
   if (previous) {
     const prevA = previous.result.A;
@@ -327,5 +327,11 @@ export function radialSeparationConstant(A: number, a: number, omega: number, m:
   requireFinite('a', a);
   requireFinite('omega', omega);
   requireFinite('m', m);
-  return A + a * a * omega * omega - 2 * a * m * omega;
+  const lambda = A + a * a * omega * omega - 2 * a * m * omega;
+  if (!Number.isFinite(lambda)) {
+    // overflow: name the largest argument
+    const [name, value] = Object.entries({ A, a, omega, m }).reduce((x, y) => (Math.abs(y[1]) > Math.abs(x[1]) ? y : x));
+    throw new InputError(name, 'values whose λ = A + a²ω² − 2amω is a finite double', value);
+  }
+  return lambda;
 }

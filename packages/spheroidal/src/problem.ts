@@ -1,10 +1,20 @@
 /**
  * The real-c spheroidal problem and its options, with their validation.
  *
- * Parameters are named as the caller wrote them ('s', 'l', 'm', 'c'), so an
- * InputError points at the offending key of the problem object.
+ * Parameters are named as the caller wrote them ('problem.s', 'problem.l',
+ * 'problem.m', 'problem.c'), so an InputError points at the offending key of
+ * the problem object.
  */
-import { InputError, MAX_L, SPIN_WEIGHTS, isBoolean, oneOf, validateOptions, type OptionSpec } from '@penumbra/core';
+import {
+  InputError,
+  MAX_L,
+  SPIN_WEIGHTS,
+  isBoolean,
+  oneOf,
+  requireKeyedObject,
+  validateOptions,
+  type OptionSpec,
+} from '@penumbra/core';
 
 /** Largest |c| accepted for real c (tests and bench cover |c| ≤ 40). */
 export const MAX_REAL_C = 40;
@@ -77,29 +87,30 @@ export function validateSpheroidalOptions(options: unknown): Readonly<Required<S
 const SPIN_WEIGHT_TEXT = 'one of −2, −1, −1/2, 0, 1/2, 1, 2 (SPIN_WEIGHTS)';
 
 /**
- * Validate a problem object with the keys `keys` (unknown keys refused) and
- * its mode numbers (s, l, m); c is validated by the caller.
+ * Validate a problem object with the keys `keys` (unknown keys refused by
+ * core's requireKeyedObject) and its mode numbers (s, l, m); c is validated
+ * by the caller. Errors name `${parameter}.key` (problem.l), or the bare key
+ * when `parameter` is '' (the numbers were the caller's own arguments).
  */
-export function validateModeNumbers(problem: unknown, keys: readonly string[]): { s: number; l: number; m: number } {
-  if (typeof problem !== 'object' || problem === null || Array.isArray(problem)) {
-    throw new InputError('problem', `an object { ${keys.join(', ')} }`, problem);
-  }
-  for (const key in problem) {
-    if (Object.hasOwn(problem, key) && !keys.includes(key)) {
-      throw new InputError(key, `one of the keys ${keys.join(', ')}`, key, 'unknown key');
-    }
-  }
+export function validateModeNumbers(
+  problem: unknown,
+  keys: readonly string[],
+  parameter = 'problem',
+): { s: number; l: number; m: number } {
+  const name = (key: string) => (parameter ? `${parameter}.${key}` : key);
+  if (parameter) requireKeyedObject(parameter, problem, keys);
   const { s, l, m } = problem as { s?: unknown; l?: unknown; m?: unknown };
-  if (typeof s !== 'number' || !(SPIN_WEIGHTS as readonly number[]).includes(s)) throw new InputError('s', SPIN_WEIGHT_TEXT, s);
+  if (typeof s !== 'number' || !(SPIN_WEIGHTS as readonly number[]).includes(s))
+    throw new InputError(name('s'), SPIN_WEIGHT_TEXT, s);
   if (typeof l !== 'number' || !Number.isFinite(l) || !Number.isInteger(l - s)) {
-    throw new InputError('l', `a number with l − s an integer (s = ${s})`, l);
+    throw new InputError(name('l'), `a number with l − s an integer (s = ${s})`, l);
   }
-  if (l < Math.abs(s)) throw new InputError('l', `l ≥ |s| = ${Math.abs(s)}`, l);
-  if (l > MAX_L) throw new InputError('l', `l ≤ ${MAX_L}`, l);
+  if (l < Math.abs(s)) throw new InputError(name('l'), `l ≥ |s| = ${Math.abs(s)}`, l);
+  if (l > MAX_L) throw new InputError(name('l'), `l ≤ ${MAX_L}`, l);
   if (typeof m !== 'number' || !Number.isFinite(m) || !Number.isInteger(m - s)) {
-    throw new InputError('m', `a number with m − s an integer (s = ${s})`, m);
+    throw new InputError(name('m'), `a number with m − s an integer (s = ${s})`, m);
   }
-  if (Math.abs(m) > l) throw new InputError('m', `|m| ≤ l = ${l}`, m);
+  if (Math.abs(m) > l) throw new InputError(name('m'), `|m| ≤ l = ${l}`, m);
   return { s, l, m };
 }
 
@@ -109,7 +120,7 @@ const REAL_KEYS = ['s', 'l', 'm', 'c'] as const;
 export function validateSpheroidalProblem(problem: unknown): { s: number; l: number; m: number; c: number } {
   const { s, l, m } = validateModeNumbers(problem, REAL_KEYS);
   const c = (problem as { c?: unknown }).c;
-  if (typeof c !== 'number' || !Number.isFinite(c)) throw new InputError('c', 'a finite real number', c);
-  if (Math.abs(c) > MAX_REAL_C) throw new InputError('c', `|c| ≤ ${MAX_REAL_C}`, c);
+  if (typeof c !== 'number' || !Number.isFinite(c)) throw new InputError('problem.c', 'a finite real number', c);
+  if (Math.abs(c) > MAX_REAL_C) throw new InputError('problem.c', `|c| ≤ ${MAX_REAL_C}`, c);
   return { s, l, m, c };
 }

@@ -1,6 +1,6 @@
 import { cosDiagonal, cosOffDiagonal } from './coupling.js';
 import { validateModeNumbers } from './problem.js';
-import { sphericalEigenvalue } from './quantum.js';
+import { sphericalA0 } from './quantum.js';
 
 /**
  * Small-c series A = A₀ + A₁c + A₂c² + O(c³) from Rayleigh–Schrödinger
@@ -14,8 +14,8 @@ import { sphericalEigenvalue } from './quantum.js';
  * with h(l) = ⟨l|x|l−1⟩² = (l² − m²)(l² − s²)/(l²(2l − 1)(2l + 1)).
  */
 export function smallCSeries(s: number, l: number, m: number): [number, number, number] {
-  validateModeNumbers({ s, l, m }, ['s', 'l', 'm']);
-  const A0 = sphericalEigenvalue(s, l);
+  validateModeNumbers({ s, l, m }, ['s', 'l', 'm'], '');
+  const A0 = sphericalA0(s, l);
   const diag = cosDiagonal(l, m, s);
   const hUp = cosOffDiagonal(l, m, s) ** 2; // h(l+1)
   const hDown = cosOffDiagonal(l - 1, m, s) ** 2; // h(l), zero at l = lmin

@@ -3,7 +3,7 @@ import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { type Band, BandFactor, bandMultiply, bandQuadratic, buildBand } from './band.js';
 import { cosDiagonal, cosOffDiagonal } from './coupling.js';
 import { failureDiagnostics, type Tally } from './diagnostics.js';
-import { sphericalEigenvalue } from './quantum.js';
+import { sphericalA0 } from './quantum.js';
 
 /** Trailing coefficients of a normalised eigenvector must be below this. */
 export const TAIL_TOLERANCE = 1e-16;
@@ -49,7 +49,7 @@ export function estimateSize(
     } else {
       coupling = c2 * a0 * a1;
     }
-    const gap = Math.max(Math.abs(sphericalEigenvalue(s, l + stride) - c2 * 0.5 - aGuess), 1);
+    const gap = Math.max(Math.abs(sphericalA0(s, l + stride) - c2 * 0.5 - aGuess), 1);
     const ratio = coupling / gap;
     logAmp += Math.log(Math.max(ratio, 1e-300));
     if (i >= index + 2 && ratio < 0.5 && logAmp < Math.log(1e-22)) return i + 4;

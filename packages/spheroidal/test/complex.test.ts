@@ -139,14 +139,14 @@ describe('spheroidalEigenvalueComplex', () => {
 
   it('throws InputError for c outside |c| ≤ 10, |Im c| ≤ |Re c|, |Im c| ≤ 4, non-finite or malformed c, and bad mode numbers', () => {
     const bad: [unknown, string][] = [
-      [{ re: 10, im: 0.5 }, 'c'],
-      [{ re: 1, im: 1.5 }, 'c'],
-      [{ re: 0, im: 0.1 }, 'c'],
-      [{ re: 6, im: 4.5 }, 'c'],
-      [{ re: Number.NaN, im: 0 }, 'c'],
-      [{ re: 1, im: Infinity }, 'c'],
-      [null, 'c'],
-      ['not a number', 'c'],
+      [{ re: 10, im: 0.5 }, 'problem.c'],
+      [{ re: 1, im: 1.5 }, 'problem.c'],
+      [{ re: 0, im: 0.1 }, 'problem.c'],
+      [{ re: 6, im: 4.5 }, 'problem.c'],
+      [{ re: Number.NaN, im: 0 }, 'problem.c'],
+      [{ re: 1, im: Infinity }, 'problem.c'],
+      [null, 'problem.c'],
+      ['not a number', 'problem.c'],
     ];
     for (const [c, parameter] of bad) {
       let caught: unknown;

@@ -15,7 +15,7 @@ function parameterOf(call: () => unknown): string | undefined {
 }
 
 describe('the solve contract of the spheroidal solves', () => {
-  it('refuses a missing or malformed problem with an InputError naming the parameter the caller gave', () => {
+  it('refuses a missing or malformed problem with an InputError naming the parameter the caller gave (problem.l, an unknown key as problem.a)', () => {
     const solves = [
       (p: unknown) => spheroidalEigenvalue(p as never),
       (p: unknown) => spheroidalHarmonic(p as never),
@@ -24,10 +24,10 @@ describe('the solve contract of the spheroidal solves', () => {
     for (const solve of solves) {
       expect(parameterOf(() => solve(null))).toBe('problem');
       expect(parameterOf(() => solve('s=0'))).toBe('problem');
-      expect(parameterOf(() => solve({ s: 0, l: 2, m: 0, c: 1, a: 0.9 }))).toBe('a');
-      expect(parameterOf(() => solve({ s: '0', l: 2, m: 0, c: 1 }))).toBe('s');
-      expect(parameterOf(() => solve({ s: 0, l: Number.NaN, m: 0, c: 1 }))).toBe('l');
-      expect(parameterOf(() => solve({ s: 0, l: 2, m: '0', c: 1 }))).toBe('m');
+      expect(parameterOf(() => solve({ s: 0, l: 2, m: 0, c: 1, a: 0.9 }))).toBe('problem.a');
+      expect(parameterOf(() => solve({ s: '0', l: 2, m: 0, c: 1 }))).toBe('problem.s');
+      expect(parameterOf(() => solve({ s: 0, l: Number.NaN, m: 0, c: 1 }))).toBe('problem.l');
+      expect(parameterOf(() => solve({ s: 0, l: 2, m: '0', c: 1 }))).toBe('problem.m');
     }
   });
 

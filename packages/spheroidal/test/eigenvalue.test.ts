@@ -113,17 +113,17 @@ describe('spheroidalEigenvalue', () => {
 
   it('throws InputError for bad spin, l, m and c', () => {
     const bad: [object, string][] = [
-      [{ s: 1.5, l: 2.5, m: 0.5, c: 1 }, 's'],
-      [{ s: 3, l: 3, m: 0, c: 1 }, 's'],
-      [{ s: -2, l: 2.5, m: 0, c: 1 }, 'l'],
-      [{ s: -2, l: 1, m: 0, c: 1 }, 'l'],
-      [{ s: -2, l: 2, m: 3, c: 1 }, 'm'],
-      [{ s: 0.5, l: 1.5, m: 1, c: 1 }, 'm'],
-      [{ s: 0, l: 2, m: 0, c: Number.NaN }, 'c'],
-      [{ s: 0, l: 2, m: 0, c: Infinity }, 'c'],
-      [{ s: 0, l: 2, m: 0, c: 1e3 }, 'c'],
-      [{ s: 0, l: 500, m: 0, c: 1 }, 'l'],
-      [{ s: 0, l: 2, m: 0, c: '1' }, 'c'],
+      [{ s: 1.5, l: 2.5, m: 0.5, c: 1 }, 'problem.s'],
+      [{ s: 3, l: 3, m: 0, c: 1 }, 'problem.s'],
+      [{ s: -2, l: 2.5, m: 0, c: 1 }, 'problem.l'],
+      [{ s: -2, l: 1, m: 0, c: 1 }, 'problem.l'],
+      [{ s: -2, l: 2, m: 3, c: 1 }, 'problem.m'],
+      [{ s: 0.5, l: 1.5, m: 1, c: 1 }, 'problem.m'],
+      [{ s: 0, l: 2, m: 0, c: Number.NaN }, 'problem.c'],
+      [{ s: 0, l: 2, m: 0, c: Infinity }, 'problem.c'],
+      [{ s: 0, l: 2, m: 0, c: 1e3 }, 'problem.c'],
+      [{ s: 0, l: 500, m: 0, c: 1 }, 'problem.l'],
+      [{ s: 0, l: 2, m: 0, c: '1' }, 'problem.c'],
     ];
     for (const [q, parameter] of bad) {
       let caught: unknown;

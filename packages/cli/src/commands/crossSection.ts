@@ -1,7 +1,9 @@
-import type { Column, FieldSpin } from '@penumbra/core';
+import { MAX_L, type Column, type FieldSpin } from '@penumbra/core';
 import { absorptionCrossSection } from '@penumbra/flux';
+import { INACCURATE_COLUMN, isInaccurate, warnInaccurate } from '../accuracy.js';
 import type { Command } from '../command.js';
 import { FIELD_MASS_HELP, FIELD_MASS_OPTIONS, fieldWithMass } from '../fieldMass.js';
+import { limitsHelp } from '../limits.js';
 import { formatError, formatNumber, formatTable } from '../format.js';
 import { parseFieldSpin, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
 import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
@@ -15,6 +17,7 @@ const COLUMNS: Column[] = [
   { name: 'droppedBound', unit: 'M^2', description: 'bound on the l-shells not summed' },
   { name: 'relError', unit: '1', description: 'estimated relative error of σ (mode errors plus dropped l-shells)' },
   { name: 'modes', unit: '', description: 'greybody solves' },
+  INACCURATE_COLUMN,
 ];
 
 /** `penumbra cross-section`. */
@@ -29,16 +32,20 @@ Geometric units (M = 1): σ in M², ω is Mω, a is a/M. For a massive field
 Options:
   --spin S     field spin: 0, 1/2, 1, 2
   --a A        the hole's spin parameter a/M (|a/M| ≤ 0.99999)
-  --omega W    frequency Mω, or a grid START:STOP:COUNT
+  --omega W    frequency Mω, a grid START:STOP:COUNT or a list W1,W2,…
   ${FIELD_MASS_HELP}
   --mass M     hole mass, only to convert --field-mass from an energy unit (results stay in units of M)
   --unit U     g, kg or msun (default g)
   --log        space a frequency grid geometrically
   --tol T      relative accuracy of each Γ and of the l-sum (default 1e-6)
-  --json       JSON array of {omega, sigma, lMax, droppedBound, relError, modes}
+  --json       JSON array of {omega, sigma, lMax, droppedBound, relError, modes, inaccurate}
   --csv        CSV with units in the header
   -h, --help   this text
 
+A σ whose estimated relative error exceeds 1e-3 prints a warning on stderr and
+carries inaccurate: true in JSON and CSV.
+
+${limitsHelp(['a', 'omega', 'tol'])}  the l-sum stops at l = ${MAX_L}; a frequency that needs more is refused before any work\n
 Example:
   penumbra cross-section --spin 0 --a 0 --omega 0.05:3:30 --csv
 `,
@@ -71,8 +78,12 @@ Example:
       const r = absorptionCrossSection({ hole: { a }, field, omega }, { tol, onMode });
       progress(i + 1);
       const { lMax, droppedBound, modes } = r.diagnostics;
-      return { omega, sigma: r.sigma, lMax, droppedBound, relError: r.relError, modes };
+      return { omega, sigma: r.sigma, lMax, droppedBound, relError: r.relError, modes, inaccurate: isInaccurate(r.relError) };
     });
+    warnInaccurate(
+      io,
+      rows.map((r) => ({ what: `σ at Mω = ${r.omega}`, relError: r.relError })),
+    );
     writeOutput(io, format, {
       json: () => rows,
       csv: () => ({ columns: COLUMNS, rows: rows.map((r) => COLUMNS.map((c) => r[c.name as keyof typeof r])) }),

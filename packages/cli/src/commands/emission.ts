@@ -1,8 +1,10 @@
 import type { FieldSpin } from '@penumbra/core';
 import { emissionSpectrum, emissionTotals, toPhysicalRates, toPhysicalSpectrum } from '@penumbra/emission';
+import { isInaccurate, warnInaccurate } from '../accuracy.js';
 import type { Command } from '../command.js';
+import { limitsHelp } from '../limits.js';
 import { emissionText, spectrumTable, totalsTable } from '../emissionOutput.js';
-import { parseFieldSpin, parseMassUnit, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
+import { parseFieldSpin, parseMassOption, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
 import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
 import { progressReporter } from '../progress.js';
 
@@ -19,15 +21,17 @@ With --mass they are also given in s⁻¹, W, GeV s⁻¹ and J.
 Options:
   --a A         the hole's spin parameter a/M (|a/M| ≤ 0.99999)
   --spin S      field spin: 0, 1/2, 1, 2
-  --mass M      hole mass for physical units (with --unit, default g)
-  --unit U      g, kg or msun
+  --mass M      hole mass for physical units, always with --unit
+  --unit U      unit of --mass: g, kg or msun (solar masses)
   --omega GRID  also print the spectrum d²N/(dt dω), d²E/(dt dω), d²J/(dt dω) at Mω = START:STOP:COUNT
+                (or a list W1,W2,…)
   --tol T       relative accuracy (default 1e-6; 1e-12 … 1e-2)
-  --json        one JSON object {totals: {numberRate, power, torque: {value, relError}}, spectrum?}
+  --json        one JSON object {numberRate, power, torque: {value, relError, inaccurate}, spectrum?}
   --csv         CSV (spectrum rows if --omega is given, else the totals), units in the
                 header and the JSON keys as column names
   -h, --help    this text
 
+${limitsHelp(['a', 'omega', 'tol'])}
 Example:
   penumbra emission --a 0.7 --spin 1 --mass 1e15 --unit g --json
 `,
@@ -45,8 +49,9 @@ Example:
     const spin = parseFieldSpin('--spin', requireOption(values.spin, '--spin', 'the field spin'));
     const a = parseNumber('--a', requireOption(values.a, '--a', "the hole's a/M"));
     const tol = values.tol === undefined ? 1e-6 : parseNumber('--tol', values.tol);
-    const mass = values.mass === undefined ? undefined : parseNumber('--mass', values.mass, { min: 0, exclusive: true });
-    const unit = parseMassUnit('--unit', values.unit ?? 'g');
+    const given = parseMassOption(values);
+    const mass = given?.mass;
+    const unit = given?.unit ?? 'g';
     const grid =
       values.omega === undefined ? undefined : parseRange('--omega', values.omega, { min: 0, exclusive: true, maxCount: 10_000 });
 
@@ -67,7 +72,11 @@ Example:
           { tol, onPoint: (done) => progress?.(done) },
         )
       : undefined;
-    const pick = (x: { value: number; relError: number }) => ({ value: x.value, relError: x.relError });
+    const pick = (x: { value: number; relError: number }) => ({
+      value: x.value,
+      relError: x.relError,
+      inaccurate: isInaccurate(x.relError),
+    });
     const physical =
       mass === undefined
         ? undefined
@@ -83,9 +92,16 @@ Example:
       torque: p.torque,
       relError: p.relError,
       lMax: p.lMax,
+      inaccurate: isInaccurate(p.relError),
       ...(mass === undefined ? {} : toPhysicalSpectrum(p, mass, unit)),
     }));
 
+    warnInaccurate(io, [
+      { what: 'number rate', relError: totals.numberRate.relError },
+      { what: 'power', relError: totals.power.relError },
+      { what: 'torque', relError: totals.torque.relError },
+      ...(rows ?? []).map((r) => ({ what: `spectrum at Mω = ${r.omega}`, relError: r.relError })),
+    ]);
     writeOutput(io, format, {
       json: () => ({
         spin,

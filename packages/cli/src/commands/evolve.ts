@@ -2,16 +2,17 @@ import {
   bundledPageTable,
   evolutionTimeUnitSeconds,
   evolveHole,
+  KNOWN_SPECIES,
   pageFunctions,
   pageTable,
-  resolveContent,
   type PageTable,
 } from '@penumbra/emission';
 import type { Column } from '@penumbra/core';
 import type { Command } from '../command.js';
 import { UsageError } from '../command.js';
-import { formatNumber, formatTable } from '../format.js';
-import { parseMassUnit, parseNumber, parseNumberList, parseOptions, requireOption } from '../options.js';
+import { INACCURATE_COLUMN, isInaccurate, warnInaccurate } from '../accuracy.js';
+import { formatError, formatNumber, formatTable } from '../format.js';
+import { parseMassOption, parseNameList, parseNumber, parseNumberList, parseOptions, requireOption } from '../options.js';
 import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
 
 /** CSV columns of the track: the keys of the JSON track points (the mass in the unit of --unit). */
@@ -19,6 +20,7 @@ const trackColumns = (unit: string): Column[] => [
   { name: 'timeSeconds', unit: 's', description: 'time since the start' },
   { name: 'mass', unit, description: 'mass of the hole' },
   { name: 'aStar', unit: '1', description: "the hole's a/M" },
+  { ...INACCURATE_COLUMN, description: 'true when the lifetime (and so the times) has an estimated relative error above 1e-3' },
 ];
 
 /** `penumbra evolve`. */
@@ -33,14 +35,24 @@ a* ≤ 0.99); --table-points N recomputes a table of N nodes (slow: minutes).
 
 Options:
   --a A             the hole's initial a/M (0 … 0.99 with the shipped table)
-  --mass M          initial mass (default 1 g), with --unit g, kg or msun
-  --content LIST    species, e.g. photon,graviton,neutrino-e (default: photons, gravitons, three neutrino species)
-  --below LIST      report when a* first falls below these values (default 0.5,0.1)
+  --mass M          initial mass (default 1 g), always with --unit g, kg or msun
+  --content LIST    species, from photon, graviton, neutrino-e, neutrino-mu, neutrino-tau,
+                    scalar (default: photons, gravitons, three neutrino species)
+  --below LIST      report when a* first falls below these values, each in (0, 1);
+                    values at or above the starting a* are reported as reached
+                    at the start (default 0.5,0.1, those below the starting a*)
   --table-points N  compute a fresh f, g table with N nodes instead of the shipped one
   --points N        track points printed (default 40)
-  --json            JSON {lifetimeSeconds, lifetimeOverMassCubed, track: [{time, mass, aStar}], crossings, diagnostics}
-  --csv             the track as CSV (columns timeSeconds, mass, aStar; units in the header)
+  --json            JSON {lifetimeSeconds, lifetimeOverMassCubed, relError, inaccurate, track: [{time, mass, aStar}], crossings, diagnostics}
+  --csv             the track as CSV (columns timeSeconds, mass, aStar, inaccurate; units in the header)
+
+A lifetime whose estimated relative error (ODE and f, g table) exceeds 1e-3
+prints a warning on stderr and carries inaccurate: true.
   -h, --help        this text
+
+Limits:
+  0 ≤ a* ≤ 0.99 with the shipped table, up to 0.9999 with --table-points;
+  --table-points from 5 to 2000; masses 1e-100 … 1e100 kg (see 'penumbra kerr --help')
 
 Example:
   penumbra evolve --a 0.99 --mass 1e15 --unit g --json
@@ -58,12 +70,14 @@ Example:
     });
     const format = outputFormat(values);
     const aStar = parseNumber('--a', requireOption(values.a, '--a', "the hole's initial a/M"), { min: 0, max: 0.9999 });
-    const mass = values.mass === undefined ? 1 : parseNumber('--mass', values.mass, { min: 0, exclusive: true });
-    const unit = parseMassUnit('--unit', values.unit ?? 'g');
-    const content = values.content === undefined ? undefined : values.content.split(',').map((s) => s.trim());
-    if (content) resolveContent(content);
+    const { mass, unit } = parseMassOption(values) ?? { mass: 1, unit: 'g' };
+    const content =
+      values.content === undefined ? undefined : parseNameList('--content', values.content, Object.keys(KNOWN_SPECIES));
+    // the default milestones are those still ahead of the hole; explicit ones are all reported
     const below =
-      values.below === undefined ? [0.5, 0.1] : parseNumberList('--below', values.below, { min: 0, max: 1, exclusive: true });
+      values.below === undefined
+        ? [0.5, 0.1].filter((t) => t < aStar)
+        : parseNumberList('--below', values.below, { min: 0, max: 1, exclusive: true });
     const nPrint =
       values.points === undefined ? 40 : parseNumber('--points', values.points, { min: 2, max: 100_000, integer: true });
     let table: PageTable;
@@ -93,25 +107,35 @@ Example:
     }
     picked.push(ev.track[ev.track.length - 1]);
     const track = picked.map((p) => ({ timeSeconds: p.time * unitSeconds, mass: p.massRatio * mass, aStar: p.aStar }));
+    const relError = ev.diagnostics.errorEstimate;
+    const inaccurate = isInaccurate(relError);
     const result = {
       aStar0: aStar,
       mass0: mass,
       unit,
       lifetimeSeconds: ev.lifetime * unitSeconds,
       lifetimeOverMassCubed: ev.lifetime,
-      crossings: ev.crossings.map((c) => ({ aStar: c.aStar, timeSeconds: c.time * unitSeconds })),
+      relError,
+      inaccurate,
+      crossings: ev.crossings.map((c) => ({ aStar: c.aStar, timeSeconds: c.time * unitSeconds, atStart: c.atStart })),
       f0: fns.f(aStar),
       g0: fns.g(aStar),
       track,
       diagnostics: { ...ev.diagnostics, interpolationError: fns.interpolationError, nodeError: fns.nodeError },
     };
+    warnInaccurate(io, [{ what: `lifetime (f, g table error ${formatError(ev.diagnostics.tableError)})`, relError }]);
     writeOutput(io, format, {
       json: () => result,
-      csv: () => ({ columns: trackColumns(unit), rows: track.map((p) => [p.timeSeconds, p.mass, p.aStar]) }),
+      csv: () => ({ columns: trackColumns(unit), rows: track.map((p) => [p.timeSeconds, p.mass, p.aStar, inaccurate]) }),
       text: () =>
         `evaporation of a hole of ${formatNumber(mass, 6)} ${unit}, a* = ${aStar}\n` +
-        `lifetime: ${formatNumber(result.lifetimeSeconds, 6)} s  (${formatNumber(ev.lifetime, 8)} M₀³ in Planck units)\n` +
-        result.crossings.map((c) => `a* < ${c.aStar} after ${formatNumber(c.timeSeconds, 6)} s\n`).join('') +
+        `lifetime: ${formatNumber(result.lifetimeSeconds, 6)} s  (${formatNumber(ev.lifetime, 8)} M₀³ in Planck units; ` +
+        `rel. error ${formatError(relError)}${inaccurate ? ', above 1e-3' : ''})\n` +
+        result.crossings
+          .map((c) =>
+            c.atStart ? `a* ≤ ${c.aStar} from the start\n` : `a* < ${c.aStar} after ${formatNumber(c.timeSeconds, 6)} s\n`,
+          )
+          .join('') +
         formatTable([
           ['t [s]', `M [${unit}]`, 'a*'],
           ...track.map((p) => [formatNumber(p.timeSeconds, 6), formatNumber(p.mass, 6), formatNumber(p.aStar, 6)]),

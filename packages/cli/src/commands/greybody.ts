@@ -1,7 +1,9 @@
 import { InputError, type FieldSpin } from '@penumbra/core';
 import { greybody, type GreybodySolution, type ProcaPolarization } from '@penumbra/flux';
+import { warnInaccurate } from '../accuracy.js';
 import type { Command } from '../command.js';
 import { FIELD_MASS_HELP, FIELD_MASS_OPTIONS, fieldWithMass } from '../fieldMass.js';
+import { limitsHelp } from '../limits.js';
 import { formatTable } from '../format.js';
 import { greybodyJson, greybodyTable, greybodyTextRows } from '../greybodyTable.js';
 import { parseFieldSpin, parseModeNumber, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
@@ -28,7 +30,7 @@ Options:
   --l L        multipole, l ≥ S with l − S an integer
   --m M        azimuthal number, |m| ≤ l with m − S an integer
   --a A        the hole's spin parameter a/M; negative: counter-rotating relative to m > 0
-  --omega W    frequency Mω in [1e-5, 30], or a grid START:STOP:COUNT
+  --omega W    frequency Mω in [1e-5, 30], a grid START:STOP:COUNT or a list W1,W2,…
   ${FIELD_MASS_HELP}
   --mass M     hole mass, only to convert --field-mass from an energy unit (results stay in units of M)
   --unit U     g, kg or msun (default g)
@@ -45,7 +47,10 @@ Options:
 
 Every result carries |Γ + R − 1| (R from an independent solve of the −s field)
 and an error estimate; a mode that cannot reach --tol is an error, not a number.
+A Γ whose estimated relative error exceeds 1e-3 prints a warning on stderr and
+carries inaccurate: true in JSON and CSV.
 
+${limitsHelp(['l', 'a', 'omega', 'tol'])}
 Examples:
   penumbra greybody --spin 1 --l 1 --m 1 --a 0.9 --omega 0.3 --json
   penumbra greybody --spin 2 --l 2 --m 2 --a 0.99 --omega 0.01:2:40 --csv
@@ -90,7 +95,11 @@ Examples:
       );
       progress(i + 1);
     }
-    const single = grid.count === 1 && !omegaText.includes(':');
+    const single = grid.count === 1 && !/[:,]/.test(omegaText);
+    warnInaccurate(
+      io,
+      results.map((r) => ({ what: `Γ at Mω = ${r.omega}`, relError: r.relError })),
+    );
     writeOutput(io, format, {
       json: () => (single ? greybodyJson(results[0]) : results.map(greybodyJson)),
       csv: () => greybodyTable(results),

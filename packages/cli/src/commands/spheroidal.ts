@@ -1,5 +1,6 @@
 import { radialSeparationConstant, spheroidalHarmonic } from '@penumbra/spheroidal';
 import { UsageError, type Command } from '../command.js';
+import { limitsHelp } from '../limits.js';
 import { formatNumber } from '../format.js';
 import { parseFieldSpin, parseModeNumber, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
 import { JSON_OPTION, outputFormat, writeOutput } from '../output.js';
@@ -25,6 +26,7 @@ Options:
 
 S is normalised to ∫|S|² sinθ dθ = 1 and S/(sin^|m+s|(θ/2) cos^|m−s|(θ/2)) > 0 at θ = 0.
 
+${limitsHelp(['l', 'tol'])}
 Examples:
   penumbra spheroidal --spin -2 --l 2 --m 2 --c 1.5 --json
   penumbra spheroidal --spin 1/2 --l 1.5 --m 0.5 --a 0.9 --omega 0.4 --theta 0:3.14159:5

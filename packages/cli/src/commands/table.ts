@@ -15,6 +15,7 @@ import {
   type ShardSpec,
 } from '@penumbra/grid';
 import { UsageError, type Command } from '../command.js';
+import { limitsHelp } from '../limits.js';
 import { countsText, failuresText } from '../gridSummary.js';
 import { parseOptions } from '../options.js';
 
@@ -61,7 +62,8 @@ GRID.json holds the same as an object, e.g.
 
 Every problem with the grid, the directory or the options is reported at
 once, with exit code 2, before anything is written.
-`,
+
+${limitsHelp(['l', 'a', 'omega', 'tol'])}`,
   async run(argv, io) {
     const { values, positionals } = parseOptions(
       argv,
