@@ -2,7 +2,9 @@
  * Absorption cross-section σ(ω) = (π/k∞²) Σ_{l,m} Γ_{slm}(ω), the partial-wave
  * sum over all modes of one helicity, k∞ = √(ω² − μ²) the wavenumber at
  * infinity (= ω when massless; the s = 0 low-frequency limit σ → A_H is
- * Das, Gibbons & Mathur, Phys. Rev. Lett. 78, 417 (1997)).
+ * Das, Gibbons & Mathur, Phys. Rev. Lett. 78, 417 (1997)). A massive Dirac
+ * field averages the two signs of κ, a massive vector its three
+ * polarisations (the l = 0 monopole included), so σ is per spin state.
  *
  * l-truncation rule: sum whole l-shells (all m) from l = s upward; stop once
  * l exceeds the geometric-optics cut ω·b_max (b_max = 5M bounds the capture
@@ -118,26 +120,30 @@ export function absorptionCrossSection(problem: CrossSectionProblem, options?: C
   let modes = 0;
   let steps = 0;
   let rhsEvaluations = 0;
+  const states = polarisationStates(spin, fieldMass);
   const shell = (l: number): number => {
     // At a = 0, Γ does not depend on m: one solve per shell, times its 2l + 1 members.
     const ms = a === 0 ? [spin === 0.5 ? 0.5 : 0] : Array.from({ length: 2 * l + 1 }, (_, i) => i - l);
     const weight = a === 0 ? 2 * l + 1 : 1;
     let sum = 0;
     for (const m of ms) {
-      const r = greybody(
-        { hole: { a, mass }, mode: { field: fieldOut, l, m }, omega },
-        { ...greybodyOptions, tol, reflection: false },
-      );
-      onMode?.(r);
-      sum += weight * r.gamma;
-      errAbs += weight * Math.abs(r.gamma) * r.relError;
-      steps += r.diagnostics.steps;
-      rhsEvaluations += r.diagnostics.rhsEvaluations;
-      modes++;
+      for (const state of states(l)) {
+        const r = greybody(
+          { hole: { a, mass }, mode: { field: fieldOut, l, m, ...state.mode }, omega },
+          { ...greybodyOptions, ...state.options, tol, reflection: false },
+        );
+        onMode?.(r);
+        sum += weight * state.weight * r.gamma;
+        errAbs += weight * state.weight * Math.abs(r.gamma) * r.relError;
+        steps += r.diagnostics.steps;
+        rhsEvaluations += r.diagnostics.rhsEvaluations;
+        modes++;
+      }
     }
     return sum;
   };
-  const lFirst = spin;
+  // A massive vector has the l = 0 monopole (longitudinal); every other field starts at l = spin.
+  const lFirst = spin === 1 && fieldMass > 0 ? 0 : spin;
   // A limit of the solvers (not the caller's maxL) that the sum would exceed is refused here, before any solve.
   const rule = { lCut: omega * 5 * mass, tol, maxL };
   requireLShellReach(lFirst, rule, 'cross-section l-sum', givenMaxL === undefined ? MAX_L_LIMIT : 'the maxL option');
@@ -164,4 +170,38 @@ export function absorptionCrossSection(problem: CrossSectionProblem, options?: C
       droppedBound: scale * summed.tailBound,
     },
   };
+}
+
+/** One spin state of a mode in the unpolarised average, with what selects it. */
+interface SpinState {
+  /** share in the average over spin states */
+  weight: number;
+  /** extra mode keys (the Dirac sign) */
+  mode?: { kappaSign: 1 | -1 };
+  /** extra greybody options (the Proca polarisation) */
+  options?: Pick<GreybodyOptions, 'polarization'>;
+}
+
+/**
+ * The spin states σ averages over, per l. Massless fields and the massive
+ * scalar: one helicity, as before. A massive Dirac field: the two signs of
+ * κ at each (j, m), averaged (at μ = 0 both equal the massless s = 1/2 Γ, so
+ * σ is continuous with the one-helicity neutrino σ). A massive vector: its
+ * three polarisations averaged — odd, even-1, even-2 for l ≥ 1 and the
+ * monopole, one of the three states, at l = 0 (docs/massive-vector.md).
+ */
+function polarisationStates(spin: FieldSpin, fieldMass: number): (l: number) => SpinState[] {
+  if (fieldMass > 0 && spin === 0.5) {
+    return () => [
+      { weight: 0.5, mode: { kappaSign: 1 } },
+      { weight: 0.5, mode: { kappaSign: -1 } },
+    ];
+  }
+  if (fieldMass > 0 && spin === 1) {
+    return (l) =>
+      l === 0
+        ? [{ weight: 1 / 3, options: { polarization: 'monopole' } }]
+        : (['odd', 'even-1', 'even-2'] as const).map((polarization) => ({ weight: 1 / 3, options: { polarization } }));
+  }
+  return () => [{ weight: 1 }];
 }

@@ -27,7 +27,9 @@ export const command: Command = {
   usage: `Usage: penumbra cross-section --spin S --a A --omega W|START:STOP:COUNT [--tol T] [--json|--csv]
 
 Geometric units (M = 1): σ in M², ω is Mω, a is a/M. For a massive field
-σ = (π/k∞²) Σ Γ with k∞ = √(ω² − μ²) the wavenumber at infinity.
+σ = (π/k∞²) Σ Γ with k∞ = √(ω² − μ²) the wavenumber at infinity, per spin
+state: a massive spin-1/2 field averages the two signs of κ, a massive
+spin-1 field (a = 0 only) its three polarisations.
 
 Options:
   --spin S     field spin: 0, 1/2, 1, 2
