@@ -7,6 +7,7 @@ import { readFileSync } from 'node:fs';
 import { ConvergenceError, InputError } from '@penumbra/core';
 import { UsageError, type CliIO, type Command, type CommandEntry } from './command.js';
 import { commands } from './commands/index.js';
+import { closest } from './options.js';
 
 /** Exit code of a successful run. */
 export const EXIT_OK = 0;
@@ -84,7 +85,10 @@ export async function main(argv: string[], io: CliIO = processIO, registry: read
 }
 
 function unknownCommand(registry: readonly CommandEntry[], name: string): string {
-  return `unknown command '${name}' (commands: ${registry.map((c) => c.name).join(', ')}; see 'penumbra --help')`;
+  const names = registry.map((c) => c.name);
+  const near = closest(name, names);
+  const hint = near === undefined ? '' : `; did you mean '${near}'?`;
+  return `unknown command '${name}'${hint} (commands: ${names.join(', ')}; see 'penumbra --help')`;
 }
 
 function commandHelp(command: Command): string {

@@ -41,7 +41,21 @@ describe('penumbra emission', () => {
     );
   });
   test('the text spectrum carries every column of the JSON rows with units in the header, and E [GeV], d²N/dtdE [GeV⁻¹ s⁻¹] with --mass, each equal to the JSON value to 6 significant figures', async () => {
-    const args = ['emission', '--a', '0.5', '--spin', '1', '--omega', '0.1:0.3:3', '--mass', '1e15', '--tol', '1e-3'];
+    const args = [
+      'emission',
+      '--a',
+      '0.5',
+      '--spin',
+      '1',
+      '--omega',
+      '0.1:0.3:3',
+      '--mass',
+      '1e15',
+      '--unit',
+      'g',
+      '--tol',
+      '1e-3',
+    ];
     const j = JSON.parse((await run(...args, '--json')).stdout);
     const text = (await run(...args)).stdout.split('\n');
     const head = text.findIndex((line) => line.includes('Mω'));

@@ -57,6 +57,11 @@ describe('dispatch, help and version', () => {
     expect(result.stdout).toMatch(/^penumbra \d+\.\d+\.\d+\n$/);
   });
 
+  test('a mistyped command gets one line with exit code 2 and "did you mean \'greybody\'?"', async () => {
+    const result = await run('grebody', '--spin', '0');
+    expect(result.code).toBe(2);
+    expect(result.stderr).toMatch(/^penumbra: unknown command 'grebody'; did you mean 'greybody'\? \(commands: [^\n]*\)\n$/);
+  });
   test('an unknown command is one line on stderr with exit code 2', async () => {
     const result = await run('teleport');
     expect(result.code).toBe(2);

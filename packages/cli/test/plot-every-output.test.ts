@@ -29,14 +29,14 @@ const COMMANDS: { name: string; args: string[]; formats: ('json' | 'csv')[]; dra
   },
   {
     name: 'emission spectrum',
-    args: ['emission', '--spin', '0', '--a', '0', '--omega', '0.1:0.3:3', '--mass', '1e15', '--tol', '1e-3'],
+    args: ['emission', '--spin', '0', '--a', '0', '--omega', '0.1:0.3:3', '--mass', '1e15', '--unit', 'g', '--tol', '1e-3'],
     formats: ['json', 'csv'],
     draws: /spectra: 1 series, 3 points; log x axis, log y axis/,
   },
   { name: 'emission totals', args: ['emission', '--spin', '0', '--a', '0', '--tol', '1e-3'], formats: ['json', 'csv'] },
   {
     name: 'evolve',
-    args: ['evolve', '--a', '0.5', '--mass', '1e15', '--points', '6'],
+    args: ['evolve', '--a', '0.5', '--mass', '1e15', '--unit', 'g', '--points', '6'],
     formats: ['json', 'csv'],
     draws: /track: 3 series/,
   },

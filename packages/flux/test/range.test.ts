@@ -38,7 +38,7 @@ describe('the documented range: l up to 200, |a| up to 0.99999 M, Mω up to 30',
   }
 
   for (const spin of SPINS) {
-    it(`s = ${spin}, a = 0.99999 M: flux is conserved to 1e-8 (l = 2, m = ±2, Mω = 0.5 and 3) and Γ(l = m = 2, Mω = 0.5) agrees with a tol-1e-12 solve to 1e-8`, () => {
+    it(`s = ${spin}, a = 0.99999 M: flux is conserved to 1e-8 (l = 2, m = ±2, Mω = 0.5 and 3) and Γ(l = m = 2, Mω = 0.5) agrees with a tol-1e-11 solve to 1e-8 (1e-12 is refused there: below the rounding floor)`, () => {
       for (const [m, omega] of [
         [2, 0.5],
         [-2, 0.5],
@@ -49,7 +49,7 @@ describe('the documented range: l up to 200, |a| up to 0.99999 M, Mω up to 30',
         expect(r.residual).toBeLessThanOrEqual(1e-8);
       }
       const problem = { hole: { a: 0.99999 }, mode: { field: { spin }, ...lm(spin, 2, 2) }, omega: 0.5 };
-      const tight = greybody(problem, { tol: 1e-12, reflection: false });
+      const tight = greybody(problem, { tol: 1e-11, reflection: false });
       expect(Math.abs(greybody(problem).gamma / tight.gamma - 1)).toBeLessThanOrEqual(1e-8);
     });
   }
