@@ -2,7 +2,7 @@
 import type { FieldSpin } from '@penumbra/core';
 import { massToKg, unitScales } from '@penumbra/kerr';
 import { UsageError } from './command.js';
-import { parseMassUnit, parseNumber } from './options.js';
+import { parseMassOption, parseNumber } from './options.js';
 
 /** Help lines of --field-mass, --field-mass-unit and the hole mass they need. */
 export const FIELD_MASS_HELP = `--field-mass MU  the field's mass: Mμ in units of 1/M (default 0; spin 0 only; needs Mω > Mμ),
@@ -35,9 +35,10 @@ export function fieldMassFromOptions(values: FieldMassOptions): number {
   if (perUnit === undefined) {
     throw new UsageError(`--field-mass-unit expects one of ${Object.keys(ENERGY_UNITS).join(', ')}, got '${unitText}'`);
   }
-  if (values.mass === undefined) throw new UsageError('--field-mass-unit needs the hole mass --mass (with --unit, default g)');
-  const holeMass = parseNumber('--mass', values.mass, { min: 0, exclusive: true });
-  const scales = unitScales(massToKg(holeMass, parseMassUnit('--unit', values.unit ?? 'g')));
+  // --mass means what it means in every command: a hole mass with its --unit (no default unit).
+  const hole = parseMassOption({ mass: values.mass, unit: values.unit });
+  if (hole === undefined) throw new UsageError('--field-mass-unit needs the hole mass --mass M --unit g|kg|msun');
+  const scales = unitScales(massToKg(hole.mass, hole.unit));
   return (value * perUnit) / scales.GeV;
 }
 

@@ -37,7 +37,7 @@ Options:
   --omega W    frequency Mω, a grid START:STOP:COUNT or a list W1,W2,…
   ${FIELD_MASS_HELP}
   --mass M     hole mass, only to convert --field-mass from an energy unit (results stay in units of M)
-  --unit U     g, kg or msun (default g)
+  --unit U     g, kg or msun (required with --mass)
   --log        space a frequency grid geometrically
   --tol T      relative accuracy of each Γ and of the l-sum (default 1e-6)
   --json       JSON array of {omega, sigma, lMax, droppedBound, relError, modes, inaccurate}

@@ -33,7 +33,7 @@ Options:
   --omega W    frequency Mω in [1e-5, 30], a grid START:STOP:COUNT or a list W1,W2,…
   ${FIELD_MASS_HELP}
   --mass M     hole mass, only to convert --field-mass from an energy unit (results stay in units of M)
-  --unit U     g, kg or msun (default g)
+  --unit U     g, kg or msun (required with --mass)
   --kappa-sign K    massive spin 1/2 only: the sign (1 or -1) of the Dirac
                quantum number κ = ±(l + 1/2); -1 includes the s-wave
   --log        space a frequency grid geometrically
@@ -55,7 +55,7 @@ Examples:
   penumbra greybody --spin 1 --l 1 --m 1 --a 0.9 --omega 0.3 --json
   penumbra greybody --spin 2 --l 2 --m 2 --a 0.99 --omega 0.01:2:40 --csv
   penumbra greybody --spin 0 --l 1 --m 1 --a 0.9 --omega 0.4 --field-mass 0.3 --json
-  penumbra greybody --spin 0 --l 0 --m 0 --a 0 --omega 0.5 --field-mass 135 --field-mass-unit MeV --mass 1e14
+  penumbra greybody --spin 0 --l 0 --m 0 --a 0 --omega 0.5 --field-mass 135 --field-mass-unit MeV --mass 1e14 --unit g
   penumbra greybody --spin 1 --l 1 --m 0 --a 0 --omega 0.3 --field-mass 0.1 --polarization even-2 --json
 `,
   run(argv, io) {
