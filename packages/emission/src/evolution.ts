@@ -60,11 +60,12 @@ export interface Evolution {
   lifetime: number;
   track: TrackPoint[];
   /**
-   * time (units of M₀³) at which a* first falls below each threshold; NaN if
-   * never. A threshold at or above aStar0 is no milestone: time 0 with
-   * `atStart: true` (a* starts at or below it).
+   * time (units of M₀³) at which a* first falls below each threshold. A
+   * threshold at or above aStar0 is no milestone: time 0 with `atStart: true`
+   * (a* starts at or below it). A threshold a* never falls below before the
+   * end has `reached: false` and the lifetime as its time.
    */
-  crossings: { aStar: number; time: number; atStart: boolean }[];
+  crossings: { aStar: number; time: number; atStart: boolean; reached: boolean }[];
   diagnostics: EvolutionDiagnostics;
 }
 
@@ -194,7 +195,13 @@ export function evolveHole(problem: EvolutionProblem, options?: EvolutionOptions
   const b = run(fns, aStar0, odeTol / 2);
   const change = Math.abs(a.lifetime - b.lifetime) / b.lifetime;
   const tableError = Math.max(fns.interpolationError.f + fns.nodeError.f, fns.interpolationError.g + fns.nodeError.g);
-  const crossings = aStarThresholds.map((t) => ({ aStar: t, time: crossing(b, t), atStart: aStar0 <= t }));
+  const crossings = aStarThresholds.map((t) => {
+    const time = crossing(b, t);
+    // never below t before the end: report the end of the track, flagged, not NaN
+    return Number.isNaN(time)
+      ? { aStar: t, time: b.lifetime, atStart: false, reached: false }
+      : { aStar: t, time, atStart: aStar0 <= t, reached: true };
+  });
   const diagnostics: EvolutionDiagnostics = {
     method: METHOD,
     steps: b.steps,

@@ -9,20 +9,21 @@
  * with k = ω − mΩ_H. Valid for Mω ≪ 1 and (l + 1)Mω ≪ 1; its first correction
  * is roughly a factor 1 + 2πMω.
  */
-import { requireMassless } from '@penumbra/core';
+import { InputError, requireMassless } from '@penumbra/core';
 import { kerrHole } from '@penumbra/kerr';
 import { checkProblem, type GreybodyProblem } from './validate.js';
 
-function factorial(n: number): number {
-  let f = 1;
-  for (let i = 2; i <= n; i++) f *= i;
+/** ln n! for a non-negative integer n (a sum of logs: n ≤ 2·MAX_L + 2 here, and no overflow at l ≥ 86). */
+function logFactorial(n: number): number {
+  let f = 0;
+  for (let i = 2; i <= n; i++) f += Math.log(i);
   return f;
 }
 
-/** Double factorial n!! for a non-negative integer n. */
-function doubleFactorial(n: number): number {
-  let f = 1;
-  for (let i = n; i > 1; i -= 2) f *= i;
+/** ln n!! for a non-negative integer n. */
+function logDoubleFactorial(n: number): number {
+  let f = 0;
+  for (let i = n; i > 1; i -= 2) f += Math.log(i);
   return f;
 }
 
@@ -37,14 +38,26 @@ export function lowFrequencyGreybody(problem: GreybodyProblem): number {
   const hole = kerrHole({ a, mass });
   const k = omega - m * hole.omegaH;
   const kap = hole.kappa;
-  const pre = (factorial(l - s) * factorial(l + s)) / (factorial(2 * l) * doubleFactorial(2 * l + 1));
+  // In logarithms: the factorials overflow at l ≥ 86 and the power under- or overflows at large l.
+  const logPre = logFactorial(l - s) + logFactorial(l + s) - logFactorial(2 * l) - logDoubleFactorial(2 * l + 1);
   const fermion = !Number.isInteger(s);
-  let prod = 1;
+  let logProd = 0;
   const nMax = fermion ? l + 0.5 : l;
   for (let n = 1; n <= nMax; n++) {
     const nn = fermion ? n - 0.5 : n;
-    prod *= 1 + (k / (nn * kap)) ** 2;
+    logProd += Math.log1p((k / (nn * kap)) ** 2);
   }
   const boson = fermion ? 1 : (2 * k) / kap;
-  return pre * pre * prod * boson * Math.pow((hole.rPlus - hole.rMinus) * omega, 2 * l + 1);
+  if (boson === 0) return 0;
+  const logGamma = 2 * logPre + logProd + Math.log(Math.abs(boson)) + (2 * l + 1) * Math.log((hole.rPlus - hole.rMinus) * omega);
+  const gamma = Math.sign(boson) * Math.exp(logGamma);
+  if (!Number.isFinite(gamma) || gamma === 0) {
+    throw new InputError(
+      'omega',
+      'a frequency where the formula stays in double range',
+      omega,
+      `the low-frequency formula gives |Γ| = 10^${(logGamma / Math.LN10).toFixed(1)}, outside the double range (greybody reports such values as log10Gamma)`,
+    );
+  }
+  return gamma;
 }

@@ -1,6 +1,6 @@
 /** The radial problem: one hole, one separated mode. */
 import { requireFinite, requireObject, InputError } from '@penumbra/core';
-import type { KerrHole } from '@penumbra/kerr';
+import { requireKerrHole, type KerrHole } from '@penumbra/kerr';
 import type { RadialMode } from './equation.js';
 
 /** The input of `solveRadial` and `solveTwoSided`: `{ hole, s, m, omega, lambda, mu? }` (mu: s = 0, solveRadial only). */
@@ -12,11 +12,14 @@ export interface RadialProblem extends RadialMode {
 /** Check the problem's numbers; returns the mode part. */
 export function validateProblem(problem: RadialProblem): RadialMode {
   requireObject('problem', problem, 'an object { hole, s, m, omega, lambda }');
-  requireObject('hole', problem.hole, 'a hole from kerrHole({ a, mass })');
+  const hole = requireKerrHole(problem.hole, 'hole');
   const s = requireFinite('s', problem.s);
   const m = requireFinite('m', problem.m);
   const { omega, lambda } = problem;
-  if (!Number.isFinite(omega) || omega === 0) throw new InputError('omega', 'a finite non-zero frequency', omega);
+  // |Mω| ≥ 1e-10: far below flux's 1e-5, and above the subnormal frequencies whose series never start.
+  if (!Number.isFinite(omega) || !(Math.abs(omega) * hole.mass >= 1e-10)) {
+    throw new InputError('omega', 'a finite frequency with |Mω| ≥ 1e-10', omega);
+  }
   requireFinite('lambda', lambda);
   if (problem.mu === undefined || problem.mu === 0) return { s, m, omega, lambda };
   const mu = requireFinite('mu', problem.mu, 'a field mass μ ≥ 0');

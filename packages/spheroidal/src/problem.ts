@@ -122,5 +122,7 @@ export function validateSpheroidalProblem(problem: unknown): { s: number; l: num
   const c = (problem as { c?: unknown }).c;
   if (typeof c !== 'number' || !Number.isFinite(c)) throw new InputError('problem.c', 'a finite real number', c);
   if (Math.abs(c) > MAX_REAL_C) throw new InputError('problem.c', `|c| ≤ ${MAX_REAL_C}`, c);
-  return { s, l, m, c };
+  // A c below 1e-150 changes A by c² < 1e-300 relative to c = 0: take the exact c = 0 values (a subnormal c
+  // would underflow inside the series).
+  return { s, l, m, c: Math.abs(c) < 1e-150 ? 0 : c };
 }

@@ -117,7 +117,12 @@ Example:
       lifetimeOverMassCubed: ev.lifetime,
       relError,
       inaccurate,
-      crossings: ev.crossings.map((c) => ({ aStar: c.aStar, timeSeconds: c.time * unitSeconds, atStart: c.atStart })),
+      crossings: ev.crossings.map((c) => ({
+        aStar: c.aStar,
+        timeSeconds: c.time * unitSeconds,
+        atStart: c.atStart,
+        reached: c.reached,
+      })),
       f0: fns.f(aStar),
       g0: fns.g(aStar),
       track,
@@ -133,7 +138,11 @@ Example:
         `rel. error ${formatError(relError)}${inaccurate ? ', above 1e-3' : ''})\n` +
         result.crossings
           .map((c) =>
-            c.atStart ? `a* ≤ ${c.aStar} from the start\n` : `a* < ${c.aStar} after ${formatNumber(c.timeSeconds, 6)} s\n`,
+            c.atStart
+              ? `a* ≤ ${c.aStar} from the start\n`
+              : c.reached
+                ? `a* < ${c.aStar} after ${formatNumber(c.timeSeconds, 6)} s\n`
+                : `a* stays at or above ${c.aStar} until the end\n`,
           )
           .join('') +
         formatTable([
