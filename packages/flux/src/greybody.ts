@@ -29,9 +29,8 @@ import {
 } from '@penumbra/radial';
 import type { ProcaPolarization } from '@penumbra/regge-wheeler';
 import { checkGeometry, gammaErrorEstimate, roundingFloor } from './errorEstimate.js';
-import { isMassiveDirac, massiveDiracGreybody } from './massiveDirac.js';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
-import { massiveRoute } from './massive.js';
+import { ownMassiveSolver, requireRadialEquationField } from './massive.js';
 import {
   GREYBODY_OPTIONS,
   checkGreybodyOptions,
@@ -40,7 +39,6 @@ import {
   type GreybodyOptions,
   type GreybodyProblem,
 } from './validate.js';
-import { isMassiveVector, massiveVectorGreybody } from './massiveVector.js';
 
 /** How a greybody factor was computed; `errorEstimate` is the relative error of Γ. */
 export interface GreybodyDiagnostics extends Diagnostics {
@@ -124,11 +122,11 @@ function prepare(checked: CheckedProblem): Prepared {
   return { spin, fieldMass, mu, kInf, l, m, hole, omega, A: eig.A, lambdaPlus };
 }
 
-/** The checked problem and its route: a massive field with a solver of its own is returned as `own`. */
-function route(problem: GreybodyProblem) {
+/** The checked problem of a field the radial equation takes (massless, or the massive scalar). */
+function checkRadialProblem(problem: GreybodyProblem): CheckedProblem {
   const checked = checkProblem(problem);
-  const massive = massiveRoute(checked);
-  return { checked, own: typeof massive === 'function' ? massive : undefined };
+  requireRadialEquationField(checked);
+  return checked;
 }
 
 /**
@@ -174,11 +172,9 @@ function tolBelowRoundingFloor(tol: number, floor: number, reached: number, eval
  * @example greybody({ hole: { a: 0.9 }, mode: { field: { spin: 1 }, l: 1, m: 1 }, omega: 0.3 })
  */
 export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): GreybodySolution {
-  if (isMassiveDirac(problem)) return massiveDiracGreybody(problem, options);
-  if (isMassiveVector(problem)) return massiveVectorGreybody(problem, checkGreybodyOptions(options));
-  const { checked, own } = route(problem);
-  if (own) return own(checked, options);
-  const p = prepare(checked);
+  const own = ownMassiveSolver(problem);
+  if (own) return own(problem, options);
+  const p = prepare(checkRadialProblem(problem));
   options = checkGreybodyOptions(options);
   if (options.polarization !== undefined) {
     throw new InputError('polarization', 'absent (a polarisation is chosen only for a massive vector)', options.polarization);
@@ -362,15 +358,7 @@ export function radialFunction(
   radii: readonly number[],
   options?: Pick<GreybodyOptions, 'tol' | 'integrator'>,
 ): { samples: RadialSample[]; logAbsZIn: number; logAbsZOut: number; diagnostics: RadialDiagnostics } {
-  const { checked: problemChecked, own } = route(problem);
-  if (own)
-    throw new InputError(
-      'mode.field.mass',
-      '0 or a spin-0 field',
-      problemChecked.fieldMass,
-      'radialFunction takes massive fields of spin 0 only',
-    );
-  const p = prepare(problemChecked);
+  const p = prepare(checkRadialProblem(problem));
   const checked = validateOptions<Pick<GreybodyOptions, 'tol' | 'integrator'>>(options, {
     tol: GREYBODY_OPTIONS.tol,
     integrator: GREYBODY_OPTIONS.integrator,

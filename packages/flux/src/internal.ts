@@ -3,4 +3,4 @@
  * Dirac solve called directly, which also runs at field mass 0 (the check
  * against the massless s = 1/2 route). Not part of the public API.
  */
-export { isMassiveDirac, massiveDiracGreybody } from './massiveDirac.js';
+export { massiveDiracGreybody } from './massiveDirac.js';

@@ -1,47 +1,54 @@
 /**
  * Which massive fields the greybody solver computes, and by which route: one
- * entry per field spin. A spin without an entry is refused with an InputError
+ * entry per field spin. Spin 0 (Klein–Gordon) runs inside `greybody` itself,
+ * through the s = 0 radial equation with its −μ²r² term (docs/massive-fields.md).
+ * Spins 1/2 (Dirac on Kerr) and 1 (Proca at a = 0) have solvers of their own,
+ * called before the common problem check (their modes carry kappaSign, or
+ * the l = 0 monopole). A spin without an entry is refused with an InputError
  * naming mode.field.mass (a mass silently ignored would be a wrong number).
  */
-import { InputError, formatFieldSpin, type FieldSpin } from '@penumbra/core';
+import { InputError, formatFieldSpin, validateField, type FieldSpin } from '@penumbra/core';
 import type { GreybodySolution } from './greybody.js';
-import type { CheckedProblem, GreybodyOptions } from './validate.js';
+import { massiveDiracGreybody } from './massiveDirac.js';
+import { massiveVectorGreybody } from './massiveVector.js';
+import { checkGreybodyOptions, type CheckedProblem, type GreybodyOptions, type GreybodyProblem } from './validate.js';
 
-/**
- * A massive-field solver of its own: the checked problem and the caller's
- * (unvalidated) options in — it validates them, and may accept options of its
- * own — the usual solution out. Adding one is one entry in MASSIVE_ROUTES.
- */
-export type MassiveSolver = (problem: CheckedProblem, options: GreybodyOptions | undefined) => GreybodySolution;
+/** A massive-field solver of its own: the caller's problem and (unvalidated) options in, the usual solution out. */
+export type MassiveSolver = (problem: GreybodyProblem, options: GreybodyOptions | undefined) => GreybodySolution;
 
-/**
- * How a massive field is solved: 'klein-gordon' is the s = 0 radial equation
- * of @penumbra/radial with its −μ²r² term, inside `greybody` itself
- * (docs/massive-fields.md); any other route is a solver of its own.
- */
-export type MassiveRoute = 'klein-gordon' | MassiveSolver;
-
-const MASSIVE_ROUTES: Partial<Record<FieldSpin, MassiveRoute>> = {
-  0: 'klein-gordon',
+const OWN_SOLVERS: Partial<Record<FieldSpin, MassiveSolver>> = {
+  0.5: massiveDiracGreybody,
+  1: (problem, options) => massiveVectorGreybody(problem, checkGreybodyOptions(options)),
 };
 
-/** Field spins with a massive route, for messages: spin 1/2 and spin 1 are dispatched in `greybody` before this table is read. */
-function massiveSpins(): string {
-  const here = Object.keys(MASSIVE_ROUTES).map((s) => formatFieldSpin(Number(s)));
-  return [...here, '1/2 (greybody only)', '1 (greybody at a = 0 only)'].join(', ');
+/** Massive spins `greybody` computes, for messages. */
+const MASSIVE_SPINS = '0, 1/2 (greybody only), 1 (greybody at a = 0 only)';
+
+/**
+ * The solver of its own for a massive field of spin 1/2 or 1, read from the
+ * caller's problem; undefined for anything else (massless, spin 0, or a field
+ * the common check will refuse with its own message).
+ */
+export function ownMassiveSolver(problem: unknown): MassiveSolver | undefined {
+  try {
+    const { spin, mass } = validateField((problem as { mode?: { field?: unknown } } | null)?.mode?.field, 'mode.field');
+    return mass > 0 ? OWN_SOLVERS[spin] : undefined;
+  } catch {
+    return undefined;
+  }
 }
 
-/** The route of a massive problem; undefined when the field is massless; InputError for a spin without one. */
-export function massiveRoute(problem: CheckedProblem): MassiveRoute | undefined {
-  if (problem.fieldMass === 0) return undefined;
-  const route = MASSIVE_ROUTES[problem.spin];
-  if (route === undefined) {
-    throw new InputError(
-      'mode.field.mass',
-      `0 for spin ${formatFieldSpin(problem.spin)} (massive fields are computed for spin ${massiveSpins()})`,
-      problem.fieldMass,
-      'massive fields of this spin are not supported',
-    );
-  }
-  return route;
+/**
+ * Refuse a massive field the radial equation of `greybody` and `radialFunction`
+ * cannot take (only massless fields and the massive scalar go through it),
+ * naming mode.field.mass.
+ */
+export function requireRadialEquationField(problem: CheckedProblem): void {
+  if (problem.fieldMass === 0 || problem.spin === 0) return;
+  throw new InputError(
+    'mode.field.mass',
+    `0 for spin ${formatFieldSpin(problem.spin)} (massive fields are computed for spin ${MASSIVE_SPINS})`,
+    problem.fieldMass,
+    'massive fields of this spin are not supported',
+  );
 }

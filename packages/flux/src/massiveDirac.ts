@@ -8,24 +8,12 @@
  * field is never amplified. Below threshold (ω ≤ μ) no wave reaches
  * infinity: InputError naming `omega`.
  */
-import { ConvergenceError, InputError, parseFieldSpin, requireKeyedObject, validateHole, validateMode } from '@penumbra/core';
+import { ConvergenceError, InputError, requireKeyedObject, validateHole, validateMode } from '@penumbra/core';
 import { kerrHole } from '@penumbra/kerr';
 import { solveMassiveDiracRadial, type DiracRadialSolution } from '@penumbra/radial';
 import { diracAngularEigenvalue } from '@penumbra/spheroidal';
 import type { GreybodySolution } from './greybody.js';
 import { checkGreybodyOptions, validateOmega, type GreybodyOptions, type GreybodyProblem } from './validate.js';
-
-/** True when a problem asks for a spin-1/2 field with mass > 0 (the caller then dispatches here). */
-export function isMassiveDirac(problem: unknown): boolean {
-  const mode = (problem as { mode?: { field?: { spin?: unknown; mass?: unknown } } } | null)?.mode;
-  const field = mode?.field;
-  if (typeof field !== 'object' || field === null) return false;
-  try {
-    return parseFieldSpin(field.spin) === 0.5 && typeof field.mass === 'number' && field.mass > 0;
-  } catch {
-    return false;
-  }
-}
 
 /** Γ of one massive Dirac mode; the problem's mode must carry kappaSign. */
 export function massiveDiracGreybody(problem: GreybodyProblem, options?: GreybodyOptions): GreybodySolution {

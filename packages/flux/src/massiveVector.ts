@@ -14,17 +14,6 @@ import type { GreybodyOptions, GreybodyProblem } from './validate.js';
 import { validateOmega } from './validate.js';
 import type { GreybodySolution } from './greybody.js';
 
-/** True when a problem asks for a massive vector (spin 1, mass > 0); a malformed mode answers false (the main path reports it). */
-export function isMassiveVector(problem: unknown): boolean {
-  try {
-    const mode = (problem as { mode?: { field?: unknown } } | null)?.mode;
-    const { spin, mass } = validateField(mode?.field, 'mode.field');
-    return spin === 1 && mass > 0;
-  } catch {
-    return false;
-  }
-}
-
 /** The mode of a massive vector: as core's Mode, but l = 0 (the monopole) is a mode of its own. */
 function checkVectorMode(value: unknown): { fieldMass: number; l: number; m: number } {
   const mode = requireKeyedObject('mode', value, ['field', 'l', 'm']);
