@@ -20,6 +20,7 @@ import {
 import { kerrHole, type KerrHole } from '@penumbra/kerr';
 import { radialSeparationConstant, spheroidalEigenvalue } from '@penumbra/spheroidal';
 import {
+  INTEGRATORS,
   solveRadial,
   solveTwoSided,
   type IntegratorName,
@@ -180,7 +181,7 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
     throw new InputError('polarization', 'absent (a polarisation is chosen only for a massive vector)', options.polarization);
   }
   const tol = options.tol ?? 1e-8;
-  const integrator = options.integrator ?? 'odex';
+  const integrator = options.integrator ?? INTEGRATORS[0];
   const { spin, hole, omega, m, lambdaPlus } = p;
   const k = omega - m * hole.omegaH;
   const C2 = starobinskyConstantSquared(spin, lambdaPlus, hole, m, omega);

@@ -131,8 +131,8 @@ describe('the radial equation, written once', () => {
   });
 });
 
-describe('the two integrators', () => {
-  for (const integrator of ['odex', 'cash-karp'] as const) {
+describe('the three integrators', () => {
+  for (const integrator of ['gbs', 'odex', 'cash-karp'] as const) {
     it(`'${integrator}' (loaded by a plain ESM import) integrates R″ = −R over one period to cos and −sin within 1e-9 (exact solution)`, () => {
       const stepper = makeStepper({
         integrator,
