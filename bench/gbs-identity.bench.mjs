@@ -2,7 +2,7 @@
 // (Γ, relError, reflection, steps, RHS evaluations) and the CPU time of each.
 // Run: npx tsc -b && node bench/gbs-identity.bench.mjs [N]
 import { greybody } from '@penumbra/flux';
-import { fmt, median } from './lib.mjs';
+import { fmt } from './lib.mjs';
 
 const N = Number(process.argv[2] ?? 300);
 let seed = 7;

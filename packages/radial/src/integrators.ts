@@ -17,7 +17,7 @@ import ode45 from 'ode45-cash-karp';
 import * as odexModule from 'odex';
 import type { OdexSolverClass } from 'odex';
 import { gbsStepper } from './gbsStepper.js';
-import type { Rhs } from './rhs.js';
+import type { EquationKernel, Rhs } from './rhs.js';
 
 // odex is CommonJS. Node's ESM loader exposes its exports both as named
 // exports and as `default`; bundlers differ in which they fill, so take the
@@ -62,6 +62,8 @@ export interface StepperSpec {
   rPlus: number;
   /** step limit of one advance call */
   maxSteps: number;
+  /** the same right-hand side as packed coefficients: 'gbs' then evaluates it inline (faster, the same doubles) */
+  kernel?: EquationKernel;
 }
 
 /** Error weights: one scale per complex pair, so a component crossing zero does not shrink the step. */
@@ -72,8 +74,8 @@ function pairScales(y: ArrayLike<number>, x: number): [number, number] {
 }
 
 /** A stepper for the named integrator. */
-export function makeStepper({ integrator, rhs, tol, rPlus, maxSteps }: StepperSpec): Stepper {
-  if (integrator === 'gbs') return gbsStepper(rhs, tol, maxSteps);
+export function makeStepper({ integrator, rhs, tol, rPlus, maxSteps, kernel }: StepperSpec): Stepper {
+  if (integrator === 'gbs') return gbsStepper(rhs, tol, maxSteps, kernel);
   return integrator === 'odex' ? odexStepper(rhs, tol, maxSteps) : cashKarpStepper(rhs, tol, rPlus, maxSteps);
 }
 
