@@ -10,7 +10,7 @@
  */
 import { ConvergenceError, InputError, requireKeyedObject, validateHole, validateMode } from '@penumbra/core';
 import { kerrHole } from '@penumbra/kerr';
-import { solveMassiveDiracRadial, type DiracRadialSolution } from '@penumbra/radial';
+import { INTEGRATORS, solveMassiveDiracRadial, type DiracRadialSolution } from '@penumbra/radial';
 import { diracAngularEigenvalue } from '@penumbra/spheroidal';
 import type { GreybodySolution } from './greybody.js';
 import { checkGreybodyOptions, validateOmega, type GreybodyOptions, type GreybodyProblem } from './validate.js';
@@ -38,7 +38,7 @@ export function massiveDiracGreybody(problem: GreybodyProblem, options?: Greybod
   }
   const opts = checkGreybodyOptions(options);
   const tol = opts.tol ?? 1e-8;
-  const integrator = opts.integrator ?? 'odex';
+  const integrator = opts.integrator ?? INTEGRATORS[0];
   const hole = kerrHole({ a, mass });
   const angular = diracAngularEigenvalue({ j, m, aOmega: a * omega, aMu: a * mu, kappaSign });
   const lambda = angular.lambda;

@@ -93,7 +93,7 @@ function positiveOmega(omega: unknown): number {
 export interface GreybodyOptions {
   /** requested relative accuracy of Γ (default 1e-8, range 1e-12 … 1e-2) */
   tol?: number;
-  /** ODE integrator (default 'odex') */
+  /** ODE integrator (default 'gbs', the extrapolation loop; 'odex' and 'cash-karp' for cross-checks) */
   integrator?: IntegratorName;
   /** override the start point (fraction of r+ − r−, 0 < f < 1) to show the answer does not move */
   startFraction?: number;

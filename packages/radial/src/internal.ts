@@ -6,7 +6,7 @@
  */
 export { type CPoly, cpoly, padTo, add, mul, scale, derivative, cpolyAt } from './complexPoly.js';
 export { type RadialEquation, radialEquation, substitutePhase } from './equation.js';
-export { type Rhs, type EvaluationCounter, equationRhs } from './rhs.js';
+export { type Rhs, type EvaluationCounter, type EquationKernel, equationRhs, equationKernel } from './rhs.js';
 export { type AdvanceResult, type Stepper, type StepperSpec, makeStepper } from './integrators.js';
 export { type HorizonStart, horizonSeriesStart, horizonWavenumber } from './horizonSeries.js';
 export { defaultStartFraction, startAtHorizon } from './horizonStart.js';

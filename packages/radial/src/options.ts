@@ -24,7 +24,7 @@ export interface RadialOptions {
   grid?: readonly number[];
   /** abort after this many steps (default 1e6: a = 0.99999 M, Mω = 30, |m| = 150 was measured at 1.8e5) */
   maxSteps?: number;
-  /** ODE integrator (default 'odex') */
+  /** ODE integrator (default 'gbs', the extrapolation loop; 'odex' and 'cash-karp' for cross-checks) */
   integrator?: IntegratorName;
   /** integrate R itself ('plain', default) or u = e^{iφ}R with the ingoing phase removed ('phase'; a second formulation for cross-checks) */
   variable?: RadialVariable;

@@ -50,20 +50,42 @@ function packCoefficients(eq: RadialEquation): Float64Array {
 }
 
 /**
+ * The coefficients of one equation as the integrator loop reads them: Δ, B
+ * and C packed at fixed offsets (k), the expansion point minus the argument's
+ * origin (c), and whether B is complex (the 'phase' variable). The extrapolation
+ * loop (gbsStepper.ts) evaluates the right-hand side from these inline.
+ */
+export interface EquationKernel {
+  /** Δ at [0, 3), Re B at [3, 8), Im B at [8, 13), Re C at [13, 18), Im C at [18, 23) */
+  k: Float64Array;
+  /** the argument minus this is the distance from the expansion point */
+  c: number;
+  /** B has an imaginary part */
+  complexB: boolean;
+  /** counts the evaluations */
+  counter: EvaluationCounter;
+}
+
+/** The kernel of `eq` for an argument measured from `origin` (default 0: the argument is r itself). */
+export function equationKernel(eq: RadialEquation, counter: EvaluationCounter, origin = 0): EquationKernel {
+  if (!isSquareOfDelta(eq)) throw new Error('radial equation: the coefficient of R″ must be Δ²');
+  // An argument measured from the expansion point needs no subtraction (and loses no digits to one).
+  return { k: packCoefficients(eq), c: eq.center - origin, complexB: !eq.B.im.every((x) => x === 0), counter };
+}
+
+/**
  * The right-hand side of `eq`, counting its calls in `counter`; its argument
  * is the radius minus `origin` (default 0: the argument is r itself). The
  * coefficient of R'' is Δ² for every equation built here, so Δ (degree 2) is
  * evaluated and squared; B and C are evaluated by Horner's rule, and a real B
  * (the unsubstituted equation) skips its imaginary part. (Measured: the
  * coefficients held in many closure variables, or a complex B throughout,
- * cost 10–25 % of a whole solve.)
+ * cost 10–25 % of a whole solve.) The extrapolation loop evaluates the same
+ * expressions inline from `equationKernel`.
  */
 export function equationRhs(eq: RadialEquation, counter: EvaluationCounter, origin = 0): Rhs {
-  if (!isSquareOfDelta(eq)) throw new Error('radial equation: the coefficient of R″ must be Δ²');
-  // An argument measured from the expansion point needs no subtraction (and loses no digits to one).
-  const c = eq.center - origin;
-  const k = packCoefficients(eq);
-  if (eq.B.im.every((x) => x === 0)) {
+  const { k, c, complexB } = equationKernel(eq, counter, origin);
+  if (!complexB) {
     return (dy, y, r) => {
       counter.evaluations++;
       const x = r - c;

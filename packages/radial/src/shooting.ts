@@ -16,7 +16,7 @@ import type { RadialEquation, RadialMode } from './equation.js';
 import { makeStepper, type AdvanceResult, type IntegratorName } from './integrators.js';
 import type { RadialVariable } from './options.js';
 import { convertPhase, phaseEquation } from './phaseVariable.js';
-import { equationRhs, type EvaluationCounter } from './rhs.js';
+import { equationKernel, equationRhs, type EvaluationCounter } from './rhs.js';
 import type { RadialSample } from './solution.js';
 
 /** One outward leg of a solve. */
@@ -109,8 +109,10 @@ export function integrateLeg(leg: Leg): Segment {
   const eq = leg.equation;
   const inX = hole.rPlus - hole.rMinus < X_ARGUMENT_WIDTH * hole.mass;
   const origin = inX ? hole.rPlus : 0;
-  const rhs = equationRhs(phased ? phaseEquation(eq) : eq, leg.counter, origin);
-  const stepper = makeStepper({ integrator: leg.integrator, rhs, tol: leg.tol, rPlus: hole.rPlus - origin, maxSteps });
+  const integrated = phased ? phaseEquation(eq) : eq;
+  const rhs = equationRhs(integrated, leg.counter, origin);
+  const kernel = leg.integrator === 'gbs' ? equationKernel(integrated, leg.counter, origin) : undefined;
+  const stepper = makeStepper({ integrator: leg.integrator, rhs, tol: leg.tol, rPlus: hole.rPlus - origin, maxSteps, kernel });
   if (phased) convertPhase(hole, mode, eq, r0, y, 1);
   let logScale = leg.logScale ?? 0;
   let rescalings = 0;

@@ -7,7 +7,7 @@
  * Both solutions are of one size at both ends, so there is no shooting trap.
  */
 import { ConvergenceError, type Diagnostics } from '@penumbra/core';
-import { makeStepper, type IntegratorName } from '../integrators.js';
+import { INTEGRATORS, makeStepper, type IntegratorName } from '../integrators.js';
 import { type C, type V2, cabs, cdiv, cmul, csub } from './complex2.js';
 import { type DiracRadialProblem, diracRhs } from './equation.js';
 import { type DiracFarSeries, diracFarSeries, evaluateDiracFar, farMatrices } from './farSeries.js';
@@ -103,7 +103,7 @@ export function solveMassiveDiracRadial(p: DiracRadialProblem, options: DiracRad
   const farTruncation = Math.max(fIn.lastTerm, fOut.lastTerm);
   const y = Float64Array.from([start.value[0][0], start.value[0][1], start.value[1][0], start.value[1][1]]);
   const stepper = makeStepper({
-    integrator: options.integrator ?? 'odex',
+    integrator: options.integrator ?? INTEGRATORS[0],
     rhs: counted,
     tol: options.tol,
     rPlus: hole.rPlus,

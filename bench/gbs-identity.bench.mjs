@@ -1,0 +1,57 @@
+// 'gbs' against 'odex' on random modes: the same algorithm, so the same doubles
+// (Γ, relError, reflection, steps, RHS evaluations) and the CPU time of each.
+// Run: npx tsc -b && node bench/gbs-identity.bench.mjs [N]
+import { greybody } from '@penumbra/flux';
+import { fmt } from './lib.mjs';
+
+const N = Number(process.argv[2] ?? 300);
+let seed = 7;
+const rand = () => {
+  seed = (seed * 1103515245 + 12345) % 2147483648;
+  return seed / 2147483648;
+};
+const spins = [0, 0.5, 1, 2];
+const modes = [];
+for (let i = 0; i < N; i++) {
+  const spin = spins[Math.floor(rand() * 4)];
+  const l = spin + Math.floor(rand() * 4);
+  const m = -l + Math.floor(rand() * (2 * l + 1));
+  const a = [0, 0.7, 0.99, 0.9999][Math.floor(rand() * 4)];
+  const omega = 0.01 * 300 ** rand();
+  modes.push({ hole: { a }, mode: { field: { spin }, l, m }, omega });
+}
+const run = (integrator) => {
+  const out = [];
+  const t0 = process.cpuUsage();
+  for (const p of modes) {
+    try {
+      out.push(greybody(p, { integrator }));
+    } catch (e) {
+      out.push({ error: e.name });
+    }
+  }
+  const t = process.cpuUsage(t0);
+  return { out, ms: (t.user + t.system) / 1e3 };
+};
+run('gbs');
+run('odex');
+const a = run('gbs');
+const b = run('odex');
+let same = 0;
+const diffs = [];
+for (let i = 0; i < N; i++) {
+  const x = a.out[i];
+  const y = b.out[i];
+  const eq =
+    (x.error && x.error === y.error) ||
+    (x.gamma === y.gamma &&
+      x.relError === y.relError &&
+      Object.is(x.reflection, y.reflection) &&
+      x.diagnostics.steps === y.diagnostics.steps &&
+      x.diagnostics.rhsEvaluations === y.diagnostics.rhsEvaluations);
+  if (eq) same++;
+  else diffs.push({ p: modes[i], gbs: x.gamma ?? x.error, odex: y.gamma ?? y.error });
+}
+console.log(`${N} random modes: ${same} bit-identical (Γ, relError, reflection, steps, RHS evaluations)`);
+for (const d of diffs.slice(0, 5)) console.log('  differs:', JSON.stringify(d));
+console.log(`CPU: gbs ${fmt(a.ms / N)} ms/mode, odex ${fmt(b.ms / N)} ms/mode, ratio ${fmt(b.ms / a.ms)}`);
