@@ -184,7 +184,12 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
   const { spin, hole, omega, m, lambdaPlus } = p;
   const k = omega - m * hole.omegaH;
   const C2 = starobinskyConstantSquared(spin, lambdaPlus, hole, m, omega);
-  const common = { startFraction: options.startFraction, matchRadius: options.matchRadius, integrator };
+  const common = {
+    startFraction: options.startFraction,
+    matchRadius: options.matchRadius,
+    integrator,
+    ...(options.oscillation ? { oscillation: options.oscillation } : {}),
+  };
 
   // At the superradiant threshold k = 0 exactly the ingoing and outgoing horizon
   // solutions coincide; Γ vanishes there for bosons (it is proportional to k).
@@ -198,7 +203,7 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
   for (let attempt = 1; attempt <= 3; attempt++) {
     const fine = solveMode(p, { ...common, tol: odeTol, reflection: wantReflection });
     // The check solve moves the start and matching radii too, so it sees the series truncation and part of the rounding (errorEstimate.ts).
-    const check = solveMode(p, { ...checkGeometry(hole, fine.diagnostics), integrator, tol: odeTol * 10, reflection: false });
+    const check = solveMode(p, { ...common, ...checkGeometry(hole, fine.diagnostics), tol: odeTol * 10, reflection: false });
     const floor = roundingFloor(fine.diagnostics);
     const relError = gammaErrorEstimate(fine.sign, fine.lnGamma, check.lnGamma, fine.diagnostics.errorEstimate, floor);
     // The best estimate of any attempt is what a repeated request reaches (the solves are deterministic).
