@@ -23,5 +23,13 @@ export { type DiracFarSeries, diracFarSeries, evaluateDiracFar, farMatrices } fr
 export { type DiracHorizonStart, diracHorizonStart } from './dirac/horizonSeries.js';
 export type { C, V2, M2 } from './dirac/complex2.js';
 export { integrateHybridLeg, riccatiWorthIt, WKB_LIMIT, MIN_PHASE } from './hybridLeg.js';
-export { type RiccatiEquation, type RiccatiStep, riccatiEquation, riccatiStep, localRiccati, phaseRate, RICCATI_NODES } from './riccatiStep.js';
+export {
+  type RiccatiEquation,
+  type RiccatiStep,
+  riccatiEquation,
+  riccatiStep,
+  localRiccati,
+  phaseRate,
+  RICCATI_NODES,
+} from './riccatiStep.js';
 export { type ChebyshevRule, chebyshevRule, chebyshevTail } from './chebyshev.js';

@@ -70,7 +70,9 @@ export interface ResolvedOptions {
 }
 
 /** Defaults of the options that have one. */
-export const RADIAL_DEFAULTS: Readonly<Pick<ResolvedOptions, 'tol' | 'maxSteps' | 'integrator' | 'variable' | 'reflection' | 'oscillation'>> = {
+export const RADIAL_DEFAULTS: Readonly<
+  Pick<ResolvedOptions, 'tol' | 'maxSteps' | 'integrator' | 'variable' | 'reflection' | 'oscillation'>
+> = {
   tol: 1e-12,
   maxSteps: 1_000_000,
   integrator: INTEGRATORS[0],

@@ -3,21 +3,22 @@
  * interval [xa, xb] (x = r − r+), at a cost that does not grow with the
  * number of oscillations in it (docs/method.md, section 9).
  *
- * With R = exp(∫y), y obeys the Riccati equation
+ * With R = exp(∫y dx) and, in u = ln x, Y = x y, the Riccati equation is
  *
- *   y' + y² + p y + q = 0,   p = B/A, q = C/A.
+ *   Y_u + Y² + P Y + Q = 0,   P = x B/A − 1, Q = x² C/A.
  *
  * Where the solutions oscillate (or grow and decay) fast against the scale on
- * which p and q vary, it has two slowly varying solutions y±, started from
- * the roots (−p ± w)/2 of y² + py + q = 0, w = √(p² − 4q), and refined by the
- * defect correction y ← y − (y' + y² + py + q)/(2y + p), with y' by
- * Chebyshev collocation on the interval (the idea of Agocs & Barnett, SIAM
- * J. Numer. Anal. 62 (2024): each pass gains a factor of the small ratio of
- * the variation scale to the local wavelength, so the number of passes and
- * nodes is set by the tolerance, not by the frequency). Then
- * R = α e^{∫y+} + β e^{∫y−} on the interval, with α, β fixed by (R, R') at
- * xa and ∫y by Clenshaw–Curtis quadrature: the state is carried to xb
- * exactly up to the residual of the two Riccati solutions.
+ * which P and Q vary, it has two slowly varying solutions Y±, started from
+ * the roots (−P ± W)/2 of Y² + PY + Q = 0, W = √(P² − 4Q), and refined by the
+ * defect correction Y ← Y − (Y_u + Y² + PY + Q)/(2Y + P): the first two
+ * passes analytically (`localRiccati`), the rest with Y_u by Chebyshev
+ * collocation in u (the idea of Agocs & Barnett, SIAM J. Numer. Anal. 62
+ * (2024): each pass gains a factor of the ratio of the variation scale to the
+ * local wavelength, so the number of passes and nodes is set by the
+ * tolerance, not by the frequency). Then R = α e^{∫Y+} + β e^{∫Y−} on the
+ * interval, with α, β fixed by (R, R') at xa and ∫Y du by Clenshaw–Curtis
+ * quadrature: the state is carried to xb exactly up to the residual of the
+ * two Riccati solutions.
  *
  * A step that does not converge (a turning point inside, too few
  * oscillations, the interval unresolved) reports failure and the caller
@@ -40,12 +41,20 @@ export interface RiccatiEquation {
   cIm: Float64Array;
 }
 
-/** Node count of a Riccati step: enough that [x, 2x] (poles at distance ≥ x) is resolved to below 1e-16 (Bernstein ellipse ρ ≈ 5.8). */
+/**
+ * Node count of a Riccati step. In u = ln x the nearest singularity of P and
+ * Q (r = r−) lies π off the real axis, so a rung [x, 4x] (half-length 0.69)
+ * sits in a Bernstein ellipse of ρ ≈ 9 and 16 nodes resolve it to ~1e-15;
+ * more nodes amplify rounding in the collocation derivative (measured: 20
+ * and 24 failed more rungs than 16).
+ */
 export const RICCATI_NODES = 16;
 /** Largest number of defect-correction passes. */
-export const MAX_PASSES = 14;
+export const MAX_PASSES = 10;
 /** A solution is accepted once the last correction moves ∫y and y by less than this share of the tolerance. */
 const ACCEPT = 0.3;
+/** The rounding floor of ∫Y over a step, in units of ε·|Y|·(step length in u): collocation and quadrature over 16 nodes (common practice, no source). */
+const ROUNDING = 16;
 const TAIL = 0.3;
 
 function shifted(p: Float64Array, shift: number, length: number): Float64Array {
@@ -70,8 +79,15 @@ function shifted(p: Float64Array, shift: number, length: number): Float64Array {
 /** The coefficients of an unsubstituted (or substituted) radial equation about r+, for Riccati steps in x = r − r+. */
 export function riccatiEquation(eq: RadialEquation, rPlus: number): RiccatiEquation {
   const shift = rPlus - eq.center;
-  const take = (p: Float64Array, n: number) => (shift === 0 ? Float64Array.from({ length: n }, (_, i) => p[i] ?? 0) : shifted(p, shift, n));
-  return { delta: take(eq.delta.re, 3), bRe: take(eq.B.re, 5), bIm: take(eq.B.im, 5), cRe: take(eq.C.re, 5), cIm: take(eq.C.im, 5) };
+  const take = (p: Float64Array, n: number) =>
+    shift === 0 ? Float64Array.from({ length: n }, (_, i) => p[i] ?? 0) : shifted(p, shift, n);
+  return {
+    delta: take(eq.delta.re, 3),
+    bRe: take(eq.B.re, 5),
+    bIm: take(eq.B.im, 5),
+    cRe: take(eq.C.re, 5),
+    cIm: take(eq.C.im, 5),
+  };
 }
 
 /** v, v', v'' of the real polynomial Σ c_k x^k at x, into out[o..o+2]. */
@@ -339,6 +355,7 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number): number {
     yIm[j] = aIm[o + j] + cIm[o + j];
     yScale = Math.max(yScale, Math.sqrt(yRe[j] * yRe[j] + yIm[j] * yIm[j]));
   }
+  const floor = ROUNDING * Number.EPSILON * 2 * half * yScale;
   let previous = Number.POSITIVE_INFINITY;
   let passes = 0;
   let converged = false;
@@ -376,7 +393,8 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number): number {
     }
     // the correction's effect on ∫y (interval length 2·half) and on y itself
     largest = Math.sqrt(largest);
-    const size = Math.max(2 * half * largest, largest / yScale);
+    // Measured against the tolerance beyond the rounding floor of ∫Y itself (a phase of |Y|·2·half radians is known to ε of it).
+    const size = Math.max(2 * half * largest - floor, largest / yScale);
     // Done when this correction, or the next one predicted from the contraction so far, is below the target.
     const next = passes > 1 ? (size * largest) / previous : size;
     if (size < 0.01 * tol || (next < 0.01 * tol && largest < 0.1 * previous)) {
@@ -388,12 +406,14 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number): number {
       converged = size < ACCEPT * tol;
       break;
     }
+    // Contracting too slowly to arrive within MAX_PASSES: give the stretch to the integrator now.
+    if (passes > 2 && passes + Math.log((0.01 * tol) / size) / Math.log(largest / previous) > MAX_PASSES) break;
     previous = largest;
   }
   if (!converged) return -passes;
   // Unresolved on the nodes? The interpolant's highest coefficients bound what collocation missed.
   const tail = chebyshevTail(rule, yRe, yIm);
-  if (2 * half * tail > TAIL * tol || tail > TAIL * tol * yScale) return -passes;
+  if (2 * half * tail - floor > TAIL * tol || tail > TAIL * tol * yScale) return -passes;
   let ir = 0,
     ii = 0;
   for (let j = 0; j < n; j++) {

@@ -15,7 +15,7 @@ import { horizonSeriesStart, horizonWavenumber } from './horizonSeries.js';
 import { startAtHorizon } from './horizonStart.js';
 import { resolveTwoSidedOptions, type TwoSidedOptions } from './options.js';
 import { validateProblem, type RadialProblem } from './problem.js';
-import { integrateHybridLeg } from './hybridLeg.js';
+import { chargedSteps, integrateHybridLeg } from './hybridLeg.js';
 import type { Leg, RawSample } from './shooting.js';
 import type { Complex2, RadialSample, TwoSidedSolution } from './solution.js';
 import { applyStarobinskyMap, starobinskyHorizonFactor, starobinskyMapAt } from './starobinskyMap.js';
@@ -142,7 +142,13 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   const horizonTruncation = start.truncation;
   const farTruncation = Math.max(matchMinus.vout.truncation, matchPlus.vin.truncation);
   const steps = segMinus.steps + segPlus.steps;
-  const errorEstimate = singleSolveErrorEstimate({ steps, tol: opts.tol, horizonTruncation, farTruncation, amplification: 1 });
+  const errorEstimate = singleSolveErrorEstimate({
+    steps: chargedSteps(segMinus) + chargedSteps(segPlus),
+    tol: opts.tol,
+    horizonTruncation,
+    farTruncation,
+    amplification: 1,
+  });
   return {
     logAbsZInPlus: logAbs(amp.zIn) + segPlus.logScale - logH,
     logAbsZOutPlus: logAbs(amp.zOut) + segPlus.logScale - logH,
