@@ -8,7 +8,9 @@
 //     (m = l/2 rounded, Mω ∈ {1, 10, 30}) for every spin and a ∈ {0, 0.7, 0.99};
 //  3. massive / massless cost at the same l, m, a and ω down to v = k∞/ω = 0.05
 //     (the modes of bench/massive.bench.mjs);
-//  4. accuracy: |Γ_riccati/Γ_ode − 1| and the reported relError at each point.
+//  4. near-extremal counter-rotating modes (a = 0.99999, m < 0), where the
+//     near-horizon solution winds like x^(−ik/2κ);
+//  5. accuracy: |Γ_riccati/Γ_ode − 1| and the reported relError at each point.
 // Run: `npm run build && node bench/far-zone.bench.mjs`. Results: bench/results/far-zone-<date>.json.
 import os from 'node:os';
 import { greybody } from '@penumbra/flux';
@@ -185,9 +187,28 @@ function main() {
     `worst massive/massless: riccati ${fmt(maximum(massive.map((r) => r.ratioRiccati)))}, ode ${fmt(maximum(massive.map((r) => r.ratioOde)))}`,
   );
 
-  const all = [...med, ...wide, ...massive].filter((r) => Number.isFinite(r.diff) && r.log10Gamma > -30);
+  const EXTREMAL = [
+    { spin: 0, l: 2, m: -2, a: 0.99999, omega: 30 },
+    { spin: 2, l: 2, m: -2, a: 0.99999, omega: 3 },
+    { spin: 1, l: 20, m: -20, a: 0.9999, omega: 5 },
+    { spin: 0.5, l: 10.5, m: -10.5, a: 0.99999, omega: 10 },
+  ];
+  const extremal = EXTREMAL.map(point);
+  console.log('\n4. near-extremal counter-rotating modes: ms riccati / ms ode (ratio riccati/median)');
   console.log(
-    `\n4. accuracy over ${all.length} points with |Γ| ≥ 1e-30: largest |Γ_riccati/Γ_ode − 1| ${fmt(maximum(all.map((r) => r.diff)))}, largest relError ${fmt(
+    table(
+      ['spin, l, m, a, Mω', 'cost', 'relError'],
+      extremal.map((r) => [
+        `${r.spin}, ${r.l}, ${r.m}, ${r.a}, ${r.omega}`,
+        `${fmt(r.msRiccati)} / ${fmt(r.msOde)} (${fmt(r.msRiccati / medRic)})`,
+        fmt(r.relError),
+      ]),
+    ),
+  );
+
+  const all = [...med, ...wide, ...massive, ...extremal].filter((r) => Number.isFinite(r.diff) && r.log10Gamma > -30);
+  console.log(
+    `\n5. accuracy over ${all.length} points with |Γ| ≥ 1e-30: largest |Γ_riccati/Γ_ode − 1| ${fmt(maximum(all.map((r) => r.diff)))}, largest relError ${fmt(
       maximum(all.map((r) => r.relError)),
     )}`,
   );

@@ -22,7 +22,15 @@ export { diracRhs } from './dirac/equation.js';
 export { type DiracFarSeries, diracFarSeries, evaluateDiracFar, farMatrices } from './dirac/farSeries.js';
 export { type DiracHorizonStart, diracHorizonStart } from './dirac/horizonSeries.js';
 export type { C, V2, M2 } from './dirac/complex2.js';
-export { integrateHybridLeg, riccatiWorthIt, WKB_LIMIT, MIN_PHASE } from './hybridLeg.js';
+export {
+  type HybridSegment,
+  integrateHybridLeg,
+  chargedSteps,
+  riccatiWorthIt,
+  WKB_LIMIT,
+  MIN_PHASE,
+  RICCATI_STEP_CHARGE,
+} from './hybridLeg.js';
 export {
   type RiccatiEquation,
   type RiccatiStep,
