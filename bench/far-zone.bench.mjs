@@ -11,7 +11,8 @@
 //  4. near-extremal counter-rotating modes (a = 0.99999, m < 0), where the
 //     near-horizon solution winds like x^(−ik/2κ);
 //  5. accuracy: |Γ_riccati/Γ_ode − 1| and the reported relError at each point.
-// Run: `npm run build && node bench/far-zone.bench.mjs`. Results: bench/results/far-zone-<date>.json.
+// Run: `npm run build && node bench/far-zone.bench.mjs`. Results: bench/results/far-zone-<date>.json
+// (and the printed tables, saved by hand, in far-zone-<date>.txt).
 import os from 'node:os';
 import { greybody } from '@penumbra/flux';
 import { cpuMsPerCall, fmt, maximum, median, table, writeResult } from './lib.mjs';
@@ -219,6 +220,7 @@ function main() {
     byOmega,
     byL,
     massive,
+    extremal,
     load: load(),
   });
   console.log(`results: ${path}`);

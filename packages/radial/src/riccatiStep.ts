@@ -55,6 +55,7 @@ export const MAX_PASSES = 10;
 const ACCEPT = 0.3;
 /** The rounding floor of ∫Y over a step, in units of ε·|Y|·(step length in u): collocation and quadrature over 16 nodes (common practice, no source). */
 const ROUNDING = 16;
+/** A step is refused when the two highest Chebyshev coefficients of Y (what 16 nodes leave unresolved) exceed this share of the tolerance. */
 const TAIL = 0.3;
 
 function shifted(p: Float64Array, shift: number, length: number): Float64Array {
@@ -251,7 +252,7 @@ export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, f
     out[o + 5] = -(ri * er - rr * ei) / ee;
     ratio = Math.max(ratio, Math.sqrt(y01r * y01r + y01i * y01i) / ww);
   }
-  out[18] = ratio;
+  out[LOCAL.RATIO] = ratio;
 }
 
 function horner(c: Float64Array, x: number): number {
@@ -260,7 +261,7 @@ function horner(c: Float64Array, x: number): number {
   return v;
 }
 
-/** |W| = x |√(p² − 4q)| at x: the local rate (radians or e-folds per unit of ln x) of the two solutions; allocates nothing. */
+/** x |√(p² − 4q)| at x, ≈ |W| where the Riccati step applies: the local rate (radians or e-folds per unit of ln x) of the two solutions; allocates nothing. */
 export function phaseRate(e: RiccatiEquation, x: number): number {
   const d = horner(e.delta, x);
   const iA = 1 / (d * d);
