@@ -192,7 +192,12 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
   const { spin, hole, omega, m, lambdaPlus } = p;
   const k = omega - m * hole.omegaH;
   const C2 = starobinskyConstantSquared(spin, lambdaPlus, hole, m, omega);
-  const common = { startFraction: options.startFraction, matchRadius: options.matchRadius, integrator };
+  const common = {
+    startFraction: options.startFraction,
+    matchRadius: options.matchRadius,
+    integrator,
+    ...(options.oscillation ? { oscillation: options.oscillation } : {}),
+  };
 
   // At the superradiant threshold k = 0 exactly the ingoing and outgoing horizon
   // solutions coincide; Γ vanishes there for bosons (it is proportional to k).
@@ -211,7 +216,7 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
     let checkEvaluations = 0;
     if (relError > tol / SINGLE_SOLVE_MARGIN) {
       // The check solve moves the start and matching radii too, so it sees the series truncation and part of the rounding (errorEstimate.ts).
-      const check = solveMode(p, { ...checkGeometry(hole, fine.diagnostics), integrator, tol: odeTol * 10, reflection: false });
+      const check = solveMode(p, { ...common, ...checkGeometry(hole, fine.diagnostics), tol: odeTol * 10, reflection: false });
       relError = gammaErrorEstimate(fine.sign, fine.lnGamma, check.lnGamma, budget, floor);
       checkEvaluations = check.diagnostics.rhsEvaluations;
     }

@@ -20,7 +20,7 @@ import {
   type Mode,
 } from '@penumbra/core';
 import { retrogradeImpactParameter } from '@penumbra/kerr';
-import { INTEGRATORS, type IntegratorName } from '@penumbra/radial';
+import { INTEGRATORS, OSCILLATIONS, type IntegratorName, type Oscillation } from '@penumbra/radial';
 import { PROCA_POLARIZATIONS, type ProcaPolarization } from '@penumbra/regge-wheeler';
 
 /** Frequencies the solver covers, as Mω. */
@@ -101,6 +101,8 @@ export interface GreybodyOptions {
   matchRadius?: number;
   /** also compute the reflection coefficient from the −|s| field (default true) */
   reflection?: boolean;
+  /** how fast-oscillating stretches are crossed: Riccati steps ('riccati', default) or the ODE integrator throughout ('ode', the earlier route, kept for cross-checks); @penumbra/radial */
+  oscillation?: Oscillation;
   /** massive vector only (spin 1, mass > 0): which polarisation (default 'odd', or 'monopole' at l = 0); see docs/massive-vector.md */
   polarization?: ProcaPolarization;
 }
@@ -116,6 +118,7 @@ export const GREYBODY_OPTIONS = {
   },
   matchRadius: numberIn(3, 1e8),
   reflection: isBoolean,
+  oscillation: oneOf(OSCILLATIONS),
   polarization: oneOf(PROCA_POLARIZATIONS),
 };
 

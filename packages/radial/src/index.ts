@@ -20,3 +20,4 @@ export {
   type DiracRadialDiagnostics,
   type DiracRadialSolution,
 } from './dirac/solveDirac.js';
+export { OSCILLATIONS, type Oscillation } from './hybridLeg.js';

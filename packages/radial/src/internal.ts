@@ -22,3 +22,22 @@ export { diracRhs } from './dirac/equation.js';
 export { type DiracFarSeries, diracFarSeries, evaluateDiracFar, farMatrices } from './dirac/farSeries.js';
 export { type DiracHorizonStart, diracHorizonStart } from './dirac/horizonSeries.js';
 export type { C, V2, M2 } from './dirac/complex2.js';
+export {
+  type HybridSegment,
+  integrateHybridLeg,
+  chargedSteps,
+  riccatiWorthIt,
+  WKB_LIMIT,
+  MIN_PHASE,
+  RICCATI_STEP_CHARGE,
+} from './hybridLeg.js';
+export {
+  type RiccatiEquation,
+  type RiccatiStep,
+  riccatiEquation,
+  riccatiStep,
+  localRiccati,
+  phaseRate,
+  RICCATI_NODES,
+} from './riccatiStep.js';
+export { type ChebyshevRule, chebyshevRule, chebyshevTail } from './chebyshev.js';

@@ -4,6 +4,7 @@
  * naming the key.
  */
 import { InputError, isBoolean, numberIn, oneOf, requireFinite, validateOptions, type OptionSpec } from '@penumbra/core';
+import { OSCILLATIONS, type Oscillation } from './hybridLeg.js';
 import { INTEGRATORS, type IntegratorName } from './integrators.js';
 
 /** How the radial function is integrated: R itself, or u = e^{iφ}R with the ingoing phase removed. */
@@ -28,6 +29,8 @@ export interface RadialOptions {
   integrator?: IntegratorName;
   /** integrate R itself ('plain', default) or u = e^{iφ}R with the ingoing phase removed ('phase'; a second formulation for cross-checks) */
   variable?: RadialVariable;
+  /** cross fast-oscillating stretches by Riccati steps ('riccati', default; cost independent of the number of oscillations) or integrate them ('ode', the earlier route, kept for cross-checks) */
+  oscillation?: Oscillation;
   /**
    * whether the reflected amplitude is wanted (default true). The one-sided
    * route gets Z_out from the same integration, so there it changes nothing;
@@ -60,17 +63,22 @@ export interface ResolvedOptions {
   variable: RadialVariable;
   /** as `RadialOptions.reflection` */
   reflection: boolean;
+  /** as `RadialOptions.oscillation` */
+  oscillation: Oscillation;
   /** as `TwoSidedOptions.switchRadius` (undefined: the default) */
   switchRadius?: number;
 }
 
 /** Defaults of the options that have one. */
-export const RADIAL_DEFAULTS: Readonly<Pick<ResolvedOptions, 'tol' | 'maxSteps' | 'integrator' | 'variable' | 'reflection'>> = {
+export const RADIAL_DEFAULTS: Readonly<
+  Pick<ResolvedOptions, 'tol' | 'maxSteps' | 'integrator' | 'variable' | 'reflection' | 'oscillation'>
+> = {
   tol: 1e-12,
   maxSteps: 1_000_000,
   integrator: INTEGRATORS[0],
   variable: RADIAL_VARIABLES[0],
   reflection: true,
+  oscillation: OSCILLATIONS[0],
 };
 
 function positiveRadius(value: unknown, parameter: string): number {
@@ -104,6 +112,7 @@ const radialSpec: OptionSpec<RadialOptions> = {
   integrator: oneOf(INTEGRATORS),
   variable: oneOf(RADIAL_VARIABLES),
   reflection: isBoolean,
+  oscillation: oneOf(OSCILLATIONS),
 };
 
 const twoSidedSpec: OptionSpec<TwoSidedOptions> = { ...radialSpec, switchRadius: positiveRadius };
@@ -119,6 +128,7 @@ function withDefaults(given: Partial<TwoSidedOptions>): ResolvedOptions {
     integrator: given.integrator ?? RADIAL_DEFAULTS.integrator,
     variable: given.variable ?? RADIAL_DEFAULTS.variable,
     reflection: given.reflection ?? RADIAL_DEFAULTS.reflection,
+    oscillation: given.oscillation ?? RADIAL_DEFAULTS.oscillation,
     switchRadius: given.switchRadius,
   };
 }

@@ -16,7 +16,7 @@ import { startAtHorizon } from './horizonStart.js';
 import { radialEquation } from './equation.js';
 import { resolveRadialOptions, type RadialOptions } from './options.js';
 import { validateProblem, type RadialProblem } from './problem.js';
-import { integrateLeg } from './shooting.js';
+import { chargedSteps, integrateHybridLeg } from './hybridLeg.js';
 import type { Complex2, RadialSolution } from './solution.js';
 
 function logAbs(z: Complex2): number {
@@ -52,27 +52,30 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
   if (!(match.r > r0)) throw new InputError('matchRadius', `> start radius ${r0}`, match.r);
   const counter = { evaluations: 0 };
   const y = new Float64Array([start.R[0], start.R[1], start.dR[0], start.dR[1]]);
-  const seg = integrateLeg({
-    hole,
-    mode,
-    equation,
-    y,
-    from: r0,
-    fromOffset: start.x0,
-    to: match.r,
-    stops: opts.grid,
-    tol: opts.tol,
-    integrator: opts.integrator,
-    maxSteps: opts.maxSteps,
-    variable: opts.variable,
-    counter,
-    method,
-  });
+  const seg = integrateHybridLeg(
+    {
+      hole,
+      mode,
+      equation,
+      y,
+      from: r0,
+      fromOffset: start.x0,
+      to: match.r,
+      stops: opts.grid,
+      tol: opts.tol,
+      integrator: opts.integrator,
+      maxSteps: opts.maxSteps,
+      variable: opts.variable,
+      counter,
+      method,
+    },
+    opts.oscillation,
+  );
   const { zIn, zOut } = matchAmplitudes(y, match.vin, match.vout);
   const farTruncation = Math.max(match.vin.truncation, match.vout.truncation);
   const amplification = oneSidedAmplification(hole, mode.s, mode.omega, start.x0, match.r);
   const errorEstimate = singleSolveErrorEstimate({
-    steps: seg.steps,
+    steps: chargedSteps(seg),
     tol: opts.tol,
     horizonTruncation: start.truncation,
     farTruncation,

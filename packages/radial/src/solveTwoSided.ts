@@ -15,7 +15,8 @@ import { horizonSeriesStart, horizonWavenumber } from './horizonSeries.js';
 import { startAtHorizon } from './horizonStart.js';
 import { resolveTwoSidedOptions, type TwoSidedOptions } from './options.js';
 import { validateProblem, type RadialProblem } from './problem.js';
-import { integrateLeg, type Leg, type RawSample } from './shooting.js';
+import { chargedSteps, integrateHybridLeg } from './hybridLeg.js';
+import type { Leg, RawSample } from './shooting.js';
 import type { Complex2, RadialSample, TwoSidedSolution } from './solution.js';
 import { applyStarobinskyMap, starobinskyHorizonFactor, starobinskyMapAt } from './starobinskyMap.js';
 
@@ -93,8 +94,9 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
 
   // −s leg: horizon → switching radius (→ far zone for Y_out).
   const y = new Float64Array([start.R[0], start.R[1], start.dR[0], start.dR[1]]);
-  const segMinus = integrateLeg(
+  const segMinus = integrateHybridLeg(
     leg(minus, minusEquation, y, r0, opts.reflection ? matchMinus.r : rSwitch, [...inner, rSwitch], 0, start.x0),
+    opts.oscillation,
   );
   const minusAmps = opts.reflection
     ? matchAmplitudes(y, matchMinus.vin, matchMinus.vout)
@@ -104,8 +106,9 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   const atSwitch = segMinus.raw[segMinus.raw.length - 1];
   const rawSwitch = applyStarobinskyMap(starobinskyMapAt(hole, minus, rSwitch), atSwitch.y);
   const yPlus = new Float64Array(rawSwitch);
-  const segPlus = integrateLeg(
+  const segPlus = integrateHybridLeg(
     leg(plus, radialEquation(hole, plus, hole.rPlus), yPlus, rSwitch, matchPlus.r, outer, atSwitch.logScale),
+    opts.oscillation,
   );
   const amp = matchAmplitudes(yPlus, matchPlus.vin, matchPlus.vout);
   const k = horizonWavenumber(hole, plus);
@@ -139,7 +142,13 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   const horizonTruncation = start.truncation;
   const farTruncation = Math.max(matchMinus.vout.truncation, matchPlus.vin.truncation);
   const steps = segMinus.steps + segPlus.steps;
-  const errorEstimate = singleSolveErrorEstimate({ steps, tol: opts.tol, horizonTruncation, farTruncation, amplification: 1 });
+  const errorEstimate = singleSolveErrorEstimate({
+    steps: chargedSteps(segMinus) + chargedSteps(segPlus),
+    tol: opts.tol,
+    horizonTruncation,
+    farTruncation,
+    amplification: 1,
+  });
   return {
     logAbsZInPlus: logAbs(amp.zIn) + segPlus.logScale - logH,
     logAbsZOutPlus: logAbs(amp.zOut) + segPlus.logScale - logH,

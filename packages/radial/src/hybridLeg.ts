@@ -1,0 +1,190 @@
+/**
+ * A leg crossed by Riccati steps where the solution oscillates (or grows and
+ * decays) fast, and by the ODE integrator elsewhere (docs/method.md,
+ * section 9). The leg is cut on a geometric ladder in x = r − r+ (each rung
+ * multiplies x by RUNG; in u = ln x the nearest singularity of the
+ * coefficients, r−, is π away from the real axis); a rung is given to a
+ * Riccati step when a cheap look says the WKB ratio is small and the rung
+ * holds enough phase to be worth it. A Riccati step that fails is halved in
+ * ln x up to MAX_SPLITS times (near a turning point the branch point of W
+ * limits what one rung resolves) and what still fails goes to the
+ * integrator. Where no rung qualifies the leg is exactly `integrateLeg`'s,
+ * so low-frequency modes are unchanged bit for bit.
+ */
+import type { RadialSample } from './solution.js';
+import { LOCAL, LOCAL_SIZE, localRiccati, phaseRate, type RiccatiEquation, riccatiEquation, riccatiStep } from './riccatiStep.js';
+import { integrateLeg, type Leg, type RawSample, type Segment } from './shooting.js';
+
+/** How oscillatory stretches of a leg are crossed: Riccati steps where they apply ('riccati', default), or the ODE integrator throughout ('ode', the earlier route, kept for cross-checks). */
+export type Oscillation = 'riccati' | 'ode';
+
+/** Every accepted `oscillation`; the first is the default. */
+export const OSCILLATIONS: readonly Oscillation[] = ['riccati', 'ode'];
+
+/** Rung ratio of the ladder in x = r − r+ (measured against 2: fewer steps, the same failures after halving). */
+const RUNG = 4;
+/** Largest WKB ratio |Y₀'|/|W|² (in u = ln x) at the probe points of a rung given to a Riccati step. */
+export const WKB_LIMIT = 0.08;
+/** Least phase (or growth) ∫|W|/2 du, in radians, on a rung given to a Riccati step: below it the integrator was measured to be as cheap (bench/far-zone.bench.mjs). */
+export const MIN_PHASE = 20;
+
+/** Times a failed rung is halved before the integrator takes it. */
+const MAX_SPLITS = 4;
+
+const OVERFLOW = 1e150;
+const RESCALE = 1e-300;
+const LN_RESCALE = 300 * Math.LN10;
+
+interface Point {
+  x: number;
+  r: number;
+}
+
+const probe = new Float64Array(LOCAL_SIZE);
+
+/**
+ * Whether a Riccati step on [xa, xb] looks worth trying: at five points (in
+ * u = ln x) the WKB ratio |Y₀'|/|W|² is below WKB_LIMIT, and the phase (or
+ * growth) ∫|W|/2 du on the rung is above MIN_PHASE.
+ */
+export function riccatiWorthIt(e: RiccatiEquation, xa: number, xb: number): boolean {
+  const K = 5;
+  const ua = Math.log(xa),
+    du = (Math.log(xb) - ua) / (K - 1);
+  let phase = 0,
+    prev = 0;
+  for (let j = 0; j < K; j++) {
+    localRiccati(e, j === K - 1 ? xb : Math.exp(ua + j * du), probe);
+    if (!(probe[LOCAL.RATIO] < WKB_LIMIT)) return false;
+    const W = Math.sqrt(probe[LOCAL.W] ** 2 + probe[LOCAL.W + 1] ** 2);
+    if (j > 0) phase += 0.25 * (W + prev) * du;
+    prev = W;
+  }
+  return phase > MIN_PHASE;
+}
+
+/**
+ * What a Riccati step is charged in a solve's local-error accumulation bound
+ * (steps × tol), in integrator steps: a step is accepted with up to 0.3 tol
+ * from the last correction and 0.3 tol from the unresolved tail for each of
+ * its two solutions, and covers a rung x → 4x. Measured against tight 'ode'
+ * solves on random modes (docs/method.md, section 9): with a charge of 4 the
+ * true error reached 0.5 of the greybody estimate; 10 keeps the margin of
+ * the integrator-only route (0.37).
+ */
+export const RICCATI_STEP_CHARGE = 10;
+
+/** A leg's segment with its Riccati steps counted apart. */
+export interface HybridSegment extends Segment {
+  /** Riccati steps taken (included in `steps`) */
+  riccatiSteps: number;
+}
+
+/** The steps a segment charges to the accumulation bound: integrator steps plus RICCATI_STEP_CHARGE per Riccati step. */
+export function chargedSteps(seg: HybridSegment): number {
+  return seg.steps + (RICCATI_STEP_CHARGE - 1) * seg.riccatiSteps;
+}
+
+function plain(seg: Segment): HybridSegment {
+  return { ...seg, riccatiSteps: 0 };
+}
+
+/** Integrate one leg, by Riccati steps where they apply (see above) or entirely by `integrateLeg` ('ode'). */
+export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSegment {
+  if (oscillation === 'ode' || leg.variable === 'phase') return plain(integrateLeg(leg));
+  const { hole } = leg;
+  const rPlus = hole.rPlus;
+  const e = riccatiEquation(leg.equation, rPlus);
+  const ladder: Point[] = [{ x: leg.fromOffset ?? leg.from - rPlus, r: leg.from }];
+  const xEnd = leg.to - rPlus;
+  const inside = leg.stops.filter((g) => g > leg.from && g < leg.to);
+  let k = 0;
+  for (;;) {
+    const last = ladder[ladder.length - 1];
+    let next: Point = last.x * RUNG >= xEnd ? { x: xEnd, r: leg.to } : { x: last.x * RUNG, r: rPlus + last.x * RUNG };
+    while (k < inside.length && inside[k] <= last.r) k++;
+    if (k < inside.length && inside[k] < next.r) next = { x: inside[k] - rPlus, r: inside[k] };
+    if (!(next.x > last.x)) break;
+    ladder.push(next);
+    if (next.r === leg.to) break;
+  }
+  // A cheap look first (the rate at the rung ends): most low-frequency legs stop here.
+  const rungPhase = (from: Point, to: Point, rateFrom: number, rateTo: number) =>
+    0.25 * (rateFrom + rateTo) * Math.log(to.x / from.x);
+  const rates = ladder.map((p) => phaseRate(e, p.x));
+  const good = ladder
+    .slice(1)
+    .map((p, i) => rungPhase(ladder[i], p, rates[i], rates[i + 1]) > 0.5 * MIN_PHASE && riccatiWorthIt(e, ladder[i].x, p.x));
+  if (!good.includes(true)) return plain(integrateLeg(leg));
+
+  const y = leg.y;
+  let logScale = leg.logScale ?? 0;
+  let steps = 0,
+    riccatiSteps = 0,
+    rescalings = 0;
+  const samples: RadialSample[] = [];
+  const raw: RawSample[] = [];
+  const scale = new Float64Array(1);
+  const byOde = (from: Point, to: Point) => {
+    const seg = integrateLeg({
+      ...leg,
+      from: from.r,
+      fromOffset: from.x,
+      to: to.r,
+      logScale,
+      maxSteps: Math.max(leg.maxSteps - steps, 1),
+    });
+    steps += seg.steps;
+    rescalings += seg.rescalings;
+    logScale = seg.logScale;
+    samples.push(...seg.samples);
+    raw.push(...seg.raw);
+  };
+  // One rung by a Riccati step; a rung that fails is halved (in ln x) up to MAX_SPLITS times before the
+  // integrator takes it: near a turning point the branch point of W limits the resolution of a whole rung.
+  const byRiccati = (from: Point, to: Point, rateFrom: number, rateTo: number, depth: number): void => {
+    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale);
+    // counted as right-hand-side evaluations: the coefficients at every node, and one collocation pass per node and pass
+    leg.counter.evaluations += step.evaluations * (1 + step.passes);
+    if (!step.ok) {
+      const xm = Math.sqrt(from.x * to.x);
+      const mid = { x: xm, r: rPlus + xm };
+      const rateMid = phaseRate(e, xm);
+      if (
+        depth < MAX_SPLITS &&
+        rungPhase(from, mid, rateFrom, rateMid) > 0.5 * MIN_PHASE &&
+        rungPhase(mid, to, rateMid, rateTo) > 0.5 * MIN_PHASE
+      ) {
+        byRiccati(from, mid, rateFrom, rateMid, depth + 1);
+        byRiccati(mid, to, rateMid, rateTo, depth + 1);
+      } else byOde(from, to);
+      return;
+    }
+    steps++;
+    riccatiSteps++;
+    logScale += scale[0];
+    if (Math.abs(y[0]) + Math.abs(y[1]) > OVERFLOW) {
+      for (let c = 0; c < 4; c++) y[c] *= RESCALE;
+      logScale += LN_RESCALE;
+      rescalings++;
+    }
+    if (leg.stops.includes(to.r)) {
+      const f = Math.exp(logScale);
+      samples.push({ r: to.r, R: { re: y[0] * f, im: y[1] * f }, dR: { re: y[2] * f, im: y[3] * f } });
+      raw.push({ r: to.r, y: Array.from(y), logScale });
+    }
+  };
+  let i = 0;
+  while (i < good.length) {
+    if (!good[i]) {
+      let j = i;
+      while (j < good.length && !good[j]) j++;
+      byOde(ladder[i], ladder[j]);
+      i = j;
+      continue;
+    }
+    byRiccati(ladder[i], ladder[i + 1], rates[i], rates[i + 1], 0);
+    i++;
+  }
+  return { logScale, steps, rescalings, samples, raw, riccatiSteps };
+}

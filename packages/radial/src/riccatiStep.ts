@@ -1,0 +1,534 @@
+/**
+ * One Riccati step of the radial equation A R'' + B R' + C R = 0 across an
+ * interval [xa, xb] (x = r − r+), at a cost that does not grow with the
+ * number of oscillations in it (docs/method.md, section 9).
+ *
+ * With R = exp(∫y dx) and, in u = ln x, Y = x y, the Riccati equation is
+ *
+ *   Y_u + Y² + P Y + Q = 0,   P = x B/A − 1, Q = x² C/A.
+ *
+ * Where the solutions oscillate (or grow and decay) fast against the scale on
+ * which P and Q vary, it has two slowly varying solutions Y±, started from
+ * the roots (−P ± W)/2 of Y² + PY + Q = 0, W = √(P² − 4Q), and refined by the
+ * defect correction Y ← Y − (Y_u + Y² + PY + Q)/(2Y + P): the first two
+ * passes analytically (`localRiccati`), the rest with Y_u by Chebyshev
+ * collocation in u (the idea of Agocs & Barnett, SIAM J. Numer. Anal. 62
+ * (2024): each pass gains a factor of the ratio of the variation scale to the
+ * local wavelength, so the number of passes and nodes is set by the
+ * tolerance, not by the frequency). Then R = α e^{∫Y+} + β e^{∫Y−} on the
+ * interval, with α, β fixed by (R, R') at xa and ∫Y du by Clenshaw–Curtis
+ * quadrature: the state is carried to xb exactly up to the residual of the
+ * two Riccati solutions.
+ *
+ * A step that does not converge (a turning point inside, too few
+ * oscillations, the interval unresolved) reports failure and the caller
+ * integrates that interval with the ODE integrator instead.
+ */
+import { type ChebyshevRule, chebyshevRule, chebyshevTail } from './chebyshev.js';
+import type { RadialEquation } from './equation.js';
+
+/** The coefficients of A R'' + B R' + C R = 0 in powers of x = r − r+ (A = Δ², Δ real). */
+export interface RiccatiEquation {
+  /** Δ in powers of x (3 coefficients) */
+  delta: Float64Array;
+  /** Re B, Im B, Re C, Im C in powers of x (5 coefficients each) */
+  bRe: Float64Array;
+  /** imaginary parts of B */
+  bIm: Float64Array;
+  /** real parts of C */
+  cRe: Float64Array;
+  /** imaginary parts of C */
+  cIm: Float64Array;
+}
+
+/**
+ * Node count of a Riccati step. In u = ln x the nearest singularity of P and
+ * Q (r = r−) lies π off the real axis, so a rung [x, 4x] (half-length 0.69)
+ * sits in a Bernstein ellipse of ρ ≈ 9 and 16 nodes resolve it to ~1e-15;
+ * more nodes amplify rounding in the collocation derivative (measured: 20
+ * and 24 failed more rungs than 16).
+ */
+export const RICCATI_NODES = 16;
+/** Largest number of defect-correction passes. */
+export const MAX_PASSES = 10;
+/** A solution is accepted once the last correction moves ∫y and y by less than this share of the tolerance. */
+const ACCEPT = 0.3;
+/** The rounding floor of ∫Y over a step, in units of ε·|Y|·(step length in u): collocation and quadrature over 16 nodes (common practice, no source). */
+const ROUNDING = 16;
+/** A step is refused when the two highest Chebyshev coefficients of Y (what 16 nodes leave unresolved) exceed this share of the tolerance. */
+const TAIL = 0.3;
+
+function shifted(p: Float64Array, shift: number, length: number): Float64Array {
+  // Coefficients of p(x + shift): re-expand about the new origin (Taylor shift).
+  const out = new Float64Array(length);
+  const c = Array.from(p);
+  for (let k = 0; k < length && k < c.length; k++) {
+    // out[k] = Σ_{j≥k} C(j,k) c_j shift^{j−k}
+    let sum = 0;
+    let binom = 1;
+    let pw = 1;
+    for (let j = k; j < c.length; j++) {
+      sum += binom * c[j] * pw;
+      binom = (binom * (j + 1)) / (j + 1 - k);
+      pw *= shift;
+    }
+    out[k] = sum;
+  }
+  return out;
+}
+
+/** The coefficients of an unsubstituted (or substituted) radial equation about r+, for Riccati steps in x = r − r+. */
+export function riccatiEquation(eq: RadialEquation, rPlus: number): RiccatiEquation {
+  const shift = rPlus - eq.center;
+  const take = (p: Float64Array, n: number) =>
+    shift === 0 ? Float64Array.from({ length: n }, (_, i) => p[i] ?? 0) : shifted(p, shift, n);
+  return {
+    delta: take(eq.delta.re, 3),
+    bRe: take(eq.B.re, 5),
+    bIm: take(eq.B.im, 5),
+    cRe: take(eq.C.re, 5),
+    cIm: take(eq.C.im, 5),
+  };
+}
+
+/** v, v', v'' of the real polynomial Σ c_k x^k at x, into out[o..o+2]. */
+function jet(c: Float64Array, x: number, out: Float64Array, o: number): void {
+  let v = 0,
+    d1 = 0,
+    d2 = 0;
+  for (let k = c.length - 1; k >= 0; k--) {
+    d2 = d2 * x + d1;
+    d1 = d1 * x + v;
+    v = v * x + c[k];
+  }
+  out[o] = v;
+  out[o + 1] = d1;
+  out[o + 2] = 2 * d2;
+}
+
+/** Layout of `localRiccati`'s output (Float64Array(LOCAL_SIZE)). */
+export const LOCAL = {
+  /** P = xp − 1 (re, im) */
+  P: 0,
+  /** Q = x²q */
+  Q: 2,
+  /** W = √(P² − 4Q) (principal root, or its negative when flipped) */
+  W: 4,
+  /** per σ = +1 (offset 6) and −1 (offset 12): Y₁ (re, im), Y₁' and δ₂ */
+  PLUS: 6,
+  /** as PLUS for σ = −1 */
+  MINUS: 12,
+  /** the WKB ratio |Y₀'|/|W|² (the larger over σ) */
+  RATIO: 18,
+} as const;
+
+/** Length of `localRiccati`'s output. */
+export const LOCAL_SIZE = 19;
+
+const scratch = new Float64Array(9);
+
+/**
+ * The Riccati data of `e` at x, in u = ln x: with Y = x y, the Riccati
+ * equation becomes Y_u + Y² + P Y + Q = 0, P = xp − 1, Q = x²q, where
+ * p = B/A, q = C/A (the pole of p and q at the horizon disappears, so a rung
+ * [x, 2x] is resolved by few nodes). Written into `out` (layout LOCAL): P, Q,
+ * W = √(P² − 4Q) and, for each sign σ of W, the second WKB iterate written
+ * analytically (docs/method.md, section 9):
+ *   Y₀ = (σW − P)/2 (a root of Y² + PY + Q), δ₁ = −Y₀'/(σW),
+ *   Y₁ = Y₀ + δ₁ with its exact derivative, δ₂ = −(δ₁' + δ₁²)/(σW + 2δ₁),
+ * the derivatives coming from those of the polynomial coefficients, so that
+ * no collocation derivative touches the large part of Y. `flip` takes the
+ * other root W (to continue a branch). Allocates nothing.
+ */
+export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, flip = false): void {
+  const j = scratch;
+  jet(e.delta, x, j, 0);
+  const a0 = j[0] * j[0],
+    a1 = 2 * j[0] * j[1],
+    a2 = 2 * j[1] * j[1] + 2 * j[0] * j[2];
+  // p, p', p'' and q, q', q'' (x-derivatives) of B/A and C/A
+  jet(e.bRe, x, j, 3);
+  jet(e.bIm, x, j, 6);
+  const pr = j[3] / a0,
+    pi = j[6] / a0;
+  const pr1 = (j[4] - pr * a1) / a0,
+    pi1 = (j[7] - pi * a1) / a0;
+  const pr2 = (j[5] - 2 * pr1 * a1 - pr * a2) / a0,
+    pi2 = (j[8] - 2 * pi1 * a1 - pi * a2) / a0;
+  jet(e.cRe, x, j, 3);
+  jet(e.cIm, x, j, 6);
+  const qr = j[3] / a0,
+    qi = j[6] / a0;
+  const qr1 = (j[4] - qr * a1) / a0,
+    qi1 = (j[7] - qi * a1) / a0;
+  const qr2 = (j[5] - 2 * qr1 * a1 - qr * a2) / a0,
+    qi2 = (j[8] - 2 * qi1 * a1 - qi * a2) / a0;
+  // to u = ln x: P = xp − 1, Q = x²q, d/du = x d/dx
+  const x2 = x * x,
+    x3 = x2 * x,
+    x4 = x3 * x;
+  const Pr = x * pr - 1,
+    Pi = x * pi;
+  const Pr1 = x * pr + x2 * pr1,
+    Pi1 = x * pi + x2 * pi1;
+  const Pr2 = x * pr + 3 * x2 * pr1 + x3 * pr2,
+    Pi2 = x * pi + 3 * x2 * pi1 + x3 * pi2;
+  const Qr = x2 * qr,
+    Qi = x2 * qi;
+  const Qr1 = 2 * x2 * qr + x3 * qr1,
+    Qi1 = 2 * x2 * qi + x3 * qi1;
+  const Qr2 = 4 * x2 * qr + 5 * x3 * qr1 + x4 * qr2,
+    Qi2 = 4 * x2 * qi + 5 * x3 * qi1 + x4 * qi2;
+  // Z = P² − 4Q and its derivatives; W = √Z, W' = Z'/(2W), W'' = (Z'' − 2W'²)/(2W)
+  const Zr = Pr * Pr - Pi * Pi - 4 * Qr,
+    Zi = 2 * Pr * Pi - 4 * Qi;
+  const Zr1 = 2 * (Pr * Pr1 - Pi * Pi1) - 4 * Qr1,
+    Zi1 = 2 * (Pr * Pi1 + Pi * Pr1) - 4 * Qi1;
+  const Zr2 = 2 * (Pr1 * Pr1 - Pi1 * Pi1 + Pr * Pr2 - Pi * Pi2) - 4 * Qr2,
+    Zi2 = 2 * (2 * Pr1 * Pi1 + Pr * Pi2 + Pi * Pr2) - 4 * Qi2;
+  const mod = Math.sqrt(Zr * Zr + Zi * Zi);
+  let Wr = Math.sqrt(0.5 * (mod + Zr)),
+    Wi = Math.sqrt(Math.max(0.5 * (mod - Zr), 0)) * (Zi < 0 ? -1 : 1);
+  if (flip) {
+    Wr = -Wr;
+    Wi = -Wi;
+  }
+  const ww = Wr * Wr + Wi * Wi;
+  // 1/(2W)
+  const hr = (0.5 * Wr) / ww,
+    hi = (-0.5 * Wi) / ww;
+  const W1r = Zr1 * hr - Zi1 * hi,
+    W1i = Zr1 * hi + Zi1 * hr;
+  const tr = Zr2 - 2 * (W1r * W1r - W1i * W1i),
+    ti = Zi2 - 4 * W1r * W1i;
+  const W2r = tr * hr - ti * hi,
+    W2i = tr * hi + ti * hr;
+  out[0] = Pr;
+  out[1] = Pi;
+  out[2] = Qr;
+  out[3] = Qi;
+  out[4] = Wr;
+  out[5] = Wi;
+  let ratio = 0;
+  for (let k = 0; k < 2; k++) {
+    const sg = k === 0 ? 1 : -1;
+    const gr = sg * Wr,
+      gi = sg * Wi,
+      g1r = sg * W1r,
+      g1i = sg * W1i,
+      g2r = sg * W2r,
+      g2i = sg * W2i;
+    const y0r = 0.5 * (gr - Pr),
+      y0i = 0.5 * (gi - Pi);
+    const y01r = 0.5 * (g1r - Pr1),
+      y01i = 0.5 * (g1i - Pi1);
+    const y02r = 0.5 * (g2r - Pr2),
+      y02i = 0.5 * (g2i - Pi2);
+    // 1/g = conj(g)/|g|²
+    const igr = gr / ww,
+      igi = -gi / ww;
+    // δ₁ = −Y₀'/g
+    const d1r = -(y01r * igr - y01i * igi),
+      d1i = -(y01r * igi + y01i * igr);
+    // δ₁' = (Y₀' g' − Y₀'' g)/g²
+    const nr = y01r * g1r - y01i * g1i - (y02r * gr - y02i * gi),
+      ni = y01r * g1i + y01i * g1r - (y02r * gi + y02i * gr);
+    const ig2r = igr * igr - igi * igi,
+      ig2i = 2 * igr * igi;
+    const d11r = nr * ig2r - ni * ig2i,
+      d11i = nr * ig2i + ni * ig2r;
+    // δ₂ = −(δ₁' + δ₁²)/(g + 2δ₁)
+    const rr = d11r + d1r * d1r - d1i * d1i,
+      ri = d11i + 2 * d1r * d1i;
+    const er = gr + 2 * d1r,
+      ei = gi + 2 * d1i;
+    const ee = er * er + ei * ei;
+    const o = k === 0 ? 6 : 12;
+    out[o] = y0r + d1r;
+    out[o + 1] = y0i + d1i;
+    out[o + 2] = y01r + d11r;
+    out[o + 3] = y01i + d11i;
+    out[o + 4] = -(rr * er + ri * ei) / ee;
+    out[o + 5] = -(ri * er - rr * ei) / ee;
+    ratio = Math.max(ratio, Math.sqrt(y01r * y01r + y01i * y01i) / ww);
+  }
+  out[LOCAL.RATIO] = ratio;
+}
+
+function horner(c: Float64Array, x: number): number {
+  let v = 0;
+  for (let k = c.length - 1; k >= 0; k--) v = v * x + c[k];
+  return v;
+}
+
+/** x |√(p² − 4q)| at x, ≈ |W| where the Riccati step applies: the local rate (radians or e-folds per unit of ln x) of the two solutions; allocates nothing. */
+export function phaseRate(e: RiccatiEquation, x: number): number {
+  const d = horner(e.delta, x);
+  const iA = 1 / (d * d);
+  const pr = horner(e.bRe, x) * iA,
+    pi = horner(e.bIm, x) * iA;
+  const qr = horner(e.cRe, x) * iA,
+    qi = horner(e.cIm, x) * iA;
+  return x * Math.sqrt(Math.sqrt((pr * pr - pi * pi - 4 * qr) ** 2 + (2 * pr * pi - 4 * qi) ** 2));
+}
+
+/** Result of one Riccati step. */
+export interface RiccatiStep {
+  /** whether both Riccati solutions converged and are resolved on the interval */
+  ok: boolean;
+  /** defect-correction passes taken (the more of the two solutions) */
+  passes: number;
+  /** coefficient evaluations made (nodes × 1, for the work count) */
+  evaluations: number;
+}
+
+/** Work arrays of one node count, reused across steps. */
+interface Work {
+  rule: ChebyshevRule;
+  pRe: Float64Array;
+  pIm: Float64Array;
+  qRe: Float64Array;
+  qIm: Float64Array;
+  /** per σ (offset 0 for +, n for −): y₁, y₁' and the running correction c (y = y₁ + c) */
+  aRe: Float64Array;
+  aIm: Float64Array;
+  apRe: Float64Array;
+  apIm: Float64Array;
+  cRe: Float64Array;
+  cIm: Float64Array;
+  yRe: Float64Array;
+  yIm: Float64Array;
+  dRe: Float64Array;
+  dIm: Float64Array;
+  /** per solution (+, −): y at xa and xb, ∫y over [xa, xb] */
+  ends: Float64Array;
+  /** one point's `localRiccati` output */
+  local: Float64Array;
+}
+
+const works = new Map<number, Work>();
+
+function workFor(n: number): Work {
+  let w = works.get(n);
+  if (!w) {
+    const f = () => new Float64Array(n);
+    const f2 = () => new Float64Array(2 * n);
+    w = {
+      rule: chebyshevRule(n),
+      pRe: f(),
+      pIm: f(),
+      qRe: f(),
+      qIm: f(),
+      aRe: f2(),
+      aIm: f2(),
+      apRe: f2(),
+      apIm: f2(),
+      cRe: f2(),
+      cIm: f2(),
+      yRe: f(),
+      yIm: f(),
+      dRe: f(),
+      dIm: f(),
+      ends: new Float64Array(12),
+      local: new Float64Array(LOCAL_SIZE),
+    };
+    works.set(n, w);
+  }
+  return w;
+}
+
+/**
+ * Refine one Riccati solution (σ = +1: k = 0, σ = −1: k = 1) on the nodes,
+ * y = y₁ + c with y₁' exact and c' by collocation; on success writes y(xa),
+ * y(xb) and ∫y into w.ends at offset 6k. `tol` bounds the error of ∫y over
+ * the interval and the relative error of y. Returns the passes taken,
+ * negative on failure.
+ */
+function refine(w: Work, k: 0 | 1, half: number, tol: number): number {
+  const { rule, pRe, pIm, qRe, qIm, aRe, aIm, apRe, apIm, cRe, cIm, yRe, yIm, dRe, dIm } = w;
+  const n = rule.n;
+  const D = rule.D;
+  const o = k * n;
+  const inv = 1 / half;
+  let yScale = 0;
+  for (let j = 0; j < n; j++) {
+    yRe[j] = aRe[o + j] + cRe[o + j];
+    yIm[j] = aIm[o + j] + cIm[o + j];
+    yScale = Math.max(yScale, Math.sqrt(yRe[j] * yRe[j] + yIm[j] * yIm[j]));
+  }
+  const floor = ROUNDING * Number.EPSILON * 2 * half * yScale;
+  let previous = Number.POSITIVE_INFINITY;
+  let passes = 0;
+  let converged = false;
+  while (passes < MAX_PASSES) {
+    passes++;
+    for (let i = 0; i < n; i++) {
+      let sr = 0,
+        si = 0;
+      const row = i * n;
+      for (let j = 0; j < n; j++) {
+        const d = D[row + j];
+        sr += d * cRe[o + j];
+        si += d * cIm[o + j];
+      }
+      dRe[i] = apRe[o + i] + sr * inv;
+      dIm[i] = apIm[o + i] + si * inv;
+    }
+    let largest = 0;
+    for (let j = 0; j < n; j++) {
+      const yr = yRe[j],
+        yi = yIm[j];
+      // residual y' + y² + p y + q
+      const rr = dRe[j] + yr * yr - yi * yi + pRe[j] * yr - pIm[j] * yi + qRe[j];
+      const ri = dIm[j] + 2 * yr * yi + pRe[j] * yi + pIm[j] * yr + qIm[j];
+      const gr = 2 * yr + pRe[j],
+        gi = 2 * yi + pIm[j];
+      const gg = gr * gr + gi * gi;
+      const cr = -(rr * gr + ri * gi) / gg,
+        ci = -(ri * gr - rr * gi) / gg;
+      cRe[o + j] += cr;
+      cIm[o + j] += ci;
+      yRe[j] = yr + cr;
+      yIm[j] = yi + ci;
+      largest = Math.max(largest, cr * cr + ci * ci);
+    }
+    // the correction's effect on ∫y (interval length 2·half) and on y itself
+    largest = Math.sqrt(largest);
+    // Measured against the tolerance beyond the rounding floor of ∫Y itself (a phase of |Y|·2·half radians is known to ε of it).
+    const size = Math.max(2 * half * largest - floor, largest / yScale);
+    // Done when this correction, or the next one predicted from the contraction so far, is below the target.
+    const next = passes > 1 ? (size * largest) / previous : size;
+    if (size < 0.01 * tol || (next < 0.01 * tol && largest < 0.1 * previous)) {
+      converged = true;
+      break;
+    }
+    // Not contracting any more: the rounding floor of the collocation derivative (accepted when below tol) or a turning point.
+    if (passes > 1 && largest > 0.5 * previous) {
+      converged = size < ACCEPT * tol;
+      break;
+    }
+    // Contracting too slowly to arrive within MAX_PASSES: give the stretch to the integrator now.
+    if (passes > 2 && passes + Math.log((0.01 * tol) / size) / Math.log(largest / previous) > MAX_PASSES) break;
+    previous = largest;
+  }
+  if (!converged) return -passes;
+  // Unresolved on the nodes? The interpolant's highest coefficients bound what collocation missed.
+  const tail = chebyshevTail(rule, yRe, yIm);
+  if (2 * half * tail - floor > TAIL * tol || tail > TAIL * tol * yScale) return -passes;
+  let ir = 0,
+    ii = 0;
+  for (let j = 0; j < n; j++) {
+    ir += rule.w[j] * yRe[j];
+    ii += rule.w[j] * yIm[j];
+  }
+  const e = 6 * k;
+  const last = n - 1; // t = −1 is xa, t = 1 (j = 0) is xb
+  w.ends[e] = yRe[last];
+  w.ends[e + 1] = yIm[last];
+  w.ends[e + 2] = yRe[0];
+  w.ends[e + 3] = yIm[0];
+  w.ends[e + 4] = ir * half;
+  w.ends[e + 5] = ii * half;
+  return passes;
+}
+
+/**
+ * Carry y = (Re R, Im R, Re R', Im R') from xa to xb in place, if both
+ * Riccati solutions converge there to `tol`. Returns the ln of a scale taken
+ * out of y (added to the caller's log-scale) in `scaleOut[0]`.
+ */
+export function riccatiStep(
+  e: RiccatiEquation,
+  xa: number,
+  xb: number,
+  y: Float64Array,
+  tol: number,
+  scaleOut: Float64Array,
+  n = RICCATI_NODES,
+): RiccatiStep {
+  const w = workFor(n);
+  const { rule } = w;
+  // nodes in u = ln x (riccatiStep works with Y = x y in u; see localRiccati)
+  const ua = Math.log(xa),
+    ub = Math.log(xb);
+  const mid = 0.5 * (ua + ub),
+    half = 0.5 * (ub - ua);
+  const l = w.local;
+  let prevWr = 0,
+    prevWi = 0;
+  for (let j = 0; j < n; j++) {
+    const xj = j === 0 ? xb : j === n - 1 ? xa : Math.exp(mid + half * rule.t[j]);
+    localRiccati(e, xj, l);
+    // one continuous branch of W along the interval
+    if (j > 0 && l[4] * prevWr + l[5] * prevWi < 0) localRiccati(e, xj, l, true);
+    prevWr = l[4];
+    prevWi = l[5];
+    w.pRe[j] = l[0];
+    w.pIm[j] = l[1];
+    w.qRe[j] = l[2];
+    w.qIm[j] = l[3];
+    for (let k = 0; k < 2; k++) {
+      const o = k * n + j,
+        src = k === 0 ? 6 : 12;
+      w.aRe[o] = l[src];
+      w.aIm[o] = l[src + 1];
+      w.apRe[o] = l[src + 2];
+      w.apIm[o] = l[src + 3];
+      w.cRe[o] = l[src + 4];
+      w.cIm[o] = l[src + 5];
+    }
+  }
+  const plus = refine(w, 0, half, tol);
+  if (plus < 0) return { ok: false, passes: -plus, evaluations: n };
+  const minus = refine(w, 1, half, tol);
+  if (minus < 0) return { ok: false, passes: Math.max(plus, -minus), evaluations: n };
+  const E = w.ends;
+  // y = Y/x at the two ends
+  for (const o of [0, 6]) {
+    E[o] /= xa;
+    E[o + 1] /= xa;
+    E[o + 2] /= xb;
+    E[o + 3] /= xb;
+  }
+  // R = α e^{I+} + β e^{I−}: α + β = R, α y+ + β y− = R' at xa.
+  const Rr = y[0],
+    Ri = y[1],
+    dr = y[2],
+    di = y[3];
+  const ypr = E[0],
+    ypi = E[1],
+    ymr = E[6],
+    ymi = E[7];
+  const nr = dr - (ypr * Rr - ypi * Ri),
+    ni = di - (ypr * Ri + ypi * Rr);
+  const gr = ymr - ypr,
+    gi = ymi - ypi;
+  const gg = gr * gr + gi * gi;
+  const br = (nr * gr + ni * gi) / gg,
+    bi = (ni * gr - nr * gi) / gg;
+  const ar = Rr - br,
+    ai = Ri - bi;
+  // e^{I±}, with the larger growth taken out when it would overflow
+  const grow = Math.max(E[4], E[10]);
+  const shift = grow > 600 ? grow : 0;
+  const ep = Math.exp(E[4] - shift),
+    em = Math.exp(E[10] - shift);
+  const epr = ep * Math.cos(E[5]),
+    epi = ep * Math.sin(E[5]);
+  const emr = em * Math.cos(E[11]),
+    emi = em * Math.sin(E[11]);
+  // A = α e^{I+}, B = β e^{I−}
+  const Ar = ar * epr - ai * epi,
+    Ai = ar * epi + ai * epr;
+  const Br = br * emr - bi * emi,
+    Bi = br * emi + bi * emr;
+  const dRe = Ar * E[2] - Ai * E[3] + Br * E[8] - Bi * E[9],
+    dIm = Ar * E[3] + Ai * E[2] + Br * E[9] + Bi * E[8];
+  if (!Number.isFinite(Ar + Ai + Br + Bi + dRe + dIm)) return { ok: false, passes: Math.max(plus, minus), evaluations: n };
+  y[0] = Ar + Br;
+  y[1] = Ai + Bi;
+  y[2] = dRe;
+  y[3] = dIm;
+  scaleOut[0] = shift;
+  return { ok: true, passes: Math.max(plus, minus), evaluations: n };
+}
