@@ -12,7 +12,7 @@
  * - a species with Mμ ≤ MASSLESS_PROXY_MAX_MU takes the massless per-dof
  *   totals with a measured relative bound added to its error, and so does one
  *   with Mμ ≤ MASSLESS_PROXY_RANGE_MAX whose bound (times its massless
- *   emission) is below tol/10 of the running total;
+ *   emission) is below tol/4 of the total so far;
  * - a species whose geometric-optics Boltzmann bound (speciesBounds.ts) is
  *   below tol/100 of the running total is not solved: the bound is its error.
  */
@@ -161,6 +161,8 @@ export function contentTotals(problem: ContentProblem, options?: ContentOptions)
 
   const perDof = new Map<string, EmissionTotals>();
   const order: string[] = [];
+  // every solve, re-solves included, for the work counters
+  const work: EmissionTotals[] = [];
   const solvePerDof = (spin: FieldSpin, fieldMass: number, speciesTol = tol): EmissionTotals => {
     const key = `${spin}:${fieldMass}`;
     let r = perDof.get(key);
@@ -168,8 +170,9 @@ export function contentTotals(problem: ContentProblem, options?: ContentOptions)
       const field = fieldMass > 0 ? { spin, mass: fieldMass } : { spin };
       r = emissionTotals({ hole, field }, { ...totalsOptions, tol: speciesTol });
       perDof.set(key, r);
-      order.push(key);
-      onSpin?.(spin, order.length, order.length);
+      if (!order.includes(key)) order.push(key);
+      work.push(r);
+      onSpin?.(spin, work.length, work.length);
     }
     return r;
   };
@@ -205,18 +208,25 @@ export function contentTotals(problem: ContentProblem, options?: ContentOptions)
     if (row.fieldMass === 0) fill(row, solvePerDof(row.spin, 0));
     else if (row.fieldMass <= MASSLESS_PROXY_MAX_MU) {
       row.status = 'massless-limit';
-      fill(row, masslessLimit(row.spin, solvePerDof), masslessProxyBound(row.fieldMass));
+      fill(row, masslessLimit(row.spin, solvePerDof), masslessProxyBound(row.fieldMass, row.spin));
     } else massive.push(row);
   }
   massive.sort((x, y) => x.fieldMass - y.fieldMass);
   for (const row of massive) {
     if (row.fieldMass <= MASSLESS_PROXY_RANGE_MAX) {
-      // Light enough that the massless limit's bound is below tol/10 of the running total: no solve.
+      // Light enough that the massless limit's bound is below tol/4 of the total so far (this species
+      // included, at its massless value less the bound: the final total is at least that): no solve.
       const limit = masslessLimit(row.spin, solvePerDof);
-      const bound = masslessProxyBound(row.fieldMass) * row.dof;
-      if (bound * limit.numberRate.value <= 0.1 * tol * runningNumber() && bound * limit.power.value <= 0.1 * tol * running()) {
+      const rel = masslessProxyBound(row.fieldMass, row.spin);
+      const own = (x: number) => row.dof * x * Math.max(1 - rel, 0);
+      const bN = rel * row.dof * limit.numberRate.value;
+      const bE = rel * row.dof * limit.power.value;
+      if (
+        bN <= 0.25 * tol * (runningNumber() + own(limit.numberRate.value)) &&
+        bE <= 0.25 * tol * (running() + own(limit.power.value))
+      ) {
         row.status = 'massless-limit';
-        fill(row, limit, masslessProxyBound(row.fieldMass));
+        fill(row, limit, masslessProxyBound(row.fieldMass, row.spin));
         continue;
       }
     }
@@ -236,10 +246,22 @@ export function contentTotals(problem: ContentProblem, options?: ContentOptions)
         `${row.name}: Mμ = ${row.fieldMass} is beyond the greybody solvers' range and its Boltzmann bound is not negligible at a* = ${aStar}`,
       );
     }
-    // A species far below the running total needs less relative accuracy: its Boltzmann bound is
-    // above its emission, so tol·(running/bound) relative keeps its error below tol of the total.
-    const share = Math.min(n > 0 ? runningNumber() / n : Infinity, e > 0 ? running() / e : Infinity);
-    const speciesTol = Math.min(Math.max(tol, tol * share), 1e-2);
+    // A species far below the running total needs less relative accuracy: solve at 1e-2 first and keep
+    // it when its absolute error is within tol/4 of the total so far (itself included); otherwise
+    // solve again at the relative tolerance that meets that.
+    const loose = solvePerDof(row.spin, row.fieldMass, Math.max(tol, 1e-2));
+    const within = (k: 'numberRate' | 'power', sumSoFar: number) =>
+      row.dof * loose[k].absError <= 0.25 * tol * (sumSoFar + row.dof * loose[k].value);
+    if (tol >= 1e-2 || (within('numberRate', runningNumber()) && within('power', running()))) {
+      fill(row, loose);
+      continue;
+    }
+    const share = Math.min(
+      (runningNumber() + row.dof * loose.numberRate.value) / (row.dof * loose.numberRate.value),
+      (running() + row.dof * loose.power.value) / (row.dof * loose.power.value),
+    );
+    const speciesTol = Math.min(Math.max(tol, 0.25 * tol * share), 1e-2);
+    perDof.delete(`${row.spin}:${row.fieldMass}`);
     fill(row, solvePerDof(row.spin, row.fieldMass, speciesTol));
   }
 
@@ -248,7 +270,7 @@ export function contentTotals(problem: ContentProblem, options?: ContentOptions)
   const power = part('power');
   const errorEstimate = Math.max(numberRate.relError, power.relError);
   const solved = order.map((k) => perDof.get(k)!);
-  const sum = (key: 'steps' | 'rhsEvaluations' | 'gammaCalls') => solved.reduce((s, r) => s + r.diagnostics[key], 0);
+  const sum = (key: 'steps' | 'rhsEvaluations' | 'gammaCalls') => work.reduce((s, r) => s + r.diagnostics[key], 0);
   const approximations = [...new Set(rows.flatMap((r) => (r.approximation ? [r.approximation] : [])))];
   return {
     hole,
