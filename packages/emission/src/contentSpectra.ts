@@ -109,9 +109,10 @@ export function contentSpectra(problem: ContentSpectraProblem, options?: Content
     const emitted = s.qcd === undefined || (s.qcd === 'parton') === deconfined;
     const row: SpeciesSpectrum = { ...s, fieldMass, emitted, perGeVPerSecond: [], relError: [] };
     let points: { number: number; relError: number }[];
-    if (!emitted) points = grid.map(() => ({ number: 0, relError: 0 }));
+    // not emitted, or heavier than every energy the grid can hold (Mω ≤ 30 < Mμ): 0 everywhere
+    if (!emitted || fieldMass >= MOMEGA_RANGE.max) points = grid.map(() => ({ number: 0, relError: 0 }));
     else if (fieldMass >= MOMEGA_RANGE.min) {
-      const r = spectrum(s.spin, Math.min(fieldMass, MOMEGA_RANGE.max * 0.999999));
+      const r = spectrum(s.spin, fieldMass);
       if (r.approximation) row.approximation = r.approximation;
       points = r.points;
     } else if (s.spin === 1 && fieldMass > 0) {

@@ -132,6 +132,9 @@ export function resolveContent(content: readonly SpeciesSpec[] = DEFAULT_CONTENT
     if (typeof massGeV !== 'number' || !Number.isFinite(massGeV) || massGeV < 0 || massGeV > 1e19) {
       throw new InputError(`${at}.massGeV`, 'a finite mass in GeV, 0 ≤ massGeV ≤ 1e19', massGeV, `species ${spec.name}`);
     }
+    if (spin === 2 && massGeV > 0) {
+      throw new InputError(`${at}.massGeV`, '0 for spin 2 (no massive spin-2 emission route)', massGeV, `species ${spec.name}`);
+    }
     const qcd = base && base.spin === spin ? base.qcd : undefined;
     out.push(sp(spec.name, spin, dof, massGeV, qcd));
   }
