@@ -43,8 +43,8 @@ const sp = (name: string, spin: FieldSpin, dof: number, massGeV: number, qcd?: Q
  */
 export const KNOWN_SPECIES: Readonly<Record<string, Species>> = Object.freeze({
   photon: sp('photon', 1, 2, 0),
-  gluon: sp('gluon', 1, 16, 0, 'parton'),
   graviton: sp('graviton', 2, 2, 0),
+  gluon: sp('gluon', 1, 16, 0, 'parton'),
   'neutrino-e': sp('neutrino-e', 0.5, 2, 0),
   'neutrino-mu': sp('neutrino-mu', 0.5, 2, 0),
   'neutrino-tau': sp('neutrino-tau', 0.5, 2, 0),
