@@ -93,7 +93,7 @@ const OPTIONS: Record<string, string[]> = {
   greybody: ['spin', 'l', 'm', 'a', 'omega', 'tol', 'field-mass', 'field-mass-unit', 'mass', 'unit'],
   'cross-section': ['spin', 'a', 'omega', 'tol', 'field-mass', 'field-mass-unit', 'mass', 'unit'],
   spheroidal: ['spin', 'l', 'm', 'c', 'a', 'omega', 'theta'],
-  emission: ['a', 'spin', 'mass', 'unit', 'omega', 'tol'],
+  emission: ['a', 'spin', 'mass', 'unit', 'omega', 'tol', 'content', 'energy', 'confinement-scale'],
   evolve: ['a', 'mass', 'unit', 'content', 'below', 'table-points', 'points'],
   table: ['out', 'workers', 'shard', 'spins', 'a', 'omega', 'spacing', 'l', 'tol', 'quantities', 'chunk-size'],
   demo: [],

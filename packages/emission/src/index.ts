@@ -14,6 +14,8 @@ export {
   type EmissionSpectrum,
 } from './spectrum.js';
 export type { SpectrumPoint } from './spectrumPoint.js';
+export type { EmittedField } from './massiveField.js';
+export { MASSIVE_VECTOR_KERR_APPROXIMATION } from './massiveModes.js';
 export {
   emissionTotals,
   type TotalsProblem,
@@ -30,8 +32,27 @@ export {
   type ContentDiagnostics,
   type ContentTotals,
   type SpeciesTotals,
+  type SpeciesStatus,
+  type PhysicalMass,
+  DEFAULT_CONFINEMENT_SCALE_GEV,
 } from './content.js';
-export { KNOWN_SPECIES, DEFAULT_CONTENT, PAGE_1976_CONTENT, resolveContent, type Species, type SpeciesSpec } from './species.js';
+export {
+  KNOWN_SPECIES,
+  DEFAULT_CONTENT,
+  PAGE_1976_CONTENT,
+  STANDARD_MODEL_CONTENT,
+  resolveContent,
+  type Species,
+  type SpeciesSpec,
+  type QcdRole,
+} from './species.js';
+export {
+  contentSpectra,
+  type ContentSpectraProblem,
+  type ContentSpectraOptions,
+  type ContentSpectra,
+  type SpeciesSpectrum,
+} from './contentSpectra.js';
 export { toPhysicalRates, toPhysicalSpectrum, type PhysicalRates } from './units.js';
 export {
   pageTable,

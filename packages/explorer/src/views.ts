@@ -193,7 +193,10 @@ export function spectrumView(s: ExplorerState, onProgress?: ProgressCallback): V
   s.species.forEach((name, k) => {
     const species = KNOWN_SPECIES[name];
     if (!species) throw new InputError('species', `names from ${Object.keys(KNOWN_SPECIES).join(', ')}`, name);
-    const spectrum = emissionSpectrum({ hole: { a: s.aStar }, field: { spin: species.spin }, grid: omegas }, { tol });
+    // A massive species emits with its own Mμ = m/(GeV per 1/M) (massless below the solvers' lowest Mω).
+    const fieldMass = species.massGeV / unitScales(massToKg(s.mass, unit)).GeV;
+    const field = fieldMass >= 1e-5 ? { spin: species.spin, mass: fieldMass } : { spin: species.spin };
+    const spectrum = emissionSpectrum({ hole: { a: s.aStar }, field, grid: omegas }, { tol });
     const points: [number, number][] = [];
     for (const p of spectrum.points) {
       const phys = toPhysicalSpectrum(p, s.mass, unit);
