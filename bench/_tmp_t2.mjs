@@ -1,0 +1,12 @@
+import * as em from '@penumbra/emission';
+const page = em.PAGE_1976_CONTENT.map((n) => ({ ...em.KNOWN_SPECIES[n], massGeV: 0 }));
+const rates = em.massLossRates({ species: page });
+console.log('f', rates.f(1e15, 0), 'g', rates.g(1e15, 0.5), rates.interpolationError, rates.nodeError, rates.masslessBelowGrams);
+let t = performance.now();
+const ev = em.evaporateHole({ rates, mass: 1e15, unit: 'g', aStar0: 0.5 }, { aStarThresholds: [0.1], finalSeconds: [1, 1e30] });
+console.log('evap ms', performance.now() - t, ev.lifetimeSeconds, ev.lifetimeOverMassCubed, ev.crossings, ev.finalStages, ev.energyBalance, ev.species, ev.track.length, ev.diagnostics);
+const fns = em.pageFunctions({ table: em.bundledPageTable(), content: em.PAGE_1976_CONTENT });
+const old = em.evolveHole({ functions: fns, aStar0: 0.5 }, { aStarThresholds: [0.1] });
+console.log('old', old.lifetime, old.crossings[0].time * em.evolutionTimeUnitSeconds(1e15, 'g'));
+t = performance.now();
+console.log(em.massForLifetime({ rates }), performance.now() - t);

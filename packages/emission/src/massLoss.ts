@@ -1,0 +1,234 @@
+/**
+ * f(M, a*) and g(M, a*): the mass- and spin-loss rates of a hole of physical
+ * mass M emitting species with masses (Page, Phys. Rev. D 14, 3260 (1976),
+ * extended to massive species):
+ *   f = −M² dM/dt = Σ_i dof_i P̂_{s_i}(M μ_i, a*),
+ *   g = −(M/a*) dJ/dt = Σ_i dof_i Ĵ_{s_i}(M μ_i, a*)/a*   (G = c = ħ = 1),
+ * with Mμ_i = G M m_i/(ħ c). Per dof, P̂ = P̂(0, a*)·R_P(Mμ, a*): the massless
+ * factor from the Page table (pageTable.ts), the ratio from the massive rate
+ * table (massiveRateTable.ts), interpolated as ln R (local cubic in Mμ and in
+ * θ = arcsin a*). Past the largest tabulated Mμ, ln R is continued linearly
+ * (the Boltzmann tail); such species carry less than R at that node.
+ */
+import { InputError, parseFieldSpin, requireFinite, type FieldSpin } from '@penumbra/core';
+import { CODATA2018 } from '@penumbra/kerr';
+import { localCubic } from './localCubic.js';
+import { bundledMassiveRateTable, type MassiveRateTable } from './massiveRateTable.js';
+import { bundledPageTable, type PageTable } from './pageTable.js';
+import { requireProblem } from './validate.js';
+
+/** Field mass Mμ = G M m/(ħ c) of a species of 1 GeV/c² on a hole of 1 g (CODATA 2018 constants). */
+export const FIELD_MASS_PER_GRAM_GEV = (CODATA2018.G * 1e-3 * 1e9 * CODATA2018.eV) / (CODATA2018.hbar * CODATA2018.c ** 3);
+
+/** A species with a rest mass, as the mass-loss rates take it. */
+export interface EmittedSpecies {
+  name: string;
+  spin: FieldSpin;
+  /** degrees of freedom */
+  dof: number;
+  /** rest mass m c² in GeV (0 for a massless species) */
+  massGeV: number;
+}
+
+/** The species and, optionally, the tables the rates are built from. */
+export interface MassLossProblem {
+  readonly species: readonly EmittedSpecies[];
+  /** massless per-dof rates over a* (default: bundledPageTable()) */
+  readonly pageTable?: PageTable;
+  /** massive/massless ratios over (Mμ, a*) (default: bundledMassiveRateTable()) */
+  readonly massiveTable?: MassiveRateTable;
+}
+
+/** f, g and each species' share at one (M, a*). */
+export interface MassLossPoint {
+  f: number;
+  g: number;
+  /** per species: dof·P̂ (share of f) and dof·Ĵ/a* (share of g), in the order of `species` */
+  species: { name: string; power: number; torqueOverA: number }[];
+}
+
+/** f(M, a*), g(M, a*) of a content, with error estimates. */
+export interface MassLossRates {
+  species: EmittedSpecies[];
+  /** f, g and the shares of each species at a hole mass in grams and a* */
+  at: (massGrams: number, aStar: number) => MassLossPoint;
+  /** f(M, a*) = −M² dM/dt (G = c = ħ = 1) for M in grams */
+  f: (massGrams: number, aStar: number) => number;
+  /** g(M, a*) = −(M/a*) dJ/dt (G = c = ħ = 1) for M in grams */
+  g: (massGrams: number, aStar: number) => number;
+  /** largest a* of the tables */
+  aMax: number;
+  /** below this hole mass (grams) every species has Mμ ≤ 1e-4: f and g are those of the massless limit */
+  masslessBelowGrams: number;
+  /** relative interpolation error estimates (massless table + ratio table) */
+  interpolationError: { f: number; g: number };
+  /** relative error of the table nodes (massless + ratio) */
+  nodeError: { f: number; g: number };
+}
+
+function checkSpecies(value: unknown, rows: readonly FieldSpin[]): EmittedSpecies[] {
+  if (!Array.isArray(value) || value.length === 0)
+    throw new InputError('species', 'a non-empty list of {name, spin, dof, massGeV}', value);
+  return value.map((s, i) => {
+    const at = `species[${i}]`;
+    if (typeof s !== 'object' || s === null) throw new InputError(at, '{name, spin, dof, massGeV}', s);
+    const name = typeof s.name === 'string' ? s.name : `species ${i}`;
+    const spin = parseFieldSpin(s.spin, `${at}.spin`);
+    const dof = requireFinite(`${at}.dof`, s.dof, 'a finite number ≥ 0');
+    if (!(dof >= 0)) throw new InputError(`${at}.dof`, 'a finite number ≥ 0', dof);
+    const massGeV = requireFinite(`${at}.massGeV`, s.massGeV ?? 0, 'a finite mass ≥ 0 in GeV');
+    if (!(massGeV >= 0 && massGeV <= 1e19)) throw new InputError(`${at}.massGeV`, 'a mass from 0 to 1e19 GeV', massGeV);
+    if (massGeV > 0 && !rows.includes(spin))
+      throw new InputError(`${at}.massGeV`, `0 for spin ${spin} (massive spins ${rows.join(', ')})`, massGeV);
+    return { name, spin, dof, massGeV };
+  });
+}
+
+/** Every-other-node estimate of a local cubic's relative error, divided by 2⁴ (as pageFunctions). */
+function halvedNodeError(xs: readonly number[], ys: readonly number[], even: boolean, scale: (i: number) => number): number {
+  if (xs.length < 9) return 0;
+  const hx = xs.filter((_, i) => i % 2 === 0);
+  const hy = ys.filter((_, i) => i % 2 === 0);
+  let worst = 0;
+  for (let i = 1; i < xs.length - 1; i += 2)
+    worst = Math.max(worst, Math.abs(localCubic(hx, hy, xs[i], even) - ys[i]) * scale(i));
+  return worst / 16;
+}
+
+/**
+ * f(M, a*) and g(M, a*) of a list of species with masses, from the massless
+ * Page table and the massive ratio table. Throws InputError for a bad species
+ * list (a massive species of a spin the ratio table lacks included).
+ *
+ * @example massLossRates({ species: [{ name: 'electron', spin: 0.5, dof: 4, massGeV: 0.000511 }] }).f(1e15, 0)
+ */
+export function massLossRates(problem: MassLossProblem): MassLossRates {
+  const p = requireProblem(problem, ['species', 'pageTable', 'massiveTable']);
+  const page = (p.pageTable as PageTable | undefined) ?? bundledPageTable();
+  const ratios = (p.massiveTable as MassiveRateTable | undefined) ?? bundledMassiveRateTable();
+  const species = checkSpecies(
+    p.species,
+    ratios.spins.map((r) => r.spin),
+  );
+  const pageRow = new Map(page.spins.map((r) => [r.spin, r]));
+  for (const [i, s] of species.entries())
+    if (!pageRow.has(s.spin))
+      throw new InputError(`species[${i}].spin`, `a spin of the Page table (${[...pageRow.keys()].join(', ')})`, s.spin);
+  const ratioRow = new Map(ratios.spins.map((r) => [r.spin, r]));
+  const mus = ratios.fieldMass;
+  const lnP = new Map(
+    ratios.spins.map((r) => [r.spin, r.powerRatio.map((row) => row.map((x) => Math.log(Math.max(x, 1e-300))))]),
+  );
+  const lnJ = new Map(
+    ratios.spins.map((r) => [r.spin, r.torqueRatio.map((row) => row.map((x) => Math.log(Math.max(x, 1e-300))))]),
+  );
+  const aMax = Math.min(page.aStar[page.aStar.length - 1], ratios.aStar[ratios.aStar.length - 1]);
+  const spinsUsed = [...new Set(species.map((s) => s.spin))];
+
+  /** ln R over the field-mass nodes at θ, for one spin and quantity. */
+  const columnAt = (table: number[][], theta: number) => table.map((row) => localCubic(ratios.theta, row, theta, true));
+  const lnRatio = (column: number[], mu: number) => {
+    if (mu <= 0) return 0;
+    const n = mus.length;
+    if (mu <= mus[n - 1]) return localCubic(mus, column, mu);
+    const slope = (column[n - 1] - column[n - 2]) / (mus[n - 1] - mus[n - 2]);
+    return column[n - 1] + Math.min(slope, 0) * (mu - mus[n - 1]);
+  };
+
+  const at = (massGrams: number, aStar: number): MassLossPoint => {
+    const M = requireFinite('massGrams', massGrams, 'a hole mass in grams > 0');
+    if (!(M > 0)) throw new InputError('massGrams', 'a hole mass in grams > 0', M);
+    const a = requireFinite('aStar', aStar);
+    if (!(Math.abs(a) <= aMax)) throw new InputError('aStar', `|a*| ≤ ${aMax} (the tables' range)`, a);
+    const th = Math.asin(Math.abs(a));
+    const thPage = Math.min(th, page.theta[page.theta.length - 1]);
+    const massless = new Map(
+      spinsUsed.map((spin) => {
+        const r = pageRow.get(spin)!;
+        return [spin, [localCubic(page.theta, r.power, thPage, true), localCubic(page.theta, r.torqueOverA, thPage, true)]];
+      }),
+    );
+    const columns = new Map<FieldSpin, number[][]>();
+    let f = 0;
+    let g = 0;
+    const rows = species.map((s) => {
+      const [p0, j0] = massless.get(s.spin)!;
+      let rp = 1;
+      let rj = 1;
+      const mu = s.massGeV * M * FIELD_MASS_PER_GRAM_GEV;
+      if (mu > 0) {
+        let c = columns.get(s.spin);
+        if (!c) {
+          c = [columnAt(lnP.get(s.spin)!, th), columnAt(lnJ.get(s.spin)!, th)];
+          columns.set(s.spin, c);
+        }
+        rp = Math.exp(lnRatio(c[0], mu));
+        rj = Math.exp(lnRatio(c[1], mu));
+      }
+      const power = s.dof * p0 * rp;
+      const torqueOverA = s.dof * j0 * rj;
+      f += power;
+      g += torqueOverA;
+      return { name: s.name, power, torqueOverA };
+    });
+    return { f, g, species: rows };
+  };
+
+  // error estimates: massless part as pageFunctions; ratio part as the largest absolute change of R (its share of f ≤ R)
+  let ratioInterp = 0;
+  let ratioNode = 0;
+  for (const spin of spinsUsed) {
+    const r = ratioRow.get(spin);
+    if (!r || !species.some((s) => s.spin === spin && s.massGeV > 0)) continue;
+    for (const [key, errKey] of [
+      ['powerRatio', 'powerRatioError'],
+      ['torqueRatio', 'torqueRatioError'],
+    ] as const) {
+      const table = r[key];
+      for (let j = 0; j < ratios.theta.length; j++) {
+        const col = table.map((row) => row[j]);
+        ratioInterp = Math.max(
+          ratioInterp,
+          halvedNodeError(
+            mus,
+            col.map((x) => Math.log(Math.max(x, 1e-300))),
+            false,
+            (i) => col[i],
+          ),
+        );
+        for (let i = 0; i < mus.length; i++) ratioNode = Math.max(ratioNode, r[errKey][i][j] * Math.min(1, table[i][j]));
+      }
+      for (const row of table)
+        ratioInterp = Math.max(
+          ratioInterp,
+          halvedNodeError(ratios.theta, row, true, () => 1),
+        );
+    }
+  }
+  const pageErr = (key: 'power' | 'torqueOverA', errKey: 'powerError' | 'torqueOverAError') => {
+    let interp = 0;
+    let node = 0;
+    for (const spin of spinsUsed) {
+      const r = pageRow.get(spin)!;
+      interp = Math.max(
+        interp,
+        halvedNodeError(page.theta, r[key], true, (i) => 1 / Math.abs(r[key][i])),
+      );
+      node = Math.max(node, ...r[errKey].map((e, i) => e / Math.abs(r[key][i])));
+    }
+    return { interp, node };
+  };
+  const pf = pageErr('power', 'powerError');
+  const pg = pageErr('torqueOverA', 'torqueOverAError');
+  const heaviest = Math.max(...species.map((s) => s.massGeV));
+  return {
+    species,
+    at,
+    f: (m, a) => at(m, a).f,
+    g: (m, a) => at(m, a).g,
+    aMax,
+    masslessBelowGrams: heaviest > 0 ? 1e-4 / (heaviest * FIELD_MASS_PER_GRAM_GEV) : Number.POSITIVE_INFINITY,
+    interpolationError: { f: pf.interp + ratioInterp, g: pg.interp + ratioInterp },
+    nodeError: { f: pf.node + ratioNode, g: pg.node + ratioNode },
+  };
+}

@@ -1,0 +1,235 @@
+/**
+ * Per-degree-of-freedom power and torque of massive fields, as ratios to the
+ * massless values, over the field mass Mμ and the hole's a* = a/M. For a
+ * species of mass m the per-dof rates of a hole of mass M depend on M only
+ * through Mμ = G M m/(ħ c) (and scale as 1/M², 1/M like the massless ones), so
+ * one table per field spin serves every species and every hole mass:
+ *   P̂(Mμ, a*) = P̂(0, a*) · R_P(Mμ, a*),   Ĵ(Mμ, a*) = Ĵ(0, a*) · R_J(Mμ, a*),
+ * with the massless factors from the Page table (pageTable.ts) and R from
+ * this table. R → 1 as Mμ → 0 and falls like a Boltzmann factor once Mμ
+ * exceeds the temperature (T_H = 1/8π at a* = 0), so ln R is smooth and is
+ * what massLoss.ts interpolates. Nodes: a* uniform in θ = arcsin a* (as the
+ * Page table), Mμ on a list that is dense at small Mμ.
+ */
+import {
+  InputError,
+  MAX_SOLVER_A_RATIO,
+  isFunction,
+  numberIn,
+  parseFieldSpin,
+  validateOptions,
+  validateTolerance,
+  type Diagnostics,
+  type FieldSpin,
+  type FieldSpinInput,
+} from '@penumbra/core';
+import { emissionTotals } from './totals.js';
+import { SHIPPED_MASSIVE_RATE_TABLE } from './massiveRateTableData.js';
+import { requireProblem } from './validate.js';
+
+/** Ratios of one field spin, indexed [field-mass node][a* node]. */
+export interface MassiveRateRow {
+  spin: FieldSpin;
+  /** per-dof power at (Mμ, a*) over the massless per-dof power at a* */
+  powerRatio: number[][];
+  /** per-dof torque at (Mμ, a*) over the massless per-dof torque at a* (at a* = 0 the limit, from the even series in θ) */
+  torqueRatio: number[][];
+  /** relative error estimates of powerRatio (massive and massless errors added) */
+  powerRatioError: number[][];
+  /** relative error estimates of torqueRatio */
+  torqueRatioError: number[][];
+}
+
+/** Ratio table over field mass Mμ and a*; row 0 of every spin is Mμ = 0 (ratio 1). */
+export interface MassiveRateTable {
+  aStar: number[];
+  theta: number[];
+  /** field masses Mμ of the rows, increasing, the first 0 */
+  fieldMass: number[];
+  spins: MassiveRateRow[];
+  /** relative accuracy requested of each emissionTotals solve */
+  tol: number;
+  /** greybody solves spent on the table */
+  gammaCalls: number;
+}
+
+/** The grid of a massive rate table. */
+export interface MassiveRateTableProblem {
+  /** a* nodes, uniform in θ = arcsin a* (default 7, 3 … 200) */
+  readonly aStarPoints?: number;
+  /** largest a* (default 0.99, at most MAX_SOLVER_A_RATIO) */
+  readonly aMax?: number;
+  /** field masses Mμ > 0, increasing (default DEFAULT_FIELD_MASSES); the row Mμ = 0 is added */
+  readonly fieldMasses?: readonly number[];
+  /** field spins (default 0, 1/2, 1) */
+  readonly spins?: readonly FieldSpinInput[];
+}
+
+/** Options of massiveRateTable; unknown keys are refused. */
+export interface MassiveRateTableOptions {
+  /** relative accuracy of each totals solve (default 1e-4, range 1e-12 … 1e-2) */
+  tol?: number;
+  /** called after each (field mass, a*) node, all spins */
+  onPoint?: (done: number, total: number) => void;
+}
+
+/** How a ratio table was computed; `errorEstimate` is the largest relative error of a power ratio. */
+export interface MassiveRateTableDiagnostics extends Diagnostics {
+  /** greybody solves */
+  gammaCalls: number;
+}
+
+/** A freshly computed ratio table with its diagnostics. */
+export interface MassiveRateTableSolution extends MassiveRateTable {
+  diagnostics: MassiveRateTableDiagnostics;
+}
+
+/**
+ * Default field masses Mμ of the shipped table: dense below 0.1, where the
+ * ratios leave 1, up to 1.2, where they are below about 1e-9 at a* = 0.
+ */
+export const DEFAULT_FIELD_MASSES: readonly number[] = Object.freeze([
+  0.005, 0.01, 0.02, 0.03, 0.045, 0.06, 0.08, 0.1, 0.13, 0.16, 0.2, 0.25, 0.3, 0.4, 0.5, 0.65, 0.8, 1, 1.2,
+]);
+
+const OPTIONS = { tol: validateTolerance, onPoint: isFunction<(done: number, total: number) => void> };
+
+function checkMasses(value: unknown): number[] {
+  if (!Array.isArray(value) || value.length === 0)
+    throw new InputError('fieldMasses', 'a non-empty increasing list of field masses Mμ > 0', value);
+  return value.map((x, i) => {
+    const v = numberIn(1e-6, 10)(x, `fieldMasses[${i}]`);
+    if (i > 0 && !(v > value[i - 1])) throw new InputError(`fieldMasses[${i}]`, `a value > fieldMasses[${i - 1}]`, v);
+    return v;
+  });
+}
+
+function checkSpins(value: unknown): FieldSpin[] {
+  if (!Array.isArray(value) || value.length === 0)
+    throw new InputError('spins', 'a non-empty list of field spins 0, 1/2, 1', value);
+  return value.map((s, i) => {
+    const spin = parseFieldSpin(s, `spins[${i}]`);
+    if (spin === 2) throw new InputError(`spins[${i}]`, 'a massive field spin 0, 1/2 or 1', s);
+    return spin;
+  });
+}
+
+/** θ nodes and a* nodes, uniform in θ, the last exactly aMax. */
+export function thetaGrid(points: number, aMax: number): { theta: number[]; aStar: number[] } {
+  const thetaMax = Math.asin(aMax);
+  const theta = Array.from({ length: points }, (_, i) => (thetaMax * i) / (points - 1));
+  return { theta, aStar: theta.map((t, i) => (i === points - 1 ? aMax : Math.sin(t))) };
+}
+
+/** The per-dof totals of a field (massless when mass = 0) at a*: power, torque and their relative errors. */
+export function fieldTotals(spin: FieldSpin, mass: number, a: number, tol: number) {
+  const r = emissionTotals({ hole: { a }, field: mass > 0 ? { spin, mass } : { spin } }, { tol });
+  return {
+    power: r.power.value,
+    powerRel: r.power.relError,
+    torque: r.torque.value,
+    torqueRel: r.torque.relError,
+    gammaCalls: r.diagnostics.gammaCalls,
+    steps: r.diagnostics.steps,
+    rhsEvaluations: r.diagnostics.rhsEvaluations,
+  };
+}
+
+/** Ratios of one spin from its totals at every (mass, a*) node; the a* = 0 torque ratio from the even series. */
+export function ratioRow(spin: FieldSpin, totals: readonly (readonly ReturnType<typeof fieldTotals>[])[]): MassiveRateRow {
+  const base = totals[0];
+  const row: MassiveRateRow = { spin, powerRatio: [], torqueRatio: [], powerRatioError: [], torqueRatioError: [] };
+  for (const t of totals) {
+    row.powerRatio.push(t.map((x, j) => x.power / base[j].power));
+    row.powerRatioError.push(t.map((x, j) => x.powerRel + base[j].powerRel));
+    const tr = t.map((x, j) => (j === 0 ? Number.NaN : x.torque / base[j].torque));
+    const te = t.map((x, j) => (j === 0 ? Number.NaN : x.torqueRel + base[j].torqueRel));
+    // even series in θ: R(0) ≈ (4 R(h) − R(2h))/3, as for g(0) in pageTable.ts
+    tr[0] = (4 * tr[1] - tr[2]) / 3;
+    te[0] = (4 * te[1] + te[2]) / 3;
+    row.torqueRatio.push(tr);
+    row.torqueRatioError.push(te);
+  }
+  return row;
+}
+
+/**
+ * Compute a ratio table (one emissionTotals solve per spin, field mass and
+ * a* node, plus the massless ones: tens of minutes for the default grid;
+ * scripts/make-massive-rate-table.mjs runs it on two workers). Throws
+ * InputError for a bad problem or option, ConvergenceError as emissionTotals.
+ *
+ * @example massiveRateTable({ aStarPoints: 3, aMax: 0.5, fieldMasses: [0.1], spins: [0] }, { tol: 1e-3 })
+ */
+export function massiveRateTable(
+  problem: MassiveRateTableProblem = {},
+  options?: MassiveRateTableOptions,
+): MassiveRateTableSolution {
+  const p = requireProblem(problem, ['aStarPoints', 'aMax', 'fieldMasses', 'spins']);
+  const n = p.aStarPoints === undefined ? 7 : numberIn(3, 200, true)(p.aStarPoints, 'aStarPoints');
+  const aMax = p.aMax === undefined ? 0.99 : numberIn(0, MAX_SOLVER_A_RATIO)(p.aMax, 'aMax');
+  if (!(aMax > 0)) throw new InputError('aMax', `0 < aMax ≤ ${MAX_SOLVER_A_RATIO}`, aMax);
+  const masses = [0, ...(p.fieldMasses === undefined ? DEFAULT_FIELD_MASSES : checkMasses(p.fieldMasses))];
+  const spins = p.spins === undefined ? ([0, 0.5, 1] as FieldSpin[]) : checkSpins(p.spins);
+  const { tol = 1e-4, onPoint } = validateOptions<MassiveRateTableOptions>(options, OPTIONS);
+  const { theta, aStar } = thetaGrid(n, aMax);
+  let gammaCalls = 0;
+  let steps = 0;
+  let rhsEvaluations = 0;
+  let done = 0;
+  const rows = spins.map((spin) =>
+    ratioRow(
+      spin,
+      masses.map((mu) =>
+        aStar.map((a) => {
+          const t = fieldTotals(spin, mu, a, tol);
+          gammaCalls += t.gammaCalls;
+          steps += t.steps;
+          rhsEvaluations += t.rhsEvaluations;
+          onPoint?.(++done, spins.length * masses.length * n);
+          return t;
+        }),
+      ),
+    ),
+  );
+  const errorEstimate = Math.max(...rows.flatMap((r) => r.powerRatioError.flat()));
+  return {
+    aStar,
+    theta,
+    fieldMass: masses,
+    spins: rows,
+    tol,
+    gammaCalls,
+    diagnostics: {
+      method: 'emissionTotals of the massive and the massless field at each node; ratios',
+      steps,
+      rhsEvaluations,
+      errorEstimate,
+      message: `${masses.length} field masses × ${n} a* nodes × ${spins.length} spin(s); largest relative error of a power ratio ${errorEstimate.toExponential(2)}`,
+      gammaCalls,
+    },
+  };
+}
+
+/**
+ * The ratio table shipped with the package (src/massiveRateTableData.ts, made
+ * by scripts/make-massive-rate-table.mjs), as a fresh copy.
+ */
+export function bundledMassiveRateTable(): MassiveRateTable {
+  const t = SHIPPED_MASSIVE_RATE_TABLE;
+  const copy = (x: number[][]) => x.map((r) => r.slice());
+  return {
+    aStar: t.aStar.slice(),
+    theta: t.theta.slice(),
+    fieldMass: t.fieldMass.slice(),
+    spins: t.spins.map((r) => ({
+      spin: r.spin,
+      powerRatio: copy(r.powerRatio),
+      torqueRatio: copy(r.torqueRatio),
+      powerRatioError: copy(r.powerRatioError),
+      torqueRatioError: copy(r.torqueRatioError),
+    })),
+    tol: t.tol,
+    gammaCalls: t.gammaCalls,
+  };
+}
