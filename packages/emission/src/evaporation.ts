@@ -234,8 +234,10 @@ function locate(run: Run, k: number, target: number, sign: 1 | -1): { p: Node; q
 
 /** uEnd: every species effectively massless (Mμ ≤ 1e-4) and u ≥ 12, at most u = 700. */
 function endOfIntegration(rates: MassLossRates, m0: number): number {
-  const below = rates.masslessBelowGrams;
-  return Math.min(700, Math.max(12, Number.isFinite(below) ? Math.log(m0 / below) + 0.5 : 12));
+  const heaviest = rates.heaviestMassGeV;
+  if (!(heaviest > 0)) return 12;
+  const below = 1e-4 / (heaviest * FIELD_MASS_PER_GRAM_GEV);
+  return Math.min(700, Math.max(12, Math.log(m0 / below) + 0.5));
 }
 
 /**

@@ -86,3 +86,10 @@ export {
   type MassForLifetime,
   type MassForLifetimeProblem,
 } from './evaporation.js';
+export {
+  burstSpectrum,
+  type BurstSpectrumProblem,
+  type BurstSpectrumOptions,
+  type BurstSpectrumDiagnostics,
+  type BurstSpectrum,
+} from './burstSpectrum.js';

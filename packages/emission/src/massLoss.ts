@@ -58,8 +58,8 @@ export interface MassLossRates {
   g: (massGrams: number, aStar: number) => number;
   /** largest a* of the tables */
   aMax: number;
-  /** below this hole mass (grams) every species has Mμ ≤ 1e-4: f and g are those of the massless limit */
-  masslessBelowGrams: number;
+  /** the heaviest species' mass in GeV (0 if all are massless): below M = 1e-4/(m·FIELD_MASS_PER_GRAM_GEV) grams every species has Mμ ≤ 1e-4 */
+  heaviestMassGeV: number;
   /** relative interpolation error estimates (massless table + ratio table) */
   interpolationError: { f: number; g: number };
   /** relative error of the table nodes (massless + ratio) */
@@ -227,7 +227,7 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
     f: (m, a) => at(m, a).f,
     g: (m, a) => at(m, a).g,
     aMax,
-    masslessBelowGrams: heaviest > 0 ? 1e-4 / (heaviest * FIELD_MASS_PER_GRAM_GEV) : Number.POSITIVE_INFINITY,
+    heaviestMassGeV: heaviest,
     interpolationError: { f: pf.interp + ratioInterp, g: pg.interp + ratioInterp },
     nodeError: { f: pf.node + ratioNode, g: pg.node + ratioNode },
   };

@@ -10,6 +10,7 @@ import {
   KNOWN_SPECIES,
   PAGE_1976_CONTENT,
   bundledPageTable,
+  burstSpectrum,
   evaporateHole,
   evolutionTimeUnitSeconds,
   evolveHole,
@@ -92,5 +93,22 @@ describe('evaporation of a hole emitting massless species', () => {
     expect(Math.abs(r.massGrams / Math.cbrt(AGE_OF_UNIVERSE_SECONDS / perCube) - 1)).toBeLessThan(1e-6);
     // 13.787 Gyr (Planck 2018 results VI, A&A 641, A6 (2020)) in Julian years
     expect(AGE_OF_UNIVERSE_SECONDS).toBeCloseTo(4.3508e17, -13);
+  });
+
+  test('burst spectrum of the last second: ∫ E dN/dE dE of each species equals the energy it carries in that stage to 5e-3 (photons, neutrinos; a* = 0)', () => {
+    const rates = massLossRates({ species: massless(['photon', 'neutrino-e']) });
+    const stage = evaporateHole({ rates, mass: 1e15, unit: 'g', aStar0: 0 }, { finalSeconds: [1] }).finalStages[0];
+    const n = 160;
+    const E = Array.from({ length: n }, (_, i) => stage.temperatureGeV * 1e-3 * 1e7 ** (i / (n - 1)));
+    const b = burstSpectrum({ rates, stage, energiesGeV: E });
+    expect(b.diagnostics.approximation).toMatch(/a\* held/);
+    for (const [k, sp] of b.species.entries()) {
+      let s = 0;
+      for (let i = 1; i < n; i++)
+        s += 0.5 * (E[i] ** 2 * sp.perGeV[i] + E[i - 1] ** 2 * sp.perGeV[i - 1]) * Math.log(E[i] / E[i - 1]);
+      expect(Math.abs(s / stage.species[k].energyGeV - 1)).toBeLessThan(5e-3);
+    }
+    // the total is the sum over species
+    for (let i = 0; i < n; i += 20) expect(b.totalPerGeV[i]).toBeCloseTo(b.species[0].perGeV[i] + b.species[1].perGeV[i], 6);
   });
 });

@@ -1,5 +1,6 @@
 import {
   AGE_OF_UNIVERSE_SECONDS,
+  burstSpectrum,
   bundledPageTable,
   evaporateHole,
   KNOWN_SPECIES,
@@ -14,7 +15,15 @@ import type { Command } from '../command.js';
 import { UsageError } from '../command.js';
 import { INACCURATE_COLUMN, isInaccurate, warnInaccurate } from '../accuracy.js';
 import { formatError, formatNumber, formatTable } from '../format.js';
-import { parseMassOption, parseNameList, parseNumber, parseNumberList, parseOptions, requireOption } from '../options.js';
+import {
+  parseMassOption,
+  parseNameList,
+  parseNumber,
+  parseNumberList,
+  parseOptions,
+  parseRange,
+  requireOption,
+} from '../options.js';
 import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
 
 /** CSV columns of the track: the keys of the JSON track points (the mass in the unit of --unit). */
@@ -24,6 +33,13 @@ const trackColumns = (unit: string): Column[] => [
   { name: 'aStar', unit: '1', description: "the hole's a/M" },
   { name: 'temperatureGeV', unit: 'GeV', description: 'Hawking temperature k_B T_H' },
   { ...INACCURATE_COLUMN, description: 'true when the lifetime (and so the times) has an estimated relative error above 1e-3' },
+];
+
+/** CSV columns of the burst spectrum (long form: one row per energy and species). */
+const SPECTRUM_COLUMNS: Column[] = [
+  { name: 'energyGeV', unit: 'GeV', description: 'energy of the emitted particle' },
+  { name: 'species', unit: '', description: 'species name' },
+  { name: 'perGeV', unit: 'GeV^-1', description: 'dN/dE integrated over the final stage' },
 ];
 
 const GRAMS_PER_UNIT: Record<string, number> = { g: 1, kg: 1e3, msun: 1.988409870698051e33 };
@@ -57,11 +73,16 @@ Options:
   --below LIST      report when a* first falls below these values, each in (0, 1);
                     values at or above the starting a* are reported as reached
                     at the start (default 0.5,0.1, those below the starting a*)
+  --spectrum E1:E2:N  the time-integrated spectrum dN/dE [GeV⁻¹] per species over the first
+                    final stage, at N energies from E1 to E2 GeV (log spaced; or a list);
+                    a* held at its value at the start of the stage, massive species with the
+                    massless shape above threshold (seconds to a minute)
   --table-points N  compute a fresh massless f, g table with N nodes instead of the shipped one
   --points N        track points printed (default 40)
   --json            JSON {lifetimeSeconds, lifetimeOverMassCubed, relError, inaccurate, track: [{timeSeconds, mass, aStar, temperatureGeV}],
                     crossings, finalStages, species, energyBalance, massForAgeOfUniverse, diagnostics}
-  --csv             the track as CSV (columns timeSeconds, mass, aStar, temperatureGeV, inaccurate; units in the header)
+  --csv             the track as CSV (columns timeSeconds, mass, aStar, temperatureGeV, inaccurate; units in the header);
+                    with --spectrum, the spectrum instead (columns energyGeV, species, perGeV)
 
 Also printed: the formation mass whose lifetime is the age of the universe
 (13.787 Gyr, Planck 2018) for a* = 0 and this content.
@@ -83,6 +104,7 @@ Example:
       unit: { type: 'string' },
       content: { type: 'string' },
       final: { type: 'string' },
+      spectrum: { type: 'string' },
       below: { type: 'string' },
       'table-points': { type: 'string' },
       points: { type: 'string' },
@@ -99,6 +121,10 @@ Example:
         : parseNumberList('--below', values.below, { min: 0, max: 1, exclusive: true });
     const finalSeconds =
       values.final === undefined ? [1] : parseNumberList('--final', values.final, { min: 0, max: 1e300, exclusive: true });
+    const energies =
+      values.spectrum === undefined
+        ? undefined
+        : parseRange('--spectrum', values.spectrum, { log: true, min: 1e-30, max: 1e30, maxCount: 2000 }).values;
     const nPrint =
       values.points === undefined ? 40 : parseNumber('--points', values.points, { min: 2, max: 100_000, integer: true });
     let table: PageTable;
@@ -119,6 +145,24 @@ Example:
     }
     const ev = evaporateHole({ rates, mass, unit, aStar0: aStar }, { aStarThresholds: below, finalSeconds });
     const age = massForLifetime({ rates, seconds: AGE_OF_UNIVERSE_SECONDS, aStar0: 0 });
+    const burst =
+      energies === undefined || ev.finalStages.length === 0
+        ? undefined
+        : burstSpectrum(
+            { rates, stage: ev.finalStages[0], energiesGeV: energies },
+            { onSpin: (spin, done, total) => io.stderr(`evolve: burst spectrum, field spin ${spin} (${done}/${total})\n`) },
+          );
+    const burstResult =
+      burst === undefined
+        ? undefined
+        : {
+            stageSeconds: ev.finalStages[0].seconds,
+            energiesGeV: burst.energiesGeV,
+            species: burst.species,
+            totalPerGeV: burst.totalPerGeV,
+            approximation: burst.diagnostics.approximation,
+            relError: burst.diagnostics.errorEstimate,
+          };
     const perUnit = GRAMS_PER_UNIT[unit];
     // Thin the track to about nPrint points evenly spaced in mass (ODE steps crowd at small M), keeping the ends.
     const m0 = ev.mass0Grams;
@@ -153,6 +197,7 @@ Example:
       finalStages: ev.finalStages,
       species: ev.species,
       energyBalance: ev.energyBalance,
+      ...(burstResult ? { burstSpectrum: burstResult } : {}),
       massForAgeOfUniverse: { massGrams: age.massGrams, aStar0: 0, ageSeconds: AGE_OF_UNIVERSE_SECONDS, relError: age.relError },
       track,
       diagnostics: { ...ev.diagnostics, interpolationError: rates.interpolationError, nodeError: rates.nodeError },
@@ -165,10 +210,16 @@ Example:
       formatTable([['species', 'E [GeV]', 'share'], ...s.species.map((x) => [x.name, g(x.energyGeV), g(x.fraction)])]);
     writeOutput(io, format, {
       json: () => result,
-      csv: () => ({
-        columns: trackColumns(unit),
-        rows: track.map((p) => [p.timeSeconds, p.mass, p.aStar, p.temperatureGeV, inaccurate]),
-      }),
+      csv: () =>
+        burstResult
+          ? {
+              columns: SPECTRUM_COLUMNS,
+              rows: burstResult.species.flatMap((sp) => burstResult.energiesGeV.map((e, i) => [e, sp.name, sp.perGeV[i]])),
+            }
+          : {
+              columns: trackColumns(unit),
+              rows: track.map((p) => [p.timeSeconds, p.mass, p.aStar, p.temperatureGeV, inaccurate]),
+            },
       text: () =>
         `evaporation of a hole of ${g(mass)} ${unit}, a* = ${aStar}; content ${species.map((s) => s.name).join(', ')}\n` +
         `lifetime: ${g(result.lifetimeSeconds)} s  (${formatNumber(ev.lifetimeOverMassCubed, 8)} M₀³ in Planck units; ` +
@@ -186,6 +237,17 @@ Example:
         `mass whose lifetime is the age of the universe (13.787 Gyr), a* = 0: ${g(age.massGrams)} g\n` +
         `energy emitted over the life: ${g(ev.energyBalance.emittedGeV)} GeV = M₀c² to ${formatError(ev.energyBalance.relError)}\n` +
         ev.finalStages.map(stageText).join('') +
+        (burstResult
+          ? `time-integrated spectrum dN/dE [GeV⁻¹] over the last ${g(burstResult.stageSeconds)} s (${burstResult.approximation})\n` +
+            formatTable([
+              ['E [GeV]', 'total', ...burstResult.species.map((x) => x.name)],
+              ...burstResult.energiesGeV.map((e, i) => [
+                g(e),
+                g(burstResult.totalPerGeV[i]),
+                ...burstResult.species.map((x) => g(x.perGeV[i])),
+              ]),
+            ])
+          : '') +
         'track\n' +
         formatTable([
           ['t [s]', `M [${unit}]`, 'a*', 'T_H [GeV]'],
