@@ -612,6 +612,21 @@ const ENTRIES: Entry[] = [
     args: [or(fc.record({ species: or(fc.array(or(speciesArb), { maxLength: 3 })) }))],
   },
   {
+    name: 'massLossAt',
+    call: fn(emission.massLossAt),
+    args: [
+      or(
+        fc.record({
+          species: or(fc.array(or(speciesArb), { maxLength: 2 })),
+          massGrams: or(fc.double({ min: 1e10, max: 1e20 })),
+          aStar: or(fc.constantFrom(0, 0.5)),
+        }),
+      ),
+      invalid,
+    ],
+    runs: 20,
+  },
+  {
     name: 'evaporateHole',
     call: fn(emission.evaporateHole),
     args: [

@@ -8,7 +8,10 @@
  * and beyond. A TypeScript module, so the package needs no file access.
  *
  * Run from the repository root after `npx tsc -b`, then rebuild:
- *   node packages/emission/scripts/make-massive-rate-table.mjs [aStarPoints=9] [tol=1e-4] [aMax=0.99]
+ *   node packages/emission/scripts/make-massive-rate-table.mjs [aStarPoints=9] [tol=1e-4] [aMax=0.99] [masses]
+ * masses: comma-separated Mμ > 0 (default DEFAULT_FIELD_MASSES, 19 values up to 1.2).
+ * The shipped table was made on a loaded machine with a coarser grid:
+ *   node packages/emission/scripts/make-massive-rate-table.mjs 6 1e-3 0.99 0.01,0.025,0.05,0.08,0.12,0.17,0.25,0.35,0.5,0.7,0.95,1.2
  * Work is split over two worker threads (one spin, field mass and a* per task);
  * the time is printed and written into the module.
  */
@@ -64,7 +67,7 @@ if (isMainThread && invoked) {
   const tol = Number(process.argv[3] ?? 1e-4);
   const aMax = Number(process.argv[4] ?? 0.99);
   const spins = [0, 0.5, 1];
-  const masses = [0, ...DEFAULT_FIELD_MASSES];
+  const masses = [0, ...(process.argv[5] ? process.argv[5].split(',').map(Number) : DEFAULT_FIELD_MASSES)];
   const { theta, aStar } = thetaGrid(points, aMax);
   // Expensive tasks (large a*, small Mμ, high spin) first for a balanced split.
   const tasks = [];

@@ -93,3 +93,10 @@ export {
   type BurstSpectrumDiagnostics,
   type BurstSpectrum,
 } from './burstSpectrum.js';
+export {
+  massLossAt,
+  type MassLossAtProblem,
+  type MassLossAtOptions,
+  type MassLossAtDiagnostics,
+  type MassLossAt,
+} from './massLossDirect.js';

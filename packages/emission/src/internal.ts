@@ -22,6 +22,6 @@ export { integrateMode, emptyAccumulator, type TotalsAccumulator } from './modeI
 export { dofBySpin } from './species.js';
 export { validateGrid, requireProblem } from './validate.js';
 export { SHIPPED_PAGE_TABLE } from './pageTableData.js';
-export { thetaGrid, fieldTotals, ratioRow } from './massiveRateTable.js';
+export { thetaGrid, fieldTotals, ratioRow, masslessLimit } from './massiveRateTable.js';
 export { SHIPPED_MASSIVE_RATE_TABLE } from './massiveRateTableData.js';
 export { localCubic } from './localCubic.js';

@@ -12,7 +12,7 @@
  */
 import { InputError, parseFieldSpin, requireFinite, type FieldSpin } from '@penumbra/core';
 import { CODATA2018 } from '@penumbra/kerr';
-import { localCubic } from './localCubic.js';
+import { localCubic, windowSpread } from './localCubic.js';
 import { bundledMassiveRateTable, type MassiveRateTable } from './massiveRateTable.js';
 import { bundledPageTable, type PageTable } from './pageTable.js';
 import { requireProblem } from './validate.js';
@@ -66,7 +66,8 @@ export interface MassLossRates {
   nodeError: { f: number; g: number };
 }
 
-function checkSpecies(value: unknown, rows: readonly FieldSpin[]): EmittedSpecies[] {
+/** A species list, each checked; a massive species of a spin without a massive route is refused. */
+export function checkSpecies(value: unknown, rows: readonly FieldSpin[]): EmittedSpecies[] {
   if (!Array.isArray(value) || value.length === 0)
     throw new InputError('species', 'a non-empty list of {name, spin, dof, massGeV}', value);
   return value.map((s, i) => {
@@ -174,7 +175,7 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
     return { f, g, species: rows };
   };
 
-  // error estimates: massless part as pageFunctions; ratio part as the largest absolute change of R (its share of f ≤ R)
+  // error estimates: the massless part as pageFunctions; the ratio part below
   let ratioInterp = 0;
   let ratioNode = 0;
   for (const spin of spinsUsed) {
@@ -185,24 +186,18 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
       ['torqueRatio', 'torqueRatioError'],
     ] as const) {
       const table = r[key];
+      const ln = key === 'powerRatio' ? lnP.get(spin)! : lnJ.get(spin)!;
+      // spread of ln R between neighbouring cubic windows, weighted by R (a species' share of f is at most R of its massless share)
       for (let j = 0; j < ratios.theta.length; j++) {
-        const col = table.map((row) => row[j]);
-        ratioInterp = Math.max(
-          ratioInterp,
-          halvedNodeError(
-            mus,
-            col.map((x) => Math.log(Math.max(x, 1e-300))),
-            false,
-            (i) => col[i],
-          ),
-        );
+        const col = ln.map((row) => row[j]);
+        const weight = (mu: number) => Math.min(1, Math.exp(localCubic(mus, col, mu)));
+        ratioInterp = Math.max(ratioInterp, windowSpread(mus, col, false, weight));
         for (let i = 0; i < mus.length; i++) ratioNode = Math.max(ratioNode, r[errKey][i][j] * Math.min(1, table[i][j]));
       }
-      for (const row of table)
-        ratioInterp = Math.max(
-          ratioInterp,
-          halvedNodeError(ratios.theta, row, true, () => 1),
-        );
+      for (const row of ln) {
+        const weight = (th: number) => Math.min(1, Math.exp(localCubic(ratios.theta, row, th, true)));
+        ratioInterp = Math.max(ratioInterp, windowSpread(ratios.theta, row, true, weight));
+      }
     }
   }
   const pageErr = (key: 'power' | 'torqueOverA', errKey: 'powerError' | 'torqueOverAError') => {

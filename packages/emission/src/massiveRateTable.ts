@@ -135,11 +135,44 @@ export function fieldTotals(spin: FieldSpin, mass: number, a: number, tol: numbe
   };
 }
 
-/** Ratios of one spin from its totals at every (mass, a*) node; the a* = 0 torque ratio from the even series. */
-export function ratioRow(spin: FieldSpin, totals: readonly (readonly ReturnType<typeof fieldTotals>[])[]): MassiveRateRow {
+type NodeTotals = ReturnType<typeof fieldTotals>;
+
+/**
+ * The massless limit of a massive field per dof. Spins 0 and 1/2: the massless
+ * field itself. Spin 1: a massive vector keeps three polarisations as Mμ → 0,
+ * two that become the photon's and a longitudinal one that becomes a scalar,
+ * so per dof the limit is (2 P̂₁ + P̂₀)/3 (and the same for the torque), not the
+ * massless vector: the ratio row Mμ = 0 of spin 1 is that mixture over P̂₁.
+ */
+export function masslessLimit(spin: FieldSpin, own: NodeTotals, scalar?: NodeTotals): NodeTotals {
+  if (spin !== 1) return own;
+  if (!scalar) throw new InputError('scalar', 'the massless scalar totals at the same a* (needed for spin 1)', scalar);
+  return {
+    power: (2 * own.power + scalar.power) / 3,
+    powerRel: Math.max(own.powerRel, scalar.powerRel),
+    torque: (2 * own.torque + scalar.torque) / 3,
+    torqueRel: Math.max(own.torqueRel, scalar.torqueRel),
+    gammaCalls: 0,
+    steps: 0,
+    rhsEvaluations: 0,
+  };
+}
+
+/**
+ * Ratios of one spin from its totals at every (mass, a*) node (row 0: the
+ * massless field, the denominator); the Mμ = 0 row is the massless limit of
+ * the massive field (masslessLimit, with `scalar` the massless spin-0 totals
+ * per a* for spin 1); the a* = 0 torque ratio comes from the even series.
+ */
+export function ratioRow(
+  spin: FieldSpin,
+  totals: readonly (readonly NodeTotals[])[],
+  scalar?: readonly NodeTotals[],
+): MassiveRateRow {
   const base = totals[0];
+  const limit = base.map((b, j) => masslessLimit(spin, b, scalar?.[j]));
   const row: MassiveRateRow = { spin, powerRatio: [], torqueRatio: [], powerRatioError: [], torqueRatioError: [] };
-  for (const t of totals) {
+  for (const t of [limit, ...totals.slice(1)]) {
     row.powerRatio.push(t.map((x, j) => x.power / base[j].power));
     row.powerRatioError.push(t.map((x, j) => x.powerRel + base[j].powerRel));
     const tr = t.map((x, j) => (j === 0 ? Number.NaN : x.torque / base[j].torque));
@@ -177,21 +210,24 @@ export function massiveRateTable(
   let steps = 0;
   let rhsEvaluations = 0;
   let done = 0;
-  const rows = spins.map((spin) =>
-    ratioRow(
-      spin,
-      masses.map((mu) =>
-        aStar.map((a) => {
-          const t = fieldTotals(spin, mu, a, tol);
-          gammaCalls += t.gammaCalls;
-          steps += t.steps;
-          rhsEvaluations += t.rhsEvaluations;
-          onPoint?.(++done, spins.length * masses.length * n);
-          return t;
-        }),
-      ),
+  const solve = (spin: FieldSpin, mu: number, a: number) => {
+    const t = fieldTotals(spin, mu, a, tol);
+    gammaCalls += t.gammaCalls;
+    steps += t.steps;
+    rhsEvaluations += t.rhsEvaluations;
+    return t;
+  };
+  const all = spins.map((spin) =>
+    masses.map((mu) =>
+      aStar.map((a) => {
+        const t = solve(spin, mu, a);
+        onPoint?.(++done, spins.length * masses.length * n);
+        return t;
+      }),
     ),
   );
+  const scalarRow = spins.includes(1) ? (all[spins.indexOf(0)]?.[0] ?? aStar.map((a) => solve(0, 0, a))) : undefined;
+  const rows = spins.map((spin, k) => ratioRow(spin, all[k], scalarRow));
   const errorEstimate = Math.max(...rows.flatMap((r) => r.powerRatioError.flat()));
   return {
     aStar,
