@@ -579,7 +579,7 @@ const ENTRIES: Entry[] = [
       or(
         fc.record({
           hole: or(hole),
-          field: or(fc.record({ spin: or(spinArb) })),
+          field: or(fc.record({ spin: or(spinArb), mass: or(fc.constantFrom(0, 1e-7, 0.02, 0.3)) }, { requiredKeys: ['spin'] })),
           grid: or(fc.array(or(fc.double({ min: 0.05, max: 1 })), { maxLength: 2 })),
         }),
       ),

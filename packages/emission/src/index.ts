@@ -14,6 +14,8 @@ export {
   type EmissionSpectrum,
 } from './spectrum.js';
 export type { SpectrumPoint } from './spectrumPoint.js';
+export type { EmittedField } from './massiveField.js';
+export { MASSIVE_VECTOR_KERR_APPROXIMATION } from './massiveModes.js';
 export {
   emissionTotals,
   type TotalsProblem,

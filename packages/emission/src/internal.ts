@@ -18,6 +18,7 @@ export {
   type ModeRate,
 } from './modes.js';
 export { spectrumPointUnit } from './spectrumPoint.js';
+export { massiveGamma, type GammaEstimate } from './massiveModes.js';
 export { integrateMode, emptyAccumulator, type TotalsAccumulator } from './modeIntegral.js';
 export { dofBySpin } from './species.js';
 export { validateGrid, requireProblem } from './validate.js';

@@ -1,7 +1,8 @@
 /**
- * One mode's number and energy rates integrated over frequency, ∫_0^W dω,
+ * One mode's number and energy rates integrated over frequency, ∫_μ^W dω
+ * (μ = 0 when massless; a massive mode in the wavenumber k∞ = √(ω² − μ²)),
  * with adaptive Gauss–Kronrod (docs/emission.md, "Quadrature"). Upper limit:
- * the smallest W > max(mΩ_H, 0) whose Boltzmann tail bound (Γ ≤ 1 for
+ * the smallest W > max(mΩ_H, μ, 0) whose Boltzmann tail bound (Γ ≤ 1 for
  * ω > mΩ_H) is below a hundredth of the mode's tolerance, extended while the
  * tail is not small against the mode itself, capped at Mω = 30.
  */
@@ -44,6 +45,34 @@ export interface TotalsAccumulator {
   modes: ModeTotal[];
 }
 
+/**
+ * ∫_μ^W f(ω) dω as ∫_0^{k(W)} f(ω(k)) (k/ω) dk with k = √(ω² − μ²): a massive
+ * mode's rate has a square-root edge at the threshold (Γ ∝ k^{2l+1}, the s-wave
+ * a finite Sommerfeld-type limit), which is smooth in k.
+ */
+function integrateInWavenumber(
+  f: (w: number) => number[],
+  breaks: readonly number[],
+  mu: number,
+  tolAbs: readonly number[],
+  tolRel: number,
+) {
+  const toK = (w: number) => Math.sqrt(Math.max((w - mu) * (w + mu), 0));
+  const kBreaks: number[] = [];
+  for (const b of breaks) {
+    const k = toK(b);
+    if (kBreaks.length === 0 || k > kBreaks[kBreaks.length - 1]) kBreaks.push(k);
+  }
+  const g = (k: number): number[] => {
+    const w = Math.sqrt(mu * mu + k * k);
+    // at k = 0 the Jacobian k/ω vanishes and ω = μ, where nothing is emitted
+    if (!(w > mu)) return [0, 0, 0, 0];
+    const jac = k / w;
+    return f(w).map((v) => v * jac);
+  };
+  return adaptiveKronrod(g, kBreaks, tolAbs, 400, tolRel);
+}
+
 /** A fresh accumulator. */
 export function emptyAccumulator(): TotalsAccumulator {
   return { v: [0, 0, 0], q: [0, 0, 0], g: [0, 0, 0], t: [0, 0, 0], panels: 0, skipped: 0, modes: [] };
@@ -68,7 +97,8 @@ export function integrateMode(
   initialPanels: number,
 ): ModeTotal {
   const T = ctx.hole.temperature;
-  const start = Math.max(m * ctx.hole.omegaH, 0);
+  const mu = ctx.fieldMass;
+  const start = Math.max(m * ctx.hole.omegaH, mu, 0);
   // Without a scale yet (first mode), reach 30 T past the threshold and let the tail check extend it.
   let W = start + 30 * T;
   if (tolN > 0) {
@@ -86,15 +116,15 @@ export function integrateMode(
     return [n, w * n, n * r.relError, w * n * r.relError];
   };
   const tolAbs = [tolN, tolE, Infinity, Infinity];
-  // Leading modes: break at the thermal scales past the threshold max(mΩ_H, 0), where the
+  // Leading modes: break at the thermal scales past the threshold max(mΩ_H, μ, 0), where the
   // integrand turns over, so bisection does not have to find that scale.
-  const breaks = [0];
+  const breaks = [mu];
   if (initialPanels > 1) {
-    if (start > 0) breaks.push(0.5 * start, start);
+    if (start > mu) breaks.push(0.5 * (mu + start), start);
     for (const x of [4, 10, 20]) if (start + x * T < W) breaks.push(start + x * T);
   }
   breaks.push(W);
-  let q = adaptiveKronrod(f, breaks, tolAbs, 400, tolRel);
+  let q = mu > 0 ? integrateInWavenumber(f, breaks, mu, tolAbs, tolRel) : adaptiveKronrod(f, breaks, tolAbs, 400, tolRel);
   let value = q.value.slice();
   let error = q.error.slice();
   let evaluations = q.evaluations;

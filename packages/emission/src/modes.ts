@@ -8,6 +8,7 @@
 import { ConvergenceError, type FieldSpin } from '@penumbra/core';
 import { kerrHole, type KerrHole } from '@penumbra/kerr';
 import { greybody, lowFrequencyGreybody, MOMEGA_RANGE, type GreybodySolution } from '@penumbra/flux';
+import { massiveGamma, type GammaEstimate } from './massiveModes.js';
 
 const MIN_MOMEGA = MOMEGA_RANGE.min;
 const MAX_MOMEGA = MOMEGA_RANGE.max;
@@ -31,8 +32,10 @@ export interface ModeContext {
   fermion: boolean;
   greybodyTol: number;
   counters: ModeCounters;
-  /** field mass Mμ (0 when massless; only spin 0 has a massive greybody route) */
+  /** field mass Mμ (0 when massless; spin 2 has no massive route) */
   fieldMass: number;
+  /** massive vector on Kerr: Schwarzschild Proca ratios by `${l}:${ω}` (massiveModes.ts) */
+  procaRatios: Map<string, GammaEstimate>;
 }
 
 /** The context of a field of spin `spin` (and mass Mμ, default 0) on the unit-mass hole with a/M = aStar ≥ 0. */
@@ -45,6 +48,7 @@ export function modeContext(spin: FieldSpin, aStar: number, greybodyTol: number,
     fermion: spin === 0.5,
     greybodyTol,
     counters: { gammaCalls: 0, steps: 0, rhsEvaluations: 0 },
+    procaRatios: new Map(),
   };
 }
 
@@ -62,10 +66,9 @@ export interface ModeRate {
   relError: number;
 }
 
-function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): { gamma: number; relError: number } {
-  // Below the mass threshold no wave reaches infinity: nothing is emitted there.
-  if (ctx.fieldMass > 0 && !(omega > ctx.fieldMass)) return { gamma: 0, relError: 0 };
-  const field = ctx.fieldMass > 0 ? { spin: ctx.spin, mass: ctx.fieldMass } : { spin: ctx.spin };
+function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): GammaEstimate {
+  // Massive: per degree of freedom over the field's own modes, 0 below the threshold (massiveModes.ts).
+  if (ctx.fieldMass > 0) return massiveGamma(ctx, l, m, omega);
   if (omega < MIN_MOMEGA) {
     // Page's low-frequency formula; its first correction is ~2πMω (physics notes).
     const g = lowFrequencyGreybody({ hole: { a: ctx.aStar }, mode: { field: { spin: ctx.spin }, l, m }, omega });
@@ -73,7 +76,10 @@ function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): { gamma
   }
   let r: GreybodySolution;
   try {
-    r = greybody({ hole: { a: ctx.aStar }, mode: { field, l, m }, omega }, { tol: ctx.greybodyTol, reflection: false });
+    r = greybody(
+      { hole: { a: ctx.aStar }, mode: { field: { spin: ctx.spin }, l, m }, omega },
+      { tol: ctx.greybodyTol, reflection: false },
+    );
   } catch (e) {
     if (e instanceof ConvergenceError) {
       throw new ConvergenceError(

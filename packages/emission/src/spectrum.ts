@@ -15,13 +15,11 @@ import {
   validateTolerance,
   type Diagnostics,
   type Field,
-  type FieldSpin,
   type FrequencyGrid,
   type Hole,
-  InputError,
 } from '@penumbra/core';
-import { MOMEGA_RANGE } from '@penumbra/flux';
 import { modeContext } from './modes.js';
+import { requireMassiveRoute, solutionField, type EmittedField } from './massiveField.js';
 import { automaticMaxL } from '@penumbra/flux';
 import { spectrumLCut, spectrumPointUnit, type SpectrumPoint } from './spectrumPoint.js';
 import { checkMaxL, maxLOption, requireProblem, validateGrid } from './validate.js';
@@ -60,7 +58,9 @@ export interface SpectrumDiagnostics extends Diagnostics {
 export interface EmissionSpectrum {
   hole: { a: number; mass: number };
   /** the field; `mass` (Mμ) only for a massive field */
-  field: { spin: FieldSpin; mass?: number };
+  field: EmittedField;
+  /** set when Γ is approximated rather than solved exactly (a massive vector on Kerr, a ≠ 0): which approximation */
+  approximation?: string;
   /** points at Mω ≤ Mμ (below a massive field's threshold) are zero: nothing reaches infinity there */
   points: SpectrumPoint[];
   diagnostics: SpectrumDiagnostics;
@@ -74,7 +74,9 @@ const OPTIONS = {
 
 /**
  * The emission spectrum per degree of freedom (d²N/dtdω, d²E/dtdω, d²J/dtdω)
- * on a frequency grid. Throws InputError for a bad problem or option,
+ * on a frequency grid. A massive field (spin 0, 1/2 or 1) is zero at and
+ * below its threshold Mω ≤ Mμ; a massive vector on a spinning hole uses the
+ * approximation named in `approximation`. Throws InputError for a bad problem or option,
  * ConvergenceError (with diagnostics) if an l-sum or a greybody solve does
  * not converge.
  *
@@ -84,15 +86,8 @@ export function emissionSpectrum(problem: SpectrumProblem, options?: SpectrumOpt
   const p = requireProblem(problem, ['hole', 'field', 'grid']);
   const field = validateField(p.field, 'field');
   const { spin, mass: fieldMass } = field;
-  // A massive field is computed for spin 0 only (the greybody solver refuses other spins, naming mode.field.mass);
-  // lighter than the solver's lowest Mω it is indistinguishable from massless there and is refused rather than guessed.
-  if (fieldMass > 0 && spin !== 0) {
-    throw new InputError('field.mass', '0 for spin ≠ 0 (massive fields are computed for spin 0)', fieldMass);
-  }
-  if (fieldMass > 0 && fieldMass < MOMEGA_RANGE.min) {
-    throw new InputError('field.mass', `0 or Mμ ≥ ${MOMEGA_RANGE.min}`, fieldMass);
-  }
   const { a, mass } = validateHole(p.hole, 'hole');
+  requireMassiveRoute(field);
   const omegas = validateGrid(p.grid, mass);
   const { tol = 1e-6, maxL: givenMaxL, onPoint } = validateOptions<SpectrumOptions>(options, OPTIONS);
   const aStar = Math.abs(a) / mass;
@@ -116,9 +111,11 @@ export function emissionSpectrum(problem: SpectrumProblem, options?: SpectrumOpt
     return { ...point, omega: w, energy: point.energy / mass, torque: sign * point.torque };
   });
   const errorEstimate = Math.max(...points.map((pt) => pt.relError));
+  const { field: emitted, approximation } = solutionField(field, aStar);
   return {
     hole: { a, mass },
-    field: fieldMass > 0 ? { spin, mass: fieldMass } : { spin },
+    field: emitted,
+    ...(approximation ? { approximation } : {}),
     points,
     diagnostics: {
       method: 'Σ over whole l-shells of Γ·occupation/2π, geometric tail and Boltzmann bounds',

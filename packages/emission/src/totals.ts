@@ -26,10 +26,9 @@ import {
   validateTolerance,
   type Diagnostics,
   type Field,
-  type FieldSpin,
   type Hole,
-  requireMassless,
 } from '@penumbra/core';
+import { requireMassiveRoute, solutionField, type EmittedField } from './massiveField.js';
 import { boltzmannTailBound, modeContext, shellMs, torqueTailBound, type ModeContext } from './modes.js';
 import { emptyAccumulator, integrateMode, type ModeTotal, type TotalsAccumulator, type Triple } from './modeIntegral.js';
 import { checkMaxL, maxLOption, requireProblem } from './validate.js';
@@ -80,7 +79,10 @@ export interface TotalsDiagnostics extends Diagnostics {
 /** Number rate, power and torque per degree of freedom of one field on one hole. */
 export interface EmissionTotals {
   hole: { a: number; mass: number };
-  field: { spin: FieldSpin };
+  /** the field; `mass` (Mμ) only for a massive field */
+  field: EmittedField;
+  /** set when Γ is approximated rather than solved exactly (a massive vector on Kerr, a ≠ 0): which approximation */
+  approximation?: string;
   /** dN/dt per degree of freedom, geometric units (∝ 1/M) */
   numberRate: EstimatedValue;
   /** dE/dt per degree of freedom, geometric units (∝ 1/M²) */
@@ -193,7 +195,10 @@ function totalsUnit(ctx: ModeContext, tol: number, maxL: number, looseness: numb
 
 /**
  * Number rate, power and torque per degree of freedom of a field emitted by a
- * hole of mass M (geometric, default 1) and spin parameter a. Throws
+ * hole of mass M (geometric, default 1) and spin parameter a. A massive field
+ * (mass Mμ, spin 0, 1/2 or 1) is emitted only above its threshold ω > μ; a
+ * massive vector on a spinning hole uses the approximation named in the
+ * solution's `approximation` (docs/emission.md). Throws
  * InputError for a bad problem or option, ConvergenceError (with diagnostics)
  * if the number rate or power misses `tol` after three runs.
  *
@@ -202,14 +207,14 @@ function totalsUnit(ctx: ModeContext, tol: number, maxL: number, looseness: numb
 export function emissionTotals(problem: TotalsProblem, options?: TotalsOptions): EmissionTotals {
   const p = requireProblem(problem, ['hole', 'field']);
   const field = validateField(p.field, 'field');
-  requireMassless(field, 'field.mass', 'emission totals');
-  const { spin } = field;
   const { a, mass } = validateHole(p.hole, 'hole');
+  requireMassiveRoute(field);
+  const { spin } = field;
   const { tol = 1e-6, maxL = 60, onMode } = validateOptions<TotalsOptions>(options, TOTALS_OPTIONS);
   checkMaxL(maxL, spin);
   const aStar = Math.abs(a) / mass;
   // Γ to a fifth of the requested accuracy, never below the solver's floor.
-  const ctx = modeContext(spin, aStar, Math.max(tol / 5, TOLERANCE_RANGE.min));
+  const ctx = modeContext(spin, aStar, Math.max(tol / 5, TOLERANCE_RANGE.min), field.mass);
   let looseness = 1;
   for (let attempt = 1; ; attempt++) {
     const { acc, lMax } = totalsUnit(ctx, tol, maxL, looseness, onMode);
@@ -243,6 +248,7 @@ export function emissionTotals(problem: TotalsProblem, options?: TotalsOptions):
         throw new ConvergenceError('emission totals did not reach the requested accuracy', {
           ...diagnostics,
           spin,
+          fieldMass: field.mass,
           a,
           relError: rel,
         });
@@ -253,9 +259,11 @@ export function emissionTotals(problem: TotalsProblem, options?: TotalsOptions):
         relError: rel[i],
         absError: absErr[i] / scale,
       });
+      const { field: emitted, approximation } = solutionField(field, aStar);
       return {
         hole: { a, mass },
-        field: { spin },
+        field: emitted,
+        ...(approximation ? { approximation } : {}),
         numberRate: ev(0, mass),
         power: ev(1, mass * mass),
         torque: aStar === 0 ? { value: 0, relError: 0, absError: 0 } : ev(2, mass, sign),
