@@ -164,6 +164,13 @@ function integrate(rates: MassLossRates, m0: number, aStar0: number, tol: number
     counter.evaluations++;
     const a = Math.max(0, Math.min(y[0], rates.aMax));
     const pt = rates.at(m0 * Math.exp(-u), a);
+    if (!(pt.f > 0))
+      throw new InputError(
+        'rates',
+        'a content that emits at every mass the hole passes (f > 0)',
+        pt.f,
+        `f = 0 at M = ${m0 * Math.exp(-u)} g`,
+      );
     dy[0] = -a * (pt.g / pt.f - 2);
     dy[1] = Math.exp(-3 * u) / pt.f;
     const w = Math.exp(-u) / pt.f;

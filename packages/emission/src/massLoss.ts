@@ -10,7 +10,7 @@
  * θ = arcsin a*). Past the largest tabulated Mμ, ln R is continued linearly
  * (the Boltzmann tail); such species carry less than R at that node.
  */
-import { InputError, parseFieldSpin, requireFinite, type FieldSpin } from '@penumbra/core';
+import { InputError, numberIn, parseFieldSpin, requireFinite, type FieldSpin } from '@penumbra/core';
 import { CODATA2018 } from '@penumbra/kerr';
 import { localCubic, windowSpread } from './localCubic.js';
 import { bundledMassiveRateTable, type MassiveRateTable } from './massiveRateTable.js';
@@ -28,6 +28,8 @@ export interface EmittedSpecies {
   dof: number;
   /** rest mass m c² in GeV (0 for a massless species) */
   massGeV: number;
+  /** quarks and gluons 'parton' (emitted only while T_H > the confinement scale), pions 'hadron' (only while T_H ≤ it) */
+  qcd?: 'parton' | 'hadron';
 }
 
 /** The species and, optionally, the tables the rates are built from. */
@@ -37,6 +39,8 @@ export interface MassLossProblem {
   readonly pageTable?: PageTable;
   /** massive/massless ratios over (Mμ, a*) (default: bundledMassiveRateTable()) */
   readonly massiveTable?: MassiveRateTable;
+  /** T_H (GeV) above which partons and at or below which hadrons are emitted (default 0.3; common practice, no source) */
+  readonly confinementScaleGeV?: number;
 }
 
 /** f, g and each species' share at one (M, a*). */
@@ -58,6 +62,8 @@ export interface MassLossRates {
   g: (massGrams: number, aStar: number) => number;
   /** largest a* of the tables */
   aMax: number;
+  /** the confinement scale used, GeV */
+  confinementScaleGeV: number;
   /** the heaviest species' mass in GeV (0 if all are massless): below M = 1e-4/(m·FIELD_MASS_PER_GRAM_GEV) grams every species has Mμ ≤ 1e-4 */
   heaviestMassGeV: number;
   /** relative interpolation error estimates (massless table + ratio table) */
@@ -81,7 +87,9 @@ export function checkSpecies(value: unknown, rows: readonly FieldSpin[]): Emitte
     if (!(massGeV >= 0 && massGeV <= 1e19)) throw new InputError(`${at}.massGeV`, 'a mass from 0 to 1e19 GeV', massGeV);
     if (massGeV > 0 && !rows.includes(spin))
       throw new InputError(`${at}.massGeV`, `0 for spin ${spin} (massive spins ${rows.join(', ')})`, massGeV);
-    return { name, spin, dof, massGeV };
+    if (s.qcd !== undefined && s.qcd !== 'parton' && s.qcd !== 'hadron')
+      throw new InputError(`${at}.qcd`, "'parton', 'hadron' or absent", s.qcd);
+    return s.qcd ? { name, spin, dof, massGeV, qcd: s.qcd } : { name, spin, dof, massGeV };
   });
 }
 
@@ -104,7 +112,8 @@ function halvedNodeError(xs: readonly number[], ys: readonly number[], even: boo
  * @example massLossRates({ species: [{ name: 'electron', spin: 0.5, dof: 4, massGeV: 0.000511 }] }).f(1e15, 0)
  */
 export function massLossRates(problem: MassLossProblem): MassLossRates {
-  const p = requireProblem(problem, ['species', 'pageTable', 'massiveTable']);
+  const p = requireProblem(problem, ['species', 'pageTable', 'massiveTable', 'confinementScaleGeV']);
+  const scale = p.confinementScaleGeV === undefined ? 0.3 : numberIn(1e-3, 1e3)(p.confinementScaleGeV, 'confinementScaleGeV');
   const page = (p.pageTable as PageTable | undefined) ?? bundledPageTable();
   const ratios = (p.massiveTable as MassiveRateTable | undefined) ?? bundledMassiveRateTable();
   const species = checkSpecies(
@@ -123,11 +132,17 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
   const lnJ = new Map(
     ratios.spins.map((r) => [r.spin, r.torqueRatio.map((row) => row.map((x) => Math.log(Math.max(x, 1e-300))))]),
   );
-  const aMax = Math.min(page.aStar[page.aStar.length - 1], ratios.aStar[ratios.aStar.length - 1]);
+  // the a* range: the Page table's, and that of every ratio row a massive species uses
+  const massiveSpins = new Set(species.filter((sp) => sp.massGeV > 0).map((sp) => sp.spin));
+  const aMax = Math.min(
+    page.aStar[page.aStar.length - 1],
+    ...ratios.spins.filter((r) => massiveSpins.has(r.spin)).map((r) => r.aStar[r.aStar.length - 1]),
+  );
   const spinsUsed = [...new Set(species.map((s) => s.spin))];
 
   /** ln R over the field-mass nodes at θ, for one spin and quantity. */
-  const columnAt = (table: number[][], theta: number) => table.map((row) => localCubic(ratios.theta, row, theta, true));
+  const columnAt = (table: number[][], theta: readonly number[], th: number) =>
+    table.map((row) => localCubic(theta, row, th, true));
   const lnRatio = (column: number[], mu: number) => {
     if (mu <= 0) return 0;
     const n = mus.length;
@@ -150,9 +165,14 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
       }),
     );
     const columns = new Map<FieldSpin, number[][]>();
+    // confinement: T_H of this hole in GeV against the scale
+    const root = Math.sqrt(Math.max(0, 1 - a * a));
+    const temperatureGeV = root / (4 * Math.PI * (1 + root) * M * FIELD_MASS_PER_GRAM_GEV);
+    const hot = temperatureGeV > scale;
     let f = 0;
     let g = 0;
     const rows = species.map((s) => {
+      if ((s.qcd === 'parton' && !hot) || (s.qcd === 'hadron' && hot)) return { name: s.name, power: 0, torqueOverA: 0 };
       const [p0, j0] = massless.get(s.spin)!;
       let rp = 1;
       let rj = 1;
@@ -160,7 +180,8 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
       if (mu > 0) {
         let c = columns.get(s.spin);
         if (!c) {
-          c = [columnAt(lnP.get(s.spin)!, th), columnAt(lnJ.get(s.spin)!, th)];
+          const grid = ratioRow.get(s.spin)!.theta;
+          c = [columnAt(lnP.get(s.spin)!, grid, th), columnAt(lnJ.get(s.spin)!, grid, th)];
           columns.set(s.spin, c);
         }
         rp = Math.exp(lnRatio(c[0], mu));
@@ -188,15 +209,15 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
       const table = r[key];
       const ln = key === 'powerRatio' ? lnP.get(spin)! : lnJ.get(spin)!;
       // spread of ln R between neighbouring cubic windows, weighted by R (a species' share of f is at most R of its massless share)
-      for (let j = 0; j < ratios.theta.length; j++) {
+      for (let j = 0; j < r.theta.length; j++) {
         const col = ln.map((row) => row[j]);
         const weight = (mu: number) => Math.min(1, Math.exp(localCubic(mus, col, mu)));
         ratioInterp = Math.max(ratioInterp, windowSpread(mus, col, false, weight));
         for (let i = 0; i < mus.length; i++) ratioNode = Math.max(ratioNode, r[errKey][i][j] * Math.min(1, table[i][j]));
       }
       for (const row of ln) {
-        const weight = (th: number) => Math.min(1, Math.exp(localCubic(ratios.theta, row, th, true)));
-        ratioInterp = Math.max(ratioInterp, windowSpread(ratios.theta, row, true, weight));
+        const weight = (th: number) => Math.min(1, Math.exp(localCubic(r.theta, row, th, true)));
+        ratioInterp = Math.max(ratioInterp, windowSpread(r.theta, row, true, weight));
       }
     }
   }
@@ -223,6 +244,7 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
     g: (m, a) => at(m, a).g,
     aMax,
     heaviestMassGeV: heaviest,
+    confinementScaleGeV: scale,
     interpolationError: { f: pf.interp + ratioInterp, g: pg.interp + ratioInterp },
     nodeError: { f: pf.node + ratioNode, g: pg.node + ratioNode },
   };

@@ -30,6 +30,10 @@ import { requireProblem } from './validate.js';
 /** Ratios of one field spin, indexed [field-mass node][a* node]. */
 export interface MassiveRateRow {
   spin: FieldSpin;
+  /** the a* nodes of this spin: the table's, or its first nodes when the generation of this spin was cut short */
+  aStar: number[];
+  /** θ = arcsin a* of those nodes */
+  theta: number[];
   /** per-dof power at (Mμ, a*) over the massless per-dof power at a* */
   powerRatio: number[][];
   /** per-dof torque at (Mμ, a*) over the massless per-dof torque at a* (at a* = 0 the limit, from the even series in θ) */
@@ -166,12 +170,21 @@ export function masslessLimit(spin: FieldSpin, own: NodeTotals, scalar?: NodeTot
  */
 export function ratioRow(
   spin: FieldSpin,
+  grid: { aStar: readonly number[]; theta: readonly number[] },
   totals: readonly (readonly NodeTotals[])[],
   scalar?: readonly NodeTotals[],
 ): MassiveRateRow {
   const base = totals[0];
   const limit = base.map((b, j) => masslessLimit(spin, b, scalar?.[j]));
-  const row: MassiveRateRow = { spin, powerRatio: [], torqueRatio: [], powerRatioError: [], torqueRatioError: [] };
+  const row: MassiveRateRow = {
+    spin,
+    aStar: grid.aStar.slice(0, base.length),
+    theta: grid.theta.slice(0, base.length),
+    powerRatio: [],
+    torqueRatio: [],
+    powerRatioError: [],
+    torqueRatioError: [],
+  };
   for (const t of [limit, ...totals.slice(1)]) {
     row.powerRatio.push(t.map((x, j) => x.power / base[j].power));
     row.powerRatioError.push(t.map((x, j) => x.powerRel + base[j].powerRel));
@@ -227,7 +240,7 @@ export function massiveRateTable(
     ),
   );
   const scalarRow = spins.includes(1) ? (all[spins.indexOf(0)]?.[0] ?? aStar.map((a) => solve(0, 0, a))) : undefined;
-  const rows = spins.map((spin, k) => ratioRow(spin, all[k], scalarRow));
+  const rows = spins.map((spin, k) => ratioRow(spin, { aStar, theta }, all[k], scalarRow));
   const errorEstimate = Math.max(...rows.flatMap((r) => r.powerRatioError.flat()));
   return {
     aStar,
@@ -260,6 +273,8 @@ export function bundledMassiveRateTable(): MassiveRateTable {
     fieldMass: t.fieldMass.slice(),
     spins: t.spins.map((r) => ({
       spin: r.spin,
+      aStar: r.aStar.slice(),
+      theta: r.theta.slice(),
       powerRatio: copy(r.powerRatio),
       torqueRatio: copy(r.torqueRatio),
       powerRatioError: copy(r.powerRatioError),
