@@ -573,6 +573,38 @@ const ENTRIES: Entry[] = [
   },
   { name: 'contentTotals', call: fn(emission.contentTotals), args: [or(fc.record({ hole: or(hole) })), invalid], runs: 60 },
   {
+    // heavy holes only: every massive species is Boltzmann-negligible or confined, so no massive solve starts
+    name: 'contentTotals (species with masses)',
+    call: fn(emission.contentTotals),
+    args: [
+      or(
+        fc.record({
+          hole: or(fc.record({ a: or(fc.constantFrom(0, 0.5)) })),
+          content: or(fc.array(or(fc.constantFrom('muon', 'top', 'gluon', 'pion-neutral', 'x')), { maxLength: 2 })),
+          physicalMass: or(fc.record({ value: or(fc.constantFrom(1e19, 1e21, -1)), unit: or(fc.constantFrom('g', 'kg', 'lb')) })),
+        }),
+      ),
+      or(fc.record({ tol: or(fc.constant(1e-2)), confinementScaleGeV: or(fc.constantFrom(0.3, -1, 1e9)) })),
+    ],
+    runs: 40,
+  },
+  {
+    name: 'contentSpectra',
+    call: fn(emission.contentSpectra),
+    args: [
+      or(
+        fc.record({
+          hole: or(fc.record({ a: or(fc.constantFrom(0, 0.5)) })),
+          content: or(fc.array(or(fc.constantFrom('photon', 'muon', 'gluon', 'x')), { maxLength: 2 })),
+          physicalMass: or(fc.record({ value: or(fc.constantFrom(1e19, 1e16, 0)), unit: or(fc.constantFrom('g', 'x')) })),
+          energiesGeV: or(fc.array(or(fc.constantFrom(1e-6, 1e-4, 1, -1, 1e9)), { maxLength: 2 })),
+        }),
+      ),
+      or(fc.record({ tol: or(fc.constant(1e-2)), confinementScaleGeV: or(fc.constantFrom(0.3, 0)) })),
+    ],
+    runs: 30,
+  },
+  {
     name: 'emissionSpectrum',
     call: fn(emission.emissionSpectrum),
     args: [

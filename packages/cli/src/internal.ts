@@ -23,6 +23,7 @@ export {
   type MassValues,
   GEOMETRIC_UNIT,
 } from './options.js';
+export { parseContentList } from './contentOption.js';
 export { ACCURACY_LIMIT, INACCURATE_COLUMN, type Estimated, isInaccurate, warnInaccurate } from './accuracy.js';
 export { type LimitName, limitsHelp } from './limits.js';
 export {

@@ -32,8 +32,27 @@ export {
   type ContentDiagnostics,
   type ContentTotals,
   type SpeciesTotals,
+  type SpeciesStatus,
+  type PhysicalMass,
+  DEFAULT_CONFINEMENT_SCALE_GEV,
 } from './content.js';
-export { KNOWN_SPECIES, DEFAULT_CONTENT, PAGE_1976_CONTENT, resolveContent, type Species, type SpeciesSpec } from './species.js';
+export {
+  KNOWN_SPECIES,
+  DEFAULT_CONTENT,
+  PAGE_1976_CONTENT,
+  STANDARD_MODEL_CONTENT,
+  resolveContent,
+  type Species,
+  type SpeciesSpec,
+  type QcdRole,
+} from './species.js';
+export {
+  contentSpectra,
+  type ContentSpectraProblem,
+  type ContentSpectraOptions,
+  type ContentSpectra,
+  type SpeciesSpectrum,
+} from './contentSpectra.js';
 export { toPhysicalRates, toPhysicalSpectrum, type PhysicalRates } from './units.js';
 export {
   pageTable,

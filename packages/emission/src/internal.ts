@@ -21,6 +21,7 @@ export { spectrumPointUnit } from './spectrumPoint.js';
 export { massiveGamma, type GammaEstimate } from './massiveModes.js';
 export { integrateMode, emptyAccumulator, type TotalsAccumulator } from './modeIntegral.js';
 export { dofBySpin } from './species.js';
+export { boltzmannSpeciesBound, masslessProxyBound, MASSLESS_PROXY_MAX_MU } from './speciesBounds.js';
 export { validateGrid, requireProblem } from './validate.js';
 export { SHIPPED_PAGE_TABLE } from './pageTableData.js';
 export { thetaGrid, fieldTotals, ratioRow, masslessLimit } from './massiveRateTable.js';

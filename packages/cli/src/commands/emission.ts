@@ -1,5 +1,15 @@
 import type { FieldSpin } from '@penumbra/core';
-import { emissionSpectrum, emissionTotals, toPhysicalRates, toPhysicalSpectrum } from '@penumbra/emission';
+import {
+  DEFAULT_CONFINEMENT_SCALE_GEV,
+  KNOWN_SPECIES,
+  emissionSpectrum,
+  emissionTotals,
+  toPhysicalRates,
+  toPhysicalSpectrum,
+} from '@penumbra/emission';
+import { UsageError } from '../command.js';
+import { runContentEmission } from '../contentEmission.js';
+import { parseContentList } from '../contentOption.js';
 import { isInaccurate, warnInaccurate } from '../accuracy.js';
 import type { Command } from '../command.js';
 import { limitsHelp } from '../limits.js';
@@ -11,29 +21,44 @@ import { progressReporter } from '../progress.js';
 /** `penumbra emission`. */
 export const command: Command = {
   name: 'emission',
-  summary: 'Hawking emission per degree of freedom: number rate, power, torque, and the spectrum on a grid',
+  summary: 'Hawking emission per degree of freedom or over species (--content): number rate, power, torque, spectra',
   usage: `Usage: penumbra emission --a A --spin S [--mass M --unit g|kg|msun] [--omega START:STOP:COUNT] [--tol T] [--json|--csv]
+       penumbra emission --a A --content LIST --mass M --unit g|kg|msun [--energy START:STOP:COUNT] [--confinement-scale GEV] [--tol T] [--json|--csv]
 
 Totals per degree of freedom (one helicity of one species) in geometric units of
 the hole mass M: numberRate ∝ 1/M, power ∝ 1/M², torque dJ/dt ∝ 1/M (ħ = 1).
 With --mass they are also given in s⁻¹, W, GeV s⁻¹ and J.
 
+With --content: totals over species, a row per species (all its degrees of
+freedom) and the total, in s⁻¹, GeV s⁻¹ and ħ s⁻¹; massive species emitted only
+above E = m (docs/emission.md). Quarks and gluons are emitted only when
+T_H > the confinement scale, pions only below it (common practice, no source).
+
 Options:
   --a A         the hole's spin parameter a/M (|a/M| ≤ 0.99999)
-  --spin S      field spin: 0, 1/2, 1, 2
+  --spin S      field spin: 0, 1/2, 1, 2 (not with --content)
+  --content LIST  comma-separated species: ${Object.keys(KNOWN_SPECIES).join(', ')},
+                standard-model (all but scalar), or a user species NAME:SPIN:DOF[:MASS_GEV]
+                (e.g. dark-scalar:0:1:0.01); needs --mass and --unit
+  --energy GRID  with --content: primary spectra d²N/(dt dE) per species [GeV⁻¹ s⁻¹] at
+                E [GeV] = START:STOP:COUNT (log-spaced) or a list E1,E2,…
+  --confinement-scale GEV  with --content: the temperature scale of the parton/pion rule
+                (default ${DEFAULT_CONFINEMENT_SCALE_GEV} GeV)
   --mass M      hole mass for physical units, always with --unit
   --unit U      unit of --mass: g, kg or msun (solar masses)
   --omega GRID  also print the spectrum d²N/(dt dω), d²E/(dt dω), d²J/(dt dω) at Mω = START:STOP:COUNT
                 (or a list W1,W2,…)
-  --tol T       relative accuracy (default 1e-6; 1e-12 … 1e-2)
+  --tol T       relative accuracy (default 1e-6; with --content 1e-3; 1e-12 … 1e-2)
   --json        one JSON object {numberRate, power, torque: {value, relError, inaccurate}, spectrum?}
-  --csv         CSV (spectrum rows if --omega is given, else the totals), units in the
-                header and the JSON keys as column names
+  --csv         CSV (spectrum rows if --omega/--energy is given, else the totals), units in
+                the header and the JSON keys as column names
   -h, --help    this text
 
 ${limitsHelp(['a', 'omega', 'tol'])}
-Example:
+Examples:
   penumbra emission --a 0.7 --spin 1 --mass 1e15 --unit g --json
+  penumbra emission --mass 1e15 --unit g --a 0.5 --content standard-model
+  penumbra emission --mass 1e15 --unit g --a 0 --content photon,electron,dark-scalar:0:1:0.01 --energy 0.001:1:20 --csv
 `,
   run(argv, io) {
     const { values } = parseOptions(argv, {
@@ -43,9 +68,45 @@ Example:
       unit: { type: 'string' },
       omega: { type: 'string' },
       tol: { type: 'string' },
+      content: { type: 'string' },
+      energy: { type: 'string' },
+      'confinement-scale': { type: 'string' },
       ...OUTPUT_OPTIONS,
     });
     const format = outputFormat(values);
+    if (values.content !== undefined) {
+      if (values.spin !== undefined)
+        throw new UsageError('--content and --spin exclude each other (--spin is one field per degree of freedom)');
+      if (values.omega !== undefined) throw new UsageError('with --content the spectra take --energy in GeV, not --omega');
+      const given = parseMassOption(values);
+      if (given === undefined)
+        throw new UsageError('--content needs --mass and --unit (species masses set Mμ through the hole mass)');
+      const known = [...Object.keys(KNOWN_SPECIES), 'standard-model'];
+      const energy =
+        values.energy === undefined
+          ? undefined
+          : parseRange('--energy', values.energy, { log: true, min: 0, exclusive: true, maxCount: 1000 });
+      runContentEmission(
+        {
+          a: parseNumber('--a', requireOption(values.a, '--a', "the hole's a/M")),
+          mass: given.mass,
+          unit: given.unit,
+          content: parseContentList('--content', values.content, known),
+          tol: values.tol === undefined ? 1e-3 : parseNumber('--tol', values.tol),
+          ...(values['confinement-scale'] === undefined
+            ? {}
+            : {
+                confinementScaleGeV: parseNumber('--confinement-scale', values['confinement-scale'], { min: 0, exclusive: true }),
+              }),
+          ...(energy ? { energiesGeV: energy.values } : {}),
+        },
+        io,
+        format,
+      );
+      return 0;
+    }
+    if (values.energy !== undefined) throw new UsageError('--energy goes with --content (use --omega for one field)');
+    if (values['confinement-scale'] !== undefined) throw new UsageError('--confinement-scale goes with --content');
     const spin = parseFieldSpin('--spin', requireOption(values.spin, '--spin', 'the field spin'));
     const a = parseNumber('--a', requireOption(values.a, '--a', "the hole's a/M"));
     const tol = values.tol === undefined ? 1e-6 : parseNumber('--tol', values.tol);

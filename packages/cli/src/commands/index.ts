@@ -55,7 +55,7 @@ export const commands: readonly CommandEntry[] = [
   },
   {
     name: 'emission',
-    summary: 'Hawking emission per degree of freedom: number rate, power, torque, and the spectrum on a grid',
+    summary: 'Hawking emission per degree of freedom or over species (--content): number rate, power, torque, spectra',
     load: () => import('./emission.js'),
   },
   {
