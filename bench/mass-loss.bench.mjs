@@ -19,11 +19,11 @@ import {
   massForLifetime,
   massLossAt,
   massLossRates,
+  resolveContent,
 } from '@penumbra/emission';
 import { SHIPPED_MASSIVE_RATE_TABLE, SHIPPED_PAGE_TABLE } from '@penumbra/emission/internal';
 import { CODATA2018 } from '@penumbra/kerr';
 import { writeResult } from './lib.mjs';
-import { standardModelSpecies } from './standard-model.mjs';
 
 const args = process.argv.slice(2);
 const opt = (name, dflt) => {
@@ -76,7 +76,7 @@ if (!args.includes('--skip-direct')) {
 }
 
 // (3) MacGibbon's normalisation
-const sm = standardModelSpecies();
+const sm = resolveContent(['standard-model']);
 const smRates = massLossRates({ species: sm });
 const { G, hbar, c } = CODATA2018;
 const gramsCubedPerSecond = ((hbar * c ** 4) / G ** 2) * 1e9;

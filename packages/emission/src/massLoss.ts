@@ -93,6 +93,32 @@ export function checkSpecies(value: unknown, rows: readonly FieldSpin[]): Emitte
   });
 }
 
+/**
+ * Interpolation error of a short (cut-short) ratio row in θ, where localCubic
+ * is linear (2 or 3 nodes) or a single cubic (4 nodes): at each interval's
+ * midpoint, the difference between the linear interpolant and the polynomial
+ * through all the nodes; with two nodes, the change of R across the interval.
+ */
+function shortRowError(theta: readonly number[], values: readonly number[]): number {
+  const n = theta.length;
+  let worst = 0;
+  for (let j = 1; j < n; j++) {
+    if (n === 2) {
+      worst = Math.max(worst, Math.abs(values[1] - values[0]));
+      continue;
+    }
+    const x = 0.5 * (theta[j - 1] + theta[j]);
+    let full = 0;
+    for (let k = 0; k < n; k++) {
+      let w = 1;
+      for (let q = 0; q < n; q++) if (q !== k) w *= (x - theta[q]) / (theta[k] - theta[q]);
+      full += w * values[k];
+    }
+    worst = Math.max(worst, Math.abs(full - 0.5 * (values[j - 1] + values[j])));
+  }
+  return worst;
+}
+
 /** Every-other-node estimate of a local cubic's relative error, divided by 2⁴ (as pageFunctions). */
 function halvedNodeError(xs: readonly number[], ys: readonly number[], even: boolean, scale: (i: number) => number): number {
   if (xs.length < 9) return 0;
@@ -215,9 +241,13 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
         ratioInterp = Math.max(ratioInterp, windowSpread(mus, col, false, weight));
         for (let i = 0; i < mus.length; i++) ratioNode = Math.max(ratioNode, r[errKey][i][j] * Math.min(1, table[i][j]));
       }
-      for (const row of ln) {
-        const weight = (th: number) => Math.min(1, Math.exp(localCubic(r.theta, row, th, true)));
-        ratioInterp = Math.max(ratioInterp, windowSpread(r.theta, row, true, weight));
+      for (const [i, row] of ln.entries()) {
+        if (r.theta.length >= 5) {
+          const weight = (th: number) => Math.min(1, Math.exp(localCubic(r.theta, row, th, true)));
+          ratioInterp = Math.max(ratioInterp, windowSpread(r.theta, row, true, weight));
+        } else {
+          ratioInterp = Math.max(ratioInterp, shortRowError(r.theta, table[i]));
+        }
       }
     }
   }

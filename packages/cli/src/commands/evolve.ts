@@ -7,23 +7,17 @@ import {
   massForLifetime,
   massLossRates,
   pageTable,
+  resolveContent,
   type EmittedSpecies,
   type PageTable,
 } from '@penumbra/emission';
+import { parseContentList } from '../contentOption.js';
 import type { Column } from '@penumbra/core';
 import type { Command } from '../command.js';
 import { UsageError } from '../command.js';
 import { INACCURATE_COLUMN, isInaccurate, warnInaccurate } from '../accuracy.js';
 import { formatError, formatNumber, formatTable } from '../format.js';
-import {
-  parseMassOption,
-  parseNameList,
-  parseNumber,
-  parseNumberList,
-  parseOptions,
-  parseRange,
-  requireOption,
-} from '../options.js';
+import { parseMassOption, parseNumber, parseNumberList, parseOptions, parseRange, requireOption } from '../options.js';
 import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
 
 /** CSV columns of the track: the keys of the JSON track points (the mass in the unit of --unit). */
@@ -44,11 +38,10 @@ const SPECTRUM_COLUMNS: Column[] = [
 
 const GRAMS_PER_UNIT: Record<string, number> = { g: 1, kg: 1e3, msun: 1.988409870698051e33 };
 
-/** The species of --content: names of the registry. */
+/** The species of --content: names of the registry, 'standard-model', or NAME:SPIN:DOF[:MASS_GEV]. */
 function parseContent(text: string | undefined): EmittedSpecies[] {
-  const names = text === undefined ? ['photon', 'graviton', 'neutrino-e', 'neutrino-mu', 'neutrino-tau'] : text.split(',');
-  parseNameList('--content', names.join(','), Object.keys(KNOWN_SPECIES));
-  return names.map((n) => ({ ...KNOWN_SPECIES[n.trim()], massGeV: 0 }));
+  if (text === undefined) return resolveContent();
+  return resolveContent(parseContentList('--content', text, [...Object.keys(KNOWN_SPECIES), 'standard-model']));
 }
 
 /** `penumbra evolve`. */
@@ -66,8 +59,13 @@ the tables shipped with @penumbra/emission: massless per-dof rates over a*
 Options:
   --a A             the hole's formation a/M (0 … 0.99 with the shipped tables)
   --mass M          formation mass (default 1 g), always with --unit g, kg or msun
-  --content LIST    species, from photon, graviton, neutrino-e, neutrino-mu, neutrino-tau,
-                    scalar (default: photons, gravitons, three neutrino species)
+  --content LIST    species: standard-model, or names from the registry (photon, gluon, graviton,
+                    neutrino-e/-mu/-tau, electron, muon, tau, up, down, strange, charm, bottom,
+                    top, w-boson, z-boson, higgs, pion-neutral, pion-charged, scalar), or user
+                    species NAME:SPIN:DOF[:MASS_GEV], comma-separated (default: photons,
+                    gravitons, three neutrino species)
+  --confinement-scale GEV  T_H above which quarks and gluons, at or below which pions are
+                    emitted (default 0.3; common practice, no source)
   --final LIST      durations τ in seconds of the final stages reported: mass and
                     energy released in the last τ, per species (default 1)
   --below LIST      report when a* first falls below these values, each in (0, 1);
@@ -103,6 +101,7 @@ Example:
       mass: { type: 'string' },
       unit: { type: 'string' },
       content: { type: 'string' },
+      'confinement-scale': { type: 'string' },
       final: { type: 'string' },
       spectrum: { type: 'string' },
       below: { type: 'string' },
@@ -137,7 +136,15 @@ Example:
     } else {
       table = bundledPageTable();
     }
-    const rates = massLossRates({ species, pageTable: table });
+    const confinementScaleGeV =
+      values['confinement-scale'] === undefined
+        ? undefined
+        : parseNumber('--confinement-scale', values['confinement-scale'], { min: 1e-3, max: 1e3 });
+    const rates = massLossRates({
+      species,
+      pageTable: table,
+      ...(confinementScaleGeV === undefined ? {} : { confinementScaleGeV }),
+    });
     if (aStar > rates.aMax) {
       throw new UsageError(
         `--a ${aStar} is beyond the tables (a* ≤ ${rates.aMax})${values['table-points'] === undefined ? '; the massless table can be recomputed with --table-points N' : ''}`,
