@@ -211,6 +211,70 @@ function integrate(rates: MassLossRates, m0: number, aStar0: number, tol: number
 
 type Run = ReturnType<typeof integrate>;
 
+const GL5 = [
+  [-0.906179845938664, 0.236926885056189],
+  [-0.5384693101056831, 0.4786286704993665],
+  [0, 0.5688888888888889],
+  [0.5384693101056831, 0.4786286704993665],
+  [0.906179845938664, 0.236926885056189],
+];
+
+/**
+ * Remaining time and per-species energies (units of M₀³ and M₀) from node k's
+ * interval fraction s to the end of that interval: ∫ e^{−3u}/f and ∫ e^{−u} P̂_i/f
+ * by 5-point Gauss–Legendre, a* from the Hermite interpolant.
+ */
+function intervalRest(run: Run, rates: MassLossRates, m0: number, k: number, s: number): number[] {
+  const p = run.nodes[k];
+  const q = run.nodes[k + 1];
+  const u0 = p.u + s * (q.u - p.u);
+  const half = 0.5 * (q.u - u0);
+  const out = new Array<number>(1 + rates.species.length).fill(0);
+  for (const [x, w] of GL5) {
+    const u = u0 + half * (x + 1);
+    const a = Math.max(0, Math.min(hermite(p, q, 0, (u - p.u) / (q.u - p.u)), rates.aMax));
+    const pt = rates.at(m0 * Math.exp(-u), a);
+    out[0] += (w * half * Math.exp(-3 * u)) / pt.f;
+    for (let i = 0; i < rates.species.length; i++) out[1 + i] += (w * half * Math.exp(-u) * pt.species[i].power) / pt.f;
+  }
+  return out;
+}
+
+/** The start of the final stage of length τ̂ (units of M₀³) inside the track, found backwards from the end. */
+function backwardStage(run: Run, rates: MassLossRates, m0: number, tauHat: number) {
+  const { nodes, endPoint } = run;
+  const last = nodes[nodes.length - 1];
+  // the closed-form rest after the last node
+  let rest = [
+    Math.exp(-3 * last.u) / (3 * endPoint.f),
+    ...endPoint.species.map((sp) => (Math.exp(-last.u) * sp.power) / endPoint.f),
+  ];
+  for (let k = nodes.length - 2; k >= 0; k--) {
+    const whole = intervalRest(run, rates, m0, k, 0);
+    if (rest[0] + whole[0] < tauHat) {
+      rest = rest.map((x, i) => x + whole[i]);
+      continue;
+    }
+    let lo = 0;
+    let hi = 1;
+    for (let it = 0; it < 50; it++) {
+      const mid = 0.5 * (lo + hi);
+      if (rest[0] + intervalRest(run, rates, m0, k, mid)[0] >= tauHat) lo = mid;
+      else hi = mid;
+    }
+    const s = 0.5 * (lo + hi);
+    const part = intervalRest(run, rates, m0, k, s);
+    const p = nodes[k];
+    const q = nodes[k + 1];
+    return {
+      u: p.u + s * (q.u - p.u),
+      aStar: Math.max(0, hermite(p, q, 0, s)),
+      energies: rates.species.map((_, i) => rest[1 + i] + part[1 + i]),
+    };
+  }
+  return { u: 0, aStar: nodes[0].y[0], energies: run.energies };
+}
+
 /** Cubic Hermite value of component k between nodes p and q at fraction s. */
 function hermite(p: Node, q: Node, k: number, s: number): number {
   const h = q.u - p.u;
@@ -324,11 +388,12 @@ export function evaporateHole(problem: EvaporationProblem, options?: Evaporation
       aStar = aStar0;
       energies = b.energies;
     } else if (b.lifetime - last.y[1] <= tauHat) {
-      // τ reaches back into the integrated track
-      const c = locate(b, 1, b.lifetime - tauHat, 1)!;
-      u = c.p.u + c.s * (c.q.u - c.p.u);
-      aStar = Math.max(0, hermite(c.p, c.q, 0, c.s));
-      energies = b.energies.map((e, i) => e - hermite(c.p, c.q, 2 + i, c.s));
+      // τ reaches back into the integrated track: remaining time and energies integrated backwards
+      // from the end (no cancellation against the lifetime, which a 1 s stage of a 1e17 s life would need)
+      const stage = backwardStage(b, rates, m0, tauHat);
+      u = stage.u;
+      aStar = stage.aStar;
+      energies = stage.energies;
     } else {
       // inside the closed-form rest: every species effectively massless, a* frozen
       const f = b.endPoint.f;
@@ -400,7 +465,7 @@ export function massForLifetime(problem: MassForLifetimeProblem): MassForLifetim
   const aStar0 = p.aStar0 === undefined ? 0 : requireFinite('aStar0', p.aStar0);
   if (!(aStar0 >= 0 && aStar0 <= rates.aMax)) throw new InputError('aStar0', `0 ≤ a* ≤ ${rates.aMax}`, aStar0);
   const lifetimeSeconds = (massGrams: number) =>
-    integrate(rates, massGrams, aStar0, 1e-9, endOfIntegration(rates, massGrams)).lifetime *
+    integrate(rates, massGrams, aStar0, 1e-7, endOfIntegration(rates, massGrams)).lifetime *
     evolutionTimeUnitSeconds(massGrams, 'g');
   // t = M³/(3f) with f between its values for the full content (small M) and the massless part (large M)
   const tUnit = evolutionTimeUnitSeconds(1, 'g');
@@ -409,7 +474,7 @@ export function massForLifetime(problem: MassForLifetimeProblem): MassForLifetim
   let lo = Math.log(Math.cbrt((3 * Math.min(fLow, fHigh) * seconds) / tUnit) / 2);
   let hi = Math.log(Math.cbrt((3 * Math.max(fLow, fHigh) * seconds) / tUnit) * 2);
   let iterations = 0;
-  while (hi - lo > 1e-9 && iterations < 100) {
+  while (hi - lo > 1e-7 && iterations < 100) {
     const mid = 0.5 * (lo + hi);
     if (lifetimeSeconds(Math.exp(mid)) < seconds) lo = mid;
     else hi = mid;

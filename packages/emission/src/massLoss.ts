@@ -39,7 +39,7 @@ export interface MassLossProblem {
   readonly pageTable?: PageTable;
   /** massive/massless ratios over (Mμ, a*) (default: bundledMassiveRateTable()) */
   readonly massiveTable?: MassiveRateTable;
-  /** T_H (GeV) above which partons and at or below which hadrons are emitted (default 0.3; common practice, no source) */
+  /** T_H (GeV) above which partons and below which hadrons are emitted (default 0.3; common practice, no source); the switch is smoothed over about ±2 % of it */
   readonly confinementScaleGeV?: number;
 }
 
@@ -194,11 +194,13 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
     // confinement: T_H of this hole in GeV against the scale
     const root = Math.sqrt(Math.max(0, 1 - a * a));
     const temperatureGeV = root / (4 * Math.PI * (1 + root) * M * FIELD_MASS_PER_GRAM_GEV);
-    const hot = temperatureGeV > scale;
+    // the switch is smoothed over about ±2 % of the scale so that an ODE can step through it
+    const hot = 1 / (1 + (scale / temperatureGeV) ** 100);
     let f = 0;
     let g = 0;
     const rows = species.map((s) => {
-      if ((s.qcd === 'parton' && !hot) || (s.qcd === 'hadron' && hot)) return { name: s.name, power: 0, torqueOverA: 0 };
+      const share = s.qcd === 'parton' ? hot : s.qcd === 'hadron' ? 1 - hot : 1;
+      if (share < 1e-300) return { name: s.name, power: 0, torqueOverA: 0 };
       const [p0, j0] = massless.get(s.spin)!;
       let rp = 1;
       let rj = 1;
@@ -213,8 +215,8 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
         rp = Math.exp(lnRatio(c[0], mu));
         rj = Math.exp(lnRatio(c[1], mu));
       }
-      const power = s.dof * p0 * rp;
-      const torqueOverA = s.dof * j0 * rj;
+      const power = share * s.dof * p0 * rp;
+      const torqueOverA = share * s.dof * j0 * rj;
       f += power;
       g += torqueOverA;
       return { name: s.name, power, torqueOverA };
