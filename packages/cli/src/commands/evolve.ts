@@ -2,6 +2,7 @@ import {
   AGE_OF_UNIVERSE_SECONDS,
   burstSpectrum,
   bundledPageTable,
+  DEFAULT_CONTENT,
   evaporateHole,
   KNOWN_SPECIES,
   massForLifetime,
@@ -41,7 +42,9 @@ const GRAMS_PER_UNIT: Record<string, number> = { g: 1, kg: 1e3, msun: 1.98840987
 /** The species of --content: names of the registry, 'standard-model', or NAME:SPIN:DOF[:MASS_GEV]. */
 function parseContent(text: string | undefined): EmittedSpecies[] {
   if (text === undefined) return resolveContent();
-  return resolveContent(parseContentList('--content', text, [...Object.keys(KNOWN_SPECIES), 'standard-model']));
+  // the default content first, so that the list in a message starts with what most runs use
+  const known = [...new Set([...DEFAULT_CONTENT, ...Object.keys(KNOWN_SPECIES), 'standard-model'])];
+  return resolveContent(parseContentList('--content', text, known));
 }
 
 /** `penumbra evolve`. */
