@@ -120,6 +120,14 @@ interface Entry {
 const fn = (f: unknown) => f as (...args: unknown[]) => unknown;
 const bundled = emission.bundledPageTable();
 const functions = emission.pageFunctions({ table: bundled });
+const electron = { name: 'electron', spin: 0.5, dof: 4, massGeV: 0.000511 };
+const rates = emission.massLossRates({ species: [{ name: 'photon', spin: 1, dof: 2, massGeV: 0 }, electron] });
+const speciesArb = fc.record({
+  name: or(fc.constantFrom('photon', 'dark')),
+  spin: or(fc.constantFrom(0, 0.5, '1/2', 1, 2)),
+  dof: or(fc.double({ min: 0, max: 20 })),
+  massGeV: or(fc.double({ min: 0, max: 1e3 })),
+});
 
 const ENTRIES: Entry[] = [
   // core
@@ -627,6 +635,85 @@ const ENTRIES: Entry[] = [
       ),
     ],
     runs: 40,
+  },
+  { name: 'bundledMassiveRateTable', call: fn(emission.bundledMassiveRateTable), args: [] },
+  { name: 'massiveRateTable', call: fn(emission.massiveRateTable), args: [invalid, invalid], runs: 60 },
+  {
+    name: 'massLossRates',
+    call: fn(emission.massLossRates),
+    args: [or(fc.record({ species: or(fc.array(or(speciesArb), { maxLength: 3 })) }))],
+  },
+  {
+    name: 'massLossAt',
+    call: fn(emission.massLossAt),
+    args: [
+      or(
+        fc.record({
+          species: or(fc.array(or(speciesArb), { maxLength: 2 })),
+          massGrams: or(fc.double({ min: 1e10, max: 1e20 })),
+          aStar: or(fc.constantFrom(0, 0.5)),
+        }),
+      ),
+      invalid,
+    ],
+    runs: 20,
+  },
+  {
+    name: 'evaporateHole',
+    call: fn(emission.evaporateHole),
+    args: [
+      or(
+        fc.record({
+          rates: or(fc.constant(rates)),
+          mass: or(fc.double({ min: 1e-3, max: 1e40 })),
+          unit: or(fc.constantFrom('g', 'kg', 'msun')),
+          aStar0: or(fc.double({ min: 0, max: 0.99 })),
+        }),
+      ),
+      or(
+        fc.record(
+          {
+            odeTol: or(fc.constantFrom(1e-4, 1e-6)),
+            aStarThresholds: or(fc.array(or(fc.double({ min: 0, max: 1 })), { maxLength: 2 })),
+            finalSeconds: or(fc.array(or(fc.double({ min: 0, max: 1e40 })), { maxLength: 2 })),
+          },
+          { requiredKeys: [] },
+        ),
+      ),
+    ],
+    runs: 40,
+  },
+  {
+    name: 'massForLifetime',
+    call: fn(emission.massForLifetime),
+    args: [
+      or(
+        fc.record(
+          {
+            rates: or(fc.constant(rates)),
+            seconds: or(fc.double({ min: 1e-20, max: 1e40 })),
+            aStar0: or(fc.double({ min: 0, max: 0.99 })),
+          },
+          { requiredKeys: ['rates'] },
+        ),
+      ),
+    ],
+    runs: 10,
+  },
+  {
+    name: 'burstSpectrum',
+    call: fn(emission.burstSpectrum),
+    args: [
+      or(
+        fc.record({
+          rates: or(fc.constant(rates)),
+          stage: or(fc.record({ massGrams: or(fc.double({ min: 1e5, max: 1e12 })), aStar: or(fc.constantFrom(0, 0.3)) })),
+          energiesGeV: or(fc.array(or(fc.double({ min: 1e-3, max: 1e6 })), { maxLength: 2 })),
+        }),
+      ),
+      fc.record({ tol: or(fc.constant(1e-2)), points: or(fc.constant(12)) }),
+    ],
+    runs: 8,
   },
   {
     name: 'evolutionTimeUnitSeconds',

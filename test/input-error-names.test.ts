@@ -19,6 +19,7 @@ import * as plot from '@penumbra/plot';
 type Fn = (...args: unknown[]) => unknown;
 const hole = kerr.kerrHole({ a: 0.5 });
 const fns = emission.pageFunctions({ table: emission.bundledPageTable() });
+const rates = emission.massLossRates({ species: [{ name: 'photon', spin: 1, dof: 2, massGeV: 0 }] });
 
 /** A valid call of each public function: [name, function, parameter names, arguments]. */
 const CALLS: [string, Fn, string[], unknown[]][] = [
@@ -93,6 +94,22 @@ const CALLS: [string, Fn, string[], unknown[]][] = [
     ],
   ],
   ['evolutionTimeUnitSeconds', emission.evolutionTimeUnitSeconds as Fn, ['mass', 'unit'], [1e15, 'g']],
+  [
+    'massLossRates',
+    emission.massLossRates as Fn,
+    ['problem'],
+    [{ species: [{ name: 'electron', spin: 0.5, dof: 4, massGeV: 0.000511 }] }],
+  ],
+  [
+    'evaporateHole',
+    emission.evaporateHole as Fn,
+    ['problem', 'options'],
+    [
+      { rates, mass: 1e15, unit: 'g', aStar0: 0.5 },
+      { odeTol: 1e-6, aStarThresholds: [0.1], finalSeconds: [1] },
+    ],
+  ],
+  ['massForLifetime', emission.massForLifetime as Fn, ['problem'], [{ rates, seconds: 1e10, aStar0: 0 }]],
   [
     'toPhysicalRates',
     emission.toPhysicalRates as Fn,

@@ -35,8 +35,42 @@ describe('penumbra evolve', () => {
   });
   test('CSV track with units in the header; unknown species and out-of-range a* exit with code 2', async () => {
     const csv = (await run('evolve', '--a', '0.5', '--csv', '--points', '5')).stdout.trim().split('\n');
-    expect(csv[0]).toBe('timeSeconds [s],mass [g],aStar [1],inaccurate');
+    expect(csv[0]).toBe('timeSeconds [s],mass [g],aStar [1],temperatureGeV [GeV],inaccurate');
     expect((await run('evolve', '--a', '0.5', '--content', 'axion')).code).toBe(2);
     expect((await run('evolve', '--a', '1.2')).code).toBe(2);
+  });
+  test('final stages: the last 1 s releases the mass M_τ with M_τ³ × (lifetime per g³) = 1 s to 1e-5, species energies add up to it to 1e-9; a τ longer than the life is the whole life', async () => {
+    const j = JSON.parse(
+      (await run('evolve', '--a', '0', '--mass', '1e15', '--unit', 'g', '--final', '1,1e40', '--json')).stdout,
+    );
+    const [last, whole] = j.finalStages;
+    const perCube = j.lifetimeSeconds / 1e45;
+    expect(Math.abs((perCube * last.massGrams ** 3) / 1 - 1)).toBeLessThan(1e-5);
+    const sum = last.species.reduce((t: number, s: { energyGeV: number }) => t + s.energyGeV, 0);
+    expect(Math.abs(sum / last.energyGeV - 1)).toBeLessThan(1e-9);
+    expect(whole.wholeLife).toBe(true);
+    expect(j.energyBalance.relError).toBeLessThan(1e-9);
+    expect(j.massForAgeOfUniverse.massGrams).toBeGreaterThan(1e14);
+  });
+  test('--spectrum: the time-integrated spectrum of the last second per species, CSV in long form with units in the header', async () => {
+    const r = await run(
+      'evolve',
+      '--a',
+      '0',
+      '--mass',
+      '1e12',
+      '--unit',
+      'g',
+      '--content',
+      'photon',
+      '--spectrum',
+      '10:1e5:3',
+      '--csv',
+    );
+    expect(r.code).toBe(0);
+    const lines = r.stdout.trim().split('\n');
+    expect(lines[0]).toBe('energyGeV [GeV],species,perGeV [GeV^-1]');
+    expect(lines).toHaveLength(4);
+    for (const line of lines.slice(1)) expect(Number(line.split(',')[2])).toBeGreaterThan(0);
   });
 });

@@ -94,7 +94,7 @@ const OPTIONS: Record<string, string[]> = {
   'cross-section': ['spin', 'a', 'omega', 'tol', 'field-mass', 'field-mass-unit', 'mass', 'unit'],
   spheroidal: ['spin', 'l', 'm', 'c', 'a', 'omega', 'theta'],
   emission: ['a', 'spin', 'mass', 'unit', 'omega', 'tol', 'content', 'energy', 'confinement-scale'],
-  evolve: ['a', 'mass', 'unit', 'content', 'below', 'table-points', 'points'],
+  evolve: ['a', 'mass', 'unit', 'content', 'confinement-scale', 'final', 'spectrum', 'below', 'table-points', 'points'],
   table: ['out', 'workers', 'shard', 'spins', 'a', 'omega', 'spacing', 'l', 'tol', 'quantities', 'chunk-size'],
   demo: [],
   merge: ['out'],

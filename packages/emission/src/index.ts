@@ -74,3 +74,50 @@ export {
   type Evolution,
   type TrackPoint,
 } from './evolution.js';
+export {
+  massiveRateTable,
+  bundledMassiveRateTable,
+  DEFAULT_FIELD_MASSES,
+  type MassiveRateTable,
+  type MassiveRateRow,
+  type MassiveRateTableProblem,
+  type MassiveRateTableOptions,
+  type MassiveRateTableDiagnostics,
+  type MassiveRateTableSolution,
+} from './massiveRateTable.js';
+export {
+  massLossRates,
+  FIELD_MASS_PER_GRAM_GEV,
+  type EmittedSpecies,
+  type MassLossProblem,
+  type MassLossPoint,
+  type MassLossRates,
+} from './massLoss.js';
+export {
+  evaporateHole,
+  massForLifetime,
+  AGE_OF_UNIVERSE_SECONDS,
+  type EvaporationProblem,
+  type EvaporationOptions,
+  type EvaporationPoint,
+  type Evaporation,
+  type EvaporationDiagnostics,
+  type FinalStage,
+  type SpeciesEnergy,
+  type MassForLifetime,
+  type MassForLifetimeProblem,
+} from './evaporation.js';
+export {
+  burstSpectrum,
+  type BurstSpectrumProblem,
+  type BurstSpectrumOptions,
+  type BurstSpectrumDiagnostics,
+  type BurstSpectrum,
+} from './burstSpectrum.js';
+export {
+  massLossAt,
+  type MassLossAtProblem,
+  type MassLossAtOptions,
+  type MassLossAtDiagnostics,
+  type MassLossAt,
+} from './massLossDirect.js';

@@ -65,7 +65,7 @@ export const commands: readonly CommandEntry[] = [
   },
   {
     name: 'evolve',
-    summary: "evaporation history of a hole: lifetime and the track a*(M) from Page's f(a*), g(a*)",
+    summary: 'evaporation history of a hole: lifetime, the track of M, a*, T_H, the final burst, per species',
     load: () => import('./evolve.js'),
   },
 ];

@@ -1,0 +1,67 @@
+/**
+ * Local cubic (4-point Lagrange) interpolation on increasing, possibly
+ * non-uniform nodes, with an optional even reflection at x = 0 (for functions
+ * even in x, such as f and g in θ = arcsin a*). Error O(h⁴) for smooth data.
+ */
+
+/** Interpolate (xs, ys) at x with the 4 nodes around x (clamped at the ends; mirrored at 0 when `even`). */
+export function localCubic(xs: readonly number[], ys: readonly number[], x: number, even = false): number {
+  const n = xs.length;
+  if (n === 1) return ys[0];
+  if (n < 4) return linear(xs, ys, x);
+  let i = 0;
+  while (i < n - 2 && xs[i + 1] <= x) i++;
+  // window [i − 1, i + 2], mirrored nodes −x_k (value y_k) below index 0 when even
+  let i0 = i - 1;
+  if (!even) i0 = Math.max(0, i0);
+  i0 = Math.min(i0, n - 4);
+  return cubicOnWindow(xs, ys, x, i0);
+}
+
+/** The cubic through nodes i0 … i0 + 3 at x (a negative index k stands for the mirrored node −x_{−k}). */
+export function cubicOnWindow(xs: readonly number[], ys: readonly number[], x: number, i0: number): number {
+  const node = (k: number) => (k < 0 ? -xs[-k] : xs[k]);
+  const value = (k: number) => (k < 0 ? ys[-k] : ys[k]);
+  let s = 0;
+  for (let j = 0; j < 4; j++) {
+    const xj = node(i0 + j);
+    let w = 1;
+    for (let k = 0; k < 4; k++) if (k !== j) w *= (x - node(i0 + k)) / (xj - node(i0 + k));
+    s += w * value(i0 + j);
+  }
+  return s;
+}
+
+/**
+ * Error estimate of localCubic between nodes: at each interval's midpoint, the
+ * difference between the cubics on the two windows that contain the interval
+ * (nodes k − 1 … k + 2 and k − 2 … k + 1, or k … k + 3 at the first interval),
+ * times `weight(x)`; the largest over the intervals. Both are O(h⁴)
+ * approximations, so their difference is of the size of the error itself.
+ */
+export function windowSpread(
+  xs: readonly number[],
+  ys: readonly number[],
+  even: boolean,
+  weight: (x: number) => number = () => 1,
+): number {
+  const n = xs.length;
+  if (n < 5) return 0;
+  let worst = 0;
+  for (let k = 0; k < n - 1; k++) {
+    const x = 0.5 * (xs[k] + xs[k + 1]);
+    const lo = Math.max(even ? -(n - 1) : 0, k - 2);
+    const candidates = [k - 1, k - 2, k].filter((i0) => i0 >= lo && i0 + 3 <= n - 1);
+    if (candidates.length < 2) continue;
+    const values = candidates.map((i0) => cubicOnWindow(xs, ys, x, i0));
+    worst = Math.max(worst, (Math.max(...values) - Math.min(...values)) * weight(x));
+  }
+  return worst;
+}
+
+function linear(xs: readonly number[], ys: readonly number[], x: number): number {
+  let i = 0;
+  while (i < xs.length - 2 && xs[i + 1] <= x) i++;
+  const t = (x - xs[i]) / (xs[i + 1] - xs[i]);
+  return ys[i] + t * (ys[i + 1] - ys[i]);
+}
