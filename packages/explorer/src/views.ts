@@ -109,7 +109,7 @@ export function greybodyView(s: ExplorerState, onProgress?: ProgressCallback): V
   for (const { l, m } of modes) {
     const points: [number, number][] = [];
     for (const omega of omegas) {
-      const g = greybody({ hole: { a: s.aStar }, mode: { field: field(s), l, m }, omega }, { tol });
+      const g = greybody({ hole: { a: s.aStar }, mode: { field: field(s), l, m }, omega }, { tol, reflection: false });
       rows.push([l, m, omega, g.gamma, g.relError]);
       points.push([omega, g.gamma]);
       onProgress?.(++done, modes.length * omegas.length);
