@@ -65,3 +65,18 @@ function linear(xs: readonly number[], ys: readonly number[], x: number): number
   const t = (x - xs[i]) / (xs[i + 1] - xs[i]);
   return ys[i] + t * (ys[i + 1] - ys[i]);
 }
+
+/**
+ * Relative error estimate of localCubic on (xs, ys) from every other node: the
+ * cubic through the even-indexed nodes against each odd-indexed node inside
+ * their range (relative to |y|), divided by 2⁴ because halving the spacing
+ * divides an O(h⁴) error by 16.
+ */
+export function halvedNodeError(xs: readonly number[], ys: readonly number[], even: boolean): number {
+  const hx = xs.filter((_, i) => i % 2 === 0);
+  const hy = ys.filter((_, i) => i % 2 === 0);
+  let worst = 0;
+  for (let i = 1; i < xs.length && xs[i] <= hx[hx.length - 1]; i += 2)
+    worst = Math.max(worst, Math.abs(localCubic(hx, hy, xs[i], even) - ys[i]) / Math.abs(ys[i]));
+  return worst / 16;
+}

@@ -12,7 +12,7 @@
  */
 import { InputError, numberIn, parseFieldSpin, requireFinite, type FieldSpin } from '@penumbra/core';
 import { CODATA2018 } from '@penumbra/kerr';
-import { localCubic, windowSpread } from './localCubic.js';
+import { halvedNodeError, localCubic, windowSpread } from './localCubic.js';
 import { bundledMassiveRateTable, type MassiveRateTable } from './massiveRateTable.js';
 import { bundledPageTable, type PageTable } from './pageTable.js';
 import { requireProblem } from './validate.js';
@@ -117,17 +117,6 @@ function shortRowError(theta: readonly number[], values: readonly number[]): num
     worst = Math.max(worst, Math.abs(full - 0.5 * (values[j - 1] + values[j])));
   }
   return worst;
-}
-
-/** Every-other-node estimate of a local cubic's relative error, divided by 2⁴ (as pageFunctions). */
-function halvedNodeError(xs: readonly number[], ys: readonly number[], even: boolean, scale: (i: number) => number): number {
-  if (xs.length < 9) return 0;
-  const hx = xs.filter((_, i) => i % 2 === 0);
-  const hy = ys.filter((_, i) => i % 2 === 0);
-  let worst = 0;
-  for (let i = 1; i < xs.length - 1; i += 2)
-    worst = Math.max(worst, Math.abs(localCubic(hx, hy, xs[i], even) - ys[i]) * scale(i));
-  return worst / 16;
 }
 
 /**
@@ -258,10 +247,7 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
     let node = 0;
     for (const spin of spinsUsed) {
       const r = pageRow.get(spin)!;
-      interp = Math.max(
-        interp,
-        halvedNodeError(page.theta, r[key], true, (i) => 1 / Math.abs(r[key][i])),
-      );
+      interp = Math.max(interp, halvedNodeError(page.theta, r[key], true));
       node = Math.max(node, ...r[errKey].map((e, i) => e / Math.abs(r[key][i])));
     }
     return { interp, node };

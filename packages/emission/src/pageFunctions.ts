@@ -9,6 +9,7 @@ import { InputError, requireObject } from '@penumbra/core';
 import { resolveContent, dofBySpin, type SpeciesSpec } from './species.js';
 import type { PageTable } from './pageTable.js';
 import { requireProblem } from './validate.js';
+import { halvedNodeError } from './localCubic.js';
 
 /** A table and the content whose f and g are wanted (default: photons, gravitons, three neutrino species). */
 export interface PageFunctionsProblem {
@@ -88,16 +89,7 @@ export function pageFunctions(problem: PageFunctionsProblem): PageFunctions {
     }
   }
   const { theta } = table;
-  const half = theta.filter((_, i) => i % 2 === 0);
-  const estimate = (v: number[]) => {
-    const hv = v.filter((_, i) => i % 2 === 0);
-    let worst = 0;
-    for (let i = 1; i < n; i += 2) {
-      if (theta[i] > half[half.length - 1]) break;
-      worst = Math.max(worst, Math.abs(interpolateEven(half, hv, theta[i]) - v[i]) / Math.abs(v[i]));
-    }
-    return worst / 16;
-  };
+  const estimate = (v: number[]) => halvedNodeError(theta, v, true);
   const aMax = table.aStar[n - 1];
   const thetaMax = theta[n - 1];
   const make = (v: number[], name: string) => (a: number) => {
