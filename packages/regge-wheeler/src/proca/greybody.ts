@@ -65,7 +65,7 @@ function stepTolerance(tol: number, span: number, omega: number, factor: number)
  */
 export function procaGreybody(problem: ProcaGreybodyProblem, options?: ProcaGreybodyOptions): ProcaGreybodySolution {
   const p = validateProcaProblem(problem);
-  const { tol } = validateProcaOptions(options);
+  const { tol, integrator } = validateProcaOptions(options);
   const model = sectorModel(p.sector, p.l, p.omega, p.mu);
   const index = p.polarization === 'even-2' ? 1 : 0;
   const match = defaultProcaMatchRadius(model);
@@ -76,11 +76,16 @@ export function procaGreybody(problem: ProcaGreybodyProblem, options?: ProcaGrey
   let fine: ProcaIntegration | undefined;
   let relError = Infinity;
   for (let attempt = 0; attempt < 3; attempt++) {
-    const coarse = integrateProca(model, { startOffset: START_OFFSET, stepTolerance: stepTolerance(tol, span, p.omega, factor) });
+    const coarse = integrateProca(model, {
+      startOffset: START_OFFSET,
+      stepTolerance: stepTolerance(tol, span, p.omega, factor),
+      integrator,
+    });
     fine = integrateProca(model, {
       startOffset: 0.6 * START_OFFSET,
       matchRadius: 1.4 * match,
       stepTolerance: stepTolerance(tol, span, p.omega, factor / 8),
+      integrator,
     });
     steps += coarse.steps + fine.steps;
     rhsEvaluations += coarse.rhsEvaluations + fine.rhsEvaluations;
@@ -92,7 +97,7 @@ export function procaGreybody(problem: ProcaGreybodyProblem, options?: ProcaGrey
   const run = fine!;
   const converged = relError <= tol;
   const diagnostics: ProcaGreybodyDiagnostics = {
-    method: `Proca ${model.sector} sector (${model.channels} channel${model.channels > 1 ? 's' : ''}); horizon Frobenius series, Cash–Karp RK45 in r, far-zone series with the long-range log phase; error from two integrations`,
+    method: `Proca ${model.sector} sector (${model.channels} channel${model.channels > 1 ? 's' : ''}); horizon Frobenius series, ${integrator === 'cash-karp' ? 'Cash–Karp RK45' : 'Gragg–Bulirsch–Stoer extrapolation'} in r, far-zone series with the long-range log phase; error from two integrations`,
     steps,
     rhsEvaluations,
     errorEstimate: relError,

@@ -8,7 +8,9 @@ import createIntegrator from 'ode45-cash-karp';
 import { ConvergenceError, type Diagnostics } from '@penumbra/core';
 import { tortoiseFromHorizonDistance } from '../series.js';
 import { type Complex, abs2, adjoint, choleskyUpper, hermitianEigen2, matMul, solve } from './complex.js';
-import { qAt, type SectorModel } from './sectors.js';
+import { ProcaExtrapolation } from './extrapolation.js';
+import type { ProcaIntegrator } from './problem.js';
+import type { SectorModel } from './sectors.js';
 import { farWaveNumbers, horizonSolution, outgoingFarSolution, type SeriesState } from './series.js';
 
 /** Knobs of one integration (the tests turn them to show Γ does not depend on them). */
@@ -19,6 +21,8 @@ export interface ProcaIntegrationControls {
   matchRadius?: number;
   /** local error tolerance of the Cash–Karp steps */
   stepTolerance: number;
+  /** 'extrapolation' (default: the Gragg–Bulirsch–Stoer loop of extrapolation.ts) or 'cash-karp' (RK45, kept as a cross-check) */
+  integrator?: ProcaIntegrator;
   /** rotate the horizon and far channel bases by this angle (radians) before forming Γ; the eigen-Γ must not move */
   basisAngle?: number;
 }
@@ -110,13 +114,20 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   });
   const w2 = model.omega * model.omega;
   const mu2 = model.mu * model.mu;
+  // Q(y) = q0 + q1 y (degree 1 in every sector), evaluated into one buffer
+  const NN = N * N;
+  const q0 = Float64Array.from(model.qCoeffs[0]);
+  const q1 = model.qCoeffs[1] ? Float64Array.from(model.qCoeffs[1]) : new Float64Array(NN);
+  if (model.qCoeffs.length > 2) throw new Error('Proca sector with Q of degree > 1');
+  const q = new Float64Array(NN);
   let rhsEvaluations = 0;
   // du/dr = P/f,  dP/dr = [μ² + L/r² + Q(1/r)/r² − ω²/f] u.
   const deriv = (dydr: Float64Array, s: Float64Array, r: number): void => {
     rhsEvaluations++;
     const invF = r / (r - 2);
     const inv2 = 1 / (r * r);
-    const q = qAt(model, 1 / r);
+    const yr = 1 / r;
+    for (let i = 0; i < NN; i++) q[i] = q0[i] + q1[i] * yr;
     const diag = mu2 + model.L * inv2 - w2 * invF;
     for (let j = 0; j < N; j++) {
       const o = j * block;
@@ -153,16 +164,27 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
     }
   };
   updateNorms();
-  const integrator = createIntegrator(y, deriv, r0, 0.01 * x0, {
-    tol: controls.stepTolerance,
-    verbose: false,
-    errorScaleFunction: errorScale,
-  });
+  const stepper =
+    (controls.integrator ?? 'extrapolation') === 'extrapolation'
+      ? new ProcaExtrapolation(y, deriv, r0, 0.01 * x0, controls.stepTolerance, 4 * N, model.omega)
+      : createIntegrator(y, deriv, r0, 0.01 * x0, {
+          tol: controls.stepTolerance,
+          verbose: false,
+          errorScaleFunction: errorScale,
+        });
+  const stepOnce = (): boolean => {
+    try {
+      return stepper.step(matchRadius);
+    } catch (e) {
+      if (!(e instanceof RangeError)) throw e;
+      throw new ConvergenceError('integration step size underflow', failure(model, e.message, steps, rhsEvaluations));
+    }
+  };
   let steps = 0;
   let logRescale = 0;
   let more = true;
   while (more) {
-    more = integrator.step(matchRadius);
+    more = stepOnce();
     steps++;
     updateNorms();
     let size = 0;
