@@ -45,7 +45,7 @@ export interface ProcaGreybodyProblem {
 export interface ProcaGreybodyOptions {
   /** requested relative accuracy of Γ, in core's range [1e-12, 1e-2] (default 1e-10) */
   tol?: number;
-  /** ODE integrator: 'extrapolation' (default, Gragg–Bulirsch–Stoer; requests below tol 3e-12, or where it stalls, are served by Cash–Karp) or 'cash-karp' (RK45, the earlier route, a cross-check) */
+  /** ODE integrator: 'extrapolation' (default, Gragg–Bulirsch–Stoer; requests below tol 1e-11, or where it stalls, are served by Cash–Karp) or 'cash-karp' (RK45, the earlier route, a cross-check) */
   integrator?: ProcaIntegrator;
 }
 
