@@ -134,7 +134,7 @@ export function procaGreybody(problem: ProcaGreybodyProblem, options?: ProcaGrey
    * step tolerance is tightened (twice at most) until that is within tol.
    */
   const runSingle = () => {
-    let stepTol = Math.max(1e-16, tol / (10 * SINGLE_SOLVE_CHARGE * (30 + 2 * Math.sqrt(p.omega * span))));
+    let stepTol = Math.max(1e-16, tol / (5 * SINGLE_SOLVE_CHARGE * (30 + 2 * Math.sqrt(p.omega * span))));
     for (let attempt = 0; attempt < 3; attempt++) {
       const run = integrateProca(model, { startOffset: 0.6 * START_OFFSET, stepTolerance: stepTol, integrator: 'extrapolation' });
       steps += run.steps;
