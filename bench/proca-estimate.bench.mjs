@@ -25,23 +25,33 @@ for (const [l, omega] of [
   }
 }
 let worst = 0;
+let fallbacks = 0;
 const rows = [];
 for (const [pol, l, omega, mu] of modes) {
-  const ref = procaGreybody(
-    { field: { spin: 1, mass: mu }, l, omega, polarization: pol },
-    { tol: 1e-12, integrator: 'cash-karp' },
-  );
+  // reference: Cash–Karp at tol 1e-12, or 1e-11 where 1e-12 is out of its reach (then only errors above 1e-11 count)
+  const problem = { field: { spin: 1, mass: mu }, l, omega, polarization: pol };
+  let ref;
+  let floor = 1e-12;
+  try {
+    ref = procaGreybody(problem, { tol: 1e-12, integrator: 'cash-karp' });
+  } catch {
+    ref = procaGreybody(problem, { tol: 1e-11, integrator: 'cash-karp' });
+    floor = 1e-11;
+    fallbacks++;
+  }
   const sector = pol === 'odd' ? 'odd' : pol === 'monopole' ? 'monopole' : 'even';
   const index = pol === 'even-2' ? 1 : 0;
   for (const s of [1e-10, 1e-11, 1e-12]) {
     const r = integrateProca(sectorModel(sector, l, omega, mu), { startOffset: 0.09, stepTolerance: s });
     const err = Math.abs(r.gammas[index] / ref.gamma - 1);
     const ratio = err / (r.steps * s);
-    // below 1e-12 the reference's own error (~3e-13) dominates
-    if (err > 1e-12) worst = Math.max(worst, ratio);
+    // below the floor the reference's own error dominates
+    if (err > floor) worst = Math.max(worst, ratio);
     rows.push([pol, l, omega, fmt(mu, 4), s, r.steps, r.rhsEvaluations, fmt(err), fmt(ratio)]);
   }
 }
 rows.sort((x, y) => Number(y[8]) - Number(x[8]));
 console.log(table(['pol', 'l', 'Mω', 'Mμ', 'step tol', 'steps', 'RHS', 'error of Γ', 'error/(steps·tol)'], rows.slice(0, 15)));
-console.log(`${modes.length} modes × 3 step tolerances: largest error/(steps × step tolerance) ${fmt(worst)} (charged 3)`);
+console.log(
+  `${modes.length} modes × 3 step tolerances (${fallbacks} references at tol 1e-11): largest error/(steps × step tolerance) ${fmt(worst)} (charged 3)`,
+);
