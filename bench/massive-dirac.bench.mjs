@@ -2,10 +2,25 @@
 // j, m, a and ω, at the default tolerance 1e-8 (docs/massive-dirac.md). Both
 // signs of κ are timed; the ratio is CPU time massive/massless (process CPU
 // time, immune to preemption on a shared machine). Also prints the number of
-// right-hand-side evaluations of each. Run after `npm run build`:
+// right-hand-side evaluations of each, and the accuracy against the 30-digit
+// mpmath reference (test/fixtures/massive-dirac) as true error / relError.
+// Massless and massive are timed in interleaved batches (median of three).
+// Run after `npm run build`:
 //   node bench/massive-dirac.bench.mjs
+// Results: bench/results/massive-dirac-2026-12-03b.json.
+import { readFileSync, writeFileSync } from 'node:fs';
 import { greybody } from '@penumbra/flux';
-import { cpuMsPerCall, fmt, median, table } from './lib.mjs';
+import { benchDir, cpuMsPerCall, fmt, median, table } from './lib.mjs';
+
+/** Median over three interleaved batches of CPU ms per call, for each function. */
+function cost(fns) {
+  for (const f of fns) f();
+  const t = fns.map(() => []);
+  for (let i = 0; i < 3; i++) {
+    for (const [j, f] of fns.entries()) t[j].push(cpuMsPerCall(f, 40, 2000));
+  }
+  return t.map(median);
+}
 
 const CASES = [];
 for (const a of [0, 0.7, 0.99]) {
@@ -26,15 +41,34 @@ for (const a of [0, 0.7, 0.99]) {
 
 const rows = [];
 const ratios = [];
+const records = [];
 for (const c of CASES) {
   const massless = { hole: { a: c.a }, mode: { field: { spin: 0.5 }, l: c.l, m: c.m }, omega: c.omega };
-  const tMassless = cpuMsPerCall(() => greybody(massless), 50, 20);
   const nMassless = greybody(massless).diagnostics.rhsEvaluations;
-  for (const kappaSign of [1, -1]) {
-    const massive = { hole: { a: c.a }, mode: { field: { spin: 0.5, mass: c.mu }, l: c.l, m: c.m, kappaSign }, omega: c.omega };
-    const tMassive = cpuMsPerCall(() => greybody(massive), 50, 20);
-    const nMassive = greybody(massive).diagnostics.rhsEvaluations;
+  const massive = (kappaSign) => ({
+    hole: { a: c.a },
+    mode: { field: { spin: 0.5, mass: c.mu }, l: c.l, m: c.m, kappaSign },
+    omega: c.omega,
+  });
+  const [tMassless, tPlus, tMinus] = cost([() => greybody(massless), () => greybody(massive(1)), () => greybody(massive(-1))]);
+  for (const [kappaSign, tMassive] of [
+    [1, tPlus],
+    [-1, tMinus],
+  ]) {
+    const g = greybody(massive(kappaSign));
+    const nMassive = g.diagnostics.rhsEvaluations;
     ratios.push(tMassive / tMassless);
+    records.push({
+      ...c,
+      kappaSign,
+      msMassless: tMassless,
+      msMassive: tMassive,
+      ratio: tMassive / tMassless,
+      nMassless,
+      nMassive,
+      gamma: g.gamma,
+      relError: g.relError,
+    });
     rows.push([
       c.a,
       c.l,
@@ -57,3 +91,28 @@ const sorted = [...ratios].sort((x, y) => x - y);
 console.log(
   `massive/massless CPU time over ${ratios.length} modes: median ${fmt(median(ratios))}, max ${fmt(sorted.at(-1))}, min ${fmt(sorted[0])}`,
 );
+
+const fixture = JSON.parse(readFileSync(new URL('../test/fixtures/massive-dirac/massive-dirac.json', import.meta.url), 'utf8'));
+const accuracy = [];
+for (const r of fixture.values) {
+  const p = {
+    hole: { a: Number(r.a) },
+    mode: {
+      field: { spin: 0.5, mass: Number(r.fieldMass ?? r.mu) },
+      l: Number(r.j ?? r.l),
+      m: Number(r.m),
+      kappaSign: Number(r.kappaSign),
+    },
+    omega: Number(r.omega),
+  };
+  const reference = Number(r.gamma_str ?? r.gamma);
+  const g = greybody(p);
+  const error = Math.abs(g.gamma / reference - 1);
+  accuracy.push({ ...p, reference, error, relError: g.relError, ratio: error / g.relError });
+}
+console.log(
+  `accuracy against the 30-digit reference (test/fixtures/massive-dirac, ${accuracy.length} rows, tol 1e-8): largest true error ${fmt(Math.max(...accuracy.map((a) => a.error)))}, largest true error / relError ${fmt(Math.max(...accuracy.map((a) => a.ratio)))}`,
+);
+const path = `${benchDir}/results/massive-dirac-2026-12-03b.json`;
+writeFileSync(path, `${JSON.stringify({ records, accuracy }, null, 1)}\n`);
+console.log(`written ${path}`);

@@ -7,8 +7,9 @@
 //  - for a* = 0.1 and 0.3, the same quotient for the approximation, approx / (2·photon + scalar)/3 − 1,
 //    i.e. how the ratio's effect varies with a.
 // Prints CPU seconds per solve. Run after `npm run build`: node bench/massive-vector-kerr.bench.mjs [TOL]
+import { writeFileSync } from 'node:fs';
 import { emissionTotals } from '@penumbra/emission';
-import { fmt, table, writeResult } from './lib.mjs';
+import { benchDir, fmt, table, today } from './lib.mjs';
 
 const tol = Number(process.argv[2] ?? 1e-3);
 const cpu = (fn) => {
@@ -38,4 +39,5 @@ for (const mu of [0.05, 0.2]) {
 }
 console.log(`massive vector per dof against (2·photon + massive scalar)/3, tol ${tol}`);
 console.log(table(['Mμ', 'a*', 'Γ', 'P/Pcombo − 1', 'N/Ncombo − 1', 'relError', 'cpu s'], rows));
-writeResult('massive-vector-kerr', { tol, rows });
+// the second measurement of the day is tagged 'b' so the first stays for comparison
+writeFileSync(`${benchDir}/results/massive-vector-kerr-${today()}b.json`, `${JSON.stringify({ tol, rows }, null, 1)}\n`);

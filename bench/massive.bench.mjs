@@ -3,10 +3,10 @@
 // for field masses from Mμ = 0.1 Mω up to near threshold (v = k∞/ω down to
 // 0.05), plus the accuracy against the 30-digit mpmath reference in
 // test/fixtures/massive. Run: `npm run build && node bench/massive.bench.mjs`.
-// Results: bench/results/massive-<date>.json.
-import { readFileSync } from 'node:fs';
+// Results: bench/results/massive-<date>b.json.
+import { readFileSync, writeFileSync } from 'node:fs';
 import { greybody } from '@penumbra/flux';
-import { cpuMsPerCall, fmt, median, relDiff, table, writeResult } from './lib.mjs';
+import { benchDir, cpuMsPerCall, fmt, median, relDiff, table, today } from './lib.mjs';
 
 const MODES = [
   { a: 0, l: 0, m: 0, omega: 0.3 },
@@ -104,4 +104,7 @@ console.log(
     ]),
   ),
 );
-console.log(`written ${writeResult('massive', { records, accuracy })}`);
+// the second measurement of the day is tagged 'b' so the first stays for comparison
+const path = `${benchDir}/results/massive-${today()}b.json`;
+writeFileSync(path, `${JSON.stringify({ records, accuracy }, null, 1)}\n`);
+console.log(`written ${path}`);

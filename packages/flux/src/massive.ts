@@ -49,6 +49,8 @@ export function requireRadialEquationField(problem: CheckedProblem): void {
     'mode.field.mass',
     `0 for spin ${formatFieldSpin(problem.spin)} (massive fields are computed for spin ${MASSIVE_SPINS})`,
     problem.fieldMass,
-    'massive fields of this spin are not supported',
+    OWN_SOLVERS[problem.spin]
+      ? 'this function samples the Teukolsky radial function R, which a massive field of this spin does not have (the massive Dirac field is a first-order pair, the Proca field two coupled channels, each with its own solver); its Γ comes from greybody'
+      : 'massive fields of this spin are not supported',
   );
 }

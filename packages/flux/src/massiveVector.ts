@@ -47,7 +47,12 @@ export function massiveVectorGreybody(problem: GreybodyProblem, options: Greybod
   }
   const omega = validateOmega(p.omega, mass);
   const polarization = options.polarization ?? defaultPolarization(l);
-  const sol = procaGreybody({ field: { spin: 1, mass: fieldMass }, l, omega, mass, polarization }, { tol: options.tol ?? 1e-8 });
+  // the greybody integrators 'gbs' and 'odex' are extrapolation loops: the Proca solver's own one; 'cash-karp' is its RK45 cross-check
+  const integrator = options.integrator === 'cash-karp' ? 'cash-karp' : 'extrapolation';
+  const sol = procaGreybody(
+    { field: { spin: 1, mass: fieldMass }, l, omega, mass, polarization },
+    { tol: options.tol ?? 1e-8, integrator },
+  );
   const d = sol.diagnostics;
   return {
     hole: { a, mass },
@@ -70,7 +75,7 @@ export function massiveVectorGreybody(problem: GreybodyProblem, options: Greybod
       rhsEvaluations: d.rhsEvaluations,
       errorEstimate: d.errorEstimate,
       message: d.message,
-      integrator: 'cash-karp',
+      integrator: options.integrator === 'cash-karp' ? 'cash-karp' : 'gbs',
       odeTol: options.tol ?? 1e-8,
       startRadius: d.startRadius,
       matchRadius: d.matchRadius,

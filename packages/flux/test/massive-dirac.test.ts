@@ -10,7 +10,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { InputError } from '@penumbra/core';
-import { greybody } from '@penumbra/flux';
+import { greybody, radialFunction } from '@penumbra/flux';
 import { massiveDiracGreybody } from '@penumbra/flux/internal';
 import { schwarzschildMassiveDiracGreybody } from '@penumbra/regge-wheeler';
 
@@ -115,5 +115,16 @@ describe('massive Dirac greybody factor', () => {
     expect(coarse.mode.kappaSign).toBe(-1);
     expect(coarse.relError).toBeLessThanOrEqual(1e-8);
     expect(Math.abs(coarse.gamma / fine.gamma - 1)).toBeLessThan(10 * coarse.relError);
+  });
+});
+
+describe('radialFunction of massive spin-1/2 and spin-1 fields', () => {
+  it('is an InputError naming mode.field.mass that says why (no Teukolsky radial function R; Γ from greybody) for a massive Dirac and a Proca mode', () => {
+    const dirac = { hole: { a: 0.5 }, mode: { field: { spin: 0.5, mass: 0.1 }, l: 0.5, m: 0.5, kappaSign: 1 }, omega: 0.3 };
+    const proca = { hole: { a: 0 }, mode: { field: { spin: 1, mass: 0.1 }, l: 1, m: 0 }, omega: 0.3 };
+    for (const problem of [dirac, proca]) {
+      expect(() => radialFunction(problem as never, [3, 5])).toThrow(InputError);
+      expect(() => radialFunction(problem as never, [3, 5])).toThrow(/mode\.field\.mass.*Teukolsky radial function R.*greybody/);
+    }
   });
 });

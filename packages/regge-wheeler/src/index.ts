@@ -19,7 +19,9 @@ export {
   type ProcaGreybodyProblem,
   type ProcaGreybodyOptions,
   type ProcaPolarization,
+  type ProcaIntegrator,
   PROCA_POLARIZATIONS,
+  PROCA_INTEGRATORS,
   DEFAULT_PROCA_TOLERANCE,
   MAX_PROCA_L,
 } from './proca/problem.js';

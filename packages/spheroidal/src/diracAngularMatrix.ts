@@ -94,29 +94,36 @@ export function diracAngularBand(m: number, aOmega: number, aMu: number, count: 
   return { size, rows, norm };
 }
 
+/** Scratch of countBelow (d and the rows of L), grown on demand: bisection calls it ~100 times per λ. */
+let scratchD = new Float64Array(0);
+let scratchL = new Float64Array(0);
+
 /** Number of eigenvalues below σ (Sylvester's law of inertia on the LDLᵀ of H − σI). */
 export function countBelow(band: DiracBand, sigma: number): number {
   const n = band.size;
   const w = 3;
-  // L stored by rows: l[i][k] = L[i][i − 1 − k]
-  const d = new Float64Array(n);
-  const l: Float64Array[] = [];
+  if (scratchD.length < n) {
+    scratchD = new Float64Array(n);
+    scratchL = new Float64Array(n * w);
+  }
+  // L stored by rows: l[i·w + k] = L[i][i − 1 − k]; every entry read was written earlier in this call
+  const d = scratchD;
+  const l = scratchL;
   let negatives = 0;
   const tiny = Number.EPSILON * band.norm * 1e-3 + Number.MIN_VALUE;
   for (let i = 0; i < n; i++) {
-    const li = new Float64Array(w);
+    const li = i * w;
     for (let jj = Math.max(0, i - w); jj < i; jj++) {
       // L[i][jj] = (H[i][jj] − Σ_{k<jj} L[i][k] L[jj][k] d_k)/d_jj
       let v = band.rows[jj][i - jj];
-      for (let k = Math.max(0, i - w); k < jj; k++) v -= li[i - 1 - k] * l[jj][jj - 1 - k] * d[k];
-      li[i - 1 - jj] = v / d[jj];
+      for (let k = Math.max(0, i - w); k < jj; k++) v -= l[li + i - 1 - k] * l[jj * w + jj - 1 - k] * d[k];
+      l[li + i - 1 - jj] = v / d[jj];
     }
     let di = band.rows[i][0] - sigma;
-    for (let k = Math.max(0, i - w); k < i; k++) di -= li[i - 1 - k] * li[i - 1 - k] * d[k];
+    for (let k = Math.max(0, i - w); k < i; k++) di -= l[li + i - 1 - k] * l[li + i - 1 - k] * d[k];
     if (di === 0) di = -tiny;
     if (di < 0) negatives++;
     d[i] = di;
-    l.push(li);
   }
   return negatives;
 }

@@ -87,11 +87,7 @@ export function diracFarSeries(mats: M2[], nu: C, c0: V2, nuOther: C, other: V2)
   const particular = (b: V2): V2 => vscale(other, cdiv(dot(lOther, b), cmul(lOe, gap)));
   const c: V2[] = [c0];
   let pending: V2 | null = null; // p_{n−1}, awaiting its multiple of c0
-  const sum = (n: number, from: number): V2 => {
-    let s: V2 = [ZERO, ZERO];
-    for (let j = from; j <= n && j < N; j++) s = vadd(s, mv(mats[j], c[n - j]));
-    return s;
-  };
+  const sum = (n: number, from: number): V2 => sumProducts(mats, c, n, from);
   for (let n = 1; n < N; n++) {
     if (pending) {
       // choose α so that ℓ·b_n = 0, then c_{n−1} = p + α c0
@@ -115,9 +111,31 @@ function csub2(a: V2, b: V2): V2 {
 
 /** Σ_{j≥2} M_j c_{n−j}. */
 function sumFrom2(mats: M2[], c: V2[], n: number): V2 {
-  let s: V2 = [ZERO, ZERO];
-  for (let j = 2; j <= n && j < mats.length; j++) s = vadd(s, mv(mats[j], c[n - j]));
-  return s;
+  return sumProducts(mats, c, n, 2);
+}
+
+/**
+ * Σ_{j = from…n} M_j c_{n−j} on scalar locals: the same operations in the same
+ * order as summing vadd(s, mv(M_j, c_{n−j})), without the temporaries
+ * (building the series was mostly allocation).
+ */
+function sumProducts(mats: M2[], c: V2[], n: number, from: number): V2 {
+  let s0r = 0;
+  let s0i = 0;
+  let s1r = 0;
+  let s1i = 0;
+  for (let j = from; j <= n && j < mats.length; j++) {
+    const [[a, b], [d, e]] = mats[j];
+    const [v, w] = c[n - j];
+    s0r += a[0] * v[0] - a[1] * v[1] + (b[0] * w[0] - b[1] * w[1]);
+    s0i += a[0] * v[1] + a[1] * v[0] + (b[0] * w[1] + b[1] * w[0]);
+    s1r += d[0] * v[0] - d[1] * v[1] + (e[0] * w[0] - e[1] * w[1]);
+    s1i += d[0] * v[1] + d[1] * v[0] + (e[0] * w[1] + e[1] * w[0]);
+  }
+  return [
+    [s0r, s0i],
+    [s1r, s1i],
+  ];
 }
 
 /** The series at r, summed to its smallest term; `lastTerm` is that term relative to the sum. */

@@ -5,7 +5,7 @@
  * = k/κ, so P = y^{−iα} Σ_n c_n y^n with c₀ = (1, 0) — P₊ → e^{−ikr*} up to a
  * constant phase, P₋ → 0 — and diag(n, n − 2iα) c_n = Σ_k G_k c_{n−1−k}.
  */
-import { type C, type V2, ZERO, cadd, cdiv, cexp, cmul, cscale, vnorm } from './complex2.js';
+import { type C, cexp, cmul } from './complex2.js';
 import type { DiracRadialProblem } from './equation.js';
 import { seriesPower, seriesProduct } from './realSeries.js';
 
@@ -18,6 +18,8 @@ export interface DiracHorizonStart {
 }
 
 const MAX_TERMS = 400;
+/** The coefficients c_n, shared by every call (each writes c_n before reading it). */
+const COEFFICIENTS = new Float64Array(4 * (MAX_TERMS + 1));
 
 /**
  * Sum the series at x = r − r₊ = fraction·(r₊ − r₋); throws RangeError if it
@@ -36,38 +38,74 @@ export function diracHorizonStart(p: DiracRadialProblem, fraction: number): Dira
   const gRe = seriesProduct([2 * lambda], root, count);
   const gIm = seriesProduct([2 * mu * rPlus, 2 * mu], root, count);
   const alpha = h[0];
-  const c: V2[] = [[[1, 0], ZERO]];
+  // c_n at [4n …] as (Re P₊, Im P₊, Re P₋, Im P₋): the operations of the complex helpers, in their order, on scalars
+  const c = COEFFICIENTS;
+  c[0] = 1;
+  c[1] = 0;
+  c[2] = 0;
+  c[3] = 0;
   const x = fraction * d;
   const y = Math.sqrt(x);
-  let sumP: C = [1, 0];
-  let sumM: C = ZERO;
+  let sumP0 = 1;
+  let sumP1 = 0;
+  let sumM0 = 0;
+  let sumM1 = 0;
   let pw = 1;
   let small = 0;
   for (let n = 1; n <= MAX_TERMS; n++) {
-    let bP: C = ZERO;
-    let bM: C = ZERO;
+    let bP0 = 0;
+    let bP1 = 0;
+    let bM0 = 0;
+    let bM1 = 0;
     for (let k = 0; k <= n - 1; k++) {
-      const prev = c[n - 1 - k];
+      const o = 4 * (n - 1 - k);
+      const p0 = c[o];
+      const p1 = c[o + 1];
+      const q0 = c[o + 2];
+      const q1 = c[o + 3];
       if (k % 2 === 1) {
         const hk = h[(k + 1) / 2];
-        bP = cadd(bP, cmul([0, -hk], prev[0]));
-        bM = cadd(bM, cmul([0, hk], prev[1]));
+        const nh = -hk;
+        // bP += (−i hk) P₊,  bM += (i hk) P₋
+        bP0 += 0 * p0 - nh * p1;
+        bP1 += 0 * p1 + nh * p0;
+        bM0 += 0 * q0 - hk * q1;
+        bM1 += 0 * q1 + hk * q0;
       } else {
         const i = k / 2;
-        bP = cadd(bP, cmul([gRe[i], -gIm[i]], prev[1]));
-        bM = cadd(bM, cmul([gRe[i], gIm[i]], prev[0]));
+        const gr = gRe[i];
+        const gi = gIm[i];
+        const ngi = -gi;
+        // bP += (g − i h) P₋,  bM += (g + i h) P₊
+        bP0 += gr * q0 - ngi * q1;
+        bP1 += gr * q1 + ngi * q0;
+        bM0 += gr * p0 - gi * p1;
+        bM1 += gr * p1 + gi * p0;
       }
     }
-    const cn: V2 = [cscale(bP, 1 / n), cdiv(bM, [n, -2 * alpha])];
-    c.push(cn);
+    const inv = 1 / n;
+    const dRe = n;
+    const dIm = -2 * alpha;
+    const den = dRe * dRe + dIm * dIm;
+    const o = 4 * n;
+    c[o] = bP0 * inv;
+    c[o + 1] = bP1 * inv;
+    c[o + 2] = (bM0 * dRe + bM1 * dIm) / den;
+    c[o + 3] = (bM1 * dRe - bM0 * dIm) / den;
     pw *= y;
-    sumP = cadd(sumP, cscale(cn[0], pw));
-    sumM = cadd(sumM, cscale(cn[1], pw));
-    const size = vnorm(cn) * pw;
-    small = size < 1e-17 * Math.hypot(sumP[0], sumP[1], sumM[0], sumM[1]) ? small + 1 : 0;
+    sumP0 += c[o] * pw;
+    sumP1 += c[o + 1] * pw;
+    sumM0 += c[o + 2] * pw;
+    sumM1 += c[o + 3] * pw;
+    const size = Math.hypot(c[o], c[o + 1], c[o + 2], c[o + 3]) * pw;
+    small = size < 1e-17 * Math.hypot(sumP0, sumP1, sumM0, sumM1) ? small + 1 : 0;
     if (small >= 2) {
       const phase = cexp([0, -alpha * Math.log(y)]);
-      return { r: rPlus + x, value: [cmul(sumP, phase), cmul(sumM, phase)], terms: n + 1 };
+      return {
+        r: rPlus + x,
+        value: [cmul([sumP0, sumP1], phase), cmul([sumM0, sumM1], phase)],
+        terms: n + 1,
+      };
     }
   }
   throw new RangeError(`Dirac horizon series did not converge at x/(r₊ − r₋) = ${fraction}`);

@@ -8,7 +8,9 @@ import createIntegrator from 'ode45-cash-karp';
 import { ConvergenceError, type Diagnostics } from '@penumbra/core';
 import { tortoiseFromHorizonDistance } from '../series.js';
 import { type Complex, abs2, adjoint, choleskyUpper, hermitianEigen2, matMul, solve } from './complex.js';
-import { qAt, type SectorModel } from './sectors.js';
+import { ProcaExtrapolation } from './extrapolation.js';
+import type { ProcaIntegrator } from './problem.js';
+import type { SectorModel } from './sectors.js';
 import { farWaveNumbers, horizonSolution, outgoingFarSolution, type SeriesState } from './series.js';
 
 /** Knobs of one integration (the tests turn them to show Γ does not depend on them). */
@@ -19,6 +21,8 @@ export interface ProcaIntegrationControls {
   matchRadius?: number;
   /** local error tolerance of the Cash–Karp steps */
   stepTolerance: number;
+  /** 'extrapolation' (default: the Gragg–Bulirsch–Stoer loop of extrapolation.ts) or 'cash-karp' (RK45, kept as a cross-check) */
+  integrator?: ProcaIntegrator;
   /** rotate the horizon and far channel bases by this angle (radians) before forming Γ; the eigen-Γ must not move */
   basisAngle?: number;
 }
@@ -110,30 +114,48 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   });
   const w2 = model.omega * model.omega;
   const mu2 = model.mu * model.mu;
+  // Q(y) = q0 + q1 y (degree 1 in every sector), evaluated into one buffer
+  const NN = N * N;
+  const q0 = Float64Array.from(model.qCoeffs[0]);
+  const q1 = model.qCoeffs[1] ? Float64Array.from(model.qCoeffs[1]) : new Float64Array(NN);
+  if (model.qCoeffs.length > 2) throw new Error('Proca sector with Q of degree > 1');
   let rhsEvaluations = 0;
   // du/dr = P/f,  dP/dr = [μ² + L/r² + Q(1/r)/r² − ω²/f] u.
-  const deriv = (dydr: Float64Array, s: Float64Array, r: number): void => {
-    rhsEvaluations++;
-    const invF = r / (r - 2);
-    const inv2 = 1 / (r * r);
-    const q = qAt(model, 1 / r);
-    const diag = mu2 + model.L * inv2 - w2 * invF;
-    for (let j = 0; j < N; j++) {
-      const o = j * block;
-      for (let i = 0; i < N; i++) {
-        dydr[o + 2 * i] = s[o + 2 * N + 2 * i] * invF;
-        dydr[o + 2 * i + 1] = s[o + 2 * N + 2 * i + 1] * invF;
-        let re = diag * s[o + 2 * i];
-        let im = diag * s[o + 2 * i + 1];
-        for (let c = 0; c < N; c++) {
-          re += q[i * N + c] * inv2 * s[o + 2 * c];
-          im += q[i * N + c] * inv2 * s[o + 2 * c + 1];
+  const L = model.L;
+  // Written out for one and for two channels (the even sector: two solutions of 8 components).
+  const deriv =
+    N === 1
+      ? (dydr: Float64Array, s: Float64Array, r: number): void => {
+          rhsEvaluations++;
+          const invF = r / (r - 2);
+          const inv2 = 1 / (r * r);
+          const c = mu2 + L * inv2 - w2 * invF + (q0[0] + q1[0] / r) * inv2;
+          dydr[0] = s[2] * invF;
+          dydr[1] = s[3] * invF;
+          dydr[2] = c * s[0];
+          dydr[3] = c * s[1];
         }
-        dydr[o + 2 * N + 2 * i] = re;
-        dydr[o + 2 * N + 2 * i + 1] = im;
-      }
-    }
-  };
+      : (dydr: Float64Array, s: Float64Array, r: number): void => {
+          rhsEvaluations++;
+          const invF = r / (r - 2);
+          const inv2 = 1 / (r * r);
+          const yr = 1 / r;
+          const diag = mu2 + L * inv2 - w2 * invF;
+          const a00 = diag + (q0[0] + q1[0] * yr) * inv2;
+          const a01 = (q0[1] + q1[1] * yr) * inv2;
+          const a10 = (q0[2] + q1[2] * yr) * inv2;
+          const a11 = diag + (q0[3] + q1[3] * yr) * inv2;
+          for (let o = 0; o < 16; o += 8) {
+            dydr[o] = s[o + 4] * invF;
+            dydr[o + 1] = s[o + 5] * invF;
+            dydr[o + 2] = s[o + 6] * invF;
+            dydr[o + 3] = s[o + 7] * invF;
+            dydr[o + 4] = a00 * s[o] + a01 * s[o + 2];
+            dydr[o + 5] = a00 * s[o + 1] + a01 * s[o + 3];
+            dydr[o + 6] = a10 * s[o] + a11 * s[o + 2];
+            dydr[o + 7] = a10 * s[o + 1] + a11 * s[o + 3];
+          }
+        };
   const norms = new Float64Array(2 * N);
   const errorScale = (i: number, dt: number, _yi: number, dydt: number): number => {
     const j = Math.floor(i / block);
@@ -153,18 +175,29 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
     }
   };
   updateNorms();
-  const integrator = createIntegrator(y, deriv, r0, 0.01 * x0, {
-    tol: controls.stepTolerance,
-    verbose: false,
-    errorScaleFunction: errorScale,
-  });
+  const cashKarp = controls.integrator === 'cash-karp';
+  const stepper = !cashKarp
+    ? new ProcaExtrapolation(y, deriv, r0, 0.01 * x0, controls.stepTolerance, 4 * N, model.omega)
+    : createIntegrator(y, deriv, r0, 0.01 * x0, {
+        tol: controls.stepTolerance,
+        verbose: false,
+        errorScaleFunction: errorScale,
+      });
+  const stepOnce = (): boolean => {
+    try {
+      return stepper.step(matchRadius);
+    } catch (e) {
+      if (!(e instanceof RangeError)) throw e;
+      throw new ConvergenceError('integration step size underflow', failure(model, e.message, steps, rhsEvaluations));
+    }
+  };
   let steps = 0;
   let logRescale = 0;
   let more = true;
   while (more) {
-    more = integrator.step(matchRadius);
+    more = stepOnce();
     steps++;
-    updateNorms();
+    if (cashKarp) updateNorms();
     let size = 0;
     for (let i = 0; i < y.length; i++) size += Math.abs(y[i]);
     if (!Number.isFinite(size)) {

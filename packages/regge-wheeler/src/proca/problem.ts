@@ -3,7 +3,15 @@
  * problem names the field as core does ({ spin: 1, mass: Mμ > 0 }) and the
  * polarisation; Γ does not depend on m (spherical symmetry), so m is absent.
  */
-import { InputError, validateField, validateOptions, validateTolerance, type Field, type OptionSpec } from '@penumbra/core';
+import {
+  InputError,
+  oneOf,
+  validateField,
+  validateOptions,
+  validateTolerance,
+  type Field,
+  type OptionSpec,
+} from '@penumbra/core';
 import type { ProcaSector } from './sectors.js';
 
 /**
@@ -37,7 +45,14 @@ export interface ProcaGreybodyProblem {
 export interface ProcaGreybodyOptions {
   /** requested relative accuracy of Γ, in core's range [1e-12, 1e-2] (default 1e-10) */
   tol?: number;
+  /** ODE integrator: 'extrapolation' (default, Gragg–Bulirsch–Stoer; requests below tol 1e-11, or where it stalls, are served by Cash–Karp) or 'cash-karp' (RK45, the earlier route, a cross-check) */
+  integrator?: ProcaIntegrator;
 }
+
+/** The integrators of a Proca solve; the first is the default. */
+export const PROCA_INTEGRATORS = ['extrapolation', 'cash-karp'] as const;
+/** One of PROCA_INTEGRATORS. */
+export type ProcaIntegrator = (typeof PROCA_INTEGRATORS)[number];
 
 /** Default requested relative accuracy of the Proca Γ. */
 export const DEFAULT_PROCA_TOLERANCE = 1e-10;
@@ -113,9 +128,10 @@ export function validateProcaProblem(problem: unknown): CheckedProcaProblem {
   return { sector, polarization: pol, l, omega: Momega, mu, mass };
 }
 
-const SPEC: OptionSpec<ProcaGreybodyOptions> = { tol: validateTolerance };
+const SPEC: OptionSpec<ProcaGreybodyOptions> = { tol: validateTolerance, integrator: oneOf(PROCA_INTEGRATORS) };
 
-/** Validate the options (unknown keys refused) and fill in the default tol. */
-export function validateProcaOptions(options: unknown): { tol: number } {
-  return { tol: validateOptions(options, SPEC).tol ?? DEFAULT_PROCA_TOLERANCE };
+/** Validate the options (unknown keys refused) and fill in the defaults. */
+export function validateProcaOptions(options: unknown): { tol: number; integrator: ProcaIntegrator } {
+  const o = validateOptions(options, SPEC);
+  return { tol: o.tol ?? DEFAULT_PROCA_TOLERANCE, integrator: o.integrator ?? PROCA_INTEGRATORS[0] };
 }

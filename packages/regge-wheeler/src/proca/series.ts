@@ -24,6 +24,14 @@ const TERM_FLOOR = 1e-17;
 /** Relative size of the last kept term of the asymptotic far-zone series. */
 export const FAR_TOLERANCE = 1e-16;
 
+/**
+ * Scratch of the two series (two channels at most), shared by every call:
+ * each call writes an entry before it reads it, and no call runs inside another.
+ */
+const HORIZON_W = new Float64Array((HORIZON_MAX_TERMS + 1) * 4);
+const HORIZON_A = new Float64Array((HORIZON_MAX_TERMS + 2) * 4);
+const FAR_T = new Float64Array((FAR_MAX_TERMS + 2) * 4);
+
 /** Binomial coefficient of (1 + t)^{−k}: (−1)^j C(k + j − 1, j). */
 function inverseBinomial(k: number, j: number): number {
   let c = 1;
@@ -42,71 +50,78 @@ export function horizonSolution(model: SectorModel, start: number, x: number): S
   const NN = N * N;
   const Omega = 2 * model.omega;
   const t = x / 2;
-  // W_j, j = 0 … HORIZON_MAX_TERMS, computed lazily.
-  const W: number[][] = [];
-  const wAt = (j: number): number[] => {
-    while (W.length <= j) {
-      const jj = W.length;
-      const out = new Array<number>(NN).fill(0);
+  // W_j at [j·NN …], computed in order as the recurrence first needs them; a_n at [n·2N …] as (re, im) pairs.
+  // Flat shared arrays instead of an array per term: the same operations in the same order, without the garbage.
+  const W = HORIZON_W;
+  let wCount = 0;
+  const wNeed = (j: number): void => {
+    while (wCount <= j) {
+      const jj = wCount;
+      const o = jj * NN;
+      W.fill(0, o, o + NN);
       const mass = 4 * model.mu * model.mu * (jj === 0 ? 1 : jj === 1 ? 2 : jj === 2 ? 1 : 0);
-      for (let i = 0; i < N; i++) out[i * N + i] += mass + (jj === 0 ? model.L : 0);
+      for (let i = 0; i < N; i++) W[o + i * N + i] += mass + (jj === 0 ? model.L : 0);
       model.qCoeffs.forEach((q, k) => {
         const c = 0.5 ** k * (k === 0 ? (jj === 0 ? 1 : 0) : inverseBinomial(k, jj));
-        for (let i = 0; i < NN; i++) out[i] += q[i] * c;
+        for (let i = 0; i < NN; i++) W[o + i] += q[i] * c;
       });
-      W.push(out);
+      wCount++;
     }
-    return W[j];
   };
-  const a: Complex[][] = [];
-  const a0: Complex[] = [];
-  for (let i = 0; i < N; i++) a0.push([i === start ? 1 : 0, 0]);
-  a.push(a0);
-  const h: Complex[] = a0.map((z) => [z[0], z[1]] as Complex);
-  const hd: Complex[] = a0.map(() => [0, 0] as Complex); // dh/dt
+  const a = HORIZON_A;
+  a.fill(0, 0, 2 * N);
+  a[2 * start] = 1;
+  const h = new Float64Array(2 * N);
+  const hd = new Float64Array(2 * N); // dh/dt
+  h[2 * start] = 1;
   let tPow = 1;
   let smallRun = 0;
   let converged = false;
   let n = 0;
   for (; n < HORIZON_MAX_TERMS; n++) {
-    const next: Complex[] = [];
     const denRe = (n + 1) * (n + 1);
     const denIm = -(n + 1) * 2 * Omega;
     const den2 = denRe * denRe + denIm * denIm;
+    wNeed(n);
+    const next = (n + 1) * 2 * N;
     for (let i = 0; i < N; i++) {
-      const an = a[n][i];
-      let re = -n * (n - 1) * an[0] - 2 * Omega * 2 * n * an[1];
-      let im = -n * (n - 1) * an[1] + 2 * Omega * 2 * n * an[0];
+      const an0 = a[n * 2 * N + 2 * i];
+      const an1 = a[n * 2 * N + 2 * i + 1];
+      let re = -n * (n - 1) * an0 - 2 * Omega * 2 * n * an1;
+      let im = -n * (n - 1) * an1 + 2 * Omega * 2 * n * an0;
       if (n >= 1) {
-        const am = a[n - 1][i];
-        re -= 2 * Omega * (n - 1) * am[1];
-        im += 2 * Omega * (n - 1) * am[0];
+        const am0 = a[(n - 1) * 2 * N + 2 * i];
+        const am1 = a[(n - 1) * 2 * N + 2 * i + 1];
+        re -= 2 * Omega * (n - 1) * am1;
+        im += 2 * Omega * (n - 1) * am0;
       }
       for (let j = 0; j <= n; j++) {
-        const wj = wAt(j);
-        const src = a[n - j];
+        const wo = j * NN + i * N;
+        const so = (n - j) * 2 * N;
         for (let k = 0; k < N; k++) {
-          const wv = wj[i * N + k];
+          const wv = W[wo + k];
           if (wv === 0) continue;
-          re += wv * src[k][0];
-          im += wv * src[k][1];
+          re += wv * a[so + 2 * k];
+          im += wv * a[so + 2 * k + 1];
         }
       }
-      next.push([(re * denRe + im * denIm) / den2, (im * denRe - re * denIm) / den2]);
+      a[next + 2 * i] = (re * denRe + im * denIm) / den2;
+      a[next + 2 * i + 1] = (im * denRe - re * denIm) / den2;
     }
-    a.push(next);
     const order = n + 1;
     const dWeight = order * tPow;
     tPow *= t;
     let termSize = 0;
     let scale = 0;
     for (let i = 0; i < N; i++) {
-      h[i][0] += next[i][0] * tPow;
-      h[i][1] += next[i][1] * tPow;
-      hd[i][0] += next[i][0] * dWeight;
-      hd[i][1] += next[i][1] * dWeight;
-      termSize += Math.hypot(next[i][0], next[i][1]) * tPow * (1 + order);
-      scale += Math.hypot(h[i][0], h[i][1]) + t * Math.hypot(hd[i][0], hd[i][1]);
+      const c0 = a[next + 2 * i];
+      const c1 = a[next + 2 * i + 1];
+      h[2 * i] += c0 * tPow;
+      h[2 * i + 1] += c1 * tPow;
+      hd[2 * i] += c0 * dWeight;
+      hd[2 * i + 1] += c1 * dWeight;
+      termSize += Math.hypot(c0, c1) * tPow * (1 + order);
+      scale += Math.hypot(h[2 * i], h[2 * i + 1]) + t * Math.hypot(hd[2 * i], hd[2 * i + 1]);
     }
     if (termSize < TERM_FLOOR * scale) {
       if (++smallRun >= 3) {
@@ -126,8 +141,10 @@ export function horizonSolution(model: SectorModel, start: number, x: number): S
   const u: Complex[] = [];
   const p: Complex[] = [];
   for (let i = 0; i < N; i++) {
-    u.push(rot(h[i]));
-    p.push(rot([model.omega * h[i][1] + 0.5 * f * hd[i][0], -model.omega * h[i][0] + 0.5 * f * hd[i][1]]));
+    const hr = h[2 * i];
+    const hi = h[2 * i + 1];
+    u.push(rot([hr, hi]));
+    p.push(rot([model.omega * hi + 0.5 * f * hd[2 * i], -model.omega * hr + 0.5 * f * hd[2 * i + 1]]));
   }
   return { u, p, terms: n + 1, converged };
 }
@@ -180,54 +197,66 @@ export function outgoingFarSolution(model: SectorModel, start: number, r: number
     Cj.push(m);
   }
   const y = 1 / r;
-  // T_n = c_n y^n (vectors).
-  const T: Complex[][] = [];
-  const first: Complex[] = [];
-  for (let i = 0; i < N; i++) first.push([i === start ? 1 : 0, 0]);
-  T.push(first);
-  const w: Complex[] = first.map((z) => [z[0], z[1]] as Complex);
-  const Dw: Complex[] = first.map(() => [0, 0] as Complex);
+  const yPow = [0, 1, y ** 1, y ** 2, y ** 3]; // y^{j−1} at index j
+  // C_j flat as (re, im) pairs at [(j·NN + i)·2]
+  const NN = N * N;
+  const C = new Float64Array(5 * NN * 2);
+  for (let j = 2; j <= 4; j++) {
+    for (let i = 0; i < NN; i++) {
+      C[(j * NN + i) * 2] = Cj[j][i][0];
+      C[(j * NN + i) * 2 + 1] = Cj[j][i][1];
+    }
+  }
+  // T_n = c_n y^n (vectors), at [n·2N …] as (re, im) pairs in a shared flat array: the same operations as an array per term
+  const T = FAR_T;
+  T.fill(0, 0, 2 * N);
+  T[2 * start] = 1;
+  const w = new Float64Array(2 * N);
+  const Dw = new Float64Array(2 * N);
+  w[2 * start] = 1;
   let smallRun = 0;
   let converged = false;
   let previous = 1;
   let n = 1;
   for (; n <= FAR_MAX_TERMS; n++) {
-    const next: Complex[] = [];
+    const next = n * 2 * N;
     for (let i = 0; i < N; i++) {
       let re = 0;
       let im = 0;
       for (let j = 2; j <= 4; j++) {
         const idx = n + 1 - j;
         if (idx < 0) continue;
-        const src = T[idx];
-        const yj = y ** (j - 1); // T_{n+1−j} y^{j−1} = c_{n+1−j} y^n
+        const src = idx * 2 * N;
+        const yj = yPow[j]; // T_{n+1−j} y^{j−1} = c_{n+1−j} y^n
         const coeffRe = aj[j] * idx * idx + bj[j][0] * idx;
         const coeffIm = bj[j][1] * idx;
         for (let c = 0; c < N; c++) {
-          let mr = Cj[j][i * N + c][0];
-          let mi = Cj[j][i * N + c][1];
+          let mr = C[(j * NN + i * N + c) * 2];
+          let mi = C[(j * NN + i * N + c) * 2 + 1];
           if (c === i) {
             mr += coeffRe;
             mi += coeffIm;
           }
-          re += (mr * src[c][0] - mi * src[c][1]) * yj;
-          im += (mr * src[c][1] + mi * src[c][0]) * yj;
+          re += (mr * T[src + 2 * c] - mi * T[src + 2 * c + 1]) * yj;
+          im += (mr * T[src + 2 * c + 1] + mi * T[src + 2 * c]) * yj;
         }
       }
       // T_n = num / (2ik n)
       const d = 2 * k * n;
-      next.push([im / d, -re / d]);
+      T[next + 2 * i] = im / d;
+      T[next + 2 * i + 1] = -re / d;
     }
-    T.push(next);
     let size = 0;
     let scale = 0;
     for (let i = 0; i < N; i++) {
-      w[i][0] += next[i][0];
-      w[i][1] += next[i][1];
-      Dw[i][0] += n * next[i][0];
-      Dw[i][1] += n * next[i][1];
-      size += Math.hypot(next[i][0], next[i][1]) * (n + 1);
-      scale += Math.hypot(w[i][0], w[i][1]);
+      const t0 = T[next + 2 * i];
+      const t1 = T[next + 2 * i + 1];
+      w[2 * i] += t0;
+      w[2 * i + 1] += t1;
+      Dw[2 * i] += n * t0;
+      Dw[2 * i + 1] += n * t1;
+      size += Math.hypot(t0, t1) * (n + 1);
+      scale += Math.hypot(w[2 * i], w[2 * i + 1]);
     }
     if (size < FAR_TOLERANCE * scale) {
       if (++smallRun >= 3) {
@@ -250,8 +279,10 @@ export function outgoingFarSolution(model: SectorModel, start: number, r: number
   const u: Complex[] = [];
   const p: Complex[] = [];
   for (let i = 0; i < N; i++) {
-    u.push(rot(w[i]));
-    p.push(rot([-g * w[i][1] - f * y * Dw[i][0], g * w[i][0] - f * y * Dw[i][1]]));
+    const wr = w[2 * i];
+    const wi = w[2 * i + 1];
+    u.push(rot([wr, wi]));
+    p.push(rot([-g * wi - f * y * Dw[2 * i], g * wr - f * y * Dw[2 * i + 1]]));
   }
   return { u, p, terms: n, converged };
 }

@@ -1,0 +1,151 @@
+// Cost of a Proca (massive vector, a = 0) greybody factor against the massless
+// s = 1 one of the same l, m, a = 0 and ω (the target: at most twice), at tol
+// 1e-8 with its error estimate, for Mμ from 0.1 Mω up to near threshold
+// (v = k∞/ω down to 0.05), for the new extrapolation integrator and the earlier
+// Cash–Karp route; then the accuracy of both against the 30-digit mpmath
+// reference (packages/regge-wheeler/test/fixtures/proca-reference.json) and
+// against tol-1e-11 solves, as true error / relError. The monopole (l = 0) has
+// no massless partner: it is timed against the massless l = 1 mode.
+// CPU time, interleaved batches, median of three. Run after `npm run build`:
+//   node bench/proca-speed.bench.mjs
+// Results: bench/results/proca-speed-2026-12-03b.json.
+import { readFileSync, writeFileSync } from 'node:fs';
+import { greybody } from '@penumbra/flux';
+import { benchDir, cpuMsPerCall, fmt, median, table } from './lib.mjs';
+
+const MODES = [
+  { l: 0, omega: 0.3, pols: ['monopole'] },
+  { l: 1, omega: 0.3, pols: ['odd', 'even-1', 'even-2'] },
+  { l: 2, omega: 0.8, pols: ['odd', 'even-1', 'even-2'] },
+  { l: 3, omega: 1.5, pols: ['odd', 'even-1'] },
+];
+const FRACTIONS = [0.1, 0.5, 0.9, 0.99, 0.9987];
+const TOL = 1e-8;
+
+const massless = (x) => ({ hole: { a: 0 }, mode: { field: { spin: 1 }, l: Math.max(1, x.l), m: 0 }, omega: x.omega });
+const massive = (x, mass) => ({ hole: { a: 0 }, mode: { field: { spin: 1, mass }, l: x.l, m: 0 }, omega: x.omega });
+
+function cost(fns) {
+  for (const f of fns) f();
+  const t = fns.map(() => []);
+  for (let i = 0; i < 3; i++) {
+    for (const [j, f] of fns.entries()) t[j].push(cpuMsPerCall(f, 60, 400));
+  }
+  return t.map(median);
+}
+
+const records = [];
+const rows = [];
+for (const x of MODES) {
+  for (const f of FRACTIONS) {
+    const mass = f * x.omega;
+    for (const polarization of x.pols) {
+      const opts = { tol: TOL, polarization };
+      const ck = { ...opts, integrator: 'cash-karp' };
+      const [tNew, tOld, tMassless] = cost([
+        () => greybody(massive(x, mass), opts),
+        () => greybody(massive(x, mass), ck),
+        () => greybody(massless(x), { tol: TOL }),
+      ]);
+      const g = greybody(massive(x, mass), opts);
+      const gOld = greybody(massive(x, mass), ck);
+      const ref = greybody(massive(x, mass), { tol: 1e-11, polarization });
+      const r = {
+        l: x.l,
+        omega: x.omega,
+        fieldMass: mass,
+        v: Math.sqrt(1 - f * f),
+        polarization,
+        gamma: g.gamma,
+        relError: g.relError,
+        errorVsTight: Math.abs(g.gamma / ref.gamma - 1),
+        relErrorTight: ref.relError,
+        ratioAfter: tNew / tMassless,
+        ratioBefore: tOld / tMassless,
+        msAfter: tNew,
+        msBefore: tOld,
+        msMassless: tMassless,
+        rhsAfter: g.diagnostics.rhsEvaluations,
+        rhsBefore: gOld.diagnostics.rhsEvaluations,
+        beforeVsAfter: Math.abs(gOld.gamma / g.gamma - 1),
+      };
+      records.push(r);
+      rows.push([
+        x.l,
+        x.omega,
+        fmt(mass, 3),
+        fmt(r.v, 2),
+        polarization,
+        fmt(tMassless, 2),
+        fmt(tOld, 2),
+        fmt(tNew, 2),
+        fmt(r.ratioBefore, 2),
+        fmt(r.ratioAfter, 2),
+        `${r.rhsBefore}/${r.rhsAfter}`,
+        fmt(r.relError, 2),
+        fmt(r.errorVsTight / r.relError, 2),
+      ]);
+    }
+  }
+}
+console.log(`Proca (a = 0) / massless s = 1 greybody, CPU ms per call at tol ${TOL} (interleaved, median of 3 batches)`);
+console.log(
+  table(
+    [
+      'l',
+      'Mω',
+      'Mμ',
+      'v',
+      'pol',
+      'massless',
+      'before',
+      'after',
+      'ratio before',
+      'ratio after',
+      'RHS before/after',
+      'relError',
+      'err vs 1e-11 / relError',
+    ],
+    rows,
+  ),
+);
+const after = records.map((r) => r.ratioAfter);
+const before = records.map((r) => r.ratioBefore);
+console.log(
+  `ratio to massless: before median ${fmt(median(before))}, max ${fmt(Math.max(...before))}; after median ${fmt(median(after))}, max ${fmt(Math.max(...after))} (target ≤ 2)`,
+);
+console.log(
+  `largest (error against tol-1e-11 solve) / relError: ${fmt(Math.max(...records.map((r) => r.errorVsTight / r.relError)))}`,
+);
+
+const fixture = JSON.parse(
+  readFileSync(new URL('../packages/regge-wheeler/test/fixtures/proca-reference.json', import.meta.url), 'utf8'),
+).modes;
+const value = (t) => {
+  const [a, b] = t.split('/').map(Number);
+  return b === undefined ? a : a / b;
+};
+const accuracy = [];
+for (const row of fixture) {
+  const x = { l: row.l, omega: value(row.Momega) };
+  const reference = Number(row.gamma);
+  for (const tol of [1e-8, 1e-10]) {
+    for (const integrator of ['gbs', 'cash-karp']) {
+      const g = greybody(massive(x, value(row.Mmu)), { tol, polarization: row.polarization, integrator });
+      const error = Math.abs(g.gamma / reference - 1);
+      accuracy.push({ ...row, tol, integrator, error, relError: g.relError, ratio: error / g.relError });
+    }
+  }
+}
+console.log('\naccuracy against the 30-digit mpmath reference (proca-reference.json); integrator gbs = the extrapolation loop');
+console.log(
+  table(
+    ['pol', 'l', 'Mω', 'Mμ', 'tol', 'integrator', 'true error', 'relError', 'true/relError'],
+    accuracy.map((a) => [a.polarization, a.l, a.Momega, a.Mmu, a.tol, a.integrator, fmt(a.error), fmt(a.relError), fmt(a.ratio)]),
+  ),
+);
+const worst = (name) => Math.max(...accuracy.filter((a) => a.integrator === name).map((a) => a.ratio));
+console.log(`largest true error / relError: extrapolation ${fmt(worst('gbs'))}, cash-karp ${fmt(worst('cash-karp'))}`);
+const path = `${benchDir}/results/proca-speed-2026-12-03b.json`;
+writeFileSync(path, `${JSON.stringify({ tol: TOL, records, accuracy }, null, 1)}\n`);
+console.log(`written ${path}`);

@@ -1,0 +1,214 @@
+/**
+ * An allocation-free Gragg–Bulirsch–Stoer extrapolation integrator for the
+ * Proca channels (Hairer, Nørsett & Wanner, Solving ODEs I, section II.9:
+ * modified midpoint rule, step numbers 2, 4, 6, …, Aitken–Neville
+ * extrapolation in h², order and step selection by work per unit step).
+ *
+ * Why not the radial package's loop (radial/src/gbsStepper.ts): that one is
+ * fixed to a 4-component state with ODEX's operation-for-operation control,
+ * while the even Proca sector carries 16 components (two horizon solutions of
+ * a two-channel system), and this package is the independent Schwarzschild
+ * reference, which shares no solver code with the Teukolsky route. What is
+ * specific here is the error norm: each solution's u and P parts are scaled by
+ * their Euclidean sizes together (|u| + |P|/ω and |P| + ω|u|), since a
+ * component, or a whole vector, crossing zero must not shrink the step.
+ */
+
+/** Right-hand side dy/dr = f(r, y), written into its first argument. */
+export type ProcaRhs = (dydr: Float64Array, y: Float64Array, r: number) => void;
+
+/** Largest column of the extrapolation tableau (order 2·KMAX). */
+const KMAX = 8;
+/** Step numbers n_j = 2j. */
+const NJ = Array.from({ length: KMAX + 1 }, (_, j) => 2 * j);
+/** Work A_j = 1 + n_1 + … + n_j (right-hand-side evaluations to reach column j). */
+const WORK = NJ.map((_, j) => 1 + NJ.slice(1, j + 1).reduce((s, n) => s + n, 0));
+const SAFE1 = 0.65;
+const SAFE2 = 0.94;
+/** Smallest meaningful local tolerance: below it the tableau differences are rounding. */
+const TOL_FLOOR = 1e-16;
+
+/** One adaptive extrapolation integrator bound to a state, a right-hand side and an error norm. */
+export class ProcaExtrapolation {
+  /** current argument */
+  r: number;
+  /** suggested next step */
+  h: number;
+  /** right-hand-side evaluations so far */
+  evaluations = 0;
+  private readonly n: number;
+  private readonly tol: number;
+  private k: number;
+  private readonly table: Float64Array;
+  private readonly yMid: Float64Array;
+  private readonly yPrev: Float64Array;
+  private readonly yTmp: Float64Array;
+  private readonly dy0: Float64Array;
+  private readonly dy: Float64Array;
+  private readonly scale: Float64Array;
+  private readonly hNew = new Float64Array(KMAX + 1);
+
+  /**
+   * @param y the state, advanced in place
+   * @param rhs the right-hand side
+   * @param blockSize components of one solution: u (first half) then P = du/dr* (second half)
+   * @param rate the wave number that relates the sizes of u and P (ω)
+   */
+  constructor(
+    private readonly y: Float64Array,
+    private readonly rhs: ProcaRhs,
+    r0: number,
+    h0: number,
+    tol: number,
+    private readonly blockSize: number,
+    private readonly rate: number,
+  ) {
+    const n = y.length;
+    this.n = n;
+    this.r = r0;
+    this.h = h0;
+    this.tol = Math.max(tol, TOL_FLOOR);
+    this.k = Math.max(3, Math.min(KMAX - 1, Math.floor(-Math.log10(this.tol) * 0.6 + 1.5)));
+    this.table = new Float64Array((KMAX + 1) * n);
+    this.yMid = new Float64Array(n);
+    this.yPrev = new Float64Array(n);
+    this.yTmp = new Float64Array(n);
+    this.dy0 = new Float64Array(n);
+    this.dy = new Float64Array(n);
+    this.scale = new Float64Array(n);
+  }
+
+  private evaluate(out: Float64Array, y: Float64Array, r: number): void {
+    this.evaluations++;
+    this.rhs(out, y, r);
+  }
+
+  /** Modified midpoint rule over h with `steps` substeps, into row j of the table. */
+  private midpoint(h: number, steps: number, j: number): void {
+    const { n, y, dy0, dy, yMid, yPrev, yTmp, table } = this;
+    const hs = h / steps;
+    for (let i = 0; i < n; i++) {
+      yPrev[i] = y[i];
+      yMid[i] = y[i] + hs * dy0[i];
+    }
+    for (let m = 1; m < steps; m++) {
+      this.evaluate(dy, yMid, this.r + m * hs);
+      for (let i = 0; i < n; i++) {
+        const next = yPrev[i] + 2 * hs * dy[i];
+        yPrev[i] = yMid[i];
+        yMid[i] = next;
+      }
+    }
+    this.evaluate(dy, yMid, this.r + h);
+    const o = j * n;
+    for (let i = 0; i < n; i++) yTmp[i] = 0.5 * (yMid[i] + yPrev[i] + hs * dy[i]);
+    for (let i = 0; i < n; i++) table[o + i] = yTmp[i];
+  }
+
+  /** Aitken–Neville: fold row j into rows j − 1 … 1 (row 1 then holds the highest order). */
+  private extrapolate(j: number): void {
+    const { n, table } = this;
+    for (let l = j; l > 1; l--) {
+      const factor = 1 / ((NJ[j] / NJ[l - 1]) ** 2 - 1);
+      const a = l * n;
+      const b = (l - 1) * n;
+      for (let i = 0; i < n; i++) table[b + i] = table[a + i] + (table[a + i] - table[b + i]) * factor;
+    }
+  }
+
+  /** Scaled error of column j: max over components of |T_j1 − T_21| / (tol · block size). */
+  private columnError(): number {
+    const { n, table, scale } = this;
+    let e = 0;
+    for (let i = 0; i < n; i++) e = Math.max(e, Math.abs(table[n + i] - table[2 * n + i]) / scale[i]);
+    return e;
+  }
+
+  /** Error scales: per solution, u scaled by |u| + |P|/ω and P by |P| + ω|u| (the larger of the old and new state). */
+  private setScale(): void {
+    const { n, y, table, scale, blockSize, tol, rate } = this;
+    const half = blockSize / 2;
+    for (let b = 0; b < n; b += blockSize) {
+      let u0 = 0;
+      let p0 = 0;
+      let u1 = 0;
+      let p1 = 0;
+      for (let i = b; i < b + half; i++) {
+        u0 += y[i] * y[i];
+        u1 += table[n + i] * table[n + i];
+        p0 += y[i + half] * y[i + half];
+        p1 += table[n + i + half] * table[n + i + half];
+      }
+      const u = Math.sqrt(Math.max(u0, u1));
+      const p = Math.sqrt(Math.max(p0, p1));
+      const su = tol * (u + p / rate + 1e-300);
+      const sp = tol * (p + rate * u + 1e-300);
+      for (let i = b; i < b + half; i++) {
+        scale[i] = su;
+        scale[i + half] = sp;
+      }
+    }
+  }
+
+  /**
+   * One accepted step towards rEnd (never past it). Returns false once r = rEnd.
+   * Throws when the step size underflows.
+   */
+  step(rEnd: number): boolean {
+    if (this.r >= rEnd) return false;
+    const { n, y, table, hNew } = this;
+    this.evaluate(this.dy0, y, this.r);
+    for (;;) {
+      const h = Math.min(this.h, rEnd - this.r);
+      const last = h === rEnd - this.r;
+      if (!(h > 1e-14 * Math.max(1, Math.abs(this.r))))
+        throw new RangeError(`extrapolation step size underflow at r = ${this.r}`);
+      const k = this.k;
+      let reached = 1;
+      let accepted = false;
+      for (let j = 1; j <= k + 1; j++) {
+        this.midpoint(h, NJ[j], j);
+        if (j === 1) continue;
+        this.extrapolate(j);
+        this.setScale();
+        const e = Math.max(this.columnError(), 1e-300);
+        reached = j;
+        const expo = 1 / (2 * j - 1);
+        const facMin = 0.02 ** expo;
+        hNew[j] = h * Math.min(4 / facMin, Math.max(facMin, SAFE2 * (SAFE1 / e) ** expo));
+        if (j >= k - 1 && e <= 1) {
+          accepted = true;
+          break;
+        }
+        // convergence monitor: stop early when column k + 1 cannot succeed
+        if (j === k - 1 && e > ((NJ[k + 1] * NJ[k]) / 4) ** 2) break;
+        if (j === k && e > (NJ[k + 1] / 2) ** 2) break;
+      }
+      const cost = (j: number) => WORK[j] / hNew[j];
+      if (accepted) {
+        for (let i = 0; i < n; i++) y[i] = table[n + i];
+        this.r = last ? rEnd : this.r + h;
+        // next order as ODEX chooses it (Hairer, Nørsett & Wanner, section II.9): work per unit step
+        const kc = reached;
+        let kOpt: number;
+        if (kc === 2) kOpt = 3;
+        else if (kc <= k) {
+          kOpt = cost(kc - 1) < 0.9 * cost(kc) ? kc - 1 : kc;
+          if (kOpt === kc && cost(kc) < 0.9 * cost(kc - 1)) kOpt = kc + 1;
+        } else {
+          kOpt = kc > 3 && cost(kc - 2) < 0.9 * cost(kc - 1) ? kc - 2 : kc - 1;
+          if (cost(kc) < 0.9 * cost(kOpt)) kOpt = kc;
+        }
+        kOpt = Math.max(3, Math.min(KMAX - 1, kOpt));
+        const hNext = kOpt <= kc ? hNew[kOpt] : (hNew[kc] * WORK[kOpt]) / WORK[kc];
+        this.k = kOpt;
+        if (!last || hNext > this.h) this.h = hNext;
+        return this.r < rEnd;
+      }
+      // rejected: the order of the last column (one less if that was cheaper), its step
+      const kr = reached > 2 && cost(reached - 1) < 0.9 * cost(reached) ? reached - 1 : reached;
+      this.k = Math.max(3, Math.min(KMAX - 1, kr));
+      this.h = Math.min(hNew[kr], 0.9 * h);
+    }
+  }
+}
