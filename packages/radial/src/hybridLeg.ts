@@ -74,7 +74,11 @@ export function riccatiWorthIt(e: RiccatiEquation, xa: number, xb: number): bool
  */
 export const RICCATI_STEP_CHARGE = 10;
 
-/** A leg's segment with its Riccati steps counted apart. */
+/**
+ * A leg's segment with its Riccati steps counted apart; its `errorSum`
+ * charges each Riccati step RICCATI_STEP_CHARGE (a step is accepted with up
+ * to 0.3 tol from each of four sources, see above).
+ */
 export interface HybridSegment extends Segment {
   /** Riccati steps taken (included in `steps`) */
   riccatiSteps: number;
@@ -120,6 +124,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   const y = leg.y;
   let logScale = leg.logScale ?? 0;
   let steps = 0,
+    errorSum = 0,
     riccatiSteps = 0,
     rescalings = 0;
   const samples: RadialSample[] = [];
@@ -135,6 +140,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       maxSteps: Math.max(leg.maxSteps - steps, 1),
     });
     steps += seg.steps;
+    errorSum += seg.errorSum;
     rescalings += seg.rescalings;
     logScale = seg.logScale;
     samples.push(...seg.samples);
@@ -161,6 +167,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       return;
     }
     steps++;
+    errorSum += RICCATI_STEP_CHARGE;
     riccatiSteps++;
     logScale += scale[0];
     if (Math.abs(y[0]) + Math.abs(y[1]) > OVERFLOW) {
@@ -186,5 +193,5 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     byRiccati(ladder[i], ladder[i + 1], rates[i], rates[i + 1], 0);
     i++;
   }
-  return { logScale, steps, rescalings, samples, raw, riccatiSteps };
+  return { logScale, steps, errorSum, rescalings, samples, raw, riccatiSteps };
 }

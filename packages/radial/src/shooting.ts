@@ -69,6 +69,8 @@ export interface Segment {
   logScale: number;
   /** steps taken */
   steps: number;
+  /** sum of the accepted steps' local error estimates relative to tol (1 per step where the integrator reports none) */
+  errorSum: number;
   /** renormalisations by 1e-300 */
   rescalings: number;
   /** the solution at the stops inside (from, to] */
@@ -117,6 +119,7 @@ export function integrateLeg(leg: Leg): Segment {
   let logScale = leg.logScale ?? 0;
   let rescalings = 0;
   let steps = 0;
+  let errorSum = 0;
   const samples: RadialSample[] = [];
   const raw: RawSample[] = [];
   const targets = [...stops.filter((g) => g > r0 && g < rEnd), rEnd];
@@ -133,6 +136,7 @@ export function integrateLeg(leg: Leg): Segment {
         throw legFailure(leg, 'radial integration failed', steps, { reason: (e as Error).message, r });
       }
       steps += adv.steps;
+      errorSum += adv.errorSum ?? adv.steps;
       x = adv.r;
       r = x === xTarget ? target : origin + x;
       h = adv.h;
@@ -153,5 +157,5 @@ export function integrateLeg(leg: Leg): Segment {
   }
   if (phased) convertPhase(hole, mode, eq, rEnd, y, -1);
   if (!y.every(Number.isFinite)) throw legFailure(leg, 'radial integration produced non-finite values', steps, { r });
-  return { logScale, steps, rescalings, samples, raw };
+  return { logScale, steps, errorSum, rescalings, samples, raw };
 }

@@ -1,0 +1,132 @@
+// Cost of one greybody factor against its floor (issue 14): Γ alone with its
+// error estimate (reflection: false) at the default tol 1e-8 over N random Kerr
+// modes (s ∈ {0, 1/2, 1, 2}, l ≤ 6, all m, 0.01 ≤ Mω ≤ 3 log-uniform, a
+// uniform in [0, 0.9999]), CPU time per call (process.cpuUsage, so preemption
+// on the shared machine does not count) and RHS evaluations; the share of
+// modes whose estimate needed the check solve (diagnostics.checkEvaluations > 0
+// where the build reports it).
+//
+// With a second build given (BASE=/path/to/another/checkout, built), both are
+// run interleaved mode by mode (order alternating), and per-mode ratios are
+// printed: on a loaded shared machine ratios of interleaved runs are the
+// figures to read.
+// Run: npx tsc -b && node bench/floor.bench.mjs [N] [--reflection]
+import os from 'node:os';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { writeFileSync } from 'node:fs';
+import { benchDir, fmt } from './lib.mjs';
+
+const N = Number(process.argv[2] ?? 1000);
+const reflection = process.argv.includes('--reflection');
+const BASE = process.env.BASE;
+const load = async (root) => (await import(pathToFileURL(join(root, 'packages/flux/dist/index.js')).href)).greybody;
+const builds = [['new', await load(join(benchDir, '..'))]];
+if (BASE) builds.unshift(['base', await load(BASE)]);
+
+let seed = 41;
+const rand = () => {
+  seed = (seed * 1103515245 + 12345) % 2147483648;
+  return seed / 2147483648;
+};
+const spins = [0, 0.5, 1, 2];
+const modes = Array.from({ length: N }, () => {
+  const spin = spins[Math.floor(rand() * 4)];
+  const l = spin + Math.floor(rand() * (7 - Math.ceil(spin)));
+  const m = -l + Math.floor(rand() * (2 * l + 1));
+  return { hole: { a: 0.9999 * rand() }, mode: { field: { spin }, l, m }, omega: 0.01 * 300 ** rand() };
+});
+const quantile = (xs, q) => {
+  const s = [...xs].sort((x, y) => x - y);
+  return s[Math.min(s.length - 1, Math.floor(q * s.length))];
+};
+// warm the JIT of every build
+for (const [, g] of builds) for (const p of modes.slice(0, 150)) g(p, { reflection });
+
+const rec = Object.fromEntries(
+  builds.map(([name]) => [name, { ms: [], evals: [], checks: 0, failed: 0, gamma: [], checkEvals: [] }]),
+);
+modes.forEach((p, i) => {
+  const order = i % 2 ? [...builds].reverse() : builds;
+  for (const [name, g] of order) {
+    const r = rec[name];
+    const t0 = process.cpuUsage();
+    try {
+      const sol = g(p, { reflection });
+      const t = process.cpuUsage(t0);
+      r.ms.push((t.user + t.system) / 1e3);
+      r.evals.push(sol.diagnostics.rhsEvaluations);
+      r.gamma.push(sol.gamma);
+      if (sol.diagnostics.checkEvaluations > 0) r.checks++;
+      r.checkEvals.push(sol.diagnostics.checkEvaluations ?? 0);
+    } catch {
+      r.failed++;
+      r.ms.push(Number.NaN);
+      r.evals.push(Number.NaN);
+      r.gamma.push(Number.NaN);
+      r.checkEvals.push(0);
+    }
+  }
+});
+const out = {
+  date: new Date().toISOString(),
+  load: os.loadavg(),
+  cpu: `${os.cpus()[0]?.model} × ${os.cpus().length}`,
+  n: N,
+  reflection,
+  builds: {},
+};
+console.log(
+  `load average ${os
+    .loadavg()
+    .map((x) => x.toFixed(1))
+    .join(' ')}; ${out.cpu}; ${N} modes, reflection ${reflection}`,
+);
+for (const [name] of builds) {
+  const r = rec[name];
+  const ms = r.ms.filter(Number.isFinite);
+  const ev = r.evals.filter(Number.isFinite);
+  const s = {
+    medianMs: quantile(ms, 0.5),
+    p90Ms: quantile(ms, 0.9),
+    p99Ms: quantile(ms, 0.99),
+    maxMs: Math.max(...ms),
+    medianEvals: quantile(ev, 0.5),
+    p99Evals: quantile(ev, 0.99),
+    meanEvals: ev.reduce((x, y) => x + y, 0) / ev.length,
+    checkFraction: r.checks / ms.length,
+    failed: r.failed,
+  };
+  out.builds[name] = s;
+  console.log(
+    `${name}: CPU ms median ${fmt(s.medianMs, 3)}, p90 ${fmt(s.p90Ms, 3)}, p99 ${fmt(s.p99Ms, 3)}, max ${fmt(s.maxMs, 3)}; RHS evaluations median ${s.medianEvals}, p99 ${s.p99Evals}, mean ${fmt(s.meanEvals, 4)}; check solves ${fmt(100 * s.checkFraction, 3)} %; failed ${s.failed}`,
+  );
+}
+if (BASE) {
+  const b = rec.base,
+    n = rec.new;
+  const ratios = b.ms.map((x, i) => x / n.ms[i]).filter(Number.isFinite);
+  const evalRatios = b.evals.map((x, i) => x / n.evals[i]).filter(Number.isFinite);
+  // the base build may not report checkEvaluations: its first solve is the new one's (the integrator is unchanged), so more evaluations mean a check solve
+  if (!(out.builds.base.checkFraction > 0)) {
+    const ran = b.evals.filter((x, i) => x > n.evals[i] - (n.checkEvals?.[i] ?? 0)).length;
+    out.builds.base.checkFractionInferred = ran / b.evals.length;
+    console.log(
+      `base check solves (inferred from its extra evaluations) ${fmt(100 * out.builds.base.checkFractionInferred, 3)} %`,
+    );
+  }
+  const dGamma = b.gamma.map((x, i) => Math.abs(n.gamma[i] / x - 1)).filter(Number.isFinite);
+  out.ratios = {
+    medianTime: quantile(ratios, 0.5),
+    medianEvals: quantile(evalRatios, 0.5),
+    medianOfMedians: out.builds.base.medianMs / out.builds.new.medianMs,
+    p99: out.builds.base.p99Ms / out.builds.new.p99Ms,
+    maxGammaChange: Math.max(...dGamma),
+  };
+  console.log(
+    `base/new: median of per-mode CPU ratios ${fmt(out.ratios.medianTime)}, of RHS-evaluation ratios ${fmt(out.ratios.medianEvals)}; ratio of medians ${fmt(out.ratios.medianOfMedians)}, of p99 ${fmt(out.ratios.p99)}; largest |Γ_new/Γ_base − 1| ${fmt(out.ratios.maxGammaChange)}`,
+  );
+}
+const file = join(benchDir, 'results', `floor-${process.env.PENUMBRA_RESULT_TAG ?? new Date().toISOString().slice(0, 10)}.json`);
+writeFileSync(file, `${JSON.stringify(out, null, 1)}\n`);
+console.log(`results: ${file}`);
