@@ -20,7 +20,7 @@
 import type { KerrHole } from '@penumbra/kerr';
 import { tortoiseFromHorizonDistance } from '@penumbra/kerr';
 import { add, cpoly, cpolyAt, padTo, scale, type CPoly } from './complexPoly.js';
-import { fieldMassOf, radialEquation, substitutePhase, type RadialMode } from './equation.js';
+import { fieldMassOf, radialEquation, substitutePhase, type RadialEquation, type RadialMode } from './equation.js';
 
 /** Coefficients of one far-zone series, R = e^{iσωr*} r^p Σ c_n r^{−n}. */
 export interface FarSeries {
@@ -71,24 +71,85 @@ export interface FarValue {
 }
 
 // The same mode is solved at two tolerances (and on both legs of the
-// two-sided route), so recently built series are reused.
-const cache = new Map<string, FarSeries>();
+// two-sided route), so recently built series are reused; entries are compared
+// field by field (a string key was measured to cost more than building one
+// series term).
+interface CacheEntry {
+  mass: number;
+  a: number;
+  s: number;
+  m: number;
+  omega: number;
+  lambda: number;
+  mu: number;
+  sigma: 1 | -1;
+  maxTerms: number;
+  series: FarSeries;
+}
+const cache: CacheEntry[] = [];
 const CACHE_SIZE = 64;
 
 /** Coefficients c_n (n < maxTerms) of the series with σ = ±1. */
 export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerms = 120): FarSeries {
-  const key = `${hole.mass},${hole.a},${mode.s},${mode.m},${mode.omega},${mode.lambda},${fieldMassOf(mode)},${sigma},${maxTerms}`;
-  const hit = cache.get(key);
-  if (hit) return hit;
+  const mu = fieldMassOf(mode);
+  for (let i = cache.length - 1; i >= 0; i--) {
+    const e = cache[i];
+    if (
+      e.sigma === sigma &&
+      e.omega === mode.omega &&
+      e.lambda === mode.lambda &&
+      e.a === hole.a &&
+      e.mass === hole.mass &&
+      e.s === mode.s &&
+      e.m === mode.m &&
+      e.mu === mu &&
+      e.maxTerms === maxTerms
+    )
+      return e.series;
+  }
   const series = buildFarSeries(hole, mode, sigma, maxTerms);
-  if (cache.size >= CACHE_SIZE) cache.delete(cache.keys().next().value as string);
-  cache.set(key, series);
+  if (cache.length >= CACHE_SIZE) cache.shift();
+  cache.push({
+    mass: hole.mass,
+    a: hole.a,
+    s: mode.s,
+    m: mode.m,
+    omega: mode.omega,
+    lambda: mode.lambda,
+    mu,
+    sigma,
+    maxTerms,
+    series,
+  });
   return series;
+}
+
+// The two series of one mode share the equation (the last one built is kept).
+let lastEquation: { hole: KerrHole; mode: RadialMode; eq: RadialEquation } | null = null;
+
+function equationOf(hole: KerrHole, mode: RadialMode): RadialEquation {
+  const last = lastEquation;
+  if (
+    last !== null &&
+    last.hole.a === hole.a &&
+    last.hole.mass === hole.mass &&
+    last.hole.rPlus === hole.rPlus &&
+    last.hole.rMinus === hole.rMinus &&
+    last.mode.s === mode.s &&
+    last.mode.m === mode.m &&
+    last.mode.omega === mode.omega &&
+    last.mode.lambda === mode.lambda &&
+    fieldMassOf(last.mode) === fieldMassOf(mode)
+  )
+    return last.eq;
+  const eq = radialEquation(hole, mode);
+  lastEquation = { hole: { ...hole }, mode: { ...mode }, eq };
+  return eq;
 }
 
 function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerms: number): FarSeries {
   // Δ² g'' + Δ[2iσωϖ + (s+1)Δ'] g' + Q_σ g = 0 in powers of r; the r⁴ terms of Q_σ cancel exactly.
-  const eq = radialEquation(hole, mode);
+  const eq = equationOf(hole, mode);
   const { kInf, beta } = farWavenumber(hole, mode);
   const W = beta === 0 ? scale(eq.varpi, sigma * kInf) : add(scale(eq.varpi, sigma * kInf), cpoly([0, sigma * beta]));
   const far = substitutePhase(eq, W);

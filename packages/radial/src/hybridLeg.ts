@@ -90,7 +90,9 @@ export function chargedSteps(seg: HybridSegment): number {
 }
 
 function plain(seg: Segment): HybridSegment {
-  return { ...seg, riccatiSteps: 0 };
+  const out = seg as HybridSegment;
+  out.riccatiSteps = 0;
+  return out;
 }
 
 /** Integrate one leg, by Riccati steps where they apply (see above) or entirely by `integrateLeg` ('ode'). */

@@ -16,7 +16,7 @@ import type { RadialEquation, RadialMode } from './equation.js';
 import { makeStepper, type AdvanceResult, type IntegratorName } from './integrators.js';
 import type { RadialVariable } from './options.js';
 import { convertPhase, phaseEquation } from './phaseVariable.js';
-import { equationKernel, equationRhs, type EvaluationCounter } from './rhs.js';
+import { equationKernel, kernelRhs, type EvaluationCounter } from './rhs.js';
 import type { RadialSample } from './solution.js';
 
 /** One outward leg of a solve. */
@@ -112,8 +112,10 @@ export function integrateLeg(leg: Leg): Segment {
   const inX = hole.rPlus - hole.rMinus < X_ARGUMENT_WIDTH * hole.mass;
   const origin = inX ? hole.rPlus : 0;
   const integrated = phased ? phaseEquation(eq) : eq;
-  const rhs = equationRhs(integrated, leg.counter, origin);
-  const kernel = leg.integrator === 'gbs' ? equationKernel(integrated, leg.counter, origin) : undefined;
+  // One packing of the coefficients serves both: 'gbs' reads the kernel inline, the others call the right-hand side.
+  const packed = equationKernel(integrated, leg.counter, origin);
+  const rhs = kernelRhs(packed);
+  const kernel = leg.integrator === 'gbs' ? packed : undefined;
   const stepper = makeStepper({ integrator: leg.integrator, rhs, tol: leg.tol, rPlus: hole.rPlus - origin, maxSteps, kernel });
   if (phased) convertPhase(hole, mode, eq, r0, y, 1);
   let logScale = leg.logScale ?? 0;
