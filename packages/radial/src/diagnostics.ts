@@ -53,6 +53,8 @@ export interface RadialDiagnostics extends Diagnostics {
    * what @penumbra/flux's single-solve estimate of Γ is built from
    */
   localErrorSum: number;
+  /** Riccati steps among `steps` (docs/method.md, section 9) */
+  riccatiSteps: number;
 }
 
 /** The figures the single-solve error estimate is made of. */

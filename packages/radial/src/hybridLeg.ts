@@ -180,7 +180,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     if (leg.stops.includes(to.r)) {
       const f = Math.exp(logScale);
       samples.push({ r: to.r, R: { re: y[0] * f, im: y[1] * f }, dR: { re: y[2] * f, im: y[3] * f } });
-      raw.push({ r: to.r, y: Array.from(y), logScale });
+      raw.push({ r: to.r, y: [y[0], y[1], y[2], y[3]], logScale });
     }
   };
   let i = 0;

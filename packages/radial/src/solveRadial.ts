@@ -106,6 +106,7 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
       rescalings: seg.rescalings,
       amplification,
       localErrorSum: seg.errorSum,
+      riccatiSteps: seg.riccatiSteps,
     },
   };
 }

@@ -177,6 +177,7 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
       rescalings: segMinus.rescalings + segPlus.rescalings,
       amplification: 1,
       localErrorSum: segMinus.errorSum + segPlus.errorSum,
+      riccatiSteps: segMinus.riccatiSteps + segPlus.riccatiSteps,
     },
   };
 }
