@@ -89,7 +89,8 @@ modes.forEach((p, i) => {
       let sol;
       for (let rep = 0; rep < REPS; rep++) {
         const t0 = process.cpuUsage();
-        sol = g(p, { reflection, tol });
+        // each repeat at ω × (1 + rep·1e-13): no exact hit in the eigenvalue or far-series caches
+        sol = g(rep === 0 ? p : { ...p, omega: p.omega * (1 + rep * 1e-13) }, { reflection, tol });
         const t = process.cpuUsage(t0);
         best = Math.min(best, (t.user + t.system) / 1e3);
       }
