@@ -61,12 +61,14 @@ export const SINGLE_SOLVE_SHARE = 1;
  * Multiple of the local-error sum (the integrator's own accepted per-step
  * estimates, radial's `localErrorSum` × tol × route amplification, plus the
  * series truncations) taken as the single-solve estimate of Γ. Measured
- * (bench/estimate.bench.mjs: the 40-digit fixture at tol 1e-8…1e-12, random
- * and wide-range modes against tol 1e-11 solves; bench/honesty.bench.mjs):
- * the true error of Γ beyond the rounding floor was at most 1.08 times the
- * bare sum (the extrapolation's estimate is that of the lower-order value,
- * and Γ ∝ |Z_in|⁻² doubles the error), so 5 leaves the margin of the
- * steps × tol bound it replaces (true error at most 0.22–0.46 of the estimate).
+ * (bench/estimate.bench.mjs, bench/results/estimate-2026-12-03b): the true
+ * error of Γ beyond the rounding floor was at most 1.36 times the bare sum
+ * against the 40-digit fixture at tol 1e-8 (0.29 at 1e-10), 1.13 on 1,500
+ * random and 0.96 on 991 wide-range modes at tol 1e-8 against tol-1e-11
+ * solves, and up to 2.4 at tol 1e-10, where those references' own errors of a
+ * few 1e-12 dominate (the extrapolation's estimate is that of the lower-order
+ * value; Γ ∝ |Z_in|⁻² doubles the error). 5 keeps about the margin of the
+ * steps × tol bound it refines.
  */
 export const LOCAL_ERROR_FACTOR = 5;
 
