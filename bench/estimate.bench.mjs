@@ -15,14 +15,21 @@
 //             1.02μ ≤ ω ≤ 4μ, at tol 1e-8, 1e-10;
 //   random and wide: true error against `greybody` at tol 1e-11 (skipped
 //   where that is refused).
+// Also printed: the true error of the first solve against the bare sum of the
+// loop's own accepted per-step estimates (radial's localErrorSum × tol ×
+// amplification + series truncations) and the rounding floor, which is what
+// flux's single-solve estimate multiplies by LOCAL_ERROR_FACTOR; and how many
+// greybody calls ran the check solve.
 // Run: npx tsc -b && node bench/estimate.bench.mjs [N random] [N wide]
+// (PENUMBRA_RESULT_TAG=2026-12-03b names the result file)
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { greybody, horizonFactor } from '@penumbra/flux';
 import { kerrHole } from '@penumbra/kerr';
 import { solveRadial, solveTwoSided } from '@penumbra/radial';
 import { radialSeparationConstant, spheroidalEigenvalue } from '@penumbra/spheroidal';
-import { benchDir, fmt, writeResult } from './lib.mjs';
+import { writeFileSync } from 'node:fs';
+import { benchDir, fmt } from './lib.mjs';
 
 const N_RANDOM = Number(process.argv[2] ?? 500);
 const N_WIDE = Number(process.argv[3] ?? 400);
@@ -62,9 +69,13 @@ function components(x, tol) {
     matchRadius: 1.4 * first.d.matchRadius,
     reflection: false,
   });
+  const d = first.d;
   return {
     ln: first.ln,
-    single: first.d.errorEstimate + ROUNDING * Math.sqrt(first.d.rhsEvaluations),
+    single: d.errorEstimate + ROUNDING * Math.sqrt(d.rhsEvaluations),
+    // the loop's own accepted per-step estimates, unscaled (flux multiplies by LOCAL_ERROR_FACTOR)
+    local: d.amplification * d.localErrorSum * d.tol + d.horizonTruncation + d.farTruncation,
+    floor: ROUNDING * Math.sqrt(d.rhsEvaluations),
     evaluations: first.d.rhsEvaluations,
     checkEvaluations: check.d.rhsEvaluations,
   };
@@ -139,6 +150,11 @@ for (const [label, rows, tols] of [
       singleWorst: 0,
       evalNow: 0,
       evalCheckAlways: 0,
+      localWorst: 0,
+      localWorstAboveFloor: 0,
+      checks: 0,
+      worstMode: null,
+      localWorstMode: null,
     };
     rows.forEach((x, i) => {
       if (!Number.isFinite(refs[i])) {
@@ -158,7 +174,14 @@ for (const [label, rows, tols] of [
       const trueError = Math.abs(Math.expm1(Math.log(Math.abs(g.gamma)) - refs[i]));
       const singleTrue = Math.abs(Math.expm1(c.ln - refs[i]));
       if (trueError > g.relError) s.below++;
+      if (trueError / g.relError > s.worst) s.worstMode = { ...x, trueError, relError: g.relError };
       s.worst = Math.max(s.worst, trueError / g.relError);
+      if (g.diagnostics.checkEvaluations > 0) s.checks++;
+      // the integration part alone: true error beyond the rounding floor against the raw local-error sum
+      const r = singleTrue / (c.local + c.floor);
+      if (r > s.localWorst) s.localWorstMode = { ...x, singleTrue, local: c.local, floor: c.floor };
+      s.localWorst = Math.max(s.localWorst, r);
+      s.localWorstAboveFloor = Math.max(s.localWorstAboveFloor, Math.max(singleTrue - c.floor, 0) / c.local);
       if (singleTrue > c.single) s.singleBelow++;
       s.singleWorst = Math.max(s.singleWorst, singleTrue / c.single);
       s.evalNow += g.diagnostics.rhsEvaluations;
@@ -166,12 +189,23 @@ for (const [label, rows, tols] of [
     });
     summary.push(s);
     console.log(
+      `  worst greybody mode ${JSON.stringify(s.worstMode)}\n  worst local-sum mode ${JSON.stringify(s.localWorstMode)}`,
+    );
+    console.log(
       `${label} tol ${tol}: ${s.n} modes (${s.skipped} without reference, ${s.failed} refused/not converged); ` +
         `greybody relError below the true error: ${s.below}, worst true/relError ${fmt(s.worst)}; ` +
         `single-solve estimate below the true error: ${s.singleBelow}, worst ${fmt(s.singleWorst)}; ` +
+        `true/(raw local-error sum + floor) worst ${fmt(s.localWorst)}, (true − floor)/local-error sum worst ${fmt(s.localWorstAboveFloor)}; ` +
+        `check solves ${s.checks} of ${s.n}; ` +
         `RHS evaluations against always checking: ${fmt(s.evalNow / s.evalCheckAlways)}`,
     );
   }
 }
 console.log(`total ${fmt((performance.now() - t0) / 1e3)} s`);
-console.log(`results: ${writeResult('estimate', { date: new Date().toISOString(), summary })}`);
+const file = join(
+  benchDir,
+  'results',
+  `estimate-${process.env.PENUMBRA_RESULT_TAG ?? new Date().toISOString().slice(0, 10)}.json`,
+);
+writeFileSync(file, `${JSON.stringify({ date: new Date().toISOString(), summary }, null, 1)}\n`);
+console.log(`results: ${file}`);

@@ -1,14 +1,11 @@
 /**
  * The error estimate of a greybody factor, and what it is made of.
  *
- * First the single-solve estimate: the first solve's local-error
- * accumulation bound (steps × tol + series truncations, @penumbra/radial)
- * whole, plus the rounding floor below. That bound was measured to exceed
- * the error of Z_in by at least 1/0.15, so whole it covers the error of Γ
- * (twice that of Z_in) with a factor of more than three to spare; measured
- * against the 40-digit fixture and against tighter solves on 3,600 mode
- * solves up to l = 41, Mω = 20, a = 0.99999 (bench/estimate.bench.mjs), the
- * true error was at most 0.46 of it. Where it is at least
+ * First the single-solve estimate: LOCAL_ERROR_FACTOR × the sum of the
+ * first solve's accepted per-step error estimates (radial's
+ * `localErrorSum`, with the series truncations), or the steps × tol
+ * accumulation bound where that is smaller, plus the rounding floor below
+ * (singleSolveBudget; measured figures beside the constants). Where it is at least
  * SINGLE_SOLVE_MARGIN times below the requested tolerance nothing else is
  * computed; elsewhere (tight tolerances, long
  * integrations) the check solve below is run and the estimate is built from
@@ -61,6 +58,21 @@ export const BUDGET_SHARE = 0.3;
 export const SINGLE_SOLVE_SHARE = 1;
 
 /**
+ * Multiple of the local-error sum (the integrator's own accepted per-step
+ * estimates, radial's `localErrorSum` × tol × route amplification, plus the
+ * series truncations) taken as the single-solve estimate of Γ. Measured
+ * (bench/estimate.bench.mjs, bench/results/estimate-2026-12-03b): the true
+ * error of Γ beyond the rounding floor was at most 1.36 times the bare sum
+ * against the 40-digit fixture at tol 1e-8 (0.29 at 1e-10), 1.13 on 1,500
+ * random and 0.96 on 991 wide-range modes at tol 1e-8 against tol-1e-11
+ * solves, and up to 2.4 at tol 1e-10, where those references' own errors of a
+ * few 1e-12 dominate (the extrapolation's estimate is that of the lower-order
+ * value; Γ ∝ |Z_in|⁻² doubles the error). 5 keeps about the margin of the
+ * steps × tol bound it refines.
+ */
+export const LOCAL_ERROR_FACTOR = 5;
+
+/**
  * The single-solve estimate stands alone only this many times below the
  * requested tolerance: it rests on a measured bound, so it is trusted only
  * with an order of magnitude to spare; nearer the request the check solve
@@ -70,6 +82,20 @@ export const SINGLE_SOLVE_MARGIN = 10;
 
 /** ε, the spacing of doubles at 1 (2^−52). */
 const EPSILON = Number.EPSILON;
+
+/**
+ * The integration part of the single-solve estimate of Γ: the smaller of the
+ * steps × tol accumulation bound (`errorEstimate`) and LOCAL_ERROR_FACTOR ×
+ * the sum of the accepted steps' own error estimates (both measured to cover
+ * the true error; the sum is far smaller where steps were taken well inside
+ * the tolerance).
+ */
+export function singleSolveBudget(
+  d: Pick<RadialDiagnostics, 'errorEstimate' | 'localErrorSum' | 'tol' | 'amplification' | 'horizonTruncation' | 'farTruncation'>,
+): number {
+  const local = LOCAL_ERROR_FACTOR * (d.amplification * d.localErrorSum * d.tol + d.horizonTruncation + d.farTruncation);
+  return Math.min(d.errorEstimate, local);
+}
 
 /** Rounding floor of the relative error of Γ for a solve with these diagnostics. */
 export function roundingFloor(d: Pick<RadialDiagnostics, 'rhsEvaluations'>): number {

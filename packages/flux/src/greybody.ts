@@ -34,6 +34,7 @@ import {
   checkGeometry,
   gammaErrorEstimate,
   roundingFloor,
+  singleSolveBudget,
   singleSolveGammaEstimate,
 } from './errorEstimate.js';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
@@ -61,6 +62,8 @@ export interface GreybodyDiagnostics extends Diagnostics {
   /** |C_s|² (Teukolsky–Starobinsky; massive Dirac: λ², which is |C_{1/2}|² at μ = 0) */
   starobinskySquared: number;
   attempts: number;
+  /** right-hand-side evaluations of the check solve behind the error estimate (included in rhsEvaluations; 0 where the single-solve estimate stood alone; absent for the massive Dirac and vector solvers) */
+  checkEvaluations?: number;
 }
 
 /** The greybody factor of one mode, with the problem it answers. */
@@ -212,7 +215,7 @@ export function greybody(problem: GreybodyProblem, options?: GreybodyOptions): G
     const fine = solveMode(p, { ...common, tol: odeTol, reflection: wantReflection });
     const floor = roundingFloor(fine.diagnostics);
     const budget = fine.diagnostics.errorEstimate;
-    let relError = singleSolveGammaEstimate(fine.sign, fine.lnGamma, budget, floor);
+    let relError = singleSolveGammaEstimate(fine.sign, fine.lnGamma, singleSolveBudget(fine.diagnostics), floor);
     let checkEvaluations = 0;
     if (relError > tol / SINGLE_SOLVE_MARGIN) {
       // The check solve moves the start and matching radii too, so it sees the series truncation and part of the rounding (errorEstimate.ts).
@@ -362,6 +365,7 @@ function result(
       lambda: p.lambdaPlus,
       starobinskySquared: C2,
       attempts,
+      checkEvaluations: extraEvaluations,
     },
   };
 }

@@ -46,11 +46,13 @@ export interface CheckedProblem {
   omega: number;
 }
 
+// Built once (formatting the range on every call was a visible share of a greybody factor).
+const OMEGA_ALLOWED = `${MOMEGA_RANGE.min} ≤ Mω ≤ ${MOMEGA_RANGE.max} (ω in units of 1/M)`;
+
 /** Validate ω against the solver's range for a hole of mass `mass`. */
 export function validateOmega(omega: unknown, mass: number, parameter = 'omega'): number {
-  const allowed = `${MOMEGA_RANGE.min} ≤ Mω ≤ ${MOMEGA_RANGE.max} (ω in units of 1/M)`;
-  const w = requireFinite(parameter, omega, allowed);
-  if (!(w * mass >= MOMEGA_RANGE.min && w * mass <= MOMEGA_RANGE.max)) throw new InputError(parameter, allowed, w);
+  const w = requireFinite(parameter, omega, OMEGA_ALLOWED);
+  if (!(w * mass >= MOMEGA_RANGE.min && w * mass <= MOMEGA_RANGE.max)) throw new InputError(parameter, OMEGA_ALLOWED, w);
   return w;
 }
 

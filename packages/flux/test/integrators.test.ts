@@ -28,16 +28,20 @@ const problem = (x: (typeof MODES)[number]) => ({
 });
 
 describe("the default integrator 'gbs'", () => {
-  it("is the default and returns the same doubles as 'odex' (Γ, relError, reflection, steps, RHS evaluations) on 8 modes of every spin", () => {
+  // relError is not compared bit for bit: 'gbs' sums its own accepted per-step error estimates (radial's localErrorSum),
+  // which the odex package does not report, so 'odex' counts 1 per step (the steps × tol bound); the same steps give
+  // the same Γ, and the sum of estimates that are each at most 1 can only be smaller.
+  it("is the default and returns the same doubles as 'odex' (Γ, reflection, steps, RHS evaluations) on 8 modes of every spin, with a relError no larger", () => {
     for (const x of MODES) {
       const byDefault = greybody(problem(x));
       const odex = greybody(problem(x), { integrator: 'odex' });
       expect(byDefault.diagnostics.integrator).toBe('gbs');
-      expect([byDefault.gamma, byDefault.relError, byDefault.reflection]).toEqual([odex.gamma, odex.relError, odex.reflection]);
+      expect([byDefault.gamma, byDefault.reflection]).toEqual([odex.gamma, odex.reflection]);
       expect([byDefault.diagnostics.steps, byDefault.diagnostics.rhsEvaluations]).toEqual([
         odex.diagnostics.steps,
         odex.diagnostics.rhsEvaluations,
       ]);
+      expect(byDefault.relError).toBeLessThanOrEqual(odex.relError);
     }
   });
 

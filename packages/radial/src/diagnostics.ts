@@ -30,7 +30,7 @@ export interface RadialDiagnostics extends Diagnostics {
   tol: number;
   /** where the horizon series handed over to the integrator */
   startRadius: number;
-  /** where the far series took over (the larger of the two legs' for the two-sided route) */
+  /** where the far series took over (the larger of the two legs' for the two-sided route; the +s leg's alone without the reflection) */
   matchRadius: number;
   /** horizon series terms summed */
   horizonTerms: number;
@@ -44,6 +44,17 @@ export interface RadialDiagnostics extends Diagnostics {
   rescalings: number;
   /** the factor by which the route may amplify integration errors in Z_in (1 where it reads Z_in where it dominates) */
   amplification: number;
+  /**
+   * sum over all legs of the accepted steps' own local error estimates,
+   * relative to tol (each at most 1; 'gbs' reports the extrapolation
+   * tableau's ‖T_kk − T_k,k−1‖, the error of the lower-order value it does
+   * not keep; 'odex' and 'cash-karp' report none and count 1 per step; a
+   * Riccati step counts RICCATI_STEP_CHARGE): at most `steps` charged, and
+   * what @penumbra/flux's single-solve estimate of Γ is built from
+   */
+  localErrorSum: number;
+  /** Riccati steps among `steps` (docs/method.md, section 9) */
+  riccatiSteps: number;
 }
 
 /** The figures the single-solve error estimate is made of. */

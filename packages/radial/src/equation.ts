@@ -17,7 +17,7 @@
  * its roots, keeps Δ(r+) = 0 exact and avoids shifting polynomials afterwards.
  */
 import type { KerrHole } from '@penumbra/kerr';
-import { add, cpoly, derivative, mul, scale, type CPoly } from './complexPoly.js';
+import { add, derivative, mul, scale, type CPoly } from './complexPoly.js';
 
 /** The separated mode of one radial equation. */
 export interface RadialMode {
@@ -65,29 +65,66 @@ export interface RadialEquation {
   substituted: CPoly | null;
 }
 
-/** The radial equation of `mode` on `hole`, expanded in powers of r − center (default: powers of r). */
+/** The product of two real coefficient lists, summed in the order `mul` of complexPoly.ts sums (the same doubles). */
+function realMul(p: readonly number[], q: readonly number[]): number[] {
+  const out = new Array<number>(p.length + q.length - 1).fill(0);
+  for (let i = 0; i < p.length; i++) for (let j = 0; j < q.length; j++) out[i + j] += p[i] * q[j];
+  return out;
+}
+
+/** A complex polynomial from coefficient lists. */
+function fromLists(re: readonly number[], im?: readonly number[]): CPoly {
+  const out = { re: new Float64Array(re.length), im: new Float64Array(re.length) };
+  out.re.set(re);
+  if (im) out.im.set(im);
+  return out;
+}
+
+/**
+ * The radial equation of `mode` on `hole`, expanded in powers of r − center
+ * (default: powers of r). Every coefficient but U is real, so they are built
+ * on plain real lists and U's real and imaginary parts apart, in the order of
+ * operations of the complex-polynomial form
+ *   U = K·K + (−is)·(Δ'·K) + Δ·(−λ + 4isω r − μ² r²)
+ * (the same doubles; measured 4–5× faster, a few % of a greybody factor).
+ */
 export function radialEquation(hole: KerrHole, mode: RadialMode, center = 0): RadialEquation {
   const { s, omega, lambda } = mode;
   const a = hole.a;
-  const r = cpoly([center, 1]);
-  const delta = mul(cpoly([center - hole.rPlus, 1]), cpoly([center - hole.rMinus, 1]));
-  const dDelta = derivative(delta);
-  const varpi = add(mul(r, r), cpoly([a * a]));
-  const K = add(scale(varpi, omega), cpoly([-a * mode.m]));
+  const c = center;
+  const r = [c, 1];
+  const delta = realMul([c - hole.rPlus, 1], [c - hole.rMinus, 1]);
+  const dDelta = [delta[1], 2 * delta[2]];
+  const rr = realMul(r, r);
+  const varpi = [rr[0] + a * a, rr[1], rr[2]];
+  const K = [varpi[0] * omega + -a * mode.m, varpi[1] * omega, varpi[2] * omega];
   const mu = fieldMassOf(mode);
-  // −λ + 4isωr, and −μ²r² for a massive scalar (kept out of the polynomial when μ = 0, so massless is unchanged bit for bit)
-  const inner = add(cpoly([-lambda]), scale(r, 0, 4 * s * omega));
-  const U = add(mul(K, K), scale(mul(dDelta, K), 0, -s), mul(delta, mu === 0 ? inner : add(inner, scale(mul(r, r), -mu * mu))));
+  // −λ + 4isωr, and −μ²r² for a massive scalar (kept out when μ = 0, so massless is unchanged bit for bit)
+  const si = 4 * s * omega;
+  const innerRe = mu === 0 ? [-lambda, 0] : [-lambda + rr[0] * (-mu * mu), rr[1] * (-mu * mu), rr[2] * (-mu * mu)];
+  const innerIm = mu === 0 ? [c * si, si] : [c * si, si, 0];
+  const KK = realMul(K, K);
+  const dK = realMul(dDelta, K);
+  const dIRe = realMul(delta, innerRe);
+  const dIIm = realMul(delta, innerIm);
+  const n = Math.max(KK.length, dIRe.length);
+  const uRe = new Array<number>(n).fill(0),
+    uIm = new Array<number>(n).fill(0);
+  for (let i = 0; i < n; i++) {
+    uRe[i] = (KK[i] ?? 0) + (dIRe[i] ?? 0);
+    uIm[i] = (i < dK.length ? dK[i] * -s : 0) + (dIIm[i] ?? 0);
+  }
+  const dd = realMul(delta, dDelta);
   return {
     center,
     s,
-    A: mul(delta, delta),
-    B: scale(mul(delta, dDelta), s + 1),
-    C: U,
-    delta,
-    dDelta,
-    K,
-    varpi,
+    A: fromLists(realMul(delta, delta)),
+    B: fromLists(dd.map((x) => x * (s + 1))),
+    C: fromLists(uRe, uIm),
+    delta: fromLists(delta),
+    dDelta: fromLists(dDelta),
+    K: fromLists(K),
+    varpi: fromLists(varpi),
     substituted: null,
   };
 }

@@ -20,7 +20,7 @@
 import type { KerrHole } from '@penumbra/kerr';
 import { tortoiseFromHorizonDistance } from '@penumbra/kerr';
 import { add, cpoly, cpolyAt, padTo, scale, type CPoly } from './complexPoly.js';
-import { fieldMassOf, radialEquation, substitutePhase, type RadialMode } from './equation.js';
+import { fieldMassOf, radialEquation, substitutePhase, type RadialEquation, type RadialMode } from './equation.js';
 
 /** Coefficients of one far-zone series, R = e^{iσωr*} r^p Σ c_n r^{−n}. */
 export interface FarSeries {
@@ -40,6 +40,20 @@ export interface FarSeries {
   beta: number;
   /** Δ in powers of r */
   delta: CPoly;
+  /** most terms the series may use (cRe and cIm are extended on demand up to it) */
+  maxTerms: number;
+  /** the recurrence that extends cRe and cIm (null once they hold maxTerms terms) */
+  recurrence: FarRecurrence | null;
+}
+
+/** The coefficients of the recurrence for c_n (powers of r, padded to 5). */
+export interface FarRecurrence {
+  /** Δ² */
+  A: CPoly;
+  /** the coefficient of g' */
+  B: CPoly;
+  /** the coefficient of g */
+  Q: CPoly;
 }
 
 /** A far-zone series summed at one radius. */
@@ -57,24 +71,85 @@ export interface FarValue {
 }
 
 // The same mode is solved at two tolerances (and on both legs of the
-// two-sided route), so recently built series are reused.
-const cache = new Map<string, FarSeries>();
+// two-sided route), so recently built series are reused; entries are compared
+// field by field (a string key was measured to cost more than building one
+// series term).
+interface CacheEntry {
+  mass: number;
+  a: number;
+  s: number;
+  m: number;
+  omega: number;
+  lambda: number;
+  mu: number;
+  sigma: 1 | -1;
+  maxTerms: number;
+  series: FarSeries;
+}
+const cache: CacheEntry[] = [];
 const CACHE_SIZE = 64;
 
 /** Coefficients c_n (n < maxTerms) of the series with σ = ±1. */
 export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerms = 120): FarSeries {
-  const key = `${hole.mass},${hole.a},${mode.s},${mode.m},${mode.omega},${mode.lambda},${fieldMassOf(mode)},${sigma},${maxTerms}`;
-  const hit = cache.get(key);
-  if (hit) return hit;
+  const mu = fieldMassOf(mode);
+  for (let i = cache.length - 1; i >= 0; i--) {
+    const e = cache[i];
+    if (
+      e.sigma === sigma &&
+      e.omega === mode.omega &&
+      e.lambda === mode.lambda &&
+      e.a === hole.a &&
+      e.mass === hole.mass &&
+      e.s === mode.s &&
+      e.m === mode.m &&
+      e.mu === mu &&
+      e.maxTerms === maxTerms
+    )
+      return e.series;
+  }
   const series = buildFarSeries(hole, mode, sigma, maxTerms);
-  if (cache.size >= CACHE_SIZE) cache.delete(cache.keys().next().value as string);
-  cache.set(key, series);
+  if (cache.length >= CACHE_SIZE) cache.shift();
+  cache.push({
+    mass: hole.mass,
+    a: hole.a,
+    s: mode.s,
+    m: mode.m,
+    omega: mode.omega,
+    lambda: mode.lambda,
+    mu,
+    sigma,
+    maxTerms,
+    series,
+  });
   return series;
+}
+
+// The two series of one mode share the equation (the last one built is kept).
+let lastEquation: { hole: KerrHole; mode: RadialMode; eq: RadialEquation } | null = null;
+
+function equationOf(hole: KerrHole, mode: RadialMode): RadialEquation {
+  const last = lastEquation;
+  if (
+    last !== null &&
+    last.hole.a === hole.a &&
+    last.hole.mass === hole.mass &&
+    last.hole.rPlus === hole.rPlus &&
+    last.hole.rMinus === hole.rMinus &&
+    last.mode.s === mode.s &&
+    last.mode.m === mode.m &&
+    last.mode.omega === mode.omega &&
+    last.mode.lambda === mode.lambda &&
+    fieldMassOf(last.mode) === fieldMassOf(mode)
+  )
+    return last.eq;
+  const eq = radialEquation(hole, mode);
+  lastEquation = { hole: { ...hole }, mode: { ...mode }, eq };
+  return eq;
 }
 
 function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerms: number): FarSeries {
   // Δ² g'' + Δ[2iσωϖ + (s+1)Δ'] g' + Q_σ g = 0 in powers of r; the r⁴ terms of Q_σ cancel exactly.
-  const eq = radialEquation(hole, mode);
+  const eq = equationOf(hole, mode);
   const { kInf, beta } = farWavenumber(hole, mode);
   const W = beta === 0 ? scale(eq.varpi, sigma * kInf) : add(scale(eq.varpi, sigma * kInf), cpoly([0, sigma * beta]));
   const far = substitutePhase(eq, W);
@@ -88,9 +163,19 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
     c3i = Q.im[3];
   const bb = b4r * b4r + b4i * b4i;
   const p = -(c3r * b4r + c3i * b4i) / bb; // real by construction
-  const cRe = [1],
-    cIm = [0];
-  for (let N = 1; N < maxTerms; N++) {
+  // The c_n are made as the sums need them (most matching radii use a few dozen of the maxTerms).
+  return { sigma, p, cRe: [1], cIm: [0], W, delta: eq.delta, kInf, beta, maxTerms, recurrence: { A, B, Q } };
+}
+
+/** Extend the coefficients of `series` to at least `n` terms (at most maxTerms), by the recurrence. */
+export function extendFarSeries(series: FarSeries, n: number): void {
+  const { cRe, cIm, p, recurrence } = series;
+  if (recurrence === null) return;
+  const { A, B, Q } = recurrence;
+  const b4r = B.re[4],
+    b4i = B.im[4];
+  const end = Math.min(n, series.maxTerms);
+  for (let N = cRe.length; N < end; N++) {
     let rr = 0,
       ri = 0;
     for (let j = 0; j <= 4; j++) {
@@ -120,7 +205,7 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
     cRe.push((rr * dr + ri * di) / den);
     cIm.push((ri * dr - rr * di) / den);
   }
-  return { sigma, p, cRe, cIm, W, delta: eq.delta, kInf, beta };
+  if (cRe.length >= series.maxTerms) series.recurrence = null;
 }
 
 /**
@@ -143,9 +228,23 @@ export function longRangeLog(hole: KerrHole, r: number): number {
   return Math.log(r - hole.rPlus) + (hole.rMinus / b) * Math.log1p(-b / (r - hole.rMinus));
 }
 
-/** Evaluate R and R' of a far-zone series solution at radius r. */
-export function evaluateFar(hole: KerrHole, _mode: RadialMode, series: FarSeries, r: number): FarValue {
-  const { cRe, cIm, p, sigma, kInf, beta } = series;
+/** The sums of a far-zone series at one radius, before the phase and power factors: S = Σ c_n r^{−n}, T = Σ (p − n) c_n r^{−n}. */
+export interface FarSums {
+  /** S as [re, im] */
+  S: [number, number];
+  /** T as [re, im] */
+  T: [number, number];
+  /** terms summed */
+  terms: number;
+  /** magnitude of the last term kept relative to the sum */
+  truncation: number;
+  /** whether three successive terms fell below 1e-17 of the sum before the terms turned upward */
+  converged: boolean;
+}
+
+/** Sum a far-zone series at radius r (no phase yet): cheap, so a search for the matching radius tries radii with it. */
+export function sumFar(series: FarSeries, r: number, target = 1e-17): FarSums {
+  const { cRe, cIm, p } = series;
   const inv = 1 / r;
   let sRe = 0,
     sIm = 0,
@@ -158,13 +257,14 @@ export function evaluateFar(hole: KerrHole, _mode: RadialMode, series: FarSeries
   let converged = false;
   let prev1 = Infinity,
     prev2 = Infinity;
-  for (let n = 0; n < cRe.length; n++) {
+  for (let n = 0; n < series.maxTerms; n++) {
+    if (n >= cRe.length) extendFarSeries(series, n + 8);
     const termRe = cRe[n] * pw,
       termIm = cIm[n] * pw;
     const mag = Math.hypot(termRe, termIm);
     // Divergence has set in after two successive increases (a single uptick
     // can follow a coefficient that vanishes by accident).
-    if (n > 3 && mag > prev1 && prev1 > prev2 && mag > 1e-17 * Math.hypot(sRe, sIm)) break;
+    if (n > 3 && mag > prev1 && prev1 > prev2 && mag > target * Math.hypot(sRe, sIm)) break;
     prev2 = prev1;
     prev1 = mag;
     sRe += termRe;
@@ -173,7 +273,7 @@ export function evaluateFar(hole: KerrHole, _mode: RadialMode, series: FarSeries
     tIm += (p - n) * termIm;
     terms = n + 1;
     truncation = mag / Math.hypot(sRe, sIm);
-    if (truncation < 1e-17) {
+    if (truncation < target) {
       if (++small >= 3) {
         converged = true;
         break;
@@ -181,6 +281,15 @@ export function evaluateFar(hole: KerrHole, _mode: RadialMode, series: FarSeries
     } else small = 0;
     pw *= inv;
   }
+  return { S: [sRe, sIm], T: [tRe, tIm], terms, truncation, converged };
+}
+
+/** R and R' of a far-zone series solution at radius r from its sums there (`sumFar`). */
+export function farValue(hole: KerrHole, series: FarSeries, r: number, sums: FarSums): FarValue {
+  const { p, sigma, kInf, beta } = series;
+  const [sRe, sIm] = sums.S;
+  const [tRe, tIm] = sums.T;
+  const inv = 1 / r;
   const rs = tortoiseFromHorizonDistance(hole, r - hole.rPlus);
   const rp = Math.pow(r, p);
   const ph = beta === 0 ? sigma * kInf * rs : sigma * (kInf * rs + beta * longRangeLog(hole, r));
@@ -192,5 +301,10 @@ export function evaluateFar(hole: KerrHole, _mode: RadialMode, series: FarSeries
   const gpRe = tRe * inv - w * sIm;
   const gpIm = tIm * inv + w * sRe;
   const dR: [number, number] = [eRe * gpRe - eIm * gpIm, eRe * gpIm + eIm * gpRe];
-  return { R, dR, terms, truncation, converged };
+  return { R, dR, terms: sums.terms, truncation: sums.truncation, converged: sums.converged };
+}
+
+/** Evaluate R and R' of a far-zone series solution at radius r. */
+export function evaluateFar(hole: KerrHole, _mode: RadialMode, series: FarSeries, r: number): FarValue {
+  return farValue(hole, series, r, sumFar(series, r));
 }

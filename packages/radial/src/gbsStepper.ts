@@ -97,6 +97,8 @@ class GbsLoop implements Stepper {
   kc = 0;
   reject = false;
   atov = false;
+  /** sum of the accepted steps' error estimates err (relative to tol) in this advance */
+  errSum = 0;
 
   constructor(
     readonly tol: number,
@@ -360,10 +362,11 @@ class GbsLoop implements Stepper {
     this.reject = false;
     this.atov = false;
     this.kc = 0;
+    this.errSum = 0;
     let hLast = h0;
     let nStep = 0;
     // The state at the start is reported first, as ODEX's first output call does.
-    if (Math.abs(y[0]) + Math.abs(y[1]) > overflow) return { r: x0, steps: 0, h: hLast };
+    if (Math.abs(y[0]) + Math.abs(y[1]) > overflow) return { r: x0, steps: 0, h: hLast, errorSum: 0 };
     const hoptde = posneg * hMax;
     let last = false;
     let stopped = false;
@@ -448,6 +451,8 @@ class GbsLoop implements Stepper {
           continue;
         }
         case ACCEPT: {
+          // the accepted column's estimate: ‖T_kk − T_k,k−1‖ / (tol |y|), the error of the lower-order value
+          this.errSum += this.err;
           const xOld = this.x;
           this.x += this.h;
           for (let i = 0; i < N; i++) y[i] = t[N + i];
@@ -472,7 +477,7 @@ class GbsLoop implements Stepper {
       }
     }
     for (let i = 0; i < N; i++) state[i] = y[i];
-    return { r: stopped ? this.x : xEnd, steps: nStep, h: hLast };
+    return { r: stopped ? this.x : xEnd, steps: nStep, h: hLast, errorSum: this.errSum };
   }
 }
 

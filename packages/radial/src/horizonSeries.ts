@@ -69,14 +69,21 @@ export function horizonSeriesStart(
   // d_0: |d_0| = b^{−s}; phase from the additive constant of r*.
   const phaseConst = rPlus - cPlus * Math.log(2 * M) - cMinus * Math.log(b / (2 * M));
   const mag0 = Math.pow(b, -s);
-  const dRe: number[] = [mag0 * Math.cos(-k * phaseConst)];
-  const dIm: number[] = [mag0 * Math.sin(-k * phaseConst)];
+  // The recurrence reaches back four terms: d_{n−1} … d_{n−4} are kept in locals (no array grows per term).
+  let d1Re = mag0 * Math.cos(-k * phaseConst),
+    d1Im = mag0 * Math.sin(-k * phaseConst);
+  let d2Re = 0,
+    d2Im = 0,
+    d3Re = 0,
+    d3Im = 0,
+    d4Re = 0,
+    d4Im = 0;
 
   // Partial sums S = Σ d_n x0^n and S' = Σ (n + ν) d_n x0^n.
-  let sRe = dRe[0],
-    sIm = dIm[0];
-  let tRe = nuRe * dRe[0] - nuIm * dIm[0];
-  let tIm = nuRe * dIm[0] + nuIm * dRe[0];
+  let sRe = d1Re,
+    sIm = d1Im;
+  let tRe = nuRe * d1Re - nuIm * d1Im;
+  let tIm = nuRe * d1Im + nuIm * d1Re;
   let pw = 1;
   let small = 0;
   let n = 1;
@@ -95,8 +102,8 @@ export function horizonSeriesStart(
       const pi = mr * mi + mi * (mr - 1);
       const cr = A3 * pr + B2 * mr + Cre[1];
       const ci = A3 * pi + B2 * mi + Cim[1];
-      numRe += cr * dRe[n - 1] - ci * dIm[n - 1];
-      numIm += cr * dIm[n - 1] + ci * dRe[n - 1];
+      numRe += cr * d1Re - ci * d1Im;
+      numIm += cr * d1Im + ci * d1Re;
     }
     if (n >= 2) {
       const mr = n - 2 + nuRe,
@@ -105,16 +112,16 @@ export function horizonSeriesStart(
       const pi = mr * mi + mi * (mr - 1);
       const cr = A4 * pr + B3 * mr + Cre[2];
       const ci = A4 * pi + B3 * mi + Cim[2];
-      numRe += cr * dRe[n - 2] - ci * dIm[n - 2];
-      numIm += cr * dIm[n - 2] + ci * dRe[n - 2];
+      numRe += cr * d2Re - ci * d2Im;
+      numIm += cr * d2Im + ci * d2Re;
     }
     if (n >= 3) {
-      numRe += Cre[3] * dRe[n - 3] - Cim[3] * dIm[n - 3];
-      numIm += Cre[3] * dIm[n - 3] + Cim[3] * dRe[n - 3];
+      numRe += Cre[3] * d3Re - Cim[3] * d3Im;
+      numIm += Cre[3] * d3Im + Cim[3] * d3Re;
     }
     if (n >= 4) {
-      numRe += Cre[4] * dRe[n - 4] - Cim[4] * dIm[n - 4];
-      numIm += Cre[4] * dIm[n - 4] + Cim[4] * dRe[n - 4];
+      numRe += Cre[4] * d4Re - Cim[4] * d4Im;
+      numIm += Cre[4] * d4Im + Cim[4] * d4Re;
     }
     // F(n + ν) = A2 μ(μ−1) + B1 μ + C0, μ = n + ν
     const mr = n + nuRe,
@@ -125,8 +132,14 @@ export function horizonSeriesStart(
     // d_n = −num / F
     const dnRe = -(numRe * fr + numIm * fi) / den;
     const dnIm = -(numIm * fr - numRe * fi) / den;
-    dRe.push(dnRe);
-    dIm.push(dnIm);
+    d4Re = d3Re;
+    d4Im = d3Im;
+    d3Re = d2Re;
+    d3Im = d2Im;
+    d2Re = d1Re;
+    d2Im = d1Im;
+    d1Re = dnRe;
+    d1Im = dnIm;
     pw *= x0;
     const termRe = dnRe * pw,
       termIm = dnIm * pw;

@@ -74,7 +74,11 @@ export function riccatiWorthIt(e: RiccatiEquation, xa: number, xb: number): bool
  */
 export const RICCATI_STEP_CHARGE = 10;
 
-/** A leg's segment with its Riccati steps counted apart. */
+/**
+ * A leg's segment with its Riccati steps counted apart; its `errorSum`
+ * charges each Riccati step RICCATI_STEP_CHARGE (a step is accepted with up
+ * to 0.3 tol from each of four sources, see above).
+ */
 export interface HybridSegment extends Segment {
   /** Riccati steps taken (included in `steps`) */
   riccatiSteps: number;
@@ -86,7 +90,9 @@ export function chargedSteps(seg: HybridSegment): number {
 }
 
 function plain(seg: Segment): HybridSegment {
-  return { ...seg, riccatiSteps: 0 };
+  const out = seg as HybridSegment;
+  out.riccatiSteps = 0;
+  return out;
 }
 
 /** Integrate one leg, by Riccati steps where they apply (see above) or entirely by `integrateLeg` ('ode'). */
@@ -120,6 +126,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   const y = leg.y;
   let logScale = leg.logScale ?? 0;
   let steps = 0,
+    errorSum = 0,
     riccatiSteps = 0,
     rescalings = 0;
   const samples: RadialSample[] = [];
@@ -135,6 +142,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       maxSteps: Math.max(leg.maxSteps - steps, 1),
     });
     steps += seg.steps;
+    errorSum += seg.errorSum;
     rescalings += seg.rescalings;
     logScale = seg.logScale;
     samples.push(...seg.samples);
@@ -161,6 +169,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       return;
     }
     steps++;
+    errorSum += RICCATI_STEP_CHARGE;
     riccatiSteps++;
     logScale += scale[0];
     if (Math.abs(y[0]) + Math.abs(y[1]) > OVERFLOW) {
@@ -171,7 +180,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     if (leg.stops.includes(to.r)) {
       const f = Math.exp(logScale);
       samples.push({ r: to.r, R: { re: y[0] * f, im: y[1] * f }, dR: { re: y[2] * f, im: y[3] * f } });
-      raw.push({ r: to.r, y: Array.from(y), logScale });
+      raw.push({ r: to.r, y: [y[0], y[1], y[2], y[3]], logScale });
     }
   };
   let i = 0;
@@ -186,5 +195,5 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     byRiccati(ladder[i], ladder[i + 1], rates[i], rates[i + 1], 0);
     i++;
   }
-  return { logScale, steps, rescalings, samples, raw, riccatiSteps };
+  return { logScale, steps, errorSum, rescalings, samples, raw, riccatiSteps };
 }

@@ -42,6 +42,12 @@ export interface AdvanceResult {
   steps: number;
   /** suggested next step */
   h: number;
+  /**
+   * sum over the accepted steps of the integrator's own local error estimate
+   * relative to tol (each at most 1); absent where the integrator does not
+   * report it ('odex', 'cash-karp'), and the caller then counts 1 per step
+   */
+  errorSum?: number;
 }
 
 /** One integrator bound to one right-hand side and tolerance. */

@@ -10,7 +10,7 @@ export { type Rhs, type EvaluationCounter, type EquationKernel, equationRhs, equ
 export { type AdvanceResult, type Stepper, type StepperSpec, makeStepper } from './integrators.js';
 export { type HorizonStart, horizonSeriesStart, horizonWavenumber } from './horizonSeries.js';
 export { defaultStartFraction, startAtHorizon } from './horizonStart.js';
-export { type FarSeries, type FarValue, farSeries, evaluateFar } from './farSeries.js';
+export { type FarSeries, type FarValue, type FarRecurrence, farSeries, evaluateFar } from './farSeries.js';
 export { type FarMatch, type MatchedAmplitudes, chooseMatch, matchAmplitudes } from './farMatch.js';
 export { type StarobinskyMap, starobinskyMapAt, applyStarobinskyMap, starobinskyHorizonFactor } from './starobinskyMap.js';
 export { phaseEquation, convertPhase } from './phaseVariable.js';

@@ -84,7 +84,11 @@ export function equationKernel(eq: RadialEquation, counter: EvaluationCounter, o
  * expressions inline from `equationKernel`.
  */
 export function equationRhs(eq: RadialEquation, counter: EvaluationCounter, origin = 0): Rhs {
-  const { k, c, complexB } = equationKernel(eq, counter, origin);
+  return kernelRhs(equationKernel(eq, counter, origin));
+}
+
+/** The right-hand side `equationRhs` makes, from a kernel already built (the same doubles). */
+export function kernelRhs({ k, c, complexB, counter }: EquationKernel): Rhs {
   if (!complexB) {
     return (dy, y, r) => {
       counter.evaluations++;

@@ -80,8 +80,12 @@ function shifted(p: Float64Array, shift: number, length: number): Float64Array {
 /** The coefficients of an unsubstituted (or substituted) radial equation about r+, for Riccati steps in x = r − r+. */
 export function riccatiEquation(eq: RadialEquation, rPlus: number): RiccatiEquation {
   const shift = rPlus - eq.center;
-  const take = (p: Float64Array, n: number) =>
-    shift === 0 ? Float64Array.from({ length: n }, (_, i) => p[i] ?? 0) : shifted(p, shift, n);
+  const take = (p: Float64Array, n: number) => {
+    if (shift !== 0) return shifted(p, shift, n);
+    const out = new Float64Array(n);
+    out.set(p.length > n ? p.subarray(0, n) : p);
+    return out;
+  };
   return {
     delta: take(eq.delta.re, 3),
     bRe: take(eq.B.re, 5),

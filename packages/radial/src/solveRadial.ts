@@ -10,7 +10,7 @@
 import { InputError } from '@penumbra/core';
 import type { KerrHole } from '@penumbra/kerr';
 import { singleSolveErrorEstimate, singleSolveMessage } from './diagnostics.js';
-import { chooseMatch, matchAmplitudes } from './farMatch.js';
+import { chooseMatch, farTarget, matchAmplitudes } from './farMatch.js';
 import { horizonWavenumber } from './horizonSeries.js';
 import { startAtHorizon } from './horizonStart.js';
 import { radialEquation } from './equation.js';
@@ -47,7 +47,7 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
   const method = `teukolsky-shooting/frobenius-start/asymptotic-match/${opts.integrator}`;
   const equation = radialEquation(hole, mode, hole.rPlus);
   const start = startAtHorizon(hole, mode, equation, opts.startFraction);
-  const match = chooseMatch(hole, mode, opts.matchRadius);
+  const match = chooseMatch(hole, mode, opts.matchRadius, farTarget(opts.tol));
   const r0 = hole.rPlus + start.x0;
   if (!(match.r > r0)) throw new InputError('matchRadius', `> start radius ${r0}`, match.r);
   const counter = { evaluations: 0 };
@@ -105,6 +105,8 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
       farTruncation,
       rescalings: seg.rescalings,
       amplification,
+      localErrorSum: seg.errorSum,
+      riccatiSteps: seg.riccatiSteps,
     },
   };
 }

@@ -10,7 +10,7 @@ import { InputError } from '@penumbra/core';
 import type { KerrHole } from '@penumbra/kerr';
 import { singleSolveErrorEstimate, singleSolveMessage } from './diagnostics.js';
 import { radialEquation, type RadialEquation, type RadialMode } from './equation.js';
-import { chooseMatch, matchAmplitudes } from './farMatch.js';
+import { chooseMatch, farTarget, matchAmplitudes } from './farMatch.js';
 import { horizonSeriesStart, horizonWavenumber } from './horizonSeries.js';
 import { startAtHorizon } from './horizonStart.js';
 import { resolveTwoSidedOptions, type TwoSidedOptions } from './options.js';
@@ -49,8 +49,9 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   const minusEquation = radialEquation(hole, minus, hole.rPlus);
   const start = startAtHorizon(hole, minus, minusEquation, opts.startFraction);
   const r0 = hole.rPlus + start.x0;
-  const matchMinus = chooseMatch(hole, minus, opts.matchRadius);
-  const matchPlus = chooseMatch(hole, plus, opts.matchRadius);
+  // The −s field is matched only for Y_out (the reflection).
+  const matchMinus = opts.reflection ? chooseMatch(hole, minus, opts.matchRadius, farTarget(opts.tol)) : null;
+  const matchPlus = chooseMatch(hole, plus, opts.matchRadius, farTarget(opts.tol));
   const rSwitch = opts.switchRadius ?? defaultSwitchRadius(hole, r0, matchPlus.r);
   if (!(rSwitch > r0 && rSwitch < matchPlus.r)) {
     throw new InputError('switchRadius', `between the start ${r0} and the matching radius ${matchPlus.r}`, rSwitch);
@@ -95,12 +96,10 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   // −s leg: horizon → switching radius (→ far zone for Y_out).
   const y = new Float64Array([start.R[0], start.R[1], start.dR[0], start.dR[1]]);
   const segMinus = integrateHybridLeg(
-    leg(minus, minusEquation, y, r0, opts.reflection ? matchMinus.r : rSwitch, [...inner, rSwitch], 0, start.x0),
+    leg(minus, minusEquation, y, r0, matchMinus ? matchMinus.r : rSwitch, [...inner, rSwitch], 0, start.x0),
     opts.oscillation,
   );
-  const minusAmps = opts.reflection
-    ? matchAmplitudes(y, matchMinus.vin, matchMinus.vout)
-    : { zIn: NO_AMPLITUDE, zOut: NO_AMPLITUDE };
+  const minusAmps = matchMinus ? matchAmplitudes(y, matchMinus.vin, matchMinus.vout) : { zIn: NO_AMPLITUDE, zOut: NO_AMPLITUDE };
 
   // Map (R, R') of the −s field to the +s field at the switching radius, then the +s leg to the far zone.
   const atSwitch = segMinus.raw[segMinus.raw.length - 1];
@@ -140,7 +139,7 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   for (const smp of segPlus.raw) samples.push(plusSample(smp.r, smp.y, smp.logScale));
 
   const horizonTruncation = start.truncation;
-  const farTruncation = Math.max(matchMinus.vout.truncation, matchPlus.vin.truncation);
+  const farTruncation = Math.max(matchMinus ? matchMinus.vout.truncation : 0, matchPlus.vin.truncation);
   const steps = segMinus.steps + segPlus.steps;
   const errorEstimate = singleSolveErrorEstimate({
     steps: chargedSteps(segMinus) + chargedSteps(segPlus),
@@ -166,13 +165,19 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
       integrator: opts.integrator,
       tol: opts.tol,
       startRadius: r0,
-      matchRadius: Math.max(matchMinus.r, matchPlus.r),
+      matchRadius: matchMinus ? Math.max(matchMinus.r, matchPlus.r) : matchPlus.r,
       horizonTerms: start.terms,
       horizonTruncation,
-      farTerms: Math.max(matchMinus.vin.terms, matchMinus.vout.terms, matchPlus.vin.terms, matchPlus.vout.terms),
+      farTerms: Math.max(
+        matchMinus ? Math.max(matchMinus.vin.terms, matchMinus.vout.terms) : 0,
+        matchPlus.vin.terms,
+        matchPlus.vout.terms,
+      ),
       farTruncation,
       rescalings: segMinus.rescalings + segPlus.rescalings,
       amplification: 1,
+      localErrorSum: segMinus.errorSum + segPlus.errorSum,
+      riccatiSteps: segMinus.riccatiSteps + segPlus.riccatiSteps,
     },
   };
 }

@@ -35,18 +35,6 @@ function negate(a: Series): Series {
   return { re: a.re.map((x) => -x), im: a.im.map((x) => -x) };
 }
 
-function mul(a: Series, b: Series, n: number): Series {
-  const re = new Array<number>(n).fill(0),
-    im = new Array<number>(n).fill(0);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; i + j < n; j++) {
-      re[i + j] += a.re[i] * b.re[j] - a.im[i] * b.im[j];
-      im[i + j] += a.re[i] * b.im[j] + a.im[i] * b.re[j];
-    }
-  }
-  return { re, im };
-}
-
 /** a / b for a series b with b_0 ≠ 0. */
 function div(a: Series, b: Series, n: number): Series {
   const re = new Array<number>(n).fill(0),
@@ -63,38 +51,6 @@ function div(a: Series, b: Series, n: number): Series {
     im[k] = (xi * b.re[0] - xr * b.im[0]) / d;
   }
   return { re, im };
-}
-
-function deriv(a: Series): Series {
-  const n = a.re.length - 1;
-  const re = new Array<number>(n),
-    im = new Array<number>(n);
-  for (let i = 0; i < n; i++) {
-    re[i] = (i + 1) * a.re[i + 1];
-    im[i] = (i + 1) * a.im[i + 1];
-  }
-  return { re, im };
-}
-
-function trunc(a: Series, n: number): Series {
-  return { re: a.re.slice(0, n), im: a.im.slice(0, n) };
-}
-
-function add(...xs: Series[]): Series {
-  const n = xs[0].re.length;
-  const re = new Array<number>(n).fill(0),
-    im = new Array<number>(n).fill(0);
-  for (const x of xs)
-    for (let i = 0; i < n; i++) {
-      re[i] += x.re[i];
-      im[i] += x.im[i];
-    }
-  return { re, im };
-}
-
-/** Multiply by −i. */
-function timesMinusI(a: Series): Series {
-  return { re: a.im.slice(), im: a.re.map((x) => -x) };
 }
 
 /** R_{+s} = a0 R + b0 R',  R'_{+s} = a1 R + b1 R' (complex, [re, im]). */
@@ -123,22 +79,55 @@ export function starobinskyMapAt(hole: KerrHole, minus: RadialMode, r: number): 
   const A = fromPoly(eq.A, n);
   const P = div(negate(fromPoly(eq.B, n)), A, n);
   const Q = div(negate(fromPoly(eq.C, n)), A, n);
-  let alpha: Series = { re: [1, ...new Array<number>(n - 1).fill(0)], im: new Array<number>(n).fill(0) };
-  let beta: Series = { re: new Array<number>(n).fill(0), im: new Array<number>(n).fill(0) };
+  // α ← α' + βQ − iWα, β ← α + β' + βP − iWβ, each pass one order shorter; the sums run in the order of the
+  // series helpers above (the same doubles), on arrays made once per call instead of a dozen per pass.
+  let aRe = new Array<number>(n).fill(0),
+    aIm = new Array<number>(n).fill(0),
+    bRe = new Array<number>(n).fill(0),
+    bIm = new Array<number>(n).fill(0);
+  aRe[0] = 1;
+  let naRe = new Array<number>(n).fill(0),
+    naIm = new Array<number>(n).fill(0),
+    nbRe = new Array<number>(n).fill(0),
+    nbIm = new Array<number>(n).fill(0);
+  let size = n;
   for (let j = 0; j < twoS; j++) {
-    const len = alpha.re.length - 1;
-    const ad = deriv(alpha),
-      bd = deriv(beta);
-    const a = trunc(alpha, len),
-      b = trunc(beta, len);
-    const Wt = trunc(W, len),
-      Pt = trunc(P, len),
-      Qt = trunc(Q, len);
-    const nextAlpha = add(ad, mul(b, Qt, len), timesMinusI(mul(Wt, a, len)));
-    const nextBeta = add(a, bd, mul(b, Pt, len), timesMinusI(mul(Wt, b, len)));
-    alpha = nextAlpha;
-    beta = nextBeta;
+    const len = size - 1;
+    for (let k = 0; k < len; k++) {
+      // products truncated at len: bQ, Wα (for α) and bP, Wβ (for β), summed over i + m = k in the order of `mul`
+      let bqR = 0,
+        bqI = 0,
+        waR = 0,
+        waI = 0,
+        bpR = 0,
+        bpI = 0,
+        wbR = 0,
+        wbI = 0;
+      for (let i = 0; i <= k; i++) {
+        const m = k - i;
+        bqR += bRe[i] * Q.re[m] - bIm[i] * Q.im[m];
+        bqI += bRe[i] * Q.im[m] + bIm[i] * Q.re[m];
+        waR += W.re[i] * aRe[m] - W.im[i] * aIm[m];
+        waI += W.re[i] * aIm[m] + W.im[i] * aRe[m];
+        bpR += bRe[i] * P.re[m] - bIm[i] * P.im[m];
+        bpI += bRe[i] * P.im[m] + bIm[i] * P.re[m];
+        wbR += W.re[i] * bRe[m] - W.im[i] * bIm[m];
+        wbI += W.re[i] * bIm[m] + W.im[i] * bRe[m];
+      }
+      // α' + βQ + (−i)(Wα): (−i)(x + iy) = y − ix
+      naRe[k] = 0 + (k + 1) * aRe[k + 1] + bqR + waI;
+      naIm[k] = 0 + (k + 1) * aIm[k + 1] + bqI + -waR;
+      nbRe[k] = 0 + aRe[k] + (k + 1) * bRe[k + 1] + bpR + wbI;
+      nbIm[k] = 0 + aIm[k] + (k + 1) * bIm[k + 1] + bpI + -wbR;
+    }
+    [aRe, naRe] = [naRe, aRe];
+    [aIm, naIm] = [naIm, aIm];
+    [bRe, nbRe] = [nbRe, bRe];
+    [bIm, nbIm] = [nbIm, bIm];
+    size = len;
   }
+  const alpha: Series = { re: aRe, im: aIm };
+  const beta: Series = { re: bRe, im: bIm };
   // alpha, beta now carry two coefficients: values and first derivatives at r.
   const P0: [number, number] = [P.re[0], P.im[0]];
   const Q0: [number, number] = [Q.re[0], Q.im[0]];

@@ -1,0 +1,173 @@
+// Cost of one greybody factor against its floor (issue 14): Γ alone with its
+// error estimate (reflection: false) at the default tol 1e-8 over N random Kerr
+// modes (s ∈ {0, 1/2, 1, 2}, l ≤ 6, all m, 0.01 ≤ Mω ≤ 3 log-uniform, a
+// uniform in [0, 0.9999]), CPU time per call (process.cpuUsage, so preemption
+// on the shared machine does not count) and RHS evaluations; the share of
+// modes whose estimate needed the check solve (diagnostics.checkEvaluations > 0
+// where the build reports it; an older build can be made to report it by
+// adding `checkEvaluations: extraEvaluations` to its greybody diagnostics).
+//
+// With a second build given (BASE=/path/to/another/checkout, built), both are
+// run interleaved mode by mode (order alternating), and per-mode ratios are
+// printed: on a loaded shared machine ratios of interleaved runs are the
+// figures to read.
+// --grid instead runs the tail grid (tailGrid below; least CPU time of three
+// runs per mode) and prints the worst mode's cost.
+// Run: npx tsc -b && node bench/floor.bench.mjs [N] [--reflection] [--tol=1e-8] [--grid] [--reps=R]
+import os from 'node:os';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { writeFileSync } from 'node:fs';
+import { benchDir, fmt } from './lib.mjs';
+
+const N = Number(process.argv[2] ?? 1000);
+const reflection = process.argv.includes('--reflection');
+const tolArg = process.argv.find((x) => x.startsWith('--tol='));
+const tol = tolArg ? Number(tolArg.slice(6)) : 1e-8;
+const BASE = process.env.BASE;
+const load = async (root) => (await import(pathToFileURL(join(root, 'packages/flux/dist/index.js')).href)).greybody;
+const builds = [['new', await load(join(benchDir, '..'))]];
+if (BASE) builds.unshift(['base', await load(BASE)]);
+
+let seed = 41;
+const rand = () => {
+  seed = (seed * 1103515245 + 12345) % 2147483648;
+  return seed / 2147483648;
+};
+const spins = [0, 0.5, 1, 2];
+/** --grid: the tail grid of issue 14 (cost within 3× of the median up to l = 100 and Mω = 30, and near-extremal counter-rotating modes). */
+function tailGrid() {
+  const out = [];
+  const mode = (spin, l, m, a, omega) => ({ hole: { a }, mode: { field: { spin }, l, m }, omega });
+  for (const spin of spins)
+    for (const a of [0, 0.7, 0.99]) {
+      const l0 = Math.max(spin, 2) === 2 && spin !== 2 ? (Number.isInteger(spin) ? 2 : 2.5) : Math.max(spin, 2);
+      for (const omega of [3, 10, 20, 30]) out.push(mode(spin, l0, l0, a, omega));
+      for (const l of [25, 50, 75, 100]) {
+        const L = Number.isInteger(spin) ? l : l + 0.5;
+        const m = Number.isInteger(spin) ? Math.round(L / 2) : Math.round(L / 2 - 0.5) + 0.5;
+        for (const omega of [1, 10, 30]) out.push(mode(spin, L, m, a, omega));
+      }
+    }
+  for (const spin of spins) {
+    const l = Number.isInteger(spin) ? Math.max(spin, 2) : 2.5;
+    for (const omega of [3, 10, 30]) out.push(mode(spin, l, -l, 0.99999, omega));
+    const L = Number.isInteger(spin) ? 20 : 20.5;
+    out.push(mode(spin, L, -L, 0.9999, 1));
+  }
+  return out;
+}
+const grid = process.argv.includes('--grid');
+const repsArg = process.argv.find((x) => x.startsWith('--reps='));
+/** runs per mode, the least CPU time kept (--reps=3: a mode's cost without the machine's noise; default 1, or 3 on the grid) */
+const REPS = repsArg ? Number(repsArg.slice(7)) : grid ? 3 : 1;
+const modes = grid
+  ? tailGrid()
+  : Array.from({ length: N }, () => {
+      const spin = spins[Math.floor(rand() * 4)];
+      const l = spin + Math.floor(rand() * (7 - Math.ceil(spin)));
+      const m = -l + Math.floor(rand() * (2 * l + 1));
+      return { hole: { a: 0.9999 * rand() }, mode: { field: { spin }, l, m }, omega: 0.01 * 300 ** rand() };
+    });
+const quantile = (xs, q) => {
+  const s = [...xs].sort((x, y) => x - y);
+  return s[Math.min(s.length - 1, Math.floor(q * s.length))];
+};
+// warm the JIT of every build
+for (const [, g] of builds) for (const p of modes.slice(0, grid ? 20 : 150)) g(p, { reflection, tol });
+
+const rec = Object.fromEntries(
+  builds.map(([name]) => [name, { ms: [], evals: [], checks: 0, failed: 0, gamma: [], checkEvals: [] }]),
+);
+modes.forEach((p, i) => {
+  const order = i % 2 ? [...builds].reverse() : builds;
+  for (const [name, g] of order) {
+    const r = rec[name];
+    try {
+      // the least of REPS runs (the machine is shared; a mode's cost is deterministic)
+      let best = Number.POSITIVE_INFINITY;
+      let sol;
+      for (let rep = 0; rep < REPS; rep++) {
+        const t0 = process.cpuUsage();
+        // each repeat at ω × (1 − rep·1e-13) (Mω = 30 is the largest allowed): no exact hit in the eigenvalue or far-series caches
+        sol = g(rep === 0 ? p : { ...p, omega: p.omega * (1 - rep * 1e-13) }, { reflection, tol });
+        const t = process.cpuUsage(t0);
+        best = Math.min(best, (t.user + t.system) / 1e3);
+      }
+      r.ms.push(best);
+      r.evals.push(sol.diagnostics.rhsEvaluations);
+      r.gamma.push(sol.gamma);
+      if (sol.diagnostics.checkEvaluations > 0) r.checks++;
+      r.checkEvals.push(sol.diagnostics.checkEvaluations ?? 0);
+    } catch (e) {
+      if (r.failed < 3) console.log(`${name} failed on ${JSON.stringify(p)}: ${e.message.slice(0, 160)}`);
+      r.failed++;
+      r.ms.push(Number.NaN);
+      r.evals.push(Number.NaN);
+      r.gamma.push(Number.NaN);
+      r.checkEvals.push(0);
+    }
+  }
+});
+const out = {
+  date: new Date().toISOString(),
+  load: os.loadavg(),
+  cpu: `${os.cpus()[0]?.model} × ${os.cpus().length}`,
+  n: N,
+  reflection,
+  tol,
+  builds: {},
+};
+console.log(
+  `load average ${os
+    .loadavg()
+    .map((x) => x.toFixed(1))
+    .join(' ')}; ${out.cpu}; ${N} modes, tol ${tol}, reflection ${reflection}`,
+);
+for (const [name] of builds) {
+  const r = rec[name];
+  const ms = r.ms.filter(Number.isFinite);
+  const ev = r.evals.filter(Number.isFinite);
+  const s = {
+    medianMs: quantile(ms, 0.5),
+    p90Ms: quantile(ms, 0.9),
+    p99Ms: quantile(ms, 0.99),
+    maxMs: Math.max(...ms),
+    medianEvals: quantile(ev, 0.5),
+    p99Evals: quantile(ev, 0.99),
+    meanEvals: ev.reduce((x, y) => x + y, 0) / ev.length,
+    checkFraction: r.checks / ms.length,
+    failed: r.failed,
+  };
+  const worstAt = r.ms.indexOf(s.maxMs);
+  s.worstMode = modes[worstAt];
+  out.builds[name] = s;
+  console.log(
+    `${name}: CPU ms median ${fmt(s.medianMs, 3)}, p90 ${fmt(s.p90Ms, 3)}, p99 ${fmt(s.p99Ms, 3)}, max ${fmt(s.maxMs, 3)}; RHS evaluations median ${s.medianEvals}, p99 ${s.p99Evals}, mean ${fmt(s.meanEvals, 4)}; check solves ${fmt(100 * s.checkFraction, 3)} %; failed ${s.failed}`,
+  );
+  if (grid) console.log(`  worst mode ${JSON.stringify(s.worstMode)}`);
+}
+if (BASE) {
+  const b = rec.base,
+    n = rec.new;
+  const ratios = b.ms.map((x, i) => x / n.ms[i]).filter(Number.isFinite);
+  const evalRatios = b.evals.map((x, i) => x / n.evals[i]).filter(Number.isFinite);
+  const dGamma = b.gamma.map((x, i) => Math.abs(n.gamma[i] / x - 1)).filter(Number.isFinite);
+  out.ratios = {
+    medianTime: quantile(ratios, 0.5),
+    medianEvals: quantile(evalRatios, 0.5),
+    medianOfMedians: out.builds.base.medianMs / out.builds.new.medianMs,
+    p99: out.builds.base.p99Ms / out.builds.new.p99Ms,
+    maxGammaChange: Math.max(...dGamma),
+  };
+  console.log(
+    `base/new: median of per-mode CPU ratios ${fmt(out.ratios.medianTime)}, of RHS-evaluation ratios ${fmt(out.ratios.medianEvals)}; ratio of medians ${fmt(out.ratios.medianOfMedians)}, of p99 ${fmt(out.ratios.p99)}; largest |Γ_new/Γ_base − 1| ${fmt(out.ratios.maxGammaChange)}`,
+  );
+}
+const file = join(
+  benchDir,
+  'results',
+  `floor-${process.env.PENUMBRA_RESULT_TAG ?? new Date().toISOString().slice(0, 10)}${tol === 1e-8 ? '' : `-tol${tol}`}${reflection ? '-reflection' : ''}${grid ? '-grid' : ''}${REPS > 1 && !grid ? `-min${REPS}` : ''}.json`,
+);
+writeFileSync(file, `${JSON.stringify(out, null, 1)}\n`);
+console.log(`results: ${file}`);
