@@ -1,5 +1,7 @@
 // 'gbs' against 'odex' on random modes: the same algorithm, so the same doubles
-// (Γ, relError, reflection, steps, RHS evaluations) and the CPU time of each.
+// (Γ, reflection, steps, RHS evaluations of the first solve) and the CPU time of
+// each. relError may differ: 'gbs' can charge the loop's own per-step error sum,
+// which the odex package does not report, and so skip the check solve more often.
 // Run: npx tsc -b && node bench/gbs-identity.bench.mjs [N]
 import { greybody } from '@penumbra/flux';
 import { fmt } from './lib.mjs';
@@ -38,6 +40,8 @@ run('odex');
 const a = run('gbs');
 const b = run('odex');
 let same = 0;
+let estimateDiffers = 0;
+const firstSolve = (r) => r.diagnostics.rhsEvaluations - (r.diagnostics.checkEvaluations ?? 0);
 const diffs = [];
 for (let i = 0; i < N; i++) {
   const x = a.out[i];
@@ -45,13 +49,14 @@ for (let i = 0; i < N; i++) {
   const eq =
     (x.error && x.error === y.error) ||
     (x.gamma === y.gamma &&
-      x.relError === y.relError &&
       Object.is(x.reflection, y.reflection) &&
       x.diagnostics.steps === y.diagnostics.steps &&
-      x.diagnostics.rhsEvaluations === y.diagnostics.rhsEvaluations);
+      firstSolve(x) === firstSolve(y));
+  if (!x.error && x.relError !== y.relError) estimateDiffers++;
   if (eq) same++;
   else diffs.push({ p: modes[i], gbs: x.gamma ?? x.error, odex: y.gamma ?? y.error });
 }
-console.log(`${N} random modes: ${same} bit-identical (Γ, relError, reflection, steps, RHS evaluations)`);
+console.log(`${N} random modes: ${same} bit-identical (Γ, reflection, steps, first-solve RHS evaluations)`);
+console.log(`  relError differs in ${estimateDiffers} (the per-step error sum against the steps × tol bound)`);
 for (const d of diffs.slice(0, 5)) console.log('  differs:', JSON.stringify(d));
 console.log(`CPU: gbs ${fmt(a.ms / N)} ms/mode, odex ${fmt(b.ms / N)} ms/mode, ratio ${fmt(b.ms / a.ms)}`);
