@@ -128,7 +128,7 @@ function integrateRange(ctx: ModeContext, l: number, m: number, weight: number, 
     if (thermal) breaks.push(0.5 * (mu + start));
     breaks.push(start);
   }
-  if (thermal) for (const x of [4, 10, 20]) if (start + x * T < W) breaks.push(start + x * T);
+  if (thermal) for (const x of [6, 16]) if (start + x * T < W) breaks.push(start + x * T);
   breaks.push(W);
   let q = mu > 0 ? integrateInWavenumber(f, breaks, mu, tolAbs, tolRel) : adaptiveNested(f, breaks, tolAbs, tolRel);
   let value = q.value.slice();

@@ -176,14 +176,15 @@ function shellTotals(
     if (i === 0) state.shellLeads.push(mode);
     sN += mode.number;
     sE += mode.energy;
-    // m-truncation (a ≠ 0): counter-rotating modes fall geometrically in m;
-    // after two falling modes below tol/100, bound the rest of the shell by that geometric series.
+    // m-truncation (a ≠ 0): counter-rotating modes fall geometrically in m, ever faster;
+    // once a mode below tol/100 has fallen at least twofold from the one before, bound the rest of
+    // the shell by the geometric series of that ratio.
     const j = acc.modes.length;
-    if (i >= 2 && i + 1 < ms.length) {
+    if (i >= 1 && i + 1 < ms.length) {
       const last = acc.modes[j - 1];
       const prev = acc.modes[j - 2];
       const tiny = (x: ModeTotal) => x.number <= 0.01 * tol * acc.v[0] && x.energy <= 0.01 * tol * acc.v[1];
-      if (tiny(last) && tiny(prev) && last.number < prev.number && last.energy < prev.energy) {
+      if (tiny(last) && last.number <= 0.5 * prev.number && last.energy <= 0.5 * prev.energy) {
         const rest = ms.length - i - 1;
         const series = (x: number, y: number) => {
           const q = x / y;
