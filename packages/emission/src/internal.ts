@@ -1,10 +1,11 @@
 /**
  * Internals for tests, benchmarks and scripts (the "./internal" subpath): the
- * Gauss–Kronrod rule, the per-mode rates and bounds, one spectrum point of the
+ * Gauss–Kronrod and nested Fejér rules, the per-mode rates and bounds, one spectrum point of the
  * unit hole, and the input helpers. Not part of the public API; they may
  * change without notice.
  */
 export { KRONROD15, kronrodPanel, adaptiveKronrod, type Panel, type QuadratureResult } from './quadrature.js';
+export { adaptiveNested, fejerWeights, fejerFirstWeights } from './nestedQuadrature.js';
 export {
   modeContext,
   modeRate,

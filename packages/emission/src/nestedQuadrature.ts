@@ -155,7 +155,7 @@ export function adaptiveNested(
     if (err.every((e, d) => e <= target[d])) return { value: val, error: err, panels: panels.length, evaluations };
     if (evaluations >= maxEvaluations) {
       throw new ConvergenceError('adaptive nested quadrature did not converge', {
-        method: 'globally adaptive nested Fejér (7/15/31-point) quadrature',
+        method: 'globally adaptive nested Fejér (7/15/31/63-point) quadrature',
         steps: panels.length,
         rhsEvaluations: evaluations,
         errorEstimate: Math.max(...err.map((e, d) => (Number.isFinite(tolAbs[d]) ? e / Math.abs(val[d]) : 0))),
