@@ -1,7 +1,8 @@
 /**
  * One mode's number and energy rates integrated over frequency, ∫_μ^W dω
  * (μ = 0 when massless; a massive mode in the wavenumber k∞ = √(ω² − μ²)),
- * with adaptive Gauss–Kronrod (docs/emission.md, "Quadrature"). Upper limit:
+ * with adaptive nested Fejér panels (nestedQuadrature.ts; docs/emission.md,
+ * "Quadrature"). Upper limit:
  * the smallest W > max(mΩ_H, μ, 0) whose Boltzmann tail bound (Γ ≤ 1 for
  * ω > mΩ_H) is below a hundredth of the mode's tolerance, extended while the
  * tail is not small against the mode itself, capped at Mω = 30.

@@ -11,9 +11,11 @@
  * shells that each add less than tol/5 of the running totals; the dropped tail
  * is bounded by S_last·q/(1 − q) per quantity (shells fall geometrically once
  * the barrier top l/b exceeds the thermal range). m-truncation (a ≠ 0): modes
- * are taken co-rotating first (m = l, l − 1, …); once two successive modes
- * fall and each adds less than tol/100, the rest of the shell is bounded by
- * the continued geometric series and not solved.
+ * are taken co-rotating first (m = l, l − 1, …); once a mode adding less
+ * than tol/100 has fallen at least twofold from the one before, the rest of
+ * the shell is bounded by the continued geometric series and not solved.
+ * Each mode's greybody solves get the accuracy its predicted share of the
+ * totals needs (modePlan), not a fixed tol/5.
  */
 import {
   ConvergenceError,
@@ -109,7 +111,7 @@ export const TOTALS_OPTIONS = {
 };
 
 const METHOD =
-  'per-mode adaptive Gauss–Kronrod integrals of Γ·occupation/2π, summed over whole l-shells with geometric tail bounds';
+  'per-mode adaptive nested-Fejér integrals of Γ·occupation/2π (Γ to each mode’s share of the tolerance), summed over whole l-shells with geometric tail bounds';
 
 /**
  * How to integrate a mode predicted to be about as large as `like` (a neighbour summed before it):
