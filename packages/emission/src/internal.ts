@@ -20,7 +20,7 @@ export {
 } from './modes.js';
 export { spectrumPointUnit } from './spectrumPoint.js';
 export { massiveGamma, type GammaEstimate } from './massiveModes.js';
-export { integrateMode, emptyAccumulator, type TotalsAccumulator } from './modeIntegral.js';
+export { integrateMode, emptyAccumulator, type ModeTargets, type TotalsAccumulator } from './modeIntegral.js';
 export { dofBySpin } from './species.js';
 export { boltzmannSpeciesBound, masslessProxyBound, MASSLESS_PROXY_MAX_MU } from './speciesBounds.js';
 export { validateGrid, requireProblem } from './validate.js';
