@@ -130,6 +130,8 @@ function integrateRange(ctx: ModeContext, l: number, m: number, weight: number, 
     breaks.push(start);
   }
   if (thermal) for (const x of [6, 16]) if (start + x * T < W) breaks.push(start + x * T);
+  // Past the threshold the Boltzmann factor spans e^{−(W − start)/T}: one break at 12 T halves that range.
+  if (t.panels === 'threshold' && start + 12 * T < W) breaks.push(start + 12 * T);
   breaks.push(W);
   let q = mu > 0 ? integrateInWavenumber(f, breaks, mu, tolAbs, tolRel) : adaptiveNested(f, breaks, tolAbs, tolRel);
   let value = q.value.slice();
