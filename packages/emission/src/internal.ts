@@ -1,10 +1,11 @@
 /**
  * Internals for tests, benchmarks and scripts (the "./internal" subpath): the
- * Gauss–Kronrod rule, the per-mode rates and bounds, one spectrum point of the
+ * Gauss–Kronrod and nested Fejér rules, the per-mode rates and bounds, one spectrum point of the
  * unit hole, and the input helpers. Not part of the public API; they may
  * change without notice.
  */
 export { KRONROD15, kronrodPanel, adaptiveKronrod, type Panel, type QuadratureResult } from './quadrature.js';
+export { adaptiveNested, fejerWeights, fejerFirstWeights } from './nestedQuadrature.js';
 export {
   modeContext,
   modeRate,
@@ -19,7 +20,7 @@ export {
 } from './modes.js';
 export { spectrumPointUnit } from './spectrumPoint.js';
 export { massiveGamma, type GammaEstimate } from './massiveModes.js';
-export { integrateMode, emptyAccumulator, type TotalsAccumulator } from './modeIntegral.js';
+export { integrateMode, emptyAccumulator, type ModeTargets, type TotalsAccumulator } from './modeIntegral.js';
 export { dofBySpin } from './species.js';
 export { boltzmannSpeciesBound, masslessProxyBound, MASSLESS_PROXY_MAX_MU } from './speciesBounds.js';
 export { validateGrid, requireProblem } from './validate.js';

@@ -1,13 +1,15 @@
 /**
  * One mode's number and energy rates integrated over frequency, ∫_μ^W dω
  * (μ = 0 when massless; a massive mode in the wavenumber k∞ = √(ω² − μ²)),
- * with adaptive Gauss–Kronrod (docs/emission.md, "Quadrature"). Upper limit:
+ * with adaptive nested Fejér panels (nestedQuadrature.ts; docs/emission.md,
+ * "Quadrature"). Upper limit:
  * the smallest W > max(mΩ_H, μ, 0) whose Boltzmann tail bound (Γ ≤ 1 for
  * ω > mΩ_H) is below a hundredth of the mode's tolerance, extended while the
  * tail is not small against the mode itself, capped at Mω = 30.
  */
 import { MOMEGA_RANGE } from '@penumbra/flux';
-import { adaptiveKronrod } from './quadrature.js';
+import { TOLERANCE_RANGE } from '@penumbra/core';
+import { adaptiveNested } from './nestedQuadrature.js';
 import { boltzmannTailBound, modeRate, type ModeContext } from './modes.js';
 
 const MAX_MOMEGA = MOMEGA_RANGE.max;
@@ -23,8 +25,10 @@ export interface ModeTotal {
   energy: number;
   /** upper end of the frequency integral */
   upperFrequency: number;
-  /** integrand evaluations */
+  /** integrand evaluations (each one greybody solve, or a few for a massive field, unless reused) */
   evaluations: number;
+  /** relative tolerance of this mode's greybody solves */
+  greybodyTol: number;
 }
 
 /** A triple (number rate, power, torque). */
@@ -70,7 +74,7 @@ function integrateInWavenumber(
     const jac = k / w;
     return f(w).map((v) => v * jac);
   };
-  return adaptiveKronrod(g, kBreaks, tolAbs, 400, tolRel);
+  return adaptiveNested(g, kBreaks, tolAbs, tolRel);
 }
 
 /** A fresh accumulator. */
@@ -78,26 +82,27 @@ export function emptyAccumulator(): TotalsAccumulator {
   return { v: [0, 0, 0], q: [0, 0, 0], g: [0, 0, 0], t: [0, 0, 0], panels: 0, skipped: 0, modes: [] };
 }
 
-/**
- * Integrate mode (l, m) of multiplicity `weight` to absolute tolerances
- * tolN, tolE (0: no scale yet, the first mode) or relative `tolRel`; add it to
- * `acc` and report it to `onMode`. `initialPanels` > 1 breaks the range at the
- * thermal scales past the threshold.
- */
-export function integrateMode(
-  ctx: ModeContext,
-  l: number,
-  m: number,
-  weight: number,
-  tolN: number,
-  tolE: number,
-  tolRel: number,
-  acc: TotalsAccumulator,
-  onMode: ((mode: ModeTotal) => void) | undefined,
-  initialPanels: number,
-): ModeTotal {
+/** What one mode is integrated to. */
+export interface ModeTargets {
+  /** absolute tolerances of the number and energy rates (0: no scale yet, the first mode) */
+  tolN: number;
+  tolE: number;
+  /** relative tolerance of both */
+  tolRel: number;
+  /** relative tolerance of each greybody solve of this mode (raised or lowered by its share of the totals) */
+  greybodyTol: number;
+  /**
+   * initial panels: 'thermal' breaks at the threshold max(mΩ_H, μ, 0) and the thermal scales past it
+   * (leading modes wanted accurately), 'threshold' at the threshold only, 'single' one panel
+   */
+  panels: 'thermal' | 'threshold' | 'single';
+}
+
+/** The integral of one mode over [μ, W] (number, energy, and both weighted by Γ's relative error). */
+function integrateRange(ctx: ModeContext, l: number, m: number, weight: number, t: ModeTargets) {
   const T = ctx.hole.temperature;
   const mu = ctx.fieldMass;
+  const { tolN, tolE, tolRel } = t;
   const start = Math.max(m * ctx.hole.omegaH, mu, 0);
   // Without a scale yet (first mode), reach 30 T past the threshold and let the tail check extend it.
   let W = start + 30 * T;
@@ -116,15 +121,19 @@ export function integrateMode(
     return [n, w * n, n * r.relError, w * n * r.relError];
   };
   const tolAbs = [tolN, tolE, Infinity, Infinity];
-  // Leading modes: break at the thermal scales past the threshold max(mΩ_H, μ, 0), where the
-  // integrand turns over, so bisection does not have to find that scale.
+  // Break at the threshold max(mΩ_H, μ, 0), where the integrand turns over; leading modes also at
+  // the thermal scales past it, so refinement does not have to find them.
+  const thermal = t.panels === 'thermal';
   const breaks = [mu];
-  if (initialPanels > 1) {
-    if (start > mu) breaks.push(0.5 * (mu + start), start);
-    for (const x of [4, 10, 20]) if (start + x * T < W) breaks.push(start + x * T);
+  if (start > mu && t.panels !== 'single') {
+    if (thermal) breaks.push(0.5 * (mu + start));
+    breaks.push(start);
   }
+  if (thermal) for (const x of [6, 16]) if (start + x * T < W) breaks.push(start + x * T);
+  // Past the threshold the Boltzmann factor spans e^{−(W − start)/T}: one break at 12 T halves that range.
+  if (t.panels === 'threshold' && start + 12 * T < W) breaks.push(start + 12 * T);
   breaks.push(W);
-  let q = mu > 0 ? integrateInWavenumber(f, breaks, mu, tolAbs, tolRel) : adaptiveKronrod(f, breaks, tolAbs, 400, tolRel);
+  let q = mu > 0 ? integrateInWavenumber(f, breaks, mu, tolAbs, tolRel) : adaptiveNested(f, breaks, tolAbs, tolRel);
   let value = q.value.slice();
   let error = q.error.slice();
   let evaluations = q.evaluations;
@@ -135,11 +144,10 @@ export function integrateMode(
     const need = (i: number, bound: number) => weight * bound > 0.01 * Math.max(tolAbs[i], tolRel * value[i]);
     if (!need(0, b.number) && !need(1, b.energy)) break;
     const W2 = Math.min(W + 10 * T, MAX_MOMEGA);
-    q = adaptiveKronrod(
+    q = adaptiveNested(
       f,
       [W, W2],
-      tolAbs.map((t, i) => Math.max(t, tolRel * value[i])),
-      400,
+      tolAbs.map((x, i) => Math.max(x, tolRel * value[i])),
     );
     value = value.map((v, i) => v + q.value[i]);
     error = error.map((e, i) => e + q.error[i]);
@@ -147,6 +155,39 @@ export function integrateMode(
     panels += q.panels;
     W = W2;
   }
+  return { value, error, evaluations, panels, W };
+}
+
+/**
+ * Integrate mode (l, m) of multiplicity `weight` to the targets `t`, with
+ * every greybody solve at `t.greybodyTol`; add it to `acc` and report it to
+ * `onMode`. The integrated Γ error of a mode is held to half its quadrature
+ * target: a mode larger than its tolerance was chosen for is integrated again
+ * with tighter solves (those already accurate enough are reused).
+ */
+export function integrateMode(
+  ctx: ModeContext,
+  l: number,
+  m: number,
+  weight: number,
+  t: ModeTargets,
+  acc: TotalsAccumulator,
+  onMode: ((mode: ModeTotal) => void) | undefined,
+): ModeTotal {
+  let greybodyTol = t.greybodyTol;
+  let r: ReturnType<typeof integrateRange>;
+  let evaluations = 0;
+  for (let pass = 0; ; pass++) {
+    ctx.greybodyTol = greybodyTol;
+    r = integrateRange(ctx, l, m, weight, t);
+    evaluations += r.evaluations;
+    const budgetN = 0.5 * Math.max(t.tolN, t.tolRel * r.value[0]);
+    const budgetE = 0.5 * Math.max(t.tolE, t.tolRel * r.value[1]);
+    const over = Math.max(r.value[2] / budgetN, r.value[3] / budgetE);
+    if (!(over > 1) || pass >= 3 || greybodyTol <= TOLERANCE_RANGE.min) break;
+    greybodyTol = Math.max(TOLERANCE_RANGE.min, greybodyTol / (4 * over));
+  }
+  const { value, error, W } = r;
   const tail = boltzmannTailBound(ctx, m, W);
   acc.v[0] += value[0];
   acc.v[1] += value[1];
@@ -160,8 +201,8 @@ export function integrateMode(
   acc.t[0] += weight * tail.number;
   acc.t[1] += weight * tail.energy;
   acc.t[2] += Math.abs(m) * weight * tail.number;
-  acc.panels += panels;
-  const mode: ModeTotal = { l, m, weight, number: value[0], energy: value[1], upperFrequency: W, evaluations };
+  acc.panels += r.panels;
+  const mode: ModeTotal = { l, m, weight, number: value[0], energy: value[1], upperFrequency: W, evaluations, greybodyTol };
   acc.modes.push(mode);
   onMode?.(mode);
   return mode;

@@ -36,6 +36,11 @@ export interface ModeContext {
   fieldMass: number;
   /** massive vector on Kerr: Schwarzschild Proca ratios by `${l}:${ω}` (massiveModes.ts) */
   procaRatios: Map<string, GammaEstimate>;
+  /**
+   * Γ already solved in this computation, by `${l}:${m}:${ω}`: reused while its own relative error is
+   * within the current `greybodyTol` (a retry or a tighter re-solve keeps what is accurate enough).
+   */
+  gammaCache: Map<string, GammaEstimate>;
 }
 
 /** The context of a field of spin `spin` (and mass Mμ, default 0) on the unit-mass hole with a/M = aStar ≥ 0. */
@@ -49,6 +54,7 @@ export function modeContext(spin: FieldSpin, aStar: number, greybodyTol: number,
     greybodyTol,
     counters: { gammaCalls: 0, steps: 0, rhsEvaluations: 0 },
     procaRatios: new Map(),
+    gammaCache: new Map(),
   };
 }
 
@@ -67,6 +73,17 @@ export interface ModeRate {
 }
 
 function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): GammaEstimate {
+  if (omega < MIN_MOMEGA && ctx.fieldMass === 0) return solveGamma(ctx, l, m, omega);
+  const key = `${l}:${m}:${omega}`;
+  const cached = ctx.gammaCache.get(key);
+  if (cached && cached.relError <= ctx.greybodyTol) return cached;
+  const g = solveGamma(ctx, l, m, omega);
+  if (ctx.gammaCache.size > 200_000) ctx.gammaCache.clear();
+  ctx.gammaCache.set(key, g);
+  return g;
+}
+
+function solveGamma(ctx: ModeContext, l: number, m: number, omega: number): GammaEstimate {
   // Massive: per degree of freedom over the field's own modes, 0 below the threshold (massiveModes.ts).
   if (ctx.fieldMass > 0) return massiveGamma(ctx, l, m, omega);
   if (omega < MIN_MOMEGA) {

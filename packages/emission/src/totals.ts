@@ -11,9 +11,11 @@
  * shells that each add less than tol/5 of the running totals; the dropped tail
  * is bounded by S_last·q/(1 − q) per quantity (shells fall geometrically once
  * the barrier top l/b exceeds the thermal range). m-truncation (a ≠ 0): modes
- * are taken co-rotating first (m = l, l − 1, …); once two successive modes
- * fall and each adds less than tol/100, the rest of the shell is bounded by
- * the continued geometric series and not solved.
+ * are taken co-rotating first (m = l, l − 1, …); once a mode adding less
+ * than tol/100 has fallen at least twofold from the one before, the rest of
+ * the shell is bounded by the continued geometric series and not solved.
+ * Each mode's greybody solves get the accuracy its predicted share of the
+ * totals needs (modePlan), not a fixed tol/5.
  */
 import {
   ConvergenceError,
@@ -30,7 +32,14 @@ import {
 } from '@penumbra/core';
 import { requireMassiveRoute, solutionField, type EmittedField } from './massiveField.js';
 import { boltzmannTailBound, modeContext, shellMs, torqueTailBound, type ModeContext } from './modes.js';
-import { emptyAccumulator, integrateMode, type ModeTotal, type TotalsAccumulator, type Triple } from './modeIntegral.js';
+import {
+  emptyAccumulator,
+  integrateMode,
+  type ModeTargets,
+  type ModeTotal,
+  type TotalsAccumulator,
+  type Triple,
+} from './modeIntegral.js';
 import { checkMaxL, maxLOption, requireProblem } from './validate.js';
 
 /** A field on a hole: the totals are summed over all of its modes. */
@@ -102,7 +111,30 @@ export const TOTALS_OPTIONS = {
 };
 
 const METHOD =
-  'per-mode adaptive Gauss–Kronrod integrals of Γ·occupation/2π, summed over whole l-shells with geometric tail bounds';
+  'per-mode adaptive nested-Fejér integrals of Γ·occupation/2π (Γ to each mode’s share of the tolerance), summed over whole l-shells with geometric tail bounds';
+
+/**
+ * How to integrate a mode predicted to be about as large as `like` (a neighbour summed before it):
+ * its relative accuracy is its quadrature target over that size; its greybody solves get half of it,
+ * within [baseTol, 1e-2] (baseTol: a fifth of the totals' tolerance); its initial panels follow from it.
+ * A mode larger than predicted is caught after its integral (integrateMode), which then integrates it
+ * again with tighter solves.
+ */
+function modePlan(
+  like: ModeTotal | undefined,
+  leading: boolean,
+  tolN: number,
+  tolE: number,
+  tolRel: number,
+  baseTol: number,
+): Pick<ModeTargets, 'greybodyTol' | 'panels'> {
+  if (!like || !(like.number > 0) || !(like.energy > 0)) return { greybodyTol: baseTol, panels: 'thermal' };
+  const rel = Math.min(Math.max(tolN, tolRel * like.number) / like.number, Math.max(tolE, tolRel * like.energy) / like.energy);
+  const greybodyTol = Math.min(Math.max(0.5 * rel, baseTol), TOLERANCE_RANGE.max);
+  // Thermal breaks pay where a leading mode is wanted accurately; a mode wanted to 10 % needs one panel.
+  const panels = leading && rel < 1e-4 ? 'thermal' : rel < 0.1 ? 'threshold' : 'single';
+  return { greybodyTol, panels };
+}
 
 /** One shell's m-modes (co-rotating first), with the Boltzmann skip and the geometric m-truncation. */
 function shellTotals(
@@ -112,9 +144,13 @@ function shellTotals(
   modeAbs: number,
   modeRel: number,
   acc: TotalsAccumulator,
-  state: { first: boolean },
+  state: { first: boolean; shellLeads: ModeTotal[] },
+  baseTol: number,
   onMode?: (m: ModeTotal) => void,
 ): number[] {
+  // The mode a new one is predicted from: the previous m of this shell, or the previous shell's leading mode.
+  const predictor = (a: TotalsAccumulator, i: number): ModeTotal | undefined =>
+    i > 0 ? a.modes[a.modes.length - 1] : state.shellLeads[state.shellLeads.length - 1];
   const { ms, weight } = shellMs(ctx, l);
   let sN = 0;
   let sE = 0;
@@ -136,18 +172,21 @@ function shellTotals(
         break;
       }
     }
-    const mode = integrateMode(ctx, l, m, weight, tolN, tolE, modeRel, acc, onMode, i === 0 ? 2 : 1);
+    const plan = modePlan(predictor(acc, i), i === 0, tolN, tolE, modeRel, baseTol);
+    const mode = integrateMode(ctx, l, m, weight, { tolN, tolE, tolRel: modeRel, ...plan }, acc, onMode);
     state.first = false;
+    if (i === 0) state.shellLeads.push(mode);
     sN += mode.number;
     sE += mode.energy;
-    // m-truncation (a ≠ 0): counter-rotating modes fall geometrically in m;
-    // after two falling modes below tol/100, bound the rest of the shell by that geometric series.
+    // m-truncation (a ≠ 0): counter-rotating modes fall geometrically in m, ever faster;
+    // once a mode below tol/100 has fallen at least twofold from the one before, bound the rest of
+    // the shell by the geometric series of that ratio.
     const j = acc.modes.length;
-    if (i >= 2 && i + 1 < ms.length) {
+    if (i >= 1 && i + 1 < ms.length) {
       const last = acc.modes[j - 1];
       const prev = acc.modes[j - 2];
       const tiny = (x: ModeTotal) => x.number <= 0.01 * tol * acc.v[0] && x.energy <= 0.01 * tol * acc.v[1];
-      if (tiny(last) && tiny(prev) && last.number < prev.number && last.energy < prev.energy) {
+      if (tiny(last) && last.number <= 0.5 * prev.number && last.energy <= 0.5 * prev.energy) {
         const rest = ms.length - i - 1;
         const series = (x: number, y: number) => {
           const q = x / y;
@@ -173,7 +212,8 @@ function totalsUnit(ctx: ModeContext, tol: number, maxL: number, looseness: numb
   const acc = emptyAccumulator();
   const modeRel = 0.2 * tol * looseness;
   const modeAbs = 0.05 * tol * looseness;
-  const state = { first: true };
+  const state = { first: true, shellLeads: [] as ModeTotal[] };
+  const baseTol = Math.max(0.2 * tol * looseness, TOLERANCE_RANGE.min);
   const summed = sumLShellVectors(
     ctx.spin,
     {
@@ -184,7 +224,7 @@ function totalsUnit(ctx: ModeContext, tol: number, maxL: number, looseness: numb
       lMinToStop: ctx.spin + 1,
       context: () => ({ ...ctx.counters, spin: ctx.spin, aStar: ctx.aStar, numberRate: acc.v[0], power: acc.v[1] }),
     },
-    (l) => shellTotals(ctx, l, tol, modeAbs, modeRel, acc, state, onMode),
+    (l) => shellTotals(ctx, l, tol, modeAbs, modeRel, acc, state, baseTol, onMode),
     'emission totals l-sum',
   );
   const lastN = summed.shells[summed.shells.length - 1].sums[0];
@@ -213,7 +253,7 @@ export function emissionTotals(problem: TotalsProblem, options?: TotalsOptions):
   const { tol = 1e-6, maxL = 60, onMode } = validateOptions<TotalsOptions>(options, TOTALS_OPTIONS);
   checkMaxL(maxL, spin);
   const aStar = Math.abs(a) / mass;
-  // Γ to a fifth of the requested accuracy, never below the solver's floor.
+  // Γ to a fifth of the requested accuracy to start with (each mode sets its own, totalsUnit).
   const ctx = modeContext(spin, aStar, Math.max(tol / 5, TOLERANCE_RANGE.min), field.mass);
   let looseness = 1;
   for (let attempt = 1; ; attempt++) {
