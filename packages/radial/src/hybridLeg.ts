@@ -16,6 +16,8 @@ import { fieldMassOf } from './equation.js';
 import {
   LOCAL,
   LOCAL_SIZE,
+  ACCEPT,
+  ACCEPT_LONG_RANGE,
   MAX_PASSES,
   MAX_PASSES_LONG_RANGE,
   RICCATI_NODES,
@@ -105,16 +107,24 @@ export const RICCATI_STEP_CHARGE = 10;
 export interface HybridSegment extends Segment {
   /** Riccati steps taken (included in `steps`) */
   riccatiSteps: number;
+  /**
+   * Charge beyond RICCATI_STEP_CHARGE of Riccati steps accepted with a
+   * stalled correction above ACCEPT tol (a massive field's far zone, up to
+   * ACCEPT_LONG_RANGE tol): RICCATI_STEP_CHARGE per ACCEPT tol of it, in
+   * integrator steps; 0 on massless legs.
+   */
+  riccatiExtraCharge: number;
 }
 
 /** The steps a segment charges to the accumulation bound: integrator steps plus RICCATI_STEP_CHARGE per Riccati step. */
 export function chargedSteps(seg: HybridSegment): number {
-  return seg.steps + (RICCATI_STEP_CHARGE - 1) * seg.riccatiSteps;
+  return seg.steps + (RICCATI_STEP_CHARGE - 1) * seg.riccatiSteps + seg.riccatiExtraCharge;
 }
 
 function plain(seg: Segment): HybridSegment {
   const out = seg as HybridSegment;
   out.riccatiSteps = 0;
+  out.riccatiExtraCharge = 0;
   return out;
 }
 
@@ -128,6 +138,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   // massless legs keep MIN_PHASE and MAX_PASSES, bit for bit.
   const longRange = fieldMassOf(leg.mode) > 0;
   const maxPasses = longRange ? MAX_PASSES_LONG_RANGE : MAX_PASSES;
+  const accept = longRange ? ACCEPT_LONG_RANGE : ACCEPT;
   const ladder: Point[] = [{ x: leg.fromOffset ?? leg.from - rPlus, r: leg.from }];
   const xEnd = leg.to - rPlus;
   const inside = leg.stops.filter((g) => g > leg.from && g < leg.to);
@@ -158,6 +169,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   let steps = 0,
     errorSum = 0,
     riccatiSteps = 0,
+    riccatiExtraCharge = 0,
     rescalings = 0;
   const samples: RadialSample[] = [];
   const raw: RawSample[] = [];
@@ -181,7 +193,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   // One rung by a Riccati step; a rung that fails is halved (in ln x) up to MAX_SPLITS times before the
   // integrator takes it: near a turning point the branch point of W limits the resolution of a whole rung.
   const byRiccati = (from: Point, to: Point, rateFrom: number, rateTo: number, depth: number): void => {
-    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, RICCATI_NODES, maxPasses);
+    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, RICCATI_NODES, maxPasses, accept);
     // counted as right-hand-side evaluations: the coefficients at every node, and one collocation pass per node and pass
     leg.counter.evaluations += step.evaluations * (1 + step.passes);
     if (!step.ok) {
@@ -201,6 +213,11 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     steps++;
     errorSum += RICCATI_STEP_CHARGE;
     riccatiSteps++;
+    if (step.correction > ACCEPT) {
+      const extra = RICCATI_STEP_CHARGE * (step.correction / ACCEPT - 1);
+      errorSum += extra;
+      riccatiExtraCharge += extra;
+    }
     logScale += scale[0];
     if (Math.abs(y[0]) + Math.abs(y[1]) > OVERFLOW) {
       for (let c = 0; c < 4; c++) y[c] *= RESCALE;
@@ -225,5 +242,5 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     byRiccati(ladder[i], ladder[i + 1], rates[i], rates[i + 1], 0);
     i++;
   }
-  return { logScale, steps, errorSum, rescalings, samples, raw, riccatiSteps };
+  return { logScale, steps, errorSum, rescalings, samples, raw, riccatiSteps, riccatiExtraCharge };
 }
