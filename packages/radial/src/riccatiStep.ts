@@ -65,10 +65,12 @@ export const ACCEPT = 0.3;
 /**
  * ACCEPT in the far zone of a massive field, where the corrections can stall
  * a little above it (|W| of 20–50): the step is accepted up to this share of
- * the tolerance and charged in proportion (hybridLeg.ts), which still costs
- * far less error budget and work than the ~20 integrator steps it replaces.
+ * the tolerance and charged in proportion (hybridLeg.ts). Measured on
+ * bench/massive-threshold.bench.mjs: 2 beats 1 (more rungs left to the
+ * integrator) and 3 (the larger charge pushes the single-solve estimate of
+ * greybody past the point where it makes a check solve, doubling the work).
  */
-export const ACCEPT_LONG_RANGE = 3;
+export const ACCEPT_LONG_RANGE = 2;
 /** The rounding floor of ∫Y over a step, in units of ε·|Y|·(step length in u): collocation and quadrature over 16 nodes (common practice, no source). */
 const ROUNDING = 16;
 /** A step is refused when the two highest Chebyshev coefficients of Y (what 16 nodes leave unresolved) exceed this share of the tolerance. */
