@@ -3,7 +3,8 @@
 // for field masses from Mμ = 0.1 Mω up to near threshold (v = k∞/ω down to
 // 0.05), plus the accuracy against the 30-digit mpmath reference in
 // test/fixtures/massive. Run: `npm run build && node bench/massive.bench.mjs`.
-// Results: bench/results/massive-<date>b.json.
+// Results: bench/results/massive-<date><tag>.json (tag: the first argument,
+// default 'c', the third measurement of 2026-12-03).
 import { readFileSync, writeFileSync } from 'node:fs';
 import { greybody } from '@penumbra/flux';
 import { benchDir, cpuMsPerCall, fmt, median, relDiff, table, today } from './lib.mjs';
@@ -60,6 +61,9 @@ for (const x of MODES) {
       msMassive: ms,
       msMassless,
       matchRadius: g.diagnostics.matchRadius,
+      farTerms: g.diagnostics.farTerms,
+      steps: g.diagnostics.steps,
+      stepsMassless: massless.diagnostics.steps,
     };
     records.push(record);
     rows.push([
@@ -78,9 +82,11 @@ console.log('massive / massless cost at the same l, m, a, ω (tol 1e-8; CPU ms p
 console.log(table(['mode', 'Mμ', 'v', 'ms massive', 'ms massless', 'time ratio', 'RHS ratio', 'r_match'], rows));
 const ratios = records.map((r) => r.timeRatio);
 const within = records.filter((r) => r.v >= 0.1);
+const rhs = records.map((r) => r.rhsRatio);
 console.log(
   `time ratio: median ${fmt(median(ratios), 2)}, max ${fmt(Math.max(...ratios), 2)}; for v ≥ 0.1 max ${fmt(Math.max(...within.map((r) => r.timeRatio)), 2)} (target ≤ 2)`,
 );
+console.log(`RHS ratio: median ${fmt(median(rhs), 2)}, max ${fmt(Math.max(...rhs), 2)}`);
 
 const reference = JSON.parse(readFileSync(new URL('../test/fixtures/massive/reference.json', import.meta.url), 'utf8')).rows;
 const accuracy = reference.map((r) => {
@@ -104,7 +110,7 @@ console.log(
     ]),
   ),
 );
-// the second measurement of the day is tagged 'b' so the first stays for comparison
-const path = `${benchDir}/results/massive-${today()}b.json`;
+// later measurements of the day are tagged ('b', 'c', …) so the earlier ones stay for comparison
+const path = `${benchDir}/results/massive-${today()}${process.argv[2] ?? 'c'}.json`;
 writeFileSync(path, `${JSON.stringify({ records, accuracy }, null, 1)}\n`);
 console.log(`written ${path}`);

@@ -12,7 +12,21 @@
  * so low-frequency modes are unchanged bit for bit.
  */
 import type { RadialSample } from './solution.js';
-import { LOCAL, LOCAL_SIZE, localRiccati, phaseRate, type RiccatiEquation, riccatiEquation, riccatiStep } from './riccatiStep.js';
+import { fieldMassOf } from './equation.js';
+import {
+  LOCAL,
+  LOCAL_SIZE,
+  ACCEPT,
+  ACCEPT_LONG_RANGE,
+  MAX_PASSES,
+  MAX_PASSES_LONG_RANGE,
+  RICCATI_NODES,
+  localRiccati,
+  phaseRate,
+  type RiccatiEquation,
+  riccatiEquation,
+  riccatiStep,
+} from './riccatiStep.js';
 import { integrateLeg, type Leg, type RawSample, type Segment } from './shooting.js';
 
 /** How oscillatory stretches of a leg are crossed: Riccati steps where they apply ('riccati', default), or the ODE integrator throughout ('ode', the earlier route, kept for cross-checks). */
@@ -27,6 +41,17 @@ const RUNG = 4;
 export const WKB_LIMIT = 0.08;
 /** Least phase (or growth) ∫|W|/2 du, in radians, on a rung given to a Riccati step: below it the integrator was measured to be as cheap (bench/far-zone.bench.mjs). */
 export const MIN_PHASE = 20;
+/**
+ * MIN_PHASE for a rung of a massive field's far zone whose rate |W| is at
+ * least FAST_RATE at both ends: there a Riccati step converges in a few
+ * passes (~100 coefficient evaluations) while the integrator crosses about a
+ * radian per step (~60 evaluations), so a short last rung before a distant
+ * matching radius pays off (bench/massive.bench.mjs; a lower MIN_PHASE
+ * everywhere was measured to cost more, on rungs near the turning point).
+ */
+export const MIN_PHASE_LONG_RANGE = 8;
+/** The rate |W| (radians per unit of ln x) above which a massive field's rung may take MIN_PHASE_LONG_RANGE. */
+export const FAST_RATE = 45;
 
 /** Times a failed rung is halved before the integrator takes it. */
 const MAX_SPLITS = 4;
@@ -45,9 +70,9 @@ const probe = new Float64Array(LOCAL_SIZE);
 /**
  * Whether a Riccati step on [xa, xb] looks worth trying: at five points (in
  * u = ln x) the WKB ratio |Y₀'|/|W|² is below WKB_LIMIT, and the phase (or
- * growth) ∫|W|/2 du on the rung is above MIN_PHASE.
+ * growth) ∫|W|/2 du on the rung is above `minPhase` (default MIN_PHASE).
  */
-export function riccatiWorthIt(e: RiccatiEquation, xa: number, xb: number): boolean {
+export function riccatiWorthIt(e: RiccatiEquation, xa: number, xb: number, minPhase = MIN_PHASE): boolean {
   const K = 5;
   const ua = Math.log(xa),
     du = (Math.log(xb) - ua) / (K - 1);
@@ -60,7 +85,7 @@ export function riccatiWorthIt(e: RiccatiEquation, xa: number, xb: number): bool
     if (j > 0) phase += 0.25 * (W + prev) * du;
     prev = W;
   }
-  return phase > MIN_PHASE;
+  return phase > minPhase;
 }
 
 /**
@@ -82,16 +107,24 @@ export const RICCATI_STEP_CHARGE = 10;
 export interface HybridSegment extends Segment {
   /** Riccati steps taken (included in `steps`) */
   riccatiSteps: number;
+  /**
+   * Charge beyond RICCATI_STEP_CHARGE of Riccati steps accepted with a
+   * stalled correction above ACCEPT tol (a massive field's far zone, up to
+   * ACCEPT_LONG_RANGE tol): RICCATI_STEP_CHARGE per ACCEPT tol of it, in
+   * integrator steps; 0 on massless legs.
+   */
+  riccatiExtraCharge: number;
 }
 
 /** The steps a segment charges to the accumulation bound: integrator steps plus RICCATI_STEP_CHARGE per Riccati step. */
 export function chargedSteps(seg: HybridSegment): number {
-  return seg.steps + (RICCATI_STEP_CHARGE - 1) * seg.riccatiSteps;
+  return seg.steps + (RICCATI_STEP_CHARGE - 1) * seg.riccatiSteps + seg.riccatiExtraCharge;
 }
 
 function plain(seg: Segment): HybridSegment {
   const out = seg as HybridSegment;
   out.riccatiSteps = 0;
+  out.riccatiExtraCharge = 0;
   return out;
 }
 
@@ -101,6 +134,11 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   const { hole } = leg;
   const rPlus = hole.rPlus;
   const e = riccatiEquation(leg.equation, rPlus);
+  // A massive field's far zone: short fast rungs and more passes pay off (MIN_PHASE_LONG_RANGE, MAX_PASSES_LONG_RANGE);
+  // massless legs keep MIN_PHASE and MAX_PASSES, bit for bit.
+  const longRange = fieldMassOf(leg.mode) > 0;
+  const maxPasses = longRange ? MAX_PASSES_LONG_RANGE : MAX_PASSES;
+  const accept = longRange ? ACCEPT_LONG_RANGE : ACCEPT;
   const ladder: Point[] = [{ x: leg.fromOffset ?? leg.from - rPlus, r: leg.from }];
   const xEnd = leg.to - rPlus;
   const inside = leg.stops.filter((g) => g > leg.from && g < leg.to);
@@ -118,9 +156,12 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   const rungPhase = (from: Point, to: Point, rateFrom: number, rateTo: number) =>
     0.25 * (rateFrom + rateTo) * Math.log(to.x / from.x);
   const rates = ladder.map((p) => phaseRate(e, p.x));
-  const good = ladder
-    .slice(1)
-    .map((p, i) => rungPhase(ladder[i], p, rates[i], rates[i + 1]) > 0.5 * MIN_PHASE && riccatiWorthIt(e, ladder[i].x, p.x));
+  const rungMinPhase = (i: number) =>
+    longRange && Math.min(rates[i], rates[i + 1]) >= FAST_RATE ? MIN_PHASE_LONG_RANGE : MIN_PHASE;
+  const good = ladder.slice(1).map((p, i) => {
+    const least = rungMinPhase(i);
+    return rungPhase(ladder[i], p, rates[i], rates[i + 1]) > 0.5 * least && riccatiWorthIt(e, ladder[i].x, p.x, least);
+  });
   if (!good.includes(true)) return plain(integrateLeg(leg));
 
   const y = leg.y;
@@ -128,6 +169,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   let steps = 0,
     errorSum = 0,
     riccatiSteps = 0,
+    riccatiExtraCharge = 0,
     rescalings = 0;
   const samples: RadialSample[] = [];
   const raw: RawSample[] = [];
@@ -151,7 +193,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   // One rung by a Riccati step; a rung that fails is halved (in ln x) up to MAX_SPLITS times before the
   // integrator takes it: near a turning point the branch point of W limits the resolution of a whole rung.
   const byRiccati = (from: Point, to: Point, rateFrom: number, rateTo: number, depth: number): void => {
-    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale);
+    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, RICCATI_NODES, maxPasses, accept);
     // counted as right-hand-side evaluations: the coefficients at every node, and one collocation pass per node and pass
     leg.counter.evaluations += step.evaluations * (1 + step.passes);
     if (!step.ok) {
@@ -171,6 +213,11 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     steps++;
     errorSum += RICCATI_STEP_CHARGE;
     riccatiSteps++;
+    if (step.correction > ACCEPT) {
+      const extra = RICCATI_STEP_CHARGE * (step.correction / ACCEPT - 1);
+      errorSum += extra;
+      riccatiExtraCharge += extra;
+    }
     logScale += scale[0];
     if (Math.abs(y[0]) + Math.abs(y[1]) > OVERFLOW) {
       for (let c = 0; c < 4; c++) y[c] *= RESCALE;
@@ -195,5 +242,5 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     byRiccati(ladder[i], ladder[i + 1], rates[i], rates[i + 1], 0);
     i++;
   }
-  return { logScale, steps, errorSum, rescalings, samples, raw, riccatiSteps };
+  return { logScale, steps, errorSum, rescalings, samples, raw, riccatiSteps, riccatiExtraCharge };
 }

@@ -51,8 +51,26 @@ export interface RiccatiEquation {
 export const RICCATI_NODES = 16;
 /** Largest number of defect-correction passes. */
 export const MAX_PASSES = 10;
+/**
+ * Largest number of passes in the far zone of a massive field, where the
+ * rate |W| grows only like √r (the 2Mμ²/r tail near threshold): the
+ * corrections there contract by 0.1–0.5 per pass and still reach the
+ * rounding floor after 8–14 passes (measured on bench/massive.bench.mjs),
+ * which costs 16 × 15 coefficient evaluations against ~20 integrator steps
+ * (~1,200) for the same rung.
+ */
+export const MAX_PASSES_LONG_RANGE = 16;
 /** A solution is accepted once the last correction moves ∫y and y by less than this share of the tolerance. */
-const ACCEPT = 0.3;
+export const ACCEPT = 0.3;
+/**
+ * ACCEPT in the far zone of a massive field, where the corrections can stall
+ * a little above it (|W| of 20–50): the step is accepted up to this share of
+ * the tolerance and charged in proportion (hybridLeg.ts). Measured on
+ * bench/massive-threshold.bench.mjs: 2 beats 1 (more rungs left to the
+ * integrator) and 3 (the larger charge pushes the single-solve estimate of
+ * greybody past the point where it makes a check solve, doubling the work).
+ */
+export const ACCEPT_LONG_RANGE = 2;
 /** The rounding floor of ∫Y over a step, in units of ε·|Y|·(step length in u): collocation and quadrature over 16 nodes (common practice, no source). */
 const ROUNDING = 16;
 /** A step is refused when the two highest Chebyshev coefficients of Y (what 16 nodes leave unresolved) exceed this share of the tolerance. */
@@ -284,6 +302,8 @@ export interface RiccatiStep {
   passes: number;
   /** coefficient evaluations made (nodes × 1, for the work count) */
   evaluations: number;
+  /** the larger last correction (of ∫Y or, relative, of Y) of the two solutions where one stalled, in units of tol; 0 when both contracted below the target or the step failed */
+  correction: number;
 }
 
 /** Work arrays of one node count, reused across steps. */
@@ -306,6 +326,8 @@ interface Work {
   dIm: Float64Array;
   /** per solution (+, −): y at xa and xb, ∫y over [xa, xb] */
   ends: Float64Array;
+  /** per solution (+, −): the last correction of a stalled solution, in units of tol (0 if it contracted below the target) */
+  last: Float64Array;
   /** one point's `localRiccati` output */
   local: Float64Array;
 }
@@ -334,6 +356,7 @@ function workFor(n: number): Work {
       dRe: f(),
       dIm: f(),
       ends: new Float64Array(12),
+      last: new Float64Array(2),
       local: new Float64Array(LOCAL_SIZE),
     };
     works.set(n, w);
@@ -348,7 +371,7 @@ function workFor(n: number): Work {
  * the interval and the relative error of y. Returns the passes taken,
  * negative on failure.
  */
-function refine(w: Work, k: 0 | 1, half: number, tol: number): number {
+function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number, accept: number): number {
   const { rule, pRe, pIm, qRe, qIm, aRe, aIm, apRe, apIm, cRe, cIm, yRe, yIm, dRe, dIm } = w;
   const n = rule.n;
   const D = rule.D;
@@ -364,7 +387,10 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number): number {
   let previous = Number.POSITIVE_INFINITY;
   let passes = 0;
   let converged = false;
-  while (passes < MAX_PASSES) {
+  // the last correction of a stalled solution, in units of tol (0 when it contracted below the target)
+  let stalled = 0;
+  const reach = accept > ACCEPT ? accept * tol : 0.01 * tol;
+  while (passes < maxPasses) {
     passes++;
     for (let i = 0; i < n; i++) {
       let sr = 0,
@@ -408,14 +434,17 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number): number {
     }
     // Not contracting any more: the rounding floor of the collocation derivative (accepted when below tol) or a turning point.
     if (passes > 1 && largest > 0.5 * previous) {
-      converged = size < ACCEPT * tol;
+      converged = size < accept * tol;
+      stalled = size / tol;
       break;
     }
     // Contracting too slowly to arrive within MAX_PASSES: give the stretch to the integrator now.
-    if (passes > 2 && passes + Math.log((0.01 * tol) / size) / Math.log(largest / previous) > MAX_PASSES) break;
+    // (With a looser acceptance than ACCEPT, the target it must arrive at is that acceptance.)
+    if (passes > 2 && passes + Math.log(reach / size) / Math.log(largest / previous) > maxPasses) break;
     previous = largest;
   }
   if (!converged) return -passes;
+  w.last[k] = stalled;
   // Unresolved on the nodes? The interpolant's highest coefficients bound what collocation missed.
   const tail = chebyshevTail(rule, yRe, yIm);
   if (2 * half * tail - floor > TAIL * tol || tail > TAIL * tol * yScale) return -passes;
@@ -438,8 +467,10 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number): number {
 
 /**
  * Carry y = (Re R, Im R, Re R', Im R') from xa to xb in place, if both
- * Riccati solutions converge there to `tol`. Returns the ln of a scale taken
- * out of y (added to the caller's log-scale) in `scaleOut[0]`.
+ * Riccati solutions converge there to `tol` within `maxPasses` passes each
+ * (a stalled correction accepted up to `accept` tol).
+ * Returns the ln of a scale taken out of y (added to the caller's log-scale)
+ * in `scaleOut[0]`.
  */
 export function riccatiStep(
   e: RiccatiEquation,
@@ -449,6 +480,8 @@ export function riccatiStep(
   tol: number,
   scaleOut: Float64Array,
   n = RICCATI_NODES,
+  maxPasses = MAX_PASSES,
+  accept = ACCEPT,
 ): RiccatiStep {
   const w = workFor(n);
   const { rule } = w;
@@ -482,10 +515,10 @@ export function riccatiStep(
       w.cIm[o] = l[src + 5];
     }
   }
-  const plus = refine(w, 0, half, tol);
-  if (plus < 0) return { ok: false, passes: -plus, evaluations: n };
-  const minus = refine(w, 1, half, tol);
-  if (minus < 0) return { ok: false, passes: Math.max(plus, -minus), evaluations: n };
+  const plus = refine(w, 0, half, tol, maxPasses, accept);
+  if (plus < 0) return { ok: false, passes: -plus, evaluations: n, correction: 0 };
+  const minus = refine(w, 1, half, tol, maxPasses, accept);
+  if (minus < 0) return { ok: false, passes: Math.max(plus, -minus), evaluations: n, correction: 0 };
   const E = w.ends;
   // y = Y/x at the two ends
   for (const o of [0, 6]) {
@@ -528,11 +561,12 @@ export function riccatiStep(
     Bi = br * emi + bi * emr;
   const dRe = Ar * E[2] - Ai * E[3] + Br * E[8] - Bi * E[9],
     dIm = Ar * E[3] + Ai * E[2] + Br * E[9] + Bi * E[8];
-  if (!Number.isFinite(Ar + Ai + Br + Bi + dRe + dIm)) return { ok: false, passes: Math.max(plus, minus), evaluations: n };
+  if (!Number.isFinite(Ar + Ai + Br + Bi + dRe + dIm))
+    return { ok: false, passes: Math.max(plus, minus), evaluations: n, correction: 0 };
   y[0] = Ar + Br;
   y[1] = Ai + Bi;
   y[2] = dRe;
   y[3] = dIm;
   scaleOut[0] = shift;
-  return { ok: true, passes: Math.max(plus, minus), evaluations: n };
+  return { ok: true, passes: Math.max(plus, minus), evaluations: n, correction: Math.max(w.last[0], w.last[1]) };
 }

@@ -104,6 +104,22 @@ describe("the 'riccati' route against the earlier 'ode' route", () => {
     });
   }
 
+  for (const c of [
+    { l: 0, omega: 0.3 },
+    { l: 2, omega: 0.8 },
+  ]) {
+    it(`massive s = 0 near threshold (a = 0, l = ${c.l}, Mω = ${c.omega}, v = k∞/ω = 0.05): Riccati steps carry the far zone, ln|Z_in| is within the errorEstimate of a 1e-14 'ode' solve and the work is at most twice the massless mode's`, () => {
+      const hole0 = kerrHole({ a: 0 });
+      const massless = { hole: hole0, s: 0, m: 0, omega: c.omega, lambda: c.l * (c.l + 1) };
+      const problem = { ...massless, mu: c.omega * Math.sqrt(1 - 0.05 ** 2) };
+      const ric = solveRadial(problem, { tol: 1e-11 });
+      const tight = solveRadial(problem, { tol: 1e-14, oscillation: 'ode' });
+      expect(ric.diagnostics.riccatiSteps).toBeGreaterThan(0);
+      expect(Math.abs(ric.logAbsZIn - tight.logAbsZIn)).toBeLessThan(ric.diagnostics.errorEstimate);
+      expect(ric.diagnostics.rhsEvaluations).toBeLessThan(2 * solveRadial(massless, { tol: 1e-11 }).diagnostics.rhsEvaluations);
+    });
+  }
+
   it('two-sided s = 2, l = 20, Mω = 10: ln|Z_in| of the +s field agrees with the ode route to 1e-9 with less work', () => {
     const problem = { hole, s: 2, m: 4, omega: 10, lambda: 20 * 21 - 6 };
     const ric = solveTwoSided(problem, { tol: 1e-11 });
