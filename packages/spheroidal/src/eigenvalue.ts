@@ -5,6 +5,7 @@ import { leaverRoot } from './leaver.js';
 import {
   type SpheroidalOptions,
   type SpheroidalProblem,
+  validateRealC,
   validateSpheroidalOptions,
   validateSpheroidalProblem,
 } from './problem.js';
@@ -112,6 +113,21 @@ export interface SolvedMode {
 export function solveMode(problem: unknown, options: unknown): SolvedMode {
   const { s, l, m, c } = validateSpheroidalProblem(problem);
   const { leaver, continuation: useCache } = validateSpheroidalOptions(options);
+  return solveValidMode(s, l, m, c, leaver, useCache);
+}
+
+/**
+ * The eigenvalue of a mode whose numbers the caller has already validated as
+ * a mode of a field (core's validateMode: s one of SPIN_WEIGHTS, |s| ≤ l ≤ MAX_L,
+ * |m| ≤ l, l − s and m − s integers), with the default options: the same
+ * result as `spheroidalEigenvalue({ s, l, m, c })` without re-checking the
+ * problem object. c is still checked (InputError naming problem.c).
+ */
+export function spheroidalEigenvalueOfValidMode(s: number, l: number, m: number, c: number): SpheroidalEigenvalue {
+  return solveValidMode(s, l, m, validateRealC(c), 'off', true).result;
+}
+
+function solveValidMode(s: number, l: number, m: number, c: number, leaver: string, useCache: boolean): SolvedMode {
   const key = modeKey(s, l, m);
   const previous = useCache ? modeCache.get(key) : undefined;
   if (previous && previous.c === c && previous.leaver === leaver) {

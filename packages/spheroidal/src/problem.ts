@@ -119,10 +119,14 @@ const REAL_KEYS = ['s', 'l', 'm', 'c'] as const;
 /** Validate a real-c problem; returns its numbers. */
 export function validateSpheroidalProblem(problem: unknown): { s: number; l: number; m: number; c: number } {
   const { s, l, m } = validateModeNumbers(problem, REAL_KEYS);
-  const c = (problem as { c?: unknown }).c;
+  return { s, l, m, c: validateRealC((problem as { c?: unknown }).c) };
+}
+
+/** Validate the spheroidicity of a real-c problem (InputError naming problem.c); tiny |c| becomes 0. */
+export function validateRealC(c: unknown): number {
   if (typeof c !== 'number' || !Number.isFinite(c)) throw new InputError('problem.c', 'a finite real number', c);
   if (Math.abs(c) > MAX_REAL_C) throw new InputError('problem.c', `|c| ≤ ${MAX_REAL_C}`, c);
   // A c below 1e-150 changes A by c² < 1e-300 relative to c = 0: take the exact c = 0 values (a subnormal c
   // would underflow inside the series).
-  return { s, l, m, c: Math.abs(c) < 1e-150 ? 0 : c };
+  return Math.abs(c) < 1e-150 ? 0 : c;
 }
