@@ -84,6 +84,17 @@ export function validateSpheroidalOptions(options: unknown): Readonly<Required<S
   return { leaver: given.leaver ?? 'off', continuation: given.continuation ?? true };
 }
 
+/** requireKeyedObject's own text for a key list, formatted once per list instead of on every call. */
+const keyedTexts = new WeakMap<readonly string[], string>();
+function keyedText(keys: readonly string[]): string {
+  let text = keyedTexts.get(keys);
+  if (text === undefined) {
+    text = `an object { ${keys.join(', ')} }`;
+    keyedTexts.set(keys, text);
+  }
+  return text;
+}
+
 const SPIN_WEIGHT_TEXT = 'one of −2, −1, −1/2, 0, 1/2, 1, 2 (SPIN_WEIGHTS)';
 
 /**
@@ -98,7 +109,7 @@ export function validateModeNumbers(
   parameter = 'problem',
 ): { s: number; l: number; m: number } {
   const name = (key: string) => (parameter ? `${parameter}.${key}` : key);
-  if (parameter) requireKeyedObject(parameter, problem, keys);
+  if (parameter) requireKeyedObject(parameter, problem, keys, keyedText(keys));
   const { s, l, m } = problem as { s?: unknown; l?: unknown; m?: unknown };
   if (typeof s !== 'number' || !(SPIN_WEIGHTS as readonly number[]).includes(s))
     throw new InputError(name('s'), SPIN_WEIGHT_TEXT, s);
