@@ -128,11 +128,21 @@ const summary = {};
 for (const name of ['base', 'new']) {
   const solve = median(perSolve[name]);
   const eigen = median(perEigen[name]);
-  summary[name] = { msPerSolve: solve, msPerEigenvalue: eigen, eigenvalueShare: eigen / solve };
+  const mean = (v) => v.reduce((x, y) => x + y, 0) / v.length;
+  summary[name] = {
+    msPerSolve: solve,
+    msPerEigenvalue: eigen,
+    eigenvalueShare: eigen / solve,
+    meanMsPerSolve: mean(perSolve[name]),
+    meanMsPerEigenvalue: mean(perEigen[name]),
+  };
   console.log(
     `${name}: ${(1000 * solve).toFixed(1)} µs CPU per greybody solve (median of ${perSolve[name].length} blocks of ${BLOCK}, ${ROUNDS - 1} passes after a warm-up pass), eigenvalue ${(1000 * eigen).toFixed(1)} µs = ${((100 * eigen) / solve).toFixed(1)} % of a solve`,
   );
 }
+console.log(
+  `mean over all blocks (outliers included): solve ${(1000 * summary.base.meanMsPerSolve).toFixed(1)} → ${(1000 * summary.new.meanMsPerSolve).toFixed(1)} µs, eigenvalue ${(1000 * summary.base.meanMsPerEigenvalue).toFixed(1)} → ${(1000 * summary.new.meanMsPerEigenvalue).toFixed(1)} µs`,
+);
 const ratios = perSolve.base.map((b, i) => perSolve.new[i] / b);
 const eigenRatios = perEigen.base.map((b, i) => perEigen.new[i] / b);
 console.log(`new/base per block (median): solve ${median(ratios).toFixed(3)}, eigenvalue ${median(eigenRatios).toFixed(3)}`);
