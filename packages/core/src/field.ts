@@ -41,6 +41,8 @@ export interface CheckedField {
 export const FIELD_MASS_RANGE = { min: 0, max: 30 } as const;
 
 const ALLOWED = 'one of 0, 1/2, 1, 2';
+const FIELD_KEYS = ['spin', 'mass'];
+const FIELD_ALLOWED = `an object { spin, mass? } with spin ${ALLOWED}`;
 const TEXT: Record<string, FieldSpin> = { '0': 0, '1/2': 0.5, '0.5': 0.5, '1': 1, '2': 2 };
 
 /** Read a field spin from a number or its text ('1/2' and 0.5 are the same spin). */
@@ -56,7 +58,7 @@ export function parseFieldSpin(value: unknown, parameter = 'spin'): FieldSpin {
 /** Validate a field object and return it with its spin as a number and its mass (0 if absent). */
 export function validateField(value: unknown, parameter = 'field'): CheckedField {
   requireLabel('parameter', parameter);
-  const field = requireKeyedObject(parameter, value, ['spin', 'mass'], `an object { spin, mass? } with spin ${ALLOWED}`);
+  const field = requireKeyedObject(parameter, value, FIELD_KEYS, FIELD_ALLOWED);
   const spin = parseFieldSpin(field.spin, `${parameter}.spin`);
   return { spin, mass: field.mass === undefined ? 0 : parseFieldMass(field.mass, `${parameter}.mass`) };
 }

@@ -30,15 +30,18 @@ export function validateHole(value: unknown, parameter = 'hole', maxARatio = MAX
   if (typeof maxARatio !== 'number' || !(maxARatio > 0 && maxARatio <= 1))
     throw new InputError('maxARatio', 'a number in (0, 1]', maxARatio);
   const { a, mass = 1 } = requireKeyedObject(parameter, value, ['a', 'mass'], 'an object { a, mass? } with |a| < mass');
-  const M = requireFinite(`${parameter}.mass`, mass, 'a finite number > 0');
+  if (typeof mass !== 'number' || !Number.isFinite(mass)) requireFinite(`${parameter}.mass`, mass, 'a finite number > 0');
+  const M = mass as number;
   if (!(M > 0) || !Number.isFinite(M * M)) throw new InputError(`${parameter}.mass`, 'a finite number > 0 with M² finite', M);
-  const bound = maxARatio < 1 ? `|a| ≤ ${maxARatio} M = ${maxARatio * M}` : `|a| < M = ${M}`;
-  const A = requireFinite(`${parameter}.a`, a, bound);
+  // Formatted only on refusal (number formatting on every call was a visible share of a valid hole's check).
+  const bound = () => (maxARatio < 1 ? `|a| ≤ ${maxARatio} M = ${maxARatio * M}` : `|a| < M = ${M}`);
+  if (typeof a !== 'number' || !Number.isFinite(a)) requireFinite(`${parameter}.a`, a, bound());
+  const A = a as number;
   const ok = maxARatio < 1 ? Math.abs(A) <= maxARatio * M : Math.abs(A) < M;
   if (!ok) {
     throw new InputError(
       `${parameter}.a`,
-      bound,
+      bound(),
       A,
       Math.abs(A) === M
         ? 'the extremal hole has zero surface gravity and coincident horizons; it is a limit, not an input'

@@ -29,12 +29,15 @@ export const MAX_L = 230;
 
 /** Validate angular numbers for a field spin. */
 export function validateAngular(spin: FieldSpin, l: unknown, m: unknown, parameter = 'mode'): { l: number; m: number } {
-  const lAllowed = `${spin} ≤ l ≤ ${MAX_L} with l − ${spin} an integer`;
-  const L = requireFinite(`${parameter}.l`, l, lAllowed);
-  if (L < spin || L > MAX_L || !Number.isInteger(L - spin)) throw new InputError(`${parameter}.l`, lAllowed, L);
-  const mAllowed = `|m| ≤ l = ${L} with m − ${spin} an integer`;
-  const Mz = requireFinite(`${parameter}.m`, m, mAllowed);
-  if (Math.abs(Mz) > L || !Number.isInteger(Mz - spin)) throw new InputError(`${parameter}.m`, mAllowed, Mz);
+  // The texts are formatted only on refusal: formatting them on every call was most of a valid mode's check.
+  const lAllowed = () => `${spin} ≤ l ≤ ${MAX_L} with l − ${spin} an integer`;
+  if (typeof l !== 'number' || !Number.isFinite(l)) requireFinite(`${parameter}.l`, l, lAllowed());
+  const L = l as number;
+  if (L < spin || L > MAX_L || !Number.isInteger(L - spin)) throw new InputError(`${parameter}.l`, lAllowed(), L);
+  const mAllowed = () => `|m| ≤ l = ${L} with m − ${spin} an integer`;
+  if (typeof m !== 'number' || !Number.isFinite(m)) requireFinite(`${parameter}.m`, m, mAllowed());
+  const Mz = m as number;
+  if (Math.abs(Mz) > L || !Number.isInteger(Mz - spin)) throw new InputError(`${parameter}.m`, mAllowed(), Mz);
   return { l: L, m: Mz };
 }
 

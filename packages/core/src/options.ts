@@ -15,7 +15,10 @@ export function validateOptions<O extends object>(options: unknown, spec: Option
   requireLabel('context', context);
   if (typeof spec !== 'object' || spec === null) throw new InputError('spec', 'an object of validators', spec);
   if (options === undefined) return {};
-  const given = requireObject(context, options, `an object with keys ${Object.keys(spec).join(', ') || '(none)'}`);
+  // The key list is formatted only on refusal.
+  if (typeof options !== 'object' || options === null || Array.isArray(options))
+    requireObject(context, options, `an object with keys ${Object.keys(spec).join(', ') || '(none)'}`);
+  const given = options as Record<string, unknown>;
   const out: Partial<O> = {};
   for (const key of Object.keys(given)) {
     if (!Object.hasOwn(spec, key)) {

@@ -10,9 +10,8 @@ export const TOLERANCE_RANGE = { min: 1e-12, max: 1e-2 } as const;
 
 /** Return `value` if it is a tolerance in TOLERANCE_RANGE; otherwise throw an InputError naming `parameter`. */
 export function validateTolerance(value: unknown, parameter = 'tol'): number {
-  const allowed = `${TOLERANCE_RANGE.min} ≤ ${parameter} ≤ ${TOLERANCE_RANGE.max}`;
   if (typeof value !== 'number' || !(value >= TOLERANCE_RANGE.min && value <= TOLERANCE_RANGE.max)) {
-    throw new InputError(parameter, allowed, value);
+    throw new InputError(parameter, `${TOLERANCE_RANGE.min} ≤ ${parameter} ≤ ${TOLERANCE_RANGE.max}`, value);
   }
   return value;
 }

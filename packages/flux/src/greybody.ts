@@ -18,7 +18,8 @@ import {
   type FieldSpin,
 } from '@penumbra/core';
 import { kerrHole, type KerrHole } from '@penumbra/kerr';
-import { radialSeparationConstant, spheroidalEigenvalue } from '@penumbra/spheroidal';
+import { radialSeparationConstant } from '@penumbra/spheroidal';
+import { spheroidalEigenvalueOfValidMode } from '@penumbra/spheroidal/internal';
 import {
   INTEGRATORS,
   solveRadial,
@@ -127,7 +128,8 @@ function prepare(checked: CheckedProblem): Prepared {
   const hole = kerrHole({ a, mass });
   const mu = fieldMass / mass;
   const kInf = mu === 0 ? omega : Math.sqrt((omega - mu) * (omega + mu));
-  const eig = spheroidalEigenvalue({ s: spin, l, m, c: a * kInf });
+  // (spin, l, m) passed core's validateMode in checkProblem: skip re-checking them as a spheroidal problem.
+  const eig = spheroidalEigenvalueOfValidMode(spin, l, m, a * kInf);
   const lambdaPlus = radialSeparationConstant(eig.A, a, omega, m);
   return { spin, fieldMass, mu, kInf, l, m, hole, omega, A: eig.A, lambdaPlus };
 }

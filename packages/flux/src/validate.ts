@@ -56,13 +56,17 @@ export function validateOmega(omega: unknown, mass: number, parameter = 'omega')
   return w;
 }
 
+const PROBLEM_KEYS = ['hole', 'mode', 'omega'];
+// requireKeyedObject's own text for these keys, formatted once instead of on every call.
+const PROBLEM_ALLOWED = `an object { ${PROBLEM_KEYS.join(', ')} }`;
+
 /**
  * Validate a greybody problem { hole, mode, omega }. A massive field must be
  * above its mass threshold (Mω > Mμ); whether its spin has a massive solver
  * is decided by the dispatch (massive.ts).
  */
 export function checkProblem(problem: unknown, anyPositiveOmega = false): CheckedProblem {
-  const p = requireKeyedObject('problem', problem, ['hole', 'mode', 'omega']);
+  const p = requireKeyedObject('problem', problem, PROBLEM_KEYS, PROBLEM_ALLOWED);
   const { spin, fieldMass, l, m } = validateMode(p.mode, 'mode');
   const { a, mass } = validateHole(p.hole, 'hole');
   const omega = anyPositiveOmega ? positiveOmega(p.omega) : validateOmega(p.omega, mass);

@@ -84,6 +84,17 @@ export function validateSpheroidalOptions(options: unknown): Readonly<Required<S
   return { leaver: given.leaver ?? 'off', continuation: given.continuation ?? true };
 }
 
+/** requireKeyedObject's own text for a key list, formatted once per list instead of on every call. */
+const keyedTexts = new WeakMap<readonly string[], string>();
+function keyedText(keys: readonly string[]): string {
+  let text = keyedTexts.get(keys);
+  if (text === undefined) {
+    text = `an object { ${keys.join(', ')} }`;
+    keyedTexts.set(keys, text);
+  }
+  return text;
+}
+
 const SPIN_WEIGHT_TEXT = 'one of −2, −1, −1/2, 0, 1/2, 1, 2 (SPIN_WEIGHTS)';
 
 /**
@@ -98,7 +109,7 @@ export function validateModeNumbers(
   parameter = 'problem',
 ): { s: number; l: number; m: number } {
   const name = (key: string) => (parameter ? `${parameter}.${key}` : key);
-  if (parameter) requireKeyedObject(parameter, problem, keys);
+  if (parameter) requireKeyedObject(parameter, problem, keys, keyedText(keys));
   const { s, l, m } = problem as { s?: unknown; l?: unknown; m?: unknown };
   if (typeof s !== 'number' || !(SPIN_WEIGHTS as readonly number[]).includes(s))
     throw new InputError(name('s'), SPIN_WEIGHT_TEXT, s);
@@ -119,10 +130,14 @@ const REAL_KEYS = ['s', 'l', 'm', 'c'] as const;
 /** Validate a real-c problem; returns its numbers. */
 export function validateSpheroidalProblem(problem: unknown): { s: number; l: number; m: number; c: number } {
   const { s, l, m } = validateModeNumbers(problem, REAL_KEYS);
-  const c = (problem as { c?: unknown }).c;
+  return { s, l, m, c: validateRealC((problem as { c?: unknown }).c) };
+}
+
+/** Validate the spheroidicity of a real-c problem (InputError naming problem.c); tiny |c| becomes 0. */
+export function validateRealC(c: unknown): number {
   if (typeof c !== 'number' || !Number.isFinite(c)) throw new InputError('problem.c', 'a finite real number', c);
   if (Math.abs(c) > MAX_REAL_C) throw new InputError('problem.c', `|c| ≤ ${MAX_REAL_C}`, c);
   // A c below 1e-150 changes A by c² < 1e-300 relative to c = 0: take the exact c = 0 values (a subnormal c
   // would underflow inside the series).
-  return { s, l, m, c: Math.abs(c) < 1e-150 ? 0 : c };
+  return Math.abs(c) < 1e-150 ? 0 : c;
 }

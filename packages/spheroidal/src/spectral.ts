@@ -62,6 +62,18 @@ function tailIsConverged(vector: Float64Array, size: number, stride: 1 | 2): boo
   return tail < TAIL_TOLERANCE;
 }
 
+/**
+ * Working vectors reused across calls (a typed array with its own store costs
+ * about 1 µs to allocate, comparable to a whole factorisation of the band):
+ * slot 0 holds K·b in finishSolution, slot 1 the seed vector of a warm solve
+ * that is not grown to its tail (a seed only: its vector is never kept).
+ */
+const scratchVectors = [new Float64Array(64), new Float64Array(64)];
+function scratch(n: number, slot: 0 | 1): Float64Array {
+  if (scratchVectors[slot].length < n) scratchVectors[slot] = new Float64Array(Math.max(n, 2 * scratchVectors[slot].length));
+  return scratchVectors[slot];
+}
+
 function finishSolution(
   band: Band,
   vector: Float64Array,
@@ -75,7 +87,7 @@ function finishSolution(
   for (let i = 0; i < n; i++) vector[i] *= inv;
   const A = bandQuadratic(band.d0, band.d1, band.d2, n, vector);
   const dAdc = bandQuadratic(band.e0, band.e1, band.e2, n, vector);
-  const kv = new Float64Array(n);
+  const kv = scratch(n, 0);
   bandMultiply(band.d0, band.d1, band.d2, n, vector, kv);
   let r2 = 0;
   for (let i = 0; i < n; i++) {
@@ -165,7 +177,8 @@ export function solveWarm(
   for (let attempt = 0; attempt < 4; attempt++) {
     const band = buildBand(s, m, c, lFirst, stride, size);
     const ws = workspace(size);
-    const x = new Float64Array(size);
+    // A seed (growToTail false) lives in scratch; its vector is dropped by the caller (settle).
+    const x = growToTail ? new Float64Array(size) : scratch(size, 1).subarray(0, size).fill(0);
     if (vectorGuess) {
       const k = Math.min(size, vectorGuess.length);
       for (let i = 0; i < k; i++) x[i] = vectorGuess[i];
@@ -197,8 +210,8 @@ export function solveWarm(
     if (!converged) return null;
     const delta = Math.max(1e-11 * band.norm, 1e-9);
     tally.evaluations += 2;
-    if (ws.factor(band, size, sigma - delta) !== index) return null;
-    if (ws.factor(band, size, sigma + delta) !== index + 1) return null;
+    if (ws.count(band, size, sigma - delta) !== index) return null;
+    if (ws.count(band, size, sigma + delta) !== index + 1) return null;
     if (!growToTail || tailIsConverged(x, size, stride)) return finishSolution(band, x, iterations, 'spectral-rqi');
     size = Math.ceil(size * 1.5) + 8;
     vectorGuess = x;
@@ -230,7 +243,7 @@ export function solveBisection(
   for (let it = 0; it < 200 && hi - lo > width; it++) {
     const mid = 0.5 * (lo + hi);
     tally.evaluations++;
-    if (ws.factor(band, size, mid) <= index) lo = mid;
+    if (ws.count(band, size, mid) <= index) lo = mid;
     else hi = mid;
   }
   const start = new Float64Array(size).fill(1);
@@ -281,17 +294,17 @@ export function settleEigenvalue(
       if (lo > -B) {
         counts++;
         tally.evaluations++;
-        if (ws.factor(band, n, lo) > index) return null;
+        if (ws.count(band, n, lo) > index) return null;
       }
       if (hi < B) {
         counts++;
         tally.evaluations++;
-        if (ws.factor(band, n, hi) <= index) return null;
+        if (ws.count(band, n, hi) <= index) return null;
       }
     }
     counts++;
     tally.evaluations++;
-    if (ws.factor(band, n, mid) <= index) lo = mid;
+    if (ws.count(band, n, mid) <= index) lo = mid;
     else hi = mid;
   }
   return { A: 0.5 * (lo + hi), counts };
@@ -329,7 +342,8 @@ export function settledSolution(
   }
   const solution = finishSolution(band, x, iterations, method);
   // Keep the bisected value; the Rayleigh quotient of x only enters the residual.
-  return { ...solution, A, vector: solution.vector };
+  solution.A = A;
+  return solution;
 }
 
 /** Whether the eigenvector's trailing coefficients are below TAIL_TOLERANCE (the truncation is converged). */
