@@ -447,7 +447,7 @@ export interface MassForLifetime {
   lifetimeSeconds: number;
   /** bisection steps in ln M */
   iterations: number;
-  /** relative error of the mass: the lifetime's error estimate / 3 (lifetime ∝ M³) plus the bisection width */
+  /** relative error of the mass: the lifetime's error estimate (ODE + tables along the track) / 3 (τ grows at least as M₀³) plus the bisection width */
   relError: number;
 }
 
@@ -499,6 +499,8 @@ export function massForLifetime(problem: MassForLifetimeProblem): MassForLifetim
     aStar0,
     lifetimeSeconds: ev.lifetimeSeconds,
     iterations,
+    // δM₀/M₀ = (δτ/τ)/(d ln τ/d ln M₀) with d ln τ/d ln M₀ = M₀³/(f₀ τ) ≥ 3 where f does not fall as the hole
+    // gets lighter (τ ≤ M₀³/(3 f₀)); the bisection width on top
     relError: ev.diagnostics.errorEstimate / 3 + (hi - lo),
   };
 }
