@@ -35,6 +35,7 @@ function usedWindow(xs: readonly number[], x: number, even: boolean): { i0: numb
   return { i0: cubicWindowStart(xs, x, even), size: 4 };
 }
 
+/** How far (in nodes) the divided-difference sets of localCubicError reach beyond the window. */
 const SPREAD = 2;
 const signedNode = (xs: readonly number[], k: number) => (k < 0 ? -xs[-k] : xs[k]);
 
@@ -58,12 +59,15 @@ export function localCubicWeights(xs: readonly number[], x: number, even = false
 
 /**
  * Local error estimate of localCubic at x (absolute, in the units of y): the
- * next term of the interpolation, |p_{W+e}(x) − p_W(x)| = |y[W, e]|·|∏_{k∈W}(x − x_k)|,
- * with W the window used at x, e the node just left or right of it (mirrored
- * nodes count when `even`) and y[W, e] the divided difference over W and e;
- * the larger of the two. It vanishes at every node of W, so at the nodes
+ * next term of the interpolation, |y[S]|·|∏_{k∈W}(x − x_k)|, with W the
+ * window used at x and y[S] the divided difference over a set S of
+ * size(W) + 1 consecutive nodes (mirrored nodes count when `even`); the
+ * largest over the sets that start from two nodes left of W to one node
+ * right of its start, so that an accidental zero of one divided difference
+ * does not hide the error. With S = W plus the next node this is
+ * p_S(x) − p_W(x) exactly. It vanishes at every node of W, so at the nodes
  * themselves, and grows inside a cell as the error does; for smooth data it
- * is the leading term of the error itself.
+ * is of the size of the leading error term.
  */
 export function localCubicError(xs: readonly number[], ys: readonly number[], x: number, even = false): number {
   const n = xs.length;
