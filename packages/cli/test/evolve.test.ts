@@ -35,7 +35,7 @@ describe('penumbra evolve', () => {
   });
   test('CSV track with units in the header; unknown species and out-of-range a* exit with code 2', async () => {
     const csv = (await run('evolve', '--a', '0.5', '--csv', '--points', '5')).stdout.trim().split('\n');
-    expect(csv[0]).toBe('timeSeconds [s],mass [g],aStar [1],temperatureGeV [GeV],inaccurate');
+    expect(csv[0]).toBe('timeSeconds [s],mass [g],aStar [1],temperatureGeV [GeV],fRelError [1],inaccurate');
     expect((await run('evolve', '--a', '0.5', '--content', 'axion')).code).toBe(2);
     expect((await run('evolve', '--a', '1.2')).code).toBe(2);
   });

@@ -18,6 +18,11 @@
  * massive-rate-table.partial.jsonl in the working directory); a rerun with the
  * same grid and tol skips the tasks found there (resume after an interruption;
  * the time then counts this run only, plus the seconds recorded in the file).
+ * Environment, for measurements: MASSIVE_TABLE_WORKERS (default 2) worker
+ * threads; MASSIVE_TABLE_OUT the module's path (default src/massiveRateTableData.ts);
+ * MASSIVE_TABLE_ONLY_A comma-separated a* node indices to solve (default all;
+ * e.g. 1,3,5,7 for the θ midpoints of a 9-node grid). Each task's CPU seconds
+ * (process CPU, so with one worker the task's own) go into PARTIAL.
  * With --assemble, no solve is run: the module is written from PARTIAL, each
  * spin keeping its first a* nodes whose every Mμ is done (a cut-short run;
  * a spin with fewer than 2 such nodes is left out).
@@ -92,11 +97,13 @@ if (isMainThread && invoked) {
         carried += r.seconds;
       }
     }
+  const onlyA = process.env.MASSIVE_TABLE_ONLY_A?.split(',').map(Number);
   const tasks = [];
   for (let j = 0; j < points; j++)
-    for (const spin of [0, 0.5, 1])
-      for (let i = 0; i < masses.length; i++)
-        if (!results.has(`${spin}:${i}:${j}`)) tasks.push({ i, j, spin, mu: masses[i], a: aStar[j] });
+    if (!onlyA || onlyA.includes(j))
+      for (const spin of [0, 0.5, 1])
+        for (let i = 0; i < masses.length; i++)
+          if (!results.has(`${spin}:${i}:${j}`)) tasks.push({ i, j, spin, mu: masses[i], a: aStar[j] });
   const total = results.size + tasks.length;
   // --assemble: no new solves; each spin keeps its a* nodes whose every Mμ is done (at least 3)
   if (process.argv.includes('--assemble')) tasks.length = 0;
@@ -107,11 +114,12 @@ if (isMainThread && invoked) {
   };
   const started = Date.now();
   let next = 0;
+  const workers = Number(process.env.MASSIVE_TABLE_WORKERS ?? 2);
   await Promise.all(
-    [0, 1].map(
+    Array.from({ length: workers }, (_, k) => k).map(
       () =>
         new Promise((resolve, reject) => {
-          const w = new Worker(fileURLToPath(import.meta.url), { workerData: { tol } });
+          const w = new Worker(fileURLToPath(import.meta.url), { workerData: { tol, workers } });
           const feed = () => {
             if (next >= tasks.length) {
               w.terminate();
@@ -154,7 +162,7 @@ if (isMainThread && invoked) {
   const calls = [...results.values()].reduce((t, r) => t + r.gammaCalls, 0);
   const table = { aStar, theta, fieldMass: masses, spins: rows, tol, gammaCalls: calls };
   const seconds = (Date.now() - started) / 1000 + carried;
-  const out = fileURLToPath(new URL('../src/massiveRateTableData.ts', import.meta.url));
+  const out = process.env.MASSIVE_TABLE_OUT ?? fileURLToPath(new URL('../src/massiveRateTableData.ts', import.meta.url));
   writeFileSync(out, tableModule(table, seconds));
   console.log(
     `wrote ${out}: ${masses.length} field masses × ${points} a* nodes × ${spins.length} spins, tol ${tol}, ${calls} greybody solves, ${seconds.toFixed(1)} s on 2 workers; rebuild with npx tsc -b`,
@@ -163,7 +171,16 @@ if (isMainThread && invoked) {
   const { fieldTotals } = await import('@penumbra/emission/internal');
   parentPort.on('message', ({ i, j, spin, mu, a }) => {
     const t0 = Date.now();
+    const cpu0 = process.cpuUsage();
     const totals = fieldTotals(spin, mu, a, workerData.tol);
-    parentPort.postMessage({ i, j, spin, totals, seconds: (Date.now() - t0) / 1000 / 2 });
+    const cpu = process.cpuUsage(cpu0);
+    parentPort.postMessage({
+      i,
+      j,
+      spin,
+      totals,
+      seconds: (Date.now() - t0) / 1000 / workerData.workers,
+      cpuSeconds: (cpu.user + cpu.system) / 1e6,
+    });
   });
 }

@@ -16,6 +16,7 @@ import { ConvergenceError, InputError, numberIn, requireFinite, validateOptions,
 import { massToKg, type MassUnit } from '@penumbra/kerr';
 import { evolutionTimeUnitSeconds } from './evolution.js';
 import { FIELD_MASS_PER_GRAM_GEV, type MassLossRates } from './massLoss.js';
+import { GL5, hermite, trackError, type TrackNode } from './trackError.js';
 import { requireProblem } from './validate.js';
 
 /** The age of the universe, 13.787 Gyr (Planck 2018 results VI, A&A 641, A6 (2020)), in seconds (Julian years). */
@@ -77,6 +78,10 @@ export interface FinalStage {
   temperatureGeV: number;
   /** energy per species over the stage; the energies add up to energyGeV */
   species: SpeciesEnergy[];
+  /** relative error estimate of massGrams (and energyGeV) from the table errors of f: (∫_stage ε dt)·f(M_τ)/M_τ³ */
+  relError: number;
+  /** bound on the error of aStar from the table errors of f and g (0 at formation) */
+  aStarError: number;
 }
 
 /** How a history was computed; `errorEstimate` bounds the lifetime's relative error (ODE change + table error). */
@@ -85,8 +90,14 @@ export interface EvaporationDiagnostics extends Diagnostics {
   odeTol: number;
   /** |lifetime(odeTol) − lifetime(odeTol/2)| / lifetime */
   halvedTolChange: number;
-  /** relative error of f and g from the tables (node + interpolation) */
+  /**
+   * relative error of the lifetime from the tables: the local relative error
+   * of f (rates.at(M, a*).error), plus that of a* carried into f, averaged over
+   * the track with the weight dt (trackError.ts)
+   */
   tableError: number;
+  /** bound on the error of a* at the end of the integrated track, from the table errors of f and g */
+  aStarTableError: number;
   /** u = ln(M₀/M) where the closed-form rest takes over */
   uEnd: number;
 }
@@ -136,6 +147,7 @@ function checkRates(value: unknown): MassLossRates {
     typeof r !== 'object' ||
     r === null ||
     typeof r.at !== 'function' ||
+    typeof r.values !== 'function' ||
     typeof r.aMax !== 'number' ||
     !Array.isArray(r.species)
   )
@@ -149,13 +161,6 @@ function unitTemperature(a: number): number {
   return root / (4 * Math.PI * (1 + root));
 }
 
-/** One stored ODE point: u, state and its derivative. */
-interface Node {
-  u: number;
-  y: number[];
-  dy: number[];
-}
-
 /** One integration from formation; the state is [a*, t/M₀³, E_1/M₀, …]. */
 function integrate(rates: MassLossRates, m0: number, aStar0: number, tol: number, uEnd: number) {
   const n = rates.species.length;
@@ -163,7 +168,7 @@ function integrate(rates: MassLossRates, m0: number, aStar0: number, tol: number
   const deriv = (dy: Float64Array | number[], y: Float64Array | number[], u: number) => {
     counter.evaluations++;
     const a = Math.max(0, Math.min(y[0], rates.aMax));
-    const pt = rates.at(m0 * Math.exp(-u), a);
+    const pt = rates.values(m0 * Math.exp(-u), a);
     if (!(pt.f > 0))
       throw new InputError(
         'rates',
@@ -178,13 +183,13 @@ function integrate(rates: MassLossRates, m0: number, aStar0: number, tol: number
   };
   const y0 = new Float64Array(2 + n);
   y0[0] = aStar0;
-  const node = (u: number, y: ArrayLike<number>): Node => {
+  const node = (u: number, y: ArrayLike<number>): TrackNode => {
     const dy = new Array<number>(2 + n).fill(0);
     const yy = Array.from(y);
     deriv(dy, yy, u);
     return { u, y: yy, dy };
   };
-  const nodes: Node[] = [node(0, y0)];
+  const nodes: TrackNode[] = [node(0, y0)];
   const integ = ode45(y0, deriv, 0, 1e-3, { tol, dtMaxMag: 0.25, verbose: false });
   let steps = 0;
   while (integ.step(uEnd)) {
@@ -201,23 +206,15 @@ function integrate(rates: MassLossRates, m0: number, aStar0: number, tol: number
   }
   if (integ.t > nodes[nodes.length - 1].u) nodes.push(node(integ.t, integ.y));
   const last = nodes[nodes.length - 1];
-  const endPoint = rates.at(m0 * Math.exp(-last.u), Math.max(0, Math.min(last.y[0], rates.aMax)));
+  const endPoint = rates.values(m0 * Math.exp(-last.u), Math.max(0, Math.min(last.y[0], rates.aMax)));
   const rest = Math.exp(-3 * last.u) / (3 * endPoint.f);
   const lifetime = last.y[1] + rest;
   // after uEnd f is constant: each species radiates its share of the mass left
   const energies = rates.species.map((_, i) => last.y[2 + i] + (Math.exp(-last.u) * endPoint.species[i].power) / endPoint.f);
-  return { nodes, lifetime, energies, endPoint, steps, evaluations: counter.evaluations };
+  return { nodes, lifetime, rest, energies, endPoint, steps, evaluations: counter.evaluations };
 }
 
 type Run = ReturnType<typeof integrate>;
-
-const GL5 = [
-  [-0.906179845938664, 0.236926885056189],
-  [-0.5384693101056831, 0.4786286704993665],
-  [0, 0.5688888888888889],
-  [0.5384693101056831, 0.4786286704993665],
-  [0.906179845938664, 0.236926885056189],
-];
 
 /**
  * Remaining time and per-species energies (units of M₀³ and M₀) from node k's
@@ -233,7 +230,7 @@ function intervalRest(run: Run, rates: MassLossRates, m0: number, k: number, s: 
   for (const [x, w] of GL5) {
     const u = u0 + half * (x + 1);
     const a = Math.max(0, Math.min(hermite(p, q, 0, (u - p.u) / (q.u - p.u)), rates.aMax));
-    const pt = rates.at(m0 * Math.exp(-u), a);
+    const pt = rates.values(m0 * Math.exp(-u), a);
     out[0] += (w * half * Math.exp(-3 * u)) / pt.f;
     for (let i = 0; i < rates.species.length; i++) out[1 + i] += (w * half * Math.exp(-u) * pt.species[i].power) / pt.f;
   }
@@ -270,21 +267,17 @@ function backwardStage(run: Run, rates: MassLossRates, m0: number, tauHat: numbe
       u: p.u + s * (q.u - p.u),
       aStar: Math.max(0, hermite(p, q, 0, s)),
       energies: rates.species.map((_, i) => rest[1 + i] + part[1 + i]),
+      k,
+      s,
+      /** share of step k's time after the stage's start */
+      fraction: whole[0] > 0 ? part[0] / whole[0] : 0,
     };
   }
-  return { u: 0, aStar: nodes[0].y[0], energies: run.energies };
-}
-
-/** Cubic Hermite value of component k between nodes p and q at fraction s. */
-function hermite(p: Node, q: Node, k: number, s: number): number {
-  const h = q.u - p.u;
-  const s2 = s * s;
-  const s3 = s2 * s;
-  return (2 * s3 - 3 * s2 + 1) * p.y[k] + (s3 - 2 * s2 + s) * h * p.dy[k] + (-2 * s3 + 3 * s2) * q.y[k] + (s3 - s2) * h * q.dy[k];
+  return { u: 0, aStar: nodes[0].y[0], energies: run.energies, k: nodes.length, s: 0, fraction: 0 };
 }
 
 /** The first point where component k, decreasing (sign −1) or increasing (+1), passes `target`; null if never. */
-function locate(run: Run, k: number, target: number, sign: 1 | -1): { p: Node; q: Node; s: number } | null {
+function locate(run: Run, k: number, target: number, sign: 1 | -1): { p: TrackNode; q: TrackNode; s: number } | null {
   const { nodes } = run;
   for (let i = 1; i < nodes.length; i++) {
     if (sign * (nodes[i].y[k] - target) >= 0) {
@@ -335,16 +328,19 @@ export function evaporateHole(problem: EvaporationProblem, options?: Evaporation
   const a = integrate(rates, m0, aStar0, odeTol, uEnd);
   const b = integrate(rates, m0, aStar0, odeTol / 2, uEnd);
   const change = Math.abs(a.lifetime - b.lifetime) / b.lifetime;
-  const tableError = Math.max(rates.interpolationError.f + rates.nodeError.f, rates.interpolationError.g + rates.nodeError.g);
+  const track = trackError(b.nodes, rates, m0, b.rest);
+  const tableError = track.total / b.lifetime;
+  const aStarTableError = track.aStar[track.aStar.length - 1];
   const diagnostics: EvaporationDiagnostics = {
     method: METHOD,
     steps: b.steps,
     rhsEvaluations: a.evaluations + b.evaluations,
     errorEstimate: change + tableError,
-    message: `lifetime moves by ${change.toExponential(2)} when the ODE tolerance is halved; f, g table error ${tableError.toExponential(2)}`,
+    message: `lifetime moves by ${change.toExponential(2)} when the ODE tolerance is halved; f, g table error along the track ${tableError.toExponential(2)}`,
     odeTol: odeTol / 2,
     halvedTolChange: change,
     tableError,
+    aStarTableError,
     uEnd,
   };
   if (!(change <= Math.max(100 * odeTol, 1e-10))) {
@@ -383,6 +379,9 @@ export function evaporateHole(problem: EvaporationProblem, options?: Evaporation
     let u: number;
     let aStar: number;
     let energies: number[];
+    // ∫ ε dt̂ over the stage and the a* error at its start
+    let stageError = 0;
+    let aStarError = 0;
     if (tauHat >= b.lifetime) {
       u = 0;
       aStar = aStar0;
@@ -394,14 +393,25 @@ export function evaporateHole(problem: EvaporationProblem, options?: Evaporation
       u = stage.u;
       aStar = stage.aStar;
       energies = stage.energies;
+      // the error integral from the stage's start: the rest of its step (by the share of the step's time) and the steps after it
+      stageError = stage.k + 1 < b.nodes.length ? track.toEnd[stage.k + 1] + stage.fraction * track.steps[stage.k] : track.total;
+      if (stage.k + 1 < b.nodes.length) {
+        const A0 = track.aStar[stage.k];
+        aStarError = A0 + stage.s * (track.aStar[stage.k + 1] - A0);
+      }
     } else {
       // inside the closed-form rest: every species effectively massless, a* frozen
       const f = b.endPoint.f;
       u = -Math.log(Math.cbrt(3 * f * tauHat));
       aStar = Math.max(0, last.y[0]);
       energies = b.endPoint.species.map((s) => (Math.exp(-u) * s.power) / f);
+      stageError = tauHat * track.endRate;
+      aStarError = track.aStar[track.aStar.length - 1];
     }
     const massGrams = m0 * Math.exp(-u);
+    // δM_τ/M_τ = δR/(M_τ R'(M_τ)) with R the time left, R' = M²/f (units of M₀)
+    const relError =
+      stageError > 0 ? (stageError * rates.values(massGrams, Math.min(aStar, rates.aMax)).f) / Math.exp(-3 * u) : 0;
     const energyGeV = massGrams * GEV_PER_GRAM;
     return {
       seconds: tau,
@@ -412,6 +422,8 @@ export function evaporateHole(problem: EvaporationProblem, options?: Evaporation
       aStar,
       temperatureGeV: temperatureGeV(massGrams, aStar),
       species: shares(energies, m0GeV),
+      relError,
+      aStarError,
     };
   });
   return {
@@ -435,7 +447,7 @@ export interface MassForLifetime {
   lifetimeSeconds: number;
   /** bisection steps in ln M */
   iterations: number;
-  /** relative error of the mass: the lifetime's error estimate / 3 (lifetime ∝ M³) plus the bisection width */
+  /** relative error of the mass: the lifetime's error estimate (ODE + tables along the track) / 3 (τ grows at least as M₀³) plus the bisection width */
   relError: number;
 }
 
@@ -487,6 +499,8 @@ export function massForLifetime(problem: MassForLifetimeProblem): MassForLifetim
     aStar0,
     lifetimeSeconds: ev.lifetimeSeconds,
     iterations,
+    // δM₀/M₀ = (δτ/τ)/(d ln τ/d ln M₀) with d ln τ/d ln M₀ = M₀³/(f₀ τ) ≥ 3 where f does not fall as the hole
+    // gets lighter (τ ≤ M₀³/(3 f₀)); the bisection width on top
     relError: ev.diagnostics.errorEstimate / 3 + (hi - lo),
   };
 }

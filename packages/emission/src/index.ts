@@ -91,7 +91,9 @@ export {
   type EmittedSpecies,
   type MassLossProblem,
   type MassLossPoint,
+  type MassLossValues,
   type MassLossRates,
+  type RateErrors,
 } from './massLoss.js';
 export {
   evaporateHole,

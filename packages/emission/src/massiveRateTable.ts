@@ -287,3 +287,26 @@ export function bundledMassiveRateTable(): MassiveRateTable {
     gammaCalls: t.gammaCalls,
   };
 }
+
+/**
+ * The table without one a* node (index into each spin's θ nodes) and/or one
+ * field-mass node: leave-one-node-out checks of the interpolation error
+ * estimates need no solves (the left-out node is the truth there).
+ */
+export function withoutNode(table: MassiveRateTable, drop: { theta?: number; fieldMass?: number }): MassiveRateTable {
+  const keep = <T>(xs: readonly T[], i: number | undefined) => xs.filter((_, k) => k !== i);
+  const cut = (rows: readonly (readonly number[])[]) => keep(rows, drop.fieldMass).map((r) => keep(r, drop.theta));
+  return {
+    ...table,
+    fieldMass: keep(table.fieldMass, drop.fieldMass),
+    spins: table.spins.map((r) => ({
+      spin: r.spin,
+      aStar: keep(r.aStar, drop.theta),
+      theta: keep(r.theta, drop.theta),
+      powerRatio: cut(r.powerRatio),
+      torqueRatio: cut(r.torqueRatio),
+      powerRatioError: cut(r.powerRatioError),
+      torqueRatioError: cut(r.torqueRatioError),
+    })),
+  };
+}

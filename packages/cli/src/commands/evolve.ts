@@ -27,6 +27,7 @@ const trackColumns = (unit: string): Column[] => [
   { name: 'mass', unit, description: 'mass of the hole' },
   { name: 'aStar', unit: '1', description: "the hole's a/M" },
   { name: 'temperatureGeV', unit: 'GeV', description: 'Hawking temperature k_B T_H' },
+  { name: 'fRelError', unit: '1', description: 'local relative error of f(M, a*) from the rate tables at this point' },
   { ...INACCURATE_COLUMN, description: 'true when the lifetime (and so the times) has an estimated relative error above 1e-3' },
 ];
 
@@ -80,15 +81,22 @@ Options:
                     massless shape above threshold (seconds to a minute)
   --table-points N  compute a fresh massless f, g table with N nodes instead of the shipped one
   --points N        track points printed (default 40)
-  --json            JSON {lifetimeSeconds, lifetimeOverMassCubed, relError, inaccurate, track: [{timeSeconds, mass, aStar, temperatureGeV}],
-                    crossings, finalStages, species, energyBalance, massForAgeOfUniverse, diagnostics}
-  --csv             the track as CSV (columns timeSeconds, mass, aStar, temperatureGeV, inaccurate; units in the header);
+  --json            JSON {lifetimeSeconds, lifetimeOverMassCubed, relError, inaccurate,
+                    track: [{timeSeconds, mass, aStar, temperatureGeV, fRelError}], crossings,
+                    finalStages (with relError, aStarError), species, energyBalance, massForAgeOfUniverse, diagnostics}
+  --csv             the track as CSV (columns timeSeconds, mass, aStar, temperatureGeV, fRelError, inaccurate;
+                    units in the header);
                     with --spectrum, the spectrum instead (columns energyGeV, species, perGeV)
 
 Also printed: the formation mass whose lifetime is the age of the universe
 (13.787 Gyr, Planck 2018) for a* = 0 and this content.
-A lifetime whose estimated relative error (ODE and f, g tables) exceeds 1e-3
-prints a warning on stderr and carries inaccurate: true.
+Errors: f and g carry a local error from the table cells each point uses
+(fRelError on the track); the lifetime's relative error is the change when the
+ODE tolerance is halved plus f's local error averaged over the track with the
+weight dt (and the a* error it causes); a final stage's mass carries
+(∫ ε dt over the stage)·f/M³. A lifetime or final-stage mass whose estimated
+relative error exceeds 1e-3 prints a warning on stderr; the lifetime's sets
+inaccurate: true.
   -h, --help        this text
 
 Limits:
@@ -188,6 +196,7 @@ Example:
       mass: p.massGrams / perUnit,
       aStar: p.aStar,
       temperatureGeV: p.temperatureGeV,
+      fRelError: rates.at(p.massGrams, Math.min(p.aStar, rates.aMax)).error.f,
     }));
     const relError = ev.diagnostics.errorEstimate;
     const inaccurate = isInaccurate(relError);
@@ -212,10 +221,13 @@ Example:
       track,
       diagnostics: { ...ev.diagnostics, interpolationError: rates.interpolationError, nodeError: rates.nodeError },
     };
-    warnInaccurate(io, [{ what: `lifetime (f, g table error ${formatError(ev.diagnostics.tableError)})`, relError }]);
+    warnInaccurate(io, [
+      { what: 'lifetime', relError },
+      ...ev.finalStages.map((s) => ({ what: `mass of the final ${formatNumber(s.seconds, 6)} s`, relError: s.relError })),
+    ]);
     const g = (x: number) => formatNumber(x, 6);
     const stageText = (s: (typeof ev.finalStages)[number]) =>
-      `final ${g(s.seconds)} s${s.wholeLife ? ' (the whole life)' : ''}: M = ${g(s.massGrams)} g released as ${g(s.energyGeV)} GeV ` +
+      `final ${g(s.seconds)} s${s.wholeLife ? ' (the whole life)' : ''}: M = ${g(s.massGrams)} g (rel. error ${formatError(s.relError)}) released as ${g(s.energyGeV)} GeV ` +
       `(${g(s.energyErg)} erg), a* = ${g(s.aStar)}, T_H = ${g(s.temperatureGeV)} GeV at its start\n` +
       formatTable([['species', 'E [GeV]', 'share'], ...s.species.map((x) => [x.name, g(x.energyGeV), g(x.fraction)])]);
     writeOutput(io, format, {
@@ -228,12 +240,13 @@ Example:
             }
           : {
               columns: trackColumns(unit),
-              rows: track.map((p) => [p.timeSeconds, p.mass, p.aStar, p.temperatureGeV, inaccurate]),
+              rows: track.map((p) => [p.timeSeconds, p.mass, p.aStar, p.temperatureGeV, p.fRelError, inaccurate]),
             },
       text: () =>
         `evaporation of a hole of ${g(mass)} ${unit}, a* = ${aStar}; content ${species.map((s) => s.name).join(', ')}\n` +
         `lifetime: ${g(result.lifetimeSeconds)} s  (${formatNumber(ev.lifetimeOverMassCubed, 8)} M₀³ in Planck units; ` +
-        `rel. error ${formatError(relError)}${inaccurate ? ', above 1e-3' : ''})\n` +
+        `rel. error ${formatError(relError)}${inaccurate ? ', above 1e-3' : ''}: ` +
+        `f, g tables ${formatError(ev.diagnostics.tableError)} along the track, ODE ${formatError(ev.diagnostics.halvedTolChange)})\n` +
         `f(M₀, a*) = ${g(start.f)}, g(M₀, a*) = ${g(start.g)}; T_H at formation ${g(ev.track[0].temperatureGeV)} GeV\n` +
         result.crossings
           .map((c) =>
@@ -244,7 +257,7 @@ Example:
                 : `a* stays at or above ${c.aStar} until the end\n`,
           )
           .join('') +
-        `mass whose lifetime is the age of the universe (13.787 Gyr), a* = 0: ${g(age.massGrams)} g\n` +
+        `mass whose lifetime is the age of the universe (13.787 Gyr), a* = 0: ${g(age.massGrams)} g (rel. error ${formatError(age.relError)})\n` +
         `energy emitted over the life: ${g(ev.energyBalance.emittedGeV)} GeV = M₀c² to ${formatError(ev.energyBalance.relError)}\n` +
         ev.finalStages.map(stageText).join('') +
         (burstResult
@@ -260,8 +273,8 @@ Example:
           : '') +
         'track\n' +
         formatTable([
-          ['t [s]', `M [${unit}]`, 'a*', 'T_H [GeV]'],
-          ...track.map((p) => [g(p.timeSeconds), g(p.mass), g(p.aStar), g(p.temperatureGeV)]),
+          ['t [s]', `M [${unit}]`, 'a*', 'T_H [GeV]', 'f rel. error'],
+          ...track.map((p) => [g(p.timeSeconds), g(p.mass), g(p.aStar), g(p.temperatureGeV), formatError(p.fRelError)]),
         ]),
     });
     return 0;
