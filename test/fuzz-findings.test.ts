@@ -4,7 +4,7 @@
  */
 import { describe, expect, test } from 'vitest';
 import { InputError } from '@penumbra/core';
-import { bundledPageTable, evolveHole, pageFunctions } from '@penumbra/emission';
+import { bundledPageTable, evolveHole, massLossRates, pageFunctions } from '@penumbra/emission';
 import { greybody, lowFrequencyGreybody } from '@penumbra/flux';
 import { kerrHole } from '@penumbra/kerr';
 import { solveRadial } from '@penumbra/radial';
@@ -54,5 +54,10 @@ describe('inputs the long fuzz run found, now finite or a typed error', () => {
   });
   test('greybody itself is unaffected: Γ(s = 0, l = 1, a = 0.5, Mω = 0.3) is finite and positive', () => {
     expect(greybody({ hole: { a: 0.5 }, mode: { field: { spin: 0 }, l: 1, m: 0 }, omega: 0.3 }).gamma).toBeGreaterThan(0);
+  });
+  test('massLossRates of a species with 0 dof and a mass of 1e-296 GeV states finite errors (its table-wide scan ran without end: the hole masses overflowed) and 0 relative error where nothing is emitted (it gave NaN)', () => {
+    const r = massLossRates({ species: [{ name: 'photon', spin: 0, dof: 0, massGeV: 1.0186760097899475e-296 }] });
+    expect(r.at(1e15, 0).error).toEqual({ interpolation: { f: 0, g: 0 }, node: { f: 0, g: 0 }, f: 0, g: 0 });
+    expect(Number.isFinite(r.interpolationError.f) && Number.isFinite(r.nodeError.g)).toBe(true);
   });
 });

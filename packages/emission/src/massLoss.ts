@@ -259,7 +259,9 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
       }
       return { name: s.name, power, torqueOverA };
     });
-    return { f, g, rows, ef: ef.map((e) => e / Math.abs(f)), eg: eg.map((e) => e / Math.abs(g)) };
+    // a content that emits nothing here (every dof 0, or all switched off) has no relative error to state
+    const relative = (e: number, x: number) => (x === 0 ? 0 : e / Math.abs(x));
+    return { f, g, rows, ef: ef.map((e) => relative(e, f)), eg: eg.map((e) => relative(e, g)) };
   };
 
   const at = (massGrams: number, aStar: number): MassLossPoint => {
@@ -311,13 +313,22 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
         if (k + 1 < t.length) thetas.add(0.5 * (x + t[k + 1]));
       }
     }
-    const lo = Math.min(...massive.map((s) => (0.1 * mus[1]) / (s.massGeV * FIELD_MASS_PER_GRAM_GEV)));
-    const hi = Math.max(...massive.map((s) => (2 * mus[mus.length - 1]) / (s.massGeV * FIELD_MASS_PER_GRAM_GEV)));
-    const steps = Math.ceil(16 * Math.log10(hi / lo));
+    // each species' own window of hole masses, in logarithms (a mass of 1e-300 GeV puts it past 1e300 g);
+    // masses outside double range are skipped: no hole there has a finite rate to state
+    const logLo = Math.log10(0.1 * mus[1]);
+    const span = Math.log10((2 * mus[mus.length - 1]) / (0.1 * mus[1]));
+    const steps = Math.ceil(16 * span);
+    const holeMasses: number[] = [];
+    for (const s of massive) {
+      const base = logLo - Math.log10(s.massGeV * FIELD_MASS_PER_GRAM_GEV);
+      for (let k = 0; k <= steps; k++) {
+        const M = 10 ** (base + (span * k) / steps);
+        if (M > 0 && Number.isFinite(M)) holeMasses.push(M);
+      }
+    }
     let ratio = [0, 0, 0, 0];
     for (const th of thetas)
-      for (let k = 0; k <= steps; k++) {
-        const M = lo * (hi / lo) ** (k / steps);
+      for (const M of holeMasses) {
         const { ef, eg } = evaluate(M, Math.min(Math.sin(th), aMax), true);
         ratio = [Math.max(ratio[0], ef[2]), Math.max(ratio[1], eg[2]), Math.max(ratio[2], ef[3]), Math.max(ratio[3], eg[3])];
       }
