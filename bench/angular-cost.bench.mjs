@@ -19,7 +19,7 @@ import os from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { writeFileSync } from 'node:fs';
-import { benchDir, median } from './lib.mjs';
+import { benchDir, median, seededRandom } from './lib.mjs';
 
 const N = Number(process.argv[2] ?? 1000);
 const BASE = process.env.BASE ?? '/tmp/angular-base';
@@ -29,11 +29,7 @@ const load = async (root) => ({
 });
 const builds = { base: await load(BASE), new: await load(join(benchDir, '..')) };
 
-let seed = 41;
-const rand = () => {
-  seed = (seed * 1103515245 + 12345) % 2147483648;
-  return seed / 2147483648;
-};
+const rand = seededRandom(41);
 const spins = [0, 0.5, 1, 2];
 const modes = [];
 for (let i = 0; i < N; i++) {

@@ -29,7 +29,7 @@ import { kerrHole } from '@penumbra/kerr';
 import { solveRadial, solveTwoSided } from '@penumbra/radial';
 import { radialSeparationConstant, spheroidalEigenvalue } from '@penumbra/spheroidal';
 import { writeFileSync } from 'node:fs';
-import { benchDir, fmt } from './lib.mjs';
+import { benchDir, fmt, seededRandom } from './lib.mjs';
 
 const N_RANDOM = Number(process.argv[2] ?? 500);
 const N_WIDE = Number(process.argv[3] ?? 400);
@@ -81,11 +81,7 @@ function components(x, tol) {
   };
 }
 
-let seed = 5;
-const rand = () => {
-  seed = (seed * 1103515245 + 12345) % 2147483648;
-  return seed / 2147483648;
-};
+const rand = seededRandom(5);
 const pick = (list) => list[Math.floor(rand() * list.length)];
 
 const fixture = JSON.parse(readFileSync(join(benchDir, '..', 'test', 'fixtures', 'greybody', 'reference.json'), 'utf8'));

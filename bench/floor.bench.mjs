@@ -18,7 +18,7 @@ import os from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { writeFileSync } from 'node:fs';
-import { benchDir, fmt } from './lib.mjs';
+import { benchDir, fmt, seededRandom } from './lib.mjs';
 
 const N = Number(process.argv[2] ?? 1000);
 const reflection = process.argv.includes('--reflection');
@@ -29,11 +29,7 @@ const load = async (root) => (await import(pathToFileURL(join(root, 'packages/fl
 const builds = [['new', await load(join(benchDir, '..'))]];
 if (BASE) builds.unshift(['base', await load(BASE)]);
 
-let seed = 41;
-const rand = () => {
-  seed = (seed * 1103515245 + 12345) % 2147483648;
-  return seed / 2147483648;
-};
+const rand = seededRandom(41);
 const spins = [0, 0.5, 1, 2];
 /** --grid: the tail grid of issue 14 (cost within 3× of the median up to l = 100 and Mω = 30, and near-extremal counter-rotating modes). */
 function tailGrid() {

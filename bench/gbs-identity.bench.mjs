@@ -4,14 +4,10 @@
 // which the odex package does not report, and so skip the check solve more often.
 // Run: npx tsc -b && node bench/gbs-identity.bench.mjs [N]
 import { greybody } from '@penumbra/flux';
-import { fmt } from './lib.mjs';
+import { fmt, seededRandom } from './lib.mjs';
 
 const N = Number(process.argv[2] ?? 300);
-let seed = 7;
-const rand = () => {
-  seed = (seed * 1103515245 + 12345) % 2147483648;
-  return seed / 2147483648;
-};
+const rand = seededRandom(7);
 const spins = [0, 0.5, 1, 2];
 const modes = [];
 for (let i = 0; i < N; i++) {

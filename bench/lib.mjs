@@ -97,3 +97,12 @@ export function runPeer(modes, { tol, rtolFactor = 1, repeat = 1 }) {
   if (run.status !== 0) throw new Error(`peer failed with status ${run.status}: ${run.stderr}`);
   return { ok: true, data: JSON.parse(run.stdout) };
 }
+
+/** A seeded linear congruential generator on [0, 1) (the benches' fixed mode samples; not for statistics). */
+export function seededRandom(seed) {
+  let state = seed;
+  return () => {
+    state = (state * 1103515245 + 12345) % 2147483648;
+    return state / 2147483648;
+  };
+}

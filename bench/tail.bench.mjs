@@ -8,14 +8,10 @@
 // Run: npx tsc -b && node bench/tail.bench.mjs [N]
 import os from 'node:os';
 import { greybody } from '@penumbra/flux';
-import { fmt } from './lib.mjs';
+import { fmt, seededRandom } from './lib.mjs';
 
 const N = Number(process.argv[2] ?? 1000);
-let seed = 17;
-const rand = () => {
-  seed = (seed * 1103515245 + 12345) % 2147483648;
-  return seed / 2147483648;
-};
+const rand = seededRandom(17);
 const spins = [0, 0.5, 1, 2];
 function mode(counterRotating) {
   const spin = spins[Math.floor(rand() * 4)];
