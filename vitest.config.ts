@@ -17,5 +17,6 @@ export default defineConfig({
     include: ['packages/*/test/**/*.test.ts', 'test/**/*.test.ts'],
     testTimeout: 120_000,
     pool: 'threads',
+    setupFiles: ['test/setup/fastCheckSeed.ts'],
   },
 });
