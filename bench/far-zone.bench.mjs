@@ -15,7 +15,7 @@
 // (and the printed tables, saved by hand, in far-zone-<date>.txt).
 import os from 'node:os';
 import { greybody } from '@penumbra/flux';
-import { cpuMsPerCall, fmt, maximum, median, table, writeResult } from './lib.mjs';
+import { cpuMsPerCall, fmt, maximum, median, seededMulberry, table, writeResult } from './lib.mjs';
 
 const SPINS = [0, 0.5, 1, 2];
 const AS = [0, 0.7, 0.99];
@@ -58,18 +58,8 @@ function point(x) {
   };
 }
 
-function rng(seed) {
-  let t = seed >>> 0;
-  return () => {
-    t += 0x6d2b79f5;
-    let r = Math.imul(t ^ (t >>> 15), 1 | t);
-    r ^= r + Math.imul(r ^ (r >>> 7), 61 | r);
-    return ((r ^ (r >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 function medianSet(count) {
-  const random = rng(20261203);
+  const random = seededMulberry(20261203);
   const modes = [];
   while (modes.length < count) {
     const spin = SPINS[Math.floor(random() * 4)];

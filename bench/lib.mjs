@@ -106,3 +106,14 @@ export function seededRandom(seed) {
     return state / 2147483648;
   };
 }
+
+/** Mulberry32 on [0, 1): the generator behind the far-zone and massive-threshold samples (kept so their recorded sets stay the same). */
+export function seededMulberry(seed) {
+  let t = seed >>> 0;
+  return () => {
+    t += 0x6d2b79f5;
+    let r = Math.imul(t ^ (t >>> 15), 1 | t);
+    r ^= r + Math.imul(r ^ (r >>> 7), 61 | r);
+    return ((r ^ (r >>> 14)) >>> 0) / 4294967296;
+  };
+}

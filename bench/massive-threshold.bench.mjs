@@ -5,20 +5,10 @@
 // Modes: l ≤ 4, a ∈ [0, 0.99], Mω ∈ [0.05, 2], v = k∞/ω ∈ [0.02, 0.5]
 // (log-uniform), tol 1e-8. Run: `npx tsc -b && node bench/massive-threshold.bench.mjs`.
 import { greybody } from '@penumbra/flux';
-import { fmt, median, table } from './lib.mjs';
-
-function rng(seed) {
-  let t = seed >>> 0;
-  return () => {
-    t += 0x6d2b79f5;
-    let r = Math.imul(t ^ (t >>> 15), 1 | t);
-    r ^= r + Math.imul(r ^ (r >>> 7), 61 | r);
-    return ((r ^ (r >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { fmt, median, seededMulberry, table } from './lib.mjs';
 
 const N = Number(process.argv[2] ?? 40);
-const random = rng(20261203);
+const random = seededMulberry(20261203);
 const problem = (x, mass) => ({
   hole: { a: x.a },
   mode: { field: mass > 0 ? { spin: 0, mass } : { spin: 0 }, l: x.l, m: x.m },
