@@ -75,18 +75,21 @@ export function writeResult(name, payload) {
 }
 
 /**
- * Runs bench/peers/greybody_peer.py on the modes. Returns { ok: true, data } or
+ * Runs a scipy peer (bench/peers/<script>, default greybody_peer.py) on the modes. Returns { ok: true, data } or
  * { ok: false, reason, detail } when python or scipy is missing (exit status 3).
  * PENUMBRA_PEER_PYTHON selects the interpreter (default python3).
  */
-export function runPeer(modes, { tol, rtolFactor = 1, repeat = 1 }) {
+export function runPeer(modes, { tol, rtolFactor = 1, repeat = 1, script = 'greybody_peer.py' }) {
   const python = process.env.PENUMBRA_PEER_PYTHON ?? 'python3';
-  const script = join(benchDir, 'peers', 'greybody_peer.py');
-  const run = spawnSync(python, [script, '--tol', String(tol), '--rtol-factor', String(rtolFactor), '--repeat', String(repeat)], {
-    input: JSON.stringify(modes),
-    encoding: 'utf8',
-    maxBuffer: 256 * 1024 * 1024,
-  });
+  const run = spawnSync(
+    python,
+    [join(benchDir, 'peers', script), '--tol', String(tol), '--rtol-factor', String(rtolFactor), '--repeat', String(repeat)],
+    {
+      input: JSON.stringify(modes),
+      encoding: 'utf8',
+      maxBuffer: 256 * 1024 * 1024,
+    },
+  );
   if (run.error)
     return {
       ok: false,
