@@ -261,6 +261,21 @@ function main() {
         ]),
       ),
     );
+    // the same ratio per hole: median over the 12 modes of each (spin, a) cell
+    console.log('\nRatio peer/penumbra of median CPU ms per mode, per spin and a (peer at its most accurate rtol):');
+    const tight = peerRuns[peerRuns.length - 1].label;
+    console.log(
+      table(
+        ['spin', ...SPIN_PARAMETERS.map((a) => `a = ${a}`)],
+        SPINS.map((spin) => [
+          spin,
+          ...SPIN_PARAMETERS.map((a) => {
+            const cell = rows.filter((r) => r.spin === spin && r.a === a);
+            return `${fmt(median(cell.map((r) => r.peer[tight].cpuMs)) / median(cell.map((r) => r.penumbra[d].cpuMs)))}×`;
+          }),
+        ]),
+      ),
+    );
   }
 
   const path = writeResult('greybody', {
