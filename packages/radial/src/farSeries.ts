@@ -246,6 +246,8 @@ export interface FarSums {
 export function sumFar(series: FarSeries, r: number, target = 1e-17): FarSums {
   const { cRe, cIm, p } = series;
   const inv = 1 / r;
+  // squared magnitudes throughout (Math.hypot was measured at a tenth of a solve's time here)
+  const target2 = target * target;
   let sRe = 0,
     sIm = 0,
     tRe = 0,
@@ -253,7 +255,7 @@ export function sumFar(series: FarSeries, r: number, target = 1e-17): FarSums {
   let pw = 1;
   let small = 0;
   let terms = 0;
-  let truncation = 1;
+  let truncation2 = 1;
   let converged = false;
   let prev1 = Infinity,
     prev2 = Infinity;
@@ -261,19 +263,19 @@ export function sumFar(series: FarSeries, r: number, target = 1e-17): FarSums {
     if (n >= cRe.length) extendFarSeries(series, n + 8);
     const termRe = cRe[n] * pw,
       termIm = cIm[n] * pw;
-    const mag = Math.hypot(termRe, termIm);
+    const mag2 = termRe * termRe + termIm * termIm;
     // Divergence has set in after two successive increases (a single uptick
     // can follow a coefficient that vanishes by accident).
-    if (n > 3 && mag > prev1 && prev1 > prev2 && mag > target * Math.hypot(sRe, sIm)) break;
+    if (n > 3 && mag2 > prev1 && prev1 > prev2 && mag2 > target2 * (sRe * sRe + sIm * sIm)) break;
     prev2 = prev1;
-    prev1 = mag;
+    prev1 = mag2;
     sRe += termRe;
     sIm += termIm;
     tRe += (p - n) * termRe;
     tIm += (p - n) * termIm;
     terms = n + 1;
-    truncation = mag / Math.hypot(sRe, sIm);
-    if (truncation < target) {
+    truncation2 = mag2 / (sRe * sRe + sIm * sIm);
+    if (truncation2 < target2) {
       if (++small >= 3) {
         converged = true;
         break;
@@ -281,7 +283,7 @@ export function sumFar(series: FarSeries, r: number, target = 1e-17): FarSums {
     } else small = 0;
     pw *= inv;
   }
-  return { S: [sRe, sIm], T: [tRe, tIm], terms, truncation, converged };
+  return { S: [sRe, sIm], T: [tRe, tIm], terms, truncation: Math.sqrt(truncation2), converged };
 }
 
 /** R and R' of a far-zone series solution at radius r from its sums there (`sumFar`). */

@@ -13,7 +13,7 @@ import { singleSolveErrorEstimate, singleSolveMessage } from './diagnostics.js';
 import { chooseMatch, farTarget, matchAmplitudes } from './farMatch.js';
 import { horizonWavenumber } from './horizonSeries.js';
 import { startAtHorizon } from './horizonStart.js';
-import { radialEquation } from './equation.js';
+import { fieldMassOf, radialEquation } from './equation.js';
 import { resolveRadialOptions, type RadialOptions } from './options.js';
 import { validateProblem, type RadialProblem } from './problem.js';
 import { chargedSteps, integrateHybridLeg } from './hybridLeg.js';
@@ -46,8 +46,9 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
   const { hole } = problem;
   const method = `teukolsky-shooting/frobenius-start/asymptotic-match/${opts.integrator}`;
   const equation = radialEquation(hole, mode, hole.rPlus);
-  const start = startAtHorizon(hole, mode, equation, opts.startFraction);
-  const match = chooseMatch(hole, mode, opts.matchRadius, farTarget(opts.tol));
+  // the default start stays inside the requested radii (the series is not sampled there)
+  const start = startAtHorizon(hole, mode, equation, opts.startFraction, opts.grid.length > 0 ? Math.min(...opts.grid) : undefined);
+  const match = chooseMatch(hole, mode, opts.matchRadius, farTarget(opts.tol, fieldMassOf(mode) > 0));
   const r0 = hole.rPlus + start.x0;
   if (!(match.r > r0)) throw new InputError('matchRadius', `> start radius ${r0}`, match.r);
   const counter = { evaluations: 0 };
