@@ -97,15 +97,16 @@ function run(label, modes) {
   return out;
 }
 
-console.log(
-  `load average ${os
-    .loadavg()
-    .map((x) => x.toFixed(1))
-    .join(' ')}; greybody at tol ${tol} against ${ode ? "oscillation 'ode' solves at tol 1e-11 (1e-10)" : 'tol 1e-12 (1e-11) solves'}`,
-);
+const load = os
+  .loadavg()
+  .map((x) => x.toFixed(1))
+  .join(' ');
+const references = ode ? "oscillation 'ode' solves at tol 1e-11 (1e-10)" : 'tol 1e-12 (1e-11) solves';
+console.log(`load average ${load}; greybody at tol ${tol} against ${references}`);
 const all = [run('tail grid', tailGrid())];
 if (!process.argv.includes('--grid-only')) {
-  for (let pass = 0; pass < PASSES; pass++) all.push(run(`random pass ${pass + 1} (seed ${101 + pass})`, randomModes(101 + pass)));
+  for (let pass = 0; pass < PASSES; pass++)
+    all.push(run(`random pass ${pass + 1} (seed ${101 + pass})`, randomModes(101 + pass)));
   const ratios = all.flatMap((o) => o.ratios);
   const below = all.reduce((s, o) => s + o.below, 0);
   const compared = all.reduce((s, o) => s + o.solved, 0);
