@@ -11,14 +11,14 @@
 // run interleaved mode by mode (order alternating), and per-mode ratios are
 // printed: on a loaded shared machine ratios of interleaved runs are the
 // figures to read.
-// --grid instead runs the tail grid (tailGrid below; least CPU time of three
+// --grid instead runs the tail grid (lib.mjs tailGrid; least CPU time of three
 // runs per mode) and prints the worst mode's cost.
 // Run: npx tsc -b && node bench/floor.bench.mjs [N] [--reflection] [--tol=1e-8] [--grid] [--reps=R]
 import os from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { writeFileSync } from 'node:fs';
-import { benchDir, fmt, seededRandom } from './lib.mjs';
+import { benchDir, fmt, seededRandom, tailGrid } from './lib.mjs';
 
 const N = Number(process.argv[2] ?? 1000);
 const reflection = process.argv.includes('--reflection');
@@ -31,28 +31,6 @@ if (BASE) builds.unshift(['base', await load(BASE)]);
 
 const rand = seededRandom(41);
 const spins = [0, 0.5, 1, 2];
-/** --grid: the tail grid of issue 14 (cost within 3× of the median up to l = 100 and Mω = 30, and near-extremal counter-rotating modes). */
-function tailGrid() {
-  const out = [];
-  const mode = (spin, l, m, a, omega) => ({ hole: { a }, mode: { field: { spin }, l, m }, omega });
-  for (const spin of spins)
-    for (const a of [0, 0.7, 0.99]) {
-      const l0 = Math.max(spin, 2) === 2 && spin !== 2 ? (Number.isInteger(spin) ? 2 : 2.5) : Math.max(spin, 2);
-      for (const omega of [3, 10, 20, 30]) out.push(mode(spin, l0, l0, a, omega));
-      for (const l of [25, 50, 75, 100]) {
-        const L = Number.isInteger(spin) ? l : l + 0.5;
-        const m = Number.isInteger(spin) ? Math.round(L / 2) : Math.round(L / 2 - 0.5) + 0.5;
-        for (const omega of [1, 10, 30]) out.push(mode(spin, L, m, a, omega));
-      }
-    }
-  for (const spin of spins) {
-    const l = Number.isInteger(spin) ? Math.max(spin, 2) : 2.5;
-    for (const omega of [3, 10, 30]) out.push(mode(spin, l, -l, 0.99999, omega));
-    const L = Number.isInteger(spin) ? 20 : 20.5;
-    out.push(mode(spin, L, -L, 0.9999, 1));
-  }
-  return out;
-}
 const grid = process.argv.includes('--grid');
 const repsArg = process.argv.find((x) => x.startsWith('--reps='));
 /** runs per mode, the least CPU time kept (--reps=3: a mode's cost without the machine's noise; default 1, or 3 on the grid) */

@@ -120,3 +120,27 @@ export function seededMulberry(seed) {
     return ((r ^ (r >>> 14)) >>> 0) / 4294967296;
   };
 }
+
+/** The tail grid of issue 14 (cost within 3× of the median up to l = 100 and Mω = 30, and near-extremal counter-rotating modes): 208 greybody problems. */
+export function tailGrid() {
+  const spins = [0, 0.5, 1, 2];
+  const out = [];
+  const mode = (spin, l, m, a, omega) => ({ hole: { a }, mode: { field: { spin }, l, m }, omega });
+  for (const spin of spins)
+    for (const a of [0, 0.7, 0.99]) {
+      const l0 = Math.max(spin, 2) === 2 && spin !== 2 ? (Number.isInteger(spin) ? 2 : 2.5) : Math.max(spin, 2);
+      for (const omega of [3, 10, 20, 30]) out.push(mode(spin, l0, l0, a, omega));
+      for (const l of [25, 50, 75, 100]) {
+        const L = Number.isInteger(spin) ? l : l + 0.5;
+        const m = Number.isInteger(spin) ? Math.round(L / 2) : Math.round(L / 2 - 0.5) + 0.5;
+        for (const omega of [1, 10, 30]) out.push(mode(spin, L, m, a, omega));
+      }
+    }
+  for (const spin of spins) {
+    const l = Number.isInteger(spin) ? Math.max(spin, 2) : 2.5;
+    for (const omega of [3, 10, 30]) out.push(mode(spin, l, -l, 0.99999, omega));
+    const L = Number.isInteger(spin) ? 20 : 20.5;
+    out.push(mode(spin, L, -L, 0.9999, 1));
+  }
+  return out;
+}

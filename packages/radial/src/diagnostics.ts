@@ -49,8 +49,11 @@ export interface RadialDiagnostics extends Diagnostics {
    * relative to tol (each at most 1; 'gbs' reports the extrapolation
    * tableau's ‖T_kk − T_k,k−1‖, the error of the lower-order value it does
    * not keep; 'odex' and 'cash-karp' report none and count 1 per step; a
-   * Riccati step counts RICCATI_STEP_CHARGE): at most `steps` charged, and
-   * what @penumbra/flux's single-solve estimate of Γ is built from
+   * Riccati step of a massless leg counts its own error estimate, one of a
+   * massive far zone RICCATI_STEP_CHARGE, and the integrator's stretches of a
+   * massless leg with Riccati rungs count at their tighter tolerance,
+   * hybridLeg.ts): at most `steps` charged, and what @penumbra/flux's
+   * single-solve estimate of Γ is built from
    */
   localErrorSum: number;
   /** Riccati steps among `steps` (docs/method.md, section 9) */

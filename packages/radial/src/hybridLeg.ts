@@ -100,9 +100,24 @@ export function riccatiWorthIt(e: RiccatiEquation, xa: number, xb: number, minPh
 export const RICCATI_STEP_CHARGE = 10;
 
 /**
- * A leg's segment with its Riccati steps counted apart; its `errorSum`
- * charges each Riccati step RICCATI_STEP_CHARGE (a step is accepted with up
- * to 0.3 tol from each of four sources, see above).
+ * Share of the leg's tolerance at which the integrator crosses the stretches
+ * between Riccati rungs of a massless leg; their accepted error estimates
+ * enter the leg's `errorSum` scaled by it. There each Riccati step charges
+ * its own error estimate (riccatiStep.ts, typically 0.01–1 tol), so the
+ * integrator's ~0.2 tol per step became the larger part of the single-solve
+ * estimate at l ≳ 25 or Mω ≳ 10; at a third of tol it costs ~5 % more
+ * evaluations and keeps that estimate below the point where greybody makes a
+ * check solve (measured on the tail grid of bench/floor.bench.mjs --grid).
+ */
+export const ODE_SHARE = 1 / 3;
+
+/**
+ * A leg's segment with its Riccati steps counted apart. Its `errorSum`
+ * charges each Riccati step of a massless leg the step's own error estimate
+ * (riccatiStep's `error`), and each of a massive far zone
+ * RICCATI_STEP_CHARGE (a step is accepted with up to 0.3 tol from each of
+ * four sources, see above); integrator stretches of a massless leg with
+ * Riccati rungs count at ODE_SHARE.
  */
 export interface HybridSegment extends Segment {
   /** Riccati steps taken (included in `steps`) */
@@ -174,6 +189,8 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   const samples: RadialSample[] = [];
   const raw: RawSample[] = [];
   const scale = new Float64Array(1);
+  // On a massless leg the integrator's stretches between Riccati rungs run at ODE_SHARE × tol (see ODE_SHARE).
+  const odeShare = longRange ? 1 : ODE_SHARE;
   const byOde = (from: Point, to: Point) => {
     const seg = integrateLeg({
       ...leg,
@@ -181,10 +198,11 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       fromOffset: from.x,
       to: to.r,
       logScale,
+      tol: leg.tol * odeShare,
       maxSteps: Math.max(leg.maxSteps - steps, 1),
     });
     steps += seg.steps;
-    errorSum += seg.errorSum;
+    errorSum += seg.errorSum * odeShare;
     rescalings += seg.rescalings;
     logScale = seg.logScale;
     samples.push(...seg.samples);
@@ -211,8 +229,9 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       return;
     }
     steps++;
-    errorSum += RICCATI_STEP_CHARGE;
     riccatiSteps++;
+    // A massless leg charges the step's own error estimate; a massive far zone keeps the flat charge it was measured with.
+    errorSum += longRange ? RICCATI_STEP_CHARGE : step.error;
     if (step.correction > ACCEPT) {
       const extra = RICCATI_STEP_CHARGE * (step.correction / ACCEPT - 1);
       errorSum += extra;

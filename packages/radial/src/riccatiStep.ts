@@ -73,6 +73,14 @@ export const ACCEPT = 0.3;
 export const ACCEPT_LONG_RANGE = 2;
 /** The rounding floor of ∫Y over a step, in units of ε·|Y|·(step length in u): collocation and quadrature over 16 nodes (common practice, no source). */
 const ROUNDING = 16;
+/**
+ * The rounding of ∫Y over a step charged to its error estimate, in the units
+ * of ROUNDING: each node value of Y carries a few ε of rounding from W = √Z
+ * and the polynomial coefficients, and the quadrature adds them with positive
+ * weights (common practice, no source; ROUNDING, the threshold of the
+ * convergence test, keeps its wider margin).
+ */
+const ROUNDING_ERROR = 4;
 /** A step is refused when the two highest Chebyshev coefficients of Y (what 16 nodes leave unresolved) exceed this share of the tolerance. */
 const TAIL = 0.3;
 
@@ -304,6 +312,14 @@ export interface RiccatiStep {
   evaluations: number;
   /** the larger last correction (of ∫Y or, relative, of Y) of the two solutions where one stalled, in units of tol; 0 when both contracted below the target or the step failed */
   correction: number;
+  /**
+   * the step's own local error estimate, relative to the state, in units of
+   * tol (0 when the step failed): over both solutions, the last correction
+   * applied (what the next pass would move is less), the unresolved
+   * Chebyshev tail of Y (in ∫Y and relative in Y) and the rounding floor of
+   * ∫Y; the two add, as R = α e^{∫Y+} + β e^{∫Y−} carries both errors
+   */
+  error: number;
 }
 
 /** Work arrays of one node count, reused across steps. */
@@ -328,6 +344,8 @@ interface Work {
   ends: Float64Array;
   /** per solution (+, −): the last correction of a stalled solution, in units of tol (0 if it contracted below the target) */
   last: Float64Array;
+  /** per solution (+, −): the local error estimate of ∫y and y (last correction + unresolved tail + rounding floor), absolute */
+  error: Float64Array;
   /** one point's `localRiccati` output */
   local: Float64Array;
 }
@@ -357,6 +375,7 @@ function workFor(n: number): Work {
       dIm: f(),
       ends: new Float64Array(12),
       last: new Float64Array(2),
+      error: new Float64Array(2),
       local: new Float64Array(LOCAL_SIZE),
     };
     works.set(n, w);
@@ -389,6 +408,8 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
   let converged = false;
   // the last correction of a stalled solution, in units of tol (0 when it contracted below the target)
   let stalled = 0;
+  // what the last correction leaves: its own size, or where convergence was declared on the contraction, the next one predicted
+  let remaining = 0;
   const reach = accept > ACCEPT ? accept * tol : 0.01 * tol;
   while (passes < maxPasses) {
     passes++;
@@ -430,12 +451,14 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
     const next = passes > 1 ? (size * largest) / previous : size;
     if (size < 0.01 * tol || (next < 0.01 * tol && largest < 0.1 * previous)) {
       converged = true;
+      remaining = Math.min(size, next);
       break;
     }
     // Not contracting any more: the rounding floor of the collocation derivative (accepted when below tol) or a turning point.
     if (passes > 1 && largest > 0.5 * previous) {
       converged = size < accept * tol;
       stalled = size / tol;
+      remaining = size;
       break;
     }
     // Contracting too slowly to arrive within MAX_PASSES: give the stretch to the integrator now.
@@ -448,6 +471,8 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
   // Unresolved on the nodes? The interpolant's highest coefficients bound what collocation missed.
   const tail = chebyshevTail(rule, yRe, yIm);
   if (2 * half * tail - floor > TAIL * tol || tail > TAIL * tol * yScale) return -passes;
+  const rounding = ROUNDING_ERROR * Number.EPSILON * 2 * half * yScale;
+  w.error[k] = remaining + 2 * half * tail + tail / yScale + rounding;
   let ir = 0,
     ii = 0;
   for (let j = 0; j < n; j++) {
@@ -516,9 +541,9 @@ export function riccatiStep(
     }
   }
   const plus = refine(w, 0, half, tol, maxPasses, accept);
-  if (plus < 0) return { ok: false, passes: -plus, evaluations: n, correction: 0 };
+  if (plus < 0) return { ok: false, passes: -plus, evaluations: n, correction: 0, error: 0 };
   const minus = refine(w, 1, half, tol, maxPasses, accept);
-  if (minus < 0) return { ok: false, passes: Math.max(plus, -minus), evaluations: n, correction: 0 };
+  if (minus < 0) return { ok: false, passes: Math.max(plus, -minus), evaluations: n, correction: 0, error: 0 };
   const E = w.ends;
   // y = Y/x at the two ends
   for (const o of [0, 6]) {
@@ -562,11 +587,17 @@ export function riccatiStep(
   const dRe = Ar * E[2] - Ai * E[3] + Br * E[8] - Bi * E[9],
     dIm = Ar * E[3] + Ai * E[2] + Br * E[9] + Bi * E[8];
   if (!Number.isFinite(Ar + Ai + Br + Bi + dRe + dIm))
-    return { ok: false, passes: Math.max(plus, minus), evaluations: n, correction: 0 };
+    return { ok: false, passes: Math.max(plus, minus), evaluations: n, correction: 0, error: 0 };
   y[0] = Ar + Br;
   y[1] = Ai + Bi;
   y[2] = dRe;
   y[3] = dIm;
   scaleOut[0] = shift;
-  return { ok: true, passes: Math.max(plus, minus), evaluations: n, correction: Math.max(w.last[0], w.last[1]) };
+  return {
+    ok: true,
+    passes: Math.max(plus, minus),
+    evaluations: n,
+    correction: Math.max(w.last[0], w.last[1]),
+    error: (w.error[0] + w.error[1]) / tol,
+  };
 }
