@@ -39,7 +39,8 @@ import {
   singleSolveGammaEstimate,
 } from './errorEstimate.js';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
-import { ownMassiveSolver, requireRadialEquationField } from './massive.js';
+import { isMassiveVector, ownMassiveSolver, requireRadialEquationField } from './massive.js';
+import { radialFunctionProca, type ProcaRadialFunction } from './radialFunctionProca.js';
 import {
   GREYBODY_OPTIONS,
   checkGreybodyOptions,
@@ -372,17 +373,28 @@ function result(
   };
 }
 
+/** `radialFunction` of a field the Teukolsky radial equation takes. */
+export interface TeukolskyRadialFunction {
+  samples: RadialSample[];
+  logAbsZIn: number;
+  logAbsZOut: number;
+  diagnostics: RadialDiagnostics;
+}
+
 /**
  * The radial solution R_{+s}(r) (ingoing at the horizon, normalised to
  * Δ^{−s} e^{−ikr*} there) and dR/dr at the requested radii, with ln|Z_in| and
  * ln|Z_out| of the same solution. For s > 0 it comes from the two-sided route
- * (inside the switching radius, the −s solution mapped by D^{2s}).
+ * (inside the switching radius, the −s solution mapped by D^{2s}). A massive
+ * vector at a = 0 gets the Proca solution of one polarisation instead
+ * (`options.polarization`; radialFunctionProca.ts).
  */
 export function radialFunction(
   problem: GreybodyProblem,
   radii: readonly number[],
-  options?: Pick<GreybodyOptions, 'tol' | 'integrator'>,
-): { samples: RadialSample[]; logAbsZIn: number; logAbsZOut: number; diagnostics: RadialDiagnostics } {
+  options?: Pick<GreybodyOptions, 'tol' | 'integrator' | 'polarization'>,
+): TeukolskyRadialFunction | ProcaRadialFunction {
+  if (isMassiveVector(problem)) return radialFunctionProca(problem, radii, options);
   const p = prepare(checkRadialProblem(problem));
   const checked = validateOptions<Pick<GreybodyOptions, 'tol' | 'integrator'>>(options, {
     tol: GREYBODY_OPTIONS.tol,

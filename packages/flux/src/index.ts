@@ -1,4 +1,13 @@
-export { greybody, tryGreybody, radialFunction, MAX_RADII, type GreybodyDiagnostics, type GreybodySolution } from './greybody.js';
+export {
+  greybody,
+  tryGreybody,
+  radialFunction,
+  MAX_RADII,
+  type GreybodyDiagnostics,
+  type GreybodySolution,
+  type TeukolskyRadialFunction,
+} from './greybody.js';
+export type { ProcaRadialFunction, ProcaRadialSample } from './radialFunctionProca.js';
 export { MOMEGA_RANGE, L_TAIL_MARGIN, automaticMaxL, type GreybodyProblem, type GreybodyOptions } from './validate.js';
 export type { ProcaPolarization } from '@penumbra/regge-wheeler';
 export { lowFrequencyGreybody } from './lowFrequency.js';

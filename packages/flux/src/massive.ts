@@ -22,7 +22,7 @@ const OWN_SOLVERS: Partial<Record<FieldSpin, MassiveSolver>> = {
 };
 
 /** Massive spins `greybody` computes, for messages. */
-const MASSIVE_SPINS = '0, 1/2 (greybody only), 1 (greybody at a = 0 only)';
+const MASSIVE_SPINS = '0, 1/2 (greybody only), 1 (greybody and radialFunction, at a = 0 only)';
 
 /**
  * The solver of its own for a massive field of spin 1/2 or 1, read from the
@@ -38,10 +38,21 @@ export function ownMassiveSolver(problem: unknown): MassiveSolver | undefined {
   }
 }
 
+/** Whether the caller's problem names a massive vector (spin 1, mass > 0): `radialFunction` gives it the Proca solution. */
+export function isMassiveVector(problem: unknown): boolean {
+  try {
+    const { spin, mass } = validateField((problem as { mode?: { field?: unknown } } | null)?.mode?.field, 'mode.field');
+    return spin === 1 && mass > 0;
+  } catch {
+    return false;
+  }
+}
+
 /**
  * Refuse a massive field the radial equation of `greybody` and `radialFunction`
  * cannot take (only massless fields and the massive scalar go through it),
- * naming mode.field.mass.
+ * naming mode.field.mass. Massive vectors never reach it: both functions
+ * hand them to their Proca routes first (a ≠ 0 refused there, naming hole.a).
  */
 export function requireRadialEquationField(problem: CheckedProblem): void {
   if (problem.fieldMass === 0 || problem.spin === 0) return;
@@ -50,7 +61,7 @@ export function requireRadialEquationField(problem: CheckedProblem): void {
     `0 for spin ${formatFieldSpin(problem.spin)} (massive fields are computed for spin ${MASSIVE_SPINS})`,
     problem.fieldMass,
     OWN_SOLVERS[problem.spin]
-      ? 'this function samples the Teukolsky radial function R, which a massive field of this spin does not have (the massive Dirac field is a first-order pair, the Proca field two coupled channels, each with its own solver); its Γ comes from greybody'
+      ? 'this function samples the Teukolsky radial function R, which a massive field of this spin does not have (the massive Dirac field is a first-order pair with a solver of its own); its Γ comes from greybody'
       : 'massive fields of this spin are not supported',
   );
 }

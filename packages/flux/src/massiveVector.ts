@@ -15,7 +15,7 @@ import { validateOmega } from './validate.js';
 import type { GreybodySolution } from './greybody.js';
 
 /** The mode of a massive vector: as core's Mode, but l = 0 (the monopole) is a mode of its own. */
-function checkVectorMode(value: unknown): { fieldMass: number; l: number; m: number } {
+export function checkVectorMode(value: unknown): { fieldMass: number; l: number; m: number } {
   const mode = requireKeyedObject('mode', value, ['field', 'l', 'm']);
   const { mass } = validateField(mode.field, 'mode.field');
   const { l, m } = mode;
@@ -27,16 +27,8 @@ function checkVectorMode(value: unknown): { fieldMass: number; l: number; m: num
   return { fieldMass: mass, l, m };
 }
 
-/** The default polarisation: the monopole at l = 0, the odd (axial) mode otherwise. */
-function defaultPolarization(l: number): ProcaPolarization {
-  return l === 0 ? 'monopole' : 'odd';
-}
-
-/** Γ of one massive vector polarisation at a = 0, shaped as every other greybody solution. */
-export function massiveVectorGreybody(problem: GreybodyProblem, options: GreybodyOptions): GreybodySolution {
-  const p = requireKeyedObject('problem', problem, ['hole', 'mode', 'omega']);
-  const { fieldMass, l, m } = checkVectorMode(p.mode);
-  const { a, mass } = validateHole(p.hole as Hole, 'hole');
+/** Refuse a ≠ 0 for a massive vector, naming hole.a. */
+export function requireSchwarzschild(a: number): void {
   if (a !== 0) {
     throw new InputError(
       'hole.a',
@@ -45,6 +37,19 @@ export function massiveVectorGreybody(problem: GreybodyProblem, options: Greybod
       'the separable Kerr ansatz of Frolov, Krtouš, Kubizňák & Santos (2018) is not yet verified here against the Schwarzschild limit and the massless transverse modes; see docs/massive-vector.md',
     );
   }
+}
+
+/** The default polarisation: the monopole at l = 0, the odd (axial) mode otherwise. */
+export function defaultPolarization(l: number): ProcaPolarization {
+  return l === 0 ? 'monopole' : 'odd';
+}
+
+/** Γ of one massive vector polarisation at a = 0, shaped as every other greybody solution. */
+export function massiveVectorGreybody(problem: GreybodyProblem, options: GreybodyOptions): GreybodySolution {
+  const p = requireKeyedObject('problem', problem, ['hole', 'mode', 'omega']);
+  const { fieldMass, l, m } = checkVectorMode(p.mode);
+  const { a, mass } = validateHole(p.hole as Hole, 'hole');
+  requireSchwarzschild(a);
   const omega = validateOmega(p.omega, mass);
   const polarization = options.polarization ?? defaultPolarization(l);
   // the greybody integrators 'gbs' and 'odex' are extrapolation loops: the Proca solver's own one; 'cash-karp' is its RK45 cross-check

@@ -26,3 +26,9 @@ export {
   MAX_PROCA_L,
 } from './proca/problem.js';
 export { type ProcaGreybodyDiagnostics, type ProcaGreybodySolution, procaGreybody } from './proca/greybody.js';
+export {
+  type ProcaRadialSample,
+  type ProcaRadialSolution,
+  MAX_PROCA_RADII,
+  procaRadialSolution,
+} from './proca/radial.js';

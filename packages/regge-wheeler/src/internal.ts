@@ -5,7 +5,12 @@
  */
 export type { IntegrationOptions } from './problem.js';
 export { type SingleIntegration, integrateOnce } from './integrate.js';
-export { type ProcaIntegration, type ProcaIntegrationControls, integrateProca } from './proca/integrate.js';
+export {
+  type ProcaIntegration,
+  type ProcaIntegrationControls,
+  type ProcaStateSample,
+  integrateProca,
+} from './proca/integrate.js';
 export { type ProcaSector, type SectorModel, sectorModel } from './proca/sectors.js';
 export type { Complex } from './proca/complex.js';
 export { type SeriesState, type ChannelState, outgoingFarSolution, horizonSolution } from './proca/series.js';

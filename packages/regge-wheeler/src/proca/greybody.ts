@@ -14,7 +14,7 @@ import {
   validateProcaProblem,
   type ProcaIntegrator,
 } from './problem.js';
-import { sectorModel } from './sectors.js';
+import { sectorModel, type SectorModel } from './sectors.js';
 import { farWaveNumbers } from './series.js';
 
 /** How a Proca Γ was obtained. */
@@ -82,6 +82,45 @@ function stepTolerance(integrator: ProcaIntegrator, tol: number, span: number, o
 }
 
 /**
+ * One extrapolation integration whose estimate is its accumulation bound
+ * SINGLE_SOLVE_CHARGE × steps × step tolerance plus the rounding floor; its
+ * step tolerance is tightened (twice at most) until that is within tol.
+ * Returns the last run with its estimate (above tol if it never got there)
+ * and the work of all runs.
+ */
+export function singleExtrapolationSolve(
+  model: SectorModel,
+  tol: number,
+  span: number,
+  sampleRadii?: readonly number[],
+): { fine: ProcaIntegration; relError: number; steps: number; rhsEvaluations: number; stepTolerance: number } {
+  let stepTol = Math.max(1e-16, tol / (5 * SINGLE_SOLVE_CHARGE * (30 + 2 * Math.sqrt(model.omega * span))));
+  let steps = 0;
+  let rhsEvaluations = 0;
+  for (let attempt = 0; ; attempt++) {
+    const run = integrateProca(model, {
+      startOffset: 0.6 * START_OFFSET,
+      stepTolerance: stepTol,
+      integrator: 'extrapolation',
+      ...(sampleRadii ? { sampleRadii } : {}),
+    });
+    steps += run.steps;
+    rhsEvaluations += run.rhsEvaluations;
+    const bound = SINGLE_SOLVE_CHARGE * run.steps * stepTol;
+    const relError = Math.max(bound + ROUNDING_PER_ROOT_EVALUATION * Math.sqrt(run.rhsEvaluations), ERROR_FLOOR);
+    const next = stepTol * Math.min(0.5, (0.3 * tol) / bound);
+    if (relError <= tol || attempt === 2 || !(next >= 1e-16))
+      return { fine: run, relError, steps, rhsEvaluations, stepTolerance: stepTol };
+    stepTol = next;
+  }
+}
+
+/** Start offset and matching radius of a Proca solve: the tortoise span the step-tolerance rules use. */
+export function procaSpan(model: SectorModel): number {
+  return tortoiseSpan(START_OFFSET, 1.4 * defaultProcaMatchRadius(model));
+}
+
+/**
  * Γ of one polarisation of a massive vector mode on Schwarzschild. The
  * extrapolation route runs one integration with its accumulation bound as the
  * estimate; where that cannot reach tol, and for Cash–Karp, two integrations
@@ -128,24 +167,11 @@ export function procaGreybody(problem: ProcaGreybodyProblem, options?: ProcaGrey
     }
     return { fine: fine!, relError };
   };
-  /**
-   * One extrapolation integration whose estimate is its accumulation bound
-   * SINGLE_SOLVE_CHARGE × steps × step tolerance plus the rounding floor; its
-   * step tolerance is tightened (twice at most) until that is within tol.
-   */
   const runSingle = () => {
-    let stepTol = Math.max(1e-16, tol / (5 * SINGLE_SOLVE_CHARGE * (30 + 2 * Math.sqrt(p.omega * span))));
-    for (let attempt = 0; attempt < 3; attempt++) {
-      const run = integrateProca(model, { startOffset: 0.6 * START_OFFSET, stepTolerance: stepTol, integrator: 'extrapolation' });
-      steps += run.steps;
-      rhsEvaluations += run.rhsEvaluations;
-      const bound = SINGLE_SOLVE_CHARGE * run.steps * stepTol;
-      const relError = Math.max(bound + ROUNDING_PER_ROOT_EVALUATION * Math.sqrt(run.rhsEvaluations), ERROR_FLOOR);
-      if (relError <= tol) return { fine: run, relError };
-      stepTol *= Math.min(0.5, (0.3 * tol) / bound);
-      if (!(stepTol >= 1e-16)) break;
-    }
-    return undefined;
+    const r = singleExtrapolationSolve(model, tol, span);
+    steps += r.steps;
+    rhsEvaluations += r.rhsEvaluations;
+    return r.relError <= tol ? r : undefined;
   };
   // below ~1e-11 the extrapolation loop's rounding floor (ROUNDING_PER_ROOT_EVALUATION) is in the way: Cash–Karp at once
   let used: ProcaIntegrator = integrator === 'extrapolation' && tol < TIGHTEST_EXTRAPOLATION_TOL ? 'cash-karp' : integrator;

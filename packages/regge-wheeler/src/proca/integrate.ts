@@ -25,6 +25,15 @@ export interface ProcaIntegrationControls {
   integrator?: ProcaIntegrator;
   /** rotate the horizon and far channel bases by this angle (radians) before forming Γ; the eigen-Γ must not move */
   basisAngle?: number;
+  /** radii (ascending, units of M) at which to keep the state: those in [r0, matchRadius] become step ends */
+  sampleRadii?: readonly number[];
+}
+
+/** The state of all horizon solutions at one radius: true value = state · e^{logRescale}. */
+export interface ProcaStateSample {
+  r: number;
+  state: Float64Array;
+  logRescale: number;
 }
 
 /** What one integration gives: absorption eigenvalues (descending) and their reflections. */
@@ -42,6 +51,16 @@ export interface ProcaIntegration {
   steps: number;
   rhsEvaluations: number;
   seriesTerms: number;
+  /** raw amplitudes of the stored horizon solutions (columns) in the incoming / outgoing far channels (rows), row-major; true = raw · e^{logRescale} */
+  amplitudesIn: Complex[];
+  amplitudesOut: Complex[];
+  logRescale: number;
+  /** unit eigenvectors of T in the unit-flux far-channel basis, in the order of `gammas` */
+  eigenvectors: Complex[][];
+  /** the outgoing far solutions at the matching radius, one per channel */
+  far: SeriesState[];
+  /** the states at `sampleRadii` that lie in [startRadius, matchRadius] */
+  samples: ProcaStateSample[];
 }
 
 const MAX_STEPS = 3_000_000;
@@ -193,9 +212,36 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   };
   let steps = 0;
   let logRescale = 0;
+  const targets = (controls.sampleRadii ?? []).filter((r) => r >= r0 && r <= matchRadius);
+  const samples: ProcaStateSample[] = [];
+  let next = 0;
+  // a sample at r0 itself is the start state
+  while (next < targets.length && targets[next] === r0) {
+    samples.push({ r: r0, state: Float64Array.from(y), logRescale: 0 });
+    next++;
+  }
+  const position = (): number => ('t' in stepper ? stepper.t : stepper.r);
+  const stepTo = (): boolean => {
+    if (next >= targets.length) return stepOnce();
+    try {
+      stepper.step(targets[next]);
+    } catch (e) {
+      if (!(e instanceof RangeError)) throw e;
+      throw new ConvergenceError('integration step size underflow', failure(model, e.message, steps, rhsEvaluations));
+    }
+    const at = position();
+    if (at >= targets[next]) {
+      // every target at this radius (repeated radii) takes the same state
+      while (next < targets.length && targets[next] <= at) {
+        samples.push({ r: targets[next], state: Float64Array.from(y), logRescale });
+        next++;
+      }
+    }
+    return at < matchRadius;
+  };
   let more = true;
   while (more) {
-    more = stepOnce();
+    more = stepTo();
     steps++;
     if (cashKarp) updateNorms();
     let size = 0;
@@ -249,6 +295,11 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
     steps,
     rhsEvaluations,
     seriesTerms: starts.reduce((a, s) => a + s.terms, 0) + far.reduce((a, s) => a + s.terms, 0),
+    amplitudesIn: Ain,
+    amplitudesOut: Aout,
+    logRescale,
+    far,
+    samples,
   };
 }
 
@@ -298,7 +349,7 @@ function absorption(model: SectorModel, AinRaw: Complex[], AoutRaw: Complex[], l
   }
   const channelDiagonal = Array.from({ length: N }, (_, i) => scale * T[i * N + i][0]);
   if (N === 1) {
-    return { gammas: [scale * T[0][0]], reflections: [R[0][0]], residual, channelDiagonal };
+    return { gammas: [scale * T[0][0]], reflections: [R[0][0]], residual, channelDiagonal, eigenvectors: [[[1, 0] as Complex]] };
   }
   // det T = |det t|², formed without cancellation.
   const detT = abs2([
@@ -321,7 +372,13 @@ function absorption(model: SectorModel, AinRaw: Complex[], AoutRaw: Complex[], l
     }
     return re;
   });
-  return { gammas: [scale * eig.values[0], scale * eig.values[1]], reflections, residual, channelDiagonal };
+  return {
+    gammas: [scale * eig.values[0], scale * eig.values[1]],
+    reflections,
+    residual,
+    channelDiagonal,
+    eigenvectors: eig.vectors,
+  };
 }
 
 /** Tortoise span of an integration (for the step-tolerance rule). */
