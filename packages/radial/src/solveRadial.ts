@@ -47,7 +47,13 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
   const method = `teukolsky-shooting/frobenius-start/asymptotic-match/${opts.integrator}`;
   const equation = radialEquation(hole, mode, hole.rPlus);
   // the default start stays inside the requested radii (the series is not sampled there)
-  const start = startAtHorizon(hole, mode, equation, opts.startFraction, opts.grid.length > 0 ? Math.min(...opts.grid) : undefined);
+  const start = startAtHorizon(
+    hole,
+    mode,
+    equation,
+    opts.startFraction,
+    opts.grid.length > 0 ? Math.min(...opts.grid) : undefined,
+  );
   const match = chooseMatch(hole, mode, opts.matchRadius, farTarget(opts.tol, fieldMassOf(mode) > 0));
   const r0 = hole.rPlus + start.x0;
   if (!(match.r > r0)) throw new InputError('matchRadius', `> start radius ${r0}`, match.r);
