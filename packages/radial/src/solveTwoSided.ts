@@ -47,7 +47,8 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   const minus: RadialMode = { s: -s, m: plus.m, omega: plus.omega, lambda: plus.lambda + 2 * s };
   const method = `teukolsky-two-sided/frobenius-start(−s)/starobinsky-map/asymptotic-match/${opts.integrator}`;
   const minusEquation = radialEquation(hole, minus, hole.rPlus);
-  const start = startAtHorizon(hole, minus, minusEquation, opts.startFraction);
+  // a switching radius given without a start fraction keeps the default start inside it
+  const start = startAtHorizon(hole, minus, minusEquation, opts.startFraction, opts.switchRadius);
   const r0 = hole.rPlus + start.x0;
   // The −s field is matched only for Y_out (the reflection).
   const matchMinus = opts.reflection ? chooseMatch(hole, minus, opts.matchRadius, farTarget(opts.tol)) : null;
