@@ -8,6 +8,15 @@ import { horizonSeriesStart, type HorizonStart } from './horizonSeries.js';
 const START_TRUNCATION = 1e-13;
 
 /**
+ * Integrator tolerances below this are near the rounding floor: there the
+ * narrower start (and shooting.ts's smaller first step) are kept. Measured on the
+ * Kerr rows of the 40-digit fixture at greybody tol 1e-12 (integrator
+ * 1e-15): the wide start let the true error reach 4.1e-13 against 2.3e-13,
+ * and 9 rows were refused against 5 (bench/honesty.bench.mjs).
+ */
+export const NEAR_ROUNDING_TOL = 1e-13;
+
+/**
  * Default start point as a fraction of r+ − r−. The series converges out to
  * x = r+ − r− (the singular point r−), geometrically with the fraction, and
  * is summed to 1e-17 of its value, so 0.75 costs ~150 cheap terms; near the
@@ -18,10 +27,13 @@ const START_TRUNCATION = 1e-13;
  * of x the series covers is integration saved (measured at tol 1e-8 over
  * random modes, against min(0.25, 0.5/(ωr+)): 11 % fewer right-hand-side
  * evaluations, the error estimate no closer to the true error;
- * bench/floor.bench.mjs). Starting closer than necessary costs digits for
- * s > 0 (the outgoing horizon solution is relatively amplified).
+ * bench/floor.bench.mjs). At an integrator tolerance below NEAR_ROUNDING_TOL
+ * the start stays at min(0.25, 0.5/(ωr+)). Starting closer than necessary
+ * costs digits for s > 0 (the outgoing horizon solution is relatively
+ * amplified).
  */
-export function defaultStartFraction(hole: KerrHole, omega: number): number {
+export function defaultStartFraction(hole: KerrHole, omega: number, tol = 1e-11): number {
+  if (tol < NEAR_ROUNDING_TOL) return Math.min(0.25, 0.5 / (Math.abs(omega) * hole.rPlus));
   return Math.min(0.75, 1 / (Math.abs(omega) * hole.rPlus));
 }
 
@@ -30,7 +42,8 @@ export function defaultStartFraction(hole: KerrHole, omega: number): number {
  * the default fraction halved while the series cancels digits (large |k|/κ
  * near extremality makes the terms swell before they decay), and kept inside
  * `innerStop` (the smallest radius where the caller reads the integrated
- * solution: half way to it at most). `eq` is the mode's equation about r+.
+ * solution: half way to it at most). `eq` is the mode's equation about r+;
+ * `tol` is the integrator tolerance (see defaultStartFraction).
  */
 export function startAtHorizon(
   hole: KerrHole,
@@ -38,9 +51,10 @@ export function startAtHorizon(
   eq: RadialEquation,
   startFraction?: number,
   innerStop = Number.POSITIVE_INFINITY,
+  tol?: number,
 ): HorizonStart {
   const b = hole.rPlus - hole.rMinus;
-  let x0 = (startFraction ?? defaultStartFraction(hole, mode.omega)) * b;
+  let x0 = (startFraction ?? defaultStartFraction(hole, mode.omega, tol)) * b;
   if (startFraction === undefined && innerStop > hole.rPlus) x0 = Math.min(x0, 0.5 * (innerStop - hole.rPlus));
   for (;;) {
     try {

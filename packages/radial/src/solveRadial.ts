@@ -53,6 +53,7 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
     equation,
     opts.startFraction,
     opts.grid.length > 0 ? Math.min(...opts.grid) : undefined,
+    opts.tol,
   );
   const match = chooseMatch(hole, mode, opts.matchRadius, farTarget(opts.tol, fieldMassOf(mode) > 0));
   const r0 = hole.rPlus + start.x0;

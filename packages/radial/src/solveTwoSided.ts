@@ -48,7 +48,7 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   const method = `teukolsky-two-sided/frobenius-start(−s)/starobinsky-map/asymptotic-match/${opts.integrator}`;
   const minusEquation = radialEquation(hole, minus, hole.rPlus);
   // a switching radius given without a start fraction keeps the default start inside it
-  const start = startAtHorizon(hole, minus, minusEquation, opts.startFraction, opts.switchRadius);
+  const start = startAtHorizon(hole, minus, minusEquation, opts.startFraction, opts.switchRadius, opts.tol);
   const r0 = hole.rPlus + start.x0;
   // The −s field is matched only for Y_out (the reflection).
   const matchMinus = opts.reflection ? chooseMatch(hole, minus, opts.matchRadius, farTarget(opts.tol)) : null;
