@@ -77,32 +77,36 @@ export function chooseMatch(hole: KerrHole, mode: RadialMode, fixed?: number, ta
   const start = beta === 0 ? LADDER_START : LADDER_START_MASSIVE;
   let r = fixed ?? Math.max(6 * M, hole.rPlus + 4 * M, start / Math.abs(kInf));
   for (let attempt = 0; ; attempt++) {
-    // the sums decide; the phase factors are computed only where both converged (the same values)
+    const last = fixed !== undefined || attempt + 1 >= LADDER_STEPS;
+    // the sums decide (the outgoing one only where the ingoing one converged, or for the diagnostics of a
+    // failure); the phase factors are computed only where both converged (the same values)
     let sin = sumFar(inSeries, r, target);
-    let sout = sumFar(outSeries, r, target);
-    if (sin.converged && sout.converged) {
-      if (fixed === undefined && attempt > 0) {
-        // the rung below failed: bisect (r/1.25, r] in ln r, keeping a radius where both converge
-        let lo = r / LADDER_RATIO;
-        for (let i = 0; i < REFINEMENTS; i++) {
-          const mid = Math.sqrt(lo * r);
-          const min = sumFar(inSeries, mid, target);
-          const mout = sumFar(outSeries, mid, target);
-          if (min.converged && mout.converged) {
-            r = mid;
-            sin = min;
-            sout = mout;
-          } else lo = mid;
+    if (sin.converged || last) {
+      let sout = sumFar(outSeries, r, target);
+      if (sin.converged && sout.converged) {
+        if (fixed === undefined && attempt > 0) {
+          // the rung below failed: bisect (r/1.25, r] in ln r, keeping a radius where both converge
+          let lo = r / LADDER_RATIO;
+          for (let i = 0; i < REFINEMENTS; i++) {
+            const mid = Math.sqrt(lo * r);
+            const min = sumFar(inSeries, mid, target);
+            const mout = min.converged ? sumFar(outSeries, mid, target) : null;
+            if (mout?.converged) {
+              r = mid;
+              sin = min;
+              sout = mout;
+            } else lo = mid;
+          }
         }
+        return { r, vin: farValue(hole, inSeries, r, sin), vout: farValue(hole, outSeries, r, sout) };
       }
-      return { r, vin: farValue(hole, inSeries, r, sin), vout: farValue(hole, outSeries, r, sout) };
-    }
-    if (fixed !== undefined || attempt + 1 >= LADDER_STEPS) {
-      const vin = farValue(hole, inSeries, r, sin);
-      const vout = farValue(hole, outSeries, r, sout);
-      if (fixed !== undefined)
-        throw seriesFailure('far-zone series do not converge at the requested matching radius', r, vin, vout);
-      throw seriesFailure('far-zone series did not converge at any matching radius tried', r, vin, vout);
+      if (last) {
+        const vin = farValue(hole, inSeries, r, sin);
+        const vout = farValue(hole, outSeries, r, sout);
+        if (fixed !== undefined)
+          throw seriesFailure('far-zone series do not converge at the requested matching radius', r, vin, vout);
+        throw seriesFailure('far-zone series did not converge at any matching radius tried', r, vin, vout);
+      }
     }
     r *= LADDER_RATIO;
   }
