@@ -6,15 +6,27 @@ import { horizonSeriesStart, type HorizonStart } from './horizonSeries.js';
 
 /** Truncation (cancellation included) accepted before the start point is moved inward. */
 const START_TRUNCATION = 1e-13;
+/**
+ * The same for the wide default start (see defaultStartFraction). The
+ * cancellation is charged at 1e-16 per unit of swell, but where |ν| = |k|·2Mr+/b
+ * is large (near-extremal, counter-rotating) the rounding of the recurrence
+ * was measured at up to ~250 times that (s = 2, l = 35, m = −25, a = 0.99999,
+ * Mω = 0.092: truncation 6e-14, error of ln|Z_in| 1.5e-11); a start that
+ * swells less than tenfold keeps that far below the tolerances it serves.
+ */
+const START_TRUNCATION_WIDE = 1e-15;
 
 /**
- * Integrator tolerances below this are near the rounding floor: there the
- * narrower start (and shooting.ts's smaller first step) are kept. Measured on the
- * Kerr rows of the 40-digit fixture at greybody tol 1e-12 (integrator
- * 1e-15): the wide start let the true error reach 4.1e-13 against 2.3e-13,
- * and 9 rows were refused against 5 (bench/honesty.bench.mjs).
+ * Integrator tolerances below this (greybody tol below 1e-9) are near the
+ * rounding floor: there the narrower start, shooting.ts's smaller first step
+ * and farMatch.ts's tighter far series are kept. Measured: on the Kerr rows
+ * of the 40-digit fixture at greybody tol 1e-12 the wide start let the true
+ * error reach 4.1e-13 against 2.3e-13 and 9 rows were refused against 5
+ * (bench/honesty.bench.mjs); at tol 1e-10 over 2,500 random and wide-range
+ * modes 11 estimates fell below the error of a tol-1e-11 solve against 1
+ * (bench/estimate.bench.mjs).
  */
-export const NEAR_ROUNDING_TOL = 1e-13;
+export const NEAR_ROUNDING_TOL = 1e-12;
 
 /**
  * Default start point as a fraction of r+ − r−. The series converges out to
@@ -55,11 +67,12 @@ export function startAtHorizon(
 ): HorizonStart {
   const b = hole.rPlus - hole.rMinus;
   let x0 = (startFraction ?? defaultStartFraction(hole, mode.omega, tol)) * b;
+  const accepted = tol !== undefined && tol < NEAR_ROUNDING_TOL ? START_TRUNCATION : START_TRUNCATION_WIDE;
   if (startFraction === undefined && innerStop > hole.rPlus) x0 = Math.min(x0, 0.5 * (innerStop - hole.rPlus));
   for (;;) {
     try {
       const start = horizonSeriesStart(hole, mode, x0, eq);
-      if (start.truncation <= START_TRUNCATION || x0 < 1e-4 * b || startFraction !== undefined) return start;
+      if (start.truncation <= accepted || x0 < 1e-4 * b || startFraction !== undefined) return start;
     } catch (e) {
       if (!(e instanceof ConvergenceError) || x0 < 1e-6 * b) throw e;
     }
