@@ -35,7 +35,7 @@ export const NEAR_ROUNDING_TOL = 1e-12;
  * horizon the solution oscillates with wavenumber ≈ 2ωr+/(r+ − r−) in x, so
  * terms grow like (2ωr+·fraction)^n/n! before decaying; keeping
  * ωr+·fraction ≤ 1 bounds that cancellation (it is charged in the truncation,
- * and the start moves inward where it exceeds START_TRUNCATION). Every bit
+ * and the start moves inward where it exceeds START_TRUNCATION_WIDE). Every bit
  * of x the series covers is integration saved (measured at tol 1e-8 over
  * random modes, against min(0.25, 0.5/(ωr+)): 11 % fewer right-hand-side
  * evaluations, the error estimate no closer to the true error;
