@@ -5,6 +5,7 @@
  */
 import type { KerrHole } from '@penumbra/kerr';
 import { ConvergenceError } from '@penumbra/core';
+import { NEAR_ROUNDING_TOL } from './horizonStart.js';
 import { farSeries, farValue, farWavenumber, sumFar, type FarValue } from './farSeries.js';
 import type { RadialMode } from './equation.js';
 import type { Complex2 } from './solution.js';
@@ -23,20 +24,24 @@ const LADDER_STEPS = 60;
 
 /**
  * The far-series convergence asked of a solve at integrator tolerance `tol`:
- * tol itself, between 1e-17 and 1e-11 (a massive field: 1e-3 tol, between
- * 1e-17 and 1e-14, as before). The truncation enters the error estimate
- * beside the integration error (diagnostics.ts; flux charges it five times),
- * and the series converges at smaller ωr the looser the target, so fewer
- * integration steps lie between the barrier and the match (measured at
- * greybody's default tol 1e-8, with the lower ladder start and the
- * refinement below: about 17 % fewer right-hand-side evaluations over random
- * massless modes, Γ moved by at most 3e-11; bench/floor.bench.mjs). A
- * massive field's far zone beyond k∞r ≈ 20 is crossed by Riccati steps, which
- * the long-range phase makes cheaper there than the series
- * (packages/radial/test/riccati.test.ts).
+ * tol itself, between 1e-17 and 1e-11 (a massive field, or a tolerance
+ * below NEAR_ROUNDING_TOL: 1e-3 tol, between 1e-17 and 1e-14, as before).
+ * The truncation enters the error estimate beside the integration error
+ * (diagnostics.ts; flux charges it five times), and the series converges at
+ * smaller ωr the looser the target, so fewer integration steps lie between
+ * the barrier and the match (measured at greybody's default tol 1e-8, with
+ * the lower ladder start and the refinement of `chooseMatch`: about 17 %
+ * fewer right-hand-side evaluations over random massless modes, Γ moved by
+ * at most 3e-11; bench/floor.bench.mjs). Near the rounding floor the tighter
+ * target and the earlier ladder keep the tight estimates where they were
+ * (bench/estimate.bench.mjs at tol 1e-10). A massive field's far zone beyond
+ * k∞r ≈ 20 is crossed by Riccati steps, which the long-range phase makes
+ * cheaper there than the series (packages/radial/test/riccati.test.ts).
  */
 export function farTarget(tol: number, massive = false): number {
-  return massive ? Math.min(1e-14, Math.max(1e-17, 1e-3 * tol)) : Math.min(1e-11, Math.max(1e-17, tol));
+  return massive || tol < NEAR_ROUNDING_TOL
+    ? Math.min(1e-14, Math.max(1e-17, 1e-3 * tol))
+    : Math.min(1e-11, Math.max(1e-17, tol));
 }
 const LADDER_RATIO = 1.25;
 /** Halvings (in ln r) of the last ladder rung: the radius found is within 1.25^(1/8) ≈ 1.03 of the smallest that converges. */
@@ -44,7 +49,8 @@ const REFINEMENTS = 3;
 /**
  * A massless field's ladder starts at LADDER_START / ω (with 6M and r+ + 4M;
  * it was 20/ω): where the series converges there is decided by the series
- * alone. A massive field keeps 20/k∞ (see farTarget).
+ * alone. A massive field, and any field near the rounding floor, keeps 20/k∞
+ * and the bare ladder (see farTarget).
  */
 const LADDER_START = 4;
 const LADDER_START_MASSIVE = 20;
@@ -67,42 +73,48 @@ function seriesFailure(message: string, r: number, vin: FarValue, vout: FarValue
  * The smallest radius on a geometric ladder from max(6M, r+ + 4M, 4/ω)
  * (20/k∞ for a massive field, k∞ = √(ω² − μ²)) where both asymptotic series converge to `target`
  * (three successive terms below it, relative to the sum; default 1e-17),
- * brought in by bisecting the last rung in ln r; or exactly `fixed`, if given.
+ * brought in by bisecting the last rung in ln r (with `wide` false, from
+ * 20/k∞ and without the bisection, as before); or exactly `fixed`, if given.
  */
-export function chooseMatch(hole: KerrHole, mode: RadialMode, fixed?: number, target = 1e-17): FarMatch {
+export function chooseMatch(hole: KerrHole, mode: RadialMode, fixed?: number, target = 1e-17, wide = true): FarMatch {
   const inSeries = farSeries(hole, mode, -1);
   const outSeries = farSeries(hole, mode, 1);
   const M = hole.mass;
   const { kInf, beta } = farWavenumber(hole, mode);
-  const start = beta === 0 ? LADDER_START : LADDER_START_MASSIVE;
+  const lowStart = wide && beta === 0;
+  const start = lowStart ? LADDER_START : LADDER_START_MASSIVE;
   let r = fixed ?? Math.max(6 * M, hole.rPlus + 4 * M, start / Math.abs(kInf));
   for (let attempt = 0; ; attempt++) {
-    // the sums decide; the phase factors are computed only where both converged (the same values)
+    const last = fixed !== undefined || attempt + 1 >= LADDER_STEPS;
+    // the sums decide (the outgoing one only where the ingoing one converged, or for the diagnostics of a
+    // failure); the phase factors are computed only where both converged (the same values)
     let sin = sumFar(inSeries, r, target);
-    let sout = sumFar(outSeries, r, target);
-    if (sin.converged && sout.converged) {
-      if (fixed === undefined && attempt > 0) {
-        // the rung below failed: bisect (r/1.25, r] in ln r, keeping a radius where both converge
-        let lo = r / LADDER_RATIO;
-        for (let i = 0; i < REFINEMENTS; i++) {
-          const mid = Math.sqrt(lo * r);
-          const min = sumFar(inSeries, mid, target);
-          const mout = sumFar(outSeries, mid, target);
-          if (min.converged && mout.converged) {
-            r = mid;
-            sin = min;
-            sout = mout;
-          } else lo = mid;
+    if (sin.converged || last) {
+      let sout = sumFar(outSeries, r, target);
+      if (sin.converged && sout.converged) {
+        if (fixed === undefined && attempt > 0 && lowStart) {
+          // the rung below failed: bisect (r/1.25, r] in ln r, keeping a radius where both converge
+          let lo = r / LADDER_RATIO;
+          for (let i = 0; i < REFINEMENTS; i++) {
+            const mid = Math.sqrt(lo * r);
+            const min = sumFar(inSeries, mid, target);
+            const mout = min.converged ? sumFar(outSeries, mid, target) : null;
+            if (mout?.converged) {
+              r = mid;
+              sin = min;
+              sout = mout;
+            } else lo = mid;
+          }
         }
+        return { r, vin: farValue(hole, inSeries, r, sin), vout: farValue(hole, outSeries, r, sout) };
       }
-      return { r, vin: farValue(hole, inSeries, r, sin), vout: farValue(hole, outSeries, r, sout) };
-    }
-    if (fixed !== undefined || attempt + 1 >= LADDER_STEPS) {
-      const vin = farValue(hole, inSeries, r, sin);
-      const vout = farValue(hole, outSeries, r, sout);
-      if (fixed !== undefined)
-        throw seriesFailure('far-zone series do not converge at the requested matching radius', r, vin, vout);
-      throw seriesFailure('far-zone series did not converge at any matching radius tried', r, vin, vout);
+      if (last) {
+        const vin = farValue(hole, inSeries, r, sin);
+        const vout = farValue(hole, outSeries, r, sout);
+        if (fixed !== undefined)
+          throw seriesFailure('far-zone series do not converge at the requested matching radius', r, vin, vout);
+        throw seriesFailure('far-zone series did not converge at any matching radius tried', r, vin, vout);
+      }
     }
     r *= LADDER_RATIO;
   }

@@ -19,8 +19,8 @@
  */
 import type { KerrHole } from '@penumbra/kerr';
 import { tortoiseFromHorizonDistance } from '@penumbra/kerr';
-import { add, cpoly, cpolyAt, padTo, scale, type CPoly } from './complexPoly.js';
-import { fieldMassOf, radialEquation, substitutePhase, type RadialEquation, type RadialMode } from './equation.js';
+import { cpoly, cpolyAt, type CPoly } from './complexPoly.js';
+import { fieldMassOf, type RadialMode } from './equation.js';
 
 /** Coefficients of one far-zone series, R = e^{iσωr*} r^p Σ c_n r^{−n}. */
 export interface FarSeries {
@@ -124,38 +124,44 @@ export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTe
   return series;
 }
 
-// The two series of one mode share the equation (the last one built is kept).
-let lastEquation: { hole: KerrHole; mode: RadialMode; eq: RadialEquation } | null = null;
-
-function equationOf(hole: KerrHole, mode: RadialMode): RadialEquation {
-  const last = lastEquation;
-  if (
-    last !== null &&
-    last.hole.a === hole.a &&
-    last.hole.mass === hole.mass &&
-    last.hole.rPlus === hole.rPlus &&
-    last.hole.rMinus === hole.rMinus &&
-    last.mode.s === mode.s &&
-    last.mode.m === mode.m &&
-    last.mode.omega === mode.omega &&
-    last.mode.lambda === mode.lambda &&
-    fieldMassOf(last.mode) === fieldMassOf(mode)
-  )
-    return last.eq;
-  const eq = radialEquation(hole, mode);
-  lastEquation = { hole: { ...hole }, mode: { ...mode }, eq };
-  return eq;
+/** out[i + j] += f · p[i] q[j] over the given lengths (real polynomials, lowest power first). */
+function addProduct(out: Float64Array, p: ArrayLike<number>, q: ArrayLike<number>, f = 1): void {
+  for (let i = 0; i < p.length; i++) for (let j = 0; j < q.length; j++) out[i + j] += f * p[i] * q[j];
 }
 
+/**
+ * The far-zone recurrence written out on real coefficient lists in powers of
+ * r (the radial equation of equation.ts after `substitutePhase` with the real
+ * W = σ(k∞ϖ + βr); every factor is real, so no complex polynomial is built):
+ *   A = Δ², B = (s+1)ΔΔ' + 2iWΔ, Q = U − W² + i(W'Δ + sWΔ'),
+ *   U = K² + Δ(−λ − μ²r²) + i(−sΔ'K + 4sωrΔ).
+ * (Measured: building the equation and substituting as polynomials was a
+ * few % of a greybody factor.)
+ */
 function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerms: number): FarSeries {
-  // Δ² g'' + Δ[2iσωϖ + (s+1)Δ'] g' + Q_σ g = 0 in powers of r; the r⁴ terms of Q_σ cancel exactly.
-  const eq = equationOf(hole, mode);
+  const { s, omega, lambda, m } = mode;
+  const { a, rPlus, rMinus } = hole;
+  const mu = fieldMassOf(mode);
   const { kInf, beta } = farWavenumber(hole, mode);
-  const W = beta === 0 ? scale(eq.varpi, sigma * kInf) : add(scale(eq.varpi, sigma * kInf), cpoly([0, sigma * beta]));
-  const far = substitutePhase(eq, W);
-  const A = padTo(far.A, 5);
-  const B = padTo(far.B, 5);
-  const Q = padTo(far.C, 5);
+  const delta = [rPlus * rMinus, -rPlus - rMinus, 1];
+  const dDelta = [delta[1], 2];
+  const K = [omega * a * a - a * m, 0, omega];
+  const W = [sigma * kInf * a * a, sigma * beta, sigma * kInf];
+  const dW = [W[1], 2 * W[2]];
+  const A = { re: new Float64Array(5), im: new Float64Array(5) };
+  addProduct(A.re, delta, delta);
+  const B = { re: new Float64Array(5), im: new Float64Array(5) };
+  addProduct(B.re, delta, dDelta, s + 1);
+  addProduct(B.im, W, delta, 2);
+  const Q = { re: new Float64Array(5), im: new Float64Array(5) };
+  addProduct(Q.re, K, K);
+  addProduct(Q.re, delta, [-lambda, 0, -mu * mu]);
+  addProduct(Q.re, W, W, -1);
+  addProduct(Q.im, dDelta, K, -s);
+  addProduct(Q.im, delta, [0, 4 * s * omega]);
+  addProduct(Q.im, dW, delta);
+  addProduct(Q.im, W, dDelta, s);
+  // (the r⁴ terms of Q cancel in the algebra; the recurrence reads Q up to r² and the balance Q₃)
   // Leading balance: B4 p + C3 = 0 with B4 = 2iσω.
   const b4r = B.re[4],
     b4i = B.im[4];
@@ -164,7 +170,18 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
   const bb = b4r * b4r + b4i * b4i;
   const p = -(c3r * b4r + c3i * b4i) / bb; // real by construction
   // The c_n are made as the sums need them (most matching radii use a few dozen of the maxTerms).
-  return { sigma, p, cRe: [1], cIm: [0], W, delta: eq.delta, kInf, beta, maxTerms, recurrence: { A, B, Q } };
+  return {
+    sigma,
+    p,
+    cRe: [1],
+    cIm: [0],
+    W: cpoly(W),
+    delta: cpoly(delta),
+    kInf,
+    beta,
+    maxTerms,
+    recurrence: { A, B, Q },
+  };
 }
 
 /** Extend the coefficients of `series` to at least `n` terms (at most maxTerms), by the recurrence. */

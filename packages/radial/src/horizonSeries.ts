@@ -10,7 +10,6 @@
  */
 import type { KerrHole } from '@penumbra/kerr';
 import { ConvergenceError } from '@penumbra/core';
-import { padTo } from './complexPoly.js';
 import { radialEquation, type RadialEquation, type RadialMode } from './equation.js';
 
 /** The horizon series summed at one point. */
@@ -60,11 +59,24 @@ export function horizonSeriesStart(
   // Δ² = A2 x² + A3 x³ + A4 x⁴, (s+1)ΔΔ' = B1 x + B2 x² + B3 x³ (both real) and U = Σ C_j x^j,
   // x = r − r+, from the one definition; the recurrence is unrolled over these.
   if (eq.center !== rPlus || eq.s !== s) throw new Error("horizonSeriesStart: the equation must be the mode's, about r+");
-  const [, , A2, A3, A4] = padTo(eq.A, 5).re;
-  const [, B1, B2, B3] = padTo(eq.B, 4).re;
-  const C = padTo(eq.C, 5),
-    Cre = C.re,
-    Cim = C.im;
+  // read in place (coefficients past a polynomial's degree are 0; padded copies were measured among a solve's allocations)
+  const at = (q: Float64Array, j: number): number => (j < q.length ? q[j] : 0);
+  const A2 = at(eq.A.re, 2),
+    A3 = at(eq.A.re, 3),
+    A4 = at(eq.A.re, 4);
+  const B1 = at(eq.B.re, 1),
+    B2 = at(eq.B.re, 2),
+    B3 = at(eq.B.re, 3);
+  const C0r = at(eq.C.re, 0),
+    C1r = at(eq.C.re, 1),
+    C2r = at(eq.C.re, 2),
+    C3r = at(eq.C.re, 3),
+    C4r = at(eq.C.re, 4);
+  const C0i = at(eq.C.im, 0),
+    C1i = at(eq.C.im, 1),
+    C2i = at(eq.C.im, 2),
+    C3i = at(eq.C.im, 3),
+    C4i = at(eq.C.im, 4);
 
   // d_0: |d_0| = b^{−s}; phase from the additive constant of r*.
   const phaseConst = rPlus - cPlus * Math.log(2 * M) - cMinus * Math.log(b / (2 * M));
@@ -101,8 +113,8 @@ export function horizonSeriesStart(
       // μ(μ−1) = (mr + i mi)(mr − 1 + i mi)
       const pr = mr * (mr - 1) - mi * mi;
       const pi = mr * mi + mi * (mr - 1);
-      const cr = A3 * pr + B2 * mr + Cre[1];
-      const ci = A3 * pi + B2 * mi + Cim[1];
+      const cr = A3 * pr + B2 * mr + C1r;
+      const ci = A3 * pi + B2 * mi + C1i;
       numRe += cr * d1Re - ci * d1Im;
       numIm += cr * d1Im + ci * d1Re;
     }
@@ -111,24 +123,24 @@ export function horizonSeriesStart(
         mi = nuIm;
       const pr = mr * (mr - 1) - mi * mi;
       const pi = mr * mi + mi * (mr - 1);
-      const cr = A4 * pr + B3 * mr + Cre[2];
-      const ci = A4 * pi + B3 * mi + Cim[2];
+      const cr = A4 * pr + B3 * mr + C2r;
+      const ci = A4 * pi + B3 * mi + C2i;
       numRe += cr * d2Re - ci * d2Im;
       numIm += cr * d2Im + ci * d2Re;
     }
     if (n >= 3) {
-      numRe += Cre[3] * d3Re - Cim[3] * d3Im;
-      numIm += Cre[3] * d3Im + Cim[3] * d3Re;
+      numRe += C3r * d3Re - C3i * d3Im;
+      numIm += C3r * d3Im + C3i * d3Re;
     }
     if (n >= 4) {
-      numRe += Cre[4] * d4Re - Cim[4] * d4Im;
-      numIm += Cre[4] * d4Im + Cim[4] * d4Re;
+      numRe += C4r * d4Re - C4i * d4Im;
+      numIm += C4r * d4Im + C4i * d4Re;
     }
     // F(n + ν) = A2 μ(μ−1) + B1 μ + C0, μ = n + ν
     const mr = n + nuRe,
       mi = nuIm;
-    const fr = A2 * (mr * (mr - 1) - mi * mi) + B1 * mr + Cre[0];
-    const fi = A2 * (mr * mi + mi * (mr - 1)) + B1 * mi + Cim[0];
+    const fr = A2 * (mr * (mr - 1) - mi * mi) + B1 * mr + C0r;
+    const fi = A2 * (mr * mi + mi * (mr - 1)) + B1 * mi + C0i;
     const den = fr * fr + fi * fi;
     // d_n = −num / F
     const dnRe = -(numRe * fr + numIm * fi) / den;

@@ -6,6 +6,27 @@ import { horizonSeriesStart, type HorizonStart } from './horizonSeries.js';
 
 /** Truncation (cancellation included) accepted before the start point is moved inward. */
 const START_TRUNCATION = 1e-13;
+/**
+ * The same for the wide default start (see defaultStartFraction). The
+ * cancellation is charged at 1e-16 per unit of swell, but where |ν| = |k|·2Mr+/b
+ * is large (near-extremal, counter-rotating) the rounding of the recurrence
+ * was measured at up to ~250 times that (s = 2, l = 35, m = −25, a = 0.99999,
+ * Mω = 0.092: truncation 6e-14, error of ln|Z_in| 1.5e-11); a start that
+ * swells less than tenfold keeps that far below the tolerances it serves.
+ */
+const START_TRUNCATION_WIDE = 1e-15;
+
+/**
+ * Integrator tolerances below this (greybody tol below 1e-9) are near the
+ * rounding floor: there the narrower start, shooting.ts's smaller first step
+ * and farMatch.ts's tighter far series are kept. Measured: on the Kerr rows
+ * of the 40-digit fixture at greybody tol 1e-12 the wide start let the true
+ * error reach 4.1e-13 against 2.3e-13 and 9 rows were refused against 5
+ * (bench/honesty.bench.mjs); at tol 1e-10 over 2,500 random and wide-range
+ * modes 11 estimates fell below the error of a tol-1e-11 solve against 1
+ * (bench/estimate.bench.mjs).
+ */
+export const NEAR_ROUNDING_TOL = 1e-12;
 
 /**
  * Default start point as a fraction of r+ − r−. The series converges out to
@@ -14,14 +35,17 @@ const START_TRUNCATION = 1e-13;
  * horizon the solution oscillates with wavenumber ≈ 2ωr+/(r+ − r−) in x, so
  * terms grow like (2ωr+·fraction)^n/n! before decaying; keeping
  * ωr+·fraction ≤ 1 bounds that cancellation (it is charged in the truncation,
- * and the start moves inward where it exceeds START_TRUNCATION). Every bit
+ * and the start moves inward where it exceeds START_TRUNCATION_WIDE). Every bit
  * of x the series covers is integration saved (measured at tol 1e-8 over
  * random modes, against min(0.25, 0.5/(ωr+)): 11 % fewer right-hand-side
  * evaluations, the error estimate no closer to the true error;
- * bench/floor.bench.mjs). Starting closer than necessary costs digits for
- * s > 0 (the outgoing horizon solution is relatively amplified).
+ * bench/floor.bench.mjs). At an integrator tolerance below NEAR_ROUNDING_TOL
+ * the start stays at min(0.25, 0.5/(ωr+)). Starting closer than necessary
+ * costs digits for s > 0 (the outgoing horizon solution is relatively
+ * amplified).
  */
-export function defaultStartFraction(hole: KerrHole, omega: number): number {
+export function defaultStartFraction(hole: KerrHole, omega: number, tol = 1e-11): number {
+  if (tol < NEAR_ROUNDING_TOL) return Math.min(0.25, 0.5 / (Math.abs(omega) * hole.rPlus));
   return Math.min(0.75, 1 / (Math.abs(omega) * hole.rPlus));
 }
 
@@ -30,7 +54,8 @@ export function defaultStartFraction(hole: KerrHole, omega: number): number {
  * the default fraction halved while the series cancels digits (large |k|/κ
  * near extremality makes the terms swell before they decay), and kept inside
  * `innerStop` (the smallest radius where the caller reads the integrated
- * solution: half way to it at most). `eq` is the mode's equation about r+.
+ * solution: half way to it at most). `eq` is the mode's equation about r+;
+ * `tol` is the integrator tolerance (see defaultStartFraction).
  */
 export function startAtHorizon(
   hole: KerrHole,
@@ -38,14 +63,16 @@ export function startAtHorizon(
   eq: RadialEquation,
   startFraction?: number,
   innerStop = Number.POSITIVE_INFINITY,
+  tol?: number,
 ): HorizonStart {
   const b = hole.rPlus - hole.rMinus;
-  let x0 = (startFraction ?? defaultStartFraction(hole, mode.omega)) * b;
+  let x0 = (startFraction ?? defaultStartFraction(hole, mode.omega, tol)) * b;
+  const accepted = tol !== undefined && tol < NEAR_ROUNDING_TOL ? START_TRUNCATION : START_TRUNCATION_WIDE;
   if (startFraction === undefined && innerStop > hole.rPlus) x0 = Math.min(x0, 0.5 * (innerStop - hole.rPlus));
   for (;;) {
     try {
       const start = horizonSeriesStart(hole, mode, x0, eq);
-      if (start.truncation <= START_TRUNCATION || x0 < 1e-4 * b || startFraction !== undefined) return start;
+      if (start.truncation <= accepted || x0 < 1e-4 * b || startFraction !== undefined) return start;
     } catch (e) {
       if (!(e instanceof ConvergenceError) || x0 < 1e-6 * b) throw e;
     }

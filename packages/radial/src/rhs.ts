@@ -66,11 +66,23 @@ export interface EquationKernel {
   counter: EvaluationCounter;
 }
 
+/**
+ * Packed coefficients of the equations already seen (a leg is integrated in
+ * several pieces, each asking for the kernel of the same equation; the
+ * equations are never modified after they are built).
+ */
+const packedOf = new WeakMap<RadialEquation, { k: Float64Array; complexB: boolean }>();
+
 /** The kernel of `eq` for an argument measured from `origin` (default 0: the argument is r itself). */
 export function equationKernel(eq: RadialEquation, counter: EvaluationCounter, origin = 0): EquationKernel {
-  if (!isSquareOfDelta(eq)) throw new Error('radial equation: the coefficient of R″ must be Δ²');
+  let packed = packedOf.get(eq);
+  if (packed === undefined) {
+    if (!isSquareOfDelta(eq)) throw new Error('radial equation: the coefficient of R″ must be Δ²');
+    packed = { k: packCoefficients(eq), complexB: !eq.B.im.every((x) => x === 0) };
+    packedOf.set(eq, packed);
+  }
   // An argument measured from the expansion point needs no subtraction (and loses no digits to one).
-  return { k: packCoefficients(eq), c: eq.center - origin, complexB: !eq.B.im.every((x) => x === 0), counter };
+  return { k: packed.k, c: eq.center - origin, complexB: packed.complexB, counter };
 }
 
 /**

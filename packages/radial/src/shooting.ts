@@ -13,6 +13,7 @@
 import { ConvergenceError } from '@penumbra/core';
 import type { KerrHole } from '@penumbra/kerr';
 import type { RadialEquation, RadialMode } from './equation.js';
+import { NEAR_ROUNDING_TOL } from './horizonStart.js';
 import { makeStepper, type AdvanceResult, type IntegratorName } from './integrators.js';
 import type { RadialVariable } from './options.js';
 import { convertPhase, phaseEquation } from './phaseVariable.js';
@@ -104,6 +105,11 @@ function legFailure(leg: Leg, message: string, steps: number, extra: Record<stri
   });
 }
 
+/** The first trial step of a leg, as a fraction of its start's distance from r+ (at most 1). */
+const FIRST_STEP = 0.3;
+/** The same below NEAR_ROUNDING_TOL (horizonStart.ts). */
+const FIRST_STEP_NEAR_ROUNDING = 0.05;
+
 /** Integrate one leg; y ends as the solution at `leg.to` (divided by e^{logScale}). */
 export function integrateLeg(leg: Leg): Segment {
   const { hole, mode, y, from: r0, to: rEnd, stops, maxSteps } = leg;
@@ -127,7 +133,10 @@ export function integrateLeg(leg: Leg): Segment {
   const targets = [...stops.filter((g) => g > r0 && g < rEnd), rEnd];
   let x = inX ? (leg.fromOffset ?? r0 - origin) : r0;
   let r = r0;
-  let h = 0.05 * Math.min(inX ? x : r0 - hole.rPlus, 1);
+  // first trial step: 0.3 of the distance from r+ (at most 0.3); the step control takes it from there
+  // (measured at tol 1e-8 over random modes, against 0.05: 5 % fewer right-hand-side evaluations; 1.0 let
+  // first steps through with errors nearer their estimate; bench/floor.bench.mjs); 0.05 near the rounding floor
+  let h = (leg.tol < NEAR_ROUNDING_TOL ? FIRST_STEP_NEAR_ROUNDING : FIRST_STEP) * Math.min(inX ? x : r0 - hole.rPlus, 1);
   for (const target of targets) {
     const xTarget = target - origin;
     while (x < xTarget) {

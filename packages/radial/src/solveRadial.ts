@@ -12,7 +12,7 @@ import type { KerrHole } from '@penumbra/kerr';
 import { singleSolveErrorEstimate, singleSolveMessage } from './diagnostics.js';
 import { chooseMatch, farTarget, matchAmplitudes } from './farMatch.js';
 import { horizonWavenumber } from './horizonSeries.js';
-import { startAtHorizon } from './horizonStart.js';
+import { NEAR_ROUNDING_TOL, startAtHorizon } from './horizonStart.js';
 import { fieldMassOf, radialEquation } from './equation.js';
 import { resolveRadialOptions, type RadialOptions } from './options.js';
 import { validateProblem, type RadialProblem } from './problem.js';
@@ -47,8 +47,21 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
   const method = `teukolsky-shooting/frobenius-start/asymptotic-match/${opts.integrator}`;
   const equation = radialEquation(hole, mode, hole.rPlus);
   // the default start stays inside the requested radii (the series is not sampled there)
-  const start = startAtHorizon(hole, mode, equation, opts.startFraction, opts.grid.length > 0 ? Math.min(...opts.grid) : undefined);
-  const match = chooseMatch(hole, mode, opts.matchRadius, farTarget(opts.tol, fieldMassOf(mode) > 0));
+  const start = startAtHorizon(
+    hole,
+    mode,
+    equation,
+    opts.startFraction,
+    opts.grid.length > 0 ? Math.min(...opts.grid) : undefined,
+    opts.tol,
+  );
+  const match = chooseMatch(
+    hole,
+    mode,
+    opts.matchRadius,
+    farTarget(opts.tol, fieldMassOf(mode) > 0),
+    opts.tol >= NEAR_ROUNDING_TOL,
+  );
   const r0 = hole.rPlus + start.x0;
   if (!(match.r > r0)) throw new InputError('matchRadius', `> start radius ${r0}`, match.r);
   const counter = { evaluations: 0 };

@@ -12,7 +12,7 @@ import { singleSolveErrorEstimate, singleSolveMessage } from './diagnostics.js';
 import { radialEquation, type RadialEquation, type RadialMode } from './equation.js';
 import { chooseMatch, farTarget, matchAmplitudes } from './farMatch.js';
 import { horizonSeriesStart, horizonWavenumber } from './horizonSeries.js';
-import { startAtHorizon } from './horizonStart.js';
+import { NEAR_ROUNDING_TOL, startAtHorizon } from './horizonStart.js';
 import { resolveTwoSidedOptions, type TwoSidedOptions } from './options.js';
 import { validateProblem, type RadialProblem } from './problem.js';
 import { chargedSteps, integrateHybridLeg } from './hybridLeg.js';
@@ -47,11 +47,14 @@ export function solveTwoSided(problem: RadialProblem, options: TwoSidedOptions =
   const minus: RadialMode = { s: -s, m: plus.m, omega: plus.omega, lambda: plus.lambda + 2 * s };
   const method = `teukolsky-two-sided/frobenius-start(−s)/starobinsky-map/asymptotic-match/${opts.integrator}`;
   const minusEquation = radialEquation(hole, minus, hole.rPlus);
-  const start = startAtHorizon(hole, minus, minusEquation, opts.startFraction);
+  // a switching radius given without a start fraction keeps the default start inside it
+  const start = startAtHorizon(hole, minus, minusEquation, opts.startFraction, opts.switchRadius, opts.tol);
   const r0 = hole.rPlus + start.x0;
   // The −s field is matched only for Y_out (the reflection).
-  const matchMinus = opts.reflection ? chooseMatch(hole, minus, opts.matchRadius, farTarget(opts.tol)) : null;
-  const matchPlus = chooseMatch(hole, plus, opts.matchRadius, farTarget(opts.tol));
+  const matchMinus = opts.reflection
+    ? chooseMatch(hole, minus, opts.matchRadius, farTarget(opts.tol), opts.tol >= NEAR_ROUNDING_TOL)
+    : null;
+  const matchPlus = chooseMatch(hole, plus, opts.matchRadius, farTarget(opts.tol), opts.tol >= NEAR_ROUNDING_TOL);
   const rSwitch = opts.switchRadius ?? defaultSwitchRadius(hole, r0, matchPlus.r);
   if (!(rSwitch > r0 && rSwitch < matchPlus.r)) {
     throw new InputError('switchRadius', `between the start ${r0} and the matching radius ${matchPlus.r}`, rSwitch);
