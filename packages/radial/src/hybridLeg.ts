@@ -100,6 +100,19 @@ export function riccatiWorthIt(e: RiccatiEquation, xa: number, xb: number, minPh
 export const RICCATI_STEP_CHARGE = 10;
 
 /**
+ * Multiple of a massless leg's Riccati step's own truncation error estimate
+ * charged to the leg's `errorSum` (its rounding estimate is charged once).
+ * Measured step by step against the same rung carried by a Riccati step at a
+ * 1e4 times tighter tolerance (bench/riccati-step.bench.mjs, tail grid and
+ * 150 random modes): the true error reached 2.0 times the bare estimate at
+ * leg tol 1e-9 (17 of 699 steps above it) and never the charge (worst 0.35;
+ * 0.16 at tol 1e-11, where the rounding estimate dominates); against
+ * integrator solves of the rung at tol 1e-13 and 1e-14, where they resolve
+ * the error, at most 0.27 of the charge.
+ */
+export const RICCATI_ERROR_FACTOR = 3;
+
+/**
  * Share of the leg's tolerance at which the integrator crosses the stretches
  * between Riccati rungs of a massless leg; their accepted error estimates
  * enter the leg's `errorSum` scaled by it. There each Riccati step charges
@@ -110,6 +123,18 @@ export const RICCATI_STEP_CHARGE = 10;
  * check solve (measured on the tail grid of bench/floor.bench.mjs --grid).
  */
 export const ODE_SHARE = 1 / 3;
+
+/**
+ * The tightest tolerance ODE_SHARE takes a stretch to. Below ~1e-12 the
+ * integrator's error is no longer set by its tolerance but by rounding, so a
+ * tighter stretch buys nothing while its error estimates, scaled by the
+ * share, understate it (measured on bench/estimate.bench.mjs, random modes at
+ * greybody tol 1e-10, integrator tol 1e-13: with stretches at 3e-14 one
+ * estimate fell below the true error, ×1.19; with this floor none, worst 0.59;
+ * stretches at 3e-15 made Γ ten times less accurate at tol 1e-11). At the
+ * default tol 1e-8 (integrator tol 1e-11) the share applies in full.
+ */
+export const TIGHTEST_STRETCH_TOL = 1e-12;
 
 /**
  * A leg's segment with its Riccati steps counted apart. Its `errorSum`
@@ -189,8 +214,8 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   const samples: RadialSample[] = [];
   const raw: RawSample[] = [];
   const scale = new Float64Array(1);
-  // On a massless leg the integrator's stretches between Riccati rungs run at ODE_SHARE × tol (see ODE_SHARE).
-  const odeShare = longRange ? 1 : ODE_SHARE;
+  // On a massless leg the integrator's stretches between Riccati rungs run at ODE_SHARE × tol (see ODE_SHARE), not below TIGHTEST_STRETCH_TOL.
+  const odeShare = longRange ? 1 : Math.min(1, Math.max(ODE_SHARE, TIGHTEST_STRETCH_TOL / leg.tol));
   const byOde = (from: Point, to: Point) => {
     const seg = integrateLeg({
       ...leg,
@@ -231,7 +256,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     steps++;
     riccatiSteps++;
     // A massless leg charges the step's own error estimate; a massive far zone keeps the flat charge it was measured with.
-    errorSum += longRange ? RICCATI_STEP_CHARGE : step.error;
+    errorSum += longRange ? RICCATI_STEP_CHARGE : RICCATI_ERROR_FACTOR * step.error + step.rounding;
     if (step.correction > ACCEPT) {
       const extra = RICCATI_STEP_CHARGE * (step.correction / ACCEPT - 1);
       errorSum += extra;

@@ -30,6 +30,7 @@ export {
   WKB_LIMIT,
   MIN_PHASE,
   RICCATI_STEP_CHARGE,
+  RICCATI_ERROR_FACTOR,
 } from './hybridLeg.js';
 export {
   type RiccatiEquation,

@@ -313,13 +313,16 @@ export interface RiccatiStep {
   /** the larger last correction (of ∫Y or, relative, of Y) of the two solutions where one stalled, in units of tol; 0 when both contracted below the target or the step failed */
   correction: number;
   /**
-   * the step's own local error estimate, relative to the state, in units of
-   * tol (0 when the step failed): over both solutions, the last correction
-   * applied (what the next pass would move is less), the unresolved
-   * Chebyshev tail of Y (in ∫Y and relative in Y) and the rounding floor of
-   * ∫Y; the two add, as R = α e^{∫Y+} + β e^{∫Y−} carries both errors
+   * the step's own estimate of its truncation error, relative to the state,
+   * in units of tol (0 when the step failed): over both solutions (they add,
+   * as R = α e^{∫Y+} + β e^{∫Y−} carries both errors), what the last
+   * correction leaves (itself, or the next one predicted from the
+   * contraction) and the unresolved Chebyshev tail of Y (in ∫Y beyond the
+   * rounding floor, and relative in Y)
    */
   error: number;
+  /** the rounding of ∫Y over the step (ROUNDING_ERROR ε |Y| × length, both solutions), relative, in units of tol; 0 when the step failed */
+  rounding: number;
 }
 
 /** Work arrays of one node count, reused across steps. */
@@ -344,8 +347,10 @@ interface Work {
   ends: Float64Array;
   /** per solution (+, −): the last correction of a stalled solution, in units of tol (0 if it contracted below the target) */
   last: Float64Array;
-  /** per solution (+, −): the local error estimate of ∫y and y (last correction + unresolved tail + rounding floor), absolute */
+  /** per solution (+, −): the truncation error estimate of ∫y and y (what the last correction leaves + unresolved tail) */
   error: Float64Array;
+  /** per solution (+, −): the rounding of ∫y */
+  rounding: Float64Array;
   /** one point's `localRiccati` output */
   local: Float64Array;
 }
@@ -376,6 +381,7 @@ function workFor(n: number): Work {
       ends: new Float64Array(12),
       last: new Float64Array(2),
       error: new Float64Array(2),
+      rounding: new Float64Array(2),
       local: new Float64Array(LOCAL_SIZE),
     };
     works.set(n, w);
@@ -471,8 +477,8 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
   // Unresolved on the nodes? The interpolant's highest coefficients bound what collocation missed.
   const tail = chebyshevTail(rule, yRe, yIm);
   if (2 * half * tail - floor > TAIL * tol || tail > TAIL * tol * yScale) return -passes;
-  const rounding = ROUNDING_ERROR * Number.EPSILON * 2 * half * yScale;
-  w.error[k] = remaining + 2 * half * tail + tail / yScale + rounding;
+  w.rounding[k] = ROUNDING_ERROR * Number.EPSILON * 2 * half * yScale;
+  w.error[k] = remaining + Math.max(2 * half * tail - floor, 0) + tail / yScale;
   let ir = 0,
     ii = 0;
   for (let j = 0; j < n; j++) {
@@ -541,9 +547,9 @@ export function riccatiStep(
     }
   }
   const plus = refine(w, 0, half, tol, maxPasses, accept);
-  if (plus < 0) return { ok: false, passes: -plus, evaluations: n, correction: 0, error: 0 };
+  if (plus < 0) return { ok: false, passes: -plus, evaluations: n, correction: 0, error: 0, rounding: 0 };
   const minus = refine(w, 1, half, tol, maxPasses, accept);
-  if (minus < 0) return { ok: false, passes: Math.max(plus, -minus), evaluations: n, correction: 0, error: 0 };
+  if (minus < 0) return { ok: false, passes: Math.max(plus, -minus), evaluations: n, correction: 0, error: 0, rounding: 0 };
   const E = w.ends;
   // y = Y/x at the two ends
   for (const o of [0, 6]) {
@@ -587,7 +593,7 @@ export function riccatiStep(
   const dRe = Ar * E[2] - Ai * E[3] + Br * E[8] - Bi * E[9],
     dIm = Ar * E[3] + Ai * E[2] + Br * E[9] + Bi * E[8];
   if (!Number.isFinite(Ar + Ai + Br + Bi + dRe + dIm))
-    return { ok: false, passes: Math.max(plus, minus), evaluations: n, correction: 0, error: 0 };
+    return { ok: false, passes: Math.max(plus, minus), evaluations: n, correction: 0, error: 0, rounding: 0 };
   y[0] = Ar + Br;
   y[1] = Ai + Bi;
   y[2] = dRe;
@@ -599,5 +605,6 @@ export function riccatiStep(
     evaluations: n,
     correction: Math.max(w.last[0], w.last[1]),
     error: (w.error[0] + w.error[1]) / tol,
+    rounding: (w.rounding[0] + w.rounding[1]) / tol,
   };
 }
