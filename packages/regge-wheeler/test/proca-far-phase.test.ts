@@ -10,7 +10,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { procaRadialSolution } from '@penumbra/regge-wheeler';
-import { integrateProca, sectorModel } from '@penumbra/regge-wheeler/internal';
+import { defaultPhaseRadius, integrateProca, sectorModel } from '@penumbra/regge-wheeler/internal';
 
 const MODES: Array<['odd' | 'monopole', number, number, number]> = [
   ['odd', 1, 0.3, 0.2996],
@@ -18,18 +18,34 @@ const MODES: Array<['odd' | 'monopole', number, number, number]> = [
   ['odd', 2, 0.8, 0.792],
   ['monopole', 0, 0.3, 0.2996],
 ];
+const EVEN: Array<[number, number, number]> = [
+  [1, 0.3, 0.2996],
+  [3, 1.5, 1.4981],
+];
 
 describe('Proca far zone carried in phase form (one channel, near threshold)', () => {
   it.each(MODES)(
     '%s l = %i, Mω = %f, Mμ = %f: Γ agrees with the direct far start to 1e-10, at an inner matching radius',
     (sector, l, omega, mu) => {
       const model = sectorModel(sector, l, omega, mu);
-      const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12 });
+      // forced to the phase form (the monopole's default keeps the direct route: too little far-zone phase to pay)
+      const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: defaultPhaseRadius(model) });
       const direct = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: false });
       expect(carried.phaseSteps).toBeGreaterThan(0);
       expect(carried.matchRadius).toBeLessThan(carried.farStartRadius / 10);
       expect(Math.abs(carried.gammas[0] / direct.gammas[0] - 1)).toBeLessThan(1e-10);
       expect(carried.residual).toBeLessThan(1e-10);
+    },
+  );
+
+  it.each(EVEN)(
+    'even l = %i, Mω = %f, Mμ = %f (forced: not the default there): both Γ of the sector agree with the direct far start to 1e-10',
+    (l, omega, mu) => {
+      const model = sectorModel('even', l, omega, mu);
+      const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: defaultPhaseRadius(model) });
+      const direct = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: false });
+      expect(carried.phaseSteps).toBeGreaterThan(0);
+      for (const i of [0, 1]) expect(Math.abs(carried.gammas[i] / direct.gammas[i] - 1)).toBeLessThan(1e-10);
     },
   );
 

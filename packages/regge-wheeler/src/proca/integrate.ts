@@ -31,7 +31,7 @@ export interface ProcaIntegrationControls {
   /**
    * where the far solutions, carried inward in phase form from where their
    * series converges (farPhase.ts), meet the horizon integration: absent,
-   * defaultPhaseRadius where that pays (PHASE_GAIN); a radius, there whenever
+   * defaultPhaseRadius where that pays (one channel, PHASE_GAIN); a radius, there whenever
    * the series starts beyond it; false: match where the series converges.
    * Step tolerances below COLLOCATION_FLOOR, and a collocation that fails,
    * take the direct route.
@@ -85,14 +85,29 @@ const MATCH_GROWTH = 1.5;
 const MAX_MATCH_MOVES = 60;
 
 /**
- * Carry the far solutions inward only when the series starts beyond this
- * multiple of the phase radius, and only for one channel: measured
- * (bench/proca-far-phase.bench.mjs) the collocation intervals cost about as
- * much CPU as the extrapolation steps they replace below this ratio, and for
- * the two-channel even sector (four Newton matrices per interval) more at
- * every ratio tried.
+ * Carry the far solutions inward only for one channel, and only when the
+ * phase the direct route would cross between the two radii exceeds this
+ * (radians): measured (bench/proca-far-phase.bench.mjs and the interleaved
+ * CPU comparison in docs/massive-vector.md) the collocation intervals cost
+ * about as much as the extrapolation steps they replace up to 40–50 rad
+ * (monopole at Mω = 0.3, v = 0.14: 33 rad, slower; odd l = 2, Mω = 0.8,
+ * v = 0.14: 46 rad, faster), and for the two-channel even sector (four Newton
+ * matrices per interval) at every phase tried.
  */
-const PHASE_GAIN = 10;
+const PHASE_GAIN = 45;
+
+/**
+ * The phase ∫ √(k∞² + 2μ²/r) dr between r1 < r2: the far-zone wave number with
+ * its Newtonian part, f and the centrifugal term left out (an estimate of
+ * the work of the direct route). With a = 2μ² the antiderivative is
+ * r√(k² + a/r) + (a/k) asinh(k√(r/a)).
+ */
+export function farZonePhase(model: SectorModel, r1: number, r2: number): number {
+  const { k } = farWaveNumbers(model);
+  const a = 2 * model.mu * model.mu;
+  const F = (r: number) => r * Math.sqrt(k * k + a / r) + (a / k) * Math.asinh(k * Math.sqrt(r / a));
+  return F(r2) - F(r1);
+}
 
 /**
  * Where the phase-form far solutions meet the horizon integration: where the
@@ -155,7 +170,10 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   let phaseSteps = 0;
   let phaseEvaluations = 0;
   const inner = controls.phaseRadius === false ? Infinity : Math.max(2 * r0, controls.phaseRadius ?? defaultPhaseRadius(model));
-  const wanted = controls.phaseRadius === undefined ? N === 1 && PHASE_GAIN * inner < farStartRadius : inner < farStartRadius;
+  const wanted =
+    controls.phaseRadius === undefined
+      ? N === 1 && inner < farStartRadius && farZonePhase(model, inner, farStartRadius) > PHASE_GAIN
+      : inner < farStartRadius;
   if (wanted && controls.stepTolerance >= COLLOCATION_FLOOR) {
     try {
       const carried = carryFarSolutions(model, far, farStartRadius, inner, controls.stepTolerance, controls.sampleRadii);
