@@ -545,6 +545,27 @@ const ENTRIES: Entry[] = [
     ],
     runs: 30,
   },
+  {
+    name: 'procaRadialSolution',
+    call: fn(rw.procaRadialSolution),
+    args: [
+      or(
+        fc.record(
+          {
+            field: or(fc.record({ spin: or(spinArb), mass: or(fc.double({ min: 0, max: 0.5 })) })),
+            l: or(fc.integer({ min: 0, max: 2 })),
+            omega: or(smallOmega),
+            polarization: or(fc.constantFrom('odd', 'even-1', 'even-2', 'monopole', 'x')),
+            mass: or(fc.double({ min: 0.5, max: 2 })),
+          },
+          { requiredKeys: ['field', 'l', 'omega', 'polarization'] },
+        ),
+      ),
+      or(fc.array(or(fc.double({ min: 1, max: 100 })), { maxLength: 3 })),
+      or(fc.record({ tol: or(cheapTol) })),
+    ],
+    runs: 40,
+  },
   // emission: the expensive ones only with invalid or cheap inputs
   { name: 'bundledPageTable', call: fn(emission.bundledPageTable), args: [] },
   {

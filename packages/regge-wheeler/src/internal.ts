@@ -10,6 +10,8 @@ export {
   type ProcaIntegrationControls,
   type ProcaStateSample,
   integrateProca,
+  defaultPhaseRadius,
+  farZonePhase,
 } from './proca/integrate.js';
 export { type ProcaSector, type SectorModel, sectorModel } from './proca/sectors.js';
 export type { Complex } from './proca/complex.js';

@@ -9,6 +9,7 @@ import { ConvergenceError, type Diagnostics } from '@penumbra/core';
 import { tortoiseFromHorizonDistance } from '../series.js';
 import { type Complex, abs2, adjoint, choleskyUpper, hermitianEigen2, matMul, solve } from './complex.js';
 import { ProcaExtrapolation } from './extrapolation.js';
+import { COLLOCATION_FLOOR, carryFarSolutions } from './farPhase.js';
 import type { ProcaIntegrator } from './problem.js';
 import type { SectorModel } from './sectors.js';
 import { farWaveNumbers, horizonSolution, outgoingFarSolution, type SeriesState } from './series.js';
@@ -27,6 +28,15 @@ export interface ProcaIntegrationControls {
   basisAngle?: number;
   /** radii (ascending, units of M) at which to keep the state: those in [r0, matchRadius] become step ends */
   sampleRadii?: readonly number[];
+  /**
+   * where the far solutions, carried inward in phase form from where their
+   * series converges (farPhase.ts), meet the horizon integration: absent,
+   * defaultPhaseRadius where that pays (one channel, PHASE_GAIN); a radius, there whenever
+   * the series starts beyond it; false: match where the series converges.
+   * Step tolerances below COLLOCATION_FLOOR, and a collocation that fails,
+   * take the direct route.
+   */
+  phaseRadius?: number | false;
 }
 
 /** The state of all horizon solutions at one radius: true value = state · e^{logRescale}. */
@@ -61,12 +71,51 @@ export interface ProcaIntegration {
   far: SeriesState[];
   /** the states at `sampleRadii` that lie in [startRadius, matchRadius] */
   samples: ProcaStateSample[];
+  /** where the far series was summed (= matchRadius unless the phase form carried it inward) */
+  farStartRadius: number;
+  /** the outgoing far solutions at the `sampleRadii` between matchRadius and farStartRadius */
+  farSamples: Array<{ r: number; far: SeriesState[] }>;
+  /** steps of the phase-form far zone (included in steps) */
+  phaseSteps: number;
 }
 
 const MAX_STEPS = 3_000_000;
 const RESCALE = 1e100;
 const MATCH_GROWTH = 1.5;
 const MAX_MATCH_MOVES = 60;
+
+/**
+ * Carry the far solutions inward only for one channel, and only when the
+ * phase the direct route would cross between the two radii exceeds this
+ * (radians): measured (bench/proca-far-phase.bench.mjs and the interleaved
+ * CPU comparison in docs/massive-vector.md) the collocation intervals cost
+ * about as much as the extrapolation steps they replace up to 40–50 rad
+ * (monopole at Mω = 0.3, v = 0.14: 33 rad, slower; odd l = 2, Mω = 0.8,
+ * v = 0.14: 46 rad, faster), and for the two-channel even sector (four Newton
+ * matrices per interval) at every phase tried.
+ */
+const PHASE_GAIN = 45;
+
+/**
+ * The phase ∫ √(k∞² + 2μ²/r) dr between r1 < r2: the far-zone wave number with
+ * its Newtonian part, f and the centrifugal term left out (an estimate of
+ * the work of the direct route). With a = 2μ² the antiderivative is
+ * r√(k² + a/r) + (a/k) asinh(k√(r/a)).
+ */
+export function farZonePhase(model: SectorModel, r1: number, r2: number): number {
+  const { k } = farWaveNumbers(model);
+  const a = 2 * model.mu * model.mu;
+  const F = (r: number) => r * Math.sqrt(k * k + a / r) + (a / k) * Math.asinh(k * Math.sqrt(r / a));
+  return F(r2) - F(r1);
+}
+
+/**
+ * Where the phase-form far solutions meet the horizon integration: where the
+ * massless mode of the same l and ω would match (ω r ≫ 1, centrifugal terms tame).
+ */
+export function defaultPhaseRadius(model: SectorModel): number {
+  return Math.max(10, (20 + 0.5 * (model.L + 2 * model.l + 2)) / model.omega);
+}
 
 /** First matching radius: far enough that k∞ r ≫ 1 and the centrifugal terms are tame. */
 export function defaultProcaMatchRadius(model: SectorModel): number {
@@ -116,6 +165,28 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
     matchRadius *= MATCH_GROWTH;
     far = farAt(matchRadius);
   }
+  const farStartRadius = matchRadius;
+  let farSamples: ProcaIntegration['farSamples'] = [];
+  let phaseSteps = 0;
+  let phaseEvaluations = 0;
+  const inner = controls.phaseRadius === false ? Infinity : Math.max(2 * r0, controls.phaseRadius ?? defaultPhaseRadius(model));
+  const wanted =
+    controls.phaseRadius === undefined
+      ? N === 1 && inner < farStartRadius && farZonePhase(model, inner, farStartRadius) > PHASE_GAIN
+      : inner < farStartRadius;
+  if (wanted && controls.stepTolerance >= COLLOCATION_FLOOR) {
+    try {
+      const carried = carryFarSolutions(model, far, farStartRadius, inner, controls.stepTolerance, controls.sampleRadii);
+      far = carried.far;
+      farSamples = carried.samples;
+      phaseSteps = carried.steps;
+      phaseEvaluations = carried.rhsEvaluations;
+      matchRadius = inner;
+    } catch (e) {
+      // the collocation could not meet its tolerance: the direct route from the series start
+      if (!(e instanceof ConvergenceError)) throw e;
+    }
+  }
   const starts = Array.from({ length: N }, (_, c) => horizonSolution(model, c, x0));
   if (!starts.every((s) => s.converged)) {
     throw new ConvergenceError('horizon series did not converge', failure(model, `no convergence at r0 = ${r0}`, 0, 0));
@@ -138,7 +209,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   const q0 = Float64Array.from(model.qCoeffs[0]);
   const q1 = model.qCoeffs[1] ? Float64Array.from(model.qCoeffs[1]) : new Float64Array(NN);
   if (model.qCoeffs.length > 2) throw new Error('Proca sector with Q of degree > 1');
-  let rhsEvaluations = 0;
+  let rhsEvaluations = phaseEvaluations;
   // du/dr = P/f,  dP/dr = [μ² + L/r² + Q(1/r)/r² − ω²/f] u.
   const L = model.L;
   // Written out for one and for two channels (the even sector: two solutions of 8 components).
@@ -210,7 +281,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
       throw new ConvergenceError('integration step size underflow', failure(model, e.message, steps, rhsEvaluations));
     }
   };
-  let steps = 0;
+  let steps = phaseSteps;
   let logRescale = 0;
   const targets = (controls.sampleRadii ?? []).filter((r) => r >= r0 && r <= matchRadius);
   const samples: ProcaStateSample[] = [];
@@ -300,6 +371,9 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
     logRescale,
     far,
     samples,
+    farStartRadius,
+    farSamples,
+    phaseSteps,
   };
 }
 

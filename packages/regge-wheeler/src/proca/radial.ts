@@ -215,6 +215,7 @@ export function procaRadialSolution(
     cOut.push(scale(zo, grow));
   }
   const byRadius = new Map(run.samples.map((s) => [s.r, s]));
+  const farByRadius = new Map(run.farSamples.map((s) => [s.r, s.far]));
   const block = 4 * N;
   const stateAt = (r: number): { u: Complex[]; p: Complex[] } => {
     if (r < run.startRadius) return combine(Array.from({ length: N }, (_, j) => horizonSolution(model, j, r - 2)));
@@ -233,11 +234,12 @@ export function procaRadialSolution(
       }));
       return combine(states);
     }
-    // beyond the matching radius: the far series, incoming = conjugate of outgoing
+    // beyond the matching radius: the far solutions (carried in phase form, or the series), incoming = conjugate of outgoing
     const u: Complex[] = Array.from({ length: N }, (): Complex => [0, 0]);
     const P: Complex[] = Array.from({ length: N }, (): Complex => [0, 0]);
+    const carried = farByRadius.get(r);
     for (let c = 0; c < N; c++) {
-      const s = outgoingFarSolution(model, c, r);
+      const s = carried ? carried[c] : outgoingFarSolution(model, c, r);
       if (!s.converged) throw new ConvergenceError(`far-zone series did not converge at r = ${r * p.mass}`, d);
       for (let i = 0; i < N; i++) {
         u[i] = add(u[i], add(mul(cIn[c], [s.u[i][0], -s.u[i][1]]), mul(cOut[c], s.u[i])));
