@@ -53,10 +53,11 @@ describe('massive Dirac greybody factor', () => {
     expect(Math.abs(p1 / p2 - 2)).toBeLessThan(0.1);
   });
 
-  it('agrees with the Schwarzschild real-potential route (Ŵ² + dŴ/dr̂*) at a = 0 to 1e-9 relative, both signs', () => {
+  it('agrees with the Schwarzschild real-potential route (Ŵ² + dŴ/dr̂*) at a = 0 to 1e-9 relative, both signs, also near threshold where the far waves are carried in from ~4000 M (j = 5/2, Mω = 0.6, v = k∞/ω = 0.05)', () => {
     for (const [l, omega, mu] of [
       [0.5, 0.15, 0.12],
       [1.5, 0.6, 0.3],
+      [2.5, 0.6, 0.6 * Math.sqrt(1 - 0.05 ** 2)],
     ]) {
       for (const kappaSign of [1, -1] as const) {
         const kerr = dirac(0, l, 0.5, omega, mu, kappaSign, 1e-11).gamma;

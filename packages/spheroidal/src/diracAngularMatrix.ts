@@ -128,11 +128,20 @@ export function countBelow(band: DiracBand, sigma: number): number {
   return negatives;
 }
 
-/** The index-th eigenvalue (ascending, from 0) of the band, bisected to adjacent floats. */
-export function bandEigenvalue(band: DiracBand, index: number): { value: number; counts: number } {
+/**
+ * The index-th eigenvalue (ascending, from 0) of the band, bisected to
+ * adjacent floats; from `guess` = [lo, hi] when two counts confirm that it
+ * holds the eigenvalue (a narrow guess saves most of the bisection), else
+ * from ±(norm + 1).
+ */
+export function bandEigenvalue(band: DiracBand, index: number, guess?: [number, number]): { value: number; counts: number } {
   let lo = -band.norm - 1;
   let hi = band.norm + 1;
   let counts = 0;
+  if (guess && guess[0] > lo && guess[1] < hi) {
+    counts += 2;
+    if (countBelow(band, guess[0]) <= index && countBelow(band, guess[1]) > index) [lo, hi] = guess;
+  }
   for (let it = 0; it < 200; it++) {
     const mid = 0.5 * (lo + hi);
     if (mid <= lo || mid >= hi) break;
