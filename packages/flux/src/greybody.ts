@@ -39,7 +39,8 @@ import {
   singleSolveGammaEstimate,
 } from './errorEstimate.js';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
-import { ownMassiveSolver, requireRadialEquationField } from './massive.js';
+import { ownMassiveSolver, ownRadialFunction, requireRadialEquationField } from './massive.js';
+import type { DiracRadialFunction, MassiveDiracProblem } from './radialFunctionDirac.js';
 import {
   GREYBODY_OPTIONS,
   checkGreybodyOptions,
@@ -382,7 +383,20 @@ export function radialFunction(
   problem: GreybodyProblem,
   radii: readonly number[],
   options?: Pick<GreybodyOptions, 'tol' | 'integrator'>,
-): { samples: RadialSample[]; logAbsZIn: number; logAbsZOut: number; diagnostics: RadialDiagnostics } {
+): { samples: RadialSample[]; logAbsZIn: number; logAbsZOut: number; diagnostics: RadialDiagnostics };
+/** A massive spin-1/2 mode (mass > 0, with kappaSign): the Dirac pair (P₊, P₋) instead (radialFunctionDirac.ts). */
+export function radialFunction(
+  problem: MassiveDiracProblem,
+  radii: readonly number[],
+  options?: Pick<GreybodyOptions, 'tol' | 'integrator'>,
+): DiracRadialFunction;
+export function radialFunction(
+  problem: GreybodyProblem,
+  radii: readonly number[],
+  options?: Pick<GreybodyOptions, 'tol' | 'integrator'>,
+): { samples: RadialSample[]; logAbsZIn: number; logAbsZOut: number; diagnostics: RadialDiagnostics } | DiracRadialFunction {
+  const own = ownRadialFunction(problem);
+  if (own) return own(problem, radii, options);
   const p = prepare(checkRadialProblem(problem));
   const checked = validateOptions<Pick<GreybodyOptions, 'tol' | 'integrator'>>(options, {
     tol: GREYBODY_OPTIONS.tol,

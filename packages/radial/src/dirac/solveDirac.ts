@@ -9,6 +9,7 @@
  */
 import { ConvergenceError, type Diagnostics } from '@penumbra/core';
 import { INTEGRATORS, makeStepper, type IntegratorName } from '../integrators.js';
+import type { Complex2 } from '../solution.js';
 import { type C, type V2, cabs, cdiv, cmul, csub } from './complex2.js';
 import { type DiracRadialProblem, diracRhs } from './equation.js';
 import { type DiracFarSeries, diracFarSeries, evaluateDiracFar, farMatrices } from './farSeries.js';
@@ -24,6 +25,8 @@ export interface DiracRadialOptions {
   startFraction?: number;
   /** first matching radius tried (moved outward until the far series converges) */
   matchRadius?: number;
+  /** radii (ascending, each > r₊) at which to sample (P₊, P₋); radii beyond the matching radius cost integration out to them */
+  grid?: readonly number[];
   /** carry the far waves' ratios inward from the series (default true; false integrates the ODE out to the series, kept for cross-checks) */
   farCarry?: boolean;
 }
@@ -51,7 +54,20 @@ export interface DiracRadialSolution {
   logAbsOut: number;
   /** k∞ = √(ω² − μ²) */
   kInf: number;
+  /** (P₊, P₋) at the radii of `grid`, in its order (empty without one) */
+  samples: DiracRadialSample[];
   diagnostics: DiracRadialDiagnostics;
+}
+
+/** The pair at one radius: P₊ = Δ^{1/2}R₊ and P₋ = R₋ of the horizon-normalised solution. */
+export interface DiracRadialSample {
+  r: number;
+  pPlus: Complex2;
+  pMinus: Complex2;
+}
+
+function sample(r: number, a: number, b: number, c: number, d: number): DiracRadialSample {
+  return { r, pPlus: { re: a, im: b }, pMinus: { re: c, im: d } };
 }
 
 const FAR_TERMS = 50;
@@ -134,13 +150,30 @@ export function solveMassiveDiracRadial(p: DiracRadialProblem, options: DiracRad
   let r = start.r;
   let steps = 0;
   let h = Math.min(0.1 * (r - hole.rPlus), 0.1 / omega);
-  while (r < rMatch) {
-    const res = stepper.advance(y, r, rMatch, h, 1e300);
-    steps += res.steps;
-    if (res.r === r) break;
-    r = res.r;
-    h = res.h;
+  const advanceTo = (target: number) => {
+    while (r < target) {
+      const res = stepper.advance(y, r, target, h, 1e300);
+      steps += res.steps;
+      if (res.r === r) return;
+      r = res.r;
+      h = res.h;
+    }
+  };
+  // The requested radii inside the start from the horizon series itself, the rest from the ODE on its way out.
+  const grid = options.grid ?? [];
+  const samples: DiracRadialSample[] = [];
+  let g = 0;
+  const d = hole.rPlus - hole.rMinus;
+  for (; g < grid.length && grid[g] <= start.r; g++) {
+    const v = grid[g] === start.r ? start.value : diracHorizonStart(p, (grid[g] - hole.rPlus) / d).value;
+    samples.push(sample(grid[g], v[0][0], v[0][1], v[1][0], v[1][1]));
   }
+  for (; g < grid.length && grid[g] <= rMatch; g++) {
+    advanceTo(grid[g]);
+    samples.push(sample(grid[g], y[0], y[1], y[2], y[3]));
+  }
+  advanceTo(rMatch);
+  const matchSteps = steps;
   const diagnosticsBase = {
     method:
       'massive Dirac radial pair: horizon Frobenius series in √(r − r₊), ODE in r, far asymptotic series with the logarithmic phase',
@@ -165,6 +198,19 @@ export function solveMassiveDiracRadial(p: DiracRadialProblem, options: DiracRad
     [y[0], y[1]],
     [y[2], y[3]],
   ];
+  for (; g < grid.length; g++) {
+    advanceTo(grid[g]);
+    if (r < grid[g]) break;
+    samples.push(sample(grid[g], y[0], y[1], y[2], y[3]));
+  }
+  if (samples.length < grid.length) {
+    throw new ConvergenceError('massive Dirac radial solve did not reach the last requested radius', {
+      ...diagnosticsBase,
+      steps,
+      errorEstimate: Infinity,
+      message: `stopped at r = ${r}, last radius requested ${grid[grid.length - 1]}`,
+    });
+  }
   const { logAbsIn, logAbsOut, carryError } = carry
     ? carriedAmplitudes(P, carry, kInf, p)
     : seriesAmplitudes(P, fIn.value, fOut.value);
@@ -172,9 +218,10 @@ export function solveMassiveDiracRadial(p: DiracRadialProblem, options: DiracRad
     logAbsIn,
     logAbsOut,
     kInf,
+    samples,
     diagnostics: {
       ...diagnosticsBase,
-      errorEstimate: steps * options.tol + farTruncation + carryError,
+      errorEstimate: matchSteps * options.tol + farTruncation + carryError,
       message: `integrated from r = ${start.r.toPrecision(6)} to ${rMatch.toPrecision(6)} in ${steps} steps${carry ? `; far series at ${R.toPrecision(6)}, carried in by ${carry.steps} rungs` : ''}`,
     },
   };
