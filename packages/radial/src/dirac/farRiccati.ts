@@ -1,15 +1,15 @@
 /**
  * The far-zone carry of the massive Dirac pair (docs/massive-dirac.md,
- * section 3): the ratio of the two components of one far-zone wave,
+ * section 3): the ratio w = P₋/P₊ of the incoming wave obeys
  *
- *   in:  w = P₋/P₊,  w' = G₊ + 2i(K/Δ) w − G₋ w²
- *   out: w = P₊/P₋,  w' = G₋ − 2i(K/Δ) w − G₊ w²,   G± = (λ ± iμr)/√Δ,
+ *   w' = G₊ + 2i(K/Δ) w − G₋ w²,   G± = (λ ± iμr)/√Δ,
  *
- * has no phase: where the wave is locally plane it varies on the scale r,
- * not on the wavelength. It is found rung by rung (r → r/4, in u = ln r) by
- * the defect correction w ← w + (w' − f(w))/∂f/∂w with w' by Chebyshev
- * collocation, started from the root of f(w) = 0 that tends to the wave's
- * limit −μ/(ω + k∞): each pass gains a factor of the wavelength over r
+ * and has no phase: where the wave is locally plane it varies on the scale r,
+ * not on the wavelength (the outgoing wave needs no carry of its own: it is
+ * (P̄₋, P̄₊) of the incoming one). It is found rung by rung (r → r/4, in
+ * u = ln r) by the defect correction w ← w + (w' − f(w))/∂f/∂w with w' by
+ * Chebyshev collocation, started from the root of f(w) = 0 that tends to the
+ * wave's limit −μ/(ω + k∞): each pass gains a factor of the wavelength over r
  * (the idea of Agocs & Barnett, SIAM J. Numer. Anal. 62 (2024), as in
  * riccatiStep.ts), so the cost does not grow with the oscillations crossed.
  * A perturbation of w would oscillate on the wavelength; the smooth solution
@@ -22,9 +22,6 @@
 import { chebyshevRule, chebyshevTail } from '../chebyshev.js';
 import { type C, cabs } from './complex2.js';
 import type { DiracRadialProblem } from './equation.js';
-
-/** Which wave's ratio is carried. */
-export type FarWave = 'in' | 'out';
 
 /** The carried ratio down the ladder and what it took. */
 export interface FarCarry {
@@ -40,7 +37,20 @@ export interface FarCarry {
 const NODES = 16;
 /** Ratio of a rung's ends. */
 const RUNG = 4;
+/**
+ * Ratio of a rung's ends where kr > WIDE_KR at its inner end: far out w is
+ * nearly its 1/r series and 16 nodes still resolve r → 16r (the tail check
+ * guards it).
+ */
+const WIDE_RUNG = 16;
+const WIDE_KR = 30;
 const MAX_PASSES = 30;
+/**
+ * A rung's corrections stop below this share of the tolerance: its error
+ * bound counts the last correction in full, which bounds the rest while
+ * they contract by at least half per pass (a slower pass ends the rung).
+ */
+const STOP = 0.1;
 /**
  * Largest WKB ratio |dk/dr|/k² (k² = (K/Δ)² − (λ² + μ²r²)/Δ, the local
  * wavenumber) at a rung's inner end: the corrections contract by about this
@@ -70,7 +80,9 @@ export function carryLadder(p: DiracRadialProblem, from: number, floor: number):
   const ladder = [from];
   for (;;) {
     const outer = ladder[ladder.length - 1];
-    const inner = outer / RUNG;
+    const wide = outer / WIDE_RUNG;
+    const kWide = localWavenumberSquared(p, wide);
+    const inner = kWide > 0 && Math.sqrt(kWide) * wide > WIDE_KR && wide >= floor ? wide : outer / RUNG;
     if (inner < floor) return ladder;
     const k2 = localWavenumberSquared(p, inner);
     const k2Outer = localWavenumberSquared(p, outer);
@@ -87,14 +99,13 @@ export function carryLadder(p: DiracRadialProblem, from: number, floor: number):
  * `start` at ladder[0] (from the series), as far as each rung's error stays
  * within `tol`.
  */
-export function carryFarRatio(p: DiracRadialProblem, wave: FarWave, ladder: readonly number[], start: C, tol: number): FarCarry {
+export function carryFarRatio(p: DiracRadialProblem, ladder: readonly number[], start: C, tol: number): FarCarry {
   const { hole, omega, m, mu, lambda } = p;
   const { a, rPlus, rMinus } = hole;
-  const sign = wave === 'in' ? 1 : -1;
   const rule = chebyshevRule(NODES);
   const n = rule.n;
   const rungs = ladder.length - 1;
-  // per node: f = α + 2iσ kd w − β w² with α = G_σ, β = G_−σ; stored as re/im arrays
+  // per node: f = α + 2i kd w − β w² with α = G₊ = (aRe, aIm), β = G₋ = (aRe, bIm)
   const aRe = new Float64Array(n);
   const aIm = new Float64Array(n);
   const bIm = new Float64Array(n);
@@ -118,14 +129,14 @@ export function carryFarRatio(p: DiracRadialProblem, wave: FarWave, ladder: read
       const sq = Math.sqrt(delta);
       kd[j] = ((r[j] * r[j] + a * a) * omega - a * m) / delta;
       aRe[j] = lambda / sq;
-      aIm[j] = (sign * mu * r[j]) / sq;
+      aIm[j] = (mu * r[j]) / sq;
       bIm[j] = -aIm[j];
-      // roots of β w² − 2iσ kd w − α = 0: w = (iσ kd ± √(αβ − kd²))/β, αβ = (λ² + μ²r²)/Δ real;
+      // roots of β w² − 2i kd w − α = 0: w = (i kd ± √(αβ − kd²))/β, αβ = (λ² + μ²r²)/Δ real;
       // the wave's is the smaller one (→ −μ/(ω + k∞) at infinity)
       const disc = aRe[j] * aRe[j] + aIm[j] * aIm[j] - kd[j] * kd[j];
       const root: C = disc >= 0 ? [Math.sqrt(disc), 0] : [0, Math.sqrt(-disc)];
-      const w1 = divide([root[0], sign * kd[j] + root[1]], [aRe[j], bIm[j]]);
-      const w2 = divide([-root[0], sign * kd[j] - root[1]], [aRe[j], bIm[j]]);
+      const w1 = divide([root[0], kd[j] + root[1]], [aRe[j], bIm[j]]);
+      const w2 = divide([-root[0], kd[j] - root[1]], [aRe[j], bIm[j]]);
       const w = cabs(w1) <= cabs(w2) ? w1 : w2;
       wRe[j] = w[0];
       wIm[j] = w[1];
@@ -152,8 +163,8 @@ export function carryFarRatio(p: DiracRadialProblem, wave: FarWave, ladder: read
       for (let i = 0; i < n; i++) {
         const yr = wRe[i];
         const yi = wIm[i];
-        const s = sign * kd[i];
-        // f = α + 2iσkd w − β w², β = (aRe, bIm); ∂f/∂w = 2iσkd − 2βw
+        const s = kd[i];
+        // f = α + 2i kd w − β w²; ∂f/∂w = 2i kd − 2βw
         const bwr = aRe[i] * yr - bIm[i] * yi;
         const bwi = aRe[i] * yi + bIm[i] * yr;
         const fr = aRe[i] - 2 * s * yi - (bwr * yr - bwi * yi);
@@ -173,7 +184,7 @@ export function carryFarRatio(p: DiracRadialProblem, wave: FarWave, ladder: read
       }
       evaluations += n;
       last = largest;
-      if (largest <= 1e-15 * scale) break;
+      if (largest <= Math.max(1e-15 * scale, STOP * tol)) break;
       if (pass > 2 && largest > 0.5 * previous) break; // stalled: rounding or a turning point
       previous = largest;
     }

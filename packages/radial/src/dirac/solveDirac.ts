@@ -38,7 +38,7 @@ export interface DiracRadialDiagnostics extends Diagnostics {
   matchRadius: number;
   /** where the far series is summed (beyond matchRadius when the waves' ratios were carried inward) */
   seriesRadius: number;
-  /** collocation rungs of the far-zone carry, both waves (0 when the series converged at the matching radius) */
+  /** collocation rungs of the far-zone carry (0 when the series converged at the matching radius) */
   carrySteps: number;
   horizonTerms: number;
   farTerms: number;
@@ -136,7 +136,7 @@ export function solveMassiveDiracRadial(p: DiracRadialProblem, options: DiracRad
   const tried =
     options.farCarry === false || R === firstRadius
       ? null
-      : carryBoth(p, carryLadder(p, R, CARRY_FLOOR * hole.rPlus), fIn.value, fOut.value, Math.max(options.tol, CARRY_TOL));
+      : carryBoth(p, carryLadder(p, R, CARRY_FLOOR * hole.rPlus), fIn.value, Math.max(options.tol, CARRY_TOL));
   const carry = tried && tried.steps > 0 ? tried : null;
   const rMatch = carry ? carry.radius : R;
   const y = Float64Array.from([start.value[0][0], start.value[0][1], start.value[1][0], start.value[1][1]]);
@@ -251,36 +251,33 @@ interface CarriedRatios {
   z: C;
   errorIn: number;
   errorOut: number;
-  /** rungs of both waves (0: the carry did not get past the series radius) */
+  /** rungs (0: the carry did not get past the series radius) */
   steps: number;
   evaluations: number;
 }
 
 /**
- * The two waves' ratios carried down the ladder from the series radius, to
- * the innermost radius both reached; null where neither got past the series
- * (the ODE then goes out to it).
+ * The incoming wave's ratio y = P₋/P₊ carried down the ladder from the series
+ * radius, to the innermost radius it reached; the outgoing wave is (P̄₋, P̄₊)
+ * of the incoming one (the pair maps to itself under P → (P̄₋, P̄₊) for real
+ * ω, μ, λ, and so do the series' leading terms), so its z = P₊/P₋ = ȳ.
+ * Null without a rung (the ODE then goes out to the series).
  */
-function carryBoth(p: DiracRadialProblem, ladder: number[], uIn: V2, uOut: V2, tol: number): CarriedRatios | null {
+function carryBoth(p: DiracRadialProblem, ladder: number[], uIn: V2, tol: number): CarriedRatios | null {
   if (ladder.length < 2) return null;
-  const cIn = carryFarRatio(p, 'in', ladder, cdiv(uIn[1], uIn[0]), tol);
-  if (cIn.ratios.length < 2) return { ...NO_CARRY, evaluations: cIn.evaluations };
-  const cOut = carryFarRatio(p, 'out', ladder.slice(0, cIn.ratios.length), cdiv(uOut[0], uOut[1]), tol);
-  const k = cOut.ratios.length - 1;
-  if (k < 1) return { ...NO_CARRY, evaluations: cIn.evaluations + cOut.evaluations };
+  const c = carryFarRatio(p, ladder, cdiv(uIn[1], uIn[0]), tol);
+  const k = c.ratios.length - 1;
+  const y = c.ratios[k];
   return {
     radius: ladder[k],
-    y: cIn.ratios[k],
-    z: cOut.ratios[k],
-    errorIn: cIn.errors[k],
-    errorOut: cOut.errors[k],
-    steps: 2 * k,
-    evaluations: cIn.evaluations + cOut.evaluations,
+    y,
+    z: [y[0], -y[1]],
+    errorIn: c.errors[k],
+    errorOut: c.errors[k],
+    steps: k,
+    evaluations: c.evaluations,
   };
 }
-
-/** A carry that did not get past the series radius (only its evaluations count). */
-const NO_CARRY: CarriedRatios = { radius: Number.NaN, y: [0, 0], z: [0, 0], errorIn: 0, errorOut: 0, steps: 0, evaluations: 0 };
 
 /**
  * A and B from the carried ratios, u_in = e^{L}(1, y), u_out = e^{L'}(z, 1):
