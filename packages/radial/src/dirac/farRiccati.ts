@@ -37,13 +37,6 @@ export interface FarCarry {
 const NODES = 16;
 /** Ratio of a rung's ends. */
 const RUNG = 4;
-/**
- * Ratio of a rung's ends where kr > WIDE_KR at its inner end: far out w is
- * nearly its 1/r series and 16 nodes still resolve r → 16r (the tail check
- * guards it).
- */
-const WIDE_RUNG = 16;
-const WIDE_KR = 30;
 const MAX_PASSES = 30;
 /**
  * A rung's corrections stop below this share of the tolerance: its error
@@ -80,9 +73,7 @@ export function carryLadder(p: DiracRadialProblem, from: number, floor: number):
   const ladder = [from];
   for (;;) {
     const outer = ladder[ladder.length - 1];
-    const wide = outer / WIDE_RUNG;
-    const kWide = localWavenumberSquared(p, wide);
-    const inner = kWide > 0 && Math.sqrt(kWide) * wide > WIDE_KR && wide >= floor ? wide : outer / RUNG;
+    const inner = outer / RUNG;
     if (inner < floor) return ladder;
     const k2 = localWavenumberSquared(p, inner);
     const k2Outer = localWavenumberSquared(p, outer);
