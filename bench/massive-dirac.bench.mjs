@@ -5,12 +5,14 @@
 // right-hand-side evaluations of each, and the accuracy against the 30-digit
 // mpmath reference (test/fixtures/massive-dirac) as true error / relError.
 // Massless and massive are timed in interleaved batches (median of three).
+// The near-threshold rows (Mω = 2.5, v = k∞/ω = 0.05, where the far series
+// converges only at ~1e4 M) are summarised apart.
 // Run after `npm run build`:
 //   node bench/massive-dirac.bench.mjs
-// Results: bench/results/massive-dirac-2026-12-03b.json.
-import { readFileSync, writeFileSync } from 'node:fs';
+// Results: bench/results/massive-dirac-<date>.json.
+import { readFileSync } from 'node:fs';
 import { greybody } from '@penumbra/flux';
-import { benchDir, cpuMsPerCall, fmt, median, table } from './lib.mjs';
+import { cpuMsPerCall, fmt, median, table, writeResult } from './lib.mjs';
 
 /** Median over three interleaved batches of CPU ms per call, for each function. */
 function cost(fns) {
@@ -34,13 +36,13 @@ for (const a of [0, 0.7, 0.99]) {
       [0.8, 0.4],
       [0.0505, 0.05],
     ]) {
-      CASES.push({ a, l, m, omega, mu });
+      CASES.push({ a, l, m, omega, mu, near: false });
     }
+    CASES.push({ a, l, m, omega: 2.5, mu: 2.5 * Math.sqrt(1 - 0.05 ** 2), near: true });
   }
 }
 
 const rows = [];
-const ratios = [];
 const records = [];
 for (const c of CASES) {
   const massless = { hole: { a: c.a }, mode: { field: { spin: 0.5 }, l: c.l, m: c.m }, omega: c.omega };
@@ -57,7 +59,6 @@ for (const c of CASES) {
   ]) {
     const g = greybody(massive(kappaSign));
     const nMassive = g.diagnostics.rhsEvaluations;
-    ratios.push(tMassive / tMassless);
     records.push({
       ...c,
       kappaSign,
@@ -74,7 +75,7 @@ for (const c of CASES) {
       c.l,
       c.m,
       c.omega,
-      c.mu,
+      fmt(c.mu, 4),
       kappaSign,
       fmt(tMassless),
       fmt(tMassive),
@@ -87,9 +88,21 @@ for (const c of CASES) {
 console.log(
   table(['a', 'j', 'm', 'Mω', 'Mμ', 'κ sign', 'massless ms', 'massive ms', 'ratio', 'rhs massless', 'rhs massive'], rows),
 );
-const sorted = [...ratios].sort((x, y) => x - y);
-console.log(
-  `massive/massless CPU time over ${ratios.length} modes: median ${fmt(median(ratios))}, max ${fmt(sorted.at(-1))}, min ${fmt(sorted[0])}`,
+function summary(label, rs) {
+  const time = rs.map((r) => r.ratio).sort((x, y) => x - y);
+  const evals = rs.map((r) => r.nMassive / r.nMassless).sort((x, y) => x - y);
+  console.log(
+    `${label}, ${rs.length} modes: massive/massless CPU time median ${fmt(median(time))}, max ${fmt(time.at(-1))}, min ${fmt(time[0])}; right-hand-side evaluations median ${fmt(median(evals))}, max ${fmt(evals.at(-1))}`,
+  );
+}
+summary('all', records);
+summary(
+  'Mω ≤ 0.8',
+  records.filter((r) => !r.near),
+);
+summary(
+  'near threshold, Mω = 2.5, v = 0.05',
+  records.filter((r) => r.near),
 );
 
 const fixture = JSON.parse(readFileSync(new URL('../test/fixtures/massive-dirac/massive-dirac.json', import.meta.url), 'utf8'));
@@ -113,6 +126,4 @@ for (const r of fixture.values) {
 console.log(
   `accuracy against the 30-digit reference (test/fixtures/massive-dirac, ${accuracy.length} rows, tol 1e-8): largest true error ${fmt(Math.max(...accuracy.map((a) => a.error)))}, largest true error / relError ${fmt(Math.max(...accuracy.map((a) => a.ratio)))}`,
 );
-const path = `${benchDir}/results/massive-dirac-2026-12-03b.json`;
-writeFileSync(path, `${JSON.stringify({ records, accuracy }, null, 1)}\n`);
-console.log(`written ${path}`);
+console.log(`written ${writeResult('massive-dirac', { records, accuracy })}`);

@@ -39,7 +39,8 @@ import {
   singleSolveGammaEstimate,
 } from './errorEstimate.js';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
-import { isMassiveVector, ownMassiveSolver, requireRadialEquationField } from './massive.js';
+import { isMassiveVector, ownMassiveSolver, ownRadialFunction, requireRadialEquationField } from './massive.js';
+import type { DiracRadialFunction, MassiveDiracProblem, RadialFunctionOptions } from './radialFunctionDirac.js';
 import { radialFunctionProca, type ProcaRadialFunction } from './radialFunctionProca.js';
 import {
   GREYBODY_OPTIONS,
@@ -387,14 +388,27 @@ export interface TeukolskyRadialFunction {
  * ln|Z_out| of the same solution. For s > 0 it comes from the two-sided route
  * (inside the switching radius, the −s solution mapped by D^{2s}). A massive
  * vector at a = 0 gets the Proca solution of one polarisation instead
- * (`options.polarization`; radialFunctionProca.ts).
+ * (`options.polarization`; radialFunctionProca.ts), a massive spin-1/2 mode
+ * (mass > 0, with kappaSign) the Dirac pair (P₊, P₋) (radialFunctionDirac.ts).
  */
+export function radialFunction(
+  problem: MassiveDiracProblem,
+  radii: readonly number[],
+  options?: RadialFunctionOptions,
+): DiracRadialFunction;
 export function radialFunction(
   problem: GreybodyProblem,
   radii: readonly number[],
   options?: Pick<GreybodyOptions, 'tol' | 'integrator' | 'polarization'>,
-): TeukolskyRadialFunction | ProcaRadialFunction {
+): TeukolskyRadialFunction | ProcaRadialFunction;
+export function radialFunction(
+  problem: GreybodyProblem,
+  radii: readonly number[],
+  options?: Pick<GreybodyOptions, 'tol' | 'integrator' | 'polarization'>,
+): TeukolskyRadialFunction | ProcaRadialFunction | DiracRadialFunction {
   if (isMassiveVector(problem)) return radialFunctionProca(problem, radii, options);
+  const own = ownRadialFunction(problem);
+  if (own) return own(problem, radii, options);
   const p = prepare(checkRadialProblem(problem));
   const checked = validateOptions<Pick<GreybodyOptions, 'tol' | 'integrator'>>(options, {
     tol: GREYBODY_OPTIONS.tol,

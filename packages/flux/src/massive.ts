@@ -1,6 +1,7 @@
 /**
  * Which massive fields the greybody solver computes, and by which route: one
- * entry per field spin. Spin 0 (Klein–Gordon) runs inside `greybody` itself,
+ * entry per field spin (and for `radialFunction`, the spins sampled by a
+ * function of their own: the massive Dirac pair). Spin 0 (Klein–Gordon) runs inside `greybody` itself,
  * through the s = 0 radial equation with its −μ²r² term (docs/massive-fields.md).
  * Spins 1/2 (Dirac on Kerr) and 1 (Proca at a = 0) have solvers of their own,
  * called before the common problem check (their modes carry kappaSign, or
@@ -11,6 +12,7 @@ import { InputError, formatFieldSpin, validateField, type FieldSpin } from '@pen
 import type { GreybodySolution } from './greybody.js';
 import { massiveDiracGreybody } from './massiveDirac.js';
 import { massiveVectorGreybody } from './massiveVector.js';
+import { radialFunctionDirac, type DiracRadialFunction, type RadialFunctionOptions } from './radialFunctionDirac.js';
 import { checkGreybodyOptions, type CheckedProblem, type GreybodyOptions, type GreybodyProblem } from './validate.js';
 
 /** A massive-field solver of its own: the caller's problem and (unvalidated) options in, the usual solution out. */
@@ -21,8 +23,19 @@ const OWN_SOLVERS: Partial<Record<FieldSpin, MassiveSolver>> = {
   1: (problem, options) => massiveVectorGreybody(problem, checkGreybodyOptions(options)),
 };
 
+/** `radialFunction` of a massive field without the Teukolsky radial function R: the caller's problem, radii and (unvalidated) options in. */
+export type MassiveRadialFunction = (
+  problem: GreybodyProblem,
+  radii: readonly number[],
+  options: RadialFunctionOptions | undefined,
+) => DiracRadialFunction;
+
+const OWN_RADIAL_FUNCTIONS: Partial<Record<FieldSpin, MassiveRadialFunction>> = {
+  0.5: radialFunctionDirac,
+};
+
 /** Massive spins `greybody` computes, for messages. */
-const MASSIVE_SPINS = '0, 1/2 (greybody only), 1 (greybody and radialFunction, at a = 0 only)';
+const MASSIVE_SPINS = '0, 1/2, 1 (at a = 0 only)';
 
 /**
  * The solver of its own for a massive field of spin 1/2 or 1, read from the
@@ -30,9 +43,18 @@ const MASSIVE_SPINS = '0, 1/2 (greybody only), 1 (greybody and radialFunction, a
  * the common check will refuse with its own message).
  */
 export function ownMassiveSolver(problem: unknown): MassiveSolver | undefined {
+  return ownFor(problem, OWN_SOLVERS);
+}
+
+/** As ownMassiveSolver, the `radialFunction` of its own for a massive field of spin 1/2. */
+export function ownRadialFunction(problem: unknown): MassiveRadialFunction | undefined {
+  return ownFor(problem, OWN_RADIAL_FUNCTIONS);
+}
+
+function ownFor<T>(problem: unknown, table: Partial<Record<FieldSpin, T>>): T | undefined {
   try {
     const { spin, mass } = validateField((problem as { mode?: { field?: unknown } } | null)?.mode?.field, 'mode.field');
-    return mass > 0 ? OWN_SOLVERS[spin] : undefined;
+    return mass > 0 ? table[spin] : undefined;
   } catch {
     return undefined;
   }
@@ -51,8 +73,9 @@ export function isMassiveVector(problem: unknown): boolean {
 /**
  * Refuse a massive field the radial equation of `greybody` and `radialFunction`
  * cannot take (only massless fields and the massive scalar go through it),
- * naming mode.field.mass. Massive vectors never reach it: both functions
- * hand them to their Proca routes first (a ≠ 0 refused there, naming hole.a).
+ * naming mode.field.mass. Massive Dirac and vector fields never reach it: both
+ * functions hand them to their own routes first (a ≠ 0 Proca refused there,
+ * naming hole.a).
  */
 export function requireRadialEquationField(problem: CheckedProblem): void {
   if (problem.fieldMass === 0 || problem.spin === 0) return;
@@ -60,8 +83,6 @@ export function requireRadialEquationField(problem: CheckedProblem): void {
     'mode.field.mass',
     `0 for spin ${formatFieldSpin(problem.spin)} (massive fields are computed for spin ${MASSIVE_SPINS})`,
     problem.fieldMass,
-    OWN_SOLVERS[problem.spin]
-      ? 'this function samples the Teukolsky radial function R, which a massive field of this spin does not have (the massive Dirac field is a first-order pair with a solver of its own); its Γ comes from greybody'
-      : 'massive fields of this spin are not supported',
+    'massive fields of this spin are not supported',
   );
 }

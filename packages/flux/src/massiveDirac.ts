@@ -10,8 +10,8 @@
  */
 import { ConvergenceError, InputError, requireKeyedObject, validateHole, validateMode } from '@penumbra/core';
 import { kerrHole } from '@penumbra/kerr';
-import { INTEGRATORS, solveMassiveDiracRadial, type DiracRadialSolution } from '@penumbra/radial';
-import { diracAngularEigenvalue } from '@penumbra/spheroidal';
+import { INTEGRATORS, solveMassiveDiracRadial, type DiracRadialProblem, type DiracRadialSolution } from '@penumbra/radial';
+import { diracAngularEigenvalue, type DiracAngularEigenvalue } from '@penumbra/spheroidal';
 import type { GreybodySolution } from './greybody.js';
 import { checkGreybodyOptions, validateOmega, type GreybodyOptions, type GreybodyProblem } from './validate.js';
 
@@ -24,8 +24,20 @@ import { checkGreybodyOptions, validateOmega, type GreybodyOptions, type Greybod
  */
 const SINGLE_SOLVE_CHARGE = 2;
 
-/** Γ of one massive Dirac mode; the problem's mode must carry kappaSign. */
-export function massiveDiracGreybody(problem: GreybodyProblem, options?: GreybodyOptions): GreybodySolution {
+/** A checked massive Dirac mode with its λ (the problem of `greybody` and `radialFunction`). */
+export interface MassiveDiracMode {
+  /** the radial problem: hole, ω, m, μ (units of 1/M) and λ */
+  radial: DiracRadialProblem;
+  j: number;
+  kappaSign: 1 | -1;
+  angular: DiracAngularEigenvalue;
+}
+
+/**
+ * Check a massive Dirac problem (the mode must carry kappaSign, ω > μ) and
+ * find its λ; InputError naming the offending parameter.
+ */
+export function massiveDiracMode(problem: GreybodyProblem): MassiveDiracMode {
   const p = requireKeyedObject('problem', problem, ['hole', 'mode', 'omega']);
   const { fieldMass: mu, l: j, m, kappaSign } = validateMode(p.mode, 'mode');
   if (kappaSign === undefined) {
@@ -45,13 +57,19 @@ export function massiveDiracGreybody(problem: GreybodyProblem, options?: Greybod
       'below threshold no wave reaches infinity and Γ is undefined',
     );
   }
+  const hole = kerrHole({ a, mass });
+  const angular = diracAngularEigenvalue({ j, m, aOmega: a * omega, aMu: a * mu, kappaSign });
+  return { radial: { hole, omega, m, mu, lambda: angular.lambda }, j, kappaSign, angular };
+}
+
+/** Γ of one massive Dirac mode; the problem's mode must carry kappaSign. */
+export function massiveDiracGreybody(problem: GreybodyProblem, options?: GreybodyOptions): GreybodySolution {
+  const { radial, j, kappaSign, angular } = massiveDiracMode(problem);
   const opts = checkGreybodyOptions(options);
   const tol = opts.tol ?? 1e-8;
   const integrator = opts.integrator ?? INTEGRATORS[0];
-  const hole = kerrHole({ a, mass });
-  const angular = diracAngularEigenvalue({ j, m, aOmega: a * omega, aMu: a * mu, kappaSign });
-  const lambda = angular.lambda;
-  const radial = { hole, omega, m, mu, lambda };
+  const { hole, omega, m, mu, lambda } = radial;
+  const a = hole.a;
   const k = omega - m * hole.omegaH;
   let odeTol = Math.max(tol * 1e-3, 1e-14);
   for (let attempt = 1; attempt <= 3; attempt++) {

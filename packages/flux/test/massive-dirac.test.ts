@@ -53,10 +53,11 @@ describe('massive Dirac greybody factor', () => {
     expect(Math.abs(p1 / p2 - 2)).toBeLessThan(0.1);
   });
 
-  it('agrees with the Schwarzschild real-potential route (Ŵ² + dŴ/dr̂*) at a = 0 to 1e-9 relative, both signs', () => {
+  it('agrees with the Schwarzschild real-potential route (Ŵ² + dŴ/dr̂*) at a = 0 to 1e-9 relative, both signs, also near threshold where the far waves are carried in from ~4000 M (j = 5/2, Mω = 0.6, v = k∞/ω = 0.05)', () => {
     for (const [l, omega, mu] of [
       [0.5, 0.15, 0.12],
       [1.5, 0.6, 0.3],
+      [2.5, 0.6, 0.6 * Math.sqrt(1 - 0.05 ** 2)],
     ]) {
       for (const kappaSign of [1, -1] as const) {
         const kerr = dirac(0, l, 0.5, omega, mu, kappaSign, 1e-11).gamma;
@@ -118,12 +119,14 @@ describe('massive Dirac greybody factor', () => {
   });
 });
 
-describe('radialFunction of a massive spin-1/2 field', () => {
-  it('is an InputError naming mode.field.mass that says why (no Teukolsky radial function R; Γ from greybody) for a massive Dirac mode', () => {
+describe('radialFunction of massive fields without a Teukolsky radial function', () => {
+  it('samples the massive Dirac pair (radial-function-dirac.test.ts) and the Proca field at a = 0 (massive-vector-radial.test.ts); a massive spin-2 field is an InputError naming mode.field.mass', () => {
     const dirac = { hole: { a: 0.5 }, mode: { field: { spin: 0.5, mass: 0.1 }, l: 0.5, m: 0.5, kappaSign: 1 }, omega: 0.3 };
-    for (const problem of [dirac]) {
-      expect(() => radialFunction(problem as never, [3, 5])).toThrow(InputError);
-      expect(() => radialFunction(problem as never, [3, 5])).toThrow(/mode\.field\.mass.*Teukolsky radial function R.*greybody/);
-    }
+    const proca = { hole: { a: 0 }, mode: { field: { spin: 1, mass: 0.1 }, l: 1, m: 0 }, omega: 0.3 };
+    const graviton = { hole: { a: 0 }, mode: { field: { spin: 2, mass: 0.1 }, l: 2, m: 0 }, omega: 0.3 };
+    expect(radialFunction(dirac as never, [3, 5]).samples).toHaveLength(2);
+    expect(radialFunction(proca as never, [3, 5]).samples).toHaveLength(2);
+    expect(() => radialFunction(graviton as never, [3, 5])).toThrow(InputError);
+    expect(() => radialFunction(graviton as never, [3, 5])).toThrow(/mode\.field\.mass/);
   });
 });

@@ -18,6 +18,7 @@ export {
   solveMassiveDiracRadial,
   type DiracRadialOptions,
   type DiracRadialDiagnostics,
+  type DiracRadialSample,
   type DiracRadialSolution,
 } from './dirac/solveDirac.js';
 export { OSCILLATIONS, type Oscillation } from './hybridLeg.js';

@@ -74,17 +74,23 @@ export function diracAngularEigenvalue(problem: DiracAngularProblem): DiracAngul
   const strength = Math.abs(aOmega) + Math.abs(aMu);
   let count = Math.ceil(rank + 2 * strength + 12);
   let evaluations = 0;
-  const solve = (n: number) => {
+  const solve = (n: number, guess: [number, number]) => {
     const band = diracAngularBand(m, aOmega, aMu, n);
     // n negative and n positive eigenvalues at a = 0; rank from zero outwards.
     const index = kappaSign > 0 ? n + rank : n - 1 - rank;
-    const root = bandEigenvalue(band, index);
+    const root = bandEigenvalue(band, index, guess);
     evaluations += root.counts;
     return { lambda: root.value, norm: band.norm };
   };
-  let previous = solve(count);
+  // The a-dependent part of H is the compression of the multiplication by [[−aμ cosθ, aω sinθ], [aω sinθ, aμ cosθ]],
+  // of norm ≤ max(|aω|, |aμ|): by Weyl's inequality λ lies that close to its a = 0 value κ = kappaSign·(j + ½).
+  const kappa = kappaSign * (j + 0.5);
+  const reach = Math.max(Math.abs(aOmega), Math.abs(aMu)) * (1 + 1e-12) + 1e-12;
+  let previous = solve(count, [kappa - reach, kappa + reach]);
   for (let attempt = 1; attempt <= 8; attempt++) {
-    const next = solve(count + 12);
+    // λ moves by little when the truncation grows: bisect from a narrow bracket about the last value (widened if it misses).
+    const near = 64 * Number.EPSILON * Math.max(1, Math.abs(previous.lambda)) + 1e-15 * previous.norm;
+    const next = solve(count + 12, [previous.lambda - near, previous.lambda + near]);
     const change = Math.abs(next.lambda - previous.lambda);
     const rounding = 8 * Number.EPSILON * next.norm;
     if (change <= Math.max(rounding, 4e-16 * Math.abs(next.lambda))) {

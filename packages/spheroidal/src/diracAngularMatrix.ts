@@ -125,20 +125,81 @@ export function countBelow(band: DiracBand, sigma: number): number {
     if (di < 0) negatives++;
     d[i] = di;
   }
+  // ln|det(H − σ)| = Σ ln|d_i|, from a product rescaled as it grows or shrinks
+  let product = 1;
+  let logScale = 0;
+  for (let i = 0; i < n; i++) {
+    product *= Math.abs(d[i]);
+    if (product > 1e150 || product < 1e-150) {
+      logScale += Math.log(product);
+      product = 1;
+    }
+  }
+  lastLogDeterminant = logScale + Math.log(product);
   return negatives;
 }
 
-/** The index-th eigenvalue (ascending, from 0) of the band, bisected to adjacent floats. */
-export function bandEigenvalue(band: DiracBand, index: number): { value: number; counts: number } {
+/** ln|det(H − σ)| of the last countBelow call. */
+let lastLogDeterminant = 0;
+
+/**
+ * The index-th eigenvalue (ascending, from 0) of the band, to adjacent
+ * floats: bisection by Sylvester counts until the bracket holds it alone,
+ * then regula falsi with the Illinois modification on det(H − σ) (one sign
+ * change in the bracket; each step a count too, so the bracket stays
+ * certain), then bisection of what is left. From `guess` = [lo, hi] when two
+ * counts confirm that it holds the eigenvalue, else from ±(norm + 1).
+ */
+export function bandEigenvalue(band: DiracBand, index: number, guess?: [number, number]): { value: number; counts: number } {
   let lo = -band.norm - 1;
   let hi = band.norm + 1;
   let counts = 0;
-  for (let it = 0; it < 200; it++) {
+  // counts below lo and hi, and ln|det| there (NaN: not known)
+  let nLo = 0;
+  let nHi = band.size;
+  let logLo = Number.NaN;
+  let logHi = Number.NaN;
+  if (guess && guess[0] > lo && guess[1] < hi) {
+    counts += 2;
+    const a = countBelow(band, guess[0]);
+    const la = lastLogDeterminant;
+    const b = countBelow(band, guess[1]);
+    if (a <= index && b > index) {
+      [lo, hi, nLo, nHi, logLo, logHi] = [guess[0], guess[1], a, b, la, lastLogDeterminant];
+    }
+  }
+  let side = 0; // which end the last regula falsi step kept (−1 lo, +1 hi), for the Illinois halving
+  let slow = 0;
+  for (let it = 0; it < 300; it++) {
     const mid = 0.5 * (lo + hi);
     if (mid <= lo || mid >= hi) break;
+    let x = mid;
+    const alone = nLo === index && nHi === index + 1 && Number.isFinite(logLo) && Number.isFinite(logHi);
+    if (alone && slow < 2) {
+      // det changes sign once in [lo, hi]: its zero by linear interpolation, t = |f_lo|/(|f_lo| + |f_hi|)
+      const t = 1 / (1 + Math.exp(logHi - logLo));
+      const y = lo + (hi - lo) * t;
+      if (y > lo && y < hi) x = y;
+    }
+    const width = hi - lo;
     counts++;
-    if (countBelow(band, mid) > index) hi = mid;
-    else lo = mid;
+    const c = countBelow(band, x);
+    if (c > index) {
+      hi = x;
+      nHi = c;
+      logHi = lastLogDeterminant;
+      if (side === 1) logLo -= Math.LN2; // kept lo twice: halve f_lo (Illinois)
+      side = 1;
+    } else {
+      lo = x;
+      nLo = c;
+      logLo = lastLogDeterminant;
+      if (side === -1) logHi -= Math.LN2;
+      side = -1;
+    }
+    // a step that did not halve the bracket counts against regula falsi; after two, one bisection step
+    slow = hi - lo > 0.5 * width ? slow + 1 : 0;
+    if (slow > 2) slow = 0;
   }
   return { value: 0.5 * (lo + hi), counts };
 }

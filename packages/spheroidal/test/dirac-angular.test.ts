@@ -27,8 +27,10 @@ describe('massive Dirac angular eigenvalue λ', () => {
     }
   });
 
-  it('at μ = 0 satisfies λ² = A_{+1/2,jm}(c) + 1 + c² − 2mc to 1e-12 relative (in-project s = 1/2 spheroidal eigenvalue)', () => {
+  it('at μ = 0 satisfies λ² = A_{+1/2,jm}(c) + 1 + c² − 2mc to 1e-12 relative (in-project s = 1/2 spheroidal eigenvalue), also at small c where the spectrum is symmetric about σ = 0', () => {
     for (const [j, m, c] of [
+      [0.5, -0.5, -0.01],
+      [1.5, 1.5, 0.01],
       [0.5, 0.5, 0.7],
       [1.5, 0.5, -1.3],
       [2.5, -1.5, 4],
