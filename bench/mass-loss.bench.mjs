@@ -75,8 +75,8 @@ const probes = quick
       1: { mu: [muMid(1)[4]], a: [aMid(1)[0]] },
     }
   : {
-      0: { mu: muMid(0).slice(1), a: aMid(0) },
-      0.5: { mu: muMid(0.5).slice(1), a: every(aMid(0.5), 2) },
+      0: { mu: muMid(0).slice(1), a: every(aMid(0), 2) },
+      0.5: { mu: every(muMid(0.5).slice(1), 2), a: [aMid(0.5)[0], aMid(0.5)[2], aMid(0.5)[5]] },
       1: { mu: [muMid(1)[4], muMid(1)[7]], a: [aMid(1)[0], aMid(1)[2]] },
     };
 out.offGrid = [];
