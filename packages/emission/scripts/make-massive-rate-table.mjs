@@ -32,6 +32,7 @@
  */
 import { Worker, isMainThread, parentPort, workerData } from 'node:worker_threads';
 import { appendFileSync, existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 
 const GENERATED_BY = 'packages/emission/scripts/make-massive-rate-table.mjs';
@@ -258,6 +259,8 @@ if (isMainThread && invoked) {
   const seconds = runSeconds + (reuse ? shipped.seconds : 0);
   const out = process.env.MASSIVE_TABLE_OUT ?? fileURLToPath(new URL('../src/massiveRateTableData.ts', import.meta.url));
   writeFileSync(out, tableModule(table, seconds, runSeconds));
+  // long node lists: leave the line breaking to the repository's formatter
+  spawnSync('npx', ['biome', 'format', '--write', out], { stdio: 'ignore' });
   console.log(
     `wrote ${out}: ${rows.map((r) => `spin ${r.spin} ${r.fieldMass.length} Mμ × ${r.aStar.length} a*`).join(', ')}, tol ${tol}; ` +
       `new nodes ${runSeconds.toFixed(1)} s (${used.size} solves; this run ${((Date.now() - started) / 1000).toFixed(1)} s for ${tasks.length} tasks${failed.length ? `, ${failed.length} failed` : ''}), ` +
