@@ -52,7 +52,8 @@ const regen = ratio.seconds + SHIPPED_PAGE_TABLE.seconds;
 out.regeneration = {
   massiveSeconds: ratio.seconds,
   pageSeconds: SHIPPED_PAGE_TABLE.seconds,
-  grid: `${ratio.fieldMass.length} Mμ × ${ratio.aStar.length} a* × ${ratio.spins.length} spins, tol ${ratio.tol}`,
+  grid: `${ratio.spins.map((r) => `spin ${r.spin}: ${r.fieldMass.length} Mμ × ${r.aStar.length} a*`).join(', ')}; tol ${ratio.tol}`,
+  runSeconds: ratio.runSeconds,
   ratioToHour: regen / 3600,
 };
 console.log(
@@ -62,18 +63,21 @@ console.log(
 // (2) off-grid accuracy of the tables against direct solves, one dof of each massive spin
 const table = bundledMassiveRateTable();
 const mids = (xs) => xs.slice(0, -1).map((x, i) => 0.5 * (x + xs[i + 1]));
-const muMid = mids(table.fieldMass);
-const aMid = [0, ...mids(table.theta).map(Math.sin)];
+// each spin's own cell midpoints in Mμ (past the first cell) and in θ (plus a* = 0)
+const rowOf = (spin) => table.spins.find((r) => r.spin === spin);
+const muMid = (spin) => mids(rowOf(spin).fieldMass);
+const aMid = (spin) => [0, ...mids(rowOf(spin).theta).map(Math.sin)];
+const every = (xs, k) => xs.filter((_, i) => i % k === 0);
 const probes = quick
   ? {
-      0: { mu: [muMid[2], muMid[5], muMid[7]], a: [aMid[0], aMid[2]] },
-      0.5: { mu: [muMid[4]], a: [aMid[2]] },
-      1: { mu: [muMid[4]], a: [aMid[0]] },
+      0: { mu: [muMid(0)[2], muMid(0)[7], muMid(0)[12]], a: [aMid(0)[0], aMid(0)[3]] },
+      0.5: { mu: [muMid(0.5)[7]], a: [aMid(0.5)[3]] },
+      1: { mu: [muMid(1)[4]], a: [aMid(1)[0]] },
     }
   : {
-      0: { mu: muMid.slice(1), a: aMid },
-      0.5: { mu: [muMid[2], muMid[4], muMid[6], muMid[8]], a: [aMid[0], aMid[1], aMid[3]] },
-      1: { mu: [muMid[4], muMid[7]], a: [aMid[0], aMid[2]] },
+      0: { mu: muMid(0).slice(1), a: every(aMid(0), 2) },
+      0.5: { mu: every(muMid(0.5).slice(1), 2), a: [aMid(0.5)[0], aMid(0.5)[2], aMid(0.5)[5]] },
+      1: { mu: [muMid(1)[4], muMid(1)[7]], a: [aMid(1)[0], aMid(1)[2]] },
     };
 out.offGrid = [];
 if (!args.includes('--skip-direct')) {
@@ -130,29 +134,34 @@ if (!args.includes('--skip-direct')) {
 // (2b) leave-one-node-out, no solves: the node left out is the truth at its own (Mμ, a*)
 {
   const cases = [];
-  const nT = table.theta.length;
-  const nM = table.fieldMass.length;
-  for (let j = 1; j < nT - 1; j++) for (let i = 1; i < nM; i++) cases.push({ drop: { theta: j }, i, j });
-  for (let i = 2; i < nM - 1; i++) for (let j = 0; j < nT; j++) cases.push({ drop: { fieldMass: i }, i, j });
-  for (let j = 1; j < nT - 1; j++) for (let i = 2; i < nM - 1; i++) cases.push({ drop: { theta: j, fieldMass: i }, i, j });
+  for (const spin of [0, 0.5, 1]) {
+    const row = rowOf(spin);
+    const nT = row.theta.length;
+    const nM = row.fieldMass.length;
+    for (let j = 1; j < nT - 1; j++) for (let i = 1; i < nM; i++) cases.push({ spin, drop: { theta: j }, i, j });
+    for (let i = 2; i < nM - 1; i++) for (let j = 0; j < nT; j++) cases.push({ spin, drop: { fieldMass: i }, i, j });
+    for (let j = 1; j < nT - 1; j++)
+      for (let i = 2; i < nM - 1; i++) cases.push({ spin, drop: { theta: j, fieldMass: i }, i, j });
+  }
   const ratios = { f: [], g: [] };
   const worst = { f: { ratio: 0 }, g: { ratio: 0 } };
-  for (const c of cases)
-    for (const spin of [0, 0.5, 1]) {
-      const species = [{ name: 'x', spin, dof: 1, massGeV: table.fieldMass[c.i] / FIELD_MASS_PER_GRAM_GEV }];
-      const a = table.aStar[c.j];
-      const truth = massLossRates({ species }).at(1, a);
-      const left = massLossRates({ species, massiveTable: withoutNode(table, c.drop) }).at(1, a);
-      const rf = Math.abs(left.f / truth.f - 1) / left.error.interpolation.f;
-      ratios.f.push(rf);
-      if (rf > worst.f.ratio) worst.f = { ratio: rf, spin, mu: table.fieldMass[c.i], aStar: a, drop: c.drop };
-      // g: not where the left-out θ node feeds the a* = 0 torque limit (the table's θ = 0 torque comes from nodes 1 and 2)
-      if (a > 0 && !(c.drop.theta !== undefined && c.drop.theta <= 2)) {
-        const rg = Math.abs(left.g / truth.g - 1) / left.error.interpolation.g;
-        ratios.g.push(rg);
-        if (rg > worst.g.ratio) worst.g = { ratio: rg, spin, mu: table.fieldMass[c.i], aStar: a, drop: c.drop };
-      }
+  for (const c of cases) {
+    const { spin } = c;
+    const row = rowOf(spin);
+    const species = [{ name: 'x', spin, dof: 1, massGeV: row.fieldMass[c.i] / FIELD_MASS_PER_GRAM_GEV }];
+    const a = row.aStar[c.j];
+    const truth = massLossRates({ species }).at(1, a);
+    const left = massLossRates({ species, massiveTable: withoutNode(table, c.drop) }).at(1, a);
+    const rf = Math.abs(left.f / truth.f - 1) / left.error.interpolation.f;
+    ratios.f.push(rf);
+    if (rf > worst.f.ratio) worst.f = { ratio: rf, spin, mu: row.fieldMass[c.i], aStar: a, drop: c.drop };
+    // g: not where the left-out θ node feeds the a* = 0 torque limit (the table's θ = 0 torque comes from nodes 1 and 2)
+    if (a > 0 && !(c.drop.theta !== undefined && c.drop.theta <= 2)) {
+      const rg = Math.abs(left.g / truth.g - 1) / left.error.interpolation.g;
+      ratios.g.push(rg);
+      if (rg > worst.g.ratio) worst.g = { ratio: rg, spin, mu: row.fieldMass[c.i], aStar: a, drop: c.drop };
     }
+  }
   const share = (xs, t) => xs.filter((r) => r <= t).length / xs.length;
   out.leaveOneOut = {
     casesF: ratios.f.length,

@@ -39,6 +39,16 @@ describe('penumbra evolve', () => {
     expect((await run('evolve', '--a', '0.5', '--content', 'axion')).code).toBe(2);
     expect((await run('evolve', '--a', '1.2')).code).toBe(2);
   });
+  test('--tol: a lifetime within it prints as without; one whose error estimate exceeds it exits with code 3; a tol outside 1e-6 … 0.1 exits with code 2', async () => {
+    const args = ['evolve', '--a', '0.5', '--mass', '1e15', '--unit', 'g', '--json'];
+    const free = JSON.parse((await run(...args)).stdout);
+    const within = await run(...args, '--tol', '0.01');
+    expect(within.code).toBe(0);
+    expect(JSON.parse(within.stdout).lifetimeSeconds).toBe(free.lifetimeSeconds);
+    expect(free.relError).toBeGreaterThan(1e-6);
+    expect((await run(...args, '--tol', '1e-6')).code).toBe(3);
+    expect((await run(...args, '--tol', '0.5')).code).toBe(2);
+  });
   test('final stages: the last 1 s releases the mass M_τ with M_τ³ × (lifetime per g³) = 1 s to 1e-5, species energies add up to it to 1e-9; a τ longer than the life is the whole life', async () => {
     const j = JSON.parse(
       (await run('evolve', '--a', '0', '--mass', '1e15', '--unit', 'g', '--final', '1,1e40', '--json')).stdout,

@@ -44,6 +44,12 @@ export interface EvaporationOptions {
   aStarThresholds?: readonly number[];
   /** durations τ (seconds) of the final stages to report (default [1]) */
   finalSeconds?: readonly number[];
+  /**
+   * relative accuracy asked of the lifetime (range 1e-6 … 0.1; default none:
+   * the estimate is reported, not checked): a lifetime whose error estimate
+   * (ODE change + table error along the track) exceeds it throws ConvergenceError
+   */
+  tol?: number;
 }
 
 /** One point of the track, in physical units. */
@@ -139,6 +145,7 @@ const OPTIONS = {
   odeTol: numberIn(1e-12, 1e-4),
   aStarThresholds: positiveList('aStarThresholds', 0, 1),
   finalSeconds: positiveList('finalSeconds', 0, 1e300),
+  tol: numberIn(1e-6, 0.1),
 };
 
 function checkRates(value: unknown): MassLossRates {
@@ -310,7 +317,8 @@ function endOfIntegration(rates: MassLossRates, m0: number): number {
  * time, the times a* falls below given values, the final stages (the last τ
  * seconds: mass and energy released, per species) and the energy balance.
  * Throws InputError for a bad problem or option, ConvergenceError if the
- * lifetime moves when the ODE tolerance is halved.
+ * lifetime moves when the ODE tolerance is halved or its error estimate
+ * exceeds `tol`.
  *
  * @example evaporateHole({ rates: massLossRates({ species }), mass: 1e15, unit: 'g', aStar0: 0.5 })
  */
@@ -323,7 +331,7 @@ export function evaporateHole(problem: EvaporationProblem, options?: Evaporation
   const aStar0 = p.aStar0;
   if (typeof aStar0 !== 'number' || !Number.isFinite(aStar0) || aStar0 < 0 || aStar0 > rates.aMax)
     throw new InputError('aStar0', `0 ≤ a* ≤ ${rates.aMax} (the range of the rate tables)`, aStar0);
-  const { odeTol = 1e-8, aStarThresholds = [], finalSeconds = [1] } = validateOptions<EvaporationOptions>(options, OPTIONS);
+  const { odeTol = 1e-8, aStarThresholds = [], finalSeconds = [1], tol } = validateOptions<EvaporationOptions>(options, OPTIONS);
   const uEnd = endOfIntegration(rates, m0);
   const a = integrate(rates, m0, aStar0, odeTol, uEnd);
   const b = integrate(rates, m0, aStar0, odeTol / 2, uEnd);
@@ -348,6 +356,13 @@ export function evaporateHole(problem: EvaporationProblem, options?: Evaporation
       ...diagnostics,
       lifetime: a.lifetime,
       lifetimeHalfTol: b.lifetime,
+    });
+  }
+  if (tol !== undefined && !(diagnostics.errorEstimate <= tol)) {
+    throw new ConvergenceError(`evaporation: the lifetime's error estimate exceeds tol = ${tol}`, {
+      ...diagnostics,
+      lifetime: b.lifetime,
+      tol,
     });
   }
   const temperatureGeV = (massGrams: number, aStar: number) => unitTemperature(aStar) / (massGrams * FIELD_MASS_PER_GRAM_GEV);

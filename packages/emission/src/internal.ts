@@ -25,6 +25,15 @@ export { dofBySpin } from './species.js';
 export { boltzmannSpeciesBound, masslessProxyBound, MASSLESS_PROXY_MAX_MU } from './speciesBounds.js';
 export { validateGrid, requireProblem } from './validate.js';
 export { SHIPPED_PAGE_TABLE } from './pageTableData.js';
-export { thetaGrid, fieldTotals, ratioRow, masslessLimit, withoutNode } from './massiveRateTable.js';
+export {
+  thetaGrid,
+  fieldTotals,
+  ratioRow,
+  nodeRatio,
+  assembleRatioRow,
+  masslessLimit,
+  withoutNode,
+  type NodeRatio,
+} from './massiveRateTable.js';
 export { SHIPPED_MASSIVE_RATE_TABLE } from './massiveRateTableData.js';
 export { localCubic, localCubicError } from './localCubic.js';

@@ -155,7 +155,7 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
     if (!pageRow.has(s.spin))
       throw new InputError(`species[${i}].spin`, `a spin of the Page table (${[...pageRow.keys()].join(', ')})`, s.spin);
   const ratioRow = new Map(ratios.spins.map((r) => [r.spin, r]));
-  const mus = ratios.fieldMass;
+  const musOf = new Map(ratios.spins.map((r) => [r.spin, r.fieldMass]));
   const ln = (table: number[][]) => table.map((row) => row.map((x) => Math.log(Math.max(x, 1e-300))));
   const lnP = new Map(ratios.spins.map((r) => [r.spin, ln(r.powerRatio)]));
   const lnJ = new Map(ratios.spins.map((r) => [r.spin, ln(r.torqueRatio)]));
@@ -236,6 +236,7 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
           ];
           columns.set(s.spin, c);
         }
+        const mus = musOf.get(s.spin)!;
         rp = lnRatioAt(mus, c[0], mu, withErrors);
         rj = lnRatioAt(mus, c[1], mu, withErrors);
       }
@@ -315,11 +316,12 @@ export function massLossRates(problem: MassLossProblem): MassLossRates {
     }
     // each species' own window of hole masses, in logarithms (a mass of 1e-300 GeV puts it past 1e300 g);
     // masses outside double range are skipped: no hole there has a finite rate to state
-    const logLo = Math.log10(0.1 * mus[1]);
-    const span = Math.log10((2 * mus[mus.length - 1]) / (0.1 * mus[1]));
-    const steps = Math.ceil(16 * span);
     const holeMasses: number[] = [];
     for (const s of massive) {
+      const mus = musOf.get(s.spin)!;
+      const logLo = Math.log10(0.1 * mus[1]);
+      const span = Math.log10((2 * mus[mus.length - 1]) / (0.1 * mus[1]));
+      const steps = Math.ceil(16 * span);
       const base = logLo - Math.log10(s.massGeV * FIELD_MASS_PER_GRAM_GEV);
       for (let k = 0; k <= steps; k++) {
         const M = 10 ** (base + (span * k) / steps);

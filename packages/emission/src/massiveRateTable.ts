@@ -9,7 +9,8 @@
  * this table. R → 1 as Mμ → 0 and falls like a Boltzmann factor once Mμ
  * exceeds the temperature (T_H = 1/8π at a* = 0), so ln R is smooth and is
  * what massLoss.ts interpolates. Nodes: a* uniform in θ = arcsin a* (as the
- * Page table), Mμ on a list that is dense at small Mμ.
+ * Page table), Mμ on a list of each spin's own, dense at small Mμ and
+ * where the ratios fall fastest.
  */
 import {
   InputError,
@@ -34,6 +35,8 @@ export interface MassiveRateRow {
   aStar: number[];
   /** θ = arcsin a* of those nodes */
   theta: number[];
+  /** the field masses Mμ of this spin's rows, increasing, the first 0 (each spin has its own) */
+  fieldMass: number[];
   /** per-dof power at (Mμ, a*) over the massless per-dof power at a* */
   powerRatio: number[][];
   /** per-dof torque at (Mμ, a*) over the massless per-dof torque at a* (at a* = 0 the limit, from the even series in θ) */
@@ -48,7 +51,7 @@ export interface MassiveRateRow {
 export interface MassiveRateTable {
   aStar: number[];
   theta: number[];
-  /** field masses Mμ of the rows, increasing, the first 0 */
+  /** every field mass Mμ of the spins' rows (each row lists its own), increasing, the first 0 */
   fieldMass: number[];
   spins: MassiveRateRow[];
   /** relative accuracy requested of each emissionTotals solve */
@@ -164,6 +167,69 @@ export function masslessLimit(spin: FieldSpin, own: NodeTotals, scalar?: NodeTot
   };
 }
 
+/** The ratios of one node and their relative errors (massive and massless errors added). */
+export interface NodeRatio {
+  power: number;
+  torque: number;
+  powerError: number;
+  torqueError: number;
+}
+
+/**
+ * The ratios of one node from the totals of the massive field (`own`; none
+ * for the row Mμ = 0, which is the massless limit: masslessLimit, with the
+ * massless scalar `scalar` for spin 1) over the massless field's (`base`).
+ * At a* = 0 the torques vanish and the torque ratio is NaN (assembleRatioRow
+ * puts the limit there).
+ */
+export function nodeRatio(spin: FieldSpin, own: NodeTotals | undefined, base: NodeTotals, scalar?: NodeTotals): NodeRatio {
+  const t = own ?? masslessLimit(spin, base, scalar);
+  const atZero = base.torque === 0;
+  return {
+    power: t.power / base.power,
+    torque: atZero ? Number.NaN : t.torque / base.torque,
+    powerError: t.powerRel + base.powerRel,
+    torqueError: atZero ? Number.NaN : t.torqueRel + base.torqueRel,
+  };
+}
+
+/**
+ * The row of one spin from its node ratios, indexed [field-mass node][a*
+ * node] (fieldMass[0] = 0); the a* = 0 torque ratio (whatever the entries
+ * hold there) is the limit from the even series in θ on the row's own nodes.
+ */
+export function assembleRatioRow(
+  spin: FieldSpin,
+  grid: { aStar: readonly number[]; theta: readonly number[] },
+  fieldMass: readonly number[],
+  entries: readonly (readonly NodeRatio[])[],
+): MassiveRateRow {
+  const n = entries[0].length;
+  const row: MassiveRateRow = {
+    spin,
+    aStar: grid.aStar.slice(0, n),
+    theta: grid.theta.slice(0, n),
+    fieldMass: fieldMass.slice(),
+    powerRatio: [],
+    torqueRatio: [],
+    powerRatioError: [],
+    torqueRatioError: [],
+  };
+  for (const t of entries) {
+    row.powerRatio.push(t.map((x) => x.power));
+    row.powerRatioError.push(t.map((x) => x.powerError));
+    const tr = t.map((x) => x.torque);
+    const te = t.map((x) => x.torqueError);
+    // even series in θ for ln R (R stays positive where it falls steeply): ln R(0) ≈ (4 ln R(h) − ln R(2h))/3
+    // (with only two a* nodes, a cut-short row, the value at the second node)
+    tr[0] = tr.length > 2 ? Math.exp((4 * Math.log(tr[1]) - Math.log(tr[2])) / 3) : tr[1];
+    te[0] = te.length > 2 ? (4 * te[1] + te[2]) / 3 : te[1];
+    row.torqueRatio.push(tr);
+    row.torqueRatioError.push(te);
+  }
+  return row;
+}
+
 /**
  * Ratios of one spin from its totals at every (mass, a*) node (row 0: the
  * massless field, the denominator); the Mμ = 0 row is the massless limit of
@@ -173,33 +239,13 @@ export function masslessLimit(spin: FieldSpin, own: NodeTotals, scalar?: NodeTot
 export function ratioRow(
   spin: FieldSpin,
   grid: { aStar: readonly number[]; theta: readonly number[] },
+  fieldMass: readonly number[],
   totals: readonly (readonly NodeTotals[])[],
   scalar?: readonly NodeTotals[],
 ): MassiveRateRow {
   const base = totals[0];
-  const limit = base.map((b, j) => masslessLimit(spin, b, scalar?.[j]));
-  const row: MassiveRateRow = {
-    spin,
-    aStar: grid.aStar.slice(0, base.length),
-    theta: grid.theta.slice(0, base.length),
-    powerRatio: [],
-    torqueRatio: [],
-    powerRatioError: [],
-    torqueRatioError: [],
-  };
-  for (const t of [limit, ...totals.slice(1)]) {
-    row.powerRatio.push(t.map((x, j) => x.power / base[j].power));
-    row.powerRatioError.push(t.map((x, j) => x.powerRel + base[j].powerRel));
-    const tr = t.map((x, j) => (j === 0 ? Number.NaN : x.torque / base[j].torque));
-    const te = t.map((x, j) => (j === 0 ? Number.NaN : x.torqueRel + base[j].torqueRel));
-    // even series in θ for ln R (R stays positive where it falls steeply): ln R(0) ≈ (4 ln R(h) − ln R(2h))/3
-    // (with only two a* nodes, a cut-short row, the value at the second node)
-    tr[0] = tr.length > 2 ? Math.exp((4 * Math.log(tr[1]) - Math.log(tr[2])) / 3) : tr[1];
-    te[0] = te.length > 2 ? (4 * te[1] + te[2]) / 3 : te[1];
-    row.torqueRatio.push(tr);
-    row.torqueRatioError.push(te);
-  }
-  return row;
+  const entries = totals.map((t, i) => t.map((x, j) => nodeRatio(spin, i === 0 ? undefined : x, base[j], scalar?.[j])));
+  return assembleRatioRow(spin, grid, fieldMass, entries);
 }
 
 /**
@@ -243,7 +289,7 @@ export function massiveRateTable(
     ),
   );
   const scalarRow = spins.includes(1) ? (all[spins.indexOf(0)]?.[0] ?? aStar.map((a) => solve(0, 0, a))) : undefined;
-  const rows = spins.map((spin, k) => ratioRow(spin, { aStar, theta }, all[k], scalarRow));
+  const rows = spins.map((spin, k) => ratioRow(spin, { aStar, theta }, masses, all[k], scalarRow));
   const errorEstimate = Math.max(...rows.flatMap((r) => r.powerRatioError.flat()));
   return {
     aStar,
@@ -278,6 +324,7 @@ export function bundledMassiveRateTable(): MassiveRateTable {
       spin: r.spin,
       aStar: r.aStar.slice(),
       theta: r.theta.slice(),
+      fieldMass: r.fieldMass.slice(),
       powerRatio: copy(r.powerRatio),
       torqueRatio: copy(r.torqueRatio),
       powerRatioError: copy(r.powerRatioError),
@@ -290,7 +337,7 @@ export function bundledMassiveRateTable(): MassiveRateTable {
 
 /**
  * The table without one a* node (index into each spin's θ nodes) and/or one
- * field-mass node: leave-one-node-out checks of the interpolation error
+ * field-mass node (index into each spin's field masses): leave-one-node-out checks of the interpolation error
  * estimates need no solves (the left-out node is the truth there).
  */
 export function withoutNode(table: MassiveRateTable, drop: { theta?: number; fieldMass?: number }): MassiveRateTable {
@@ -298,11 +345,11 @@ export function withoutNode(table: MassiveRateTable, drop: { theta?: number; fie
   const cut = (rows: readonly (readonly number[])[]) => keep(rows, drop.fieldMass).map((r) => keep(r, drop.theta));
   return {
     ...table,
-    fieldMass: keep(table.fieldMass, drop.fieldMass),
     spins: table.spins.map((r) => ({
       spin: r.spin,
       aStar: keep(r.aStar, drop.theta),
       theta: keep(r.theta, drop.theta),
+      fieldMass: keep(r.fieldMass, drop.fieldMass),
       powerRatio: cut(r.powerRatio),
       torqueRatio: cut(r.torqueRatio),
       powerRatioError: cut(r.powerRatioError),

@@ -5,6 +5,7 @@
  * attractor. Massive content: massive-evaporation.test.ts.
  */
 import { describe, expect, test } from 'vitest';
+import { ConvergenceError, InputError } from '@penumbra/core';
 import {
   AGE_OF_UNIVERSE_SECONDS,
   KNOWN_SPECIES,
@@ -84,6 +85,29 @@ describe('evaporation of a hole emitting massless species', () => {
       const end = ev.track[ev.track.length - 1].aStar;
       expect(Math.abs(end - 0.555)).toBeLessThan(0.01);
     }
+  });
+
+  test('tol: a lifetime within it is returned unchanged; one whose error estimate exceeds it throws ConvergenceError with the diagnostics; a tol outside 1e-6 … 0.1 is an InputError naming tol', () => {
+    const problem = { rates: pageRates, mass: 1e15, unit: 'g' as const, aStar0: 0.5 };
+    const free = evaporateHole(problem, { finalSeconds: [] });
+    const checked = evaporateHole(problem, { finalSeconds: [], tol: 1e-2 });
+    expect(checked.lifetimeSeconds).toBe(free.lifetimeSeconds);
+    expect(free.diagnostics.errorEstimate).toBeGreaterThan(1e-6);
+    try {
+      evaporateHole(problem, { finalSeconds: [], tol: 1e-6 });
+      expect.unreachable();
+    } catch (e) {
+      expect(e).toBeInstanceOf(ConvergenceError);
+      expect((e as ConvergenceError).diagnostics.errorEstimate).toBe(free.diagnostics.errorEstimate);
+    }
+    for (const tol of [0, 0.5, Number.NaN, '1e-3'])
+      try {
+        evaporateHole(problem, { tol } as never);
+        expect.unreachable();
+      } catch (e) {
+        expect(e).toBeInstanceOf(InputError);
+        expect((e as InputError).parameter).toBe('tol');
+      }
   });
 
   test('massForLifetime: the lifetime of the mass found is the age of the universe to 1e-6, and the mass is (age / (lifetime per g³))^(1/3) to 1e-6 for massless content', () => {

@@ -81,6 +81,9 @@ Options:
                     massless shape above threshold (seconds to a minute)
   --table-points N  compute a fresh massless f, g table with N nodes instead of the shipped one
   --points N        track points printed (default 40)
+  --tol T           relative accuracy asked of the lifetime (1e-6 … 0.1): a lifetime whose
+                    estimated error exceeds it fails with exit code 3 instead of printing
+                    a warning (default: none, the estimate is printed and flagged above 1e-3)
   --json            JSON {lifetimeSeconds, lifetimeOverMassCubed, relError, inaccurate,
                     track: [{timeSeconds, mass, aStar, temperatureGeV, fRelError}], crossings,
                     finalStages (with relError, aStarError), species, energyBalance, massForAgeOfUniverse, diagnostics}
@@ -118,6 +121,7 @@ Example:
       below: { type: 'string' },
       'table-points': { type: 'string' },
       points: { type: 'string' },
+      tol: { type: 'string' },
       ...OUTPUT_OPTIONS,
     });
     const format = outputFormat(values);
@@ -161,7 +165,11 @@ Example:
         `--a ${aStar} is beyond the tables (a* ≤ ${rates.aMax})${values['table-points'] === undefined ? '; the massless table can be recomputed with --table-points N' : ''}`,
       );
     }
-    const ev = evaporateHole({ rates, mass, unit, aStar0: aStar }, { aStarThresholds: below, finalSeconds });
+    const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol, { min: 1e-6, max: 0.1 });
+    const ev = evaporateHole(
+      { rates, mass, unit, aStar0: aStar },
+      { aStarThresholds: below, finalSeconds, ...(tol === undefined ? {} : { tol }) },
+    );
     const age = massForLifetime({ rates, seconds: AGE_OF_UNIVERSE_SECONDS, aStar0: 0 });
     const burst =
       energies === undefined || ev.finalStages.length === 0
