@@ -178,7 +178,13 @@ export function bandEigenvalue(band: DiracBand, index: number, guess?: [number, 
     if (alone && slow < 2) {
       // det changes sign once in [lo, hi]: its zero by linear interpolation, t = |f_lo|/(|f_lo| + |f_hi|)
       const t = 1 / (1 + Math.exp(logHi - logLo));
-      const y = lo + (hi - lo) * t;
+      let y = lo + (hi - lo) * t;
+      // Landing next to an end (the root is there): step a few times that distance past it, to cut the bracket from the far side.
+      const edge = Math.min(y - lo, hi - y);
+      if (edge < 1e-3 * (hi - lo)) {
+        const push = 4 * Math.max(edge, 4 * Number.EPSILON * Math.abs(y));
+        y = y - lo < hi - y ? y + push : y - push;
+      }
       if (y > lo && y < hi) x = y;
     }
     const width = hi - lo;
