@@ -71,6 +71,19 @@ const or = <T>(plausible: fc.Arbitrary<T>): fc.Arbitrary<unknown> =>
 const aStar = fc.double({ min: -0.999, max: 0.999, noNaN: true });
 const spinArb = fc.constantFrom<core.FieldSpin>(0, 0.5, 1, 2);
 const smallOmega = fc.double({ min: 1e-3, max: 2, noNaN: true });
+/** A Proca problem as regge-wheeler's procaGreybody and procaRadialSolution take it. */
+const procaProblemArb = or(
+  fc.record(
+    {
+      field: or(fc.record({ spin: or(spinArb), mass: or(fc.double({ min: 0, max: 0.5 })) })),
+      l: or(fc.integer({ min: 0, max: 2 })),
+      omega: or(smallOmega),
+      polarization: or(fc.constantFrom('odd', 'even-1', 'even-2', 'monopole', 'x')),
+      mass: or(fc.double({ min: 0.5, max: 2 })),
+    },
+    { requiredKeys: ['field', 'l', 'omega', 'polarization'] },
+  ),
+);
 const hole = fc.record({ a: aStar });
 const kerrHoleArb = aStar.map((a) => kerr.kerrHole({ a }));
 const modeArb = spinArb.chain((spin) =>
@@ -528,39 +541,14 @@ const ENTRIES: Entry[] = [
   {
     name: 'procaGreybody',
     call: fn(rw.procaGreybody),
-    args: [
-      or(
-        fc.record(
-          {
-            field: or(fc.record({ spin: or(spinArb), mass: or(fc.double({ min: 0, max: 0.5 })) })),
-            l: or(fc.integer({ min: 0, max: 2 })),
-            omega: or(smallOmega),
-            polarization: or(fc.constantFrom('odd', 'even-1', 'even-2', 'monopole', 'x')),
-            mass: or(fc.double({ min: 0.5, max: 2 })),
-          },
-          { requiredKeys: ['field', 'l', 'omega', 'polarization'] },
-        ),
-      ),
-      or(fc.record({ tol: or(cheapTol) })),
-    ],
+    args: [procaProblemArb, or(fc.record({ tol: or(cheapTol) }))],
     runs: 30,
   },
   {
     name: 'procaRadialSolution',
     call: fn(rw.procaRadialSolution),
     args: [
-      or(
-        fc.record(
-          {
-            field: or(fc.record({ spin: or(spinArb), mass: or(fc.double({ min: 0, max: 0.5 })) })),
-            l: or(fc.integer({ min: 0, max: 2 })),
-            omega: or(smallOmega),
-            polarization: or(fc.constantFrom('odd', 'even-1', 'even-2', 'monopole', 'x')),
-            mass: or(fc.double({ min: 0.5, max: 2 })),
-          },
-          { requiredKeys: ['field', 'l', 'omega', 'polarization'] },
-        ),
-      ),
+      procaProblemArb,
       or(fc.array(or(fc.double({ min: 1, max: 100 })), { maxLength: 3 })),
       or(fc.record({ tol: or(cheapTol) })),
     ],
