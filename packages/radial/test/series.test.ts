@@ -8,7 +8,8 @@
 import { describe, expect, it } from 'vitest';
 import { kerrHole } from '@penumbra/kerr';
 import { solveRadial } from '@penumbra/radial';
-import { evaluateFar, farSeries, horizonSeriesStart } from '@penumbra/radial/internal';
+import { ConvergenceError } from '@penumbra/core';
+import { evaluateFar, farSeries, HorizonCoefficients, horizonSeriesStart } from '@penumbra/radial/internal';
 
 const modes = [
   { a: 0, s: 2, m: 0, omega: 0.3, lambda: 0 },
@@ -71,5 +72,25 @@ describe('horizon Frobenius series', () => {
     const x = 1e-6 * b;
     const st = horizonSeriesStart(hole, { s: 2, m: 1, omega: 0.4, lambda: 1.3 }, x);
     expect(Math.abs(Math.hypot(...st.R) * (x * b) ** 2 - 1)).toBeLessThan(1e-5);
+  });
+  // Near extremality (a = 0.99999, Mω = 30, m = −2) the coefficients swell past
+  // the double range at the wide default start, and the start moves inward.
+  // Property (common practice, no source): coefficients kept across the tried
+  // points give the same sums as a fresh series, and an overflowed sum is refused
+  // at once.
+  it('gives the same bits with coefficients kept across start points, and refuses an overflowed sum early', () => {
+    const hole = kerrHole({ a: 0.99999 });
+    const b = hole.rPlus - hole.rMinus;
+    const mode = { s: 0, m: -2, omega: 30, lambda: -1200 };
+    const kept = new HorizonCoefficients(hole, mode);
+    expect(() => horizonSeriesStart(hole, mode, 0.03 * b, undefined, kept)).toThrow(ConvergenceError);
+    expect(kept.count).toBeLessThan(200);
+    for (const fraction of [1e-3, 5e-4, 1e-5]) {
+      const fresh = horizonSeriesStart(hole, mode, fraction * b);
+      const reused = horizonSeriesStart(hole, mode, fraction * b, undefined, kept);
+      expect(reused.R).toEqual(fresh.R);
+      expect(reused.dR).toEqual(fresh.dR);
+      expect(reused.truncation).toBe(fresh.truncation);
+    }
   });
 });
