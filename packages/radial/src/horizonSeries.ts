@@ -36,131 +36,66 @@ export function horizonWavenumber(hole: KerrHole, mode: RadialMode): number {
 }
 
 /**
- * The coefficients d_n of the series, generated on demand and kept: they do not
- * depend on the point x0 where the series is summed, so a caller that tries
- * several x0 (startAtHorizon moving the start inward) runs the recurrence once.
- */
-export class HorizonCoefficients {
-  readonly nuRe: number;
-  readonly nuIm: number;
-  /** d_n for n < count */
-  readonly re = new Float64Array(MAX_TERMS);
-  readonly im = new Float64Array(MAX_TERMS);
-  count = 1;
-  readonly b: number;
-  private readonly A2: number;
-  private readonly A3: number;
-  private readonly A4: number;
-  private readonly B1: number;
-  private readonly B2: number;
-  private readonly B3: number;
-  private readonly C: Float64Array;
-
-  constructor(hole: KerrHole, mode: RadialMode, eq: RadialEquation = radialEquation(hole, mode, hole.rPlus)) {
-    const { rPlus, rMinus, mass: M } = hole;
-    const s = mode.s;
-    const b = rPlus - rMinus;
-    this.b = b;
-    const k = horizonWavenumber(hole, mode);
-    const cPlus = (2 * M * rPlus) / b;
-    const cMinus = (2 * M * rMinus) / b;
-    // ν = −s − i k cPlus
-    this.nuRe = -s;
-    this.nuIm = -k * cPlus;
-    // Δ² = A2 x² + A3 x³ + A4 x⁴, (s+1)ΔΔ' = B1 x + B2 x² + B3 x³ (both real) and U = Σ C_j x^j,
-    // x = r − r+, from the one definition; the recurrence is unrolled over these.
-    if (eq.center !== rPlus || eq.s !== s) throw new Error("horizonSeriesStart: the equation must be the mode's, about r+");
-    // read in place (coefficients past a polynomial's degree are 0)
-    const at = (q: Float64Array, j: number): number => (j < q.length ? q[j] : 0);
-    this.A2 = at(eq.A.re, 2);
-    this.A3 = at(eq.A.re, 3);
-    this.A4 = at(eq.A.re, 4);
-    this.B1 = at(eq.B.re, 1);
-    this.B2 = at(eq.B.re, 2);
-    this.B3 = at(eq.B.re, 3);
-    // C0…C4, real parts then imaginary parts
-    this.C = new Float64Array(10);
-    for (let j = 0; j < 5; j++) {
-      this.C[j] = at(eq.C.re, j);
-      this.C[5 + j] = at(eq.C.im, j);
-    }
-    // d_0: |d_0| = b^{−s}; phase from the additive constant of r*.
-    const phaseConst = rPlus - cPlus * Math.log(2 * M) - cMinus * Math.log(b / (2 * M));
-    const mag0 = Math.pow(b, -s);
-    this.re[0] = mag0 * Math.cos(-k * phaseConst);
-    this.im[0] = mag0 * Math.sin(-k * phaseConst);
-  }
-
-  /** Extend the coefficients to d_n (n < MAX_TERMS). */
-  extendTo(n: number): void {
-    const { re, im, nuRe, nuIm, A2, A3, A4, B1, B2, B3, C } = this;
-    for (let j = this.count; j <= n; j++) {
-      // numerator = −[ (A3 (μ1)(μ1−1) + B2 μ1 + C1) d_{j−1} + (A4 (μ2)(μ2−1) + B3 μ2 + C2) d_{j−2} + C3 d_{j−3} + C4 d_{j−4} ]
-      let numRe = 0,
-        numIm = 0;
-      // index j−1: μ1 = j − 1 + ν
-      {
-        const mr = j - 1 + nuRe,
-          mi = nuIm;
-        // μ(μ−1) = (mr + i mi)(mr − 1 + i mi)
-        const pr = mr * (mr - 1) - mi * mi;
-        const pi = mr * mi + mi * (mr - 1);
-        const cr = A3 * pr + B2 * mr + C[1];
-        const ci = A3 * pi + B2 * mi + C[6];
-        numRe += cr * re[j - 1] - ci * im[j - 1];
-        numIm += cr * im[j - 1] + ci * re[j - 1];
-      }
-      if (j >= 2) {
-        const mr = j - 2 + nuRe,
-          mi = nuIm;
-        const pr = mr * (mr - 1) - mi * mi;
-        const pi = mr * mi + mi * (mr - 1);
-        const cr = A4 * pr + B3 * mr + C[2];
-        const ci = A4 * pi + B3 * mi + C[7];
-        numRe += cr * re[j - 2] - ci * im[j - 2];
-        numIm += cr * im[j - 2] + ci * re[j - 2];
-      }
-      if (j >= 3) {
-        numRe += C[3] * re[j - 3] - C[8] * im[j - 3];
-        numIm += C[3] * im[j - 3] + C[8] * re[j - 3];
-      }
-      if (j >= 4) {
-        numRe += C[4] * re[j - 4] - C[9] * im[j - 4];
-        numIm += C[4] * im[j - 4] + C[9] * re[j - 4];
-      }
-      // F(j + ν) = A2 μ(μ−1) + B1 μ + C0, μ = j + ν
-      const mr = j + nuRe,
-        mi = nuIm;
-      const fr = A2 * (mr * (mr - 1) - mi * mi) + B1 * mr + C[0];
-      const fi = A2 * (mr * mi + mi * (mr - 1)) + B1 * mi + C[5];
-      const den = fr * fr + fi * fi;
-      // d_j = −num / F
-      re[j] = -(numRe * fr + numIm * fi) / den;
-      im[j] = -(numIm * fr - numRe * fi) / den;
-    }
-    if (n >= this.count) this.count = n + 1;
-  }
-}
-
-/**
  * R and R' of the ingoing horizon solution (normalised to Δ^{−s} e^{−ikr*}) at
  * r = r+ + x0, from its Frobenius series; `eq` is the mode's equation about r+
- * (built here if not given), `coefficients` the series' coefficients when the
- * caller keeps them across several x0.
+ * (built here if not given).
  */
 export function horizonSeriesStart(
   hole: KerrHole,
   mode: RadialMode,
   x0: number,
-  eq?: RadialEquation,
-  coefficients: HorizonCoefficients = new HorizonCoefficients(hole, mode, eq),
+  eq: RadialEquation = radialEquation(hole, mode, hole.rPlus),
 ): HorizonStart {
-  const { re, im, nuRe, nuIm, b } = coefficients;
+  const { rPlus, rMinus, mass: M } = hole;
+  const s = mode.s;
+  const b = rPlus - rMinus;
+  const k = horizonWavenumber(hole, mode);
+  const cPlus = (2 * M * rPlus) / b;
+  const cMinus = (2 * M * rMinus) / b;
+  // ν = −s − i k cPlus
+  const nuRe = -s;
+  const nuIm = -k * cPlus;
+
+  // Δ² = A2 x² + A3 x³ + A4 x⁴, (s+1)ΔΔ' = B1 x + B2 x² + B3 x³ (both real) and U = Σ C_j x^j,
+  // x = r − r+, from the one definition; the recurrence is unrolled over these.
+  if (eq.center !== rPlus || eq.s !== s) throw new Error("horizonSeriesStart: the equation must be the mode's, about r+");
+  // read in place (coefficients past a polynomial's degree are 0; padded copies were measured among a solve's allocations)
+  const at = (q: Float64Array, j: number): number => (j < q.length ? q[j] : 0);
+  const A2 = at(eq.A.re, 2),
+    A3 = at(eq.A.re, 3),
+    A4 = at(eq.A.re, 4);
+  const B1 = at(eq.B.re, 1),
+    B2 = at(eq.B.re, 2),
+    B3 = at(eq.B.re, 3);
+  const C0r = at(eq.C.re, 0),
+    C1r = at(eq.C.re, 1),
+    C2r = at(eq.C.re, 2),
+    C3r = at(eq.C.re, 3),
+    C4r = at(eq.C.re, 4);
+  const C0i = at(eq.C.im, 0),
+    C1i = at(eq.C.im, 1),
+    C2i = at(eq.C.im, 2),
+    C3i = at(eq.C.im, 3),
+    C4i = at(eq.C.im, 4);
+
+  // d_0: |d_0| = b^{−s}; phase from the additive constant of r*.
+  const phaseConst = rPlus - cPlus * Math.log(2 * M) - cMinus * Math.log(b / (2 * M));
+  const mag0 = Math.pow(b, -s);
+  // The recurrence reaches back four terms: d_{n−1} … d_{n−4} are kept in locals (no array grows per term).
+  let d1Re = mag0 * Math.cos(-k * phaseConst),
+    d1Im = mag0 * Math.sin(-k * phaseConst);
+  let d2Re = 0,
+    d2Im = 0,
+    d3Re = 0,
+    d3Im = 0,
+    d4Re = 0,
+    d4Im = 0;
+
   // Partial sums S = Σ d_n x0^n and S' = Σ (n + ν) d_n x0^n.
-  let sRe = re[0],
-    sIm = im[0];
-  let tRe = nuRe * sRe - nuIm * sIm;
-  let tIm = nuRe * sIm + nuIm * sRe;
+  let sRe = d1Re,
+    sIm = d1Im;
+  let tRe = nuRe * d1Re - nuIm * d1Im;
+  let tIm = nuRe * d1Im + nuIm * d1Re;
   let pw = 1;
   let small = 0;
   let n = 1;
@@ -168,20 +103,69 @@ export function horizonSeriesStart(
   let scaleMax2 = sRe * sRe + sIm * sIm;
   let truncation2 = 1;
   for (; n < MAX_TERMS; n++) {
-    if (n >= coefficients.count) coefficients.extendTo(Math.min(MAX_TERMS - 1, n + 15));
+    // numerator = −[ (A3 (μ1)(μ1−1) + B2 μ1 + C1) d_{n−1} + (A4 (μ2)(μ2−1) + B3 μ2 + C2) d_{n−2} + C3 d_{n−3} + C4 d_{n−4} ]
+    let numRe = 0,
+      numIm = 0;
+    // j = 1 term (index n−1): μ1 = n − 1 + ν
+    {
+      const mr = n - 1 + nuRe,
+        mi = nuIm;
+      // μ(μ−1) = (mr + i mi)(mr − 1 + i mi)
+      const pr = mr * (mr - 1) - mi * mi;
+      const pi = mr * mi + mi * (mr - 1);
+      const cr = A3 * pr + B2 * mr + C1r;
+      const ci = A3 * pi + B2 * mi + C1i;
+      numRe += cr * d1Re - ci * d1Im;
+      numIm += cr * d1Im + ci * d1Re;
+    }
+    if (n >= 2) {
+      const mr = n - 2 + nuRe,
+        mi = nuIm;
+      const pr = mr * (mr - 1) - mi * mi;
+      const pi = mr * mi + mi * (mr - 1);
+      const cr = A4 * pr + B3 * mr + C2r;
+      const ci = A4 * pi + B3 * mi + C2i;
+      numRe += cr * d2Re - ci * d2Im;
+      numIm += cr * d2Im + ci * d2Re;
+    }
+    if (n >= 3) {
+      numRe += C3r * d3Re - C3i * d3Im;
+      numIm += C3r * d3Im + C3i * d3Re;
+    }
+    if (n >= 4) {
+      numRe += C4r * d4Re - C4i * d4Im;
+      numIm += C4r * d4Im + C4i * d4Re;
+    }
+    // F(n + ν) = A2 μ(μ−1) + B1 μ + C0, μ = n + ν
     const mr = n + nuRe,
       mi = nuIm;
+    const fr = A2 * (mr * (mr - 1) - mi * mi) + B1 * mr + C0r;
+    const fi = A2 * (mr * mi + mi * (mr - 1)) + B1 * mi + C0i;
+    const den = fr * fr + fi * fi;
+    // d_n = −num / F
+    const dnRe = -(numRe * fr + numIm * fi) / den;
+    const dnIm = -(numIm * fr - numRe * fi) / den;
+    d4Re = d3Re;
+    d4Im = d3Im;
+    d3Re = d2Re;
+    d3Im = d2Im;
+    d2Re = d1Re;
+    d2Im = d1Im;
+    d1Re = dnRe;
+    d1Im = dnIm;
     pw *= x0;
-    const termRe = re[n] * pw,
-      termIm = im[n] * pw;
+    const termRe = dnRe * pw,
+      termIm = dnIm * pw;
     sRe += termRe;
     sIm += termIm;
     tRe += mr * termRe - mi * termIm;
     tIm += mr * termIm + mi * termRe;
     const termMag2 = termRe * termRe + termIm * termIm;
     const sumMag2 = sRe * sRe + sIm * sIm;
-    // an overflowed term never comes back: fail now rather than after MAX_TERMS
-    if (!Number.isFinite(sumMag2) || !Number.isFinite(termMag2)) {
+    // Overflowed terms never come back (near extremality the coefficients swell
+    // past the double range where the start is too wide): fail now, not after
+    // MAX_TERMS, so that startAtHorizon's retries stay cheap.
+    if (!(sumMag2 < Number.POSITIVE_INFINITY && termMag2 < Number.POSITIVE_INFINITY)) {
       truncation2 = Number.NaN;
       break;
     }

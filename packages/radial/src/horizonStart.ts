@@ -2,7 +2,7 @@
 import { ConvergenceError } from '@penumbra/core';
 import type { KerrHole } from '@penumbra/kerr';
 import type { RadialEquation, RadialMode } from './equation.js';
-import { HorizonCoefficients, horizonSeriesStart, type HorizonStart } from './horizonSeries.js';
+import { horizonSeriesStart, type HorizonStart } from './horizonSeries.js';
 
 /** Truncation (cancellation included) accepted before the start point is moved inward. */
 const START_TRUNCATION = 1e-13;
@@ -69,11 +69,9 @@ export function startAtHorizon(
   let x0 = (startFraction ?? defaultStartFraction(hole, mode.omega, tol)) * b;
   const accepted = tol !== undefined && tol < NEAR_ROUNDING_TOL ? START_TRUNCATION : START_TRUNCATION_WIDE;
   if (startFraction === undefined && innerStop > hole.rPlus) x0 = Math.min(x0, 0.5 * (innerStop - hole.rPlus));
-  // The coefficients do not depend on x0: a start moved inward re-sums them only.
-  const coefficients = new HorizonCoefficients(hole, mode, eq);
   for (;;) {
     try {
-      const start = horizonSeriesStart(hole, mode, x0, eq, coefficients);
+      const start = horizonSeriesStart(hole, mode, x0, eq);
       if (start.truncation <= accepted || x0 < 1e-4 * b || startFraction !== undefined) return start;
     } catch (e) {
       if (!(e instanceof ConvergenceError) || x0 < 1e-6 * b) throw e;

@@ -8,7 +8,7 @@ export { type CPoly, cpoly, padTo, add, mul, scale, derivative, cpolyAt } from '
 export { type RadialEquation, radialEquation, substitutePhase } from './equation.js';
 export { type Rhs, type EvaluationCounter, type EquationKernel, equationRhs, equationKernel } from './rhs.js';
 export { type AdvanceResult, type Stepper, type StepperSpec, makeStepper } from './integrators.js';
-export { type HorizonStart, HorizonCoefficients, horizonSeriesStart, horizonWavenumber } from './horizonSeries.js';
+export { type HorizonStart, horizonSeriesStart, horizonWavenumber } from './horizonSeries.js';
 export { defaultStartFraction, startAtHorizon } from './horizonStart.js';
 export { type FarSeries, type FarValue, type FarRecurrence, farSeries, evaluateFar } from './farSeries.js';
 export { type FarMatch, type MatchedAmplitudes, chooseMatch, matchAmplitudes } from './farMatch.js';
