@@ -120,6 +120,26 @@ for (const [name] of builds) {
     `${name}: CPU ms median ${fmt(s.medianMs, 3)}, p90 ${fmt(s.p90Ms, 3)}, p99 ${fmt(s.p99Ms, 3)}, max ${fmt(s.maxMs, 3)}; RHS evaluations median ${s.medianEvals}, p99 ${s.p99Evals}, mean ${fmt(s.meanEvals, 4)}; check solves ${fmt(100 * s.checkFraction, 3)} %; failed ${s.failed}`,
   );
   if (grid) console.log(`  worst mode ${JSON.stringify(s.worstMode)}`);
+  if (grid) {
+    // every mode above 3× the median, with its multiple of the median (and base/new where a base is given)
+    const above = r.ms.map((x, i) => [x, i]).filter(([x]) => x > 3 * s.medianMs);
+    console.log(`  ${above.length} modes above 3× the median; worst/median ${fmt(s.maxMs / s.medianMs, 3)}`);
+    for (const [x, i] of above) {
+      const ratio = BASE && name === 'new' ? `, base/new ${fmt(rec.base.ms[i] / x, 3)}` : '';
+      console.log(`    ${JSON.stringify(modes[i])}: ${fmt(x, 3)} ms = ${fmt(x / s.medianMs, 3)}× median${ratio}`);
+    }
+    if (BASE && name === 'new') {
+      console.log('  near-extremal modes (a ≥ 0.9999):');
+      modes.forEach((p, i) => {
+        if (p.hole.a < 0.9999) return;
+        const x = r.ms[i];
+        const b = rec.base.ms[i];
+        console.log(
+          `    ${JSON.stringify(p)}: base ${fmt(b, 3)} ms = ${fmt(b / out.builds.base.medianMs, 3)}×, new ${fmt(x, 3)} ms = ${fmt(x / s.medianMs, 3)}× median, base/new ${fmt(b / x, 3)}`,
+        );
+      });
+    }
+  }
 }
 if (BASE) {
   const b = rec.base,

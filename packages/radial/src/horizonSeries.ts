@@ -162,6 +162,13 @@ export function horizonSeriesStart(
     tIm += mr * termIm + mi * termRe;
     const termMag2 = termRe * termRe + termIm * termIm;
     const sumMag2 = sRe * sRe + sIm * sIm;
+    // Overflowed terms never come back (near extremality the coefficients swell
+    // past the double range where the start is too wide): fail now, not after
+    // MAX_TERMS, so that startAtHorizon's retries stay cheap.
+    if (!(sumMag2 < Number.POSITIVE_INFINITY && termMag2 < Number.POSITIVE_INFINITY)) {
+      truncation2 = Number.NaN;
+      break;
+    }
     scaleMax2 = Math.max(scaleMax2, termMag2);
     truncation2 = termMag2 / sumMag2;
     if (termMag2 <= 1e-34 * sumMag2) {

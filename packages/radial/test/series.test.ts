@@ -8,6 +8,7 @@
 import { describe, expect, it } from 'vitest';
 import { kerrHole } from '@penumbra/kerr';
 import { solveRadial } from '@penumbra/radial';
+import { ConvergenceError } from '@penumbra/core';
 import { evaluateFar, farSeries, horizonSeriesStart } from '@penumbra/radial/internal';
 
 const modes = [
@@ -71,5 +72,23 @@ describe('horizon Frobenius series', () => {
     const x = 1e-6 * b;
     const st = horizonSeriesStart(hole, { s: 2, m: 1, omega: 0.4, lambda: 1.3 }, x);
     expect(Math.abs(Math.hypot(...st.R) * (x * b) ** 2 - 1)).toBeLessThan(1e-5);
+  });
+  // Near extremality (a = 0.99999, Mω = 30, m = −2) the coefficients swell past
+  // the double range at the wide default start, and the start moves inward.
+  // Property (common practice, no source): an overflowed sum is refused at the
+  // overflow, not after the full 600 terms.
+  it('refuses an overflowed sum at once with a ConvergenceError', () => {
+    const hole = kerrHole({ a: 0.99999 });
+    const b = hole.rPlus - hole.rMinus;
+    const mode = { s: 0, m: -2, omega: 30, lambda: 297 };
+    let caught: unknown;
+    try {
+      horizonSeriesStart(hole, mode, 0.03 * b);
+    } catch (e) {
+      caught = e;
+    }
+    expect(caught).toBeInstanceOf(ConvergenceError);
+    expect((caught as ConvergenceError).diagnostics.steps).toBeLessThan(200);
+    expect(horizonSeriesStart(hole, mode, 5e-4 * b).truncation).toBeLessThan(1e-15);
   });
 });
