@@ -97,7 +97,8 @@ export interface MassiveRateTableSolution extends MassiveRateTable {
  * massless ones (1e-8 at Mμ = 0.7); past the last node ln R is continued
  * linearly (massLoss.ts). Heavier nodes cost minutes each (the radial
  * solves of a massive field slow down as Mμ grows) for nothing but the
- * superradiant tail of holes with a* ≳ 0.9.
+ * superradiant tail of holes with a* ≳ 0.9. (The shipped table has its own,
+ * denser nodes per spin: SHIPPED_GRIDS in scripts/make-massive-rate-table.mjs.)
  */
 export const DEFAULT_FIELD_MASSES: readonly number[] = Object.freeze([0.01, 0.025, 0.05, 0.08, 0.12, 0.17, 0.25, 0.35, 0.5]);
 
