@@ -207,6 +207,7 @@ if (isMainThread && invoked) {
               return;
             }
             results.set(key(r.spin, r.mu, r.a), r.totals);
+            cost.set(key(r.spin, r.mu, r.a), r.seconds);
             appendFileSync(partial, `${JSON.stringify({ ...r, tol })}\n`);
             process.stderr.write(
               `\rmassive rate table: ${results.size}/${total} (${((Date.now() - started) / 1000).toFixed(0)} s)`,
