@@ -41,6 +41,9 @@ const NEWTON_FLOOR = 1e-15;
 /** The Newton matrix is refreshed every REFACTOR iterations (chord steps between). */
 const REFACTOR = 4;
 const ZEROS = new Float64Array(RULE.n + 1);
+/** Newton-matrix slot of each entry of Y: entries (0, 1) and (1, 0) have the same multiplier −c(Y_00 + Y_11). */
+const SLOTS_ONE = Int32Array.of(0);
+const SLOTS_TWO = Int32Array.of(0, 1, 1, 2);
 /**
  * Smallest error asked of one interval: the tail coefficients carry rounding
  * of ~n·1e-16 relative times the size of c (W − Y²) ~ r|Y|, about 1e-13 at r ~ 30.
@@ -93,10 +96,12 @@ export function carryFarSolutions(
   const W = new Float64Array(n1 * NN);
   const Fr = new Float64Array(n1 * NN);
   const Fi = new Float64Array(n1 * NN);
-  // one Newton matrix per entry of Y (then reused per row of Ũ)
-  const Ar = Array.from({ length: NN }, () => new Float64Array(n * n));
-  const Ai = Array.from({ length: NN }, () => new Float64Array(n * n));
-  const piv = Array.from({ length: NN }, () => new Int32Array(n));
+  // one Newton matrix per distinct multiplier of Y (the off-diagonal entries share theirs; then reused per row of Ũ)
+  const slotOf = N === 2 ? SLOTS_TWO : SLOTS_ONE;
+  const slots = N === 2 ? 3 : 1;
+  const Ar = Array.from({ length: slots }, () => new Float64Array(n * n));
+  const Ai = Array.from({ length: slots }, () => new Float64Array(n * n));
+  const piv = Array.from({ length: slots }, () => new Int32Array(n));
   const bRe = new Float64Array(n);
   const bIm = new Float64Array(n);
   const work = new Float64Array(2 * n);
@@ -222,13 +227,14 @@ export function carryFarSolutions(
       if (it % REFACTOR === 0) {
         // entry (i, j) of the Jacobian −c(Yδ + δY) without the off-diagonal Y: −c(Y_ii + Y_jj) (exact for one channel)
         for (let e = 0; e < NN; e++) {
+          if (e > 0 && slotOf[e] === slotOf[e - 1]) continue;
           const a = Math.floor(e / N) * (N + 1);
           const b = (e % N) * (N + 1);
           for (let m = 0; m < n1; m++) {
             gr[m] = -c[m] * (Yr[m * NN + a] + Yr[m * NN + b]);
             gi[m] = -c[m] * (Yi[m * NN + a] + Yi[m * NN + b]);
           }
-          if (!factor(h, gr, gi, e)) return Infinity;
+          if (!factor(h, gr, gi, slotOf[e])) return Infinity;
         }
       }
       let change = 0;
@@ -244,7 +250,8 @@ export function carryFarSolutions(
           bRe[j - 1] = -(Yr[j * NN + e] - Yr[e] - 0.5 * h * sr);
           bIm[j - 1] = -(Yi[j * NN + e] - Yi[e] - 0.5 * h * si);
         }
-        complexLuSolve(Ar[e], Ai[e], n, piv[e], bRe, bIm, work);
+        const slot = slotOf[e];
+        complexLuSolve(Ar[slot], Ai[slot], n, piv[slot], bRe, bIm, work);
         for (let j = 1; j < n1; j++) {
           Yr[j * NN + e] += bRe[j - 1];
           Yi[j * NN + e] += bIm[j - 1];
