@@ -39,7 +39,7 @@ const MAX_NEWTON = 60;
 /** Newton and fixed-point iterations stop when the update is this small relative to the solution. */
 const NEWTON_FLOOR = 1e-15;
 /** The Newton matrix is refreshed every REFACTOR iterations (chord steps between). */
-const REFACTOR = 4;
+const REFACTOR = 3;
 const ZEROS = new Float64Array(RULE.n + 1);
 /** Newton-matrix slot of each entry of Y: entries (0, 1) and (1, 0) have the same multiplier −c(Y_00 + Y_11). */
 const SLOTS_ONE = Int32Array.of(0);
@@ -108,8 +108,9 @@ export function carryFarSolutions(
   const gr = new Float64Array(n1);
   const gi = new Float64Array(n1);
   const psi = new Float64Array(n1);
-  const prevR = new Float64Array(n1 * NN);
-  const prevI = new Float64Array(n1 * NN);
+  // D_i at each node (the quadrature of the diagonal of G), [j·N + i]
+  const Dr = new Float64Array(n1 * N);
+  const Di = new Float64Array(n1 * N);
   {
     // U' = E⁻¹ U, P' = E⁻¹ P (columns: the channels' solutions)
     const U: Complex[] = [];
@@ -262,7 +263,8 @@ export function carryFarSolutions(
       if (!Number.isFinite(change)) return Infinity;
       if (change <= converged * yScale) break;
     }
-    // Ũ: dŨ/dx = G Ũ, G = c (Y − iψ), ψ = Im tr Y / N; the diagonal of G implicit (slot i per row), the rest iterated
+    // Ũ: dŨ/dx = G Ũ, G = c (Y − iψ), ψ = Im tr Y / N. The diagonal of G by quadrature, Ũ = D V with
+    // D_i = exp ∫ G_ii; the off-diagonal rest (small in the eigenbasis) by Picard iteration on V, no matrices to factor
     for (let m = 0; m < n1; m++) {
       let ti = 0;
       for (let i = 0; i < N; i++) ti += Yi[m * NN + i * N + i];
@@ -270,11 +272,20 @@ export function carryFarSolutions(
     }
     for (let i = 0; i < N; i++) {
       const d = i * (N + 1);
-      for (let m = 0; m < n1; m++) {
-        gr[m] = c[m] * Yr[m * NN + d];
-        gi[m] = c[m] * (Yi[m * NN + d] - psi[m]);
+      Dr[i] = 1;
+      Di[i] = 0;
+      for (let j = 1; j < n1; j++) {
+        let sr = 0;
+        let si = 0;
+        for (let m = 0; m < n1; m++) {
+          const s = S[j * n1 + m] * c[m];
+          sr += s * Yr[m * NN + d];
+          si += s * (Yi[m * NN + d] - psi[m]);
+        }
+        const mod = Math.exp(0.5 * h * sr);
+        Dr[j * N + i] = mod * Math.cos(0.5 * h * si);
+        Di[j * N + i] = mod * Math.sin(0.5 * h * si);
       }
-      if (!factor(h, gr, gi, i)) return Infinity;
     }
     for (let j = 1; j < n1; j++) {
       for (let e = 0; e < NN; e++) {
@@ -282,59 +293,73 @@ export function carryFarSolutions(
         Ui[j * NN + e] = Ui[e];
       }
     }
+    // V_j = V_0 + ∫ K V with K_il = c Y_il D_l / D_i (i ≠ l); for one channel V is constant
     let uScale = 0;
-    for (let it = 0; ; it++) {
+    for (let it = 0; N > 1; it++) {
       if (it > MAX_NEWTON) return Infinity;
-      prevR.set(Ur);
-      prevI.set(Ui);
-      // off-diagonal part of c Y applied to Ũ, per node, into Fr/Fi
       for (let m = 0; m < n1; m++) {
         const o = m * NN;
         for (let i = 0; i < N; i++) {
+          // 1 / D_i
+          const qd = Dr[m * N + i] * Dr[m * N + i] + Di[m * N + i] * Di[m * N + i];
+          const ir = Dr[m * N + i] / qd;
+          const ii = -Di[m * N + i] / qd;
           for (let col = 0; col < N; col++) {
             let sr = 0;
             let si = 0;
             for (let l = 0; l < N; l++) {
               if (l === i) continue;
-              const ar = Yr[o + i * N + l];
-              const ai = Yi[o + i * N + l];
-              sr += ar * prevR[o + l * N + col] - ai * prevI[o + l * N + col];
-              si += ar * prevI[o + l * N + col] + ai * prevR[o + l * N + col];
+              // K_il = c Y_il D_l / D_i
+              const yr = Yr[o + i * N + l];
+              const yi = Yi[o + i * N + l];
+              const dr = Dr[m * N + l];
+              const di = Di[m * N + l];
+              const tr = yr * dr - yi * di;
+              const tiv = yr * di + yi * dr;
+              const kr = c[m] * (tr * ir - tiv * ii);
+              const ki = c[m] * (tr * ii + tiv * ir);
+              const vr = Ur[o + l * N + col];
+              const vi = Ui[o + l * N + col];
+              sr += kr * vr - ki * vi;
+              si += kr * vi + ki * vr;
             }
-            Fr[o + i * N + col] = c[m] * sr;
-            Fi[o + i * N + col] = c[m] * si;
+            Fr[o + i * N + col] = sr;
+            Fi[o + i * N + col] = si;
           }
         }
       }
       let change = 0;
       uScale = 0;
-      for (let e = 0; e < NN; e++) {
-        const row = Math.floor(e / N);
-        const d = row * (N + 1);
-        // the diagonal multiplier at node 0 (known Ũ_0) goes to the right-hand side
-        const g0r = c[0] * Yr[d];
-        const g0i = c[0] * (Yi[d] - psi[0]);
-        for (let j = 1; j < n1; j++) {
-          const s0 = 0.5 * h * S[j * n1];
-          let sr = Ur[e] + s0 * (g0r * Ur[e] - g0i * Ui[e]);
-          let si = Ui[e] + s0 * (g0r * Ui[e] + g0i * Ur[e]);
+      for (let j = 1; j < n1; j++) {
+        for (let e = 0; e < NN; e++) {
+          let sr = Ur[e];
+          let si = Ui[e];
           for (let m = 0; m < n1; m++) {
             sr += 0.5 * h * S[j * n1 + m] * Fr[m * NN + e];
             si += 0.5 * h * S[j * n1 + m] * Fi[m * NN + e];
           }
-          bRe[j - 1] = sr;
-          bIm[j - 1] = si;
-        }
-        complexLuSolve(Ar[row], Ai[row], n, piv[row], bRe, bIm, work);
-        for (let j = 1; j < n1; j++) {
-          Ur[j * NN + e] = bRe[j - 1];
-          Ui[j * NN + e] = bIm[j - 1];
-          change = Math.max(change, Math.abs(bRe[j - 1] - prevR[j * NN + e]) + Math.abs(bIm[j - 1] - prevI[j * NN + e]));
-          uScale = Math.max(uScale, Math.abs(bRe[j - 1]) + Math.abs(bIm[j - 1]));
+          change = Math.max(change, Math.abs(sr - Ur[j * NN + e]) + Math.abs(si - Ui[j * NN + e]));
+          uScale = Math.max(uScale, Math.abs(sr) + Math.abs(si));
+          Ur[j * NN + e] = sr;
+          Ui[j * NN + e] = si;
         }
       }
       if (!Number.isFinite(change)) return Infinity;
-      if (N === 1 || change <= converged * uScale) break;
+      if (change <= converged * uScale) break;
+    }
+    // Ũ = D V
+    uScale = 0;
+    for (let j = 1; j < n1; j++) {
+      for (let e = 0; e < NN; e++) {
+        const i = Math.floor(e / N);
+        const dr = Dr[j * N + i];
+        const di = Di[j * N + i];
+        const vr = Ur[j * NN + e];
+        const vi = Ui[j * NN + e];
+        Ur[j * NN + e] = dr * vr - di * vi;
+        Ui[j * NN + e] = dr * vi + di * vr;
+        uScale = Math.max(uScale, Math.abs(Ur[j * NN + e]) + Math.abs(Ui[j * NN + e]));
+      }
     }
     // φ by quadrature: dφ/dx = c (ψ − dS/dr*)
     for (let j = 1; j < n1; j++) {
