@@ -51,7 +51,7 @@ const SLOTS_TWO = Int32Array.of(0, 1, 1, 2);
  */
 export const COLLOCATION_FLOOR = 1e-13;
 /** First interval in x = −ln r. */
-const FIRST_INTERVAL = 0.5;
+const FIRST_INTERVAL = 1.0;
 
 function phaseAt(k: number, eta: number, r: number): number {
   return k * tortoiseFromHorizonDistance(1, r - 2) + eta * Math.log(r);
@@ -241,15 +241,10 @@ export function carryFarSolutions(
       let change = 0;
       yScale = omega;
       for (let e = 0; e < NN; e++) {
+        nodeIntegrals(S, n1, Fr, Fi, NN, e, 0.5 * h, bRe, bIm);
         for (let j = 1; j < n1; j++) {
-          let sr = 0;
-          let si = 0;
-          for (let m = 0; m < n1; m++) {
-            sr += S[j * n1 + m] * Fr[m * NN + e];
-            si += S[j * n1 + m] * Fi[m * NN + e];
-          }
-          bRe[j - 1] = -(Yr[j * NN + e] - Yr[e] - 0.5 * h * sr);
-          bIm[j - 1] = -(Yi[j * NN + e] - Yi[e] - 0.5 * h * si);
+          bRe[j - 1] -= Yr[j * NN + e] - Yr[e];
+          bIm[j - 1] -= Yi[j * NN + e] - Yi[e];
         }
         const slot = slotOf[e];
         complexLuSolve(Ar[slot], Ai[slot], n, piv[slot], bRe, bIm, work);
@@ -330,14 +325,11 @@ export function carryFarSolutions(
       }
       let change = 0;
       uScale = 0;
-      for (let j = 1; j < n1; j++) {
-        for (let e = 0; e < NN; e++) {
-          let sr = Ur[e];
-          let si = Ui[e];
-          for (let m = 0; m < n1; m++) {
-            sr += 0.5 * h * S[j * n1 + m] * Fr[m * NN + e];
-            si += 0.5 * h * S[j * n1 + m] * Fi[m * NN + e];
-          }
+      for (let e = 0; e < NN; e++) {
+        nodeIntegrals(S, n1, Fr, Fi, NN, e, 0.5 * h, bRe, bIm);
+        for (let j = 1; j < n1; j++) {
+          const sr = Ur[e] + bRe[j - 1];
+          const si = Ui[e] + bIm[j - 1];
           change = Math.max(change, Math.abs(sr - Ur[j * NN + e]) + Math.abs(si - Ui[j * NN + e]));
           uScale = Math.max(uScale, Math.abs(sr) + Math.abs(si));
           Ur[j * NN + e] = sr;
@@ -431,7 +423,7 @@ export function carryFarSolutions(
         );
       }
       if (!(err <= 1)) {
-        h = 0.5 * step;
+        h = step * (Number.isFinite(err) ? Math.max(0.3, Math.min(0.7, 0.8 * err ** -0.1)) : 0.5);
         if (!(h > 1e-6)) {
           throw new ConvergenceError(
             'phase-form far zone did not converge',
@@ -449,11 +441,38 @@ export function carryFarSolutions(
       }
       phi[0] = phi[n];
       x = last ? xEnd : x + step;
-      if (!last || step >= h) h = step * (err < 1e-3 ? 2 : err < 0.1 ? 1.3 : 1);
+      if (!last || step >= h) h = step * Math.max(1, Math.min(2, 0.8 * err ** -0.1));
     }
     if (r !== rEnd) samples.push({ r, far: read(r, terms) });
   }
   return { far: read(rEnd, terms), samples, steps, rhsEvaluations };
+}
+
+/** out[j − 1] = scale Σ_m S_jm f[m·stride + e] (re, im) for j = 1 … n: the integrals from node 0 to node j. */
+function nodeIntegrals(
+  S: Float64Array,
+  n1: number,
+  fr: Float64Array,
+  fi: Float64Array,
+  stride: number,
+  e: number,
+  scale: number,
+  outR: Float64Array,
+  outI: Float64Array,
+): void {
+  for (let j = 1; j < n1; j++) {
+    const row = j * n1;
+    let sr = 0;
+    let si = 0;
+    for (let m = 0; m < n1; m++) {
+      const s = S[row + m];
+      const k = m * stride + e;
+      sr += s * fr[k];
+      si += s * fi[k];
+    }
+    outR[j - 1] = scale * sr;
+    outI[j - 1] = scale * si;
+  }
 }
 
 function failure(model: SectorModel, message: string, steps: number, rhsEvaluations: number) {
