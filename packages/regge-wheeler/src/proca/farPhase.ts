@@ -213,12 +213,19 @@ export function carryFarSolutions(
   const interval = (x0: number, h: number): number => {
     setNodes(x0, h);
     riccati(0);
-    // start: Y_j = Y_0 + (x_j − x0) F_0
+    // start: Y_j = Y_0 + (x_j − x0) F_0, but the diagonal's imaginary part follows the local wave number
+    // √(−W_ii) (the WKB phase), which carries most of its variation across the interval
     for (let j = 1; j < n1; j++) {
       const dx = 0.5 * h * (nodes[j] + 1);
       for (let e = 0; e < NN; e++) {
         Yr[j * NN + e] = Yr[e] + dx * Fr[e];
         Yi[j * NN + e] = Yi[e] + dx * Fi[e];
+      }
+      for (let i = 0; i < N; i++) {
+        const d = i * (N + 1);
+        const w0 = W[d];
+        const wj = W[j * NN + d];
+        if (w0 < 0 && wj < 0) Yi[j * NN + d] = Yi[d] + Math.sqrt(-wj) - Math.sqrt(-w0);
       }
     }
     let yScale = omega;
