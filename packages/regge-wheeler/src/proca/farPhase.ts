@@ -85,32 +85,9 @@ export function carryFarSolutions(
   const q1 = similar(model.qCoeffs[1] ?? new Array<number>(NN).fill(0));
   const { n, nodes, S, C } = RULE;
   const n1 = n + 1;
-  // Y, Ũ (complex, per node per entry at [j·NN + e]) and φ (real, per node)
-  const Yr = new Float64Array(n1 * NN);
-  const Yi = new Float64Array(n1 * NN);
-  const Ur = new Float64Array(n1 * NN);
-  const Ui = new Float64Array(n1 * NN);
-  const phi = new Float64Array(n1);
-  const c = new Float64Array(n1);
-  const dS = new Float64Array(n1);
-  const W = new Float64Array(n1 * NN);
-  const Fr = new Float64Array(n1 * NN);
-  const Fi = new Float64Array(n1 * NN);
-  // one Newton matrix per distinct multiplier of Y (the off-diagonal entries share theirs; then reused per row of Ũ)
+  // Y, Ũ (complex, per node per entry at [j·NN + e]), φ (real, per node) and the Newton matrices: reused across calls
+  const { Yr, Yi, Ur, Ui, phi, c, dS, W, Fr, Fi, Ar, Ai, piv, bRe, bIm, work, gr, gi, psi, Dr, Di } = workspace(N);
   const slotOf = N === 2 ? SLOTS_TWO : SLOTS_ONE;
-  const slots = N === 2 ? 3 : 1;
-  const Ar = Array.from({ length: slots }, () => new Float64Array(n * n));
-  const Ai = Array.from({ length: slots }, () => new Float64Array(n * n));
-  const piv = Array.from({ length: slots }, () => new Int32Array(n));
-  const bRe = new Float64Array(n);
-  const bIm = new Float64Array(n);
-  const work = new Float64Array(2 * n);
-  const gr = new Float64Array(n1);
-  const gi = new Float64Array(n1);
-  const psi = new Float64Array(n1);
-  // D_i at each node (the quadrature of the diagonal of G), [j·N + i]
-  const Dr = new Float64Array(n1 * N);
-  const Di = new Float64Array(n1 * N);
   {
     // U' = E⁻¹ U, P' = E⁻¹ P (columns: the channels' solutions)
     const U: Complex[] = [];
@@ -480,6 +457,70 @@ function nodeIntegrals(
     outR[j - 1] = scale * sr;
     outI[j - 1] = scale * si;
   }
+}
+
+/** The buffers of one carry (every entry is written before it is read). */
+interface Workspace {
+  Yr: Float64Array;
+  Yi: Float64Array;
+  Ur: Float64Array;
+  Ui: Float64Array;
+  phi: Float64Array;
+  c: Float64Array;
+  dS: Float64Array;
+  W: Float64Array;
+  Fr: Float64Array;
+  Fi: Float64Array;
+  /** one Newton matrix per distinct multiplier of Y (the off-diagonal entries share theirs; then reused per row of Ũ) */
+  Ar: Float64Array[];
+  Ai: Float64Array[];
+  piv: Int32Array[];
+  bRe: Float64Array;
+  bIm: Float64Array;
+  work: Float64Array;
+  gr: Float64Array;
+  gi: Float64Array;
+  psi: Float64Array;
+  /** D_i at each node (the quadrature of the diagonal of G), [j·N + i] */
+  Dr: Float64Array;
+  Di: Float64Array;
+}
+
+/** Per channel count: carries run one at a time and never nest, so one set each serves every call. */
+const WORKSPACES: Array<Workspace | undefined> = [];
+
+function workspace(N: number): Workspace {
+  const cached = WORKSPACES[N];
+  if (cached) return cached;
+  const { n } = RULE;
+  const n1 = n + 1;
+  const NN = N * N;
+  const slots = N === 2 ? 3 : 1;
+  const made: Workspace = {
+    Yr: new Float64Array(n1 * NN),
+    Yi: new Float64Array(n1 * NN),
+    Ur: new Float64Array(n1 * NN),
+    Ui: new Float64Array(n1 * NN),
+    phi: new Float64Array(n1),
+    c: new Float64Array(n1),
+    dS: new Float64Array(n1),
+    W: new Float64Array(n1 * NN),
+    Fr: new Float64Array(n1 * NN),
+    Fi: new Float64Array(n1 * NN),
+    Ar: Array.from({ length: slots }, () => new Float64Array(n * n)),
+    Ai: Array.from({ length: slots }, () => new Float64Array(n * n)),
+    piv: Array.from({ length: slots }, () => new Int32Array(n)),
+    bRe: new Float64Array(n),
+    bIm: new Float64Array(n),
+    work: new Float64Array(2 * n),
+    gr: new Float64Array(n1),
+    gi: new Float64Array(n1),
+    psi: new Float64Array(n1),
+    Dr: new Float64Array(n1 * N),
+    Di: new Float64Array(n1 * N),
+  };
+  WORKSPACES[N] = made;
+  return made;
 }
 
 function failure(model: SectorModel, message: string, steps: number, rhsEvaluations: number) {
