@@ -125,8 +125,9 @@ console.log(
 for (const [name, keep] of [
   ['even sector', (r) => r.polarization.startsWith('even')],
   ['odd + monopole', (r) => !r.polarization.startsWith('even')],
-  ['v ≤ 0.14', (r) => r.v <= 0.14],
-  ['even, v ≤ 0.14', (r) => r.polarization.startsWith('even') && r.v <= 0.14],
+  ['v ≤ 0.141', (r) => r.v < 0.15],
+  ['even, v ≤ 0.141', (r) => r.polarization.startsWith('even') && r.v < 0.15],
+  ['v = 0.051', (r) => r.v < 0.06],
 ]) {
   const kept = records.filter(keep);
   const b = kept.map((r) => r.ratioBefore);

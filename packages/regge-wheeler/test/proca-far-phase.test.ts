@@ -28,7 +28,7 @@ describe('Proca far zone carried in phase form (near threshold)', () => {
     '%s l = %i, Mω = %f, Mμ = %f: Γ agrees with the direct far start to 1e-10, at an inner matching radius',
     (sector, l, omega, mu) => {
       const model = sectorModel(sector, l, omega, mu);
-      // the default route: past 20 rad of far-zone phase every one-channel mode takes the phase form
+      // the default route: past 40 rad of far-zone phase (all four modes here) it takes the phase form
       const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12 });
       const direct = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: false });
       expect(carried.phaseSteps).toBeGreaterThan(0);
@@ -51,7 +51,7 @@ describe('Proca far zone carried in phase form (near threshold)', () => {
     },
   );
 
-  it('even sector below the phase it pays for (l = 1, Mω = 0.3, v = 0.3: ~17 rad) keeps the direct route', () => {
+  it('below the phase it pays for (even l = 1, Mω = 0.3, v = 0.3: ~17 rad) the direct route is kept', () => {
     const model = sectorModel('even', 1, 0.3, 0.3 * Math.sqrt(1 - 0.09));
     const run = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-11 });
     expect(run.phaseSteps).toBe(0);

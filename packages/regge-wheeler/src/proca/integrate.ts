@@ -31,7 +31,7 @@ export interface ProcaIntegrationControls {
   /**
    * where the far solutions, carried inward in phase form from where their
    * series converges (farPhase.ts), meet the horizon integration: absent,
-   * defaultPhaseRadius where that pays (PHASE_GAIN by channel count); a radius, there whenever
+   * defaultPhaseRadius where that pays (PHASE_GAIN); a radius, there whenever
    * the series starts beyond it; false: match where the series converges.
    * Step tolerances below COLLOCATION_FLOOR, and a collocation that fails,
    * take the direct route.
@@ -86,14 +86,14 @@ const MAX_MATCH_MOVES = 60;
 
 /**
  * Carry the far solutions inward only when the phase the direct route would
- * cross between the two radii exceeds this (radians), per channel count:
- * measured (bench/proca-far-phase.bench.mjs, CPU per integration at step
- * tolerance 1e-11) one channel pays from ~20 rad (odd l = 1, Mω = 0.3,
- * v = 0.14: 23 rad, 0.88 of the direct route; monopole 33 rad, 0.74); the
- * two-channel even sector from ~35 rad (l = 1, Mω = 0.3: 23 rad 1.08,
- * 48 rad 0.94; l = 3, Mω = 1.5, v = 0.3: 26 rad 1.05, v = 0.14: 60 rad 0.87).
+ * cross between the two radii exceeds this (radians), for one channel and
+ * for the two-channel even sector alike: measured at tol 1e-8 (greybody,
+ * interleaved CPU against the direct route, bench/proca-speed.bench.mjs) it
+ * was slower at 23 rad (odd l = 1, Mω = 0.3, v = 0.14: 1.17×) and 33 rad
+ * (monopole: 1.28×), faster from 46 rad on (odd l = 2, Mω = 0.8, v = 0.14:
+ * 0.78×; even l = 2 there: 0.87×; even l = 1, Mω = 0.3, v = 0.05, 48 rad: 0.84×).
  */
-const PHASE_GAIN = [0, 20, 35];
+const PHASE_GAIN = 40;
 
 /**
  * The phase ∫ √(k∞² + 2μ²/r) dr between r1 < r2: the far-zone wave number with
@@ -171,7 +171,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   const inner = controls.phaseRadius === false ? Infinity : Math.max(2 * r0, controls.phaseRadius ?? defaultPhaseRadius(model));
   const wanted =
     controls.phaseRadius === undefined
-      ? inner < farStartRadius && farZonePhase(model, inner, farStartRadius) > PHASE_GAIN[N]
+      ? inner < farStartRadius && farZonePhase(model, inner, farStartRadius) > PHASE_GAIN
       : inner < farStartRadius;
   if (wanted && controls.stepTolerance >= COLLOCATION_FLOOR) {
     try {
