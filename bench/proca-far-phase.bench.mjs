@@ -4,9 +4,13 @@
 // (interleaved, best of 7 batches) and the difference of Γ, at step tolerance 1e-11, for one
 // channel (odd, monopole) and for the two-channel even sector (all forced: the default carries only one
 // channel, and only past PHASE_GAIN rad of far-zone phase, printed as "phase").
+// With PROCA_BASELINE=<another built checkout>, that checkout's phase form is timed too (interleaved).
 // Run after `npm run build`: node bench/proca-far-phase.bench.mjs
 import { defaultPhaseRadius, farZonePhase, integrateProca, sectorModel } from '@penumbra/regge-wheeler/internal';
 import { fmt, table } from './lib.mjs';
+
+const baselineDir = process.env.PROCA_BASELINE;
+const baseline = baselineDir ? await import(`${baselineDir}/packages/regge-wheeler/dist/internal.js`) : undefined;
 
 const best = (f) => {
   let b = Infinity;
@@ -39,7 +43,15 @@ for (const [sector, l, omega] of [
     const direct = { ...controls, phaseRadius: false };
     const a = integrateProca(model, forced);
     const b = integrateProca(model, direct);
+    const baseModel = baseline?.sectorModel(sector, l, omega, omega * Math.sqrt(1 - v * v));
+    // warm the JIT on every route first (the collocation code is compiled late)
+    for (let i = 0; i < 150; i++) {
+      integrateProca(model, forced);
+      integrateProca(model, direct);
+      baseline?.integrateProca(baseModel, forced);
+    }
     const [ta, tb] = [best(() => integrateProca(model, forced)), best(() => integrateProca(model, direct))];
+    const tc = baseline ? best(() => baseline.integrateProca(baseModel, forced)) : Number.NaN;
     rows.push([
       sector,
       l,
@@ -54,6 +66,8 @@ for (const [sector, l, omega] of [
       fmt(ta, 3),
       fmt(ta / tb, 2),
       fmt(Math.abs(a.gammas[0] / b.gammas[0] - 1), 2),
+      fmt(tc, 3),
+      fmt(ta / tc, 2),
     ]);
   }
 }
@@ -72,6 +86,8 @@ console.log(
       'ms phase',
       'phase/direct',
       '|ΔΓ|/Γ',
+      'ms phase baseline',
+      'phase/baseline',
     ],
     rows,
   ),

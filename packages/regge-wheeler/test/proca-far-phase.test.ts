@@ -23,13 +23,13 @@ const EVEN: Array<[number, number, number]> = [
   [3, 1.5, 1.4981],
 ];
 
-describe('Proca far zone carried in phase form (one channel, near threshold)', () => {
+describe('Proca far zone carried in phase form (near threshold)', () => {
   it.each(MODES)(
     '%s l = %i, Mω = %f, Mμ = %f: Γ agrees with the direct far start to 1e-10, at an inner matching radius',
     (sector, l, omega, mu) => {
       const model = sectorModel(sector, l, omega, mu);
-      // forced to the phase form (the monopole's default keeps the direct route: too little far-zone phase to pay)
-      const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: defaultPhaseRadius(model) });
+      // the default route: past 40 rad of far-zone phase (all four modes here) it takes the phase form
+      const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12 });
       const direct = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: false });
       expect(carried.phaseSteps).toBeGreaterThan(0);
       expect(carried.matchRadius).toBeLessThan(carried.farStartRadius / 10);
@@ -39,15 +39,24 @@ describe('Proca far zone carried in phase form (one channel, near threshold)', (
   );
 
   it.each(EVEN)(
-    'even l = %i, Mω = %f, Mμ = %f (forced: not the default there): both Γ of the sector agree with the direct far start to 1e-10',
+    'even l = %i, Mω = %f, Mμ = %f (default route, two channels): both Γ of the sector agree with the direct far start to 1e-10',
     (l, omega, mu) => {
       const model = sectorModel('even', l, omega, mu);
-      const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: defaultPhaseRadius(model) });
+      const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12 });
       const direct = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: false });
       expect(carried.phaseSteps).toBeGreaterThan(0);
+      expect(carried.matchRadius).toBeCloseTo(defaultPhaseRadius(model), 9);
       for (const i of [0, 1]) expect(Math.abs(carried.gammas[i] / direct.gammas[i] - 1)).toBeLessThan(1e-10);
+      expect(carried.residual).toBeLessThan(1e-10);
     },
   );
+
+  it('below the phase it pays for (even l = 1, Mω = 0.3, v = 0.3: ~17 rad) the direct route is kept', () => {
+    const model = sectorModel('even', 1, 0.3, 0.3 * Math.sqrt(1 - 0.09));
+    const run = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-11 });
+    expect(run.phaseSteps).toBe(0);
+    expect(run.matchRadius).toBe(run.farStartRadius);
+  });
 
   it('the solution sampled inside the carried zone keeps its flux to 1e-9 (odd l = 2, Mω = 0.8, Mμ = 0.799, tol 1e-8: step tolerances above the collocation floor)', () => {
     const radii = [3, 20, 60, 200, 600, 1200, 3000];

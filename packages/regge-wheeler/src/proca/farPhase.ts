@@ -39,8 +39,11 @@ const MAX_NEWTON = 60;
 /** Newton and fixed-point iterations stop when the update is this small relative to the solution. */
 const NEWTON_FLOOR = 1e-15;
 /** The Newton matrix is refreshed every REFACTOR iterations (chord steps between). */
-const REFACTOR = 4;
+const REFACTOR = 3;
 const ZEROS = new Float64Array(RULE.n + 1);
+/** Newton-matrix slot of each entry of Y: entries (0, 1) and (1, 0) have the same multiplier −c(Y_00 + Y_11). */
+const SLOTS_ONE = Int32Array.of(0);
+const SLOTS_TWO = Int32Array.of(0, 1, 1, 2);
 /**
  * Smallest error asked of one interval: the tail coefficients carry rounding
  * of ~n·1e-16 relative times the size of c (W − Y²) ~ r|Y|, about 1e-13 at r ~ 30.
@@ -48,7 +51,7 @@ const ZEROS = new Float64Array(RULE.n + 1);
  */
 export const COLLOCATION_FLOOR = 1e-13;
 /** First interval in x = −ln r. */
-const FIRST_INTERVAL = 0.5;
+const FIRST_INTERVAL = 1.0;
 
 function phaseAt(k: number, eta: number, r: number): number {
   return k * tortoiseFromHorizonDistance(1, r - 2) + eta * Math.log(r);
@@ -82,29 +85,9 @@ export function carryFarSolutions(
   const q1 = similar(model.qCoeffs[1] ?? new Array<number>(NN).fill(0));
   const { n, nodes, S, C } = RULE;
   const n1 = n + 1;
-  // Y, Ũ (complex, per node per entry at [j·NN + e]) and φ (real, per node)
-  const Yr = new Float64Array(n1 * NN);
-  const Yi = new Float64Array(n1 * NN);
-  const Ur = new Float64Array(n1 * NN);
-  const Ui = new Float64Array(n1 * NN);
-  const phi = new Float64Array(n1);
-  const c = new Float64Array(n1);
-  const dS = new Float64Array(n1);
-  const W = new Float64Array(n1 * NN);
-  const Fr = new Float64Array(n1 * NN);
-  const Fi = new Float64Array(n1 * NN);
-  // one Newton matrix per entry of Y (then reused per row of Ũ)
-  const Ar = Array.from({ length: NN }, () => new Float64Array(n * n));
-  const Ai = Array.from({ length: NN }, () => new Float64Array(n * n));
-  const piv = Array.from({ length: NN }, () => new Int32Array(n));
-  const bRe = new Float64Array(n);
-  const bIm = new Float64Array(n);
-  const work = new Float64Array(2 * n);
-  const gr = new Float64Array(n1);
-  const gi = new Float64Array(n1);
-  const psi = new Float64Array(n1);
-  const prevR = new Float64Array(n1 * NN);
-  const prevI = new Float64Array(n1 * NN);
+  // Y, Ũ (complex, per node per entry at [j·NN + e]), φ (real, per node) and the Newton matrices: reused across calls
+  const { Yr, Yi, Ur, Ui, phi, c, dS, W, Fr, Fi, Ar, Ai, piv, bRe, bIm, work, gr, gi, psi, Dr, Di } = workspace(N);
+  const slotOf = N === 2 ? SLOTS_TWO : SLOTS_ONE;
   {
     // U' = E⁻¹ U, P' = E⁻¹ P (columns: the channels' solutions)
     const U: Complex[] = [];
@@ -207,12 +190,19 @@ export function carryFarSolutions(
   const interval = (x0: number, h: number): number => {
     setNodes(x0, h);
     riccati(0);
-    // start: Y_j = Y_0 + (x_j − x0) F_0
+    // start: Y_j = Y_0 + (x_j − x0) F_0, but the diagonal's imaginary part follows the local wave number
+    // √(−W_ii) (the WKB phase), which carries most of its variation across the interval
     for (let j = 1; j < n1; j++) {
       const dx = 0.5 * h * (nodes[j] + 1);
       for (let e = 0; e < NN; e++) {
         Yr[j * NN + e] = Yr[e] + dx * Fr[e];
         Yi[j * NN + e] = Yi[e] + dx * Fi[e];
+      }
+      for (let i = 0; i < N; i++) {
+        const d = i * (N + 1);
+        const w0 = W[d];
+        const wj = W[j * NN + d];
+        if (w0 < 0 && wj < 0) Yi[j * NN + d] = Yi[d] + Math.sqrt(-wj) - Math.sqrt(-w0);
       }
     }
     let yScale = omega;
@@ -222,29 +212,26 @@ export function carryFarSolutions(
       if (it % REFACTOR === 0) {
         // entry (i, j) of the Jacobian −c(Yδ + δY) without the off-diagonal Y: −c(Y_ii + Y_jj) (exact for one channel)
         for (let e = 0; e < NN; e++) {
+          if (e > 0 && slotOf[e] === slotOf[e - 1]) continue;
           const a = Math.floor(e / N) * (N + 1);
           const b = (e % N) * (N + 1);
           for (let m = 0; m < n1; m++) {
             gr[m] = -c[m] * (Yr[m * NN + a] + Yr[m * NN + b]);
             gi[m] = -c[m] * (Yi[m * NN + a] + Yi[m * NN + b]);
           }
-          if (!factor(h, gr, gi, e)) return Infinity;
+          if (!factor(h, gr, gi, slotOf[e])) return Infinity;
         }
       }
       let change = 0;
       yScale = omega;
       for (let e = 0; e < NN; e++) {
+        nodeIntegrals(S, n1, Fr, Fi, NN, e, 0.5 * h, bRe, bIm);
         for (let j = 1; j < n1; j++) {
-          let sr = 0;
-          let si = 0;
-          for (let m = 0; m < n1; m++) {
-            sr += S[j * n1 + m] * Fr[m * NN + e];
-            si += S[j * n1 + m] * Fi[m * NN + e];
-          }
-          bRe[j - 1] = -(Yr[j * NN + e] - Yr[e] - 0.5 * h * sr);
-          bIm[j - 1] = -(Yi[j * NN + e] - Yi[e] - 0.5 * h * si);
+          bRe[j - 1] -= Yr[j * NN + e] - Yr[e];
+          bIm[j - 1] -= Yi[j * NN + e] - Yi[e];
         }
-        complexLuSolve(Ar[e], Ai[e], n, piv[e], bRe, bIm, work);
+        const slot = slotOf[e];
+        complexLuSolve(Ar[slot], Ai[slot], n, piv[slot], bRe, bIm, work);
         for (let j = 1; j < n1; j++) {
           Yr[j * NN + e] += bRe[j - 1];
           Yi[j * NN + e] += bIm[j - 1];
@@ -255,7 +242,8 @@ export function carryFarSolutions(
       if (!Number.isFinite(change)) return Infinity;
       if (change <= converged * yScale) break;
     }
-    // Ũ: dŨ/dx = G Ũ, G = c (Y − iψ), ψ = Im tr Y / N; the diagonal of G implicit (slot i per row), the rest iterated
+    // Ũ: dŨ/dx = G Ũ, G = c (Y − iψ), ψ = Im tr Y / N. The diagonal of G by quadrature, Ũ = D V with
+    // D_i = exp ∫ G_ii; the off-diagonal rest (small in the eigenbasis) by Picard iteration on V, no matrices to factor
     for (let m = 0; m < n1; m++) {
       let ti = 0;
       for (let i = 0; i < N; i++) ti += Yi[m * NN + i * N + i];
@@ -263,11 +251,20 @@ export function carryFarSolutions(
     }
     for (let i = 0; i < N; i++) {
       const d = i * (N + 1);
-      for (let m = 0; m < n1; m++) {
-        gr[m] = c[m] * Yr[m * NN + d];
-        gi[m] = c[m] * (Yi[m * NN + d] - psi[m]);
+      Dr[i] = 1;
+      Di[i] = 0;
+      for (let j = 1; j < n1; j++) {
+        let sr = 0;
+        let si = 0;
+        for (let m = 0; m < n1; m++) {
+          const s = S[j * n1 + m] * c[m];
+          sr += s * Yr[m * NN + d];
+          si += s * (Yi[m * NN + d] - psi[m]);
+        }
+        const mod = Math.exp(0.5 * h * sr);
+        Dr[j * N + i] = mod * Math.cos(0.5 * h * si);
+        Di[j * N + i] = mod * Math.sin(0.5 * h * si);
       }
-      if (!factor(h, gr, gi, i)) return Infinity;
     }
     for (let j = 1; j < n1; j++) {
       for (let e = 0; e < NN; e++) {
@@ -275,59 +272,70 @@ export function carryFarSolutions(
         Ui[j * NN + e] = Ui[e];
       }
     }
+    // V_j = V_0 + ∫ K V with K_il = c Y_il D_l / D_i (i ≠ l); for one channel V is constant
     let uScale = 0;
-    for (let it = 0; ; it++) {
+    for (let it = 0; N > 1; it++) {
       if (it > MAX_NEWTON) return Infinity;
-      prevR.set(Ur);
-      prevI.set(Ui);
-      // off-diagonal part of c Y applied to Ũ, per node, into Fr/Fi
       for (let m = 0; m < n1; m++) {
         const o = m * NN;
         for (let i = 0; i < N; i++) {
+          // 1 / D_i
+          const qd = Dr[m * N + i] * Dr[m * N + i] + Di[m * N + i] * Di[m * N + i];
+          const ir = Dr[m * N + i] / qd;
+          const ii = -Di[m * N + i] / qd;
           for (let col = 0; col < N; col++) {
             let sr = 0;
             let si = 0;
             for (let l = 0; l < N; l++) {
               if (l === i) continue;
-              const ar = Yr[o + i * N + l];
-              const ai = Yi[o + i * N + l];
-              sr += ar * prevR[o + l * N + col] - ai * prevI[o + l * N + col];
-              si += ar * prevI[o + l * N + col] + ai * prevR[o + l * N + col];
+              // K_il = c Y_il D_l / D_i
+              const yr = Yr[o + i * N + l];
+              const yi = Yi[o + i * N + l];
+              const dr = Dr[m * N + l];
+              const di = Di[m * N + l];
+              const tr = yr * dr - yi * di;
+              const tiv = yr * di + yi * dr;
+              const kr = c[m] * (tr * ir - tiv * ii);
+              const ki = c[m] * (tr * ii + tiv * ir);
+              const vr = Ur[o + l * N + col];
+              const vi = Ui[o + l * N + col];
+              sr += kr * vr - ki * vi;
+              si += kr * vi + ki * vr;
             }
-            Fr[o + i * N + col] = c[m] * sr;
-            Fi[o + i * N + col] = c[m] * si;
+            Fr[o + i * N + col] = sr;
+            Fi[o + i * N + col] = si;
           }
         }
       }
       let change = 0;
       uScale = 0;
       for (let e = 0; e < NN; e++) {
-        const row = Math.floor(e / N);
-        const d = row * (N + 1);
-        // the diagonal multiplier at node 0 (known Ũ_0) goes to the right-hand side
-        const g0r = c[0] * Yr[d];
-        const g0i = c[0] * (Yi[d] - psi[0]);
+        nodeIntegrals(S, n1, Fr, Fi, NN, e, 0.5 * h, bRe, bIm);
         for (let j = 1; j < n1; j++) {
-          const s0 = 0.5 * h * S[j * n1];
-          let sr = Ur[e] + s0 * (g0r * Ur[e] - g0i * Ui[e]);
-          let si = Ui[e] + s0 * (g0r * Ui[e] + g0i * Ur[e]);
-          for (let m = 0; m < n1; m++) {
-            sr += 0.5 * h * S[j * n1 + m] * Fr[m * NN + e];
-            si += 0.5 * h * S[j * n1 + m] * Fi[m * NN + e];
-          }
-          bRe[j - 1] = sr;
-          bIm[j - 1] = si;
-        }
-        complexLuSolve(Ar[row], Ai[row], n, piv[row], bRe, bIm, work);
-        for (let j = 1; j < n1; j++) {
-          Ur[j * NN + e] = bRe[j - 1];
-          Ui[j * NN + e] = bIm[j - 1];
-          change = Math.max(change, Math.abs(bRe[j - 1] - prevR[j * NN + e]) + Math.abs(bIm[j - 1] - prevI[j * NN + e]));
-          uScale = Math.max(uScale, Math.abs(bRe[j - 1]) + Math.abs(bIm[j - 1]));
+          const sr = Ur[e] + bRe[j - 1];
+          const si = Ui[e] + bIm[j - 1];
+          change = Math.max(change, Math.abs(sr - Ur[j * NN + e]) + Math.abs(si - Ui[j * NN + e]));
+          uScale = Math.max(uScale, Math.abs(sr) + Math.abs(si));
+          Ur[j * NN + e] = sr;
+          Ui[j * NN + e] = si;
         }
       }
       if (!Number.isFinite(change)) return Infinity;
-      if (N === 1 || change <= converged * uScale) break;
+      if (change <= converged * uScale) break;
+    }
+    // Ũ = D V
+    uScale = 0;
+    for (let j = 1; j < n1; j++) {
+      for (let e = 0; e < NN; e++) {
+        const i = Math.floor(e / N);
+        const dr = Dr[j * N + i];
+        const di = Di[j * N + i];
+        const vr = Ur[j * NN + e];
+        const vi = Ui[j * NN + e];
+        Ur[j * NN + e] = dr * vr - di * vi;
+        Ui[j * NN + e] = dr * vi + di * vr;
+        uScale = Math.max(uScale, Math.abs(Ur[j * NN + e]) + Math.abs(Ui[j * NN + e]));
+      }
     }
     // φ by quadrature: dφ/dx = c (ψ − dS/dr*)
     for (let j = 1; j < n1; j++) {
@@ -399,7 +407,7 @@ export function carryFarSolutions(
         );
       }
       if (!(err <= 1)) {
-        h = 0.5 * step;
+        h = step * (Number.isFinite(err) ? Math.max(0.3, Math.min(0.7, 0.8 * err ** -0.1)) : 0.5);
         if (!(h > 1e-6)) {
           throw new ConvergenceError(
             'phase-form far zone did not converge',
@@ -417,11 +425,102 @@ export function carryFarSolutions(
       }
       phi[0] = phi[n];
       x = last ? xEnd : x + step;
-      if (!last || step >= h) h = step * (err < 1e-3 ? 2 : err < 0.1 ? 1.3 : 1);
+      if (!last || step >= h) h = step * Math.max(1, Math.min(2, 0.8 * err ** -0.1));
     }
     if (r !== rEnd) samples.push({ r, far: read(r, terms) });
   }
   return { far: read(rEnd, terms), samples, steps, rhsEvaluations };
+}
+
+/** out[j − 1] = scale Σ_m S_jm f[m·stride + e] (re, im) for j = 1 … n: the integrals from node 0 to node j. */
+function nodeIntegrals(
+  S: Float64Array,
+  n1: number,
+  fr: Float64Array,
+  fi: Float64Array,
+  stride: number,
+  e: number,
+  scale: number,
+  outR: Float64Array,
+  outI: Float64Array,
+): void {
+  for (let j = 1; j < n1; j++) {
+    const row = j * n1;
+    let sr = 0;
+    let si = 0;
+    for (let m = 0; m < n1; m++) {
+      const s = S[row + m];
+      const k = m * stride + e;
+      sr += s * fr[k];
+      si += s * fi[k];
+    }
+    outR[j - 1] = scale * sr;
+    outI[j - 1] = scale * si;
+  }
+}
+
+/** The buffers of one carry (every entry is written before it is read). */
+interface Workspace {
+  Yr: Float64Array;
+  Yi: Float64Array;
+  Ur: Float64Array;
+  Ui: Float64Array;
+  phi: Float64Array;
+  c: Float64Array;
+  dS: Float64Array;
+  W: Float64Array;
+  Fr: Float64Array;
+  Fi: Float64Array;
+  /** one Newton matrix per distinct multiplier of Y (the off-diagonal entries share theirs; then reused per row of Ũ) */
+  Ar: Float64Array[];
+  Ai: Float64Array[];
+  piv: Int32Array[];
+  bRe: Float64Array;
+  bIm: Float64Array;
+  work: Float64Array;
+  gr: Float64Array;
+  gi: Float64Array;
+  psi: Float64Array;
+  /** D_i at each node (the quadrature of the diagonal of G), [j·N + i] */
+  Dr: Float64Array;
+  Di: Float64Array;
+}
+
+/** Per channel count: carries run one at a time and never nest, so one set each serves every call. */
+const WORKSPACES: Array<Workspace | undefined> = [];
+
+function workspace(N: number): Workspace {
+  const cached = WORKSPACES[N];
+  if (cached) return cached;
+  const { n } = RULE;
+  const n1 = n + 1;
+  const NN = N * N;
+  const slots = N === 2 ? 3 : 1;
+  const made: Workspace = {
+    Yr: new Float64Array(n1 * NN),
+    Yi: new Float64Array(n1 * NN),
+    Ur: new Float64Array(n1 * NN),
+    Ui: new Float64Array(n1 * NN),
+    phi: new Float64Array(n1),
+    c: new Float64Array(n1),
+    dS: new Float64Array(n1),
+    W: new Float64Array(n1 * NN),
+    Fr: new Float64Array(n1 * NN),
+    Fi: new Float64Array(n1 * NN),
+    Ar: Array.from({ length: slots }, () => new Float64Array(n * n)),
+    Ai: Array.from({ length: slots }, () => new Float64Array(n * n)),
+    piv: Array.from({ length: slots }, () => new Int32Array(n)),
+    bRe: new Float64Array(n),
+    bIm: new Float64Array(n),
+    work: new Float64Array(2 * n),
+    gr: new Float64Array(n1),
+    gi: new Float64Array(n1),
+    psi: new Float64Array(n1),
+    Dr: new Float64Array(n1 * N),
+    Di: new Float64Array(n1 * N),
+  };
+  WORKSPACES[N] = made;
+  return made;
 }
 
 function failure(model: SectorModel, message: string, steps: number, rhsEvaluations: number) {

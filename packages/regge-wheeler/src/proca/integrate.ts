@@ -31,7 +31,7 @@ export interface ProcaIntegrationControls {
   /**
    * where the far solutions, carried inward in phase form from where their
    * series converges (farPhase.ts), meet the horizon integration: absent,
-   * defaultPhaseRadius where that pays (one channel, PHASE_GAIN); a radius, there whenever
+   * defaultPhaseRadius where that pays (PHASE_GAIN); a radius, there whenever
    * the series starts beyond it; false: match where the series converges.
    * Step tolerances below COLLOCATION_FLOOR, and a collocation that fails,
    * take the direct route.
@@ -85,16 +85,15 @@ const MATCH_GROWTH = 1.5;
 const MAX_MATCH_MOVES = 60;
 
 /**
- * Carry the far solutions inward only for one channel, and only when the
- * phase the direct route would cross between the two radii exceeds this
- * (radians): measured (bench/proca-far-phase.bench.mjs and the interleaved
- * CPU comparison in docs/massive-vector.md) the collocation intervals cost
- * about as much as the extrapolation steps they replace up to 40–50 rad
- * (monopole at Mω = 0.3, v = 0.14: 33 rad, slower; odd l = 2, Mω = 0.8,
- * v = 0.14: 46 rad, faster), and for the two-channel even sector (four Newton
- * matrices per interval) at every phase tried.
+ * Carry the far solutions inward only when the phase the direct route would
+ * cross between the two radii exceeds this (radians), for one channel and
+ * for the two-channel even sector alike: measured at tol 1e-8 (greybody,
+ * interleaved CPU against the direct route, bench/proca-speed.bench.mjs) it
+ * was slower at 23 rad (odd l = 1, Mω = 0.3, v = 0.14: 1.17×) and 33 rad
+ * (monopole: 1.28×), faster from 46 rad on (odd l = 2, Mω = 0.8, v = 0.14:
+ * 0.78×; even l = 2 there: 0.87×; even l = 1, Mω = 0.3, v = 0.05, 48 rad: 0.84×).
  */
-const PHASE_GAIN = 45;
+const PHASE_GAIN = 40;
 
 /**
  * The phase ∫ √(k∞² + 2μ²/r) dr between r1 < r2: the far-zone wave number with
@@ -172,7 +171,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   const inner = controls.phaseRadius === false ? Infinity : Math.max(2 * r0, controls.phaseRadius ?? defaultPhaseRadius(model));
   const wanted =
     controls.phaseRadius === undefined
-      ? N === 1 && inner < farStartRadius && farZonePhase(model, inner, farStartRadius) > PHASE_GAIN
+      ? inner < farStartRadius && farZonePhase(model, inner, farStartRadius) > PHASE_GAIN
       : inner < farStartRadius;
   if (wanted && controls.stepTolerance >= COLLOCATION_FLOOR) {
     try {
