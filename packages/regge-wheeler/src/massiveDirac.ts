@@ -101,7 +101,14 @@ function integrateOnce(p: MassiveDiracMode, stepTol: number, firstMatch: number)
   while (integrator.y[0] < uEnd) {
     integrator.step(Infinity);
     steps++;
-    if (steps > 5e6) throw new Error('step limit');
+    if (steps > 5e6)
+      throw new ConvergenceError('massive Dirac potential integration exceeded its step limit of 5e6 steps', {
+        method: 'massive Dirac potential W² ± dW/dr* (Cash–Karp in ln(r − 2M))',
+        steps,
+        rhsEvaluations: evaluations,
+        errorEstimate: Number.POSITIVE_INFINITY,
+        message: `stopped at r − 2M = ${Math.exp(integrator.y[0]).toPrecision(6)}`,
+      });
   }
   const yy = integrator.y;
   const x = Math.exp(yy[0]);

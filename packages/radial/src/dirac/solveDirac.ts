@@ -152,7 +152,23 @@ export function solveMassiveDiracRadial(p: DiracRadialProblem, options: DiracRad
   let h = Math.min(0.1 * (r - hole.rPlus), 0.1 / omega);
   const advanceTo = (target: number) => {
     while (r < target) {
-      const res = stepper.advance(y, r, target, h, 1e300);
+      let res: ReturnType<typeof stepper.advance>;
+      try {
+        res = stepper.advance(y, r, target, h, 1e300);
+      } catch (e) {
+        // the integrator's own failures (its step limit) are a solve that did not converge, never a bare Error
+        if (e instanceof ConvergenceError) throw e;
+        throw new ConvergenceError(
+          `massive Dirac radial integration failed at r = ${r.toPrecision(6)}: ${(e as Error).message}`,
+          {
+            method: 'massive Dirac radial pair (extrapolation integrator)',
+            steps,
+            rhsEvaluations: evaluations,
+            errorEstimate: Number.POSITIVE_INFINITY,
+            message: `stopped at r = ${r.toPrecision(6)} on the way to ${target.toPrecision(6)}`,
+          },
+        );
+      }
       steps += res.steps;
       if (res.r === r) return;
       r = res.r;
