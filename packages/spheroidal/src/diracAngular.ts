@@ -98,7 +98,8 @@ export function diracAngularEigenvalue(problem: DiracAngularProblem): DiracAngul
       return {
         lambda: next.lambda,
         diagnostics: {
-          method: 'spectral (spin-±1/2 spherical harmonics): Sylvester counts of the symmetric band, bisection then Illinois steps on its determinant',
+          method:
+            'spectral (spin-±1/2 spherical harmonics): Sylvester counts of the symmetric band, bisection then Illinois steps on its determinant',
           steps: attempt,
           rhsEvaluations: evaluations,
           errorEstimate,
