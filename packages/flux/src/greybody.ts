@@ -39,9 +39,9 @@ import {
   singleSolveGammaEstimate,
 } from './errorEstimate.js';
 import { horizonFactor, horizonMapSquared, starobinskyConstantSquared } from './normalisation.js';
-import { isMassiveVector, ownMassiveSolver, ownRadialFunction, requireRadialEquationField } from './massive.js';
+import { ownMassiveSolver, ownRadialFunction, requireRadialEquationField } from './massive.js';
 import type { DiracRadialFunction, MassiveDiracProblem, RadialFunctionOptions } from './radialFunctionDirac.js';
-import { radialFunctionProca, type ProcaRadialFunction } from './radialFunctionProca.js';
+import type { ProcaRadialFunction } from './radialFunctionProca.js';
 import {
   GREYBODY_OPTIONS,
   checkGreybodyOptions,
@@ -406,7 +406,6 @@ export function radialFunction(
   radii: readonly number[],
   options?: Pick<GreybodyOptions, 'tol' | 'integrator' | 'polarization'>,
 ): TeukolskyRadialFunction | ProcaRadialFunction | DiracRadialFunction {
-  if (isMassiveVector(problem)) return radialFunctionProca(problem, radii, options);
   const own = ownRadialFunction(problem);
   if (own) return own(problem, radii, options);
   const p = prepare(checkRadialProblem(problem));

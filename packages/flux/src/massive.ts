@@ -1,7 +1,7 @@
 /**
  * Which massive fields the greybody solver computes, and by which route: one
  * entry per field spin (and for `radialFunction`, the spins sampled by a
- * function of their own: the massive Dirac pair). Spin 0 (Klein–Gordon) runs inside `greybody` itself,
+ * function of their own: the massive Dirac pair and the Proca field). Spin 0 (Klein–Gordon) runs inside `greybody` itself,
  * through the s = 0 radial equation with its −μ²r² term (docs/massive-fields.md).
  * Spins 1/2 (Dirac on Kerr) and 1 (Proca at a = 0) have solvers of their own,
  * called before the common problem check (their modes carry kappaSign, or
@@ -12,7 +12,8 @@ import { InputError, formatFieldSpin, validateField, type FieldSpin } from '@pen
 import type { GreybodySolution } from './greybody.js';
 import { massiveDiracGreybody } from './massiveDirac.js';
 import { massiveVectorGreybody } from './massiveVector.js';
-import { radialFunctionDirac, type DiracRadialFunction, type RadialFunctionOptions } from './radialFunctionDirac.js';
+import { radialFunctionDirac, type DiracRadialFunction } from './radialFunctionDirac.js';
+import { radialFunctionProca, type ProcaRadialFunction } from './radialFunctionProca.js';
 import { checkGreybodyOptions, type CheckedProblem, type GreybodyOptions, type GreybodyProblem } from './validate.js';
 
 /** A massive-field solver of its own: the caller's problem and (unvalidated) options in, the usual solution out. */
@@ -27,11 +28,12 @@ const OWN_SOLVERS: Partial<Record<FieldSpin, MassiveSolver>> = {
 export type MassiveRadialFunction = (
   problem: GreybodyProblem,
   radii: readonly number[],
-  options: RadialFunctionOptions | undefined,
-) => DiracRadialFunction;
+  options: Pick<GreybodyOptions, 'tol' | 'integrator' | 'polarization'> | undefined,
+) => DiracRadialFunction | ProcaRadialFunction;
 
 const OWN_RADIAL_FUNCTIONS: Partial<Record<FieldSpin, MassiveRadialFunction>> = {
   0.5: radialFunctionDirac,
+  1: radialFunctionProca,
 };
 
 /** Massive spins `greybody` computes, for messages. */
@@ -46,7 +48,7 @@ export function ownMassiveSolver(problem: unknown): MassiveSolver | undefined {
   return ownFor(problem, OWN_SOLVERS);
 }
 
-/** As ownMassiveSolver, the `radialFunction` of its own for a massive field of spin 1/2. */
+/** As ownMassiveSolver, the `radialFunction` of its own for a massive field of spin 1/2 (the Dirac pair) or 1 (the Proca field). */
 export function ownRadialFunction(problem: unknown): MassiveRadialFunction | undefined {
   return ownFor(problem, OWN_RADIAL_FUNCTIONS);
 }
@@ -57,16 +59,6 @@ function ownFor<T>(problem: unknown, table: Partial<Record<FieldSpin, T>>): T | 
     return mass > 0 ? table[spin] : undefined;
   } catch {
     return undefined;
-  }
-}
-
-/** Whether the caller's problem names a massive vector (spin 1, mass > 0): `radialFunction` gives it the Proca solution. */
-export function isMassiveVector(problem: unknown): boolean {
-  try {
-    const { spin, mass } = validateField((problem as { mode?: { field?: unknown } } | null)?.mode?.field, 'mode.field');
-    return spin === 1 && mass > 0;
-  } catch {
-    return false;
   }
 }
 
