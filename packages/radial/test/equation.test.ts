@@ -9,6 +9,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import { ConvergenceError } from '@penumbra/core';
 import { kerrHole } from '@penumbra/kerr';
 import {
   cpolyAt,
@@ -145,12 +146,50 @@ describe('the three integrators', () => {
         tol: 1e-12,
         rPlus: -1,
         maxSteps: 10_000,
+        method: 'harmonic test',
+        counter: { evaluations: 0 },
       });
       const y = new Float64Array([1, 0, 0, 1]);
       const res = stepper.advance(y, 0, 2 * Math.PI, 0.01, 1e150);
       expect(res.r).toBe(2 * Math.PI);
       expect(Math.abs(y[0] - 1)).toBeLessThan(1e-9);
       expect(Math.abs(y[2])).toBeLessThan(1e-9);
+    });
+    it(`'${integrator}' past its step limit throws a ConvergenceError with the caller's method, its steps, the evaluation count and the radius reached`, () => {
+      const counter = { evaluations: 0 };
+      const origin = 2;
+      const stepper = makeStepper({
+        integrator,
+        rhs: (dy, y) => {
+          counter.evaluations++;
+          dy[0] = y[2];
+          dy[1] = y[3];
+          dy[2] = -y[0];
+          dy[3] = -y[1];
+        },
+        tol: 1e-12,
+        rPlus: -1,
+        maxSteps: 5,
+        method: 'harmonic test',
+        counter,
+        origin,
+      });
+      let thrown: unknown;
+      try {
+        stepper.advance(new Float64Array([1, 0, 0, 1]), 0, 1000, 0.01, 1e150);
+      } catch (e) {
+        thrown = e;
+      }
+      expect(thrown).toBeInstanceOf(ConvergenceError);
+      const d = (thrown as ConvergenceError).diagnostics as ConvergenceError['diagnostics'] & Record<string, unknown>;
+      expect(d).toMatchObject({ method: 'harmonic test', errorEstimate: Infinity, integrator, maxSteps: 5 });
+      expect(d.steps).toBeGreaterThanOrEqual(5);
+      expect(d.rhsEvaluations).toBe(counter.evaluations);
+      expect(d.rhsEvaluations).toBeGreaterThan(0);
+      // stopped on the way: the radius is origin + argument, past the start and short of the end
+      expect(d.r).toBeGreaterThan(origin);
+      expect(d.r).toBeLessThan(origin + 1000);
+      expect(d.message).toMatch(new RegExp(`^${integrator} exceeded its step limit of 5 steps at r = `));
     });
   }
 });
@@ -164,7 +203,15 @@ describe("'gbs' against 'odex' through the generic right-hand side", () => {
       const eq = form === 'phase' ? phaseEquation(base) : base;
       const run = (integrator: 'gbs' | 'odex') => {
         const counter = { evaluations: 0 };
-        const stepper = makeStepper({ integrator, rhs: equationRhs(eq, counter), tol: 1e-11, rPlus: hole.rPlus, maxSteps: 1e5 });
+        const stepper = makeStepper({
+          integrator,
+          rhs: equationRhs(eq, counter),
+          tol: 1e-11,
+          rPlus: hole.rPlus,
+          maxSteps: 1e5,
+          method: 'radial equation',
+          counter,
+        });
         const y = new Float64Array([1e-3, 2e-3, 0.5, -0.25]);
         const out: number[] = [];
         let r = hole.rPlus + 0.05;
