@@ -1,17 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { ConvergenceError, InputError } from '@penumbra/core';
+import { ConvergenceError } from '@penumbra/core';
 import { schwarzschildGreybody } from '@penumbra/regge-wheeler';
 import { ProcaExtrapolation, integrateOnce } from '@penumbra/regge-wheeler/internal';
-
-function parameterOf(call: () => unknown): string | undefined {
-  try {
-    call();
-  } catch (e) {
-    expect(e).toBeInstanceOf(InputError);
-    return (e as InputError).parameter;
-  }
-  return undefined;
-}
+import { parameterOf } from '../../../test/helpers.js';
 
 const show = (x: unknown) => JSON.stringify(x, (_k, v) => (typeof v === 'number' && !Number.isFinite(v) ? String(v) : v));
 
