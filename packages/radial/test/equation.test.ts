@@ -20,6 +20,7 @@ import {
   scale,
   substitutePhase,
   type CPoly,
+  type EvaluationCounter,
 } from '@penumbra/radial/internal';
 
 type C = [number, number];
@@ -133,22 +134,27 @@ describe('the radial equation, written once', () => {
 });
 
 describe('the three integrators', () => {
+  /** A stepper for R″ = −R at tol 1e-12, counting its evaluations in `counter`. */
+  const harmonic = (integrator: 'gbs' | 'odex' | 'cash-karp', maxSteps: number, counter: EvaluationCounter, origin?: number) =>
+    makeStepper({
+      integrator,
+      rhs: (dy, y) => {
+        counter.evaluations++;
+        dy[0] = y[2];
+        dy[1] = y[3];
+        dy[2] = -y[0];
+        dy[3] = -y[1];
+      },
+      tol: 1e-12,
+      rPlus: -1,
+      maxSteps,
+      method: 'harmonic test',
+      counter,
+      origin,
+    });
   for (const integrator of ['gbs', 'odex', 'cash-karp'] as const) {
     it(`'${integrator}' (loaded by a plain ESM import) integrates R″ = −R over one period to cos and −sin within 1e-9 (exact solution)`, () => {
-      const stepper = makeStepper({
-        integrator,
-        rhs: (dy, y) => {
-          dy[0] = y[2];
-          dy[1] = y[3];
-          dy[2] = -y[0];
-          dy[3] = -y[1];
-        },
-        tol: 1e-12,
-        rPlus: -1,
-        maxSteps: 10_000,
-        method: 'harmonic test',
-        counter: { evaluations: 0 },
-      });
+      const stepper = harmonic(integrator, 10_000, { evaluations: 0 });
       const y = new Float64Array([1, 0, 0, 1]);
       const res = stepper.advance(y, 0, 2 * Math.PI, 0.01, 1e150);
       expect(res.r).toBe(2 * Math.PI);
@@ -158,22 +164,7 @@ describe('the three integrators', () => {
     it(`'${integrator}' past its step limit throws a ConvergenceError with the caller's method, its steps, the evaluation count and the radius reached`, () => {
       const counter = { evaluations: 0 };
       const origin = 2;
-      const stepper = makeStepper({
-        integrator,
-        rhs: (dy, y) => {
-          counter.evaluations++;
-          dy[0] = y[2];
-          dy[1] = y[3];
-          dy[2] = -y[0];
-          dy[3] = -y[1];
-        },
-        tol: 1e-12,
-        rPlus: -1,
-        maxSteps: 5,
-        method: 'harmonic test',
-        counter,
-        origin,
-      });
+      const stepper = harmonic(integrator, 5, counter, origin);
       let thrown: unknown;
       try {
         stepper.advance(new Float64Array([1, 0, 0, 1]), 0, 1000, 0.01, 1e150);
