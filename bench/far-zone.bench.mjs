@@ -15,7 +15,7 @@
 // (and the printed tables, saved by hand, in far-zone-<date>.txt).
 import os from 'node:os';
 import { greybody } from '@penumbra/flux';
-import { cpuMsPerCall, fmt, maximum, median, seededMulberry, table, writeResult } from './lib.mjs';
+import { fmt, interleavedCpuMs, maximum, median, seededMulberry, table, writeResult } from './lib.mjs';
 
 const SPINS = [0, 0.5, 1, 2];
 const AS = [0, 0.7, 0.99];
@@ -29,15 +29,8 @@ const problem = (x) => ({
 function costs(x, minCpuMs = 25) {
   const p = problem(x);
   const run = (oscillation) => () => greybody(p, { oscillation });
-  run('ode')();
-  run('riccati')();
-  const ode = [],
-    ric = [];
-  for (let i = 0; i < 3; i++) {
-    ode.push(cpuMsPerCall(run('ode'), minCpuMs, 200));
-    ric.push(cpuMsPerCall(run('riccati'), minCpuMs, 200));
-  }
-  return { ode: median(ode), riccati: median(ric) };
+  const [ode, riccati] = interleavedCpuMs([run('ode'), run('riccati')], minCpuMs, 200);
+  return { ode, riccati };
 }
 
 function point(x) {

@@ -49,6 +49,25 @@ export function cpuMsPerCall(fn, minCpuMs = 20, maxCalls = 200) {
   return used / calls;
 }
 
+/**
+ * CPU milliseconds per call of each of `fns`, compared on a shared machine: a
+ * warm-up call of each, then three interleaved batches (cpuMsPerCall), and the
+ * median of each function's three. With `rotate`, batch i starts at function
+ * i (mod n), so that none always follows the same one (garbage left by one is
+ * collected in the next); without, every batch runs them in the given order.
+ */
+export function interleavedCpuMs(fns, minCpuMs, maxCalls, { rotate = false } = {}) {
+  for (const f of fns) f();
+  const times = fns.map(() => []);
+  for (let i = 0; i < 3; i++) {
+    for (let k = 0; k < fns.length; k++) {
+      const j = rotate ? (i + k) % fns.length : k;
+      times[j].push(cpuMsPerCall(fns[j], minCpuMs, maxCalls));
+    }
+  }
+  return times.map(median);
+}
+
 export function fmt(x, digits = 2) {
   if (!Number.isFinite(x)) return String(x);
   if (x === 0) return '0';

@@ -12,24 +12,10 @@
 // Results: bench/results/massive-dirac-<date>.json.
 import { readFileSync } from 'node:fs';
 import { greybody } from '@penumbra/flux';
-import { cpuMsPerCall, fmt, median, table, writeResult } from './lib.mjs';
+import { fmt, interleavedCpuMs, median, table, writeResult } from './lib.mjs';
 
-/**
- * Median over three interleaved batches of CPU ms per call, for each
- * function; each batch starts with a different function, so none always
- * follows the same one (garbage left by one is collected in the next).
- */
-function cost(fns) {
-  for (const f of fns) f();
-  const t = fns.map(() => []);
-  for (let i = 0; i < 3; i++) {
-    for (let k = 0; k < fns.length; k++) {
-      const j = (i + k) % fns.length;
-      t[j].push(cpuMsPerCall(fns[j], 40, 2000));
-    }
-  }
-  return t.map(median);
-}
+/** Median over three interleaved batches of CPU ms per call, each batch starting with a different function. */
+const cost = (fns) => interleavedCpuMs(fns, 40, 2000, { rotate: true });
 
 const CASES = [];
 for (const a of [0, 0.7, 0.99]) {

@@ -7,7 +7,7 @@
 // default 'c', the third measurement of 2026-12-03).
 import { readFileSync, writeFileSync } from 'node:fs';
 import { greybody } from '@penumbra/flux';
-import { benchDir, cpuMsPerCall, fmt, median, relDiff, table, today } from './lib.mjs';
+import { benchDir, fmt, interleavedCpuMs, median, relDiff, table, today } from './lib.mjs';
 
 const MODES = [
   { a: 0, l: 0, m: 0, omega: 0.3 },
@@ -26,17 +26,7 @@ const problem = (x, mass) => ({
 });
 
 /** Median over three interleaved batches of CPU ms per call (JIT warm-up and load spikes excluded), massive and massless. */
-function pairCost(massive, massless) {
-  massive();
-  massless();
-  const a = [],
-    b = [];
-  for (let i = 0; i < 3; i++) {
-    a.push(cpuMsPerCall(massive, 150, 5000));
-    b.push(cpuMsPerCall(massless, 150, 5000));
-  }
-  return [median(a), median(b)];
-}
+const pairCost = (massive, massless) => interleavedCpuMs([massive, massless], 150, 5000);
 
 const rows = [];
 const records = [];

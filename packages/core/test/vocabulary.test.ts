@@ -2,7 +2,6 @@ import { describe, expect, test } from 'vitest';
 import fc from 'fast-check';
 import {
   ConvergenceError,
-  InputError,
   attempt,
   csvField,
   linearGrid,
@@ -19,16 +18,7 @@ import {
   validateOptions,
   validateTolerance,
 } from '../src/index.js';
-
-const thrown = (f: () => unknown): InputError => {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof InputError) return e;
-    throw e;
-  }
-  throw new Error('no InputError');
-};
+import { inputErrorOf } from '../../../test/helpers.js';
 
 describe('field spins', () => {
   test("'1/2', '0.5' and 0.5 name the same field spin; 3/2 and 'x' are refused naming the parameter", () => {
@@ -36,31 +26,31 @@ describe('field spins', () => {
     expect(parseFieldSpin(' 1 / 2 ')).toBe(0.5);
     expect(parseFieldSpin(0.5)).toBe(0.5);
     expect(parseFieldSpin('2')).toBe(2);
-    expect(thrown(() => parseFieldSpin(1.5, 'mode.field.spin')).parameter).toBe('mode.field.spin');
-    expect(thrown(() => parseFieldSpin('x')).allowed).toBe('one of 0, 1/2, 1, 2');
+    expect(inputErrorOf(() => parseFieldSpin(1.5, 'mode.field.spin')).parameter).toBe('mode.field.spin');
+    expect(inputErrorOf(() => parseFieldSpin('x')).allowed).toBe('one of 0, 1/2, 1, 2');
   });
   test('a mode needs l ≥ spin, |m| ≤ l, l − spin and m − spin integers', () => {
     expect(validateMode({ field: { spin: '1/2' }, l: 0.5, m: -0.5 })).toEqual({ spin: 0.5, fieldMass: 0, l: 0.5, m: -0.5 });
-    expect(thrown(() => validateMode({ field: { spin: 1 }, l: 0, m: 0 })).parameter).toBe('mode.l');
-    expect(thrown(() => validateMode({ field: { spin: 1 }, l: 2, m: 3 })).parameter).toBe('mode.m');
-    expect(thrown(() => validateMode({ field: { spin: 1 }, l: 2, m: 0, n: 1 })).parameter).toBe('mode.n');
-    expect(thrown(() => validateMode(null)).parameter).toBe('mode');
+    expect(inputErrorOf(() => validateMode({ field: { spin: 1 }, l: 0, m: 0 })).parameter).toBe('mode.l');
+    expect(inputErrorOf(() => validateMode({ field: { spin: 1 }, l: 2, m: 3 })).parameter).toBe('mode.m');
+    expect(inputErrorOf(() => validateMode({ field: { spin: 1 }, l: 2, m: 0, n: 1 })).parameter).toBe('mode.n');
+    expect(inputErrorOf(() => validateMode(null)).parameter).toBe('mode');
   });
   test('a field carries its mass Mμ: absent means 0; negative, NaN, text or ≥ 30 refused naming field.mass', () => {
     expect(validateField({ spin: 0 })).toEqual({ spin: 0, mass: 0 });
     expect(validateField({ spin: '1/2', mass: 0.25 })).toEqual({ spin: 0.5, mass: 0.25 });
     for (const bad of [-1e-3, Number.NaN, '0.1', null, 30, Number.POSITIVE_INFINITY]) {
-      expect(thrown(() => validateField({ spin: 0, mass: bad })).parameter).toBe('field.mass');
+      expect(inputErrorOf(() => validateField({ spin: 0, mass: bad })).parameter).toBe('field.mass');
     }
-    expect(thrown(() => validateMode({ field: { spin: 1, mass: -1 }, l: 1, m: 0 })).parameter).toBe('mode.field.mass');
-    expect(thrown(() => requireMassless({ spin: 1, mass: 0.1 })).parameter).toBe('field.mass');
+    expect(inputErrorOf(() => validateMode({ field: { spin: 1, mass: -1 }, l: 1, m: 0 })).parameter).toBe('mode.field.mass');
+    expect(inputErrorOf(() => requireMassless({ spin: 1, mass: 0.1 })).parameter).toBe('field.mass');
     expect(() => requireMassless({ spin: 1, mass: 0 })).not.toThrow();
   });
   test('a hole needs a finite mass > 0 and |a| ≤ 0.99999 M for the solver; unknown keys refused', () => {
     expect(validateHole({ a: -0.5 })).toEqual({ a: -0.5, mass: 1 });
-    expect(thrown(() => validateHole({ a: 1 })).parameter).toBe('hole.a');
-    expect(thrown(() => validateHole({ a: 0.5, mass: -1 })).parameter).toBe('hole.mass');
-    expect(thrown(() => validateHole({ a: 0.5, spin: 1 })).parameter).toBe('hole.spin');
+    expect(inputErrorOf(() => validateHole({ a: 1 })).parameter).toBe('hole.a');
+    expect(inputErrorOf(() => validateHole({ a: 0.5, mass: -1 })).parameter).toBe('hole.mass');
+    expect(inputErrorOf(() => validateHole({ a: 0.5, spin: 1 })).parameter).toBe('hole.spin');
   });
 });
 
@@ -68,10 +58,10 @@ describe('options and tolerance', () => {
   test('unknown option keys and method names are refused with an InputError naming them', () => {
     const spec = { tol: validateTolerance, method: oneOf(['odex', 'cash-karp'] as const) };
     expect(validateOptions({ tol: 1e-6 }, spec)).toEqual({ tol: 1e-6 });
-    expect(thrown(() => validateOptions({ tolerance: 1e-6 }, spec)).parameter).toBe('options.tolerance');
-    expect(thrown(() => validateOptions({ method: 'bogus' }, spec)).parameter).toBe('method');
-    expect(thrown(() => validateOptions(null, spec)).parameter).toBe('options');
-    expect(thrown(() => validateTolerance(1e-13)).allowed).toBe('1e-12 ≤ tol ≤ 0.01');
+    expect(inputErrorOf(() => validateOptions({ tolerance: 1e-6 }, spec)).parameter).toBe('options.tolerance');
+    expect(inputErrorOf(() => validateOptions({ method: 'bogus' }, spec)).parameter).toBe('method');
+    expect(inputErrorOf(() => validateOptions(null, spec)).parameter).toBe('options');
+    expect(inputErrorOf(() => validateTolerance(1e-13)).allowed).toBe('1e-12 ≤ tol ≤ 0.01');
   });
   test('attempt turns InputError and ConvergenceError into statuses and lets other errors through', () => {
     expect(attempt(() => 1)).toMatchObject({ status: 'success', solution: 1 });
@@ -105,7 +95,7 @@ describe('grids, l-shell sums and tables', () => {
       ),
       { seed: 42, numRuns: 200 },
     );
-    expect(thrown(() => linearGrid(0, 1, 1e9)).parameter).toBe('count');
+    expect(inputErrorOf(() => linearGrid(0, 1, 1e9)).parameter).toBe('count');
   });
   test('a geometric series 2^-l summed to 1e-12 has a tail bound at or above the true tail', () => {
     const sum = sumLShells(0, { lCut: 3, tol: 1e-12, maxL: 200 }, (l) => 2 ** -l);

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { InputError, type Diagnostics } from '@penumbra/core';
+import type { Diagnostics } from '@penumbra/core';
 import {
   bundledPageTable,
   contentTotals,
@@ -9,19 +9,9 @@ import {
   pageFunctions,
   pageTable,
 } from '@penumbra/emission';
+import { inputErrorOf } from '../../../test/helpers.js';
 
 const fns = pageFunctions({ table: bundledPageTable() });
-
-/** The InputError a call throws (fails the test if it throws anything else or nothing). */
-function inputError(call: () => unknown): InputError {
-  try {
-    call();
-  } catch (e) {
-    expect(e).toBeInstanceOf(InputError);
-    return e as InputError;
-  }
-  throw new Error('expected an InputError');
-}
 
 function expectDiagnostics(d: Diagnostics): void {
   expect(typeof d.method).toBe('string');
@@ -35,62 +25,63 @@ describe('the solve contract (problem → solve(problem, options) → solution w
   test('unknown option keys and unknown problem keys are refused with an InputError naming the key', () => {
     const hole = { a: 0 };
     const field = { spin: 1 as const };
-    expect(inputError(() => emissionTotals({ hole, field }, { tolerance: 1e-4 } as never)).parameter).toBe('options.tolerance');
-    expect(inputError(() => emissionSpectrum({ hole, field, grid: [0.1] }, { onMode: () => {} } as never)).parameter).toBe(
+    expect(inputErrorOf(() => emissionTotals({ hole, field }, { tolerance: 1e-4 } as never)).parameter).toBe('options.tolerance');
+    expect(inputErrorOf(() => emissionSpectrum({ hole, field, grid: [0.1] }, { onMode: () => {} } as never)).parameter).toBe(
       'options.onMode',
     );
-    expect(inputError(() => emissionTotals({ hole, field, omega: 0.1 } as never)).parameter).toBe('problem.omega');
-    expect(inputError(() => contentTotals({ hole }, { points: 5 } as never)).parameter).toBe('options.points');
-    expect(inputError(() => evolveHole({ functions: fns, aStar0: 0.5 }, { tol: 1e-8 } as never)).parameter).toBe('options.tol');
-    expect(inputError(() => pageTable({ points: 5 }, { aMax: 0.5 } as never)).parameter).toBe('options.aMax');
+    expect(inputErrorOf(() => emissionTotals({ hole, field, omega: 0.1 } as never)).parameter).toBe('problem.omega');
+    expect(inputErrorOf(() => contentTotals({ hole }, { points: 5 } as never)).parameter).toBe('options.points');
+    expect(inputErrorOf(() => evolveHole({ functions: fns, aStar0: 0.5 }, { tol: 1e-8 } as never)).parameter).toBe('options.tol');
+    expect(inputErrorOf(() => pageTable({ points: 5 }, { aMax: 0.5 } as never)).parameter).toBe('options.aMax');
   });
   test('options that are not objects, and bad option values, are InputErrors naming the key (not TypeErrors, not silent defaults)', () => {
-    expect(inputError(() => evolveHole({ functions: fns, aStar0: 0.5 }, null as never)).parameter).toBe('options');
-    expect(inputError(() => pageTable(null as never)).parameter).toBe('problem');
-    expect(inputError(() => pageTable(5 as never)).parameter).toBe('problem');
-    expect(inputError(() => pageTable({ points: 4 })).parameter).toBe('points');
-    expect(inputError(() => pageTable({ spins: [3] as never })).parameter).toBe('spins[0]');
-    expect(inputError(() => emissionTotals({ hole: { a: 0 }, field: { spin: 1 } }, { maxL: -1 })).parameter).toBe('maxL');
-    expect(inputError(() => emissionTotals({ hole: { a: 0 }, field: { spin: 2 } }, { maxL: 1 })).parameter).toBe('maxL');
-    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [0.1] }, { maxL: 2.5 })).parameter).toBe(
-      'maxL',
-    );
+    expect(inputErrorOf(() => evolveHole({ functions: fns, aStar0: 0.5 }, null as never)).parameter).toBe('options');
+    expect(inputErrorOf(() => pageTable(null as never)).parameter).toBe('problem');
+    expect(inputErrorOf(() => pageTable(5 as never)).parameter).toBe('problem');
+    expect(inputErrorOf(() => pageTable({ points: 4 })).parameter).toBe('points');
+    expect(inputErrorOf(() => pageTable({ spins: [3] as never })).parameter).toBe('spins[0]');
+    expect(inputErrorOf(() => emissionTotals({ hole: { a: 0 }, field: { spin: 1 } }, { maxL: -1 })).parameter).toBe('maxL');
+    expect(inputErrorOf(() => emissionTotals({ hole: { a: 0 }, field: { spin: 2 } }, { maxL: 1 })).parameter).toBe('maxL');
     expect(
-      inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [0.1] }, { onPoint: 1 as never })).parameter,
+      inputErrorOf(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [0.1] }, { maxL: 2.5 })).parameter,
+    ).toBe('maxL');
+    expect(
+      inputErrorOf(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: [0.1] }, { onPoint: 1 as never }))
+        .parameter,
     ).toBe('onPoint');
-    expect(inputError(() => evolveHole({ functions: fns, aStar0: 0.5 }, { aStarThresholds: [0.5, 1.5] })).parameter).toBe(
+    expect(inputErrorOf(() => evolveHole({ functions: fns, aStar0: 0.5 }, { aStarThresholds: [0.5, 1.5] })).parameter).toBe(
       'aStarThresholds[1]',
     );
-    expect(inputError(() => evolveHole({ functions: {} as never, aStar0: 0.5 })).parameter).toBe('functions');
-    expect(inputError(() => pageFunctions({ table: { aStar: [0], theta: [0] } as never })).parameter).toBe('table.theta');
+    expect(inputErrorOf(() => evolveHole({ functions: {} as never, aStar0: 0.5 })).parameter).toBe('functions');
+    expect(inputErrorOf(() => pageFunctions({ table: { aStar: [0], theta: [0] } as never })).parameter).toBe('table.theta');
   });
   test('one tolerance range for every solve: 1e-12 … 1e-2 (core), refused outside with the key named', () => {
-    expect(inputError(() => emissionTotals({ hole: { a: 0 }, field: { spin: 1 } }, { tol: 1e-13 })).parameter).toBe('tol');
-    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 1 }, grid: [0.1] }, { tol: 0.02 })).parameter).toBe(
-      'tol',
-    );
-    expect(inputError(() => pageTable({}, { tol: 0 })).parameter).toBe('tol');
+    expect(inputErrorOf(() => emissionTotals({ hole: { a: 0 }, field: { spin: 1 } }, { tol: 1e-13 })).parameter).toBe('tol');
+    expect(
+      inputErrorOf(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 1 }, grid: [0.1] }, { tol: 0.02 })).parameter,
+    ).toBe('tol');
+    expect(inputErrorOf(() => pageTable({}, { tol: 0 })).parameter).toBe('tol');
   });
   test('the hole and field are checked by core: |a| ≤ 0.99999 M, mass > 0, field spin 0, 1/2, 1, 2', () => {
-    expect(inputError(() => emissionTotals({ hole: { a: 0.999995 }, field: { spin: 1 } })).parameter).toBe('hole.a');
-    expect(inputError(() => emissionSpectrum({ hole: { a: 0, mass: -1 }, field: { spin: 1 }, grid: [0.1] })).parameter).toBe(
+    expect(inputErrorOf(() => emissionTotals({ hole: { a: 0.999995 }, field: { spin: 1 } })).parameter).toBe('hole.a');
+    expect(inputErrorOf(() => emissionSpectrum({ hole: { a: 0, mass: -1 }, field: { spin: 1 }, grid: [0.1] })).parameter).toBe(
       'hole.mass',
     );
-    expect(inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 1.5 as never }, grid: [0.1] })).parameter).toBe(
+    expect(inputErrorOf(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 1.5 as never }, grid: [0.1] })).parameter).toBe(
       'field.spin',
     );
   });
   test("a frequency grid may be core's FrequencyGrid; Mω above 30 and a decreasing grid are refused", () => {
-    expect(inputError(() => emissionSpectrum({ hole: { a: 0, mass: 2 }, field: { spin: 0 }, grid: [10, 16] })).parameter).toBe(
+    expect(inputErrorOf(() => emissionSpectrum({ hole: { a: 0, mass: 2 }, field: { spin: 0 }, grid: [10, 16] })).parameter).toBe(
       'grid[1]',
     );
     expect(
-      inputError(() =>
+      inputErrorOf(() =>
         emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: { spacing: 'linear', from: 0.3, to: 0.1, count: 3 } }),
       ).message,
     ).toMatch(/increasing/);
     expect(
-      inputError(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: { spacing: 'cubic' } as never })).parameter,
+      inputErrorOf(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 0 }, grid: { spacing: 'cubic' } as never })).parameter,
     ).toBe('grid.spacing');
   });
   test('field spin "1/2" is the same field as 0.5: identical spectrum points, bit for bit', () => {

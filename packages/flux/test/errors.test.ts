@@ -8,6 +8,7 @@ import {
   tryGreybody,
   type GreybodyProblem,
 } from '@penumbra/flux';
+import { parameterOf } from '../../../test/helpers.js';
 
 type Flat = { spin: unknown; l: unknown; m: unknown; a: unknown; omega: unknown; mass?: unknown };
 const nest = ({ spin, l, m, a, omega, mass }: Flat): GreybodyProblem =>
@@ -57,30 +58,21 @@ describe('bad input gets a typed error naming the parameter and the allowed rang
     expect(text.mode.field.spin).toBe(0.5);
   });
   it('refuses unknown option keys, unknown integrator names and non-object problems or options with InputError', () => {
-    const parameter = (f: () => unknown) => {
-      try {
-        f();
-      } catch (e) {
-        expect(e).toBeInstanceOf(InputError);
-        return (e as InputError).parameter;
-      }
-      return 'no error';
-    };
-    expect(parameter(() => greybody(ok, { integrator: 'bogus' as 'odex' }))).toBe('integrator');
-    expect(parameter(() => greybody(ok, { tolerance: 1e-6 } as object))).toBe('options.tolerance');
-    expect(parameter(() => greybody(ok, null as unknown as object))).toBe('options');
-    expect(parameter(() => greybody(null as unknown as GreybodyProblem))).toBe('problem');
-    expect(parameter(() => greybody({ ...ok, spin: 1 } as unknown as GreybodyProblem))).toBe('problem.spin');
-    expect(parameter(() => absorptionCrossSection({ hole: { a: 0 }, field: { spin: 0 }, omega: 0.1 }, { maxL: 500 }))).toBe(
+    expect(parameterOf(() => greybody(ok, { integrator: 'bogus' as 'odex' }))).toBe('integrator');
+    expect(parameterOf(() => greybody(ok, { tolerance: 1e-6 } as object))).toBe('options.tolerance');
+    expect(parameterOf(() => greybody(ok, null as unknown as object))).toBe('options');
+    expect(parameterOf(() => greybody(null as unknown as GreybodyProblem))).toBe('problem');
+    expect(parameterOf(() => greybody({ ...ok, spin: 1 } as unknown as GreybodyProblem))).toBe('problem.spin');
+    expect(parameterOf(() => absorptionCrossSection({ hole: { a: 0 }, field: { spin: 0 }, omega: 0.1 }, { maxL: 500 }))).toBe(
       'maxL',
     );
     // σ at Mω = 30 needs l > 150, beyond a caller's maxL = 50: refused at once, not after thousands of solves.
-    expect(parameter(() => absorptionCrossSection({ hole: { a: 0.5 }, field: { spin: 0 }, omega: 30 }, { maxL: 50 }))).toBe(
+    expect(parameterOf(() => absorptionCrossSection({ hole: { a: 0.5 }, field: { spin: 0 }, omega: 30 }, { maxL: 50 }))).toBe(
       'omega',
     );
-    expect(parameter(() => lowFrequencyGreybody(nest({ ...flatOk, omega: -1 })))).toBe('omega');
-    expect(parameter(() => lowFrequencyGreybody(nest({ ...flatOk, omega: '0.1' })))).toBe('omega');
-    expect(parameter(() => radialFunction(ok, ['3'] as unknown as number[]))).toBe('radii[0]');
+    expect(parameterOf(() => lowFrequencyGreybody(nest({ ...flatOk, omega: -1 })))).toBe('omega');
+    expect(parameterOf(() => lowFrequencyGreybody(nest({ ...flatOk, omega: '0.1' })))).toBe('omega');
+    expect(parameterOf(() => radialFunction(ok, ['3'] as unknown as number[]))).toBe('radii[0]');
   });
   it('tryGreybody reports a status instead of throwing: success, invalid-input', () => {
     expect(tryGreybody(ok).status).toBe('success');

@@ -8,8 +8,8 @@
  * the in-project massless route).
  */
 import { describe, expect, it } from 'vitest';
-import { InputError } from '@penumbra/core';
 import { greybody, radialFunction } from '@penumbra/flux';
+import { parameterOf } from '../../../test/helpers.js';
 
 const dirac = (a: number, l: number, m: number, omega: number, mass: number, kappaSign: 1 | -1) => ({
   hole: { a },
@@ -64,20 +64,11 @@ describe('radialFunction of a massive Dirac mode', () => {
   });
 
   it('refuses a massive spin-1/2 mode without kappaSign (mode.kappaSign), ω ≤ μ (omega), a radius inside the horizon (radii[i]) and unknown options', () => {
-    const parameter = (f: () => unknown) => {
-      try {
-        f();
-      } catch (e) {
-        expect(e).toBeInstanceOf(InputError);
-        return (e as InputError).parameter;
-      }
-      return 'no error';
-    };
     const ok = dirac(0.5, 0.5, 0.5, 0.3, 0.1, 1);
     const noSign = { ...ok, mode: { field: { spin: 0.5, mass: 0.1 }, l: 0.5, m: 0.5 } };
-    expect(parameter(() => radialFunction(noSign, [3]))).toBe('mode.kappaSign');
-    expect(parameter(() => radialFunction({ ...ok, omega: 0.1 }, [3]))).toBe('omega');
-    expect(parameter(() => radialFunction(ok, [3, 1.5]))).toBe('radii[1]');
-    expect(parameter(() => radialFunction(ok, [3], { reflection: false } as never))).toBe('options.reflection');
+    expect(parameterOf(() => radialFunction(noSign, [3]))).toBe('mode.kappaSign');
+    expect(parameterOf(() => radialFunction({ ...ok, omega: 0.1 }, [3]))).toBe('omega');
+    expect(parameterOf(() => radialFunction(ok, [3, 1.5]))).toBe('radii[1]');
+    expect(parameterOf(() => radialFunction(ok, [3], { reflection: false } as never))).toBe('options.reflection');
   });
 });

@@ -1,5 +1,4 @@
 import { describe, expect, test } from 'vitest';
-import { InputError } from '@penumbra/core';
 import {
   kerrHole,
   massToKg,
@@ -9,16 +8,7 @@ import {
   unitScales,
   type MassUnit,
 } from '@penumbra/kerr';
-
-function thrown(action: () => unknown): InputError {
-  try {
-    action();
-  } catch (error) {
-    expect(error).toBeInstanceOf(InputError);
-    return error as InputError;
-  }
-  throw new Error('expected an InputError');
-}
+import { inputErrorOf } from '../../../test/helpers.js';
 
 describe('typed input errors name the parameter and its allowed range', () => {
   test.each([
@@ -26,7 +16,7 @@ describe('typed input errors name the parameter and its allowed range', () => {
     ['+Infinity', Number.POSITIVE_INFINITY],
     ['-Infinity', Number.NEGATIVE_INFINITY],
   ])('spin a = %s is refused with parameter "a"', (_label, a) => {
-    const error = thrown(() => kerrHole({ a: a }));
+    const error = inputErrorOf(() => kerrHole({ a: a }));
     expect(error.parameter).toBe('a');
     expect(error.message).toMatch(/^invalid a = /);
     expect(error.allowed).toContain('|a| < M');
@@ -41,21 +31,21 @@ describe('typed input errors name the parameter and its allowed range', () => {
     ['1e200 (A = 8πMr+ would overflow)', 1e200],
     ['1e-200 (M² would underflow)', 1e-200],
   ])('mass M = %s is refused with parameter "mass" and the range 1e-150 ≤ mass ≤ 1e150', (_label, mass) => {
-    const error = thrown(() => kerrHole({ a: 0, mass }));
+    const error = inputErrorOf(() => kerrHole({ a: 0, mass }));
     expect(error.parameter).toBe('mass');
     expect(error.allowed).toContain('1e-150 ≤ mass ≤ 1e+150');
   });
 
   test('functions of a background refuse anything that is not one, and a non-number distance, with InputError', () => {
     const hole = kerrHole({ a: 0.5 });
-    expect(thrown(() => tortoise(null as unknown as typeof hole, 3)).parameter).toBe('hole');
-    expect(thrown(() => tortoiseFromHorizonDistance(hole, '1' as unknown as number)).parameter).toBe('x');
-    expect(thrown(() => kerrHole(null as unknown as { a: number })).parameter).toBe('hole');
+    expect(inputErrorOf(() => tortoise(null as unknown as typeof hole, 3)).parameter).toBe('hole');
+    expect(inputErrorOf(() => tortoiseFromHorizonDistance(hole, '1' as unknown as number)).parameter).toBe('x');
+    expect(inputErrorOf(() => kerrHole(null as unknown as { a: number })).parameter).toBe('hole');
   });
 
   test('the extremal hole |a| = M is refused, and the message says it is a limit the horizon-based solvers cannot take', () => {
     for (const a of [1, -1]) {
-      const error = thrown(() => kerrHole({ a: a }));
+      const error = inputErrorOf(() => kerrHole({ a: a }));
       expect(error.parameter).toBe('a');
       expect(error.value).toBe(a);
       expect(error.message).toContain('|a| < M = 1');
@@ -65,26 +55,28 @@ describe('typed input errors name the parameter and its allowed range', () => {
   });
 
   test('|a| > M (a = 1.2, a = -3 with M = 2) is refused: no horizon, and the extremal hole is only a limit', () => {
-    const over = thrown(() => kerrHole({ a: 1.2 }));
+    const over = inputErrorOf(() => kerrHole({ a: 1.2 }));
     expect(over.message).toBe(
       'invalid a = 1.2: allowed |a| < M = 1 (a hole with |a| > M has no horizon; the extremal hole |a| = M is itself only a limit for horizon-based solvers)',
     );
-    expect(thrown(() => kerrHole({ a: -3, mass: 2 })).message).toContain('|a| < M = 2');
+    expect(inputErrorOf(() => kerrHole({ a: -3, mass: 2 })).message).toContain('|a| < M = 2');
   });
 
   test('non-number input is refused, not coerced', () => {
-    expect(thrown(() => kerrHole({ a: '0.5' as unknown as number })).parameter).toBe('a');
-    expect(thrown(() => kerrHole({ a: 0.5, mass: '1' as unknown as number })).parameter).toBe('mass');
+    expect(inputErrorOf(() => kerrHole({ a: '0.5' as unknown as number })).parameter).toBe('a');
+    expect(inputErrorOf(() => kerrHole({ a: 0.5, mass: '1' as unknown as number })).parameter).toBe('mass');
   });
 
   test('physical mass and unit are checked: mass > 0 and finite, unit one of g, kg, msun', () => {
-    expect(thrown(() => massToKg(-1, 'g')).parameter).toBe('mass');
-    expect(thrown(() => massToKg(Number.NaN, 'kg')).message).toContain('NaN');
-    expect(thrown(() => massToKg(1, 'lb' as MassUnit)).message).toBe(`invalid unit = "lb": allowed one of 'g', 'kg', 'msun'`);
-    expect(thrown(() => physicalBackground(kerrHole({ a: 0.5 }), 0, 'g')).parameter).toBe('mass');
+    expect(inputErrorOf(() => massToKg(-1, 'g')).parameter).toBe('mass');
+    expect(inputErrorOf(() => massToKg(Number.NaN, 'kg')).message).toContain('NaN');
+    expect(inputErrorOf(() => massToKg(1, 'lb' as MassUnit)).message).toBe(
+      `invalid unit = "lb": allowed one of 'g', 'kg', 'msun'`,
+    );
+    expect(inputErrorOf(() => physicalBackground(kerrHole({ a: 0.5 }), 0, 'g')).parameter).toBe('mass');
     // unitScales takes kilograms: its parameter is massKg, and its range is physicalBackground's
-    expect(thrown(() => unitScales(Number.POSITIVE_INFINITY)).parameter).toBe('massKg');
-    expect(thrown(() => unitScales(1e-300)).parameter).toBe('massKg');
+    expect(inputErrorOf(() => unitScales(Number.POSITIVE_INFINITY)).parameter).toBe('massKg');
+    expect(inputErrorOf(() => unitScales(1e-300)).parameter).toBe('massKg');
   });
 
   test('physicalBackground refuses masses whose quantities leave the normal double range (1e-100 … 1e100 kg), and every value inside is finite and nonzero', () => {
@@ -96,7 +88,7 @@ describe('typed input errors name the parameter and its allowed range', () => {
       [1e101, 'kg'],
       [1e-98, 'g'],
     ] as const) {
-      const error = thrown(() => physicalBackground(hole, mass, unit));
+      const error = inputErrorOf(() => physicalBackground(hole, mass, unit));
       expect(error.parameter).toBe('mass');
       expect(error.message).toContain(unit);
     }

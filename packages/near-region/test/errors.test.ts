@@ -1,18 +1,8 @@
 import { describe, expect, test } from 'vitest';
-import { InputError } from '@penumbra/core';
 import { compareNearRegion, nearRegionForm, validityMap } from '@penumbra/near-region';
+import { parameterOf } from '../../../test/helpers.js';
 
 const mode = { field: { spin: 1 }, l: 1, m: 1 } as const;
-
-function parameterOf(call: () => unknown): string {
-  try {
-    call();
-  } catch (error) {
-    if (error instanceof InputError) return error.parameter;
-    throw error;
-  }
-  throw new Error('no error');
-}
 
 describe('input validation: InputError naming the parameter', () => {
   test('a = 0 is refused (T_L, T_R diverge; the two-temperature form needs rotation), naming hole.a', () => {

@@ -14,6 +14,7 @@
  */
 import type { AdvanceResult, Stepper } from './integrators.js';
 import type { EquationKernel, Rhs } from './rhs.js';
+import { type FailureContext, stepperFailure } from './stepperFailure.js';
 
 /** Columns of the extrapolation tableau (ODEX's default KM). */
 const KM = 9;
@@ -105,6 +106,7 @@ class GbsLoop implements Stepper {
     readonly maxSteps: number,
     readonly rhs: Rhs,
     readonly kernel: EquationKernel | undefined,
+    readonly failure: FailureContext,
   ) {
     // ODEX's first order guess from the tolerance.
     this.kStart = Math.max(2, Math.min(KM - 1, Math.floor(-(Math.log(tol + 1e-40) / Math.LN10) * 0.6 + 1.5)));
@@ -407,8 +409,10 @@ class GbsLoop implements Stepper {
         }
         case BASIC: {
           ++nStep;
-          if (nStep >= this.maxSteps)
-            throw new Error(`gbs exceeded its step limit of ${this.maxSteps} steps at argument ${this.x}`);
+          if (nStep >= this.maxSteps) {
+            const what = `exceeded its step limit of ${this.maxSteps} steps`;
+            throw stepperFailure(this.failure, 'gbs', what, nStep, this.x, this.maxSteps);
+          }
           const kc = this.k - 1;
           this.kc = kc;
           phase = -1;
@@ -486,8 +490,8 @@ class GbsLoop implements Stepper {
  * `kernel` (the same equation's packed coefficients) the right-hand side is
  * evaluated inline instead of through `rhs`. Each `advance` call is one
  * integration from r to rEnd with fresh step and order control, as one
- * `odex` solve is.
+ * `odex` solve is; past `maxSteps` it throws a ConvergenceError quoting `failure`.
  */
-export function gbsStepper(rhs: Rhs, tol: number, maxSteps: number, kernel?: EquationKernel): Stepper {
-  return new GbsLoop(tol, maxSteps, rhs, kernel);
+export function gbsStepper(rhs: Rhs, tol: number, maxSteps: number, failure: FailureContext, kernel?: EquationKernel): Stepper {
+  return new GbsLoop(tol, maxSteps, rhs, kernel, failure);
 }

@@ -12,12 +12,17 @@
  *   right-hand-side evaluations than Cash–Karp (bench/).
  * - 'cash-karp': the Cash–Karp 4(5) pair (npm `ode45-cash-karp`), kept as an
  *   independent second integrator for cross-checks.
+ *
+ * Each throws a ConvergenceError with diagnostics where it stops short (its
+ * step limit, or a failure inside the package), quoting the caller's method
+ * and evaluation counter (stepperFailure.ts).
  */
 import ode45 from 'ode45-cash-karp';
 import * as odexModule from 'odex';
 import type { OdexSolverClass } from 'odex';
 import { gbsStepper } from './gbsStepper.js';
-import type { EquationKernel, Rhs } from './rhs.js';
+import type { EquationKernel, EvaluationCounter, Rhs } from './rhs.js';
+import { type FailureContext, stepperFailure } from './stepperFailure.js';
 
 // odex is CommonJS. Node's ESM loader exposes its exports both as named
 // exports and as `default`; bundlers differ in which they fill, so take the
@@ -70,6 +75,12 @@ export interface StepperSpec {
   maxSteps: number;
   /** the same right-hand side as packed coefficients: 'gbs' then evaluates it inline (faster, the same doubles) */
   kernel?: EquationKernel;
+  /** the caller's method, quoted by a failure */
+  method: string;
+  /** the counter `rhs` (and `kernel`) increment, quoted by a failure */
+  counter: EvaluationCounter;
+  /** the integrator's argument is r − origin (default 0); a failure quotes the radius */
+  origin?: number;
 }
 
 /** Error weights: one scale per complex pair, so a component crossing zero does not shrink the step. */
@@ -80,12 +91,23 @@ function pairScales(y: ArrayLike<number>, x: number): [number, number] {
 }
 
 /** A stepper for the named integrator. */
-export function makeStepper({ integrator, rhs, tol, rPlus, maxSteps, kernel }: StepperSpec): Stepper {
-  if (integrator === 'gbs') return gbsStepper(rhs, tol, maxSteps, kernel);
-  return integrator === 'odex' ? odexStepper(rhs, tol, maxSteps) : cashKarpStepper(rhs, tol, rPlus, maxSteps);
+export function makeStepper({
+  integrator,
+  rhs,
+  tol,
+  rPlus,
+  maxSteps,
+  kernel,
+  method,
+  counter,
+  origin = 0,
+}: StepperSpec): Stepper {
+  const failure: FailureContext = { method, counter, origin };
+  if (integrator === 'gbs') return gbsStepper(rhs, tol, maxSteps, failure, kernel);
+  return integrator === 'odex' ? odexStepper(rhs, tol, maxSteps, failure) : cashKarpStepper(rhs, tol, rPlus, maxSteps, failure);
 }
 
-function odexStepper(rhs: Rhs, tol: number, maxSteps: number): Stepper {
+function odexStepper(rhs: Rhs, tol: number, maxSteps: number, failure: FailureContext): Stepper {
   const solver = new OdexSolver(4);
   solver.maxSteps = maxSteps;
   // odex copies the returned array at once, so one buffer serves every call
@@ -115,9 +137,11 @@ function odexStepper(rhs: Rhs, tol: number, maxSteps: number): Stepper {
         }
         return true;
       });
-      if (res.outcome === 1) throw new Error(`odex exceeded its step limit of ${maxSteps} steps at argument ${rLast}`);
+      if (res.outcome === 1) {
+        throw stepperFailure(failure, 'odex', `exceeded its step limit of ${maxSteps} steps`, res.nStep, rLast, maxSteps);
+      }
       if (res.outcome !== 0 && !stopped) {
-        throw new Error(`odex stopped with outcome ${res.outcome} at argument ${rLast} (r, or r − r+ near extremality)`);
+        throw stepperFailure(failure, 'odex', `stopped with outcome ${res.outcome}`, res.nStep, rLast, maxSteps);
       }
       for (let i = 0; i < 4; i++) y[i] = res.y[i];
       return { r: stopped ? rLast : rEnd, steps: res.nStep, h: hLast };
@@ -125,7 +149,7 @@ function odexStepper(rhs: Rhs, tol: number, maxSteps: number): Stepper {
   };
 }
 
-function cashKarpStepper(rhs: Rhs, tol: number, rPlus: number, maxSteps: number): Stepper {
+function cashKarpStepper(rhs: Rhs, tol: number, rPlus: number, maxSteps: number, failure: FailureContext): Stepper {
   return {
     advance(y, r, rEnd, h, overflow) {
       let magR = 1,
@@ -140,9 +164,26 @@ function cashKarpStepper(rhs: Rhs, tol: number, rPlus: number, maxSteps: number)
         },
       });
       let steps = 0;
-      while (integrator.step(rEnd)) {
+      const step = () => {
+        try {
+          return integrator.step(rEnd);
+        } catch (e) {
+          // the package's own stop (a NaN in the state)
+          throw stepperFailure(failure, 'cash-karp', `failed (${(e as Error).message})`, steps, integrator.t, maxSteps);
+        }
+      };
+      while (step()) {
         steps++;
-        if (steps > maxSteps) throw new Error(`cash-karp exceeded ${maxSteps} steps at argument ${integrator.t}`);
+        if (steps > maxSteps) {
+          throw stepperFailure(
+            failure,
+            'cash-karp',
+            `exceeded its step limit of ${maxSteps} steps`,
+            steps,
+            integrator.t,
+            maxSteps,
+          );
+        }
         if (Math.abs(y[0]) + Math.abs(y[1]) > overflow) return { r: integrator.t, steps, h: integrator.dt };
       }
       steps++;

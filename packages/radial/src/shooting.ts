@@ -14,7 +14,7 @@ import { ConvergenceError } from '@penumbra/core';
 import type { KerrHole } from '@penumbra/kerr';
 import type { RadialEquation, RadialMode } from './equation.js';
 import { NEAR_ROUNDING_TOL } from './horizonStart.js';
-import { makeStepper, type AdvanceResult, type IntegratorName } from './integrators.js';
+import { makeStepper, type IntegratorName } from './integrators.js';
 import type { RadialVariable } from './options.js';
 import { convertPhase, phaseEquation } from './phaseVariable.js';
 import { equationKernel, kernelRhs, type EvaluationCounter } from './rhs.js';
@@ -122,7 +122,17 @@ export function integrateLeg(leg: Leg): Segment {
   const packed = equationKernel(integrated, leg.counter, origin);
   const rhs = kernelRhs(packed);
   const kernel = leg.integrator === 'gbs' ? packed : undefined;
-  const stepper = makeStepper({ integrator: leg.integrator, rhs, tol: leg.tol, rPlus: hole.rPlus - origin, maxSteps, kernel });
+  const stepper = makeStepper({
+    integrator: leg.integrator,
+    rhs,
+    tol: leg.tol,
+    rPlus: hole.rPlus - origin,
+    maxSteps,
+    kernel,
+    method: leg.method,
+    counter: leg.counter,
+    origin,
+  });
   if (phased) convertPhase(hole, mode, eq, r0, y, 1);
   let logScale = leg.logScale ?? 0;
   let rescalings = 0;
@@ -140,12 +150,7 @@ export function integrateLeg(leg: Leg): Segment {
   for (const target of targets) {
     const xTarget = target - origin;
     while (x < xTarget) {
-      let adv: AdvanceResult;
-      try {
-        adv = stepper.advance(y, x, xTarget, h, OVERFLOW);
-      } catch (e) {
-        throw legFailure(leg, 'radial integration failed', steps, { reason: (e as Error).message, r });
-      }
+      const adv = stepper.advance(y, x, xTarget, h, OVERFLOW);
       steps += adv.steps;
       errorSum += adv.errorSum ?? adv.steps;
       x = adv.r;

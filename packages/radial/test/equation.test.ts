@@ -9,6 +9,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import { ConvergenceError } from '@penumbra/core';
 import { kerrHole } from '@penumbra/kerr';
 import {
   cpolyAt,
@@ -19,6 +20,7 @@ import {
   scale,
   substitutePhase,
   type CPoly,
+  type EvaluationCounter,
 } from '@penumbra/radial/internal';
 
 type C = [number, number];
@@ -132,25 +134,53 @@ describe('the radial equation, written once', () => {
 });
 
 describe('the three integrators', () => {
+  /** A stepper for R″ = −R at tol 1e-12, counting its evaluations in `counter`. */
+  const harmonic = (integrator: 'gbs' | 'odex' | 'cash-karp', maxSteps: number, counter: EvaluationCounter, origin?: number) =>
+    makeStepper({
+      integrator,
+      rhs: (dy, y) => {
+        counter.evaluations++;
+        dy[0] = y[2];
+        dy[1] = y[3];
+        dy[2] = -y[0];
+        dy[3] = -y[1];
+      },
+      tol: 1e-12,
+      rPlus: -1,
+      maxSteps,
+      method: 'harmonic test',
+      counter,
+      origin,
+    });
   for (const integrator of ['gbs', 'odex', 'cash-karp'] as const) {
     it(`'${integrator}' (loaded by a plain ESM import) integrates R″ = −R over one period to cos and −sin within 1e-9 (exact solution)`, () => {
-      const stepper = makeStepper({
-        integrator,
-        rhs: (dy, y) => {
-          dy[0] = y[2];
-          dy[1] = y[3];
-          dy[2] = -y[0];
-          dy[3] = -y[1];
-        },
-        tol: 1e-12,
-        rPlus: -1,
-        maxSteps: 10_000,
-      });
+      const stepper = harmonic(integrator, 10_000, { evaluations: 0 });
       const y = new Float64Array([1, 0, 0, 1]);
       const res = stepper.advance(y, 0, 2 * Math.PI, 0.01, 1e150);
       expect(res.r).toBe(2 * Math.PI);
       expect(Math.abs(y[0] - 1)).toBeLessThan(1e-9);
       expect(Math.abs(y[2])).toBeLessThan(1e-9);
+    });
+    it(`'${integrator}' past its step limit throws a ConvergenceError with the caller's method, its steps, the evaluation count and the radius reached`, () => {
+      const counter = { evaluations: 0 };
+      const origin = 2;
+      const stepper = harmonic(integrator, 5, counter, origin);
+      let thrown: unknown;
+      try {
+        stepper.advance(new Float64Array([1, 0, 0, 1]), 0, 1000, 0.01, 1e150);
+      } catch (e) {
+        thrown = e;
+      }
+      expect(thrown).toBeInstanceOf(ConvergenceError);
+      const d = (thrown as ConvergenceError).diagnostics as ConvergenceError['diagnostics'] & Record<string, unknown>;
+      expect(d).toMatchObject({ method: 'harmonic test', errorEstimate: Infinity, integrator, maxSteps: 5 });
+      expect(d.steps).toBeGreaterThanOrEqual(5);
+      expect(d.rhsEvaluations).toBe(counter.evaluations);
+      expect(d.rhsEvaluations).toBeGreaterThan(0);
+      // stopped on the way: the radius is origin + argument, past the start and short of the end
+      expect(d.r).toBeGreaterThan(origin);
+      expect(d.r).toBeLessThan(origin + 1000);
+      expect(d.message).toMatch(new RegExp(`^${integrator} exceeded its step limit of 5 steps at r = `));
     });
   }
 });
@@ -164,7 +194,15 @@ describe("'gbs' against 'odex' through the generic right-hand side", () => {
       const eq = form === 'phase' ? phaseEquation(base) : base;
       const run = (integrator: 'gbs' | 'odex') => {
         const counter = { evaluations: 0 };
-        const stepper = makeStepper({ integrator, rhs: equationRhs(eq, counter), tol: 1e-11, rPlus: hole.rPlus, maxSteps: 1e5 });
+        const stepper = makeStepper({
+          integrator,
+          rhs: equationRhs(eq, counter),
+          tol: 1e-11,
+          rPlus: hole.rPlus,
+          maxSteps: 1e5,
+          method: 'radial equation',
+          counter,
+        });
         const y = new Float64Array([1e-3, 2e-3, 0.5, -0.25]);
         const out: number[] = [];
         let r = hole.rPlus + 0.05;

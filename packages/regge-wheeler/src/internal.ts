@@ -16,3 +16,4 @@ export {
 export { type ProcaSector, type SectorModel, sectorModel } from './proca/sectors.js';
 export type { Complex } from './proca/complex.js';
 export { type SeriesState, type ChannelState, outgoingFarSolution, horizonSolution } from './proca/series.js';
+export { type ProcaRhs, ProcaExtrapolation } from './proca/extrapolation.js';

@@ -1,17 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { ConvergenceError, InputError } from '@penumbra/core';
+import { ConvergenceError } from '@penumbra/core';
 import { schwarzschildGreybody } from '@penumbra/regge-wheeler';
-import { integrateOnce } from '@penumbra/regge-wheeler/internal';
-
-function parameterOf(call: () => unknown): string | undefined {
-  try {
-    call();
-  } catch (e) {
-    expect(e).toBeInstanceOf(InputError);
-    return (e as InputError).parameter;
-  }
-  return undefined;
-}
+import { ProcaExtrapolation, integrateOnce } from '@penumbra/regge-wheeler/internal';
+import { parameterOf } from '../../../test/helpers.js';
 
 const show = (x: unknown) => JSON.stringify(x, (_k, v) => (typeof v === 'number' && !Number.isFinite(v) ? String(v) : v));
 
@@ -88,5 +79,32 @@ describe('non-convergence throws ConvergenceError with full diagnostics', () => 
     expect(typeof d.method).toBe('string');
     expect(typeof d.message).toBe('string');
     expect(d).toHaveProperty('matchRadius');
+  });
+  it("the Proca extrapolation integrator's step-size underflow (u' = 1/(1 − r)², singular at r = 1) is a ConvergenceError with its method, steps, evaluations and radius", () => {
+    const y = Float64Array.from([1, 0]);
+    let evaluations = 0;
+    const rhs = (dy: Float64Array, _y: Float64Array, r: number) => {
+      evaluations++;
+      dy[0] = 1 / (1 - r) ** 2;
+      dy[1] = 0;
+    };
+    const stepper = new ProcaExtrapolation(y, rhs, 0, 0.01, 1e-10, 2, 1, 'singular test');
+    let caught: unknown;
+    try {
+      while (stepper.step(2));
+    } catch (e) {
+      caught = e;
+    }
+    expect(caught).toBeInstanceOf(ConvergenceError);
+    const d = (caught as ConvergenceError).diagnostics as ConvergenceError['diagnostics'] & { r: number };
+    expect(d.method).toBe('singular test');
+    expect(d.steps).toBe(stepper.steps);
+    expect(d.steps).toBeGreaterThan(0);
+    expect(d.rhsEvaluations).toBe(evaluations);
+    expect(d.errorEstimate).toBe(Infinity);
+    // stopped just short of the singularity
+    expect(d.r).toBeLessThan(1);
+    expect(d.r).toBeGreaterThan(1 - 1e-6);
+    expect(d.message).toMatch(/step size underflow at r = /);
   });
 });

@@ -1,18 +1,9 @@
 import { readFileSync } from 'node:fs';
-import { ConvergenceError, InputError } from '@penumbra/core';
+import { ConvergenceError } from '@penumbra/core';
 import { spheroidalEigenvalue, spheroidalEigenvalueComplex, spheroidalHarmonic } from '@penumbra/spheroidal';
 import { basisLayout, buildBand, buildComplexBand, leaverRoot } from '@penumbra/spheroidal/internal';
 import { describe, expect, it } from 'vitest';
-
-function parameterOf(call: () => unknown): string | undefined {
-  try {
-    call();
-  } catch (e) {
-    expect(e).toBeInstanceOf(InputError);
-    return (e as InputError).parameter;
-  }
-  return undefined;
-}
+import { parameterOf } from '../../../test/helpers.js';
 
 describe('the solve contract of the spheroidal solves', () => {
   it('refuses a missing or malformed problem with an InputError naming the parameter the caller gave (problem.l, an unknown key as problem.a)', () => {

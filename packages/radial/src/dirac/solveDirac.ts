@@ -71,6 +71,8 @@ function sample(r: number, a: number, b: number, c: number, d: number): DiracRad
 }
 
 const FAR_TERMS = 50;
+const METHOD =
+  'massive Dirac radial pair: horizon Frobenius series in √(r − r₊), ODE in r, far asymptotic series with the logarithmic phase';
 /** The far-zone carry stops outside this multiple of r₊ (the ODE takes the strong field). */
 const CARRY_FLOOR = 4;
 /** Least error allowed per rung of the carry: its corrections stall at 1e-14–2e-14 from rounding (measured at Mω = 2.5, v = 0.05). */
@@ -104,9 +106,9 @@ export function solveMassiveDiracRadial(p: DiracRadialProblem, options: DiracRad
   const { omega, mu, hole } = p;
   const kInf = Math.sqrt((omega - mu) * (omega + mu));
   const rhs = diracRhs(p);
-  let evaluations = 0;
+  const counter = { evaluations: 0 };
   const counted = (dy: Float64Array | number[], y: Float64Array | number[], r: number) => {
-    evaluations++;
+    counter.evaluations++;
     rhs(dy, y, r);
   };
   let fraction = options.startFraction ?? 0.1;
@@ -146,29 +148,16 @@ export function solveMassiveDiracRadial(p: DiracRadialProblem, options: DiracRad
     tol: options.tol,
     rPlus: hole.rPlus,
     maxSteps: 5e6,
+    method: METHOD,
+    counter,
   });
   let r = start.r;
   let steps = 0;
   let h = Math.min(0.1 * (r - hole.rPlus), 0.1 / omega);
   const advanceTo = (target: number) => {
     while (r < target) {
-      let res: ReturnType<typeof stepper.advance>;
-      try {
-        res = stepper.advance(y, r, target, h, 1e300);
-      } catch (e) {
-        // the integrator's own failures (its step limit) are a solve that did not converge, never a bare Error
-        if (e instanceof ConvergenceError) throw e;
-        throw new ConvergenceError(
-          `massive Dirac radial integration failed at r = ${r.toPrecision(6)}: ${(e as Error).message}`,
-          {
-            method: 'massive Dirac radial pair (extrapolation integrator)',
-            steps,
-            rhsEvaluations: evaluations,
-            errorEstimate: Number.POSITIVE_INFINITY,
-            message: `stopped at r = ${r.toPrecision(6)} on the way to ${target.toPrecision(6)}`,
-          },
-        );
-      }
+      // the integrator's own failures (its step limit) throw ConvergenceErrors quoting METHOD
+      const res = stepper.advance(y, r, target, h, 1e300);
       steps += res.steps;
       if (res.r === r) return;
       r = res.r;
@@ -191,10 +180,9 @@ export function solveMassiveDiracRadial(p: DiracRadialProblem, options: DiracRad
   advanceTo(rMatch);
   const matchSteps = steps;
   const diagnosticsBase = {
-    method:
-      'massive Dirac radial pair: horizon Frobenius series in √(r − r₊), ODE in r, far asymptotic series with the logarithmic phase',
+    method: METHOD,
     steps,
-    rhsEvaluations: evaluations + (tried?.evaluations ?? 0),
+    rhsEvaluations: counter.evaluations + (tried?.evaluations ?? 0),
     startRadius: start.r,
     matchRadius: rMatch,
     seriesRadius: R,

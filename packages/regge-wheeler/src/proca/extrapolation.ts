@@ -13,6 +13,7 @@
  * their Euclidean sizes together (|u| + |P|/ω and |P| + ω|u|), since a
  * component, or a whole vector, crossing zero must not shrink the step.
  */
+import { ConvergenceError } from '@penumbra/core';
 
 /** Right-hand side dy/dr = f(r, y), written into its first argument. */
 export type ProcaRhs = (dydr: Float64Array, y: Float64Array, r: number) => void;
@@ -36,6 +37,8 @@ export class ProcaExtrapolation {
   h: number;
   /** right-hand-side evaluations so far */
   evaluations = 0;
+  /** accepted steps so far */
+  steps = 0;
   private readonly n: number;
   private readonly tol: number;
   private k: number;
@@ -53,6 +56,7 @@ export class ProcaExtrapolation {
    * @param rhs the right-hand side
    * @param blockSize components of one solution: u (first half) then P = du/dr* (second half)
    * @param rate the wave number that relates the sizes of u and P (ω)
+   * @param method the caller's method, quoted when the integration fails
    */
   constructor(
     private readonly y: Float64Array,
@@ -62,6 +66,7 @@ export class ProcaExtrapolation {
     tol: number,
     private readonly blockSize: number,
     private readonly rate: number,
+    private readonly method: string,
   ) {
     const n = y.length;
     this.n = n;
@@ -152,7 +157,7 @@ export class ProcaExtrapolation {
 
   /**
    * One accepted step towards rEnd (never past it). Returns false once r = rEnd.
-   * Throws when the step size underflows.
+   * Throws a ConvergenceError with diagnostics when the step size underflows.
    */
   step(rEnd: number): boolean {
     if (this.r >= rEnd) return false;
@@ -161,8 +166,16 @@ export class ProcaExtrapolation {
     for (;;) {
       const h = Math.min(this.h, rEnd - this.r);
       const last = h === rEnd - this.r;
-      if (!(h > 1e-14 * Math.max(1, Math.abs(this.r))))
-        throw new RangeError(`extrapolation step size underflow at r = ${this.r}`);
+      if (!(h > 1e-14 * Math.max(1, Math.abs(this.r)))) {
+        throw new ConvergenceError('integration step size underflow', {
+          method: this.method,
+          steps: this.steps,
+          rhsEvaluations: this.evaluations,
+          errorEstimate: Infinity,
+          message: `extrapolation step size underflow at r = ${this.r}`,
+          r: this.r,
+        });
+      }
       const k = this.k;
       let reached = 1;
       let accepted = false;
@@ -186,6 +199,7 @@ export class ProcaExtrapolation {
       }
       const cost = (j: number) => WORK[j] / hNew[j];
       if (accepted) {
+        this.steps++;
         for (let i = 0; i < n; i++) y[i] = table[n + i];
         this.r = last ? rEnd : this.r + h;
         // next order as ODEX chooses it (Hairer, Nørsett & Wanner, section II.9): work per unit step

@@ -122,9 +122,13 @@ export function defaultProcaMatchRadius(model: SectorModel): number {
   return Math.max(10, (20 + 0.5 * (model.L + 2 * model.l + 2)) / k);
 }
 
+function methodOf(model: SectorModel): string {
+  return `Proca ${model.sector} sector, l = ${model.l}, Mω = ${model.omega}, Mμ = ${model.mu}: single integration`;
+}
+
 function failure(model: SectorModel, message: string, steps: number, rhsEvaluations: number): Diagnostics {
   return {
-    method: `Proca ${model.sector} sector, l = ${model.l}, Mω = ${model.omega}, Mμ = ${model.mu}: single integration`,
+    method: methodOf(model),
     steps,
     rhsEvaluations,
     errorEstimate: Infinity,
@@ -266,20 +270,12 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   updateNorms();
   const cashKarp = controls.integrator === 'cash-karp';
   const stepper = !cashKarp
-    ? new ProcaExtrapolation(y, deriv, r0, 0.01 * x0, controls.stepTolerance, 4 * N, model.omega)
+    ? new ProcaExtrapolation(y, deriv, r0, 0.01 * x0, controls.stepTolerance, 4 * N, model.omega, methodOf(model))
     : createIntegrator(y, deriv, r0, 0.01 * x0, {
         tol: controls.stepTolerance,
         verbose: false,
         errorScaleFunction: errorScale,
       });
-  const stepOnce = (): boolean => {
-    try {
-      return stepper.step(matchRadius);
-    } catch (e) {
-      if (!(e instanceof RangeError)) throw e;
-      throw new ConvergenceError('integration step size underflow', failure(model, e.message, steps, rhsEvaluations));
-    }
-  };
   let steps = phaseSteps;
   let logRescale = 0;
   const targets = (controls.sampleRadii ?? []).filter((r) => r >= r0 && r <= matchRadius);
@@ -292,13 +288,9 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   }
   const position = (): number => ('t' in stepper ? stepper.t : stepper.r);
   const stepTo = (): boolean => {
-    if (next >= targets.length) return stepOnce();
-    try {
-      stepper.step(targets[next]);
-    } catch (e) {
-      if (!(e instanceof RangeError)) throw e;
-      throw new ConvergenceError('integration step size underflow', failure(model, e.message, steps, rhsEvaluations));
-    }
+    // the extrapolation integrator's step-size underflow is a ConvergenceError of its own
+    if (next >= targets.length) return stepper.step(matchRadius);
+    stepper.step(targets[next]);
     const at = position();
     if (at >= targets[next]) {
       // every target at this radius (repeated radii) takes the same state
