@@ -39,7 +39,7 @@ describe('penumbra evolve', () => {
     expect((await run('evolve', '--a', '0.5', '--content', 'axion')).code).toBe(2);
     expect((await run('evolve', '--a', '1.2')).code).toBe(2);
   });
-  test('--tol: a lifetime within it prints as without; one whose error estimate exceeds it exits with code 3; a tol outside 1e-6 … 0.1 exits with code 2', async () => {
+  test('--tol: a lifetime within it prints as without; one whose error estimate exceeds it exits with code 3; a tol outside 1e-12 … 1e-2 (the range of every --tol) exits with code 2', async () => {
     const args = ['evolve', '--a', '0.5', '--mass', '1e15', '--unit', 'g', '--json'];
     const free = JSON.parse((await run(...args)).stdout);
     const within = await run(...args, '--tol', '0.01');
@@ -47,7 +47,16 @@ describe('penumbra evolve', () => {
     expect(JSON.parse(within.stdout).lifetimeSeconds).toBe(free.lifetimeSeconds);
     expect(free.relError).toBeGreaterThan(1e-6);
     expect((await run(...args, '--tol', '1e-6')).code).toBe(3);
-    expect((await run(...args, '--tol', '0.5')).code).toBe(2);
+    for (const tol of ['0.5', '0.05', '1e-13']) expect((await run(...args, '--tol', tol)).code).toBe(2);
+  });
+  test('--tol also holds the age-of-universe mass: a 1e20 g hole emitting photons and electrons, whose lifetime meets 1e-5, exits with code 3 naming massForLifetime (that mass is known to about 1e-4)', async () => {
+    const args = ['evolve', '--a', '0', '--mass', '1e20', '--unit', 'g', '--content', 'photon,electron', '--points', '3'];
+    const free = JSON.parse((await run(...args, '--json')).stdout);
+    expect(free.relError).toBeLessThan(1e-5);
+    expect(free.massForAgeOfUniverse.relError).toBeGreaterThan(1e-5);
+    const r = await run(...args, '--tol', '1e-5');
+    expect(r.code).toBe(3);
+    expect(r.stderr).toMatch(/massForLifetime: the mass's error estimate exceeds tol = 0\.00001/);
   });
   test('final stages: the last 1 s releases the mass M_τ with M_τ³ × (lifetime per g³) = 1 s to 1e-5, species energies add up to it to 1e-9; a τ longer than the life is the whole life', async () => {
     const j = JSON.parse(
