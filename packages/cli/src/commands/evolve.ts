@@ -269,6 +269,7 @@ Example:
           .join('') +
         `mass whose lifetime is the age of the universe (13.787 Gyr), a* = 0: ${g(age.massGrams)} g (rel. error ${formatError(age.relError)})\n` +
         `energy emitted over the life: ${g(ev.energyBalance.emittedGeV)} GeV = M₀c² to ${formatError(ev.energyBalance.relError)}\n` +
+        formatTable([['species', 'E [GeV]', 'share'], ...ev.species.map((x) => [x.name, g(x.energyGeV), g(x.fraction)])]) +
         ev.finalStages.map(stageText).join('') +
         (burstResult
           ? `time-integrated spectrum dN/dE [GeV⁻¹] over the last ${g(burstResult.stageSeconds)} s (${burstResult.approximation})\n` +
