@@ -58,6 +58,16 @@ describe('penumbra evolve', () => {
     expect(r.code).toBe(3);
     expect(r.stderr).toMatch(/massForLifetime: the mass's error estimate exceeds tol = 0\.00001/);
   });
+  test('text: the energy each species carries over the whole life, one row per species, the shares adding up to 1 (to the printed 6 digits)', async () => {
+    const text = (
+      await run('evolve', '--a', '0', '--mass', '1e15', '--unit', 'g', '--content', 'photon,graviton', '--points', '3')
+    ).stdout;
+    const block = text.split('energy emitted over the life:')[1].split('final ')[0].trim().split('\n');
+    expect(block[1].trim().split(/\s+/)).toEqual(['species', 'E', '[GeV]', 'share']);
+    const rows = block.slice(2).map((line) => line.trim().split(/\s+/));
+    expect(rows.map((r) => r[0])).toEqual(['photon', 'graviton']);
+    expect(Math.abs(rows.reduce((t, r) => t + Number(r[2]), 0) - 1)).toBeLessThan(2e-6);
+  });
   test('final stages: the last 1 s releases the mass M_τ with M_τ³ × (lifetime per g³) = 1 s to 1e-5, species energies add up to it to 1e-9; a τ longer than the life is the whole life', async () => {
     const j = JSON.parse(
       (await run('evolve', '--a', '0', '--mass', '1e15', '--unit', 'g', '--final', '1,1e40', '--json')).stdout,
