@@ -49,9 +49,23 @@ describe('penumbra evolve', () => {
     expect((await run(...args, '--tol', '1e-6')).code).toBe(3);
     for (const tol of ['0.5', '0.05', '1e-13']) expect((await run(...args, '--tol', tol)).code).toBe(2);
   });
-  test('--tol also holds the age-of-universe mass: a 1e20 g hole emitting photons and electrons, whose lifetime meets 1e-5, exits with code 3 naming massForLifetime (that mass is known to about 1e-4)', async () => {
-    const args = ['evolve', '--a', '0', '--mass', '1e20', '--unit', 'g', '--content', 'photon,electron', '--points', '3'];
+  test('--tol also holds the age-of-universe mass: a 1e20 g hole emitting photons, electrons and a user species (a 20 MeV scalar), whose lifetime meets 1e-5, exits with code 3 naming massForLifetime (that mass is known to about 1e-4)', async () => {
+    const args = [
+      'evolve',
+      '--a',
+      '0',
+      '--mass',
+      '1e20',
+      '--unit',
+      'g',
+      '--content',
+      'photon,electron,dark-scalar:0:1:0.02',
+      '--points',
+      '3',
+    ];
     const free = JSON.parse((await run(...args, '--json')).stdout);
+    expect(free.content.at(-1)).toEqual({ name: 'dark-scalar', spin: 0, dof: 1, massGeV: 0.02 });
+    expect(free.species.map((s: { name: string }) => s.name)).toEqual(['photon', 'electron', 'dark-scalar']);
     expect(free.relError).toBeLessThan(1e-5);
     expect(free.massForAgeOfUniverse.relError).toBeGreaterThan(1e-5);
     const r = await run(...args, '--tol', '1e-5');
