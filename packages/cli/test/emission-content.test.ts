@@ -10,7 +10,7 @@ import { run } from './helpers.js';
 const KNOWN = ['photon', 'graviton', 'electron', 'gluon', 'standard-model'];
 
 describe('penumbra emission --content', () => {
-  test('the totals row equals the library contentTotals converted with toPhysicalRates (to 1e-12), with one row per species', async () => {
+  test('the totals row equals the library contentTotals converted with toPhysicalRates (to 1e-12), with one row per species adding up to it', async () => {
     const r = await run('emission', '--a', '0', '--mass', '1e17', '--unit', 'g', '--content', 'photon,graviton,muon', '--json');
     expect(r.code).toBe(0);
     const json = JSON.parse(r.stdout);
@@ -22,6 +22,11 @@ describe('penumbra emission --content', () => {
     );
     const p = toPhysicalRates({ numberRate: lib.numberRate.value, power: lib.power.value, torque: lib.torque.value }, 1e17, 'g');
     expect(Math.abs(json.total.powerGeVPerSecond / p.powerGeVPerSecond - 1)).toBeLessThan(1e-12);
+    // the sum over the species rows is the total row
+    for (const key of ['numberRatePerSecond', 'powerGeVPerSecond'])
+      expect(
+        Math.abs(json.species.reduce((t: number, s: Record<string, number>) => t + s[key], 0) / json.total[key] - 1),
+      ).toBeLessThan(1e-12);
   });
 
   test('CSV of the totals carries units in the header, a row per species and the total', async () => {

@@ -39,7 +39,7 @@ describe('penumbra evolve', () => {
     expect((await run('evolve', '--a', '0.5', '--content', 'axion')).code).toBe(2);
     expect((await run('evolve', '--a', '1.2')).code).toBe(2);
   });
-  test('--tol: a lifetime within it prints as without; one whose error estimate exceeds it exits with code 3; a tol outside 1e-6 … 0.1 exits with code 2', async () => {
+  test('--tol: a lifetime within it prints as without; one whose error estimate exceeds it exits with code 3; a tol outside 1e-12 … 1e-2 (the range of every --tol) exits with code 2', async () => {
     const args = ['evolve', '--a', '0.5', '--mass', '1e15', '--unit', 'g', '--json'];
     const free = JSON.parse((await run(...args)).stdout);
     const within = await run(...args, '--tol', '0.01');
@@ -47,7 +47,40 @@ describe('penumbra evolve', () => {
     expect(JSON.parse(within.stdout).lifetimeSeconds).toBe(free.lifetimeSeconds);
     expect(free.relError).toBeGreaterThan(1e-6);
     expect((await run(...args, '--tol', '1e-6')).code).toBe(3);
-    expect((await run(...args, '--tol', '0.5')).code).toBe(2);
+    for (const tol of ['0.5', '0.05', '1e-13']) expect((await run(...args, '--tol', tol)).code).toBe(2);
+  });
+  test('--tol also holds the age-of-universe mass: a 1e20 g hole emitting photons, electrons and a user species (a 20 MeV scalar), whose lifetime meets 1e-5, exits with code 3 naming massForLifetime (that mass is known to about 1e-4)', async () => {
+    const args = [
+      'evolve',
+      '--a',
+      '0',
+      '--mass',
+      '1e20',
+      '--unit',
+      'g',
+      '--content',
+      'photon,electron,dark-scalar:0:1:0.02',
+      '--points',
+      '3',
+    ];
+    const free = JSON.parse((await run(...args, '--json')).stdout);
+    expect(free.content.at(-1)).toEqual({ name: 'dark-scalar', spin: 0, dof: 1, massGeV: 0.02 });
+    expect(free.species.map((s: { name: string }) => s.name)).toEqual(['photon', 'electron', 'dark-scalar']);
+    expect(free.relError).toBeLessThan(1e-5);
+    expect(free.massForAgeOfUniverse.relError).toBeGreaterThan(1e-5);
+    const r = await run(...args, '--tol', '1e-5');
+    expect(r.code).toBe(3);
+    expect(r.stderr).toMatch(/massForLifetime: the mass's error estimate exceeds tol = 0\.00001/);
+  });
+  test('text: the energy each species carries over the whole life, one row per species, the shares adding up to 1 (to the printed 6 digits)', async () => {
+    const text = (
+      await run('evolve', '--a', '0', '--mass', '1e15', '--unit', 'g', '--content', 'photon,graviton', '--points', '3')
+    ).stdout;
+    const block = text.split('energy emitted over the life:')[1].split('final ')[0].trim().split('\n');
+    expect(block[1].trim().split(/\s+/)).toEqual(['species', 'E', '[GeV]', 'share']);
+    const rows = block.slice(2).map((line) => line.trim().split(/\s+/));
+    expect(rows.map((r) => r[0])).toEqual(['photon', 'graviton']);
+    expect(Math.abs(rows.reduce((t, r) => t + Number(r[2]), 0) - 1)).toBeLessThan(2e-6);
   });
   test('final stages: the last 1 s releases the mass M_τ with M_τ³ × (lifetime per g³) = 1 s to 1e-5, species energies add up to it to 1e-9; a τ longer than the life is the whole life', async () => {
     const j = JSON.parse(

@@ -12,11 +12,20 @@
  * all radiated in τ, each species taking its share E_i.
  */
 import ode45 from 'ode45-cash-karp';
-import { ConvergenceError, InputError, numberIn, requireFinite, validateOptions, type Diagnostics } from '@penumbra/core';
+import {
+  ConvergenceError,
+  InputError,
+  numberIn,
+  requireFinite,
+  validateOptions,
+  validateTolerance,
+  type Diagnostics,
+} from '@penumbra/core';
 import { massToKg, type MassUnit } from '@penumbra/kerr';
 import { evolutionTimeUnitSeconds } from './evolution.js';
 import { FIELD_MASS_PER_GRAM_GEV, type MassLossRates } from './massLoss.js';
 import { GL5, hermite, trackError, type TrackNode } from './trackError.js';
+import { odeErrorBound } from './odeError.js';
 import { requireProblem } from './validate.js';
 
 /** The age of the universe, 13.787 Gyr (Planck 2018 results VI, A&A 641, A6 (2020)), in seconds (Julian years). */
@@ -45,9 +54,9 @@ export interface EvaporationOptions {
   /** durations τ (seconds) of the final stages to report (default [1]) */
   finalSeconds?: readonly number[];
   /**
-   * relative accuracy asked of the lifetime (range 1e-6 … 0.1; default none:
+   * relative accuracy asked of the lifetime (core's range, 1e-12 … 1e-2; default none:
    * the estimate is reported, not checked): a lifetime whose error estimate
-   * (ODE change + table error along the track) exceeds it throws ConvergenceError
+   * (odeError + table error along the track) exceeds it throws ConvergenceError
    */
   tol?: number;
 }
@@ -90,12 +99,14 @@ export interface FinalStage {
   aStarError: number;
 }
 
-/** How a history was computed; `errorEstimate` bounds the lifetime's relative error (ODE change + table error). */
+/** How a history was computed; `errorEstimate` bounds the lifetime's relative error (odeError + tableError). */
 export interface EvaporationDiagnostics extends Diagnostics {
   /** integrator tolerance of the reported run (half the requested one) */
   odeTol: number;
   /** |lifetime(odeTol) − lifetime(odeTol/2)| / lifetime */
   halvedTolChange: number;
+  /** bound on the lifetime's relative ODE error: halvedTolChange + 10 × the requested odeTol (odeError.ts) */
+  odeError: number;
   /**
    * relative error of the lifetime from the tables: the local relative error
    * of f (rates.at(M, a*).error), plus that of a* carried into f, averaged over
@@ -145,7 +156,7 @@ const OPTIONS = {
   odeTol: numberIn(1e-12, 1e-4),
   aStarThresholds: positiveList('aStarThresholds', 0, 1),
   finalSeconds: positiveList('finalSeconds', 0, 1e300),
-  tol: numberIn(1e-6, 0.1),
+  tol: validateTolerance,
 };
 
 function checkRates(value: unknown): MassLossRates {
@@ -336,6 +347,7 @@ export function evaporateHole(problem: EvaporationProblem, options?: Evaporation
   const a = integrate(rates, m0, aStar0, odeTol, uEnd);
   const b = integrate(rates, m0, aStar0, odeTol / 2, uEnd);
   const change = Math.abs(a.lifetime - b.lifetime) / b.lifetime;
+  const odeError = odeErrorBound(change, odeTol);
   const track = trackError(b.nodes, rates, m0, b.rest);
   const tableError = track.total / b.lifetime;
   const aStarTableError = track.aStar[track.aStar.length - 1];
@@ -343,10 +355,11 @@ export function evaporateHole(problem: EvaporationProblem, options?: Evaporation
     method: METHOD,
     steps: b.steps,
     rhsEvaluations: a.evaluations + b.evaluations,
-    errorEstimate: change + tableError,
-    message: `lifetime moves by ${change.toExponential(2)} when the ODE tolerance is halved; f, g table error along the track ${tableError.toExponential(2)}`,
+    errorEstimate: odeError + tableError,
+    message: `lifetime moves by ${change.toExponential(2)} when the ODE tolerance is halved (ODE error bound ${odeError.toExponential(2)}); f, g table error along the track ${tableError.toExponential(2)}`,
     odeTol: odeTol / 2,
     halvedTolChange: change,
+    odeError,
     tableError,
     aStarTableError,
     uEnd,
@@ -462,8 +475,14 @@ export interface MassForLifetime {
   lifetimeSeconds: number;
   /** bisection steps in ln M */
   iterations: number;
-  /** relative error of the mass: the lifetime's error estimate (ODE + tables along the track) / 3 (τ grows at least as M₀³) plus the bisection width */
+  /**
+   * relative error of the mass: the lifetime's error estimate (ODE + tables along
+   * the track) / 3 (τ grows at least as M₀³), the bisection width, and the miss
+   * |ln(lifetime reached / lifetime wanted)| / 3
+   */
   relError: number;
+  /** the final run's diagnostics (evaporateHole at the mass found) */
+  diagnostics: EvaporationDiagnostics;
 }
 
 /** A content's rates, a lifetime and the formation a*. */
@@ -475,15 +494,31 @@ export interface MassForLifetimeProblem {
   readonly aStar0?: number;
 }
 
+/** Options of massForLifetime; unknown keys are refused. */
+export interface MassForLifetimeOptions {
+  /** relative tolerance of the final run's ODE integrator (default 1e-8, range 1e-12 … 1e-4); the bisection runs at 10× it */
+  odeTol?: number;
+  /**
+   * relative accuracy asked of the mass (core's range, 1e-12 … 1e-2; default
+   * none: the estimate is reported, not checked): a mass whose relError exceeds
+   * it throws ConvergenceError
+   */
+  tol?: number;
+}
+
+const MASS_FOR_LIFETIME_OPTIONS = { odeTol: numberIn(1e-12, 1e-4), tol: validateTolerance };
+
 /**
  * The formation mass whose lifetime equals `seconds` (by default the age of
  * the universe, 13.787 Gyr) for a content: bisection in ln M on the lifetime
  * of evaporateHole, bracketed by the lifetimes with the lightest and the full
- * content. Throws InputError for a bad problem.
+ * content. Throws InputError for a bad problem or option, ConvergenceError if
+ * the final run's lifetime moves when the ODE tolerance is halved or the
+ * mass's error estimate exceeds `tol`.
  *
- * @example massForLifetime({ rates: massLossRates({ species }) }).massGrams
+ * @example massForLifetime({ rates: massLossRates({ species }) }, { tol: 1e-3 }).massGrams
  */
-export function massForLifetime(problem: MassForLifetimeProblem): MassForLifetime {
+export function massForLifetime(problem: MassForLifetimeProblem, options?: MassForLifetimeOptions): MassForLifetime {
   const p = requireProblem(problem, ['rates', 'seconds', 'aStar0']);
   const rates = checkRates(p.rates);
   const seconds =
@@ -491,8 +526,10 @@ export function massForLifetime(problem: MassForLifetimeProblem): MassForLifetim
   if (!(seconds > 1e-30 && seconds < 1e100)) throw new InputError('seconds', 'a time from 1e-30 to 1e100 s', seconds);
   const aStar0 = p.aStar0 === undefined ? 0 : requireFinite('aStar0', p.aStar0);
   if (!(aStar0 >= 0 && aStar0 <= rates.aMax)) throw new InputError('aStar0', `0 ≤ a* ≤ ${rates.aMax}`, aStar0);
+  const { odeTol = 1e-8, tol } = validateOptions<MassForLifetimeOptions>(options, MASS_FOR_LIFETIME_OPTIONS);
+  const bisectionOdeTol = Math.min(1e-4, 10 * odeTol);
   const lifetimeSeconds = (massGrams: number) =>
-    integrate(rates, massGrams, aStar0, 1e-7, endOfIntegration(rates, massGrams)).lifetime *
+    integrate(rates, massGrams, aStar0, bisectionOdeTol, endOfIntegration(rates, massGrams)).lifetime *
     evolutionTimeUnitSeconds(massGrams, 'g');
   // t = M³/(3f) with f between its values for the full content (small M) and the massless part (large M)
   const tUnit = evolutionTimeUnitSeconds(1, 'g');
@@ -500,22 +537,31 @@ export function massForLifetime(problem: MassForLifetimeProblem): MassForLifetim
   const fHigh = rates.f(1e40, 0);
   let lo = Math.log(Math.cbrt((3 * Math.min(fLow, fHigh) * seconds) / tUnit) / 2);
   let hi = Math.log(Math.cbrt((3 * Math.max(fLow, fHigh) * seconds) / tUnit) * 2);
+  // the bracket in ln M: 1e-7, or a tenth of tol when that is asked for
+  const width = Math.max(1e-13, Math.min(1e-7, tol === undefined ? 1 : tol / 10));
   let iterations = 0;
-  while (hi - lo > 1e-7 && iterations < 100) {
+  while (hi - lo > width && iterations < 100) {
     const mid = 0.5 * (lo + hi);
     if (lifetimeSeconds(Math.exp(mid)) < seconds) lo = mid;
     else hi = mid;
     iterations++;
   }
   const massGrams = Math.exp(0.5 * (lo + hi));
-  const ev = evaporateHole({ rates, mass: massGrams, unit: 'g', aStar0 }, { finalSeconds: [] });
-  return {
-    massGrams,
-    aStar0,
-    lifetimeSeconds: ev.lifetimeSeconds,
-    iterations,
-    // δM₀/M₀ = (δτ/τ)/(d ln τ/d ln M₀) with d ln τ/d ln M₀ = M₀³/(f₀ τ) ≥ 3 where f does not fall as the hole
-    // gets lighter (τ ≤ M₀³/(3 f₀)); the bisection width on top
-    relError: ev.diagnostics.errorEstimate / 3 + (hi - lo),
-  };
+  const ev = evaporateHole({ rates, mass: massGrams, unit: 'g', aStar0 }, { finalSeconds: [], odeTol });
+  // δM₀/M₀ = (δτ/τ)/(d ln τ/d ln M₀) with d ln τ/d ln M₀ = M₀³/(f₀ τ) ≥ 3 where f does not fall as the hole
+  // gets lighter (τ ≤ M₀³/(3 f₀)); the bisection width and the miss of the final run (its ODE tolerance
+  // differs from the bisection's) on top
+  const miss = Math.abs(Math.log(ev.lifetimeSeconds / seconds)) / 3;
+  const relError = ev.diagnostics.errorEstimate / 3 + (hi - lo) + miss;
+  if (tol !== undefined && !(relError <= tol)) {
+    throw new ConvergenceError(`massForLifetime: the mass's error estimate exceeds tol = ${tol}`, {
+      ...ev.diagnostics,
+      errorEstimate: relError,
+      message: `mass ${massGrams} g: lifetime error ${ev.diagnostics.errorEstimate.toExponential(2)} (/3), bisection width ${(hi - lo).toExponential(2)}, miss ${miss.toExponential(2)}`,
+      massGrams,
+      lifetimeErrorEstimate: ev.diagnostics.errorEstimate,
+      tol,
+    });
+  }
+  return { massGrams, aStar0, lifetimeSeconds: ev.lifetimeSeconds, iterations, relError, diagnostics: ev.diagnostics };
 }

@@ -9,9 +9,18 @@
  * difference reported (and bounded).
  */
 import ode45 from 'ode45-cash-karp';
-import { ConvergenceError, InputError, numberIn, requireFinite, validateOptions, type Diagnostics } from '@penumbra/core';
+import {
+  ConvergenceError,
+  InputError,
+  numberIn,
+  requireFinite,
+  validateOptions,
+  validateTolerance,
+  type Diagnostics,
+} from '@penumbra/core';
 import { CODATA2018, PHYSICAL_MASS_RANGE_KG, requirePhysicalMass, unitScales, type MassUnit } from '@penumbra/kerr';
 import type { PageFunctions } from './pageFunctions.js';
+import { odeErrorBound } from './odeError.js';
 import { requireProblem } from './validate.js';
 
 /** A hole's initial a* and the f, g that drive its evaporation. */
@@ -41,14 +50,22 @@ export interface EvolutionOptions {
   odeTol?: number;
   /** report the time at which a* first falls below each of these values, each in (0, 1) */
   aStarThresholds?: readonly number[];
+  /**
+   * relative accuracy asked of the lifetime (core's range, 1e-12 … 1e-2; default
+   * none: the estimate is reported, not checked): a lifetime whose error estimate
+   * (odeError + tableError) exceeds it throws ConvergenceError
+   */
+  tol?: number;
 }
 
-/** How a history was computed; `errorEstimate` bounds the lifetime's relative error (ODE change + table error). */
+/** How a history was computed; `errorEstimate` bounds the lifetime's relative error (odeError + tableError). */
 export interface EvolutionDiagnostics extends Diagnostics {
   /** the integrator tolerance of the reported run (half the requested one) */
   odeTol: number;
   /** |lifetime(odeTol) − lifetime(odeTol/2)| / lifetime */
   halvedTolChange: number;
+  /** bound on the lifetime's relative ODE error: halvedTolChange + 10 × the requested odeTol (odeError.ts) */
+  odeError: number;
   /** relative error of f and g from the table (node + interpolation), propagated 1:1 to the lifetime */
   tableError: number;
 }
@@ -80,7 +97,7 @@ function thresholds(value: unknown, parameter: string): number[] {
   });
 }
 
-const OPTIONS = { odeTol: numberIn(1e-12, 1e-4), aStarThresholds: thresholds };
+const OPTIONS = { odeTol: numberIn(1e-12, 1e-4), aStarThresholds: thresholds, tol: validateTolerance };
 
 function checkFunctions(value: unknown): PageFunctions {
   const fns = value as Partial<PageFunctions> | null;
@@ -179,7 +196,7 @@ function crossing(r: ReturnType<typeof run>, target: number): number {
  * The evaporation history of a hole from Page's f and g: lifetime (units of
  * M₀³), the track a*(M/M₀) and the times a* falls below given values. Throws
  * InputError for a bad problem or option, ConvergenceError if the lifetime
- * moves when the ODE tolerance is halved.
+ * moves when the ODE tolerance is halved or its error estimate exceeds `tol`.
  *
  * @example evolveHole({ functions: pageFunctions({ table: bundledPageTable() }), aStar0: 0.9 }, { aStarThresholds: [0.1] })
  */
@@ -190,10 +207,11 @@ export function evolveHole(problem: EvolutionProblem, options?: EvolutionOptions
   if (typeof aStar0 !== 'number' || !Number.isFinite(aStar0) || aStar0 < 0 || aStar0 > fns.aMax) {
     throw new InputError('aStar0', `0 ≤ a* ≤ ${fns.aMax} (the range of the f, g table)`, aStar0);
   }
-  const { odeTol = 1e-8, aStarThresholds = [] } = validateOptions<EvolutionOptions>(options, OPTIONS);
+  const { odeTol = 1e-8, aStarThresholds = [], tol } = validateOptions<EvolutionOptions>(options, OPTIONS);
   const a = run(fns, aStar0, odeTol);
   const b = run(fns, aStar0, odeTol / 2);
   const change = Math.abs(a.lifetime - b.lifetime) / b.lifetime;
+  const odeError = odeErrorBound(change, odeTol);
   const tableError = Math.max(fns.interpolationError.f + fns.nodeError.f, fns.interpolationError.g + fns.nodeError.g);
   const crossings = aStarThresholds.map((t) => {
     const time = crossing(b, t);
@@ -206,10 +224,11 @@ export function evolveHole(problem: EvolutionProblem, options?: EvolutionOptions
     method: METHOD,
     steps: b.steps,
     rhsEvaluations: a.counter.evaluations + b.counter.evaluations,
-    errorEstimate: change + tableError,
-    message: `lifetime moves by ${change.toExponential(2)} when the ODE tolerance is halved; f, g table error ${tableError.toExponential(2)}`,
+    errorEstimate: odeError + tableError,
+    message: `lifetime moves by ${change.toExponential(2)} when the ODE tolerance is halved (ODE error bound ${odeError.toExponential(2)}); f, g table error ${tableError.toExponential(2)}`,
     odeTol: odeTol / 2,
     halvedTolChange: change,
+    odeError,
     tableError,
   };
   if (!(change <= Math.max(100 * odeTol, 1e-10))) {
@@ -217,6 +236,13 @@ export function evolveHole(problem: EvolutionProblem, options?: EvolutionOptions
       ...diagnostics,
       lifetime: a.lifetime,
       lifetimeHalfTol: b.lifetime,
+    });
+  }
+  if (tol !== undefined && !(diagnostics.errorEstimate <= tol)) {
+    throw new ConvergenceError(`evolution: the lifetime's error estimate exceeds tol = ${tol}`, {
+      ...diagnostics,
+      lifetime: b.lifetime,
+      tol,
     });
   }
   return { aStar0, lifetime: b.lifetime, track: b.track, crossings, diagnostics };

@@ -108,6 +108,7 @@ export {
   type SpeciesEnergy,
   type MassForLifetime,
   type MassForLifetimeProblem,
+  type MassForLifetimeOptions,
 } from './evaporation.js';
 export {
   burstSpectrum,

@@ -31,7 +31,9 @@ describe('the solve contract (problem → solve(problem, options) → solution w
     );
     expect(inputErrorOf(() => emissionTotals({ hole, field, omega: 0.1 } as never)).parameter).toBe('problem.omega');
     expect(inputErrorOf(() => contentTotals({ hole }, { points: 5 } as never)).parameter).toBe('options.points');
-    expect(inputErrorOf(() => evolveHole({ functions: fns, aStar0: 0.5 }, { tol: 1e-8 } as never)).parameter).toBe('options.tol');
+    expect(inputErrorOf(() => evolveHole({ functions: fns, aStar0: 0.5 }, { tolerance: 1e-8 } as never)).parameter).toBe(
+      'options.tolerance',
+    );
     expect(inputErrorOf(() => pageTable({ points: 5 }, { aMax: 0.5 } as never)).parameter).toBe('options.aMax');
   });
   test('options that are not objects, and bad option values, are InputErrors naming the key (not TypeErrors, not silent defaults)', () => {
@@ -61,6 +63,9 @@ describe('the solve contract (problem → solve(problem, options) → solution w
       inputErrorOf(() => emissionSpectrum({ hole: { a: 0 }, field: { spin: 1 }, grid: [0.1] }, { tol: 0.02 })).parameter,
     ).toBe('tol');
     expect(inputErrorOf(() => pageTable({}, { tol: 0 })).parameter).toBe('tol');
+    // evolveHole takes tol (the lifetime's requested accuracy) under the same rule
+    expect(inputErrorOf(() => evolveHole({ functions: fns, aStar0: 0.5 }, { tol: 0.05 })).parameter).toBe('tol');
+    expect(inputErrorOf(() => evolveHole({ functions: fns, aStar0: 0.5 }, { tol: 1e-13 })).parameter).toBe('tol');
   });
   test('the hole and field are checked by core: |a| ≤ 0.99999 M, mass > 0, field spin 0, 1/2, 1, 2', () => {
     expect(inputErrorOf(() => emissionTotals({ hole: { a: 0.999995 }, field: { spin: 1 } })).parameter).toBe('hole.a');
@@ -106,6 +111,7 @@ describe('the solve contract (problem → solve(problem, options) → solution w
     const ev = evolveHole({ functions: fns, aStar0: 0.5 });
     expectDiagnostics(ev.diagnostics);
     expect(ev.diagnostics.rhsEvaluations).toBeGreaterThan(ev.diagnostics.steps);
-    expect(ev.diagnostics.errorEstimate).toBe(ev.diagnostics.halvedTolChange + ev.diagnostics.tableError);
+    expect(ev.diagnostics.errorEstimate).toBe(ev.diagnostics.odeError + ev.diagnostics.tableError);
+    expect(ev.diagnostics.odeError).toBeGreaterThan(ev.diagnostics.halvedTolChange);
   });
 });

@@ -87,7 +87,7 @@ describe('evaporation of a hole emitting massless species', () => {
     }
   });
 
-  test('tol: a lifetime within it is returned unchanged; one whose error estimate exceeds it throws ConvergenceError with the diagnostics; a tol outside 1e-6 … 0.1 is an InputError naming tol', () => {
+  test('tol: a lifetime within it is returned unchanged; one whose error estimate exceeds it throws ConvergenceError with the diagnostics; a tol outside 1e-12 … 1e-2 (the core range) is an InputError naming tol', () => {
     const problem = { rates: pageRates, mass: 1e15, unit: 'g' as const, aStar0: 0.5 };
     const free = evaporateHole(problem, { finalSeconds: [] });
     const checked = evaporateHole(problem, { finalSeconds: [], tol: 1e-2 });
@@ -100,7 +100,7 @@ describe('evaporation of a hole emitting massless species', () => {
       expect(e).toBeInstanceOf(ConvergenceError);
       expect((e as ConvergenceError).diagnostics.errorEstimate).toBe(free.diagnostics.errorEstimate);
     }
-    for (const tol of [0, 0.5, Number.NaN, '1e-3'])
+    for (const tol of [0, 1e-13, 0.05, 0.5, Number.NaN, '1e-3'])
       try {
         evaporateHole(problem, { tol } as never);
         expect.unreachable();

@@ -13,7 +13,7 @@ import {
   type PageTable,
 } from '@penumbra/emission';
 import { parseContentList } from '../contentOption.js';
-import type { Column } from '@penumbra/core';
+import { TOLERANCE_RANGE, type Column } from '@penumbra/core';
 import type { Command } from '../command.js';
 import { UsageError } from '../command.js';
 import { INACCURATE_COLUMN, isInaccurate, warnInaccurate } from '../accuracy.js';
@@ -81,9 +81,10 @@ Options:
                     massless shape above threshold (seconds to a minute)
   --table-points N  compute a fresh massless f, g table with N nodes instead of the shipped one
   --points N        track points printed (default 40)
-  --tol T           relative accuracy asked of the lifetime (1e-6 … 0.1): a lifetime whose
-                    estimated error exceeds it fails with exit code 3 instead of printing
-                    a warning (default: none, the estimate is printed and flagged above 1e-3)
+  --tol T           relative accuracy asked of the lifetime and of the age-of-universe mass
+                    (1e-12 … 1e-2, as every --tol): either one whose estimated error exceeds
+                    it fails with exit code 3 instead of printing a warning (default: none,
+                    the estimates are printed and flagged above 1e-3)
   --json            JSON {lifetimeSeconds, lifetimeOverMassCubed, relError, inaccurate,
                     track: [{timeSeconds, mass, aStar, temperatureGeV, fRelError}], crossings,
                     finalStages (with relError, aStarError), species, energyBalance, massForAgeOfUniverse, diagnostics}
@@ -94,17 +95,18 @@ Options:
 Also printed: the formation mass whose lifetime is the age of the universe
 (13.787 Gyr, Planck 2018) for a* = 0 and this content.
 Errors: f and g carry a local error from the table cells each point uses
-(fRelError on the track); the lifetime's relative error is the change when the
-ODE tolerance is halved plus f's local error averaged over the track with the
-weight dt (and the a* error it causes); a final stage's mass carries
-(∫ ε dt over the stage)·f/M³. A lifetime or final-stage mass whose estimated
+(fRelError on the track); the lifetime's relative error is the ODE bound (the
+change when the ODE tolerance is halved, plus 10 × that tolerance) plus f's
+local error averaged over the track with the weight dt (and the a* error it
+causes); the age-of-universe mass carries a third of it plus the bisection's;
+a final stage's mass carries (∫ ε dt over the stage)·f/M³. A lifetime or final-stage mass whose estimated
 relative error exceeds 1e-3 prints a warning on stderr; the lifetime's sets
 inaccurate: true.
   -h, --help        this text
 
 Limits:
   0 ≤ a* ≤ 0.99 with the shipped tables; --table-points from 5 to 2000;
-  masses 1e-90 … 1e100 kg (see 'penumbra kerr --help')
+  masses 1e-90 … 1e100 kg (see 'penumbra kerr --help'); --tol from 1e-12 to 1e-2
 
 Example:
   penumbra evolve --a 0.5 --mass 1e15 --unit g --json
@@ -165,12 +167,12 @@ Example:
         `--a ${aStar} is beyond the tables (a* ≤ ${rates.aMax})${values['table-points'] === undefined ? '; the massless table can be recomputed with --table-points N' : ''}`,
       );
     }
-    const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol, { min: 1e-6, max: 0.1 });
+    const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol, TOLERANCE_RANGE);
     const ev = evaporateHole(
       { rates, mass, unit, aStar0: aStar },
       { aStarThresholds: below, finalSeconds, ...(tol === undefined ? {} : { tol }) },
     );
-    const age = massForLifetime({ rates, seconds: AGE_OF_UNIVERSE_SECONDS, aStar0: 0 });
+    const age = massForLifetime({ rates, seconds: AGE_OF_UNIVERSE_SECONDS, aStar0: 0 }, tol === undefined ? {} : { tol });
     const burst =
       energies === undefined || ev.finalStages.length === 0
         ? undefined
@@ -254,7 +256,7 @@ Example:
         `evaporation of a hole of ${g(mass)} ${unit}, a* = ${aStar}; content ${species.map((s) => s.name).join(', ')}\n` +
         `lifetime: ${g(result.lifetimeSeconds)} s  (${formatNumber(ev.lifetimeOverMassCubed, 8)} M₀³ in Planck units; ` +
         `rel. error ${formatError(relError)}${inaccurate ? ', above 1e-3' : ''}: ` +
-        `f, g tables ${formatError(ev.diagnostics.tableError)} along the track, ODE ${formatError(ev.diagnostics.halvedTolChange)})\n` +
+        `f, g tables ${formatError(ev.diagnostics.tableError)} along the track, ODE ${formatError(ev.diagnostics.odeError)})\n` +
         `f(M₀, a*) = ${g(start.f)}, g(M₀, a*) = ${g(start.g)}; T_H at formation ${g(ev.track[0].temperatureGeV)} GeV\n` +
         result.crossings
           .map((c) =>
@@ -267,6 +269,7 @@ Example:
           .join('') +
         `mass whose lifetime is the age of the universe (13.787 Gyr), a* = 0: ${g(age.massGrams)} g (rel. error ${formatError(age.relError)})\n` +
         `energy emitted over the life: ${g(ev.energyBalance.emittedGeV)} GeV = M₀c² to ${formatError(ev.energyBalance.relError)}\n` +
+        formatTable([['species', 'E [GeV]', 'share'], ...ev.species.map((x) => [x.name, g(x.energyGeV), g(x.fraction)])]) +
         ev.finalStages.map(stageText).join('') +
         (burstResult
           ? `time-integrated spectrum dN/dE [GeV⁻¹] over the last ${g(burstResult.stageSeconds)} s (${burstResult.approximation})\n` +
