@@ -17,6 +17,12 @@ describe('penumbra emission', () => {
     // photons: 2 dof × P ≈ 3.36e-5/M² (Page, Phys. Rev. D 13, 198 (1976), value from memory), three figures
     expect(Math.abs((2 * json.power.value) / 3.36e-5 - 1)).toBeLessThan(2e-3);
   });
+  test('without --a the hole is non-rotating: the same totals as --a 0', async () => {
+    const given = await run('emission', '--a', '0', '--spin', '1', '--tol', '1e-3', '--json');
+    const omitted = await run('emission', '--spin', '1', '--tol', '1e-3', '--json');
+    expect(omitted.code).toBe(0);
+    expect(omitted.stdout).toBe(given.stdout);
+  });
   test('with --mass the power is also given in watts, P̂ ħc⁶/(G²M²) with CODATA 2018 constants (to 1e-12)', async () => {
     const json = JSON.parse(
       (await run('emission', '--a', '0', '--spin', '0', '--mass', '1e15', '--unit', 'g', '--tol', '1e-3', '--json')).stdout,

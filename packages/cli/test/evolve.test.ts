@@ -33,6 +33,12 @@ describe('penumbra evolve', () => {
     );
     expect(Math.abs(j.lifetimeSeconds / 8.66e-27 - 1)).toBeLessThan(2e-3);
   });
+  test('without --a the hole is non-rotating: the same output as --a 0', async () => {
+    const given = await run('evolve', '--a', '0', '--mass', '1e15', '--unit', 'g', '--json', '--points', '5');
+    const omitted = await run('evolve', '--mass', '1e15', '--unit', 'g', '--json', '--points', '5');
+    expect(omitted.code).toBe(0);
+    expect(omitted.stdout).toBe(given.stdout);
+  });
   test('CSV track with units in the header; unknown species and out-of-range a* exit with code 2', async () => {
     const csv = (await run('evolve', '--a', '0.5', '--csv', '--points', '5')).stdout.trim().split('\n');
     expect(csv[0]).toBe('timeSeconds [s],mass [g],aStar [1],temperatureGeV [GeV],fRelError [1],inaccurate');

@@ -22,8 +22,8 @@ import { progressReporter } from '../progress.js';
 export const command: Command = {
   name: 'emission',
   summary: 'Hawking emission per degree of freedom or over species (--content): number rate, power, torque, spectra',
-  usage: `Usage: penumbra emission --a A --spin S [--mass M --unit g|kg|msun] [--omega START:STOP:COUNT] [--tol T] [--json|--csv]
-       penumbra emission --a A --content LIST --mass M --unit g|kg|msun [--energy START:STOP:COUNT] [--confinement-scale GEV] [--tol T] [--json|--csv]
+  usage: `Usage: penumbra emission [--a A] --spin S [--mass M --unit g|kg|msun] [--omega START:STOP:COUNT] [--tol T] [--json|--csv]
+       penumbra emission [--a A] --content LIST --mass M --unit g|kg|msun [--energy START:STOP:COUNT] [--confinement-scale GEV] [--tol T] [--json|--csv]
 
 Totals per degree of freedom (one helicity of one species) in geometric units of
 the hole mass M: numberRate ∝ 1/M, power ∝ 1/M², torque dJ/dt ∝ 1/M (ħ = 1).
@@ -35,7 +35,7 @@ above E = m (docs/emission.md). Quarks and gluons are emitted only when
 T_H > the confinement scale, pions only below it (common practice, no source).
 
 Options:
-  --a A         the hole's spin parameter a/M (|a/M| ≤ 0.99999)
+  --a A         the hole's spin parameter a/M (|a/M| ≤ 0.99999; default 0, non-rotating)
   --spin S      field spin: 0, 1/2, 1, 2 (not with --content)
   --content LIST  comma-separated species: ${Object.keys(KNOWN_SPECIES).join(', ')},
                 standard-model (all but scalar), or a user species NAME:SPIN:DOF[:MASS_GEV]
@@ -88,7 +88,7 @@ Examples:
           : parseRange('--energy', values.energy, { log: true, min: 0, exclusive: true, maxCount: 1000 });
       runContentEmission(
         {
-          a: parseNumber('--a', requireOption(values.a, '--a', "the hole's a/M")),
+          a: values.a === undefined ? 0 : parseNumber('--a', values.a),
           mass: given.mass,
           unit: given.unit,
           content: parseContentList('--content', values.content, known),
@@ -108,7 +108,7 @@ Examples:
     if (values.energy !== undefined) throw new UsageError('--energy goes with --content (use --omega for one field)');
     if (values['confinement-scale'] !== undefined) throw new UsageError('--confinement-scale goes with --content');
     const spin = parseFieldSpin('--spin', requireOption(values.spin, '--spin', 'the field spin'));
-    const a = parseNumber('--a', requireOption(values.a, '--a', "the hole's a/M"));
+    const a = values.a === undefined ? 0 : parseNumber('--a', values.a);
     const tol = values.tol === undefined ? 1e-6 : parseNumber('--tol', values.tol);
     const given = parseMassOption(values);
     const mass = given?.mass;

@@ -18,7 +18,7 @@ import type { Command } from '../command.js';
 import { UsageError } from '../command.js';
 import { INACCURATE_COLUMN, isInaccurate, warnInaccurate } from '../accuracy.js';
 import { formatError, formatNumber, formatTable } from '../format.js';
-import { parseMassOption, parseNumber, parseNumberList, parseOptions, parseRange, requireOption } from '../options.js';
+import { parseMassOption, parseNumber, parseNumberList, parseOptions, parseRange } from '../options.js';
 import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
 
 /** CSV columns of the track: the keys of the JSON track points (the mass in the unit of --unit). */
@@ -52,7 +52,7 @@ function parseContent(text: string | undefined): EmittedSpecies[] {
 export const command: Command = {
   name: 'evolve',
   summary: 'evaporation history of a hole: lifetime, the track of M, a*, T_H, the final burst, per species',
-  usage: `Usage: penumbra evolve --a A [--mass M --unit g|kg|msun] [--content LIST] [--final T1,T2,…] [--below A1,A2,…] [--table-points N] [--json|--csv]
+  usage: `Usage: penumbra evolve [--a A] [--mass M --unit g|kg|msun] [--content LIST] [--final T1,T2,…] [--below A1,A2,…] [--table-points N] [--json|--csv]
 
 Integrates dM/dt = −f(M, a*)/M², dJ/dt = −g(M, a*) a*/M (Page 1976, with the
 thresholds of massive species) from formation to the end. f and g come from
@@ -61,7 +61,7 @@ the tables shipped with @penumbra/emission: massless per-dof rates over a*
 --table-points N recomputes the massless table with N nodes (slow: minutes).
 
 Options:
-  --a A             the hole's formation a/M (0 … 0.99 with the shipped tables)
+  --a A             the hole's formation a/M (0 … 0.99 with the shipped tables; default 0, non-rotating)
   --mass M          formation mass (default 1 g), always with --unit g, kg or msun
   --content LIST    species: standard-model, or names from the registry (photon, gluon, graviton,
                     neutrino-e/-mu/-tau, electron, muon, tau, up, down, strange, charm, bottom,
@@ -127,7 +127,7 @@ Example:
       ...OUTPUT_OPTIONS,
     });
     const format = outputFormat(values);
-    const aStar = parseNumber('--a', requireOption(values.a, '--a', "the hole's formation a/M"), { min: 0, max: 0.9999 });
+    const aStar = values.a === undefined ? 0 : parseNumber('--a', values.a, { min: 0, max: 0.9999 });
     const { mass, unit } = parseMassOption(values) ?? { mass: 1, unit: 'g' };
     const species = parseContent(values.content);
     // the default milestones are those still ahead of the hole; explicit ones are all reported
