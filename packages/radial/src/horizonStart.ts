@@ -1,5 +1,4 @@
 /** Where the integration starts: the horizon series summed close enough to r+ to converge without cancelling digits. */
-import { ConvergenceError } from '@penumbra/core';
 import type { KerrHole } from '@penumbra/kerr';
 import type { RadialEquation, RadialMode } from './equation.js';
 import { horizonSeriesStart, type HorizonStart } from './horizonSeries.js';
@@ -70,12 +69,11 @@ export function startAtHorizon(
   const accepted = tol !== undefined && tol < NEAR_ROUNDING_TOL ? START_TRUNCATION : START_TRUNCATION_WIDE;
   if (startFraction === undefined && innerStop > hole.rPlus) x0 = Math.min(x0, 0.5 * (innerStop - hole.rPlus));
   for (;;) {
-    try {
-      const start = horizonSeriesStart(hole, mode, x0, eq);
-      if (start.truncation <= accepted || x0 < 1e-4 * b || startFraction !== undefined) return start;
-    } catch (e) {
-      if (!(e instanceof ConvergenceError) || x0 < 1e-6 * b) throw e;
-    }
+    const start = horizonSeriesStart(hole, mode, x0, eq, true);
+    if (start === undefined) {
+      // no more retries: the series' own ConvergenceError, with its diagnostics
+      if (x0 < 1e-6 * b) return horizonSeriesStart(hole, mode, x0, eq);
+    } else if (start.truncation <= accepted || x0 < 1e-4 * b || startFraction !== undefined) return start;
     x0 *= 0.5;
   }
 }

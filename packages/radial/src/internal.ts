@@ -41,4 +41,4 @@ export {
   phaseRate,
   RICCATI_NODES,
 } from './riccatiStep.js';
-export { type ChebyshevRule, chebyshevRule, chebyshevTail } from './chebyshev.js';
+export { type ChebyshevRule, chebyshevRule, chebyshevTail, chebyshevDerivative } from './chebyshev.js';

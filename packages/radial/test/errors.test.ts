@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { ConvergenceError, InputError, type Diagnostics } from '@penumbra/core';
 import { kerrHole } from '@penumbra/kerr';
 import { solveRadial, solveTwoSided } from '@penumbra/radial';
+import { horizonSeriesStart, radialEquation } from '@penumbra/radial/internal';
 
 const hole = kerrHole({ a: 0.5 });
 const p = { hole, s: 1, m: 1, omega: 0.3, lambda: 1.5 };
@@ -95,5 +96,19 @@ describe('the solve contract: options validated by name', () => {
     expectFullDiagnostics(d);
     expect(Number.isFinite(d.errorEstimate)).toBe(true);
     expect(d.message).toMatch(/no independent error estimate/);
+  });
+});
+
+describe('horizon series that does not converge', () => {
+  it('throws ConvergenceError (method named), or with quiet returns undefined; where it converges both give the same start (l = 75, a = 0.99, Mω = 1: the terms overflow at x0 = 0.75 (r+ − r−))', () => {
+    const near = kerrHole({ a: 0.99 });
+    const mode = { s: 0, m: 38, omega: 1, lambda: 75 * 76 };
+    const eq = radialEquation(near, mode, near.rPlus);
+    const b = near.rPlus - near.rMinus;
+    const e = thrown(() => horizonSeriesStart(near, mode, 0.75 * b, eq));
+    expect(e).toBeInstanceOf(ConvergenceError);
+    expect((e as ConvergenceError).diagnostics.method).toBe('horizon Frobenius series');
+    expect(horizonSeriesStart(near, mode, 0.75 * b, eq, true)).toBeUndefined();
+    expect(horizonSeriesStart(near, mode, 0.02 * b, eq, true)).toEqual(horizonSeriesStart(near, mode, 0.02 * b, eq));
   });
 });

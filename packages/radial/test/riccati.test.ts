@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { kerrHole } from '@penumbra/kerr';
 import { solveRadial, solveTwoSided } from '@penumbra/radial';
 import {
+  chebyshevDerivative,
   chebyshevRule,
   integrateHybridLeg,
   integrateLeg,
@@ -29,6 +30,26 @@ describe('Chebyshev–Lobatto collocation (Trefethen, Spectral Methods in MATLAB
       integral += w[i] * t[i] ** 6;
     }
     expect(Math.abs(integral - 2 / 7)).toBeLessThan(1e-13);
+  });
+
+  it('the folded product (chebyshevDerivative) differentiates t^9 + i t^4 exactly at 16 and 15 nodes, read at an offset (to 1e-12)', () => {
+    for (const nodes of [16, 15]) {
+      const rule = chebyshevRule(nodes);
+      const o = 3;
+      const re = new Float64Array(nodes + o),
+        im = new Float64Array(nodes + o);
+      for (let j = 0; j < nodes; j++) {
+        re[o + j] = rule.t[j] ** 9;
+        im[o + j] = rule.t[j] ** 4;
+      }
+      const dRe = new Float64Array(nodes),
+        dIm = new Float64Array(nodes);
+      chebyshevDerivative(rule, re, im, o, dRe, dIm);
+      for (let i = 0; i < nodes; i++) {
+        expect(Math.abs(dRe[i] - 9 * rule.t[i] ** 8)).toBeLessThan(1e-12);
+        expect(Math.abs(dIm[i] - 4 * rule.t[i] ** 3)).toBeLessThan(1e-12);
+      }
+    }
   });
 });
 
