@@ -4,7 +4,6 @@
  * R'' = −(B R' + C R)/A. The coefficients are unpacked once, so each call is
  * a few Horner steps in plain float64 and allocates nothing.
  */
-import { mul } from './complexPoly.js';
 import type { RadialEquation } from './equation.js';
 
 /** Fill dy with the derivative at r; must not allocate. */
@@ -27,11 +26,21 @@ const D = 0,
   CI = CR + MAX_DEGREE + 1,
   SIZE = CI + MAX_DEGREE + 1;
 
+/** Whether A = Δ·Δ coefficient for coefficient, the products summed as `mul` of complexPoly.ts sums them (without building Δ²). */
 function isSquareOfDelta(eq: RadialEquation): boolean {
-  const square = mul(eq.delta, eq.delta);
-  return (
-    eq.A.re.length === square.re.length && eq.A.re.every((x, j) => x === square.re[j] && eq.A.im[j] === 0 && square.im[j] === 0)
-  );
+  const { re: dr, im: di } = eq.delta;
+  const n = 2 * dr.length - 1;
+  if (eq.A.re.length !== n) return false;
+  for (let k = 0; k < n; k++) {
+    let re = 0,
+      im = 0;
+    for (let i = Math.max(0, k - dr.length + 1); i <= Math.min(k, dr.length - 1); i++) {
+      re += dr[i] * dr[k - i] - di[i] * di[k - i];
+      im += dr[i] * di[k - i] + di[i] * dr[k - i];
+    }
+    if (eq.A.re[k] !== re || eq.A.im[k] !== 0 || im !== 0) return false;
+  }
+  return true;
 }
 
 /** Δ, B and C packed into one typed array at the offsets above (one array: measured faster than several, or than closure constants). */

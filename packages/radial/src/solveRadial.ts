@@ -13,8 +13,8 @@ import { singleSolveErrorEstimate, singleSolveMessage } from './diagnostics.js';
 import { chooseMatch, farTarget, matchAmplitudes } from './farMatch.js';
 import { horizonWavenumber } from './horizonSeries.js';
 import { NEAR_ROUNDING_TOL, startAtHorizon } from './horizonStart.js';
-import { fieldMassOf, radialEquation } from './equation.js';
-import { resolveRadialOptions, type RadialOptions } from './options.js';
+import { fieldMassOf, radialEquation, type RadialMode } from './equation.js';
+import { resolveRadialOptions, type RadialOptions, type ResolvedOptions } from './options.js';
 import { validateProblem, type RadialProblem } from './problem.js';
 import { chargedSteps, integrateHybridLeg } from './hybridLeg.js';
 import type { Complex2, RadialSolution } from './solution.js';
@@ -43,7 +43,15 @@ function oneSidedAmplification(hole: KerrHole, s: number, omega: number, x0: num
 export function solveRadial(problem: RadialProblem, options: RadialOptions = {}): RadialSolution {
   const opts = resolveRadialOptions(options);
   const mode = validateProblem(problem);
-  const { hole } = problem;
+  return oneSidedChecked(problem.hole, mode, opts);
+}
+
+/**
+ * `solveRadial` for a caller that has checked the mode (as `validateProblem`
+ * does) and resolved the options (as `resolveRadialOptions` does): the same
+ * solve without re-validating them.
+ */
+export function oneSidedChecked(hole: KerrHole, mode: RadialMode, opts: ResolvedOptions): RadialSolution {
   const method = `teukolsky-shooting/frobenius-start/asymptotic-match/${opts.integrator}`;
   const equation = radialEquation(hole, mode, hole.rPlus);
   // the default start stays inside the requested radii (the series is not sampled there)
