@@ -366,40 +366,52 @@ function result(
   // Γ below the normal double range is reported through log10Gamma, never as a subnormal.
   const underflow = lnGamma !== undefined && lnGamma < LN_MIN_NORMAL;
   const gamma = lnGamma === undefined || underflow ? 0 : sign * Math.exp(lnGamma);
+  const diagnostics: GreybodyDiagnostics = {
+    method: d ? d.method : 'superradiant threshold: Γ = 0 exactly',
+    errorEstimate: relError,
+    message: d
+      ? `converged: estimated relative error ${relError.toExponential(2)} after ${attempts} attempt(s)`
+      : 'k = ω − mΩ_H = 0 exactly: ingoing and outgoing horizon solutions coincide and Γ = 0 (no integration: startRadius = matchRadius = 0)',
+    integrator,
+    odeTol,
+    // no integration at the exact threshold: 0 says "no radius used", not NaN
+    startRadius: d?.startRadius ?? 0,
+    matchRadius: d?.matchRadius ?? 0,
+    horizonTerms: d?.horizonTerms ?? 0,
+    farTerms: d?.farTerms ?? 0,
+    steps: d?.steps ?? 0,
+    rhsEvaluations: (d?.rhsEvaluations ?? 0) + extraEvaluations,
+    eigenvalue: p.A,
+    lambda: p.lambdaPlus,
+    starobinskySquared: C2,
+    attempts,
+    checkEvaluations: extraEvaluations,
+  };
+  const hole = { a: p.hole.a, mass: p.hole.mass };
+  const mode = { field: p.fieldMass > 0 ? { spin: p.spin, mass: p.fieldMass } : { spin: p.spin }, l: p.l, m: p.m };
+  const residual = Math.abs(gamma + reflection - 1);
+  const amplification = gamma === 0 ? 0 : -gamma;
+  const superradiant = p.spin !== 0.5 && k < 0;
+  const omega = p.omega;
+  // Two literals rather than a conditional spread (spreads were measured at µs a call); the keys keep their order.
+  if (lnGamma === undefined) {
+    return { hole, mode, omega, gamma, underflow, reflection, residual, relError, amplification, k, superradiant, diagnostics };
+  }
+  const log10Gamma = lnGamma / Math.LN10;
   return {
-    hole: { a: p.hole.a, mass: p.hole.mass },
-    mode: { field: p.fieldMass > 0 ? { spin: p.spin, mass: p.fieldMass } : { spin: p.spin }, l: p.l, m: p.m },
-    omega: p.omega,
+    hole,
+    mode,
+    omega,
     gamma,
-    ...(lnGamma === undefined ? {} : { log10Gamma: lnGamma / Math.LN10 }),
+    log10Gamma,
     underflow,
     reflection,
-    residual: Math.abs(gamma + reflection - 1),
+    residual,
     relError,
-    amplification: gamma === 0 ? 0 : -gamma,
+    amplification,
     k,
-    superradiant: p.spin !== 0.5 && k < 0,
-    diagnostics: {
-      method: d ? d.method : 'superradiant threshold: Γ = 0 exactly',
-      errorEstimate: relError,
-      message: d
-        ? `converged: estimated relative error ${relError.toExponential(2)} after ${attempts} attempt(s)`
-        : 'k = ω − mΩ_H = 0 exactly: ingoing and outgoing horizon solutions coincide and Γ = 0 (no integration: startRadius = matchRadius = 0)',
-      integrator,
-      odeTol,
-      // no integration at the exact threshold: 0 says "no radius used", not NaN
-      startRadius: d?.startRadius ?? 0,
-      matchRadius: d?.matchRadius ?? 0,
-      horizonTerms: d?.horizonTerms ?? 0,
-      farTerms: d?.farTerms ?? 0,
-      steps: d?.steps ?? 0,
-      rhsEvaluations: (d?.rhsEvaluations ?? 0) + extraEvaluations,
-      eigenvalue: p.A,
-      lambda: p.lambdaPlus,
-      starobinskySquared: C2,
-      attempts,
-      checkEvaluations: extraEvaluations,
-    },
+    superradiant,
+    diagnostics,
   };
 }
 

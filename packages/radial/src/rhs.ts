@@ -76,19 +76,30 @@ export interface EquationKernel {
 }
 
 /**
- * Packed coefficients of the equations already seen (a leg is integrated in
+ * Packed coefficients of the equations seen last (a leg is integrated in
  * several pieces, each asking for the kernel of the same equation; the
- * equations are never modified after they are built).
+ * equations are never modified after they are built), found by identity:
+ * a short list, measured cheaper than a WeakMap, whose insertions were a
+ * visible share of a greybody factor.
  */
-const packedOf = new WeakMap<RadialEquation, { k: Float64Array; complexB: boolean }>();
+const recent: { eq: RadialEquation | null; k: Float64Array; complexB: boolean }[] = Array.from({ length: 8 }, () => ({
+  eq: null,
+  k: new Float64Array(0),
+  complexB: false,
+}));
+let nextSlot = 0;
 
 /** The kernel of `eq` for an argument measured from `origin` (default 0: the argument is r itself). */
 export function equationKernel(eq: RadialEquation, counter: EvaluationCounter, origin = 0): EquationKernel {
-  let packed = packedOf.get(eq);
+  let packed = recent.find((e) => e.eq === eq);
   if (packed === undefined) {
     if (!isSquareOfDelta(eq)) throw new Error('radial equation: the coefficient of R″ must be Δ²');
-    packed = { k: packCoefficients(eq), complexB: !eq.B.im.every((x) => x === 0) };
-    packedOf.set(eq, packed);
+    packed = recent[nextSlot];
+    nextSlot = (nextSlot + 1) % recent.length;
+    // a fresh array: a kernel (and equationRhs's closure) may outlive the slot
+    packed.k = packCoefficients(eq);
+    packed.complexB = !eq.B.im.every((x) => x === 0);
+    packed.eq = eq;
   }
   // An argument measured from the expansion point needs no subtraction (and loses no digits to one).
   return { k: packed.k, c: eq.center - origin, complexB: packed.complexB, counter };

@@ -43,13 +43,16 @@ function oneSidedAmplification(hole: KerrHole, s: number, omega: number, x0: num
 export function solveRadial(problem: RadialProblem, options: RadialOptions = {}): RadialSolution {
   const opts = resolveRadialOptions(options);
   const mode = validateProblem(problem);
-  return oneSidedChecked(problem.hole, mode, opts);
+  const solution = oneSidedChecked(problem.hole, mode, opts);
+  const d = solution.diagnostics;
+  d.message = singleSolveMessage(d.errorEstimate, d.amplification);
+  return solution;
 }
 
 /**
  * `solveRadial` for a caller that has checked the mode (as `validateProblem`
  * does) and resolved the options (as `resolveRadialOptions` does): the same
- * solve without re-validating them.
+ * solve without re-validating them, and with an empty diagnostics message.
  */
 export function oneSidedChecked(hole: KerrHole, mode: RadialMode, opts: ResolvedOptions): RadialSolution {
   const method = `teukolsky-shooting/frobenius-start/asymptotic-match/${opts.integrator}`;
@@ -116,7 +119,8 @@ export function oneSidedChecked(hole: KerrHole, mode: RadialMode, opts: Resolved
       steps: seg.steps,
       rhsEvaluations: counter.evaluations,
       errorEstimate,
-      message: singleSolveMessage(errorEstimate, amplification),
+      // worded by the public route (greybody words its own: formatting it per solve was measured at ~1 %)
+      message: '',
       integrator: opts.integrator,
       tol: opts.tol,
       startRadius: r0,
