@@ -86,17 +86,21 @@ interface CacheEntry {
   maxTerms: number;
   series: FarSeries;
 }
-const cache: CacheEntry[] = [];
 const CACHE_SIZE = 64;
+/** A ring of the last CACHE_SIZE series (a shifted array was measured to cost more than its lookups). */
+const cache: (CacheEntry | undefined)[] = new Array(CACHE_SIZE).fill(undefined);
+let cacheNext = 0;
 
 /** Coefficients c_n (n < maxTerms) of the series with σ = ±1. */
 export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerms = 120): FarSeries {
   const mu = fieldMassOf(mode);
-  for (let i = cache.length - 1; i >= 0; i--) {
-    const e = cache[i];
+  // newest first, as the earlier list was searched
+  for (let j = 1; j <= CACHE_SIZE; j++) {
+    const e = cache[(cacheNext - j + CACHE_SIZE) % CACHE_SIZE];
+    if (e === undefined) break;
     if (
-      e.sigma === sigma &&
       e.omega === mode.omega &&
+      e.sigma === sigma &&
       e.lambda === mode.lambda &&
       e.a === hole.a &&
       e.mass === hole.mass &&
@@ -108,8 +112,7 @@ export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTe
       return e.series;
   }
   const series = buildFarSeries(hole, mode, sigma, maxTerms);
-  if (cache.length >= CACHE_SIZE) cache.shift();
-  cache.push({
+  cache[cacheNext] = {
     mass: hole.mass,
     a: hole.a,
     s: mode.s,
@@ -120,7 +123,8 @@ export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTe
     sigma,
     maxTerms,
     series,
-  });
+  };
+  cacheNext = (cacheNext + 1) % CACHE_SIZE;
   return series;
 }
 

@@ -99,6 +99,8 @@ class GbsLoop implements Stepper {
   atov = false;
   /** sum of the accepted steps' error estimates err (relative to tol) in this advance */
   errSum = 0;
+  /** the midpoint step of the line being swept (midex) */
+  hj = 0.5;
 
   constructor(
     readonly tol: number,
@@ -147,8 +149,9 @@ class GbsLoop implements Stepper {
     return del2 / Math.max(U_ROUND, del1) > 4;
   }
 
-  /** The midpoint sweep of line j with the right-hand side inline (the radial equation); false when the stability check rejects. */
-  sweepKernel(j: number, hj: number, m: number): boolean {
+  /** The midpoint sweep of line j (step hj = this.hj) with the right-hand side inline (the radial equation); false when the stability check rejects. */
+  sweepKernel(j: number, m: number): boolean {
+    const hj = this.hj;
     const kn = this.kernel as EquationKernel;
     const { k, c, complexB } = kn;
     const { y, dz, dy } = this;
@@ -241,9 +244,9 @@ class GbsLoop implements Stepper {
     return true;
   }
 
-  /** The midpoint sweep of line j through the generic right-hand side; false when the stability check rejects. */
-  sweepGeneric(j: number, hj: number, m: number): boolean {
-    const { y, dz, dy, yh1, yh2, rhs, x } = this;
+  /** The midpoint sweep of line j (step hj = this.hj) through the generic right-hand side; false when the stability check rejects. */
+  sweepGeneric(j: number, m: number): boolean {
+    const { y, dz, dy, yh1, yh2, rhs, x, hj } = this;
     for (let i = 0; i < N; i++) {
       yh1[i] = y[i];
       yh2[i] = y[i] + hj * dz[i];
@@ -268,8 +271,9 @@ class GbsLoop implements Stepper {
   /** Line j of the tableau by the explicit midpoint rule, extrapolated; sets err and the optimal step hh[j] (ODEX's MIDEX). */
   midex(j: number): void {
     const nj = NJ[j];
-    const hj = this.h / nj;
-    const swept = this.kernel === undefined ? this.sweepGeneric(j, hj, nj - 1) : this.sweepKernel(j, hj, nj - 1);
+    // hj passes through a field: as an argument of the (not inlined) sweep it was boxed, a heap number per line
+    this.hj = this.h / nj;
+    const swept = this.kernel === undefined ? this.sweepGeneric(j, nj - 1) : this.sweepKernel(j, nj - 1);
     if (!swept) {
       this.atov = true;
       this.h *= REDUCTION;

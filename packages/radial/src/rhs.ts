@@ -44,18 +44,17 @@ function isSquareOfDelta(eq: RadialEquation): boolean {
 }
 
 /** Δ, B and C packed into one typed array at the offsets above (one array: measured faster than several, or than closure constants). */
-function packCoefficients(eq: RadialEquation): Float64Array {
+function packCoefficients(eq: RadialEquation, k: Float64Array): void {
   for (const p of [eq.B, eq.C]) {
     if (p.re.length > MAX_DEGREE + 1) throw new Error(`radial equation coefficient of degree ${p.re.length - 1} > ${MAX_DEGREE}`);
   }
   if (eq.delta.re.length > 3) throw new Error('radial equation: Δ must be quadratic');
-  const k = new Float64Array(SIZE);
+  k.fill(0);
   k.set(eq.delta.re, D);
   k.set(eq.B.re, BR);
   k.set(eq.B.im, BI);
   k.set(eq.C.re, CR);
   k.set(eq.C.im, CI);
-  return k;
 }
 
 /**
@@ -80,11 +79,14 @@ export interface EquationKernel {
  * several pieces, each asking for the kernel of the same equation; the
  * equations are never modified after they are built), found by identity:
  * a short list, measured cheaper than a WeakMap, whose insertions were a
- * visible share of a greybody factor.
+ * visible share of a greybody factor. Each slot owns its array (a fresh
+ * one per equation was measured among a solve's allocations), so a kernel,
+ * and a right-hand side made from it, reads valid coefficients until eight
+ * other equations have been packed: a leg uses its kernel only while it runs.
  */
 const recent: { eq: RadialEquation | null; k: Float64Array; complexB: boolean }[] = Array.from({ length: 8 }, () => ({
   eq: null,
-  k: new Float64Array(0),
+  k: new Float64Array(SIZE),
   complexB: false,
 }));
 let nextSlot = 0;
@@ -96,8 +98,8 @@ export function equationKernel(eq: RadialEquation, counter: EvaluationCounter, o
     if (!isSquareOfDelta(eq)) throw new Error('radial equation: the coefficient of R″ must be Δ²');
     packed = recent[nextSlot];
     nextSlot = (nextSlot + 1) % recent.length;
-    // a fresh array: a kernel (and equationRhs's closure) may outlive the slot
-    packed.k = packCoefficients(eq);
+    packed.eq = null;
+    packCoefficients(eq, packed.k);
     packed.complexB = !eq.B.im.every((x) => x === 0);
     packed.eq = eq;
   }
@@ -113,7 +115,8 @@ export function equationKernel(eq: RadialEquation, counter: EvaluationCounter, o
  * (the unsubstituted equation) skips its imaginary part. (Measured: the
  * coefficients held in many closure variables, or a complex B throughout,
  * cost 10–25 % of a whole solve.) The extrapolation loop evaluates the same
- * expressions inline from `equationKernel`.
+ * expressions inline from `equationKernel`. Like a kernel, it is valid until
+ * eight other equations have been packed (see `recent`).
  */
 export function equationRhs(eq: RadialEquation, counter: EvaluationCounter, origin = 0): Rhs {
   return kernelRhs(equationKernel(eq, counter, origin));
