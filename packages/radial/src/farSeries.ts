@@ -19,7 +19,7 @@
  */
 import type { KerrHole } from '@penumbra/kerr';
 import { tortoiseFromHorizonDistance } from '@penumbra/kerr';
-import { cpoly, cpolyAt, type CPoly } from './complexPoly.js';
+import { cpolyAt, type CPoly } from './complexPoly.js';
 import { fieldMassOf, type RadialMode } from './equation.js';
 
 /** Coefficients of one far-zone series, R = e^{iσωr*} r^p Σ c_n r^{−n}. */
@@ -128,6 +128,21 @@ export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTe
   return series;
 }
 
+/** Scratch lists of `buildFarSeries` (it runs to completion without re-entering itself; what it keeps is copied). */
+const [sDelta, sK, sW, sMass] = Array.from({ length: 4 }, () => new Float64Array(3));
+const [sDDelta, sDW, sSpin] = Array.from({ length: 3 }, () => new Float64Array(2));
+function fill3(out: Float64Array, x0: number, x1: number, x2: number): Float64Array {
+  out[0] = x0;
+  out[1] = x1;
+  out[2] = x2;
+  return out;
+}
+function fill2(out: Float64Array, x0: number, x1: number): Float64Array {
+  out[0] = x0;
+  out[1] = x1;
+  return out;
+}
+
 /** out[i + j] += f · p[i] q[j] over the given lengths (real polynomials, lowest power first). */
 function addProduct(out: Float64Array, p: ArrayLike<number>, q: ArrayLike<number>, f = 1): void {
   for (let i = 0; i < p.length; i++) for (let j = 0; j < q.length; j++) out[i + j] += f * p[i] * q[j];
@@ -147,11 +162,11 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
   const { a, rPlus, rMinus } = hole;
   const mu = fieldMassOf(mode);
   const { kInf, beta } = farWavenumber(hole, mode);
-  const delta = [rPlus * rMinus, -rPlus - rMinus, 1];
-  const dDelta = [delta[1], 2];
-  const K = [omega * a * a - a * m, 0, omega];
-  const W = [sigma * kInf * a * a, sigma * beta, sigma * kInf];
-  const dW = [W[1], 2 * W[2]];
+  const delta = fill3(sDelta, rPlus * rMinus, -rPlus - rMinus, 1);
+  const dDelta = fill2(sDDelta, delta[1], 2);
+  const K = fill3(sK, omega * a * a - a * m, 0, omega);
+  const W = fill3(sW, sigma * kInf * a * a, sigma * beta, sigma * kInf);
+  const dW = fill2(sDW, W[1], 2 * W[2]);
   const A = { re: new Float64Array(5), im: new Float64Array(5) };
   addProduct(A.re, delta, delta);
   const B = { re: new Float64Array(5), im: new Float64Array(5) };
@@ -159,10 +174,10 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
   addProduct(B.im, W, delta, 2);
   const Q = { re: new Float64Array(5), im: new Float64Array(5) };
   addProduct(Q.re, K, K);
-  addProduct(Q.re, delta, [-lambda, 0, -mu * mu]);
+  addProduct(Q.re, delta, fill3(sMass, -lambda, 0, -mu * mu));
   addProduct(Q.re, W, W, -1);
   addProduct(Q.im, dDelta, K, -s);
-  addProduct(Q.im, delta, [0, 4 * s * omega]);
+  addProduct(Q.im, delta, fill2(sSpin, 0, 4 * s * omega));
   addProduct(Q.im, dW, delta);
   addProduct(Q.im, W, dDelta, s);
   // (the r⁴ terms of Q cancel in the algebra; the recurrence reads Q up to r² and the balance Q₃)
@@ -179,8 +194,8 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
     p,
     cRe: [1],
     cIm: [0],
-    W: cpoly(W),
-    delta: cpoly(delta),
+    W: { re: new Float64Array(W), im: new Float64Array(3) },
+    delta: { re: new Float64Array(delta), im: new Float64Array(3) },
     kInf,
     beta,
     maxTerms,
