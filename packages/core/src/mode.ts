@@ -53,7 +53,9 @@ export function validateMode(
     'an object { field: { spin, mass? }, l, m, kappaSign? }',
   );
   const { spin, mass } = validateField(v.field, `${parameter}.field`);
-  const angular = { spin, fieldMass: mass, ...validateAngular(spin, v.l, v.m, parameter) };
+  // field by field (a spread here was a visible share of a valid mode's check)
+  const { l, m } = validateAngular(spin, v.l, v.m, parameter);
+  const angular = { spin, fieldMass: mass, l, m };
   if (v.kappaSign === undefined) return angular;
   if (spin !== 0.5) throw new InputError(`${parameter}.kappaSign`, 'absent (kappaSign labels spin-1/2 modes only)', v.kappaSign);
   if (v.kappaSign !== 1 && v.kappaSign !== -1) throw new InputError(`${parameter}.kappaSign`, '1 or −1', v.kappaSign);

@@ -55,7 +55,11 @@ export function ownRadialFunction(problem: unknown): MassiveRadialFunction | und
 
 function ownFor<T>(problem: unknown, table: Partial<Record<FieldSpin, T>>): T | undefined {
   try {
-    const { spin, mass } = validateField((problem as { mode?: { field?: unknown } } | null)?.mode?.field, 'mode.field');
+    const field = (problem as { mode?: { field?: unknown } } | null)?.mode?.field;
+    // massless (no mass, or 0) has no solver of its own, valid or not: the common check follows (saves a second field check per solve)
+    const given = typeof field === 'object' && field !== null ? (field as { mass?: unknown }).mass : undefined;
+    if (given === undefined || given === 0) return undefined;
+    const { spin, mass } = validateField(field, 'mode.field');
     return mass > 0 ? table[spin] : undefined;
   } catch {
     return undefined;

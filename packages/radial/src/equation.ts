@@ -91,14 +91,36 @@ function fromLists(n: number, re: Float64Array, im?: Float64Array, reScale = 1):
 }
 
 /**
- * The radial equation of `mode` on `hole`, expanded in powers of r − center
- * (default: powers of r). Every coefficient but U is real, so they are built
- * on plain real lists and U's real and imaginary parts apart, in the order of
- * operations of the complex-polynomial form
+ * The coefficient lists of `radialEquation` as they lie in its scratch after
+ * `fillEquation` (valid until the next call; read, never kept): Δ² (`A`),
+ * ΔΔ' before the factor s + 1 (`DD`), U (`CRe`, `CIm`), Δ, K, each with its
+ * length. `starobinskyMapAt` reads them in place (a copy per map was
+ * measured among a solve's allocations).
+ */
+export const EQUATION_SCRATCH = {
+  A: sKK,
+  DD: sDD,
+  CRe: sURe,
+  CIm: sUIm,
+  delta: sDelta,
+  dDelta: sDDelta,
+  K: sK,
+  varpi: sVarpi,
+  nA: 0,
+  nDD: 0,
+  nC: 0,
+  nDelta: 0,
+};
+
+/**
+ * Fill EQUATION_SCRATCH with the radial equation of `mode` about `center`.
+ * Every coefficient but U is real, so they are built on plain real lists and
+ * U's real and imaginary parts apart, in the order of operations of the
+ * complex-polynomial form
  *   U = K·K + (−is)·(Δ'·K) + Δ·(−λ + 4isω r − μ² r²)
  * (the same doubles; measured 4–5× faster, a few % of a greybody factor).
  */
-export function radialEquation(hole: KerrHole, mode: RadialMode, center = 0): RadialEquation {
+export function fillEquation(hole: KerrHole, mode: RadialMode, center: number): void {
   const { s, omega, lambda } = mode;
   const a = hole.a;
   const c = center;
@@ -148,14 +170,23 @@ export function radialEquation(hole: KerrHole, mode: RadialMode, center = 0): Ra
     sURe[i] = (i < nKK ? sKK[i] : 0) + (i < nDI ? sDIRe[i] : 0);
     sUIm[i] = (i < nDK ? sDK[i] * -s : 0) + (i < nDI ? sDIIm[i] : 0);
   }
-  const nDD = realMulInto(sDD, sDelta, nDelta, sDDelta, 2);
-  const nA = realMulInto(sKK, sDelta, nDelta, sDelta, nDelta);
+  EQUATION_SCRATCH.nDD = realMulInto(sDD, sDelta, nDelta, sDDelta, 2);
+  EQUATION_SCRATCH.nA = realMulInto(sKK, sDelta, nDelta, sDelta, nDelta);
+  EQUATION_SCRATCH.nC = n;
+  EQUATION_SCRATCH.nDelta = nDelta;
+}
+
+/** The radial equation of `mode` on `hole`, expanded in powers of r − center (default: powers of r); see `fillEquation`. */
+export function radialEquation(hole: KerrHole, mode: RadialMode, center = 0): RadialEquation {
+  fillEquation(hole, mode, center);
+  const { s } = mode;
+  const { nA, nDD, nC, nDelta } = EQUATION_SCRATCH;
   return {
     center,
     s,
     A: fromLists(nA, sKK),
     B: fromLists(nDD, sDD, undefined, s + 1),
-    C: fromLists(n, sURe, sUIm),
+    C: fromLists(nC, sURe, sUIm),
     delta: fromLists(nDelta, sDelta),
     dDelta: fromLists(2, sDDelta),
     K: fromLists(3, sK),

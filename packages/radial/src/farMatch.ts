@@ -6,7 +6,7 @@
 import type { KerrHole } from '@penumbra/kerr';
 import { ConvergenceError } from '@penumbra/core';
 import { NEAR_ROUNDING_TOL } from './horizonStart.js';
-import { farSeries, farValue, farWavenumber, sumFar, type FarValue } from './farSeries.js';
+import { farSeries, farValue, farWavenumber, sumFarInto, type FarSums, type FarValue } from './farSeries.js';
 import type { RadialMode } from './equation.js';
 import type { Complex2 } from './solution.js';
 
@@ -21,6 +21,9 @@ export interface FarMatch {
 }
 
 const LADDER_STEPS = 60;
+
+/** The sums a search holds at once (its rung, and a bisection's trial), reused: `chooseMatch` runs to completion without re-entering itself. */
+const sums: FarSums[] = Array.from({ length: 4 }, () => ({ S: [0, 0], T: [0, 0], terms: 0, truncation: 1, converged: false }));
 
 /**
  * The far-series convergence asked of a solve at integrator tolerance `tol`:
@@ -88,21 +91,22 @@ export function chooseMatch(hole: KerrHole, mode: RadialMode, fixed?: number, ta
     const last = fixed !== undefined || attempt + 1 >= LADDER_STEPS;
     // the sums decide (the outgoing one only where the ingoing one converged, or for the diagnostics of a
     // failure); the phase factors are computed only where both converged (the same values)
-    let sin = sumFar(inSeries, r, target);
+    let sin = sumFarInto(inSeries, r, target, sums[0]);
     if (sin.converged || last) {
-      let sout = sumFar(outSeries, r, target);
+      let sout = sumFarInto(outSeries, r, target, sums[1]);
       if (sin.converged && sout.converged) {
         if (fixed === undefined && attempt > 0 && lowStart) {
           // the rung below failed: bisect (r/1.25, r] in ln r, keeping a radius where both converge
           let lo = r / LADDER_RATIO;
+          let min = sums[2],
+            mout = sums[3];
           for (let i = 0; i < REFINEMENTS; i++) {
             const mid = Math.sqrt(lo * r);
-            const min = sumFar(inSeries, mid, target);
-            const mout = min.converged ? sumFar(outSeries, mid, target) : null;
-            if (mout?.converged) {
+            sumFarInto(inSeries, mid, target, min);
+            if (min.converged && sumFarInto(outSeries, mid, target, mout).converged) {
               r = mid;
-              sin = min;
-              sout = mout;
+              [sin, min] = [min, sin];
+              [sout, mout] = [mout, sout];
             } else lo = mid;
           }
         }

@@ -19,7 +19,7 @@
  */
 import type { KerrHole } from '@penumbra/kerr';
 import { tortoiseFromHorizonDistance } from '@penumbra/kerr';
-import { cpoly, cpolyAt, type CPoly } from './complexPoly.js';
+import { cpolyAt, type CPoly } from './complexPoly.js';
 import { fieldMassOf, type RadialMode } from './equation.js';
 
 /** Coefficients of one far-zone series, R = e^{iσωr*} r^p Σ c_n r^{−n}. */
@@ -86,17 +86,21 @@ interface CacheEntry {
   maxTerms: number;
   series: FarSeries;
 }
-const cache: CacheEntry[] = [];
 const CACHE_SIZE = 64;
+/** A ring of the last CACHE_SIZE series (a shifted array was measured to cost more than its lookups). */
+const cache: (CacheEntry | undefined)[] = new Array(CACHE_SIZE).fill(undefined);
+let cacheNext = 0;
 
 /** Coefficients c_n (n < maxTerms) of the series with σ = ±1. */
 export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerms = 120): FarSeries {
   const mu = fieldMassOf(mode);
-  for (let i = cache.length - 1; i >= 0; i--) {
-    const e = cache[i];
+  // newest first, as the earlier list was searched
+  for (let j = 1; j <= CACHE_SIZE; j++) {
+    const e = cache[(cacheNext - j + CACHE_SIZE) % CACHE_SIZE];
+    if (e === undefined) break;
     if (
-      e.sigma === sigma &&
       e.omega === mode.omega &&
+      e.sigma === sigma &&
       e.lambda === mode.lambda &&
       e.a === hole.a &&
       e.mass === hole.mass &&
@@ -108,8 +112,7 @@ export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTe
       return e.series;
   }
   const series = buildFarSeries(hole, mode, sigma, maxTerms);
-  if (cache.length >= CACHE_SIZE) cache.shift();
-  cache.push({
+  cache[cacheNext] = {
     mass: hole.mass,
     a: hole.a,
     s: mode.s,
@@ -120,8 +123,24 @@ export function farSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTe
     sigma,
     maxTerms,
     series,
-  });
+  };
+  cacheNext = (cacheNext + 1) % CACHE_SIZE;
   return series;
+}
+
+/** Scratch lists of `buildFarSeries` (it runs to completion without re-entering itself; what it keeps is copied). */
+const [sDelta, sK, sW, sMass] = Array.from({ length: 4 }, () => new Float64Array(3));
+const [sDDelta, sDW, sSpin] = Array.from({ length: 3 }, () => new Float64Array(2));
+function fill3(out: Float64Array, x0: number, x1: number, x2: number): Float64Array {
+  out[0] = x0;
+  out[1] = x1;
+  out[2] = x2;
+  return out;
+}
+function fill2(out: Float64Array, x0: number, x1: number): Float64Array {
+  out[0] = x0;
+  out[1] = x1;
+  return out;
 }
 
 /** out[i + j] += f · p[i] q[j] over the given lengths (real polynomials, lowest power first). */
@@ -143,11 +162,11 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
   const { a, rPlus, rMinus } = hole;
   const mu = fieldMassOf(mode);
   const { kInf, beta } = farWavenumber(hole, mode);
-  const delta = [rPlus * rMinus, -rPlus - rMinus, 1];
-  const dDelta = [delta[1], 2];
-  const K = [omega * a * a - a * m, 0, omega];
-  const W = [sigma * kInf * a * a, sigma * beta, sigma * kInf];
-  const dW = [W[1], 2 * W[2]];
+  const delta = fill3(sDelta, rPlus * rMinus, -rPlus - rMinus, 1);
+  const dDelta = fill2(sDDelta, delta[1], 2);
+  const K = fill3(sK, omega * a * a - a * m, 0, omega);
+  const W = fill3(sW, sigma * kInf * a * a, sigma * beta, sigma * kInf);
+  const dW = fill2(sDW, W[1], 2 * W[2]);
   const A = { re: new Float64Array(5), im: new Float64Array(5) };
   addProduct(A.re, delta, delta);
   const B = { re: new Float64Array(5), im: new Float64Array(5) };
@@ -155,10 +174,10 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
   addProduct(B.im, W, delta, 2);
   const Q = { re: new Float64Array(5), im: new Float64Array(5) };
   addProduct(Q.re, K, K);
-  addProduct(Q.re, delta, [-lambda, 0, -mu * mu]);
+  addProduct(Q.re, delta, fill3(sMass, -lambda, 0, -mu * mu));
   addProduct(Q.re, W, W, -1);
   addProduct(Q.im, dDelta, K, -s);
-  addProduct(Q.im, delta, [0, 4 * s * omega]);
+  addProduct(Q.im, delta, fill2(sSpin, 0, 4 * s * omega));
   addProduct(Q.im, dW, delta);
   addProduct(Q.im, W, dDelta, s);
   // (the r⁴ terms of Q cancel in the algebra; the recurrence reads Q up to r² and the balance Q₃)
@@ -175,8 +194,8 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
     p,
     cRe: [1],
     cIm: [0],
-    W: cpoly(W),
-    delta: cpoly(delta),
+    W: { re: new Float64Array(W), im: new Float64Array(3) },
+    delta: { re: new Float64Array(delta), im: new Float64Array(3) },
     kInf,
     beta,
     maxTerms,
@@ -192,37 +211,129 @@ export function extendFarSeries(series: FarSeries, n: number): void {
   const b4r = B.re[4],
     b4i = B.im[4];
   const end = Math.min(n, series.maxTerms);
-  for (let N = cRe.length; N < end; N++) {
-    let rr = 0,
-      ri = 0;
-    for (let j = 0; j <= 4; j++) {
-      const n = N + j - 5;
-      if (n < 0) continue;
-      const f = (p - n) * (p - n - 1);
-      rr += f * (A.re[j] * cRe[n] - A.im[j] * cIm[n]);
-      ri += f * (A.re[j] * cIm[n] + A.im[j] * cRe[n]);
+  let N = cRe.length;
+  for (; N < end && N < 5; N++) extendTerm(series, N);
+  // From N = 5 on every term of the recurrence is present: the same sums, unrolled on locals (measured: the
+  // generic loop was a quarter of choosing the matching radius).
+  if (N < end) {
+    const ar0 = A.re[0],
+      ar1 = A.re[1],
+      ar2 = A.re[2],
+      ar3 = A.re[3],
+      ar4 = A.re[4],
+      ai0 = A.im[0],
+      ai1 = A.im[1],
+      ai2 = A.im[2],
+      ai3 = A.im[3],
+      ai4 = A.im[4];
+    const br0 = B.re[0],
+      br1 = B.re[1],
+      br2 = B.re[2],
+      br3 = B.re[3],
+      bi0 = B.im[0],
+      bi1 = B.im[1],
+      bi2 = B.im[2],
+      bi3 = B.im[3];
+    const qr0 = Q.re[0],
+      qr1 = Q.re[1],
+      qr2 = Q.re[2],
+      qi0 = Q.im[0],
+      qi1 = Q.im[1],
+      qi2 = Q.im[2];
+    for (; N < end; N++) {
+      let rr = 0,
+        ri = 0;
+      // A: j = 0…4, n = N − 5 + j; f = (p − n)(p − n − 1)
+      let m = N - 5;
+      let f = (p - m) * (p - m - 1);
+      rr += f * (ar0 * cRe[m] - ai0 * cIm[m]);
+      ri += f * (ar0 * cIm[m] + ai0 * cRe[m]);
+      m++;
+      f = (p - m) * (p - m - 1);
+      rr += f * (ar1 * cRe[m] - ai1 * cIm[m]);
+      ri += f * (ar1 * cIm[m] + ai1 * cRe[m]);
+      m++;
+      f = (p - m) * (p - m - 1);
+      rr += f * (ar2 * cRe[m] - ai2 * cIm[m]);
+      ri += f * (ar2 * cIm[m] + ai2 * cRe[m]);
+      m++;
+      f = (p - m) * (p - m - 1);
+      rr += f * (ar3 * cRe[m] - ai3 * cIm[m]);
+      ri += f * (ar3 * cIm[m] + ai3 * cRe[m]);
+      m++;
+      f = (p - m) * (p - m - 1);
+      rr += f * (ar4 * cRe[m] - ai4 * cIm[m]);
+      ri += f * (ar4 * cIm[m] + ai4 * cRe[m]);
+      // B: j = 0…3, n = N − 4 + j; f = p − n
+      m = N - 4;
+      f = p - m;
+      rr += f * (br0 * cRe[m] - bi0 * cIm[m]);
+      ri += f * (br0 * cIm[m] + bi0 * cRe[m]);
+      m++;
+      f = p - m;
+      rr += f * (br1 * cRe[m] - bi1 * cIm[m]);
+      ri += f * (br1 * cIm[m] + bi1 * cRe[m]);
+      m++;
+      f = p - m;
+      rr += f * (br2 * cRe[m] - bi2 * cIm[m]);
+      ri += f * (br2 * cIm[m] + bi2 * cRe[m]);
+      m++;
+      f = p - m;
+      rr += f * (br3 * cRe[m] - bi3 * cIm[m]);
+      ri += f * (br3 * cIm[m] + bi3 * cRe[m]);
+      // Q: j = 0…2, n = N − 3 + j
+      m = N - 3;
+      rr += qr0 * cRe[m] - qi0 * cIm[m];
+      ri += qr0 * cIm[m] + qi0 * cRe[m];
+      m++;
+      rr += qr1 * cRe[m] - qi1 * cIm[m];
+      ri += qr1 * cIm[m] + qi1 * cRe[m];
+      m++;
+      rr += qr2 * cRe[m] - qi2 * cIm[m];
+      ri += qr2 * cIm[m] + qi2 * cRe[m];
+      // c_N = rest / (B4 N)
+      const dr = b4r * N,
+        di = b4i * N;
+      const den = dr * dr + di * di;
+      cRe.push((rr * dr + ri * di) / den);
+      cIm.push((ri * dr - rr * di) / den);
     }
-    for (let j = 0; j <= 3; j++) {
-      const n = N + j - 4;
-      if (n < 0) continue;
-      const f = p - n;
-      rr += f * (B.re[j] * cRe[n] - B.im[j] * cIm[n]);
-      ri += f * (B.re[j] * cIm[n] + B.im[j] * cRe[n]);
-    }
-    for (let j = 0; j <= 2; j++) {
-      const n = N + j - 3;
-      if (n < 0) continue;
-      rr += Q.re[j] * cRe[n] - Q.im[j] * cIm[n];
-      ri += Q.re[j] * cIm[n] + Q.im[j] * cRe[n];
-    }
-    // c_N = rest / (B4 N)
-    const dr = b4r * N,
-      di = b4i * N;
-    const den = dr * dr + di * di;
-    cRe.push((rr * dr + ri * di) / den);
-    cIm.push((ri * dr - rr * di) / den);
   }
   if (cRe.length >= series.maxTerms) series.recurrence = null;
+}
+
+/** The recurrence's term c_N (N < 5, where some of its terms reach below c_0), appended. */
+function extendTerm(series: FarSeries, N: number): void {
+  const { cRe, cIm, p } = series;
+  const { A, B, Q } = series.recurrence as FarRecurrence;
+  let rr = 0,
+    ri = 0;
+  for (let j = 0; j <= 4; j++) {
+    const n = N + j - 5;
+    if (n < 0) continue;
+    const f = (p - n) * (p - n - 1);
+    rr += f * (A.re[j] * cRe[n] - A.im[j] * cIm[n]);
+    ri += f * (A.re[j] * cIm[n] + A.im[j] * cRe[n]);
+  }
+  for (let j = 0; j <= 3; j++) {
+    const n = N + j - 4;
+    if (n < 0) continue;
+    const f = p - n;
+    rr += f * (B.re[j] * cRe[n] - B.im[j] * cIm[n]);
+    ri += f * (B.re[j] * cIm[n] + B.im[j] * cRe[n]);
+  }
+  for (let j = 0; j <= 2; j++) {
+    const n = N + j - 3;
+    if (n < 0) continue;
+    rr += Q.re[j] * cRe[n] - Q.im[j] * cIm[n];
+    ri += Q.re[j] * cIm[n] + Q.im[j] * cRe[n];
+  }
+  // c_N = rest / (B4 N)
+  const dr = B.re[4] * N,
+    di = B.im[4] * N;
+  const den = dr * dr + di * di;
+  cRe.push((rr * dr + ri * di) / den);
+  cIm.push((ri * dr - rr * di) / den);
 }
 
 /**
@@ -261,6 +372,11 @@ export interface FarSums {
 
 /** Sum a far-zone series at radius r (no phase yet): cheap, so a search for the matching radius tries radii with it. */
 export function sumFar(series: FarSeries, r: number, target = 1e-17): FarSums {
+  return sumFarInto(series, r, target, { S: [0, 0], T: [0, 0], terms: 0, truncation: 1, converged: false });
+}
+
+/** `sumFar` into `out` (returned): a search for the matching radius reuses a few of these instead of making one per radius tried. */
+export function sumFarInto(series: FarSeries, r: number, target: number, out: FarSums): FarSums {
   const { cRe, cIm, p } = series;
   const inv = 1 / r;
   // squared magnitudes throughout (Math.hypot was measured at a tenth of a solve's time here)
@@ -300,7 +416,14 @@ export function sumFar(series: FarSeries, r: number, target = 1e-17): FarSums {
     } else small = 0;
     pw *= inv;
   }
-  return { S: [sRe, sIm], T: [tRe, tIm], terms, truncation: Math.sqrt(truncation2), converged };
+  out.S[0] = sRe;
+  out.S[1] = sIm;
+  out.T[0] = tRe;
+  out.T[1] = tIm;
+  out.terms = terms;
+  out.truncation = Math.sqrt(truncation2);
+  out.converged = converged;
+  return out;
 }
 
 /** R and R' of a far-zone series solution at radius r from its sums there (`sumFar`). */

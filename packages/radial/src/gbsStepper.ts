@@ -74,6 +74,10 @@ const WORKSPACE = {
   t: new Float64Array((KM + 1) * N),
   hh: new Float64Array(KM + 2),
   w: new Float64Array(KM + 2),
+  /** per column: the err and |h| its hh and w come from, and whether they are still to be computed from them */
+  colErr: new Float64Array(KM + 2),
+  colAbsH: new Float64Array(KM + 2),
+  colPending: new Uint8Array(KM + 2),
 };
 
 /** The loop's state: the shared arrays, and scalars reset by every `advance`. */
@@ -87,6 +91,9 @@ class GbsLoop implements Stepper {
   readonly t = WORKSPACE.t;
   readonly hh = WORKSPACE.hh;
   readonly w = WORKSPACE.w;
+  readonly colErr = WORKSPACE.colErr;
+  readonly colAbsH = WORKSPACE.colAbsH;
+  readonly colPending = WORKSPACE.colPending;
   readonly kStart: number;
   x = 0;
   h = 0;
@@ -100,6 +107,8 @@ class GbsLoop implements Stepper {
   atov = false;
   /** sum of the accepted steps' error estimates err (relative to tol) in this advance */
   errSum = 0;
+  /** the midpoint step of the line being swept (midex) */
+  hj = 0.5;
 
   constructor(
     readonly tol: number,
@@ -149,8 +158,9 @@ class GbsLoop implements Stepper {
     return del2 / Math.max(U_ROUND, del1) > 4;
   }
 
-  /** The midpoint sweep of line j with the right-hand side inline (the radial equation); false when the stability check rejects. */
-  sweepKernel(j: number, hj: number, m: number): boolean {
+  /** The midpoint sweep of line j (step hj = this.hj) with the right-hand side inline (the radial equation); false when the stability check rejects. */
+  sweepKernel(j: number, m: number): boolean {
+    const hj = this.hj;
     const kn = this.kernel as EquationKernel;
     const { k, c, complexB } = kn;
     const { y, dz, dy } = this;
@@ -243,9 +253,9 @@ class GbsLoop implements Stepper {
     return true;
   }
 
-  /** The midpoint sweep of line j through the generic right-hand side; false when the stability check rejects. */
-  sweepGeneric(j: number, hj: number, m: number): boolean {
-    const { y, dz, dy, yh1, yh2, rhs, x } = this;
+  /** The midpoint sweep of line j (step hj = this.hj) through the generic right-hand side; false when the stability check rejects. */
+  sweepGeneric(j: number, m: number): boolean {
+    const { y, dz, dy, yh1, yh2, rhs, x, hj } = this;
     for (let i = 0; i < N; i++) {
       yh1[i] = y[i];
       yh2[i] = y[i] + hj * dz[i];
@@ -270,8 +280,9 @@ class GbsLoop implements Stepper {
   /** Line j of the tableau by the explicit midpoint rule, extrapolated; sets err and the optimal step hh[j] (ODEX's MIDEX). */
   midex(j: number): void {
     const nj = NJ[j];
-    const hj = this.h / nj;
-    const swept = this.kernel === undefined ? this.sweepGeneric(j, hj, nj - 1) : this.sweepKernel(j, hj, nj - 1);
+    // hj passes through a field: as an argument of the (not inlined) sweep it was boxed, a heap number per line
+    this.hj = this.h / nj;
+    const swept = this.kernel === undefined ? this.sweepGeneric(j, nj - 1) : this.sweepKernel(j, nj - 1);
     if (!swept) {
       this.atov = true;
       this.h *= REDUCTION;
@@ -303,42 +314,63 @@ class GbsLoop implements Stepper {
       return;
     }
     this.errOld = Math.max(4 * err, 1);
-    // optimal step for this column
+    // the optimal step for this column, hh[j] and w[j], from these when read (colH, colW): most columns' are never
+    // read, and the power in them was measured at a tenth of the loop
+    this.colErr[j] = err;
+    this.colAbsH[j] = Math.abs(this.h);
+    this.colPending[j] = 1;
+  }
+
+  /** hh[j] and w[j] of a column whose midex left them pending, as midex computed them. */
+  settleColumn(j: number): void {
+    this.colPending[j] = 0;
     const exp0 = EXPONENT[j];
     const facMin = FAC_MIN[j];
-    let fac = Math.min(FAC2 / facMin, Math.max(facMin, (err / SAFE1) ** exp0 / SAFE2));
+    let fac = Math.min(FAC2 / facMin, Math.max(facMin, (this.colErr[j] / SAFE1) ** exp0 / SAFE2));
     fac = 1 / fac;
-    this.hh[j] = Math.min(Math.abs(this.h) * fac, this.hMax);
+    this.hh[j] = Math.min(this.colAbsH[j] * fac, this.hMax);
     this.w[j] = WORK[j] / this.hh[j];
+  }
+
+  /** hh[j], the optimal step of column j. */
+  colH(j: number): number {
+    if (this.colPending[j] === 1) this.settleColumn(j);
+    return this.hh[j];
+  }
+
+  /** w[j], the work per unit step of column j. */
+  colW(j: number): number {
+    if (this.colPending[j] === 1) this.settleColumn(j);
+    return this.w[j];
   }
 
   /** Order and step after an accepted step (ODEX's label 60, after the output call). */
   nextOrder(): void {
-    const { w, hh, kc, k, posneg } = this;
+    const { kc, k, posneg } = this;
     let kopt: number;
     if (kc === 2) {
       kopt = Math.min(3, KM - 1);
       if (this.reject) kopt = 2;
     } else if (kc <= k) {
       kopt = kc;
-      if (w[kc - 1] < w[kc] * FAC3) kopt = kc - 1;
-      if (w[kc] < w[kc - 1] * FAC4) kopt = Math.min(kc + 1, KM - 1);
+      if (this.colW(kc - 1) < this.colW(kc) * FAC3) kopt = kc - 1;
+      if (this.colW(kc) < this.colW(kc - 1) * FAC4) kopt = Math.min(kc + 1, KM - 1);
     } else {
       kopt = kc - 1;
-      if (kc > 3 && w[kc - 2] < w[kc - 1] * FAC3) kopt = kc - 2;
-      if (w[kc] < w[kopt] * FAC4) kopt = Math.min(kc, KM - 1);
+      if (kc > 3 && this.colW(kc - 2) < this.colW(kc - 1) * FAC3) kopt = kc - 2;
+      if (this.colW(kc) < this.colW(kopt) * FAC4) kopt = Math.min(kc, KM - 1);
     }
     if (this.reject) {
       // after a rejected step
       this.k = Math.min(kopt, kc);
-      this.h = posneg * Math.min(Math.abs(this.h), Math.abs(hh[this.k]));
+      this.h = posneg * Math.min(Math.abs(this.h), Math.abs(this.colH(this.k)));
       this.reject = false;
       return;
     }
     let h: number;
-    if (kopt <= kc) h = hh[kopt];
-    else if (kc < k && w[kc] < w[kc - 1] * FAC4) h = (hh[kc] * WORK[kopt + 1]) / WORK[kc];
-    else h = (hh[kc] * WORK[kopt]) / WORK[kc];
+    if (kopt <= kc) h = this.colH(kopt);
+    else if (kc < k && this.colW(kc) < this.colW(kc - 1) * FAC4) h = (this.colH(kc) * WORK[kopt + 1]) / WORK[kc];
+    else h = (this.colH(kc) * WORK[kopt]) / WORK[kc];
     this.k = kopt;
     this.h = posneg * Math.abs(h);
   }
@@ -352,6 +384,7 @@ class GbsLoop implements Stepper {
     hh.fill(Number.NaN);
     w.fill(Number.NaN);
     w[1] = 0;
+    this.colPending.fill(0);
     const hMax = Math.abs(xEnd - x0);
     const posneg = xEnd - x0 >= 0 ? 1 : -1;
     this.hMax = hMax;
@@ -472,9 +505,9 @@ class GbsLoop implements Stepper {
         default: {
           // REJECT
           let k = Math.min(this.k, this.kc, KM - 1);
-          if (k > 2 && w[k - 1] < w[k] * FAC3) k -= 1;
+          if (k > 2 && this.colW(k - 1) < this.colW(k) * FAC3) k -= 1;
           this.k = k;
-          this.h = posneg * hh[k];
+          this.h = posneg * this.colH(k);
           this.reject = true;
           phase = BASIC;
         }

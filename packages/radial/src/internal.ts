@@ -42,3 +42,5 @@ export {
   RICCATI_NODES,
 } from './riccatiStep.js';
 export { type ChebyshevRule, chebyshevRule, chebyshevTail, chebyshevDerivative } from './chebyshev.js';
+export { twoSidedChecked } from './solveTwoSided.js';
+export { oneSidedChecked } from './solveRadial.js';

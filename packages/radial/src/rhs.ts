@@ -4,7 +4,6 @@
  * R'' = −(B R' + C R)/A. The coefficients are unpacked once, so each call is
  * a few Horner steps in plain float64 and allocates nothing.
  */
-import { mul } from './complexPoly.js';
 import type { RadialEquation } from './equation.js';
 
 /** Fill dy with the derivative at r; must not allocate. */
@@ -27,26 +26,35 @@ const D = 0,
   CI = CR + MAX_DEGREE + 1,
   SIZE = CI + MAX_DEGREE + 1;
 
+/** Whether A = Δ·Δ coefficient for coefficient, the products summed as `mul` of complexPoly.ts sums them (without building Δ²). */
 function isSquareOfDelta(eq: RadialEquation): boolean {
-  const square = mul(eq.delta, eq.delta);
-  return (
-    eq.A.re.length === square.re.length && eq.A.re.every((x, j) => x === square.re[j] && eq.A.im[j] === 0 && square.im[j] === 0)
-  );
+  const { re: dr, im: di } = eq.delta;
+  const n = 2 * dr.length - 1;
+  if (eq.A.re.length !== n) return false;
+  for (let k = 0; k < n; k++) {
+    let re = 0,
+      im = 0;
+    for (let i = Math.max(0, k - dr.length + 1); i <= Math.min(k, dr.length - 1); i++) {
+      re += dr[i] * dr[k - i] - di[i] * di[k - i];
+      im += dr[i] * di[k - i] + di[i] * dr[k - i];
+    }
+    if (eq.A.re[k] !== re || eq.A.im[k] !== 0 || im !== 0) return false;
+  }
+  return true;
 }
 
 /** Δ, B and C packed into one typed array at the offsets above (one array: measured faster than several, or than closure constants). */
-function packCoefficients(eq: RadialEquation): Float64Array {
+function packCoefficients(eq: RadialEquation, k: Float64Array): void {
   for (const p of [eq.B, eq.C]) {
     if (p.re.length > MAX_DEGREE + 1) throw new Error(`radial equation coefficient of degree ${p.re.length - 1} > ${MAX_DEGREE}`);
   }
   if (eq.delta.re.length > 3) throw new Error('radial equation: Δ must be quadratic');
-  const k = new Float64Array(SIZE);
+  k.fill(0);
   k.set(eq.delta.re, D);
   k.set(eq.B.re, BR);
   k.set(eq.B.im, BI);
   k.set(eq.C.re, CR);
   k.set(eq.C.im, CI);
-  return k;
 }
 
 /**
@@ -67,19 +75,33 @@ export interface EquationKernel {
 }
 
 /**
- * Packed coefficients of the equations already seen (a leg is integrated in
+ * Packed coefficients of the equations seen last (a leg is integrated in
  * several pieces, each asking for the kernel of the same equation; the
- * equations are never modified after they are built).
+ * equations are never modified after they are built), found by identity:
+ * a short list, measured cheaper than a WeakMap, whose insertions were a
+ * visible share of a greybody factor. Each slot owns its array (a fresh
+ * one per equation was measured among a solve's allocations), so a kernel,
+ * and a right-hand side made from it, reads valid coefficients until eight
+ * other equations have been packed: a leg uses its kernel only while it runs.
  */
-const packedOf = new WeakMap<RadialEquation, { k: Float64Array; complexB: boolean }>();
+const recent: { eq: RadialEquation | null; k: Float64Array; complexB: boolean }[] = Array.from({ length: 8 }, () => ({
+  eq: null,
+  k: new Float64Array(SIZE),
+  complexB: false,
+}));
+let nextSlot = 0;
 
 /** The kernel of `eq` for an argument measured from `origin` (default 0: the argument is r itself). */
 export function equationKernel(eq: RadialEquation, counter: EvaluationCounter, origin = 0): EquationKernel {
-  let packed = packedOf.get(eq);
+  let packed = recent.find((e) => e.eq === eq);
   if (packed === undefined) {
     if (!isSquareOfDelta(eq)) throw new Error('radial equation: the coefficient of R″ must be Δ²');
-    packed = { k: packCoefficients(eq), complexB: !eq.B.im.every((x) => x === 0) };
-    packedOf.set(eq, packed);
+    packed = recent[nextSlot];
+    nextSlot = (nextSlot + 1) % recent.length;
+    packed.eq = null;
+    packCoefficients(eq, packed.k);
+    packed.complexB = !eq.B.im.every((x) => x === 0);
+    packed.eq = eq;
   }
   // An argument measured from the expansion point needs no subtraction (and loses no digits to one).
   return { k: packed.k, c: eq.center - origin, complexB: packed.complexB, counter };
@@ -93,7 +115,8 @@ export function equationKernel(eq: RadialEquation, counter: EvaluationCounter, o
  * (the unsubstituted equation) skips its imaginary part. (Measured: the
  * coefficients held in many closure variables, or a complex B throughout,
  * cost 10–25 % of a whole solve.) The extrapolation loop evaluates the same
- * expressions inline from `equationKernel`.
+ * expressions inline from `equationKernel`. Like a kernel, it is valid until
+ * eight other equations have been packed (see `recent`).
  */
 export function equationRhs(eq: RadialEquation, counter: EvaluationCounter, origin = 0): Rhs {
   return kernelRhs(equationKernel(eq, counter, origin));

@@ -106,11 +106,11 @@ function shifted(p: Float64Array, shift: number, length: number): Float64Array {
 /** The coefficients of an unsubstituted (or substituted) radial equation about r+, for Riccati steps in x = r − r+. */
 export function riccatiEquation(eq: RadialEquation, rPlus: number): RiccatiEquation {
   const shift = rPlus - eq.center;
+  // About r+ already: the equation's own coefficients (never modified once built), unpadded; Horner's rule over
+  // them gives the same doubles as over zero-padded copies (leading zeros add exact zeros for finite x > 0).
   const take = (p: Float64Array, n: number) => {
     if (shift !== 0) return shifted(p, shift, n);
-    const out = new Float64Array(n);
-    out.set(p.length > n ? p.subarray(0, n) : p);
-    return out;
+    return p.length > n ? p.subarray(0, n) : p;
   };
   return {
     delta: take(eq.delta.re, 3),

@@ -13,8 +13,8 @@ import { singleSolveErrorEstimate, singleSolveMessage } from './diagnostics.js';
 import { chooseMatch, farTarget, matchAmplitudes } from './farMatch.js';
 import { horizonWavenumber } from './horizonSeries.js';
 import { NEAR_ROUNDING_TOL, startAtHorizon } from './horizonStart.js';
-import { fieldMassOf, radialEquation } from './equation.js';
-import { resolveRadialOptions, type RadialOptions } from './options.js';
+import { fieldMassOf, radialEquation, type RadialMode } from './equation.js';
+import { resolveRadialOptions, type RadialOptions, type ResolvedOptions } from './options.js';
 import { validateProblem, type RadialProblem } from './problem.js';
 import { chargedSteps, integrateHybridLeg } from './hybridLeg.js';
 import type { Complex2, RadialSolution } from './solution.js';
@@ -43,7 +43,18 @@ function oneSidedAmplification(hole: KerrHole, s: number, omega: number, x0: num
 export function solveRadial(problem: RadialProblem, options: RadialOptions = {}): RadialSolution {
   const opts = resolveRadialOptions(options);
   const mode = validateProblem(problem);
-  const { hole } = problem;
+  const solution = oneSidedChecked(problem.hole, mode, opts);
+  const d = solution.diagnostics;
+  d.message = singleSolveMessage(d.errorEstimate, d.amplification);
+  return solution;
+}
+
+/**
+ * `solveRadial` for a caller that has checked the mode (as `validateProblem`
+ * does) and resolved the options (as `resolveRadialOptions` does): the same
+ * solve without re-validating them, and with an empty diagnostics message.
+ */
+export function oneSidedChecked(hole: KerrHole, mode: RadialMode, opts: ResolvedOptions): RadialSolution {
   const method = `teukolsky-shooting/frobenius-start/asymptotic-match/${opts.integrator}`;
   const equation = radialEquation(hole, mode, hole.rPlus);
   // the default start stays inside the requested radii (the series is not sampled there)
@@ -108,7 +119,8 @@ export function solveRadial(problem: RadialProblem, options: RadialOptions = {})
       steps: seg.steps,
       rhsEvaluations: counter.evaluations,
       errorEstimate,
-      message: singleSolveMessage(errorEstimate, amplification),
+      // worded by the public route (greybody words its own: formatting it per solve was measured at ~1 %)
+      message: '',
       integrator: opts.integrator,
       tol: opts.tol,
       startRadius: r0,

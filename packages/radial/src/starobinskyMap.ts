@@ -11,46 +11,47 @@
  * negligible. Derivation: docs/method.md.
  */
 import type { KerrHole } from '@penumbra/kerr';
-import type { CPoly } from './complexPoly.js';
-import { radialEquation, type RadialMode } from './equation.js';
+import { EQUATION_SCRATCH, fillEquation, type RadialMode } from './equation.js';
 
-/** Complex truncated power series in h = r − r0 (coefficient arrays of equal length). */
-interface Series {
-  re: number[];
-  im: number[];
-}
+/** Series scratch (n ≤ 2·2 + 2 = 6 coefficients): the map runs to completion without re-entering itself. */
+const LEN = 8;
+const [wRe, wIm, pRe, pIm, qRe, qIm, numRe, numIm, denRe, denIm] = Array.from({ length: 10 }, () => new Float64Array(LEN));
+const [aRe0, aIm0, bRe0, bIm0, aRe1, aIm1, bRe1, bIm1] = Array.from({ length: 8 }, () => new Float64Array(LEN));
 
-/** The first n coefficients of a polynomial (already in powers of h = r − r0). */
-function fromPoly(q: CPoly, n: number): Series {
-  const re = new Array<number>(n).fill(0),
-    im = new Array<number>(n).fill(0);
-  for (let i = 0; i < Math.min(n, q.re.length); i++) {
-    re[i] = q.re[i];
-    im[i] = q.im[i];
+/**
+ * Load the first n coefficients of a real polynomial (length `len`, zero
+ * beyond) into re, with im 0; `negate` loads −p (and −0 for im), as
+ * negating the loaded series did.
+ */
+function load(re: Float64Array, im: Float64Array, p: Float64Array, len: number, n: number, f: number, negate: boolean): void {
+  for (let i = 0; i < n; i++) {
+    const v = i < len ? (f === 1 ? p[i] : p[i] * f) : 0;
+    re[i] = negate ? -v : v;
+    im[i] = negate ? -0 : 0;
   }
-  return { re, im };
 }
 
-function negate(a: Series): Series {
-  return { re: a.re.map((x) => -x), im: a.im.map((x) => -x) };
-}
-
-/** a / b for a series b with b_0 ≠ 0. */
-function div(a: Series, b: Series, n: number): Series {
-  const re = new Array<number>(n).fill(0),
-    im = new Array<number>(n).fill(0);
-  const d = b.re[0] * b.re[0] + b.im[0] * b.im[0];
+/** out = a / b to n terms for a series b with b_0 ≠ 0 (out distinct from a and b). */
+function divInto(
+  outRe: Float64Array,
+  outIm: Float64Array,
+  aRe: Float64Array,
+  aIm: Float64Array,
+  bRe: Float64Array,
+  bIm: Float64Array,
+  n: number,
+): void {
+  const d = bRe[0] * bRe[0] + bIm[0] * bIm[0];
   for (let k = 0; k < n; k++) {
-    let xr = a.re[k],
-      xi = a.im[k];
+    let xr = aRe[k],
+      xi = aIm[k];
     for (let j = 1; j <= k; j++) {
-      xr -= b.re[j] * re[k - j] - b.im[j] * im[k - j];
-      xi -= b.re[j] * im[k - j] + b.im[j] * re[k - j];
+      xr -= bRe[j] * outRe[k - j] - bIm[j] * outIm[k - j];
+      xi -= bRe[j] * outIm[k - j] + bIm[j] * outRe[k - j];
     }
-    re[k] = (xr * b.re[0] + xi * b.im[0]) / d;
-    im[k] = (xi * b.re[0] - xr * b.im[0]) / d;
+    outRe[k] = (xr * bRe[0] + xi * bIm[0]) / d;
+    outIm[k] = (xi * bRe[0] - xr * bIm[0]) / d;
   }
-  return { re, im };
 }
 
 /** R_{+s} = a0 R + b0 R',  R'_{+s} = a1 R + b1 R' (complex, [re, im]). */
@@ -72,24 +73,34 @@ export interface StarobinskyMap {
 export function starobinskyMapAt(hole: KerrHole, minus: RadialMode, r: number): StarobinskyMap {
   const twoS = Math.round(-2 * minus.s);
   const n = twoS + 2; // series order needed: 2s derivatives plus one
-  // The −s equation A R'' + B R' + C R = 0 expanded about r itself.
-  const eq = radialEquation(hole, minus, r);
-  const W = div(fromPoly(eq.K, n), fromPoly(eq.delta, n), n);
+  // The −s equation A R'' + B R' + C R = 0 expanded about r itself, read in place from its scratch.
+  fillEquation(hole, minus, r);
+  const eq = EQUATION_SCRATCH;
+  load(numRe, numIm, eq.K, 3, n, 1, false);
+  load(denRe, denIm, eq.delta, eq.nDelta, n, 1, false);
+  divInto(wRe, wIm, numRe, numIm, denRe, denIm, n);
   // R'' = P R' + Q R: P = −B/A = −(s+1)Δ'/Δ, Q = −C/A = −U/Δ².
-  const A = fromPoly(eq.A, n);
-  const P = div(negate(fromPoly(eq.B, n)), A, n);
-  const Q = div(negate(fromPoly(eq.C, n)), A, n);
+  load(denRe, denIm, eq.A, eq.nA, n, 1, false);
+  load(numRe, numIm, eq.DD, eq.nDD, n, minus.s + 1, true);
+  divInto(pRe, pIm, numRe, numIm, denRe, denIm, n);
+  for (let i = 0; i < n; i++) {
+    const v = i < eq.nC ? eq.CRe[i] : 0;
+    const w = i < eq.nC ? eq.CIm[i] : 0;
+    numRe[i] = -v;
+    numIm[i] = -w;
+  }
+  divInto(qRe, qIm, numRe, numIm, denRe, denIm, n);
   // α ← α' + βQ − iWα, β ← α + β' + βP − iWβ, each pass one order shorter; the sums run in the order of the
-  // series helpers above (the same doubles), on arrays made once per call instead of a dozen per pass.
-  let aRe = new Array<number>(n).fill(0),
-    aIm = new Array<number>(n).fill(0),
-    bRe = new Array<number>(n).fill(0),
-    bIm = new Array<number>(n).fill(0);
+  // series helpers above (the same doubles), on scratch arrays.
+  let aRe = aRe0.fill(0, 0, n),
+    aIm = aIm0.fill(0, 0, n),
+    bRe = bRe0.fill(0, 0, n),
+    bIm = bIm0.fill(0, 0, n);
   aRe[0] = 1;
-  let naRe = new Array<number>(n).fill(0),
-    naIm = new Array<number>(n).fill(0),
-    nbRe = new Array<number>(n).fill(0),
-    nbIm = new Array<number>(n).fill(0);
+  let naRe = aRe1.fill(0, 0, n),
+    naIm = aIm1.fill(0, 0, n),
+    nbRe = bRe1.fill(0, 0, n),
+    nbIm = bIm1.fill(0, 0, n);
   let size = n;
   for (let j = 0; j < twoS; j++) {
     const len = size - 1;
@@ -105,14 +116,14 @@ export function starobinskyMapAt(hole: KerrHole, minus: RadialMode, r: number): 
         wbI = 0;
       for (let i = 0; i <= k; i++) {
         const m = k - i;
-        bqR += bRe[i] * Q.re[m] - bIm[i] * Q.im[m];
-        bqI += bRe[i] * Q.im[m] + bIm[i] * Q.re[m];
-        waR += W.re[i] * aRe[m] - W.im[i] * aIm[m];
-        waI += W.re[i] * aIm[m] + W.im[i] * aRe[m];
-        bpR += bRe[i] * P.re[m] - bIm[i] * P.im[m];
-        bpI += bRe[i] * P.im[m] + bIm[i] * P.re[m];
-        wbR += W.re[i] * bRe[m] - W.im[i] * bIm[m];
-        wbI += W.re[i] * bIm[m] + W.im[i] * bRe[m];
+        bqR += bRe[i] * qRe[m] - bIm[i] * qIm[m];
+        bqI += bRe[i] * qIm[m] + bIm[i] * qRe[m];
+        waR += wRe[i] * aRe[m] - wIm[i] * aIm[m];
+        waI += wRe[i] * aIm[m] + wIm[i] * aRe[m];
+        bpR += bRe[i] * pRe[m] - bIm[i] * pIm[m];
+        bpI += bRe[i] * pIm[m] + bIm[i] * pRe[m];
+        wbR += wRe[i] * bRe[m] - wIm[i] * bIm[m];
+        wbI += wRe[i] * bIm[m] + wIm[i] * bRe[m];
       }
       // α' + βQ + (−i)(Wα): (−i)(x + iy) = y − ix
       naRe[k] = 0 + (k + 1) * aRe[k + 1] + bqR + waI;
@@ -126,11 +137,11 @@ export function starobinskyMapAt(hole: KerrHole, minus: RadialMode, r: number): 
     [bIm, nbIm] = [nbIm, bIm];
     size = len;
   }
-  const alpha: Series = { re: aRe, im: aIm };
-  const beta: Series = { re: bRe, im: bIm };
+  const alpha = { re: aRe, im: aIm };
+  const beta = { re: bRe, im: bIm };
   // alpha, beta now carry two coefficients: values and first derivatives at r.
-  const P0: [number, number] = [P.re[0], P.im[0]];
-  const Q0: [number, number] = [Q.re[0], Q.im[0]];
+  const P0: [number, number] = [pRe[0], pIm[0]];
+  const Q0: [number, number] = [qRe[0], qIm[0]];
   const a0: [number, number] = [alpha.re[0], alpha.im[0]];
   const b0: [number, number] = [beta.re[0], beta.im[0]];
   // d/dr(αR + βR') = (α' + βQ) R + (α + β' + βP) R'

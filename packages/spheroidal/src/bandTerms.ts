@@ -24,12 +24,13 @@ export interface BandTerms {
 }
 
 /** Terms are cached per (s, m, lFirst, stride): building them dominated warm solves. */
-const termsCache = new Map<string, BandTerms>();
+const termsCache = new Map<number, BandTerms>();
 const TERMS_CACHE_LIMIT = 1024;
 
 /** The terms for (s, m, lFirst, stride) with at least `size` rows (cached, grown by doubling). */
 export function bandTerms(s: number, m: number, lFirst: number, stride: 1 | 2, size: number): BandTerms {
-  const key = `${2 * s},${2 * m},${2 * lFirst},${stride}`;
+  // one number per (s, m, lFirst, stride): |2s| ≤ 4, |2m| ≤ 2·MAX_L, 0 ≤ 2·lFirst ≤ 2·MAX_L (a string key was measured at a few % of a warm solve)
+  const key = ((2 * lFirst * 2048 + (2 * m + 1024)) * 16 + (2 * s + 8)) * 4 + stride;
   const cached = termsCache.get(key);
   if (cached && cached.length >= size) return cached;
   const n = Math.max(size, 2 * (cached?.length ?? 0), 32);

@@ -86,6 +86,13 @@ const BISECTION_FALLBACK_C = 10;
 const SPECTRAL_MESSAGE =
   'converged: eigenvalue bisected to adjacent floats by Sylvester counts on a truncation whose eigenvector tail is below 1e-16';
 
+/**
+ * A mode's last solve. The next solve of the same mode builds its band and
+ * eigenvector in this one's stores (`spectral.band`'s diagonals and
+ * `spectral.vector` are read only while the solve that made them runs, and
+ * by callers of `solveMode` at once: the warm start copies the vector
+ * first); a solve that throws drops the entry (its stores may be part-written).
+ */
 interface ModeState {
   c: number;
   leaver: string;
@@ -94,11 +101,12 @@ interface ModeState {
 }
 
 /** Last solved point of each mode, for warm starts and exact repeats. */
-const modeCache = new Map<string, ModeState>();
+const modeCache = new Map<number, ModeState>();
 const MODE_CACHE_LIMIT = 4096;
 
-function modeKey(s: number, l: number, m: number): string {
-  return `${2 * s},${2 * l},${2 * m}`;
+/** A number per (s, l, m) (2s, 2l, 2m are integers with |2s| ≤ 4, 0 ≤ 2l ≤ 2·MAX_L, |2m| ≤ 2l): a string key was measured at ~3 % of a warm solve. */
+function modeKey(s: number, l: number, m: number): number {
+  return (2 * l * 2048 + (2 * m + 1024)) * 16 + (2 * s + 8);
 }
 
 /** Forget every cached mode (for benchmarks of the cold path; results never depend on the cache). */
@@ -160,8 +168,27 @@ function solveValidMode(s: number, l: number, m: number, c: number, leaver: stri
     return { result, spectral: null };
   }
 
+  try {
+    return solveNonzero(key, previous, s, l, m, c, leaver, useCache);
+  } catch (e) {
+    if (previous) modeCache.delete(key);
+    throw e;
+  }
+}
+
+function solveNonzero(
+  key: number,
+  previous: ModeState | undefined,
+  s: number,
+  l: number,
+  m: number,
+  c: number,
+  leaver: string,
+  useCache: boolean,
+): SolvedMode {
   const tally: Tally = { evaluations: 0 };
   const { lFirst, stride, index } = basisLayout(s, l, m);
+  const stores = previous?.spectral ? { band: previous.spectral.band.d0.buffer, vector: previous.spectral.vector.buffer } : null;
   // The truncation follows from a history-free guess, so that warm and cold
   // solves work on the same band (see `settle`).
   // Six terms beyond the estimate: a failed tail check costs a second bisection,
@@ -172,7 +199,8 @@ function solveValidMode(s: number, l: number, m: number, c: number, leaver: stri
     const prevA = previous.result.A;
     const dAdc = previous.spectral ? previous.spectral.dAdc : 0;
     const guess = prevA + dAdc * (c - previous.c);
-    spectral = solveWarm(s, m, c, lFirst, stride, index, size, guess, previous.spectral?.vector ?? null, tally, false);
+    const band = stores ? buildBand(s, m, c, lFirst, stride, size, stores.band) : undefined;
+    spectral = solveWarm(s, m, c, lFirst, stride, index, size, guess, previous.spectral?.vector ?? null, tally, false, band);
   }
   // A warm start that lands on a neighbouring eigenvalue fell back on the dense solve (tens of µs, ml-matrix);
   // up to |c| = BISECTION_FALLBACK_C the bisection seed settles to the same doubles (bench/angular-cost.bench.mjs)
@@ -184,7 +212,7 @@ function solveValidMode(s: number, l: number, m: number, c: number, leaver: stri
   }
   spectral ??= solveDense(s, m, c, lFirst, stride, index, size, tally);
 
-  spectral = settle(s, m, c, lFirst, stride, index, size, spectral, tally);
+  spectral = settle(s, m, c, lFirst, stride, index, size, spectral, tally, stores?.vector);
 
   let A = spectral.A;
   const diagnostics: SpheroidalDiagnostics = {
@@ -245,6 +273,7 @@ function settle(
   initialSize: number,
   solved: SpectralSolution,
   tally: Tally,
+  vectorStore?: ArrayBufferLike,
 ): SpectralSolution {
   let size = initialSize;
   let seed = solved.A;
@@ -257,7 +286,7 @@ function settle(
       settleEigenvalue(band, index, seed, margin, tally) ??
       settleEigenvalue(band, index, seed, 1e-9 * band.norm, tally) ??
       settleEigenvalueCold(band, index, tally);
-    const settled = settledSolution(band, point.A, solved.iterations + point.counts, solved.method, tally);
+    const settled = settledSolution(band, point.A, solved.iterations + point.counts, solved.method, tally, vectorStore);
     if (tailConverged(settled)) return settled;
     steps += point.counts;
     seed = point.A;
@@ -319,7 +348,7 @@ function leaverCheck(
   return { ...best, iterations };
 }
 
-function remember(key: string, state: ModeState): void {
+function remember(key: number, state: ModeState): void {
   if (!modeCache.has(key) && modeCache.size >= MODE_CACHE_LIMIT) {
     const oldest = modeCache.keys().next().value;
     if (oldest !== undefined) modeCache.delete(oldest);

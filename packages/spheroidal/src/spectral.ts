@@ -397,12 +397,14 @@ export function settledSolution(
   iterations: number,
   method: SpectralSolution['method'],
   tally: Tally,
+  /** a store no longer read to hold the eigenvector, when large enough (eigenvalue.ts passes the last vector of the same mode) */
+  reuse?: ArrayBufferLike,
 ): SpectralSolution {
   const n = band.size;
   const ws = workspace(n);
   tally.evaluations++;
   ws.factor(band, n, A);
-  const x = new Float64Array(n);
+  const x = reuse !== undefined && reuse.byteLength >= 8 * n ? new Float64Array(reuse, 0, n) : new Float64Array(n);
   for (let i = 0; i < n; i++) x[i] = 1 / Math.sqrt(n) + (i % 3) * 1e-3;
   for (let step = 0; step < 2; step++) {
     ws.solve(n, x);
