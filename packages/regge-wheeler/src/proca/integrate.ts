@@ -211,7 +211,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   let rhsEvaluations = phaseEvaluations;
   // du/dr = P/f,  dP/dr = [μ² + L/r² + Q(1/r)/r² − ω²/f] u.
   const L = model.L;
-  // Written out for one and for two channels (the even sector: two solutions of 8 components).
+  // Written out for one and for two channels (the even sector: two solutions of 8 components); the Cash–Karp route's.
   const deriv =
     N === 1
       ? (dydr: Float64Array, s: Float64Array, r: number): void => {
@@ -266,18 +266,20 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   updateNorms();
   const cashKarp = controls.integrator === 'cash-karp';
   const stepper = !cashKarp
-    ? new ProcaExtrapolation(y, deriv, r0, 0.01 * x0, controls.stepTolerance, 4 * N, model.omega)
+    ? new ProcaExtrapolation(y, { channels: N, mu2, w2, L, q0, q1 }, r0, 0.01 * x0, controls.stepTolerance, model.omega)
     : createIntegrator(y, deriv, r0, 0.01 * x0, {
         tol: controls.stepTolerance,
         verbose: false,
         errorScaleFunction: errorScale,
       });
+  // the extrapolation loop counts its own evaluations (its equations are written out inside it)
+  const evaluations = (): number => rhsEvaluations + (stepper instanceof ProcaExtrapolation ? stepper.evaluations : 0);
   const stepOnce = (): boolean => {
     try {
       return stepper.step(matchRadius);
     } catch (e) {
       if (!(e instanceof RangeError)) throw e;
-      throw new ConvergenceError('integration step size underflow', failure(model, e.message, steps, rhsEvaluations));
+      throw new ConvergenceError('integration step size underflow', failure(model, e.message, steps, evaluations()));
     }
   };
   let steps = phaseSteps;
@@ -297,7 +299,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
       stepper.step(targets[next]);
     } catch (e) {
       if (!(e instanceof RangeError)) throw e;
-      throw new ConvergenceError('integration step size underflow', failure(model, e.message, steps, rhsEvaluations));
+      throw new ConvergenceError('integration step size underflow', failure(model, e.message, steps, evaluations()));
     }
     const at = position();
     if (at >= targets[next]) {
@@ -319,7 +321,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
     if (!Number.isFinite(size)) {
       throw new ConvergenceError(
         'integration produced a non-finite state',
-        failure(model, `non-finite after ${steps} steps`, steps, rhsEvaluations),
+        failure(model, `non-finite after ${steps} steps`, steps, evaluations()),
       );
     }
     if (size > RESCALE) {
@@ -330,7 +332,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
     if (steps > MAX_STEPS) {
       throw new ConvergenceError(
         'integration step budget exhausted',
-        failure(model, `more than ${MAX_STEPS} steps`, steps, rhsEvaluations),
+        failure(model, `more than ${MAX_STEPS} steps`, steps, evaluations()),
       );
     }
   }
@@ -363,7 +365,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
     startRadius: r0,
     matchRadius,
     steps,
-    rhsEvaluations,
+    rhsEvaluations: evaluations(),
     seriesTerms: starts.reduce((a, s) => a + s.terms, 0) + far.reduce((a, s) => a + s.terms, 0),
     amplitudesIn: Ain,
     amplitudesOut: Aout,
