@@ -120,22 +120,26 @@ export function procaSpan(model: SectorModel): number {
   return tortoiseSpan(START_OFFSET, 1.4 * defaultProcaMatchRadius(model));
 }
 
+/** One solve of a sector: the integration returned, its estimate and the work of every integration made. */
+interface SectorSolve {
+  run: ProcaIntegration;
+  relError: number;
+  steps: number;
+  rhsEvaluations: number;
+  used: ProcaIntegrator;
+  note: string;
+  /** true when run and relError do not depend on which polarisation was asked for (one integration's accumulation bound) */
+  polarizationFree: boolean;
+}
+
 /**
- * Γ of one polarisation of a massive vector mode on Schwarzschild. The
+ * The solve of one sector for the Γ of polarisation `index`. The
  * extrapolation route runs one integration with its accumulation bound as the
- * estimate; where that cannot reach tol, and for Cash–Karp, two integrations
- * that differ in start, matching radius and step tolerance give it. Throws
- * InputError for a bad problem (below threshold: `omega`) or options, and
- * ConvergenceError (full diagnostics) when the estimate stays above
- * `options.tol` (default 1e-10) after two tightenings.
- *
- * @example procaGreybody({ field: { spin: 1, mass: 0.1 }, l: 1, omega: 0.3, polarization: 'odd' })
+ * estimate (the same for every polarisation of the sector); where that cannot
+ * reach tol, and for Cash–Karp, two integrations that differ in start,
+ * matching radius and step tolerance give it for the polarisation asked for.
  */
-export function procaGreybody(problem: ProcaGreybodyProblem, options?: ProcaGreybodyOptions): ProcaGreybodySolution {
-  const p = validateProcaProblem(problem);
-  const { tol, integrator } = validateProcaOptions(options);
-  const model = sectorModel(p.sector, p.l, p.omega, p.mu);
-  const index = p.polarization === 'even-2' ? 1 : 0;
+function solveSector(model: SectorModel, tol: number, integrator: ProcaIntegrator, index: number): SectorSolve {
   const match = defaultProcaMatchRadius(model);
   const span = tortoiseSpan(START_OFFSET, 1.4 * match);
   let steps = 0;
@@ -147,13 +151,13 @@ export function procaGreybody(problem: ProcaGreybodyProblem, options?: ProcaGrey
     for (let attempt = 0; attempt < 3; attempt++) {
       const coarse = integrateProca(model, {
         startOffset: START_OFFSET,
-        stepTolerance: stepTolerance(name, tol, span, p.omega, factor),
+        stepTolerance: stepTolerance(name, tol, span, model.omega, factor),
         integrator: name,
       });
       fine = integrateProca(model, {
         startOffset: 0.6 * START_OFFSET,
         matchRadius: 1.4 * match,
-        stepTolerance: stepTolerance(name, tol, span, p.omega, factor / 8),
+        stepTolerance: stepTolerance(name, tol, span, model.omega, factor / 8),
         integrator: name,
       });
       steps += coarse.steps + fine.steps;
@@ -176,24 +180,76 @@ export function procaGreybody(problem: ProcaGreybodyProblem, options?: ProcaGrey
   // below ~1e-11 the extrapolation loop's rounding floor (ROUNDING_PER_ROOT_EVALUATION) is in the way: Cash–Karp at once
   let used: ProcaIntegrator = integrator === 'extrapolation' && tol < TIGHTEST_EXTRAPOLATION_TOL ? 'cash-karp' : integrator;
   const single = used === 'extrapolation' ? runSingle() : undefined;
-  let { fine, relError } = single ?? run2(used);
-  let note = single ? '; error from the accumulation bound of one integration' : '; error from two integrations';
+  if (single) {
+    return {
+      run: single.fine,
+      relError: single.relError,
+      steps,
+      rhsEvaluations,
+      used,
+      note: '; error from the accumulation bound of one integration',
+      polarizationFree: true,
+    };
+  }
+  let { fine, relError } = run2(used);
+  let note = '; error from two integrations';
   if (relError > tol && used === 'extrapolation') {
     // near the rounding floor (tol ~ 1e-12) the extrapolation loop can stall where Cash–Karp does not
     note = `; error from two integrations; extrapolation stalled at ${relError.toExponential(1)}, Cash–Karp used`;
     used = 'cash-karp';
     ({ fine, relError } = run2(used));
   }
-  const run = fine;
+  return { run: fine, relError, steps, rhsEvaluations, used, note, polarizationFree: false };
+}
+
+/**
+ * The last even-sector solve whose Γ do not depend on the polarisation asked
+ * for, with the polarisation it served: one integration carries both
+ * horizon-ingoing solutions and gives the Γ of even-1 and even-2 at once, so
+ * a caller that asks for both in turn (the emission and cross-section sums
+ * do) pays for one integration. It serves the other polarisation once, with
+ * the result a fresh solve would give, bit for bit; asking again for the same
+ * one solves afresh.
+ */
+let lastEvenSolve: { key: string; index: number; solve: SectorSolve } | undefined;
+
+/**
+ * Γ of one polarisation of a massive vector mode on Schwarzschild. The
+ * extrapolation route runs one integration with its accumulation bound as the
+ * estimate; where that cannot reach tol, and for Cash–Karp, two integrations
+ * that differ in start, matching radius and step tolerance give it. One
+ * even-sector integration gives both even Γ: asking for even-2 right after
+ * even-1 of the same l, Mω, Mμ and options (or the reverse) reuses it once,
+ * and its diagnostics then count no new steps or evaluations. Throws InputError for a bad problem
+ * (below threshold: `omega`) or options, and ConvergenceError (full
+ * diagnostics) when the estimate stays above `options.tol` (default 1e-10)
+ * after two tightenings.
+ *
+ * @example procaGreybody({ field: { spin: 1, mass: 0.1 }, l: 1, omega: 0.3, polarization: 'odd' })
+ */
+export function procaGreybody(problem: ProcaGreybodyProblem, options?: ProcaGreybodyOptions): ProcaGreybodySolution {
+  const p = validateProcaProblem(problem);
+  const { tol, integrator } = validateProcaOptions(options);
+  const model = sectorModel(p.sector, p.l, p.omega, p.mu);
+  const index = p.polarization === 'even-2' ? 1 : 0;
+  const key = `${p.l}|${p.omega}|${p.mu}|${tol}|${integrator}`;
+  const last = lastEvenSolve;
+  const reused = p.sector === 'even' && last?.key === key && last.index !== index ? last.solve : undefined;
+  const solved = reused ?? solveSector(model, tol, integrator, index);
+  if (p.sector === 'even') lastEvenSolve = !reused && solved.polarizationFree ? { key, index, solve: solved } : undefined;
+  const { run, relError, used, note } = solved;
   const converged = relError <= tol;
+  const how = solved.polarizationFree ? 'accumulation bound of one integration' : 'two integrations differ by';
   const diagnostics: ProcaGreybodyDiagnostics = {
     method: `Proca ${model.sector} sector (${model.channels} channel${model.channels > 1 ? 's' : ''}); horizon Frobenius series, ${used === 'cash-karp' ? 'Cash–Karp RK45' : 'Gragg–Bulirsch–Stoer extrapolation'} in r, far-zone series with the long-range log phase${note}`,
-    steps,
-    rhsEvaluations,
+    steps: reused ? 0 : solved.steps,
+    rhsEvaluations: reused ? 0 : solved.rhsEvaluations,
     errorEstimate: relError,
-    message: converged
-      ? `converged: two integrations agree to ${relError.toExponential(1)} (tol ${tol})`
-      : `not converged: two integrations differ by ${relError.toExponential(1)} > tol ${tol}`,
+    message: `${converged ? 'converged' : 'not converged'}: ${how} ${relError.toExponential(1)} (tol ${tol})${
+      reused
+        ? `; both even Γ from the even-sector integration of an earlier call (${solved.steps} steps, ${solved.rhsEvaluations} evaluations, counted there)`
+        : ''
+    }`,
     startRadius: run.startRadius * p.mass,
     matchRadius: run.matchRadius * p.mass,
     seriesTerms: run.seriesTerms,
