@@ -265,8 +265,10 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   };
   updateNorms();
   const cashKarp = controls.integrator === 'cash-karp';
+  // first step: a tenth of the distance to the horizon for the extrapolation loop (a hundredth cost it two
+  // extra steps, 2–4 % of its evaluations), a hundredth for Cash–Karp as before
   const stepper = !cashKarp
-    ? new ProcaExtrapolation(y, { channels: N, mu2, w2, L, q0, q1 }, r0, 0.01 * x0, controls.stepTolerance, model.omega)
+    ? new ProcaExtrapolation(y, { channels: N, mu2, w2, L, q0, q1 }, r0, 0.1 * x0, controls.stepTolerance, model.omega)
     : createIntegrator(y, deriv, r0, 0.01 * x0, {
         tol: controls.stepTolerance,
         verbose: false,
