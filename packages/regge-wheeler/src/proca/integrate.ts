@@ -151,10 +151,19 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   const r0 = 2 + x0;
   let matchRadius = controls.matchRadius ?? defaultProcaMatchRadius(model);
   if (!(matchRadius > 2 * r0)) matchRadius = 2 * r0;
-  const farAt = (r: number): SeriesState[] => Array.from({ length: N }, (_, c) => outgoingFarSolution(model, c, r));
+  // the channels in turn, stopping at the first whose series does not converge (the radius moves out anyway)
+  const farAt = (r: number): SeriesState[] => {
+    const out: SeriesState[] = [];
+    for (let c = 0; c < N; c++) {
+      const s = outgoingFarSolution(model, c, r);
+      out.push(s);
+      if (!s.converged) break;
+    }
+    return out;
+  };
   let far = farAt(matchRadius);
   let moves = 0;
-  while (!far.every((s) => s.converged)) {
+  while (far.length < N || !far.every((s) => s.converged)) {
     if (++moves > MAX_MATCH_MOVES) {
       throw new ConvergenceError(
         'far-zone asymptotic series did not converge',
