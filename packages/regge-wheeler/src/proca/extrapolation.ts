@@ -43,6 +43,9 @@ const NJ = Array.from({ length: KMAX + 1 }, (_, j) => 2 * j);
 const WORK = NJ.map((_, j) => 1 + NJ.slice(1, j + 1).reduce((s, n) => s + n, 0));
 const SAFE1 = 0.65;
 const SAFE2 = 0.94;
+/** Exponent 1/(2j − 1) of the step-size rule of column j, and its smallest factor 0.02^{1/(2j − 1)} (tabled: Math.pow was a tenth of a step's cost). */
+const EXPONENT = NJ.map((_, j) => 1 / (2 * j - 1));
+const FAC_MIN = EXPONENT.map((expo) => 0.02 ** expo);
 /** Smallest meaningful local tolerance: below it the tableau differences are rounding. */
 const TOL_FLOOR = 1e-16;
 
@@ -64,6 +67,8 @@ export class ProcaExtrapolation {
   private readonly dy: Float64Array;
   private readonly scale: Float64Array;
   private readonly hNew = new Float64Array(KMAX + 1);
+  /** scaled error of each column of the current attempt */
+  private readonly errors = new Float64Array(KMAX + 1);
 
   private readonly channels: 1 | 2;
   private readonly mu2: number;
@@ -296,10 +301,8 @@ export class ProcaExtrapolation {
         this.extrapolate(j);
         this.setScale();
         const e = Math.max(this.columnError(), 1e-300);
+        this.errors[j] = e;
         reached = j;
-        const expo = 1 / (2 * j - 1);
-        const facMin = 0.02 ** expo;
-        hNew[j] = h * Math.min(4 / facMin, Math.max(facMin, SAFE2 * (SAFE1 / e) ** expo));
         if (j >= k - 1 && e <= 1) {
           accepted = true;
           break;
@@ -307,6 +310,12 @@ export class ProcaExtrapolation {
         // convergence monitor: stop early when column k + 1 cannot succeed
         if (j === k - 1 && e > ((NJ[k + 1] * NJ[k]) / 4) ** 2) break;
         if (j === k && e > (NJ[k + 1] / 2) ** 2) break;
+      }
+      // the step sizes of the columns the order choice looks at (it never goes below reached − 2)
+      for (let j = Math.max(2, reached - 2); j <= reached; j++) {
+        const expo = EXPONENT[j];
+        const facMin = FAC_MIN[j];
+        hNew[j] = h * Math.min(4 / facMin, Math.max(facMin, SAFE2 * (SAFE1 / this.errors[j]) ** expo));
       }
       const cost = (j: number) => WORK[j] / hNew[j];
       if (accepted) {
