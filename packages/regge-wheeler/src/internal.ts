@@ -12,6 +12,7 @@ export {
   integrateProca,
   defaultPhaseRadius,
   farZonePhase,
+  PHASE_SLACK,
 } from './proca/integrate.js';
 export { type ProcaSector, type SectorModel, sectorModel } from './proca/sectors.js';
 export type { Complex } from './proca/complex.js';

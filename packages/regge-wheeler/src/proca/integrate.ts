@@ -94,6 +94,13 @@ const MAX_MATCH_MOVES = 60;
  * 0.78×; even l = 2 there: 0.87×; even l = 1, Mω = 0.3, v = 0.05, 48 rad: 0.84×).
  */
 const PHASE_GAIN = 40;
+/**
+ * The phase-form far zone may stop at the end of a whole interval up to this
+ * factor outside the phase radius instead of adding a short last interval
+ * (which costs as much as a whole one, about what the direct route takes
+ * for that stretch): measured in bench/proca-speed.bench.mjs near threshold.
+ */
+export const PHASE_SLACK = 1.6;
 
 /**
  * The phase ∫ √(k∞² + 2μ²/r) dr between r1 < r2: the far-zone wave number with
@@ -184,12 +191,14 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
       : inner < farStartRadius;
   if (wanted && controls.stepTolerance >= COLLOCATION_FLOOR) {
     try {
-      const carried = carryFarSolutions(model, far, farStartRadius, inner, controls.stepTolerance, controls.sampleRadii);
+      // on a grid of radii the carry ends where asked; for Γ alone it may end up to PHASE_SLACK further out
+      const slack = controls.sampleRadii ? 1 : PHASE_SLACK;
+      const carried = carryFarSolutions(model, far, farStartRadius, inner, controls.stepTolerance, controls.sampleRadii, slack);
       far = carried.far;
       farSamples = carried.samples;
       phaseSteps = carried.steps;
       phaseEvaluations = carried.rhsEvaluations;
-      matchRadius = inner;
+      matchRadius = carried.endRadius;
     } catch (e) {
       // the collocation could not meet its tolerance: the direct route from the series start
       if (!(e instanceof ConvergenceError)) throw e;
