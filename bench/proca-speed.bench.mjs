@@ -14,7 +14,7 @@
 // With PROCA_BASELINE=<another built checkout> the "before" column is that
 // checkout's default route instead of Cash–Karp (same process, interleaved),
 // and PROCA_RESULT names the JSON file under bench/results.
-// Results: bench/results/proca-speed-2026-12-03b.json, proca-2026-12-04-speed.json.
+// Results: bench/results/proca-speed-2026-12-03b.json, proca-2026-12-04-speed.json, proca-2026-12-04c-speed.txt.
 import { readFileSync, writeFileSync } from 'node:fs';
 import { greybody } from '@penumbra/flux';
 import { benchDir, cpuMsPerCall, fmt, median, table } from './lib.mjs';
@@ -84,6 +84,8 @@ for (const x of MODES) {
         ratioBefore: tOld / tMassless,
         perGammaAfter: perGammaNew / tMassless,
         perGammaBefore: perGammaOld / tMassless,
+        msPairAfter: even ? tPairNew : Number.NaN,
+        msPairBefore: even ? tPairOld : Number.NaN,
         msAfter: tNew,
         msBefore: tOld,
         msMassless: tMassless,
@@ -165,6 +167,18 @@ for (const [name, keep] of [
     `  ${name} (${kept.length}): per call before median ${fmt(median(b))}, max ${fmt(Math.max(...b))}; after median ${fmt(median(a))}, max ${fmt(Math.max(...a))}; per Γ before median ${fmt(median(gb))}, max ${fmt(Math.max(...gb))}; after median ${fmt(median(ga))}, max ${fmt(Math.max(...ga))}`,
   );
 }
+// per (l, m) mode with every polarisation: odd + the even pair (l ≥ 1) or the monopole, against one massless
+// solve (which serves both helicities of the massless vector)
+const shells = [];
+for (const r of records.filter((q) => q.polarization === 'odd' || q.polarization === 'monopole')) {
+  const pair = records.find((q) => q.l === r.l && q.fieldMass === r.fieldMass && q.polarization === 'even-1');
+  const after = r.msAfter + (pair ? pair.msPairAfter : 0);
+  const before = r.msBefore + (pair ? pair.msPairBefore : 0);
+  shells.push({ after: after / r.msMassless, before: before / r.msMassless });
+}
+console.log(
+  `per (l, m) mode, every polarisation (odd + even-1 + even-2, or the monopole) / one massless solve (${shells.length}): before median ${fmt(median(shells.map((x) => x.before)))}, max ${fmt(Math.max(...shells.map((x) => x.before)))}; after median ${fmt(median(shells.map((x) => x.after)))}, max ${fmt(Math.max(...shells.map((x) => x.after)))}`,
+);
 console.log(
   `largest (error against tol-1e-11 solve) / relError: ${fmt(Math.max(...records.map((r) => r.errorVsTight / r.relError)))}`,
 );
