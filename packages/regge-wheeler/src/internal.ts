@@ -12,8 +12,10 @@ export {
   integrateProca,
   defaultPhaseRadius,
   farZonePhase,
+  PHASE_SLACK,
 } from './proca/integrate.js';
 export { type ProcaSector, type SectorModel, sectorModel } from './proca/sectors.js';
 export type { Complex } from './proca/complex.js';
 export { type SeriesState, type ChannelState, outgoingFarSolution, horizonSolution } from './proca/series.js';
-export { type ProcaRhs, ProcaExtrapolation } from './proca/extrapolation.js';
+export { ProcaExtrapolation } from './proca/extrapolation.js';
+export { chargedSteps, singleStartOffset } from './proca/greybody.js';

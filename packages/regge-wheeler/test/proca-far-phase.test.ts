@@ -10,7 +10,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { procaRadialSolution } from '@penumbra/regge-wheeler';
-import { defaultPhaseRadius, integrateProca, sectorModel } from '@penumbra/regge-wheeler/internal';
+import { PHASE_SLACK, defaultPhaseRadius, integrateProca, sectorModel } from '@penumbra/regge-wheeler/internal';
 
 const MODES: Array<['odd' | 'monopole', number, number, number]> = [
   ['odd', 1, 0.3, 0.2996],
@@ -32,7 +32,10 @@ describe('Proca far zone carried in phase form (near threshold)', () => {
       const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12 });
       const direct = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: false });
       expect(carried.phaseSteps).toBeGreaterThan(0);
-      expect(carried.matchRadius).toBeLessThan(carried.farStartRadius / 10);
+      // it ends at the phase radius, or at the end of a whole interval up to PHASE_SLACK outside it
+      expect(carried.matchRadius).toBeGreaterThanOrEqual(defaultPhaseRadius(model) * (1 - 1e-12));
+      expect(carried.matchRadius).toBeLessThanOrEqual(PHASE_SLACK * defaultPhaseRadius(model));
+      expect(carried.matchRadius).toBeLessThan(carried.farStartRadius / 5);
       expect(Math.abs(carried.gammas[0] / direct.gammas[0] - 1)).toBeLessThan(1e-10);
       expect(carried.residual).toBeLessThan(1e-10);
     },
@@ -45,7 +48,8 @@ describe('Proca far zone carried in phase form (near threshold)', () => {
       const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12 });
       const direct = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: false });
       expect(carried.phaseSteps).toBeGreaterThan(0);
-      expect(carried.matchRadius).toBeCloseTo(defaultPhaseRadius(model), 9);
+      expect(carried.matchRadius).toBeGreaterThanOrEqual(defaultPhaseRadius(model) * (1 - 1e-12));
+      expect(carried.matchRadius).toBeLessThanOrEqual(PHASE_SLACK * defaultPhaseRadius(model));
       for (const i of [0, 1]) expect(Math.abs(carried.gammas[i] / direct.gammas[i] - 1)).toBeLessThan(1e-10);
       expect(carried.residual).toBeLessThan(1e-10);
     },

@@ -68,6 +68,26 @@ describe('Proca even sector: per-channel Γ depends on the basis, their sum does
   });
 });
 
+describe('Proca even sector: one integration gives the Γ of both even polarisations (the two eigenvalues of one absorption matrix)', () => {
+  it('l = 1, Mω = 0.3, Mμ = 0.15, tol 1e-8: even-2 right after even-1 reuses its integration (no new steps), equal bit for bit to a fresh even-2 solve; the same polarisation again solves afresh', () => {
+    const first = proca('even-1', 1, 0.3, 0.15, 1e-8);
+    const shared = proca('even-2', 1, 0.3, 0.15, 1e-8);
+    const fresh = proca('even-2', 1, 0.3, 0.15, 1e-8);
+    const again = proca('even-2', 1, 0.3, 0.15, 1e-8);
+    expect(first.diagnostics.steps).toBeGreaterThan(0);
+    expect(shared.diagnostics.steps).toBe(0);
+    expect(shared.diagnostics.rhsEvaluations).toBe(0);
+    expect(shared.diagnostics.message).toMatch(/earlier call/);
+    expect(fresh.diagnostics.steps).toBe(first.diagnostics.steps);
+    expect(again.diagnostics.steps).toBe(first.diagnostics.steps);
+    expect(shared.gamma).toBe(fresh.gamma);
+    expect(shared.diagnostics.errorEstimate).toBe(fresh.diagnostics.errorEstimate);
+    expect(shared.sectorGammas).toEqual([first.gamma, fresh.gamma]);
+    // another tol is another solve
+    expect(proca('even-1', 1, 0.3, 0.15, 1e-9).diagnostics.steps).toBeGreaterThan(0);
+  });
+});
+
 describe('Proca far zone: the answer does not move with the matching radius (long-range log phase in the series)', () => {
   for (const [sector, l, omega, mu] of [
     ['even', 1, 0.21, 0.2],

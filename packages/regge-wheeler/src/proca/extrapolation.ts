@@ -12,11 +12,29 @@
  * specific here is the error norm: each solution's u and P parts are scaled by
  * their Euclidean sizes together (|u| + |P|/ω and |P| + ω|u|), since a
  * component, or a whole vector, crossing zero must not shrink the step.
+ *
+ * The channel equations are written out inside the midpoint loop (no
+ * right-hand-side callback, no derivative buffer between substeps): the loop
+ * is most of the cost of a solve, and for the two-channel even sector the
+ * callback and its buffer were a third of it.
  */
 import { ConvergenceError } from '@penumbra/core';
 
-/** Right-hand side dy/dr = f(r, y), written into its first argument. */
-export type ProcaRhs = (dydr: Float64Array, y: Float64Array, r: number) => void;
+/**
+ * The Proca channel equations in r (M = 1) for a state of solutions, each
+ * u (N complex) then P = du/dr* (N complex):
+ *   du/dr = P/f,  dP/dr = [μ² + L/r² − ω²/f + Q(1/r)/r²] u,  Q(y) = q0 + q1 y.
+ */
+export interface ProcaChannelEquations {
+  /** N = 1 or 2 */
+  channels: 1 | 2;
+  mu2: number;
+  w2: number;
+  L: number;
+  /** Q's coefficients, row-major N×N each */
+  q0: Float64Array;
+  q1: Float64Array;
+}
 
 /** Largest column of the extrapolation tableau (order 2·KMAX). */
 const KMAX = 8;
@@ -26,6 +44,9 @@ const NJ = Array.from({ length: KMAX + 1 }, (_, j) => 2 * j);
 const WORK = NJ.map((_, j) => 1 + NJ.slice(1, j + 1).reduce((s, n) => s + n, 0));
 const SAFE1 = 0.65;
 const SAFE2 = 0.94;
+/** Exponent 1/(2j − 1) of the step-size rule of column j, and its smallest factor 0.02^{1/(2j − 1)} (tabled: Math.pow was a tenth of a step's cost). */
+const EXPONENT = NJ.map((_, j) => 1 / (2 * j - 1));
+const FAC_MIN = EXPONENT.map((expo) => 0.02 ** expo);
 /** Smallest meaningful local tolerance: below it the tableau differences are rounding. */
 const TOL_FLOOR = 1e-16;
 
@@ -45,29 +66,43 @@ export class ProcaExtrapolation {
   private readonly table: Float64Array;
   private readonly yMid: Float64Array;
   private readonly yPrev: Float64Array;
-  private readonly yTmp: Float64Array;
   private readonly dy0: Float64Array;
   private readonly dy: Float64Array;
   private readonly scale: Float64Array;
   private readonly hNew = new Float64Array(KMAX + 1);
+  /** scaled error of each column of the current attempt */
+  private readonly errors = new Float64Array(KMAX + 1);
+
+  private readonly channels: 1 | 2;
+  private readonly mu2: number;
+  private readonly w2: number;
+  private readonly L: number;
+  private readonly q0: Float64Array;
+  private readonly q1: Float64Array;
+  /** components of one solution: u (first half) then P = du/dr* (second half) */
+  private readonly blockSize: number;
 
   /**
-   * @param y the state, advanced in place
-   * @param rhs the right-hand side
-   * @param blockSize components of one solution: u (first half) then P = du/dr* (second half)
+   * @param y the state (solutions of `equations`, 4N components each), advanced in place
    * @param rate the wave number that relates the sizes of u and P (ω)
    * @param method the caller's method, quoted when the integration fails
    */
   constructor(
     private readonly y: Float64Array,
-    private readonly rhs: ProcaRhs,
+    equations: ProcaChannelEquations,
     r0: number,
     h0: number,
     tol: number,
-    private readonly blockSize: number,
     private readonly rate: number,
     private readonly method: string,
   ) {
+    this.channels = equations.channels;
+    this.mu2 = equations.mu2;
+    this.w2 = equations.w2;
+    this.L = equations.L;
+    this.q0 = equations.q0;
+    this.q1 = equations.q1;
+    this.blockSize = 4 * equations.channels;
     const n = y.length;
     this.n = n;
     this.r = r0;
@@ -77,37 +112,131 @@ export class ProcaExtrapolation {
     this.table = new Float64Array((KMAX + 1) * n);
     this.yMid = new Float64Array(n);
     this.yPrev = new Float64Array(n);
-    this.yTmp = new Float64Array(n);
     this.dy0 = new Float64Array(n);
     this.dy = new Float64Array(n);
     this.scale = new Float64Array(n);
   }
 
+  /** dy/dr at r into out. */
   private evaluate(out: Float64Array, y: Float64Array, r: number): void {
     this.evaluations++;
-    this.rhs(out, y, r);
+    const { n, q0, q1, L, mu2, w2 } = this;
+    const invF = r / (r - 2);
+    const inv2 = 1 / (r * r);
+    const diag = mu2 + L * inv2 - w2 * invF;
+    if (this.channels === 1) {
+      const c = diag + (q0[0] + q1[0] / r) * inv2;
+      for (let o = 0; o < n; o += 4) {
+        out[o] = y[o + 2] * invF;
+        out[o + 1] = y[o + 3] * invF;
+        out[o + 2] = c * y[o];
+        out[o + 3] = c * y[o + 1];
+      }
+      return;
+    }
+    const yr = 1 / r;
+    const a00 = diag + (q0[0] + q1[0] * yr) * inv2;
+    const a01 = (q0[1] + q1[1] * yr) * inv2;
+    const a10 = (q0[2] + q1[2] * yr) * inv2;
+    const a11 = diag + (q0[3] + q1[3] * yr) * inv2;
+    for (let o = 0; o < n; o += 8) {
+      out[o] = y[o + 4] * invF;
+      out[o + 1] = y[o + 5] * invF;
+      out[o + 2] = y[o + 6] * invF;
+      out[o + 3] = y[o + 7] * invF;
+      out[o + 4] = a00 * y[o] + a01 * y[o + 2];
+      out[o + 5] = a00 * y[o + 1] + a01 * y[o + 3];
+      out[o + 6] = a10 * y[o] + a11 * y[o + 2];
+      out[o + 7] = a10 * y[o + 1] + a11 * y[o + 3];
+    }
   }
 
-  /** Modified midpoint rule over h with `steps` substeps, into row j of the table. */
+  /**
+   * Modified midpoint rule over h with `steps` substeps, into row j of the
+   * table; the interior substeps evaluate the equations in place,
+   * z_{m+1} = z_{m−1} + 2 hs F(r_m, z_m), component by component (one
+   * routine per channel count, so that each stays monomorphic).
+   */
   private midpoint(h: number, steps: number, j: number): void {
-    const { n, y, dy0, dy, yMid, yPrev, yTmp, table } = this;
+    const { n, y, dy0, dy, yMid, yPrev, table } = this;
     const hs = h / steps;
     for (let i = 0; i < n; i++) {
       yPrev[i] = y[i];
       yMid[i] = y[i] + hs * dy0[i];
     }
-    for (let m = 1; m < steps; m++) {
-      this.evaluate(dy, yMid, this.r + m * hs);
-      for (let i = 0; i < n; i++) {
-        const next = yPrev[i] + 2 * hs * dy[i];
-        yPrev[i] = yMid[i];
-        yMid[i] = next;
-      }
-    }
+    if (this.channels === 2) this.substepsTwo(hs, steps);
+    else this.substepsOne(hs, steps);
+    this.evaluations += steps - 1;
     this.evaluate(dy, yMid, this.r + h);
     const o = j * n;
-    for (let i = 0; i < n; i++) yTmp[i] = 0.5 * (yMid[i] + yPrev[i] + hs * dy[i]);
-    for (let i = 0; i < n; i++) table[o + i] = yTmp[i];
+    for (let i = 0; i < n; i++) table[o + i] = 0.5 * (yMid[i] + yPrev[i] + hs * dy[i]);
+  }
+
+  private substepsOne(hs: number, steps: number): void {
+    const { n, yMid, yPrev, q0, q1, L, mu2, w2 } = this;
+    const h2 = 2 * hs;
+    for (let m = 1; m < steps; m++) {
+      const r = this.r + m * hs;
+      const invF = r / (r - 2);
+      const inv2 = 1 / (r * r);
+      const c = mu2 + L * inv2 - w2 * invF + (q0[0] + q1[0] / r) * inv2;
+      for (let o = 0; o < n; o += 4) {
+        const u0 = yMid[o];
+        const u1 = yMid[o + 1];
+        const p0 = yMid[o + 2];
+        const p1 = yMid[o + 3];
+        yMid[o] = yPrev[o] + h2 * (p0 * invF);
+        yMid[o + 1] = yPrev[o + 1] + h2 * (p1 * invF);
+        yMid[o + 2] = yPrev[o + 2] + h2 * (c * u0);
+        yMid[o + 3] = yPrev[o + 3] + h2 * (c * u1);
+        yPrev[o] = u0;
+        yPrev[o + 1] = u1;
+        yPrev[o + 2] = p0;
+        yPrev[o + 3] = p1;
+      }
+    }
+  }
+
+  private substepsTwo(hs: number, steps: number): void {
+    const { n, yMid, yPrev, q0, q1, L, mu2, w2 } = this;
+    const h2 = 2 * hs;
+    for (let m = 1; m < steps; m++) {
+      const r = this.r + m * hs;
+      const invF = r / (r - 2);
+      const inv2 = 1 / (r * r);
+      const yr = 1 / r;
+      const diag = mu2 + L * inv2 - w2 * invF;
+      const a00 = diag + (q0[0] + q1[0] * yr) * inv2;
+      const a01 = (q0[1] + q1[1] * yr) * inv2;
+      const a10 = (q0[2] + q1[2] * yr) * inv2;
+      const a11 = diag + (q0[3] + q1[3] * yr) * inv2;
+      for (let o = 0; o < n; o += 8) {
+        const u0 = yMid[o];
+        const u1 = yMid[o + 1];
+        const u2 = yMid[o + 2];
+        const u3 = yMid[o + 3];
+        const p0 = yMid[o + 4];
+        const p1 = yMid[o + 5];
+        const p2 = yMid[o + 6];
+        const p3 = yMid[o + 7];
+        yMid[o] = yPrev[o] + h2 * (p0 * invF);
+        yMid[o + 1] = yPrev[o + 1] + h2 * (p1 * invF);
+        yMid[o + 2] = yPrev[o + 2] + h2 * (p2 * invF);
+        yMid[o + 3] = yPrev[o + 3] + h2 * (p3 * invF);
+        yMid[o + 4] = yPrev[o + 4] + h2 * (a00 * u0 + a01 * u2);
+        yMid[o + 5] = yPrev[o + 5] + h2 * (a00 * u1 + a01 * u3);
+        yMid[o + 6] = yPrev[o + 6] + h2 * (a10 * u0 + a11 * u2);
+        yMid[o + 7] = yPrev[o + 7] + h2 * (a10 * u1 + a11 * u3);
+        yPrev[o] = u0;
+        yPrev[o + 1] = u1;
+        yPrev[o + 2] = u2;
+        yPrev[o + 3] = u3;
+        yPrev[o + 4] = p0;
+        yPrev[o + 5] = p1;
+        yPrev[o + 6] = p2;
+        yPrev[o + 7] = p3;
+      }
+    }
   }
 
   /** Aitken–Neville: fold row j into rows j − 1 … 1 (row 1 then holds the highest order). */
@@ -185,10 +314,8 @@ export class ProcaExtrapolation {
         this.extrapolate(j);
         this.setScale();
         const e = Math.max(this.columnError(), 1e-300);
+        this.errors[j] = e;
         reached = j;
-        const expo = 1 / (2 * j - 1);
-        const facMin = 0.02 ** expo;
-        hNew[j] = h * Math.min(4 / facMin, Math.max(facMin, SAFE2 * (SAFE1 / e) ** expo));
         if (j >= k - 1 && e <= 1) {
           accepted = true;
           break;
@@ -196,6 +323,12 @@ export class ProcaExtrapolation {
         // convergence monitor: stop early when column k + 1 cannot succeed
         if (j === k - 1 && e > ((NJ[k + 1] * NJ[k]) / 4) ** 2) break;
         if (j === k && e > (NJ[k + 1] / 2) ** 2) break;
+      }
+      // the step sizes of the columns the order choice looks at (it never goes below reached − 2)
+      for (let j = Math.max(2, reached - 2); j <= reached; j++) {
+        const expo = EXPONENT[j];
+        const facMin = FAC_MIN[j];
+        hNew[j] = h * Math.min(4 / facMin, Math.max(facMin, SAFE2 * (SAFE1 / this.errors[j]) ** expo));
       }
       const cost = (j: number) => WORK[j] / hNew[j];
       if (accepted) {

@@ -30,6 +30,8 @@ export interface PhaseCarried {
   samples: Array<{ r: number; far: SeriesState[] }>;
   steps: number;
   rhsEvaluations: number;
+  /** where the carry stopped: rEnd, or with slack the end of its last whole interval, in [rEnd, slack · rEnd] */
+  endRadius: number;
 }
 
 /** Collocation nodes per interval: 13 (degree 12). */
@@ -59,7 +61,8 @@ function phaseAt(k: number, eta: number, r: number): number {
 
 /**
  * Carry the outgoing far solutions `start` (one per channel, at rStart) in to
- * rEnd < rStart, keeping them also at the radii of `sampleRadii` in (rEnd, rStart).
+ * rEnd < rStart, keeping them also at the radii of `sampleRadii` in (rEnd, rStart);
+ * with slack > 1 the carry may stop short of rEnd, at most at slack · rEnd.
  */
 export function carryFarSolutions(
   model: SectorModel,
@@ -68,6 +71,7 @@ export function carryFarSolutions(
   rEnd: number,
   stepTolerance: number,
   sampleRadii: readonly number[] = [],
+  slack = 1,
 ): PhaseCarried {
   const N = model.channels;
   const NN = N * N;
@@ -394,9 +398,16 @@ export function carryFarSolutions(
   let steps = 0;
   let x = -Math.log(rStart);
   let h = FIRST_INTERVAL;
+  // the carry may stop at the end of a whole interval anywhere in [rEnd, slack · rEnd] rather than add a short one
+  const xSoft = -Math.log(slack * rEnd);
+  let end = rEnd;
   for (const r of [...targets, rEnd]) {
     const xEnd = -Math.log(r);
     while (x < xEnd) {
+      if (r === rEnd && slack > 1 && x >= xSoft) {
+        end = Math.exp(-x);
+        break;
+      }
       const last = h >= xEnd - x;
       const step = last ? xEnd - x : h;
       const err = interval(x, step);
@@ -429,7 +440,7 @@ export function carryFarSolutions(
     }
     if (r !== rEnd) samples.push({ r, far: read(r, terms) });
   }
-  return { far: read(rEnd, terms), samples, steps, rhsEvaluations };
+  return { far: read(end, terms), samples, steps, rhsEvaluations, endRadius: end };
 }
 
 /** out[j − 1] = scale Σ_m S_jm f[m·stride + e] (re, im) for j = 1 … n: the integrals from node 0 to node j. */

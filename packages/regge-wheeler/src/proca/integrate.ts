@@ -94,6 +94,13 @@ const MAX_MATCH_MOVES = 60;
  * 0.78×; even l = 2 there: 0.87×; even l = 1, Mω = 0.3, v = 0.05, 48 rad: 0.84×).
  */
 const PHASE_GAIN = 40;
+/**
+ * The phase-form far zone may stop at the end of a whole interval up to this
+ * factor outside the phase radius instead of adding a short last interval
+ * (which costs as much as a whole one, about what the direct route takes
+ * for that stretch): measured in bench/proca-speed.bench.mjs near threshold.
+ */
+export const PHASE_SLACK = 1.6;
 
 /**
  * The phase ∫ √(k∞² + 2μ²/r) dr between r1 < r2: the far-zone wave number with
@@ -155,10 +162,19 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   const r0 = 2 + x0;
   let matchRadius = controls.matchRadius ?? defaultProcaMatchRadius(model);
   if (!(matchRadius > 2 * r0)) matchRadius = 2 * r0;
-  const farAt = (r: number): SeriesState[] => Array.from({ length: N }, (_, c) => outgoingFarSolution(model, c, r));
+  // the channels in turn, stopping at the first whose series does not converge (the radius moves out anyway)
+  const farAt = (r: number): SeriesState[] => {
+    const out: SeriesState[] = [];
+    for (let c = 0; c < N; c++) {
+      const s = outgoingFarSolution(model, c, r);
+      out.push(s);
+      if (!s.converged) break;
+    }
+    return out;
+  };
   let far = farAt(matchRadius);
   let moves = 0;
-  while (!far.every((s) => s.converged)) {
+  while (far.length < N || !far.every((s) => s.converged)) {
     if (++moves > MAX_MATCH_MOVES) {
       throw new ConvergenceError(
         'far-zone asymptotic series did not converge',
@@ -179,12 +195,14 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
       : inner < farStartRadius;
   if (wanted && controls.stepTolerance >= COLLOCATION_FLOOR) {
     try {
-      const carried = carryFarSolutions(model, far, farStartRadius, inner, controls.stepTolerance, controls.sampleRadii);
+      // on a grid of radii the carry ends where asked; for Γ alone it may end up to PHASE_SLACK further out
+      const slack = controls.sampleRadii ? 1 : PHASE_SLACK;
+      const carried = carryFarSolutions(model, far, farStartRadius, inner, controls.stepTolerance, controls.sampleRadii, slack);
       far = carried.far;
       farSamples = carried.samples;
       phaseSteps = carried.steps;
       phaseEvaluations = carried.rhsEvaluations;
-      matchRadius = inner;
+      matchRadius = carried.endRadius;
     } catch (e) {
       // the collocation could not meet its tolerance: the direct route from the series start
       if (!(e instanceof ConvergenceError)) throw e;
@@ -215,7 +233,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   let rhsEvaluations = phaseEvaluations;
   // du/dr = P/f,  dP/dr = [μ² + L/r² + Q(1/r)/r² − ω²/f] u.
   const L = model.L;
-  // Written out for one and for two channels (the even sector: two solutions of 8 components).
+  // Written out for one and for two channels (the even sector: two solutions of 8 components); the Cash–Karp route's.
   const deriv =
     N === 1
       ? (dydr: Float64Array, s: Float64Array, r: number): void => {
@@ -269,13 +287,25 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   };
   updateNorms();
   const cashKarp = controls.integrator === 'cash-karp';
+  // first step: a tenth of the distance to the horizon for the extrapolation loop (a hundredth cost it two
+  // extra steps, 2–4 % of its evaluations), a hundredth for Cash–Karp as before
   const stepper = !cashKarp
-    ? new ProcaExtrapolation(y, deriv, r0, 0.01 * x0, controls.stepTolerance, 4 * N, model.omega, methodOf(model))
+    ? new ProcaExtrapolation(
+        y,
+        { channels: N, mu2, w2, L, q0, q1 },
+        r0,
+        0.1 * x0,
+        controls.stepTolerance,
+        model.omega,
+        methodOf(model),
+      )
     : createIntegrator(y, deriv, r0, 0.01 * x0, {
         tol: controls.stepTolerance,
         verbose: false,
         errorScaleFunction: errorScale,
       });
+  // the extrapolation loop counts its own evaluations (its equations are written out inside it)
+  const evaluations = (): number => rhsEvaluations + (stepper instanceof ProcaExtrapolation ? stepper.evaluations : 0);
   let steps = phaseSteps;
   let logRescale = 0;
   const targets = (controls.sampleRadii ?? []).filter((r) => r >= r0 && r <= matchRadius);
@@ -311,7 +341,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
     if (!Number.isFinite(size)) {
       throw new ConvergenceError(
         'integration produced a non-finite state',
-        failure(model, `non-finite after ${steps} steps`, steps, rhsEvaluations),
+        failure(model, `non-finite after ${steps} steps`, steps, evaluations()),
       );
     }
     if (size > RESCALE) {
@@ -322,7 +352,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
     if (steps > MAX_STEPS) {
       throw new ConvergenceError(
         'integration step budget exhausted',
-        failure(model, `more than ${MAX_STEPS} steps`, steps, rhsEvaluations),
+        failure(model, `more than ${MAX_STEPS} steps`, steps, evaluations()),
       );
     }
   }
@@ -355,7 +385,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
     startRadius: r0,
     matchRadius,
     steps,
-    rhsEvaluations,
+    rhsEvaluations: evaluations(),
     seriesTerms: starts.reduce((a, s) => a + s.terms, 0) + far.reduce((a, s) => a + s.terms, 0),
     amplitudesIn: Ain,
     amplitudesOut: Aout,

@@ -16,6 +16,8 @@ export interface ChannelState {
 export interface SeriesState extends ChannelState {
   terms: number;
   converged: boolean;
+  /** horizon series: Σ|terms| over |sum| of h and t dh/dt (its log10 is about the digits lost to cancellation) */
+  cancellation?: number;
 }
 
 const HORIZON_MAX_TERMS = 1500;
@@ -28,46 +30,44 @@ export const FAR_TOLERANCE = 1e-16;
  * Scratch of the two series (two channels at most), shared by every call:
  * each call writes an entry before it reads it, and no call runs inside another.
  */
-const HORIZON_W = new Float64Array((HORIZON_MAX_TERMS + 1) * 4);
+const HORIZON_W = new Float64Array(4 * 4);
+const HORIZON_ALT = new Float64Array(4);
 const HORIZON_A = new Float64Array((HORIZON_MAX_TERMS + 2) * 4);
 const FAR_T = new Float64Array((FAR_MAX_TERMS + 2) * 4);
-
-/** Binomial coefficient of (1 + t)^{−k}: (−1)^j C(k + j − 1, j). */
-function inverseBinomial(k: number, j: number): number {
-  let c = 1;
-  for (let i = 1; i <= j; i++) c = (c * (k + i - 1)) / i;
-  return j % 2 === 0 ? c : -c;
-}
 
 /**
  * Ingoing horizon solution u = e^{−iωr*} h(t), t = (r − 2)/2, h(0) = e_start
  * (the unit vector of channel `start`). With W(t) = (2μ)²(1+t)² + L + Q(1/(2(1+t))):
  *   (n+1)(n+1 − 2iΩ) a_{n+1} = −n(n−1) a_n + 2iΩ[2n a_n + (n−1) a_{n−1}] + Σ_j W_j a_{n−j},
- * Ω = 2ω.
+ * Ω = 2ω. Q = q0 + q1 y makes W_j = P_j + (−1)^j q1/2 with P_j zero past j = 2,
+ * so Σ_j W_j a_{n−j} = Σ_{j≤2} P_j a_{n−j} + (q1/2) A_n with the alternating sum
+ * A_n = a_n − A_{n−1}: each term costs the same, not n times more (the start
+ * radius can move out where the series needs more terms).
  */
 export function horizonSolution(model: SectorModel, start: number, x: number): SeriesState {
   const N = model.channels;
   const NN = N * N;
   const Omega = 2 * model.omega;
   const t = x / 2;
-  // W_j at [j·NN …], computed in order as the recurrence first needs them; a_n at [n·2N …] as (re, im) pairs.
-  // Flat shared arrays instead of an array per term: the same operations in the same order, without the garbage.
+  if (model.qCoeffs.length > 2) throw new Error('Proca sector with Q of degree > 1');
+  // P_j (j = 0, 1, 2) at [j·NN …] and q1/2 at [3·NN …]
   const W = HORIZON_W;
-  let wCount = 0;
-  const wNeed = (j: number): void => {
-    while (wCount <= j) {
-      const jj = wCount;
-      const o = jj * NN;
-      W.fill(0, o, o + NN);
-      const mass = 4 * model.mu * model.mu * (jj === 0 ? 1 : jj === 1 ? 2 : jj === 2 ? 1 : 0);
-      for (let i = 0; i < N; i++) W[o + i * N + i] += mass + (jj === 0 ? model.L : 0);
-      model.qCoeffs.forEach((q, k) => {
-        const c = 0.5 ** k * (k === 0 ? (jj === 0 ? 1 : 0) : inverseBinomial(k, jj));
-        for (let i = 0; i < NN; i++) W[o + i] += q[i] * c;
-      });
-      wCount++;
-    }
-  };
+  W.fill(0, 0, 4 * NN);
+  const mass = 4 * model.mu * model.mu;
+  for (let i = 0; i < N; i++) {
+    W[i * N + i] = mass + model.L;
+    W[NN + i * N + i] = 2 * mass;
+    W[2 * NN + i * N + i] = mass;
+  }
+  const q0 = model.qCoeffs[0];
+  const q1 = model.qCoeffs[1];
+  for (let e = 0; e < NN; e++) {
+    W[e] += q0[e];
+    if (q1) W[3 * NN + e] = 0.5 * q1[e];
+  }
+  // A_n, the alternating sum of the coefficients up to a_n, (re, im) pairs per channel
+  const alt = HORIZON_ALT;
+  alt.fill(0, 0, 2 * N);
   const a = HORIZON_A;
   a.fill(0, 0, 2 * N);
   a[2 * start] = 1;
@@ -77,12 +77,14 @@ export function horizonSolution(model: SectorModel, start: number, x: number): S
   let tPow = 1;
   let smallRun = 0;
   let converged = false;
+  // Σ|terms| of h and of t dh/dt, against which the sums' sizes show the digits lost to cancellation
+  let absSum = 1;
   let n = 0;
   for (; n < HORIZON_MAX_TERMS; n++) {
     const denRe = (n + 1) * (n + 1);
     const denIm = -(n + 1) * 2 * Omega;
     const den2 = denRe * denRe + denIm * denIm;
-    wNeed(n);
+    for (let k = 0; k < 2 * N; k++) alt[k] = a[n * 2 * N + k] - alt[k];
     const next = (n + 1) * 2 * N;
     for (let i = 0; i < N; i++) {
       const an0 = a[n * 2 * N + 2 * i];
@@ -95,15 +97,19 @@ export function horizonSolution(model: SectorModel, start: number, x: number): S
         re -= 2 * Omega * (n - 1) * am1;
         im += 2 * Omega * (n - 1) * am0;
       }
-      for (let j = 0; j <= n; j++) {
+      for (let j = 0; j <= 2 && j <= n; j++) {
         const wo = j * NN + i * N;
         const so = (n - j) * 2 * N;
         for (let k = 0; k < N; k++) {
           const wv = W[wo + k];
-          if (wv === 0) continue;
           re += wv * a[so + 2 * k];
           im += wv * a[so + 2 * k + 1];
         }
+      }
+      for (let k = 0; k < N; k++) {
+        const wv = W[3 * NN + i * N + k];
+        re += wv * alt[2 * k];
+        im += wv * alt[2 * k + 1];
       }
       a[next + 2 * i] = (re * denRe + im * denIm) / den2;
       a[next + 2 * i + 1] = (im * denRe - re * denIm) / den2;
@@ -120,8 +126,10 @@ export function horizonSolution(model: SectorModel, start: number, x: number): S
       h[2 * i + 1] += c1 * tPow;
       hd[2 * i] += c0 * dWeight;
       hd[2 * i + 1] += c1 * dWeight;
-      termSize += Math.hypot(c0, c1) * tPow * (1 + order);
-      scale += Math.hypot(h[2 * i], h[2 * i + 1]) + t * Math.hypot(hd[2 * i], hd[2 * i + 1]);
+      // Math.sqrt, not Math.hypot: a convergence test, and hypot was most of the cost of a term
+      termSize += Math.sqrt(c0 * c0 + c1 * c1) * tPow * (1 + order);
+      absSum += Math.sqrt(c0 * c0 + c1 * c1) * tPow * (1 + order);
+      scale += Math.sqrt(h[2 * i] ** 2 + h[2 * i + 1] ** 2) + t * Math.sqrt(hd[2 * i] ** 2 + hd[2 * i + 1] ** 2);
     }
     if (termSize < TERM_FLOOR * scale) {
       if (++smallRun >= 3) {
@@ -146,7 +154,10 @@ export function horizonSolution(model: SectorModel, start: number, x: number): S
     u.push(rot([hr, hi]));
     p.push(rot([model.omega * hi + 0.5 * f * hd[2 * i], -model.omega * hr + 0.5 * f * hd[2 * i + 1]]));
   }
-  return { u, p, terms: n + 1, converged };
+  let size = 0;
+  for (let i = 0; i < N; i++)
+    size += Math.sqrt(h[2 * i] ** 2 + h[2 * i + 1] ** 2) + t * Math.sqrt(hd[2 * i] ** 2 + hd[2 * i + 1] ** 2);
+  return { u, p, terms: n + 1, converged, cancellation: absSum / size };
 }
 
 /** k∞ = √(ω² − μ²) and the long-range phase coefficient η = μ²/k∞ (M = 1). */
@@ -255,8 +266,9 @@ export function outgoingFarSolution(model: SectorModel, start: number, r: number
       w[2 * i + 1] += t1;
       Dw[2 * i] += n * t0;
       Dw[2 * i + 1] += n * t1;
-      size += Math.hypot(t0, t1) * (n + 1);
-      scale += Math.hypot(w[2 * i], w[2 * i + 1]);
+      // Math.sqrt, not Math.hypot: a convergence test, and hypot was most of the cost of a term
+      size += Math.sqrt(t0 * t0 + t1 * t1) * (n + 1);
+      scale += Math.sqrt(w[2 * i] ** 2 + w[2 * i + 1] ** 2);
     }
     if (size < FAR_TOLERANCE * scale) {
       if (++smallRun >= 3) {
