@@ -37,10 +37,11 @@ export interface ModeContext {
   /** massive vector on Kerr: Schwarzschild Proca ratios by `${l}:${ω}` (massiveModes.ts) */
   procaRatios: Map<string, GammaEstimate>;
   /**
-   * Γ already solved in this computation, by `${l}:${m}:${ω}`: reused while its own relative error is
-   * within the current `greybodyTol` (a retry or a tighter re-solve keeps what is accurate enough).
+   * Γ already solved in this computation, by mode `${l}:${m}` and then ω (a number key: no string is
+   * built per call): reused while its own relative error is within the current `greybodyTol` (a retry
+   * or a tighter re-solve keeps what is accurate enough).
    */
-  gammaCache: Map<string, GammaEstimate>;
+  gammaCache: Map<string, Map<number, GammaEstimate>>;
 }
 
 /** The context of a field of spin `spin` (and mass Mμ, default 0) on the unit-mass hole with a/M = aStar ≥ 0. */
@@ -74,12 +75,17 @@ export interface ModeRate {
 
 function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): GammaEstimate {
   if (omega < MIN_MOMEGA && ctx.fieldMass === 0) return solveGamma(ctx, l, m, omega);
-  const key = `${l}:${m}:${omega}`;
-  const cached = ctx.gammaCache.get(key);
+  const key = `${l}:${m}`;
+  let solved = ctx.gammaCache.get(key);
+  if (!solved) {
+    solved = new Map();
+    ctx.gammaCache.set(key, solved);
+  }
+  const cached = solved.get(omega);
   if (cached && cached.relError <= ctx.greybodyTol) return cached;
   const g = solveGamma(ctx, l, m, omega);
-  if (ctx.gammaCache.size > 200_000) ctx.gammaCache.clear();
-  ctx.gammaCache.set(key, g);
+  if (solved.size > 200_000) solved.clear();
+  solved.set(omega, g);
   return g;
 }
 

@@ -113,15 +113,19 @@ export const TOTALS_OPTIONS = {
 const METHOD =
   'per-mode adaptive nested-Fejér integrals of Γ·occupation/2π (Γ to each mode’s share of the tolerance), summed over whole l-shells with geometric tail bounds';
 
+/** The predicted size of a mode: its number and energy rates. */
+type ModeSize = Pick<ModeTotal, 'number' | 'energy'>;
+
 /**
- * How to integrate a mode predicted to be about as large as `like` (a neighbour summed before it):
+ * How to integrate a mode predicted to be about as large as `like` (a neighbour summed before it, or
+ * the geometric continuation of the two before it):
  * its relative accuracy is its quadrature target over that size; its greybody solves get half of it,
  * within [baseTol, 1e-2] (baseTol: a fifth of the totals' tolerance); its initial panels follow from it.
  * A mode larger than predicted is caught after its integral (integrateMode), which then integrates it
  * again with tighter solves.
  */
 function modePlan(
-  like: ModeTotal | undefined,
+  like: ModeSize | undefined,
   leading: boolean,
   tolN: number,
   tolE: number,
@@ -148,9 +152,19 @@ function shellTotals(
   baseTol: number,
   onMode?: (m: ModeTotal) => void,
 ): number[] {
-  // The mode a new one is predicted from: the previous m of this shell, or the previous shell's leading mode.
-  const predictor = (a: TotalsAccumulator, i: number): ModeTotal | undefined =>
-    i > 0 ? a.modes[a.modes.length - 1] : state.shellLeads[state.shellLeads.length - 1];
+  // The size a new mode is predicted to have: the previous shell's leading mode for m = l; the previous
+  // m of this shell for m = l − 1; from m = l − 2 on, the previous m times its fall from the one before
+  // (counter-rotating modes fall geometrically in m, ever faster), so that negligible modes are planned
+  // as such. A prediction only sets the initial panels and the greybody accuracy: each mode is still
+  // integrated to its own targets, and a Γ error larger than its share is caught (integrateMode).
+  const predictor = (a: TotalsAccumulator, i: number): ModeSize | undefined => {
+    if (i === 0) return state.shellLeads[state.shellLeads.length - 1];
+    const last = a.modes[a.modes.length - 1];
+    if (i === 1) return last;
+    const prev = a.modes[a.modes.length - 2];
+    const fall = (x: number, y: number) => (x > 0 && y > x ? x / y : 1);
+    return { number: last.number * fall(last.number, prev.number), energy: last.energy * fall(last.energy, prev.energy) };
+  };
   const { ms, weight } = shellMs(ctx, l);
   let sN = 0;
   let sE = 0;
