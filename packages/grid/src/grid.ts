@@ -232,28 +232,32 @@ function checkL(problems: string[], raw: unknown, fields: readonly GridField[], 
  */
 function checkFields(problems: string[], raw: Record<string, unknown>): GridField[] {
   const given = ['fieldSpins', 'fields', 'species'].filter((k) => k in raw);
-  if (given.length !== 1) {
-    problems.push(
-      given.length === 0
-        ? 'missing the fields: give fieldSpins (e.g. [0, 1]), fields (e.g. [0, {"spin": 0, "mass": 0.2}]) or species (with holeMass)'
-        : `give one of ${given.join(', ')}, not ${given.length === 2 ? 'both' : 'all three'}`,
-    );
-  }
+  // None given: the fieldSpins reader below reports the missing list, as before fields and species existed.
+  if (given.length > 1) problems.push(`give one of ${given.join(', ')}, not ${given.length === 2 ? 'both' : 'all three'}`);
   if ('holeMass' in raw && !('species' in raw))
     problems.push('holeMass: applies to species only (give the mass of a field as Mμ in fields)');
+  // Every key given is read, so that its problems are listed too; the first of species, fields, fieldSpins is the grid's.
+  let read: GridField[] | undefined;
   if ('species' in raw) {
     const holeMass = 'holeMass' in raw ? readHoleMass(problems, raw.holeMass) : undefined;
     if (!('holeMass' in raw))
       problems.push(`holeMass: missing; species need the hole's mass to set Mμ (e.g. {"value": 1e15, "unit": "g"})`);
-    return readSpecies(problems, raw.species, holeMass);
+    read = readSpecies(problems, raw.species, holeMass);
   }
-  if ('fields' in raw) return checkFieldList(problems, raw.fields);
-  return checkList(problems, 'fieldSpins', raw.fieldSpins, (item, at) => {
-    const read = attempt(() => parseFieldSpin(item));
-    if (read.status === 'success') return read.solution;
-    problems.push(`${at}: expected a field spin 0, 1/2 (or 0.5), 1 or 2, got ${show(item)}`);
-    return undefined;
-  }).map((spin) => ({ spin, mass: 0 }));
+  if ('fields' in raw) {
+    const fields = checkFieldList(problems, raw.fields);
+    read ??= fields;
+  }
+  if ('fieldSpins' in raw || !read) {
+    const spins = checkList(problems, 'fieldSpins', raw.fieldSpins, (item, at) => {
+      const spin = attempt(() => parseFieldSpin(item));
+      if (spin.status === 'success') return spin.solution;
+      problems.push(`${at}: expected a field spin 0, 1/2 (or 0.5), 1 or 2, got ${show(item)}`);
+      return undefined;
+    });
+    read ??= spins.map((spin) => ({ spin, mass: 0 }));
+  }
+  return read;
 }
 
 function checkFieldList(problems: string[], raw: unknown): GridField[] {
