@@ -180,6 +180,30 @@ describe('massive fields through the tables', () => {
     expect(vector.map((r) => `${r.l},${r.polarization}`).slice(0, 4)).toEqual(['0,monopole', '1,odd', '1,even-1', '1,even-2']);
     expect(vector.every((r) => r.status === 'invalid-input' && /^invalid hole\.a = 0\.5/.test(String(r.message)))).toBe(true);
   });
+
+  test('with l auto, the mode table of a massive Dirac field at a = 0 lists both κ signs for every m, and π/(ω² − μ²) times half their Γ sum is σ to 1e-12 relative (σ averages the two signs)', () => {
+    const [omega, mu] = [0.5, 0.2];
+    const r = computeTask({
+      index: 0,
+      s: 0.5,
+      fieldMass: mu,
+      a: 0,
+      omega,
+      l: 'auto',
+      tolerance: 1e-4,
+      quantities: ['gamma', 'crossSection'],
+    });
+    const modes = r.rows.modes!;
+    expect(modes.slice(0, 4).map((row) => `${row.l},${row.m},${row.kappaSign}`)).toEqual([
+      '0.5,-0.5,1',
+      '0.5,-0.5,-1',
+      '0.5,0.5,1',
+      '0.5,0.5,-1',
+    ]);
+    const sum = modes.reduce((acc, row) => acc + (row.gamma as number) / 2, 0);
+    const sigma = r.rows.crossSection![0].sigma as number;
+    expect(Math.abs(((Math.PI / (omega ** 2 - mu ** 2)) * sum) / sigma - 1)).toBeLessThan(1e-12);
+  });
 });
 
 describe('species grids', () => {
