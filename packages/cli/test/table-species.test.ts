@@ -51,6 +51,19 @@ describe('penumbra table with species and massive fields', () => {
     expect(r.stderr).toMatch(/invalid-input spectra: dark spin=0 Mμ=0\.376\d* a=0\.5 ω=0\.2: .*no wave reaches infinity/);
   });
 
+  test('penumbra plot reads a massive-field mode table (kappaSign and polarization empty on the rows of other fields)', async (context) => {
+    if (buildProblem) context.skip(buildProblem);
+    const out = join(work, 'fields');
+    const grid = ['--fields', '0:0.2,1/2:0.2', '--a', '0', '--omega', '0.1,0.5', '--l', '0:1', '--tol', '1e-4'];
+    const r = await run('table', ...grid, '--workers', '1', '--out', out, '--quiet');
+    expect(r.code, r.stderr).toBe(0);
+    expect(readFileSync(join(out, 'modes.csv'), 'utf8').split('\n')[0]).toBe(
+      'spin [1],fieldMass [1/M],a [M],omega [1/M],l [1],m [1],kappaSign,status,gamma [1],relError [1],steps,rhsEvaluations,message',
+    );
+    const plot = await run('plot', out, '--out', join(work, 'fields.svg'));
+    expect(plot.code, plot.stderr).toBe(0);
+  });
+
   test('bad --fields, --species and --unit are all reported at once with exit code 2, nothing written', async (context) => {
     if (buildProblem) context.skip(buildProblem);
     const r = await run(

@@ -52,8 +52,9 @@ function stateColumns(grid: GridSpec): Column[] {
   const out: Column[] = [];
   if (grid.fields.some((f) => f.mass > 0 && f.spin === 0.5))
     out.push({
+      // A label (which of the two modes), not a quantity: no unit, empty on the rows of other fields.
       name: 'kappaSign',
-      unit: '1',
+      unit: '',
       description: 'massive Dirac fields: the sign of the separation constant κ (+1 or −1, two modes of one j, m)',
     });
   if (grid.fields.some((f) => f.mass > 0 && f.spin === 1))
