@@ -12,7 +12,8 @@ export function countsText(summary: TableSummary): string {
 export function failuresText(summary: TableSummary, limit = 20): string {
   const lines = summary.failures.slice(0, limit).map((f) => {
     const mode = f.l !== undefined ? ` l=${f.l} m=${f.m}` : '';
-    return `  ${f.status} ${f.table}: spin=${f.spin} a=${f.a} ω=${f.omega}${mode}: ${f.message}\n`;
+    const field = `${f.species !== undefined ? `${f.species} ` : ''}spin=${f.spin}${f.fieldMass !== undefined ? ` Mμ=${f.fieldMass}` : ''}`;
+    return `  ${f.status} ${f.table}: ${field} a=${f.a} ω=${f.omega}${mode}: ${f.message}\n`;
   });
   if (summary.failures.length > limit) lines.push(`  … and ${summary.failures.length - limit} more (see table.json "summary")\n`);
   return lines.join('');

@@ -1,5 +1,5 @@
 /**
- * One grid point (spin, a, ω): every requested quantity. A solve that does
+ * One grid point (field, a, ω): every requested quantity. A solve that does
  * not converge or refuses its input is a row with that status (core's
  * `attempt` statuses) and the solver's message, so that the other rows go
  * on; any other error is a bug and stops the run. Runs inside the pool
@@ -12,12 +12,17 @@ import { clearSpheroidalCache } from '@penumbra/spheroidal';
 import type { LRange, Quantity } from './grid.js';
 import type { Row, RowStatus, TableName } from './schema.js';
 import { explicitModes } from './tasks.js';
+import { firstL, modeStates, type ModeState } from './fields.js';
 
 /** What a worker receives: the point and the grid settings, nothing bulky. */
 export interface TaskMessage {
   index: number;
   /** field spin of the point (0, 1/2, 1, 2) */
   s: number;
+  /** field mass Mμ (units of 1/M); present only when the grid's rows carry it (absent: massless) */
+  fieldMass?: number;
+  /** the species of a species grid: its rows carry the name and dof, its spectra are weighted by dof */
+  species?: { name: string; dof: number };
   /** the hole's a/M */
   a: number;
   omega: number;
@@ -58,8 +63,23 @@ const modeNumbers = (reflection: boolean) => (r: GreybodySolution) => [
   ...(reflection ? [r.reflection, r.residual] : []),
 ];
 
-function modeRow(task: TaskMessage, l: number, m: number, outcome: Checked<GreybodySolution>, reflection: boolean): Row {
-  const point = { spin: task.s, a: task.a, omega: task.omega, l, m };
+/** The columns that name a grid point, in column order: species and dof, spin, field mass only where the grid has them. */
+function pointOf(task: TaskMessage): Row {
+  const point: Row = task.species ? { species: task.species.name, dof: task.species.dof } : {};
+  point.spin = task.s;
+  if (task.fieldMass !== undefined) point.fieldMass = task.fieldMass;
+  return Object.assign(point, { a: task.a, omega: task.omega });
+}
+
+function modeRow(
+  task: TaskMessage,
+  l: number,
+  m: number,
+  state: ModeState,
+  outcome: Checked<GreybodySolution>,
+  reflection: boolean,
+): Row {
+  const point = { ...pointOf(task), l, m, ...state };
   if (outcome.status !== 'success') {
     const row: Row = { ...point, status: outcome.status, gamma: null, relError: null };
     if (reflection) Object.assign(row, { reflection: null, residual: null });
@@ -71,15 +91,56 @@ function modeRow(task: TaskMessage, l: number, m: number, outcome: Checked<Greyb
   return Object.assign(row, { steps: r.diagnostics.steps, rhsEvaluations: r.diagnostics.rhsEvaluations, message: null });
 }
 
-function solveMode(task: TaskMessage, l: number, m: number, reflection: boolean): Row {
-  const problem = { hole: { a: task.a }, mode: { field: { spin: task.s as FieldSpin }, l, m }, omega: task.omega };
+/** The field of a task as the solvers take it: the mass key only for a massive field (massless solves unchanged). */
+function fieldOf(task: TaskMessage): { spin: FieldSpin; mass?: number } {
+  const mass = task.fieldMass ?? 0;
+  return mass > 0 ? { spin: task.s as FieldSpin, mass } : { spin: task.s as FieldSpin };
+}
+
+function solveMode(task: TaskMessage, l: number, m: number, state: ModeState, reflection: boolean): Row {
+  const { polarization, kappaSign } = state;
+  const problem = {
+    hole: { a: task.a },
+    mode: { field: fieldOf(task), l, m, ...(kappaSign ? { kappaSign } : {}) },
+    omega: task.omega,
+  };
+  const options = { tol: task.tolerance, reflection, ...(polarization ? { polarization } : {}) };
   return modeRow(
     task,
     l,
     m,
-    checked(tryGreybody(problem, { tol: task.tolerance, reflection }), modeNumbers(reflection), 'greybody result'),
+    state,
+    checked(tryGreybody(problem, options), modeNumbers(reflection), 'greybody result'),
     reflection,
   );
+}
+
+/** The spin state of a solved mode: its κ sign or polarisation, as the mode table lists it. */
+function stateOf(r: GreybodySolution): ModeState {
+  if (r.mode.kappaSign !== undefined) return { kappaSign: r.mode.kappaSign };
+  if (r.polarization !== undefined) return { polarization: r.polarization };
+  return {};
+}
+
+/**
+ * ω ≤ μ: no wave of a massive field reaches infinity (the modes are bound), so
+ * the point has no greybody factor, cross-section or emission. A failure
+ * rather than zeros, so that a table never reads as if it had been computed.
+ */
+function belowThreshold(task: TaskMessage): Failure | undefined {
+  const mu = task.fieldMass ?? 0;
+  if (!(mu > 0 && task.omega <= mu)) return undefined;
+  return {
+    status: 'invalid-input',
+    message: `Mω = ${task.omega} ≤ Mμ = ${mu}: below the field's mass threshold no wave reaches infinity (the modes are bound states), so no greybody factor, cross-section or emission exists`,
+  };
+}
+
+/** Failed rows of the modes of the first l-shell, for a point whose automatic l-sum failed before solving any mode. */
+function firstShellRows(task: TaskMessage, failure: Failure, reflection: boolean): Row[] {
+  const field = { spin: task.s as FieldSpin, mass: task.fieldMass ?? 0 };
+  const l = firstL(field);
+  return shellMs(l).flatMap((m) => modeStates(field, l).map((state) => modeRow(task, l, m, state, failure, reflection)));
 }
 
 /** m values of shell l, from −l to l. */
@@ -105,10 +166,14 @@ export function computeTask(task: TaskMessage): TaskResult {
   const perMode = q.includes('gamma') || q.includes('reflection');
   const reflection = q.includes('reflection');
   const rows: TaskResult['rows'] = {};
-  const point = { spin: task.s, a: task.a, omega: task.omega };
+  const point = pointOf(task);
+  const below = belowThreshold(task);
+  if (below) return { index: task.index, rows: belowThresholdRows(task, below) };
 
   if (perMode && task.l !== 'auto') {
-    rows.modes = explicitModes(task.s, task.l).map(({ l, m }) => solveMode(task, l, m, reflection));
+    rows.modes = explicitModes(task.s, task.l, task.fieldMass).map(({ l, m, ...state }) =>
+      solveMode(task, l, m, state, reflection),
+    );
   }
 
   if (q.includes('crossSection') || (perMode && task.l === 'auto')) {
@@ -116,7 +181,7 @@ export function computeTask(task: TaskMessage): TaskResult {
     const solved: GreybodySolution[] = [];
     const outcome = attempt(() =>
       absorptionCrossSection(
-        { hole: { a: task.a }, field: { spin: task.s as FieldSpin }, omega: task.omega },
+        { hole: { a: task.a }, field: fieldOf(task), omega: task.omega },
         {
           tol: task.tolerance,
           onMode: (r) => void solved.push(r),
@@ -149,19 +214,27 @@ export function computeTask(task: TaskMessage): TaskResult {
     if (q.includes('crossSection')) rows.crossSection = [crossRow];
     if (perMode && task.l === 'auto') {
       const modeRows: Row[] = [];
-      for (const r of solved) {
-        // At a = 0 the sum solves one m per shell: Γ does not depend on m there (spherical symmetry).
-        const { l, m: mode } = r.mode;
-        const ms = task.a === 0 ? shellMs(l) : [mode];
+      // At a = 0 the sum solves one m per shell: Γ does not depend on m there (spherical symmetry).
+      // A shell's solves come state by state for each m; the table lists them m by m, each m's states in turn.
+      const byShell = new Map<number, GreybodySolution[]>();
+      for (const r of solved) byShell.set(r.mode.l, [...(byShell.get(r.mode.l) ?? []), r]);
+      for (const [l, shell] of byShell) {
+        const ms = task.a === 0 ? shellMs(l) : [...new Set(shell.map((r) => r.mode.m))];
         for (const m of ms) {
-          if (reflection) modeRows.push(solveMode(task, l, m, true));
-          else modeRows.push(modeRow(task, l, m, checked(succeeded(r), modeNumbers(false), 'greybody result'), false));
+          for (const r of task.a === 0 ? shell : shell.filter((x) => x.mode.m === m)) {
+            const state = stateOf(r);
+            if (reflection) modeRows.push(solveMode(task, l, m, state, true));
+            else modeRows.push(modeRow(task, l, m, state, checked(succeeded(r), modeNumbers(false), 'greybody result'), false));
+          }
         }
       }
       const failedMode = failedModeOf(outcome);
       if (failedMode && cs.status !== 'success') {
         const ms = task.a === 0 ? shellMs(failedMode.l) : [failedMode.m];
-        for (const m of ms) modeRows.push(modeRow(task, failedMode.l, m, cs, reflection));
+        for (const m of ms) modeRows.push(modeRow(task, failedMode.l, m, {}, cs, reflection));
+      } else if (cs.status !== 'success' && solved.length === 0) {
+        // Refused before any mode (e.g. a massive vector on a spinning hole): the first shell's modes carry the reason.
+        modeRows.push(...firstShellRows(task, cs, reflection));
       }
       rows.modes = modeRows;
     }
@@ -170,7 +243,7 @@ export function computeTask(task: TaskMessage): TaskResult {
   if (q.includes('spectra')) {
     const outcome = attempt(() => {
       const spectrum = emissionSpectrum(
-        { hole: { a: task.a }, field: { spin: task.s as FieldSpin }, grid: [task.omega] },
+        { hole: { a: task.a }, field: fieldOf(task), grid: [task.omega] },
         { tol: task.tolerance },
       );
       return spectrum.points[0];
@@ -192,16 +265,19 @@ export function computeTask(task: TaskMessage): TaskResult {
         },
       ];
     } else {
+      // A species grid gives the species' rates: per degree of freedom times its dof.
+      const dof = task.species?.dof ?? 1;
+      const weighted = (x: number) => (task.species ? dof * x : x);
       const p = checkedPoint.solution;
       rows.spectra = [
         {
           ...point,
           status: 'success',
-          number: p.number,
-          energy: p.energy,
-          torque: p.torque,
+          number: weighted(p.number),
+          energy: weighted(p.energy),
+          torque: weighted(p.torque),
           relError: p.relError,
-          droppedBound: p.droppedBound,
+          droppedBound: weighted(p.droppedBound),
           lMax: p.lMax,
           modes: p.modes,
           message: null,
@@ -210,4 +286,51 @@ export function computeTask(task: TaskMessage): TaskResult {
     }
   }
   return { index: task.index, rows };
+}
+
+/** The rows of a point below its field's mass threshold: every table's rows failed with the reason. */
+function belowThresholdRows(task: TaskMessage, failure: Failure): TaskResult['rows'] {
+  const q = task.quantities;
+  const reflection = q.includes('reflection');
+  const rows: TaskResult['rows'] = {};
+  const point = pointOf(task);
+  if (q.includes('gamma') || reflection) {
+    rows.modes =
+      task.l === 'auto'
+        ? firstShellRows(task, failure, reflection)
+        : explicitModes(task.s, task.l, task.fieldMass).map(({ l, m, ...state }) =>
+            modeRow(task, l, m, state, failure, reflection),
+          );
+  }
+  if (q.includes('crossSection')) {
+    rows.crossSection = [
+      {
+        ...point,
+        status: failure.status,
+        sigma: null,
+        relError: null,
+        droppedBound: null,
+        lMax: null,
+        modes: 0,
+        message: failure.message,
+      },
+    ];
+  }
+  if (q.includes('spectra')) {
+    rows.spectra = [
+      {
+        ...point,
+        status: failure.status,
+        number: null,
+        energy: null,
+        torque: null,
+        relError: null,
+        droppedBound: null,
+        lMax: null,
+        modes: null,
+        message: failure.message,
+      },
+    ];
+  }
+  return rows;
 }

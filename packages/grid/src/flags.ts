@@ -6,6 +6,13 @@
 /** The grid options of `penumbra table`, as given on the command line. */
 export interface GridFlags {
   spins?: string;
+  /** fields SPIN[:MASS], e.g. 0,1/2:0.2 (MASS = Mμ) */
+  fields?: string;
+  /** species: names or NAME:SPIN:DOF[:MASS_GEV] */
+  species?: string;
+  /** the hole's mass of a species grid, with `unit` */
+  mass?: string;
+  unit?: string;
   a?: string;
   omega?: string;
   spacing?: string;
@@ -21,6 +28,23 @@ const number = (text: string): number | string => {
   return Number.isFinite(v) ? v : text;
 };
 const list = (text: string) => text.split(',').map((item) => item.trim());
+const spinText = (s: string): number | string => (/^1\s*\/\s*2$/.test(s) ? s : number(s));
+
+/** SPIN or SPIN:MASS (MASS = Mμ). */
+function fieldEntry(text: string): unknown {
+  const [spin, mass, ...rest] = text.split(':');
+  if (rest.length > 0) return text;
+  return mass === undefined ? spinText(spin.trim()) : { spin: spinText(spin.trim()), mass: number(mass) };
+}
+
+/** A registry name, or a user species NAME:SPIN:DOF[:MASS_GEV] (the syntax of `emission --content`). */
+function speciesEntry(text: string): unknown {
+  const parts = text.split(':');
+  if (parts.length === 1) return text;
+  if (parts.length < 3 || parts.length > 4) return text;
+  const [name, spin, dof, massGeV] = parts;
+  return { name, spin: spinText(spin.trim()), dof: number(dof), ...(massGeV === undefined ? {} : { massGeV: number(massGeV) }) };
+}
 
 /** True if any grid flag was given. */
 export function hasGridFlags(flags: GridFlags): boolean {
@@ -28,12 +52,16 @@ export function hasGridFlags(flags: GridFlags): boolean {
 }
 
 /**
- * --spins 0,1/2,1  --a 0,0.9  --omega FROM:TO:COUNT (with --spacing linear|log) or a list W1,W2,…
+ * --spins 0,1/2,1 (or --fields 0,1/2:0.2 with masses Mμ, or --species electron,dark:0:1:0.01
+ * with --mass M --unit g|kg|msun)  --a 0,0.9  --omega FROM:TO:COUNT (with --spacing linear|log) or a list W1,W2,…
  * --l MAX, MIN:MAX or auto  --tol 1e-6  --quantities gamma,crossSection  --chunk-size 16
  */
 export function gridFromFlags(flags: GridFlags): Record<string, unknown> {
   const raw: Record<string, unknown> = {};
-  if (flags.spins !== undefined) raw.fieldSpins = list(flags.spins).map((s) => (/^1\s*\/\s*2$/.test(s) ? s : number(s)));
+  if (flags.spins !== undefined) raw.fieldSpins = list(flags.spins).map(spinText);
+  if (flags.fields !== undefined) raw.fields = list(flags.fields).map(fieldEntry);
+  if (flags.species !== undefined) raw.species = list(flags.species).map(speciesEntry);
+  if (flags.mass !== undefined || flags.unit !== undefined) raw.holeMass = { value: number(flags.mass ?? ''), unit: flags.unit };
   if (flags.a !== undefined) raw.holeA = list(flags.a).map(number);
   if (flags.omega !== undefined) {
     const parts = flags.omega.split(':');

@@ -9,6 +9,7 @@ import { sha256 } from '@noble/hashes/sha2.js';
 import { bytesToHex, utf8ToBytes } from '@noble/hashes/utils.js';
 import { attempt, MAX_SOLVER_A_RATIO, parseFieldSpin, type FieldSpin, type FrequencyGrid } from '@penumbra/core';
 import { MOMEGA_RANGE } from '@penumbra/flux';
+import { fieldLs, readFieldEntry, readHoleMass, readSpecies, type GridField, type HoleMass } from './fields.js';
 
 const MIN_MOMEGA = MOMEGA_RANGE.min;
 const MAX_MOMEGA = MOMEGA_RANGE.max;
@@ -23,8 +24,12 @@ export type LRange = { min: number; max: number } | 'auto';
 
 /** A validated grid with every default filled in; its canonical JSON is the grid's identity. */
 export interface GridSpec {
-  /** field spins, each 0, 1/2, 1 or 2 */
+  /** the distinct field spins of `fields`, in order, each 0, 1/2, 1 or 2 */
   fieldSpins: FieldSpin[];
+  /** the fields swept, in order: spin, mass Mμ (units of 1/M) and, in a species grid, the species */
+  fields: GridField[];
+  /** the hole's physical mass (species grids only): it turns each species' mass in GeV into Mμ */
+  holeMass?: HoleMass;
   /** the hole's spin parameter a/M of each hole (M = 1) */
   holeA: number[];
   frequencies: FrequencyGrid;
@@ -47,7 +52,18 @@ const MAX_FREQUENCIES = 100_000;
 /** The emission sums accept 1e-10 … 1e-2, the single-mode solver 1e-12 … 1e-2. */
 const TOL_RANGE = { spectra: [1e-10, 1e-2], other: [1e-12, 1e-2] } as const;
 
-const KNOWN_KEYS = ['fieldSpins', 'holeA', 'frequencies', 'l', 'tolerance', 'quantities', 'chunkSize'];
+const KNOWN_KEYS = [
+  'fieldSpins',
+  'fields',
+  'species',
+  'holeMass',
+  'holeA',
+  'frequencies',
+  'l',
+  'tolerance',
+  'quantities',
+  'chunkSize',
+];
 /** The key `holeA` had before it was renamed; still read, never written. */
 const OLD_HOLE_KEY = 'holeSpins';
 
@@ -167,7 +183,7 @@ function checkFrequencies(problems: string[], raw: unknown): FrequencyGrid | und
   return { spacing: spacing as 'linear' | 'log', from: f, to: t, count: n };
 }
 
-function checkL(problems: string[], raw: unknown, spins: readonly number[], quantities: Quantity[]): LRange | undefined {
+function checkL(problems: string[], raw: unknown, fields: readonly GridField[], quantities: Quantity[]): LRange | undefined {
   const perMode = quantities.includes('gamma') || quantities.includes('reflection');
   if (raw === undefined || raw === 'auto') return 'auto';
   if (!isObject(raw)) {
@@ -198,13 +214,66 @@ function checkL(problems: string[], raw: unknown, spins: readonly number[], quan
       `l: an explicit l range applies to gamma and reflection only; crossSection and spectra truncate their l-sums themselves (use "auto" or leave l out)`,
     );
   }
-  for (const spin of spins) {
-    if (modeLs(spin, range).length === 0)
+  const refused = new Set<number>();
+  for (const field of fields) {
+    if (fieldLs(field, range).length === 0 && !refused.has(field.spin)) {
+      refused.add(field.spin);
       problems.push(
-        `l: the range ${range.min}…${range.max} holds no mode of field spin ${spin} (l ≥ ${spin}, l − spin an integer)`,
+        `l: the range ${range.min}…${range.max} holds no mode of field spin ${field.spin} (l ≥ ${field.spin}, l − spin an integer)`,
       );
+    }
   }
   return range;
+}
+
+/**
+ * The fields of a grid: exactly one of `fieldSpins` (massless spins),
+ * `fields` (spins or {spin, mass}) and `species` (with `holeMass`).
+ */
+function checkFields(problems: string[], raw: Record<string, unknown>): GridField[] {
+  const given = ['fieldSpins', 'fields', 'species'].filter((k) => k in raw);
+  // None given: the fieldSpins reader below reports the missing list, as before fields and species existed.
+  if (given.length > 1) problems.push(`give one of ${given.join(', ')}, not ${given.length === 2 ? 'both' : 'all three'}`);
+  if ('holeMass' in raw && !('species' in raw))
+    problems.push('holeMass: applies to species only (give the mass of a field as Mμ in fields)');
+  // Every key given is read, so that its problems are listed too; the first of species, fields, fieldSpins is the grid's.
+  let read: GridField[] | undefined;
+  if ('species' in raw) {
+    const holeMass = 'holeMass' in raw ? readHoleMass(problems, raw.holeMass) : undefined;
+    if (!('holeMass' in raw))
+      problems.push(`holeMass: missing; species need the hole's mass to set Mμ (e.g. {"value": 1e15, "unit": "g"})`);
+    read = readSpecies(problems, raw.species, holeMass);
+  }
+  if ('fields' in raw) {
+    const fields = checkFieldList(problems, raw.fields);
+    read ??= fields;
+  }
+  if ('fieldSpins' in raw || !read) {
+    const spins = checkList(problems, 'fieldSpins', raw.fieldSpins, (item, at) => {
+      const spin = attempt(() => parseFieldSpin(item));
+      if (spin.status === 'success') return spin.solution;
+      problems.push(`${at}: expected a field spin 0, 1/2 (or 0.5), 1 or 2, got ${show(item)}`);
+      return undefined;
+    });
+    read ??= spins.map((spin) => ({ spin, mass: 0 }));
+  }
+  return read;
+}
+
+function checkFieldList(problems: string[], raw: unknown): GridField[] {
+  if (!Array.isArray(raw) || raw.length === 0) {
+    problems.push(`fields: expected a non-empty list of field spins or {"spin", "mass"}, got ${show(raw)}`);
+    return [];
+  }
+  const out: GridField[] = [];
+  raw.forEach((item, i) => {
+    const field = readFieldEntry(problems, item, `fields[${i}]`);
+    if (!field) return;
+    if (out.some((f) => f.spin === field.spin && f.mass === field.mass))
+      problems.push(`fields[${i}]: ${show(item)} appears twice`);
+    else out.push(field);
+  });
+  return out;
 }
 
 /** The l values of a field spin inside an explicit range (l ≥ spin, l − spin an integer). */
@@ -225,12 +294,7 @@ export function validateGrid(raw: unknown): GridSpec {
     if (!KNOWN_KEYS.includes(k) && k !== OLD_HOLE_KEY) problems.push(`unknown key '${k}' (known: ${KNOWN_KEYS.join(', ')})`);
   }
   if ('holeA' in raw && OLD_HOLE_KEY in raw) problems.push(`give holeA only ('${OLD_HOLE_KEY}' is its old name)`);
-  const fieldSpins = checkList(problems, 'fieldSpins', raw.fieldSpins, (item, at) => {
-    const read = attempt(() => parseFieldSpin(item));
-    if (read.status === 'success') return read.solution;
-    problems.push(`${at}: expected a field spin 0, 1/2 (or 0.5), 1 or 2, got ${show(item)}`);
-    return undefined;
-  });
+  const fields = checkFields(problems, raw);
   const holeKey = 'holeA' in raw || !(OLD_HOLE_KEY in raw) ? 'holeA' : OLD_HOLE_KEY;
   const holeA = checkList(problems, holeKey, raw[holeKey], (item, at) => {
     if (!isFiniteNumber(item) || Math.abs(item) > MAX_SOLVER_A_RATIO) {
@@ -258,7 +322,7 @@ export function validateGrid(raw: unknown): GridSpec {
     quantities = QUANTITIES.filter((q) => quantities.includes(q));
   }
 
-  const l = checkL(problems, raw.l, fieldSpins, quantities);
+  const l = checkL(problems, raw.l, fields, quantities);
 
   const tolerance = raw.tolerance ?? DEFAULT_TOLERANCE;
   const [tolMin, tolMax] = quantities.includes('spectra') ? TOL_RANGE.spectra : TOL_RANGE.other;
@@ -271,13 +335,25 @@ export function validateGrid(raw: unknown): GridSpec {
   if (!isFiniteNumber(chunkSize) || !Number.isInteger(chunkSize) || chunkSize < 1 || chunkSize > 10_000) {
     problems.push(`chunkSize: expected an integer from 1 to 10000 (grid points per output chunk), got ${show(chunkSize)}`);
   }
-  if (frequencies && fieldSpins.length && holeA.length) {
-    const tasks = fieldSpins.length * holeA.length * frequencyCount(frequencies);
+  if (frequencies && fields.length && holeA.length) {
+    const tasks = fields.length * holeA.length * frequencyCount(frequencies);
     if (tasks > MAX_TASKS)
-      problems.push(`the grid has ${tasks} (spin, a, ω) points; split it into several grids of at most ${MAX_TASKS}`);
+      problems.push(`the grid has ${tasks} (field, a, ω) points; split it into several grids of at most ${MAX_TASKS}`);
   }
   if (problems.length > 0 || !frequencies || !l) throw new GridError(problems);
-  return { fieldSpins, holeA, frequencies, l, tolerance: tolerance as number, quantities, chunkSize: chunkSize as number };
+  const fieldSpins = fields.map((f) => f.spin).filter((spin, i, all) => all.indexOf(spin) === i);
+  const holeMass = fields[0].species ? (raw.holeMass as HoleMass) : undefined;
+  return {
+    fieldSpins,
+    fields,
+    ...(holeMass ? { holeMass: { value: holeMass.value, unit: holeMass.unit } } : {}),
+    holeA,
+    frequencies,
+    l,
+    tolerance: tolerance as number,
+    quantities,
+    chunkSize: chunkSize as number,
+  };
 }
 
 /** Stable text of a grid: fixed key order, so equal grids give equal bytes and hashes. */
@@ -293,7 +369,7 @@ export function canonicalGridJson(grid: GridSpec): string {
         };
   const l = grid.l === 'auto' ? 'auto' : { min: grid.l.min, max: grid.l.max };
   return JSON.stringify({
-    fieldSpins: grid.fieldSpins,
+    ...canonicalFields(grid),
     holeA: grid.holeA,
     frequencies,
     l,
@@ -301,6 +377,33 @@ export function canonicalGridJson(grid: GridSpec): string {
     quantities: grid.quantities,
     chunkSize: grid.chunkSize,
   });
+}
+
+/**
+ * The fields as the grid's identity holds them: `fieldSpins` while every
+ * field is massless (so a grid written before masses existed keeps its
+ * bytes and hash), `fields` with their masses otherwise, and for a species
+ * grid every species' registry values written out and the hole mass.
+ */
+function canonicalFields(grid: GridSpec): Record<string, unknown> {
+  if (grid.holeMass && grid.fields.every((f) => f.species)) {
+    return {
+      species: grid.fields.map(({ species: s }) => ({ name: s!.name, spin: s!.spin, dof: s!.dof, massGeV: s!.massGeV })),
+      holeMass: { value: grid.holeMass.value, unit: grid.holeMass.unit },
+    };
+  }
+  if (grid.fields.some((f) => f.mass > 0)) return { fields: grid.fields.map((f) => ({ spin: f.spin, mass: f.mass })) };
+  return { fieldSpins: grid.fields.map((f) => f.spin) };
+}
+
+/** True when the rows carry the field's mass (a massive field or a species grid). */
+export function hasFieldMasses(grid: GridSpec): boolean {
+  return grid.holeMass !== undefined || grid.fields.some((f) => f.mass > 0);
+}
+
+/** True when the rows carry the species name and its degrees of freedom. */
+export function hasSpecies(grid: GridSpec): boolean {
+  return grid.holeMass !== undefined;
 }
 
 /** The grid's identity in files and messages: the first 16 hex digits of the SHA-256 of its canonical JSON. */

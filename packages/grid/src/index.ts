@@ -12,6 +12,7 @@ export {
   canonicalGridJson,
   gridHash,
 } from './grid.js';
+export type { GridField, GridSpecies, HoleMass } from './fields.js';
 export {
   type GridTask,
   type GridChunk,

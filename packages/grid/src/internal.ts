@@ -2,7 +2,8 @@
  * Internals of @penumbra/grid that its tests, benchmarks and the CLI reach
  * for; not part of the public API (import from '@penumbra/grid/internal').
  */
-export { modeLs } from './grid.js';
+export { modeLs, hasFieldMasses, hasSpecies } from './grid.js';
+export { fieldLs, firstL, modeStates, speciesFieldMass, type ModeState } from './fields.js';
 export { explicitModes, estimatedSumModes } from './tasks.js';
 export { gridTable } from './schema.js';
 export { writeFileAtomic, removeStaleTemporaries } from './files.js';

@@ -8,7 +8,7 @@ import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { computeTask, type TaskMessage, type TaskResult } from './compute.js';
-import { GridError, gridHash, type GridSpec } from './grid.js';
+import { GridError, gridHash, hasFieldMasses, type GridSpec } from './grid.js';
 import { writeFileAtomic } from './files.js';
 import { initOutputDir, inspectChunk, outputDirProblems, readChunk, writeChunk } from './store.js';
 import { assembleTables, writeTables, type TableSummary } from './tables.js';
@@ -81,6 +81,9 @@ export function taskMessage(grid: GridSpec, task: GridTask): TaskMessage {
   return {
     index: task.index,
     s: task.s,
+    // Only grids whose rows carry the mass and the species hand them on: older grids keep their bytes.
+    ...(hasFieldMasses(grid) ? { fieldMass: task.mass } : {}),
+    ...(task.species ? { species: { name: task.species.name, dof: task.species.dof } } : {}),
     a: task.a,
     omega: task.omega,
     l: grid.l,

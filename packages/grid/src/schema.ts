@@ -6,7 +6,7 @@
  * every number of a failed row). Units are geometric, M = 1.
  */
 import type { Cell, Column, Status, Table } from '@penumbra/core';
-import type { GridSpec } from './grid.js';
+import { hasFieldMasses, hasSpecies, type GridSpec } from './grid.js';
 
 /** One row of a grid table, keyed by column name. */
 export type Row = Record<string, Cell>;
@@ -25,11 +25,46 @@ export const TABLE_FILES: Readonly<Record<TableName, string>> = {
 /** The status of a row: core's solve statuses. */
 export type RowStatus = Status;
 
-const pointColumns: Column[] = [
-  { name: 'spin', unit: '1', description: 'field spin' },
-  { name: 'a', unit: 'M', description: "the hole's spin parameter a = J/M" },
-  { name: 'omega', unit: '1/M', description: 'wave frequency ω' },
-];
+/** The columns of a grid point: the species and its dof, the field's mass only when the grid has them (older grids keep their bytes). */
+function pointColumns(grid: GridSpec): Column[] {
+  return [
+    ...(hasSpecies(grid)
+      ? [
+          { name: 'species', unit: '', description: 'the emitted species' },
+          {
+            name: 'dof',
+            unit: '1',
+            description: 'degrees of freedom of the species (helicities or spin states, particle and antiparticle)',
+          },
+        ]
+      : []),
+    { name: 'spin', unit: '1', description: 'field spin' },
+    ...(hasFieldMasses(grid)
+      ? [{ name: 'fieldMass', unit: '1/M', description: "the field's rest mass as Mμ (0: massless)" }]
+      : []),
+    { name: 'a', unit: 'M', description: "the hole's spin parameter a = J/M" },
+    { name: 'omega', unit: '1/M', description: 'wave frequency ω' },
+  ];
+}
+
+/** The spin-state columns of the mode table: the Dirac sign κ, the Proca polarisation, each only when the grid has such a field. */
+function stateColumns(grid: GridSpec): Column[] {
+  const out: Column[] = [];
+  if (grid.fields.some((f) => f.mass > 0 && f.spin === 0.5))
+    out.push({
+      // A label (which of the two modes), not a quantity: no unit, empty on the rows of other fields.
+      name: 'kappaSign',
+      unit: '',
+      description: 'massive Dirac fields: the sign of the separation constant κ (+1 or −1, two modes of one j, m)',
+    });
+  if (grid.fields.some((f) => f.mass > 0 && f.spin === 1))
+    out.push({
+      name: 'polarization',
+      unit: '',
+      description: "massive vector fields: the polarisation ('odd', 'even-1', 'even-2'; 'monopole' at l = 0)",
+    });
+  return out;
+}
 const status: Column = {
   name: 'status',
   unit: '',
@@ -53,9 +88,10 @@ export function tableColumns(grid: GridSpec, table: TableName): Column[] {
   if (table === 'modes') {
     const reflection = grid.quantities.includes('reflection');
     return [
-      ...pointColumns,
+      ...pointColumns(grid),
       { name: 'l', unit: '1', description: 'spheroidal index l' },
       { name: 'm', unit: '1', description: 'azimuthal number m' },
+      ...stateColumns(grid),
       status,
       {
         name: 'gamma',
@@ -76,7 +112,7 @@ export function tableColumns(grid: GridSpec, table: TableName): Column[] {
   }
   if (table === 'crossSection') {
     return [
-      ...pointColumns,
+      ...pointColumns(grid),
       status,
       { name: 'sigma', unit: 'M^2', description: 'absorption cross-section σ = (π/ω²) Σ Γ of one helicity' },
       relError('σ', ' (mode errors plus dropped l-shells)'),
@@ -86,12 +122,14 @@ export function tableColumns(grid: GridSpec, table: TableName): Column[] {
       message,
     ];
   }
+  // A species grid gives each species' rates (all its dof); a field grid, the rates per degree of freedom.
+  const per = hasSpecies(grid) ? 'of the species (per degree of freedom times dof)' : 'per degree of freedom';
   return [
-    ...pointColumns,
+    ...pointColumns(grid),
     status,
-    { name: 'number', unit: '1', description: 'd²N/(dt dω) per degree of freedom' },
-    { name: 'energy', unit: '1/M', description: 'd²E/(dt dω) per degree of freedom' },
-    { name: 'torque', unit: '1', description: 'd²J/(dt dω) per degree of freedom' },
+    { name: 'number', unit: '1', description: `d²N/(dt dω) ${per}` },
+    { name: 'energy', unit: '1/M', description: `d²E/(dt dω) ${per}` },
+    { name: 'torque', unit: '1', description: `d²J/(dt dω) ${per}` },
     relError("'number'"),
     { name: 'droppedBound', unit: '1', description: "bound on the dropped part of 'number'" },
     lMax,

@@ -6,6 +6,7 @@
 import { existsSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { toCsv, toJsonTable, type Column } from '@penumbra/core';
+import { MASSIVE_VECTOR_KERR_APPROXIMATION } from '@penumbra/emission';
 import { canonicalGridJson, gridHash, type GridSpec } from './grid.js';
 import type { TaskResult } from './compute.js';
 import { writeFileAtomic } from './files.js';
@@ -19,7 +20,11 @@ const TABLE_FORMAT = 'penumbra-grid-table/2';
 /** A row that holds no numbers, as listed in the summary. */
 export interface FailureNote {
   table: TableName;
+  /** species grids only */
+  species?: string;
   spin: number;
+  /** grids with massive fields or species only: Mμ */
+  fieldMass?: number;
   a: number;
   omega: number;
   l?: number;
@@ -48,6 +53,8 @@ export interface TableFile {
   gridHash: string;
   units: string;
   grid: unknown;
+  /** approximations behind some of the numbers (massive vector spectra on a spinning hole); absent when none */
+  approximations?: string[];
   summary: TableSummary;
   tables: Partial<Record<TableName, { file: string; columns: Column[]; rows: Row[] }>>;
 }
@@ -69,14 +76,16 @@ export function assembleTables(grid: GridSpec, results: readonly TaskResult[]): 
     summary.rows[name] = rows.length;
     summary.failed[name] = failed.length;
     for (const r of failed) {
-      const note: FailureNote = {
-        table: name,
-        spin: r.spin as number,
+      const note = { table: name } as FailureNote;
+      if ('species' in r) note.species = r.species as string;
+      note.spin = r.spin as number;
+      if ('fieldMass' in r) note.fieldMass = r.fieldMass as number;
+      Object.assign(note, {
         a: r.a as number,
         omega: r.omega as number,
         status: r.status as FailureNote['status'],
         message: String(r.message),
-      };
+      });
       if (name === 'modes') Object.assign(note, { l: r.l as number, m: r.m as number });
       summary.failures.push(note);
     }
@@ -93,12 +102,26 @@ export function assembleTables(grid: GridSpec, results: readonly TaskResult[]): 
     gridHash: gridHash(grid),
     units: 'geometric: G = c = ħ = 1, hole mass M = 1 (a in M, ω in 1/M, σ in M²)',
     grid: JSON.parse(canonicalGridJson(grid)),
+    ...approximationsOf(grid),
     summary,
   };
   const headText = JSON.stringify(head, null, 2);
   const json = headText.slice(0, -2) + `,\n  "tables": {\n${jsonTables.join(',\n')}\n  }\n}\n`;
   files.push({ name: TABLE_JSON, text: json });
   return { files, summary };
+}
+
+/**
+ * The approximations behind a table's numbers, named in table.json (absent when
+ * none): a massive vector's spectra on a spinning hole are emission's
+ * approximation, not an exact solve (its modes and cross-sections are refused there).
+ */
+function approximationsOf(grid: GridSpec): { approximations?: string[] } {
+  const vector = grid.fields.some((f) => f.spin === 1 && f.mass > 0);
+  const spinning = grid.holeA.some((a) => a !== 0);
+  return vector && spinning && grid.quantities.includes('spectra')
+    ? { approximations: [`spectra: ${MASSIVE_VECTOR_KERR_APPROXIMATION}`] }
+    : {};
 }
 
 /** Writes the assembled files into `dir`; returns their paths. */

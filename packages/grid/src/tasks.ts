@@ -1,16 +1,21 @@
 /**
- * The work of a grid: one task per (spin, a, ω) point in a fixed order (field
- * spin, then a, then ω), chunks of consecutive tasks, and a deterministic
+ * The work of a grid: one task per (field, a, ω) point in a fixed order (the
+ * fields as listed, then a, then ω), chunks of consecutive tasks, and a deterministic
  * cost-balanced split of the chunks into shards.
  */
-import { gridValues } from '@penumbra/core';
-import { modeLs, type GridSpec } from './grid.js';
+import { gridValues, type FieldSpin } from '@penumbra/core';
+import type { GridSpec } from './grid.js';
+import { fieldLs, modeStates, type GridSpecies, type ModeState } from './fields.js';
 
 /** One grid point. */
 export interface GridTask {
   index: number;
   /** field spin of the point (0, 1/2, 1, 2) */
   s: number;
+  /** field mass Mμ (units of 1/M; 0 massless) */
+  mass: number;
+  /** the species the field stands for (species grids) */
+  species?: GridSpecies;
   /** the hole's a/M */
   a: number;
   omega: number;
@@ -25,22 +30,36 @@ export interface GridChunk {
   cost: number;
 }
 
-/** Every point of a grid, field spin first, then a, then ω. */
+/** Every point of a grid, field first (as listed), then a, then ω. */
 export function gridTasks(grid: GridSpec): GridTask[] {
   const omegas = gridValues(grid.frequencies);
   const tasks: GridTask[] = [];
-  for (const s of grid.fieldSpins) {
+  for (const field of grid.fields) {
     for (const a of grid.holeA) {
-      for (const omega of omegas) tasks.push({ index: tasks.length, s, a, omega });
+      for (const omega of omegas) {
+        const task: GridTask = { index: tasks.length, s: field.spin, mass: field.mass, a, omega };
+        if (field.species) task.species = field.species;
+        tasks.push(task);
+      }
     }
   }
   return tasks;
 }
 
-/** Modes of one explicit-range point: every l in range, every m from −l to l. */
-export function explicitModes(s: number, range: { min: number; max: number }): { l: number; m: number }[] {
-  const out: { l: number; m: number }[] = [];
-  for (const l of modeLs(s, range)) for (let m = -l; m <= l; m++) out.push({ l, m });
+/**
+ * Modes of one explicit-range point: every l in range, every m from −l to l,
+ * and every spin state of a massive Dirac (both signs of κ) or vector field
+ * (its polarisations; from l = 0, the monopole).
+ */
+export function explicitModes(
+  s: number,
+  range: { min: number; max: number },
+  mass = 0,
+): ({ l: number; m: number } & ModeState)[] {
+  const field = { spin: s as FieldSpin, mass };
+  const out: ({ l: number; m: number } & ModeState)[] = [];
+  for (const l of fieldLs(field, range))
+    for (let m = -l; m <= l; m++) for (const state of modeStates(field, l)) out.push({ l, m, ...state });
   return out;
 }
 
@@ -63,12 +82,14 @@ export function taskCost(grid: GridSpec, task: GridTask): number {
   // The reflection coefficient needs a second (−s) integration.
   const reflectionFactor = q.includes('reflection') ? 1.6 : 1;
   let cost = 0;
-  const sumModes = estimatedSumModes(task.s, task.a, task.omega);
+  // A massive Dirac sum solves both signs of κ, a massive vector three polarisations.
+  const states = task.mass > 0 && task.s === 0.5 ? 2 : task.mass > 0 && task.s === 1 ? 3 : 1;
+  const sumModes = estimatedSumModes(task.s, task.a, task.omega) * states;
   if (perMode) {
     cost +=
       grid.l === 'auto'
         ? sumModes * (q.includes('reflection') ? 2.6 : 1)
-        : explicitModes(task.s, grid.l).length * reflectionFactor;
+        : explicitModes(task.s, grid.l, task.mass).length * reflectionFactor;
   }
   if (q.includes('crossSection') && !(perMode && grid.l === 'auto')) cost += sumModes;
   if (q.includes('spectra')) cost += sumModes;

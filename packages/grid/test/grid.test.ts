@@ -121,10 +121,19 @@ describe('grid descriptions', () => {
     );
   });
 
-  test('the grid spec module imports no Node built-in (it runs in a browser): only core, flux and @noble/hashes', () => {
-    const source = readFileSync(new URL('../src/grid.ts', import.meta.url), 'utf8');
-    const imports = [...source.matchAll(/^import .* from '([^']+)';$/gm)].map((m) => m[1]);
-    expect(imports).toEqual(['@noble/hashes/sha2.js', '@noble/hashes/utils.js', '@penumbra/core', '@penumbra/flux']);
+  test('the grid spec modules import no Node built-in (they run in a browser): only core, flux, emission, kerr, @noble/hashes and each other', () => {
+    const importsOf = (file: string) =>
+      [...readFileSync(new URL(`../src/${file}`, import.meta.url), 'utf8').matchAll(/^import .* from '([^']+)';$/gm)].map(
+        (m) => m[1],
+      );
+    expect(importsOf('grid.ts')).toEqual([
+      '@noble/hashes/sha2.js',
+      '@noble/hashes/utils.js',
+      '@penumbra/core',
+      '@penumbra/flux',
+      './fields.js',
+    ]);
+    expect(importsOf('fields.ts')).toEqual(['@penumbra/core', '@penumbra/flux', '@penumbra/emission', '@penumbra/kerr']);
   });
 
   test("the old key 'holeSpins' is read as holeA (same grid, same hash); both keys together are refused", () => {

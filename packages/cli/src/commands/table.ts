@@ -25,6 +25,7 @@ export const command: Command = {
   summary: 'compute a grid of Γ, reflection, cross-sections or spectra on every core; sharded and resumable',
   usage: `Usage: penumbra table GRID.json --out DIR [--workers N] [--shard K/N] [--quiet]
        penumbra table --spins LIST --a LIST --omega RANGE [grid options] --out DIR
+       penumbra table --species LIST --mass M --unit g|kg|msun --a LIST --omega RANGE [grid options] --out DIR
 
 Computes every point of the grid on a pool of worker threads and writes
 DIR/modes.csv, DIR/cross-section.csv, DIR/spectra.csv (units in the headers,
@@ -45,6 +46,12 @@ Options:
 
 Grid options (instead of GRID.json):
   --spins LIST        field spins, e.g. 0,1/2,1,2
+  --fields LIST       instead of --spins: fields SPIN[:MASS] with MASS = Mμ
+                      (units of 1/M), e.g. 0,0:0.2,1/2:0.2
+  --species LIST      instead of --spins: emitted species, names (electron,
+                      standard-model, ...) or NAME:SPIN:DOF[:MASS_GEV]; needs
+                      --mass and --unit (each species' Mμ comes from them)
+  --mass M, --unit U  the hole's mass of --species, U one of g, kg, msun
   --a LIST            the holes' spin parameters a/M, e.g. 0,0.5,0.9
   --omega RANGE       frequencies Mω: FROM:TO:COUNT, or a list W1,W2,...
   --spacing S         linear (default) or log, for FROM:TO:COUNT
@@ -54,11 +61,17 @@ Grid options (instead of GRID.json):
   --quantities LIST   gamma, reflection, crossSection, spectra (default gamma)
   --chunk-size N      grid points per output chunk (default 16)
 
+Massive fields below their threshold (Mω ≤ Mμ) are rows with status
+'invalid-input': no wave reaches infinity there.
+
 GRID.json holds the same as an object, e.g.
   {"fieldSpins": [0, 1], "holeA": [0, 0.9],
    "frequencies": {"spacing": "log", "from": 0.01, "to": 2, "count": 40},
    "l": {"min": 0, "max": 3}, "tolerance": 1e-6,
    "quantities": ["gamma", "reflection"], "chunkSize": 16}
+and "fields": [0, {"spin": 0, "mass": 0.2}] or "species": ["electron",
+{"name": "dark", "spin": 0, "dof": 1, "massGeV": 0.01}] with "holeMass":
+{"value": 1e16, "unit": "g"} in place of "fieldSpins".
 
 Every problem with the grid, the directory or the options is reported at
 once, with exit code 2, before anything is written.
@@ -73,6 +86,10 @@ ${limitsHelp(['l', 'a', 'omega', 'tol'])}`,
         shard: { type: 'string' },
         quiet: { type: 'boolean' },
         spins: { type: 'string' },
+        fields: { type: 'string' },
+        species: { type: 'string' },
+        mass: { type: 'string' },
+        unit: { type: 'string' },
         a: { type: 'string' },
         omega: { type: 'string' },
         spacing: { type: 'string' },
@@ -86,6 +103,10 @@ ${limitsHelp(['l', 'a', 'omega', 'tol'])}`,
     const problems: string[] = [];
     const flags = {
       spins: values.spins,
+      fields: values.fields,
+      species: values.species,
+      mass: values.mass,
+      unit: values.unit,
       a: values.a,
       omega: values.omega,
       spacing: values.spacing,
