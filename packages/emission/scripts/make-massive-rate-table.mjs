@@ -42,7 +42,10 @@ const GENERATED_BY = 'packages/emission/scripts/make-massive-rate-table.mjs';
  * fastest (towards the Boltzmann regime; the spin-1/2 ratio bends most between
  * 0.17 and 0.35), more a* nodes where they are cheap (the scalar: a fraction
  * of a second a node, so 17 a* nodes and Mμ to 0.6, past the pions of a
- * 1e15 g hole); the massive vector (20–45 s a node on Kerr) keeps the coarser grid.
+ * 1e15 g hole). The massive vector has 17 a* nodes too: its row Mμ = 0 (the
+ * (2 P̂₁ + P̂₀)/3 mixture over P̂₁, where the W and Z of holes of 1e10 g and
+ * lighter sit) falls from 2.1 to 0.74 over a*, and on 9 nodes its θ
+ * interpolation still dominated their lifetime error; a node costs 1–4 s of CPU.
  */
 export const SHIPPED_GRIDS = [
   {
@@ -56,9 +59,11 @@ export const SHIPPED_GRIDS = [
   {
     spin: 0.5,
     points: 9,
-    masses: [0.01, 0.025, 0.05, 0.08, 0.12, 0.145, 0.17, 0.19, 0.21, 0.23, 0.25, 0.275, 0.3, 0.325, 0.35, 0.375, 0.4, 0.45, 0.5],
+    masses: [
+      0.01, 0.025, 0.05, 0.08, 0.12, 0.145, 0.17, 0.19, 0.21, 0.23, 0.25, 0.275, 0.3, 0.325, 0.35, 0.375, 0.4, 0.425, 0.45, 0.5,
+    ],
   },
-  { spin: 1, points: 5, masses: [0.01, 0.025, 0.05, 0.08, 0.12, 0.17, 0.25, 0.35, 0.5] },
+  { spin: 1, points: 17, masses: [0.01, 0.025, 0.05, 0.08, 0.12, 0.17, 0.25, 0.35, 0.5] },
 ];
 
 /** One --grid value, SPIN/POINTS/MU,MU,... */

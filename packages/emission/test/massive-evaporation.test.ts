@@ -73,7 +73,7 @@ describe('f(M, a*) and g(M, a*) with massive species', () => {
         ratios.push(Math.abs(left.f / truth.f - 1) / left.error.interpolation.f);
       }
     }
-    expect(ratios.length).toBe(1552);
+    expect(ratios.length).toBe(1851);
     expect(ratios.filter((r) => r <= 1).length / ratios.length).toBeGreaterThanOrEqual(0.95);
     for (const r of ratios) expect(r).toBeLessThan(2);
   });
