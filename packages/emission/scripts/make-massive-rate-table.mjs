@@ -12,8 +12,9 @@
  * --grid SPIN/POINTS/MU,MU,...: the nodes of one spin, POINTS a* nodes and the
  *   field masses Mμ > 0 (the row Mμ = 0 is added); repeat per spin. Without
  *   --grid: SHIPPED_GRIDS below (the shipped table). Spins not given are left out.
- * --reuse-shipped: a node already in the shipped table (same spin, Mμ, a* and
- *   tol) keeps its shipped ratios, so only new nodes are solved; the seconds the
+ * --reuse-shipped: a node already in the shipped table (same spin, Mμ > 0, a* and
+ *   tol) keeps its shipped ratios, so only new nodes (and the row Mμ = 0, massless
+ *   solves of a fraction of a second) are solved; the seconds the
  *   shipped table records for its nodes are carried over (the table's cost from
  *   nothing) and this run's own seconds are printed and written beside them.
  * --assemble: no solve is run; the module is written from PARTIAL. A spin whose
@@ -138,7 +139,8 @@ if (isMainThread && invoked) {
   const same = (x, y) => Math.abs(x - y) <= 1e-14 * Math.max(1, Math.abs(y));
   /** The shipped ratios of a node, or undefined (a* = 0 torque: recomputed from the new grid's series anyway). */
   const shippedNode = (spin, mu, a) => {
-    if (!reuse || shipped.tol !== tol) return undefined;
+    // the row Mμ = 0 is never reused: its error depends on the massless solves themselves (nodeRatio)
+    if (!reuse || shipped.tol !== tol || mu === 0) return undefined;
     const row = shipped.spins.find((r) => r.spin === spin);
     const masses = row?.fieldMass ?? shipped.fieldMass;
     const i = masses.findIndex((m) => same(m, mu));
@@ -173,15 +175,14 @@ if (isMainThread && invoked) {
   };
   const coarse = (g, j) => shipped.aStar.some((x) => same(x, g.aStar[j]));
   for (const g of layout)
-    for (let j = 0; j < g.points; j++)
-      for (const mu of g.mus.slice(1))
-        if (!shippedNode(g.spin, mu, g.aStar[j])) {
-          // rank: new masses on the shipped a* nodes first, then the new a* nodes by increasing a*
-          const rank = coarse(g, j) ? g.aStar[j] : 10 + g.aStar[j];
-          need(g.spin, mu, g.aStar[j], rank);
-          need(g.spin, 0, g.aStar[j], rank - 1e-9);
-          if (g.spin === 1) need(0, 0, g.aStar[j], rank - 1e-9);
-        }
+    for (let j = 0; j < g.points; j++) {
+      // rank: new masses on the shipped a* nodes first, then the new a* nodes by increasing a*
+      const rank = coarse(g, j) ? g.aStar[j] : 10 + g.aStar[j];
+      // the row Mμ = 0 at every a* node (massless solves, a fraction of a second each)
+      need(g.spin, 0, g.aStar[j], rank - 1e-9);
+      if (g.spin === 1) need(0, 0, g.aStar[j], rank - 1e-9);
+      for (const mu of g.mus.slice(1)) if (!shippedNode(g.spin, mu, g.aStar[j])) need(g.spin, mu, g.aStar[j], rank);
+    }
   const tasks = process.argv.includes('--assemble') ? [] : [...needed.values()].sort((x, y) => x.rank - y.rank);
   const total = results.size + tasks.length;
   console.log(`${tasks.length} tasks to solve (${results.size} in PARTIAL); first the new field masses on the shipped a* nodes`);
