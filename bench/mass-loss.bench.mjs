@@ -7,6 +7,7 @@
 //      emissionTotals at --tol) at the midpoints of the ratio table's cells (off-grid in Mμ
 //      and in a*), with the local error stated by rates.at(M, a*).error, as ratios true/stated;
 //      --quick: a few points per spin; spin 1 also at Mμ = 0.003 (the W of a 1e10 g hole) in the full run;
+//  (2c) the Standard Model at 1e10 g (W, Z in the first Mμ cell) against massLossAt;
 //  (2b) leave-one-node-out: each interior node of the shipped table (in θ, in Mμ, both)
 //      left out in turn and predicted from the rest, against its stated error (no solves);
 //  (3) f(M) of the Standard Model at a* = 0 in MacGibbon's normalisation
@@ -77,8 +78,9 @@ const probes = quick
       1: { mu: [muMid(1)[4]], a: [aMid(1)[0]] },
     }
   : {
-      0: { mu: muMid(0).slice(1), a: every(aMid(0), 2) },
-      0.5: { mu: every(muMid(0.5).slice(1), 2), a: [aMid(0.5)[0], aMid(0.5)[2], aMid(0.5)[5]] },
+      // every spin also in its first Mμ cell (0 to 0.01), where the row Mμ = 0 is exact (spins 0, 1/2)
+      0: { mu: muMid(0), a: every(aMid(0), 2) },
+      0.5: { mu: [muMid(0.5)[0], ...every(muMid(0.5).slice(1), 2)], a: [aMid(0.5)[0], aMid(0.5)[2], aMid(0.5)[5]] },
       // spin 1 also in its first Mμ cell: Mμ 0.003 is the W of a 1e10 g hole, on the θ interpolation of the row Mμ = 0
       1: { mu: [0.003, muMid(1)[4], muMid(1)[7]], a: [aMid(1)[0], aMid(1)[2], aMid(1)[6], aMid(1)[12]] },
     };
@@ -141,6 +143,34 @@ if (!args.includes('--skip-direct')) {
   console.log(
     `   worst true/stated: f ${out.offGridSummary.worstRatioF.toFixed(2)} (${out.offGridSummary.withinF}/${rf.length} within), g ${out.offGridSummary.worstRatioG.toFixed(2)} (${out.offGridSummary.withinG}/${rg.length} within)`,
   );
+}
+
+// (2c) the Standard Model at 1e10 g (T_H ≈ 1 TeV: W, Z, Higgs, top at Mμ 0.003–0.0065, in the first Mμ cell)
+// against massLossAt: partons only (the confinement switch is fully on there), species below the
+// solvers' lowest Mμ (1e-5: u, d, s, e, μ) taken massless in both
+if (!args.includes('--skip-direct')) {
+  const light = resolveContent(['standard-model'])
+    .filter((s) => s.qcd !== 'hadron')
+    .map((s) => (s.massGeV * 1e10 * FIELD_MASS_PER_GRAM_GEV < 1e-5 ? { ...s, massGeV: 0 } : s));
+  const rates = massLossRates({ species: light });
+  out.sm1e10 = [];
+  console.log(`(2c) Standard Model at 1e10 g, tabulated f, g against massLossAt at tol ${tol}:`);
+  for (const a of quick ? [0.5] : [0, 0.3, 0.6, 0.9]) {
+    const t0 = performance.now();
+    const d = massLossAt({ species: light, massGrams: 1e10, aStar: a }, { tol });
+    const seconds = (performance.now() - t0) / 1000;
+    const p = rates.at(1e10, a);
+    const errF = Math.abs(p.f / d.f - 1);
+    const statedF = p.error.f + d.fRelError;
+    const errG = a > 0 ? Math.abs(p.g / d.g - 1) : null;
+    const statedG = a > 0 ? p.error.g + d.gRelError : null;
+    out.sm1e10.push({ aStar: a, errF, statedF, errG, statedG, tableErrorF: p.error.f, seconds });
+    console.log(
+      `   a* ${a}: |Δf|/f ${e(errF)} stated ${e(statedF)} (ratio ${(errF / statedF).toFixed(2)}; table ${e(p.error.f)})` +
+        (a > 0 ? `, |Δg|/g ${e(errG)} stated ${e(statedG)} (ratio ${(errG / statedG).toFixed(2)})` : '') +
+        `; direct ${seconds.toFixed(0)} s`,
+    );
+  }
 }
 
 // (2b) leave-one-node-out, no solves: the node left out is the truth at its own (Mμ, a*)
