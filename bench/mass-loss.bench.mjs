@@ -6,14 +6,15 @@
 //  (2) the tabulated f, g of one dof of each massive spin against massLossAt (direct
 //      emissionTotals at --tol) at the midpoints of the ratio table's cells (off-grid in Mμ
 //      and in a*), with the local error stated by rates.at(M, a*).error, as ratios true/stated;
-//      --quick: a few points per spin (a massive vector on Kerr costs 20–45 s a point);
+//      --quick: a few points per spin; spin 1 also at Mμ = 0.003 (the W of a 1e10 g hole) in the full run;
+//  (2c) the Standard Model at 1e10 g (W, Z in the first Mμ cell) against massLossAt;
 //  (2b) leave-one-node-out: each interior node of the shipped table (in θ, in Mμ, both)
 //      left out in turn and predicted from the rest, against its stated error (no solves);
 //  (3) f(M) of the Standard Model at a* = 0 in MacGibbon's normalisation
 //      (Phys. Rev. D 44, 376 (1991), from memory: dM/dt = −5.34e25 f (M/g)⁻² g/s), with its local error;
 //  (4) the mass whose lifetime is the age of the universe (a* = 0 and 0.5) against
 //      about 5e14 g (Carr, Kohri, Sendouda & Yokoyama, Phys. Rev. D 81, 104019 (2010), from memory),
-//      the lifetime, error and final stage of 1e15 g holes with a* = 0 and 0.5, and the time of
+//      the lifetime, error and final stage of 1e10 g and 1e15 g holes with a* = 0, 0.5, 0.9, 0.99, and the time of
 //      one Standard-Model f at one (M, a*) on demand against the 10 s budget.
 // Results: bench/results/mass-loss-<date>.json.
 import os from 'node:os';
@@ -77,9 +78,11 @@ const probes = quick
       1: { mu: [muMid(1)[4]], a: [aMid(1)[0]] },
     }
   : {
-      0: { mu: muMid(0).slice(1), a: every(aMid(0), 2) },
-      0.5: { mu: every(muMid(0.5).slice(1), 2), a: [aMid(0.5)[0], aMid(0.5)[2], aMid(0.5)[5]] },
-      1: { mu: [muMid(1)[4], muMid(1)[7]], a: [aMid(1)[0], aMid(1)[2]] },
+      // every spin also in its first Mμ cell (0 to 0.01), where the row Mμ = 0 is exact (spins 0, 1/2)
+      0: { mu: muMid(0), a: every(aMid(0), 2) },
+      0.5: { mu: [muMid(0.5)[0], ...every(muMid(0.5).slice(1), 2)], a: [aMid(0.5)[0], aMid(0.5)[2], aMid(0.5)[5]] },
+      // spin 1 also in its first Mμ cell: Mμ 0.003 is the W of a 1e10 g hole, on the θ interpolation of the row Mμ = 0
+      1: { mu: [0.003, muMid(1)[4], muMid(1)[7]], a: [aMid(1)[0], aMid(1)[2], aMid(1)[6], aMid(1)[12]] },
     };
 out.offGrid = [];
 if (!args.includes('--skip-direct')) {
@@ -140,6 +143,34 @@ if (!args.includes('--skip-direct')) {
   console.log(
     `   worst true/stated: f ${out.offGridSummary.worstRatioF.toFixed(2)} (${out.offGridSummary.withinF}/${rf.length} within), g ${out.offGridSummary.worstRatioG.toFixed(2)} (${out.offGridSummary.withinG}/${rg.length} within)`,
   );
+}
+
+// (2c) the Standard Model at 1e10 g (T_H ≈ 1 TeV: W, Z, Higgs, top at Mμ 0.003–0.0065, in the first Mμ cell)
+// against massLossAt: partons only (the confinement switch is fully on there), species below the
+// solvers' lowest Mμ (1e-5: u, d, s, e, μ) taken massless in both
+if (!args.includes('--skip-direct')) {
+  const light = resolveContent(['standard-model'])
+    .filter((s) => s.qcd !== 'hadron')
+    .map((s) => (s.massGeV * 1e10 * FIELD_MASS_PER_GRAM_GEV < 1e-5 ? { ...s, massGeV: 0 } : s));
+  const rates = massLossRates({ species: light });
+  out.sm1e10 = [];
+  console.log(`(2c) Standard Model at 1e10 g, tabulated f, g against massLossAt at tol ${tol}:`);
+  for (const a of quick ? [0.5] : [0, 0.3, 0.6, 0.9]) {
+    const t0 = performance.now();
+    const d = massLossAt({ species: light, massGrams: 1e10, aStar: a }, { tol });
+    const seconds = (performance.now() - t0) / 1000;
+    const p = rates.at(1e10, a);
+    const errF = Math.abs(p.f / d.f - 1);
+    const statedF = p.error.f + d.fRelError;
+    const errG = a > 0 ? Math.abs(p.g / d.g - 1) : null;
+    const statedG = a > 0 ? p.error.g + d.gRelError : null;
+    out.sm1e10.push({ aStar: a, errF, statedF, errG, statedG, tableErrorF: p.error.f, seconds });
+    console.log(
+      `   a* ${a}: |Δf|/f ${e(errF)} stated ${e(statedF)} (ratio ${(errF / statedF).toFixed(2)}; table ${e(p.error.f)})` +
+        (a > 0 ? `, |Δg|/g ${e(errG)} stated ${e(statedG)} (ratio ${(errG / statedG).toFixed(2)})` : '') +
+        `; direct ${seconds.toFixed(0)} s`,
+    );
+  }
 }
 
 // (2b) leave-one-node-out, no solves: the node left out is the truth at its own (Mμ, a*)
@@ -221,22 +252,24 @@ for (const a0 of [0, 0.5]) {
   );
 }
 out.history = [];
-for (const a0 of [0, 0.5]) {
-  const ev = evaporateHole({ rates: smRates, mass: 1e15, unit: 'g', aStar0: a0 }, { finalSeconds: [1] });
-  const st = ev.finalStages[0];
-  out.history.push({
-    aStar0: a0,
-    lifetimeSeconds: ev.lifetimeSeconds,
-    relError: ev.diagnostics.errorEstimate,
-    tableError: ev.diagnostics.tableError,
-    halvedTolChange: ev.diagnostics.halvedTolChange,
-    energyBalance: ev.energyBalance.relError,
-    final1s: { massGrams: st.massGrams, energyGeV: st.energyGeV, relError: st.relError },
-  });
-  console.log(
-    `    1e15 g, a* = ${a0}: lifetime ${ev.lifetimeSeconds.toExponential(4)} s (rel. error ${e(ev.diagnostics.errorEstimate)}: tables ${e(ev.diagnostics.tableError)}, ODE ${e(ev.diagnostics.halvedTolChange)}), energy balance ${e(ev.energyBalance.relError)}, last 1 s: ${st.massGrams.toExponential(3)} g = ${st.energyGeV.toExponential(3)} GeV (±${e(st.relError)})`,
-  );
-}
+for (const m0 of [1e10, 1e15])
+  for (const a0 of [0, 0.5, 0.9, 0.99]) {
+    const ev = evaporateHole({ rates: smRates, mass: m0, unit: 'g', aStar0: a0 }, { finalSeconds: [1] });
+    const st = ev.finalStages[0];
+    out.history.push({
+      massGrams: m0,
+      aStar0: a0,
+      lifetimeSeconds: ev.lifetimeSeconds,
+      relError: ev.diagnostics.errorEstimate,
+      tableError: ev.diagnostics.tableError,
+      halvedTolChange: ev.diagnostics.halvedTolChange,
+      energyBalance: ev.energyBalance.relError,
+      final1s: { massGrams: st.massGrams, energyGeV: st.energyGeV, relError: st.relError },
+    });
+    console.log(
+      `    ${m0.toExponential(0)} g, a* = ${a0}: lifetime ${ev.lifetimeSeconds.toExponential(4)} s (rel. error ${e(ev.diagnostics.errorEstimate)}: tables ${e(ev.diagnostics.tableError)}, ODE ${e(ev.diagnostics.halvedTolChange)}), energy balance ${e(ev.energyBalance.relError)}, last 1 s: ${st.massGrams.toExponential(3)} g = ${st.energyGeV.toExponential(3)} GeV (±${e(st.relError)})`,
+    );
+  }
 if (!args.includes('--skip-direct')) {
   const t0 = performance.now();
   const d = massLossAt({ species: sm, massGrams: 1e15, aStar: 0.5 }, { tol: 1e-3 });

@@ -12,8 +12,9 @@
  * --grid SPIN/POINTS/MU,MU,...: the nodes of one spin, POINTS a* nodes and the
  *   field masses Mμ > 0 (the row Mμ = 0 is added); repeat per spin. Without
  *   --grid: SHIPPED_GRIDS below (the shipped table). Spins not given are left out.
- * --reuse-shipped: a node already in the shipped table (same spin, Mμ, a* and
- *   tol) keeps its shipped ratios, so only new nodes are solved; the seconds the
+ * --reuse-shipped: a node already in the shipped table (same spin, Mμ > 0, a* and
+ *   tol) keeps its shipped ratios, so only new nodes (and the row Mμ = 0, massless
+ *   solves of a fraction of a second) are solved; the seconds the
  *   shipped table records for its nodes are carried over (the table's cost from
  *   nothing) and this run's own seconds are printed and written beside them.
  * --assemble: no solve is run; the module is written from PARTIAL. A spin whose
@@ -42,7 +43,10 @@ const GENERATED_BY = 'packages/emission/scripts/make-massive-rate-table.mjs';
  * fastest (towards the Boltzmann regime; the spin-1/2 ratio bends most between
  * 0.17 and 0.35), more a* nodes where they are cheap (the scalar: a fraction
  * of a second a node, so 17 a* nodes and Mμ to 0.6, past the pions of a
- * 1e15 g hole); the massive vector (20–45 s a node on Kerr) keeps the coarser grid.
+ * 1e15 g hole). The massive vector has 17 a* nodes too: its row Mμ = 0 (the
+ * (2 P̂₁ + P̂₀)/3 mixture over P̂₁, where the W and Z of holes of 1e10 g and
+ * lighter sit) falls from 2.1 to 0.74 over a*, and on 9 nodes its θ
+ * interpolation still dominated their lifetime error; a node costs 1–4 s of CPU.
  */
 export const SHIPPED_GRIDS = [
   {
@@ -56,9 +60,11 @@ export const SHIPPED_GRIDS = [
   {
     spin: 0.5,
     points: 9,
-    masses: [0.01, 0.025, 0.05, 0.08, 0.12, 0.145, 0.17, 0.19, 0.21, 0.23, 0.25, 0.275, 0.3, 0.325, 0.35, 0.375, 0.4, 0.45, 0.5],
+    masses: [
+      0.01, 0.025, 0.05, 0.08, 0.12, 0.145, 0.17, 0.19, 0.21, 0.23, 0.25, 0.275, 0.3, 0.325, 0.35, 0.375, 0.4, 0.425, 0.45, 0.5,
+    ],
   },
-  { spin: 1, points: 5, masses: [0.01, 0.025, 0.05, 0.08, 0.12, 0.17, 0.25, 0.35, 0.5] },
+  { spin: 1, points: 17, masses: [0.01, 0.025, 0.05, 0.08, 0.12, 0.17, 0.25, 0.35, 0.5] },
 ];
 
 /** One --grid value, SPIN/POINTS/MU,MU,... */
@@ -133,7 +139,8 @@ if (isMainThread && invoked) {
   const same = (x, y) => Math.abs(x - y) <= 1e-14 * Math.max(1, Math.abs(y));
   /** The shipped ratios of a node, or undefined (a* = 0 torque: recomputed from the new grid's series anyway). */
   const shippedNode = (spin, mu, a) => {
-    if (!reuse || shipped.tol !== tol) return undefined;
+    // the row Mμ = 0 is never reused: its error depends on the massless solves themselves (nodeRatio)
+    if (!reuse || shipped.tol !== tol || mu === 0) return undefined;
     const row = shipped.spins.find((r) => r.spin === spin);
     const masses = row?.fieldMass ?? shipped.fieldMass;
     const i = masses.findIndex((m) => same(m, mu));
@@ -168,15 +175,14 @@ if (isMainThread && invoked) {
   };
   const coarse = (g, j) => shipped.aStar.some((x) => same(x, g.aStar[j]));
   for (const g of layout)
-    for (let j = 0; j < g.points; j++)
-      for (const mu of g.mus.slice(1))
-        if (!shippedNode(g.spin, mu, g.aStar[j])) {
-          // rank: new masses on the shipped a* nodes first, then the new a* nodes by increasing a*
-          const rank = coarse(g, j) ? g.aStar[j] : 10 + g.aStar[j];
-          need(g.spin, mu, g.aStar[j], rank);
-          need(g.spin, 0, g.aStar[j], rank - 1e-9);
-          if (g.spin === 1) need(0, 0, g.aStar[j], rank - 1e-9);
-        }
+    for (let j = 0; j < g.points; j++) {
+      // rank: new masses on the shipped a* nodes first, then the new a* nodes by increasing a*
+      const rank = coarse(g, j) ? g.aStar[j] : 10 + g.aStar[j];
+      // the row Mμ = 0 at every a* node (massless solves, a fraction of a second each)
+      need(g.spin, 0, g.aStar[j], rank - 1e-9);
+      if (g.spin === 1) need(0, 0, g.aStar[j], rank - 1e-9);
+      for (const mu of g.mus.slice(1)) if (!shippedNode(g.spin, mu, g.aStar[j])) need(g.spin, mu, g.aStar[j], rank);
+    }
   const tasks = process.argv.includes('--assemble') ? [] : [...needed.values()].sort((x, y) => x.rank - y.rank);
   const total = results.size + tasks.length;
   console.log(`${tasks.length} tasks to solve (${results.size} in PARTIAL); first the new field masses on the shipped a* nodes`);

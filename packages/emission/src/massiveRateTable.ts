@@ -184,13 +184,34 @@ export interface NodeRatio {
  * puts the limit there).
  */
 export function nodeRatio(spin: FieldSpin, own: NodeTotals | undefined, base: NodeTotals, scalar?: NodeTotals): NodeRatio {
-  const t = own ?? masslessLimit(spin, base, scalar);
+  if (!own) return masslessRowRatio(spin, base, scalar);
   const atZero = base.torque === 0;
   return {
-    power: t.power / base.power,
-    torque: atZero ? Number.NaN : t.torque / base.torque,
-    powerError: t.powerRel + base.powerRel,
-    torqueError: atZero ? Number.NaN : t.torqueRel + base.torqueRel,
+    power: own.power / base.power,
+    torque: atZero ? Number.NaN : own.torque / base.torque,
+    powerError: own.powerRel + base.powerRel,
+    torqueError: atZero ? Number.NaN : own.torqueRel + base.torqueRel,
+  };
+}
+
+/**
+ * The row Mμ = 0. Spins 0 and 1/2: the massless field over itself, 1 with no
+ * error (the solve errors cancel exactly). Spin 1: R = (2 P̂₁ + P̂₀)/(3 P̂₁) =
+ * 2/3 + P̂₀/(3 P̂₁), so only the part P̂₀/(3 P̂₁) carries the two solves'
+ * errors: δR/R = ((R − 2/3)/R)·(ε₀ + ε₁) (the same for the torque).
+ */
+function masslessRowRatio(spin: FieldSpin, base: NodeTotals, scalar?: NodeTotals): NodeRatio {
+  const atZero = base.torque === 0;
+  if (spin !== 1) return { power: 1, torque: atZero ? Number.NaN : 1, powerError: 0, torqueError: atZero ? Number.NaN : 0 };
+  const t = masslessLimit(spin, base, scalar);
+  const s = scalar as NodeTotals;
+  const power = t.power / base.power;
+  const torque = atZero ? Number.NaN : t.torque / base.torque;
+  return {
+    power,
+    torque,
+    powerError: (Math.abs(power - 2 / 3) / power) * (s.powerRel + base.powerRel),
+    torqueError: atZero ? Number.NaN : (Math.abs(torque - 2 / 3) / torque) * (s.torqueRel + base.torqueRel),
   };
 }
 

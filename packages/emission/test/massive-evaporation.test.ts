@@ -15,7 +15,7 @@ import {
   massLossRates,
   resolveContent,
 } from '@penumbra/emission';
-import { withoutNode } from '@penumbra/emission/internal';
+import { nodeRatio, withoutNode } from '@penumbra/emission/internal';
 
 const table = bundledMassiveRateTable();
 const rowOf = (spin: 0 | 0.5 | 1) => table.spins.find((r) => r.spin === spin)!;
@@ -73,7 +73,7 @@ describe('f(M, a*) and g(M, a*) with massive species', () => {
         ratios.push(Math.abs(left.f / truth.f - 1) / left.error.interpolation.f);
       }
     }
-    expect(ratios.length).toBe(1552);
+    expect(ratios.length).toBe(1851);
     expect(ratios.filter((r) => r <= 1).length / ratios.length).toBeGreaterThanOrEqual(0.95);
     for (const r of ratios) expect(r).toBeLessThan(2);
   });
@@ -141,6 +141,38 @@ describe('f(M, a*) and g(M, a*) with massive species', () => {
       expect(ev.lifetimeSeconds).toBeLessThan(previous);
       previous = ev.lifetimeSeconds;
     }
+  });
+
+  test('the lifetimes of Standard-Model holes of 1e10 g (W, Z, Higgs and top at Mμ 0.003–0.0065, inside the first Mμ cell) at a* = 0.5 and 0.9 meet tol = 1e-3', () => {
+    for (const aStar0 of [0.5, 0.9]) {
+      const ev = evaporateHole({ rates: smRates, mass: 1e10, unit: 'g', aStar0 }, { finalSeconds: [], tol: 1e-3 });
+      expect(ev.diagnostics.errorEstimate).toBeLessThan(1e-3);
+    }
+  });
+
+  test('the row Mμ = 0 of the ratio table: spins 0 and 1/2 are 1 with no error (the massless field over itself); for spin 1 the stated error of (2 P̂₁ + P̂₀)/(3 P̂₁) bounds the change when P̂₀ and P̂₁ move by their own errors in opposite directions (first-order error propagation, to 1e-3 of it)', () => {
+    const totals = (power: number, rel: number) => ({
+      power,
+      powerRel: rel,
+      torque: power / 2,
+      torqueRel: rel,
+      gammaCalls: 0,
+      steps: 0,
+      rhsEvaluations: 0,
+    });
+    for (const spin of [0, 0.5] as const) {
+      const r = nodeRatio(spin, undefined, totals(2.5e-4, 3e-4));
+      expect([r.power, r.torque, r.powerError, r.torqueError]).toEqual([1, 1, 0, 0]);
+    }
+    const [p1, p0, e1, e0] = [3e-4, 4e-4, 2e-4, 5e-4];
+    const r = nodeRatio(1, undefined, totals(p1, e1), totals(p0, e0));
+    const ratio = (x1: number, x0: number) => (2 * x1 + x0) / (3 * x1);
+    const moved = Math.max(
+      Math.abs(ratio(p1 * (1 - e1), p0 * (1 + e0)) / r.power - 1),
+      Math.abs(ratio(p1 * (1 + e1), p0 * (1 - e0)) / r.power - 1),
+    );
+    expect(r.power).toBeCloseTo(ratio(p1, p0), 14);
+    expect(Math.abs(moved / r.powerError - 1)).toBeLessThan(1e-3);
   });
 
   test('energy conservation over a Standard-Model history from 1e13 g, a* = 0.3: Σ species energies = M₀c² to 1e-9, and each final stage to 1e-9; a* falls faster than M', () => {
