@@ -17,5 +17,5 @@ export {
 export { type ProcaSector, type SectorModel, sectorModel } from './proca/sectors.js';
 export type { Complex } from './proca/complex.js';
 export { type SeriesState, type ChannelState, outgoingFarSolution, horizonSolution } from './proca/series.js';
-export { ProcaExtrapolation } from './proca/extrapolation.js';
+export { type ProcaChannelEquations, ProcaExtrapolation } from './proca/extrapolation.js';
 export { chargedSteps, singleStartOffset } from './proca/greybody.js';
