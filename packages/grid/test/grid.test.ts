@@ -5,7 +5,6 @@ import fc from 'fast-check';
 import { gridValues } from '@penumbra/core';
 import {
   canonicalGridJson,
-  GridError,
   gridChunks,
   gridHash,
   gridTasks,
@@ -14,6 +13,7 @@ import {
   taskCost,
   validateGrid,
 } from '@penumbra/grid';
+import { problemsOf } from './support.js';
 
 const base = {
   fieldSpins: [0, 1],
@@ -23,16 +23,6 @@ const base = {
   tolerance: 1e-6,
   quantities: ['gamma'],
 };
-
-function problemsOf(raw: unknown): string[] {
-  try {
-    validateGrid(raw);
-  } catch (error) {
-    if (error instanceof GridError) return error.problems;
-    throw error;
-  }
-  return [];
-}
 
 describe('grid descriptions', () => {
   test('a valid grid gets its defaults (chunk size 16) and log frequencies with exact endpoints and a constant ratio to 1e-15', () => {

@@ -7,7 +7,6 @@ import { emissionSpectrum, KNOWN_SPECIES } from '@penumbra/emission';
 import {
   canonicalGridJson,
   computeTask,
-  GridError,
   gridHash,
   gridTasks,
   mergeRuns,
@@ -16,20 +15,10 @@ import {
   validateGrid,
 } from '@penumbra/grid';
 import { outputDirProblems, taskMessage } from '@penumbra/grid/internal';
-import { tableFiles } from './support.js';
+import { problemsOf, tableFiles } from './support.js';
 
 const work = mkdtempSync(join(tmpdir(), 'penumbra-massive-'));
 afterAll(() => rmSync(work, { recursive: true, force: true }));
-
-function problemsOf(raw: unknown): string[] {
-  try {
-    validateGrid(raw);
-  } catch (error) {
-    if (error instanceof GridError) return error.problems;
-    throw error;
-  }
-  return [];
-}
 
 const sha = (text: string) => createHash('sha256').update(text).digest('hex');
 

@@ -7,6 +7,7 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { GridError, validateGrid } from '@penumbra/grid';
 
 export const repositoryRoot = fileURLToPath(new URL('../../../', import.meta.url));
 export const cliBin = fileURLToPath(new URL('../../cli/bin/penumbra.js', import.meta.url));
@@ -38,4 +39,15 @@ export function writeGridFile(dir: string, grid: object, name = 'grid.json'): st
   const path = join(dir, name);
   writeFileSync(path, JSON.stringify(grid));
   return path;
+}
+
+/** The problems validateGrid lists for a grid description (none: []). */
+export function problemsOf(raw: unknown): string[] {
+  try {
+    validateGrid(raw);
+  } catch (error) {
+    if (error instanceof GridError) return error.problems;
+    throw error;
+  }
+  return [];
 }
