@@ -52,6 +52,13 @@ export function modeFigure(all: readonly PlotRow[], quantity: ModeQuantity, opti
       `no rows with l in {${options.l?.join(', ') ?? 'any'}} and m in {${options.m?.join(', ') ?? 'any'}} (the data has l = ${distinctValues(all, 'l').join(', ')}, m = ${distinctValues(all, 'm').join(', ')})`,
     );
   if (problems.length) throw new PlotDataError(problems.join('; '));
+  // a grid of massive fields or species holds several fields of one spin (species, Mμ, κ sign, polarisation):
+  // one figure draws one of them and says so, rather than joining their Γ into one curve
+  const variants = distinctStrings(rows.map(fieldVariant));
+  if (variants.length > 1) rows = rows.filter((r) => fieldVariant(r) === variants[0]);
+  const variantNote =
+    variants[0] !== '' &&
+    `${variants[0]}${variants.length > 1 ? ` (${variants.length - 1} other field${variants.length > 2 ? 's' : ''} of this spin in the data not drawn)` : ''}`;
 
   const field = quantity === 'reflection' ? 'reflection' : 'gamma';
   const good = rows.filter((r) => succeeded(r) && num(r, field) !== undefined && num(r, 'omega') !== undefined);
@@ -95,6 +102,7 @@ export function modeFigure(all: readonly PlotRow[], quantity: ModeQuantity, opti
     title: Y_AXIS[quantity].heading,
     subtitle: joinNotes(
       `s = ${halfLabel(spin)}, a = ${a} M, Ωₕ = ${Number(omegaH.toPrecision(4))}/M`,
+      variantNote,
       Y_AXIS[quantity].meaning,
       physical && `M = ${tickLabel(options.mass!)} ${options.unit ?? 'g'}`,
       collapse && 'a = 0: every m of an l gives the same Γ, one curve per l',
@@ -169,4 +177,19 @@ function collapsedSeries(rows: readonly PlotRow[], value: (r: PlotRow) => number
     if (r.m === entry.m) entry.points.push([(r.omega as number) * toX, value(r)]);
   }
   return [...byL].sort(([p], [q]) => p - q).map(([l, { points }]) => ({ name: `l = ${halfLabel(l)} (every m)`, points }));
+}
+
+/** The field a mode row belongs to beyond its spin: species, Mμ, κ sign, polarisation ('' for a massless field of a plain grid). */
+function fieldVariant(r: PlotRow): string {
+  const parts: string[] = [];
+  if (typeof r.species === 'string' && r.species !== '') parts.push(r.species);
+  if (typeof r.fieldMass === 'number' && r.fieldMass !== 0) parts.push(`Mμ = ${r.fieldMass}`);
+  if (r.kappaSign !== undefined && r.kappaSign !== null && r.kappaSign !== '')
+    parts.push(`κ sign ${Number(r.kappaSign) > 0 ? '+' : '−'}`);
+  if (typeof r.polarization === 'string' && r.polarization !== '') parts.push(`${r.polarization} polarisation`);
+  return parts.join(', ');
+}
+
+function distinctStrings(values: readonly string[]): string[] {
+  return [...new Set(values)];
 }

@@ -30,10 +30,14 @@ function seriesBy(rows: readonly PlotRow[], point: (r: PlotRow) => [number, numb
     if (!p) continue;
     const spin = num(r, 'spin');
     const a = num(r, 'a');
+    // species and field-mass columns (grids of massive fields or species) name series of their own
+    const species = typeof r.species === 'string' && r.species !== '' ? r.species : undefined;
+    const mass = num(r, 'fieldMass');
     const name = joinNotes(
-      spin !== undefined && `s = ${halfLabel(spin)} (${speciesName(spin)})`,
+      spin !== undefined && (species ? `${species} (s = ${halfLabel(spin)})` : `s = ${halfLabel(spin)} (${speciesName(spin)})`),
+      !species && mass !== undefined && mass !== 0 && `Mμ = ${mass}`,
       a !== undefined && `a = ${a} M`,
-    ).replace('; ', ', ');
+    ).replaceAll('; ', ', ');
     const key = name || 'computed (give --spin, --a to name it)';
     if (!groups.has(key)) groups.set(key, []);
     groups.get(key)!.push(p);

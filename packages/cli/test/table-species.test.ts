@@ -49,6 +49,12 @@ describe('penumbra table with species and massive fields', () => {
       'dark,1,success',
     ]);
     expect(r.stderr).toMatch(/invalid-input spectra: dark spin=0 Mμ=0\.376\d* a=0\.5 ω=0\.2: .*no wave reaches infinity/);
+    // the spectra plot draws one series per species, named by it (not one per spin)
+    const plot = await run('plot', out, '--quantity', 'spectra', '--out', join(work, 'species.svg'));
+    expect(plot.code, plot.stderr).toBe(0);
+    const svg = readFileSync(join(work, 'species.svg'), 'utf8');
+    expect(svg).toContain('electron (s = 1/2)');
+    expect(svg).toContain('dark (s = 0)');
   });
 
   test('penumbra plot reads a massive-field mode table (kappaSign and polarization empty on the rows of other fields)', async (context) => {
@@ -60,8 +66,11 @@ describe('penumbra table with species and massive fields', () => {
     expect(readFileSync(join(out, 'modes.csv'), 'utf8').split('\n')[0]).toBe(
       'spin [1],fieldMass [1/M],a [M],omega [1/M],l [1],m [1],kappaSign,status,gamma [1],relError [1],steps,rhsEvaluations,message',
     );
-    const plot = await run('plot', out, '--out', join(work, 'fields.svg'));
+    const plot = await run('plot', out, '--spin', '1/2', '--out', join(work, 'fields.svg'));
     expect(plot.code, plot.stderr).toBe(0);
+    // one of the two κ signs is drawn, and the figure says which and that the other is not
+    const svg = readFileSync(join(work, 'fields.svg'), 'utf8');
+    expect(svg).toMatch(/Mμ = 0\.2, κ sign [+−] \(1 other field of this spin in the data not drawn\)/);
   });
 
   test('bad --fields, --species and --unit are all reported at once with exit code 2, nothing written', async (context) => {
