@@ -174,6 +174,12 @@ export function solveWarm(
   growToTail = true,
   /** the band of this size, when the caller has built it already */
   prebuilt?: Band,
+  /**
+   * With false (a seed only, growToTail false), skip the two counts that prove the index: the
+   * deterministic finish checks its first bracket by two counts of its own and settles the
+   * index-th eigenvalue from any seed (a seed on a neighbour only costs that finish more counts).
+   */
+  checkIndex = true,
 ): SpectralSolution | null {
   size = Math.max(size, index + 3);
   for (let attempt = 0; attempt < 4; attempt++) {
@@ -210,6 +216,7 @@ export function solveWarm(
       }
     }
     if (!converged) return null;
+    if (!checkIndex && !growToTail) return finishSolution(band, x, iterations, 'spectral-rqi');
     const delta = Math.max(1e-11 * band.norm, 1e-9);
     tally.evaluations += 2;
     const below = ws.count(band, size, sigma - delta);
