@@ -52,7 +52,7 @@ let where = '';
 shipped.spins.forEach((s, i) => {
   const f = fresh.spins[i];
   for (const q of ['powerRatio', 'torqueRatio']) {
-    s[q].forEach((row, r) =>
+    s[q].forEach((row, r) => {
       row.forEach((x, c) => {
         const y = f[q][r][c];
         const d = Math.abs(x - y);
@@ -65,8 +65,8 @@ shipped.spins.forEach((s, i) => {
           worstOfErrors = ofErrors;
           where = `spin ${s.spin} ${q} Mμ = ${s.fieldMass[r]} a* = ${s.aStar[c].toFixed(4)}`;
         }
-      }),
-    );
+      });
+    });
   }
 });
 const seconds = wallSeconds ?? fresh.seconds;
