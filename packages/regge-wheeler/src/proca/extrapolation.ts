@@ -36,6 +36,45 @@ export interface ProcaChannelEquations {
   q1: Float64Array;
 }
 
+/**
+ * The channel equations' dy/dr at r into out, for every solution in y (4N
+ * components each). The extrapolation loop's midpoint substeps repeat it
+ * written out, for speed; its first evaluation of a step and the Cash–Karp
+ * route call this.
+ */
+export function channelDerivative(equations: ProcaChannelEquations, out: Float64Array, y: Float64Array, r: number): void {
+  const { q0, q1, L, mu2, w2 } = equations;
+  const n = y.length;
+  const invF = r / (r - 2);
+  const inv2 = 1 / (r * r);
+  const diag = mu2 + L * inv2 - w2 * invF;
+  if (equations.channels === 1) {
+    const c = diag + (q0[0] + q1[0] / r) * inv2;
+    for (let o = 0; o < n; o += 4) {
+      out[o] = y[o + 2] * invF;
+      out[o + 1] = y[o + 3] * invF;
+      out[o + 2] = c * y[o];
+      out[o + 3] = c * y[o + 1];
+    }
+    return;
+  }
+  const yr = 1 / r;
+  const a00 = diag + (q0[0] + q1[0] * yr) * inv2;
+  const a01 = (q0[1] + q1[1] * yr) * inv2;
+  const a10 = (q0[2] + q1[2] * yr) * inv2;
+  const a11 = diag + (q0[3] + q1[3] * yr) * inv2;
+  for (let o = 0; o < n; o += 8) {
+    out[o] = y[o + 4] * invF;
+    out[o + 1] = y[o + 5] * invF;
+    out[o + 2] = y[o + 6] * invF;
+    out[o + 3] = y[o + 7] * invF;
+    out[o + 4] = a00 * y[o] + a01 * y[o + 2];
+    out[o + 5] = a00 * y[o + 1] + a01 * y[o + 3];
+    out[o + 6] = a10 * y[o] + a11 * y[o + 2];
+    out[o + 7] = a10 * y[o + 1] + a11 * y[o + 3];
+  }
+}
+
 /** Largest column of the extrapolation tableau (order 2·KMAX). */
 const KMAX = 8;
 /** Step numbers n_j = 2j. */
@@ -73,6 +112,7 @@ export class ProcaExtrapolation {
   /** scaled error of each column of the current attempt */
   private readonly errors = new Float64Array(KMAX + 1);
 
+  private readonly equations: ProcaChannelEquations;
   private readonly channels: 1 | 2;
   private readonly mu2: number;
   private readonly w2: number;
@@ -96,6 +136,7 @@ export class ProcaExtrapolation {
     private readonly rate: number,
     private readonly method: string,
   ) {
+    this.equations = equations;
     this.channels = equations.channels;
     this.mu2 = equations.mu2;
     this.w2 = equations.w2;
@@ -120,35 +161,7 @@ export class ProcaExtrapolation {
   /** dy/dr at r into out. */
   private evaluate(out: Float64Array, y: Float64Array, r: number): void {
     this.evaluations++;
-    const { n, q0, q1, L, mu2, w2 } = this;
-    const invF = r / (r - 2);
-    const inv2 = 1 / (r * r);
-    const diag = mu2 + L * inv2 - w2 * invF;
-    if (this.channels === 1) {
-      const c = diag + (q0[0] + q1[0] / r) * inv2;
-      for (let o = 0; o < n; o += 4) {
-        out[o] = y[o + 2] * invF;
-        out[o + 1] = y[o + 3] * invF;
-        out[o + 2] = c * y[o];
-        out[o + 3] = c * y[o + 1];
-      }
-      return;
-    }
-    const yr = 1 / r;
-    const a00 = diag + (q0[0] + q1[0] * yr) * inv2;
-    const a01 = (q0[1] + q1[1] * yr) * inv2;
-    const a10 = (q0[2] + q1[2] * yr) * inv2;
-    const a11 = diag + (q0[3] + q1[3] * yr) * inv2;
-    for (let o = 0; o < n; o += 8) {
-      out[o] = y[o + 4] * invF;
-      out[o + 1] = y[o + 5] * invF;
-      out[o + 2] = y[o + 6] * invF;
-      out[o + 3] = y[o + 7] * invF;
-      out[o + 4] = a00 * y[o] + a01 * y[o + 2];
-      out[o + 5] = a00 * y[o + 1] + a01 * y[o + 3];
-      out[o + 6] = a10 * y[o] + a11 * y[o + 2];
-      out[o + 7] = a10 * y[o + 1] + a11 * y[o + 3];
-    }
+    channelDerivative(this.equations, out, y, r);
   }
 
   /**

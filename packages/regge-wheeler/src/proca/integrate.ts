@@ -8,7 +8,7 @@ import createIntegrator from 'ode45-cash-karp';
 import { ConvergenceError, type Diagnostics } from '@penumbra/core';
 import { tortoiseFromHorizonDistance } from '../series.js';
 import { type Complex, abs2, adjoint, choleskyUpper, hermitianEigen2, matMul, solve } from './complex.js';
-import { ProcaExtrapolation } from './extrapolation.js';
+import { channelDerivative, ProcaExtrapolation } from './extrapolation.js';
 import { COLLOCATION_FLOOR, carryFarSolutions } from './farPhase.js';
 import type { ProcaIntegrator } from './problem.js';
 import type { SectorModel } from './sectors.js';
@@ -233,40 +233,12 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   let rhsEvaluations = phaseEvaluations;
   // du/dr = P/f,  dP/dr = [μ² + L/r² + Q(1/r)/r² − ω²/f] u.
   const L = model.L;
-  // Written out for one and for two channels (the even sector: two solutions of 8 components); the Cash–Karp route's.
-  const deriv =
-    N === 1
-      ? (dydr: Float64Array, s: Float64Array, r: number): void => {
-          rhsEvaluations++;
-          const invF = r / (r - 2);
-          const inv2 = 1 / (r * r);
-          const c = mu2 + L * inv2 - w2 * invF + (q0[0] + q1[0] / r) * inv2;
-          dydr[0] = s[2] * invF;
-          dydr[1] = s[3] * invF;
-          dydr[2] = c * s[0];
-          dydr[3] = c * s[1];
-        }
-      : (dydr: Float64Array, s: Float64Array, r: number): void => {
-          rhsEvaluations++;
-          const invF = r / (r - 2);
-          const inv2 = 1 / (r * r);
-          const yr = 1 / r;
-          const diag = mu2 + L * inv2 - w2 * invF;
-          const a00 = diag + (q0[0] + q1[0] * yr) * inv2;
-          const a01 = (q0[1] + q1[1] * yr) * inv2;
-          const a10 = (q0[2] + q1[2] * yr) * inv2;
-          const a11 = diag + (q0[3] + q1[3] * yr) * inv2;
-          for (let o = 0; o < 16; o += 8) {
-            dydr[o] = s[o + 4] * invF;
-            dydr[o + 1] = s[o + 5] * invF;
-            dydr[o + 2] = s[o + 6] * invF;
-            dydr[o + 3] = s[o + 7] * invF;
-            dydr[o + 4] = a00 * s[o] + a01 * s[o + 2];
-            dydr[o + 5] = a00 * s[o + 1] + a01 * s[o + 3];
-            dydr[o + 6] = a10 * s[o] + a11 * s[o + 2];
-            dydr[o + 7] = a10 * s[o + 1] + a11 * s[o + 3];
-          }
-        };
+  const equations = { channels: N, mu2, w2, L, q0, q1 };
+  // the Cash–Karp route's right-hand side: the same channel equations the extrapolation loop carries
+  const deriv = (dydr: Float64Array, s: Float64Array, r: number): void => {
+    rhsEvaluations++;
+    channelDerivative(equations, dydr, s, r);
+  };
   const norms = new Float64Array(2 * N);
   const errorScale = (i: number, dt: number, _yi: number, dydt: number): number => {
     const j = Math.floor(i / block);
