@@ -90,7 +90,7 @@ export function carryFarSolutions(
   const { n, nodes, S, C } = RULE;
   const n1 = n + 1;
   // Y, Ũ (complex, per node per entry at [j·NN + e]), φ (real, per node) and the Newton matrices: reused across calls
-  const { Yr, Yi, Ur, Ui, phi, c, dS, W, Fr, Fi, Ar, Ai, piv, bRe, bIm, work, gr, gi, psi, Dr, Di } = workspace(N);
+  const { Yr, Yi, Ur, Ui, phi, c, dS, W, dW, Fr, Fi, Ar, Ai, piv, bRe, bIm, work, gr, gi, psi, Dr, Di } = workspace(N);
   const slotOf = N === 2 ? SLOTS_TWO : SLOTS_ONE;
   {
     // U' = E⁻¹ U, P' = E⁻¹ P (columns: the channels' solutions)
@@ -139,7 +139,14 @@ export function carryFarSolutions(
       dS[j] = k + (f * eta) / r;
       const diag = f * (mu2 + L * yr * yr) - w2;
       for (let e = 0; e < NN; e++) W[j * NN + e] = f * yr * yr * (q0[e] + q1[e] * yr);
-      for (let i = 0; i < N; i++) W[j * NN + i * N + i] += diag;
+      for (let i = 0; i < N; i++) {
+        const d = i * (N + 1);
+        W[j * NN + d] += diag;
+        // dW_ii/dr* = −f y² dW_ii/dy with W_ii = f g(y) − ω², g = μ² + (L + q0_ii) y² + q1_ii y³
+        const g = mu2 + (L + q0[d]) * yr * yr + q1[d] * yr * yr * yr;
+        const dg = 2 * (L + q0[d]) * yr + 3 * q1[d] * yr * yr;
+        dW[j * N + i] = -f * yr * yr * (-2 * g + f * dg);
+      }
     }
   };
   /** F = c (W − Y²) at node j. */
@@ -206,10 +213,29 @@ export function carryFarSolutions(
         const d = i * (N + 1);
         const w0 = W[d];
         const wj = W[j * NN + d];
-        if (w0 < 0 && wj < 0) Yi[j * NN + d] = Yi[d] + Math.sqrt(-wj) - Math.sqrt(-w0);
+        if (w0 < 0 && wj < 0) {
+          // second-order WKB: Y ≈ i√(−W) − W'/(4W) (W' = dW/dr*)
+          Yi[j * NN + d] = Yi[d] + Math.sqrt(-wj) - Math.sqrt(-w0);
+          Yr[j * NN + d] = Yr[d] - dW[j * N + i] / (4 * wj) + dW[i] / (4 * w0);
+        }
+      }
+      if (N === 2) {
+        // the off-diagonal entries follow the diagonal adiabatically: Y_01 ≈ W_01 / (Y_00 + Y_11)
+        const o = j * NN;
+        const sr0 = Yr[0] + Yr[3];
+        const si0 = Yi[0] + Yi[3];
+        const q0s = sr0 * sr0 + si0 * si0;
+        const srj = Yr[o] + Yr[o + 3];
+        const sij = Yi[o] + Yi[o + 3];
+        const qjs = srj * srj + sij * sij;
+        for (let e = 1; e <= 2; e++) {
+          Yr[o + e] = Yr[e] + (W[o + e] * srj) / qjs - (W[e] * sr0) / q0s;
+          Yi[o + e] = Yi[e] - (W[o + e] * sij) / qjs + (W[e] * si0) / q0s;
+        }
       }
     }
     let yScale = omega;
+    let previous = Infinity;
     for (let it = 0; ; it++) {
       if (it > MAX_NEWTON) return Infinity;
       for (let j = 1; j < n1; j++) riccati(j);
@@ -244,7 +270,8 @@ export function carryFarSolutions(
         }
       }
       if (!Number.isFinite(change)) return Infinity;
-      if (change <= converged * yScale) break;
+      if (settled(change, previous, converged * yScale)) break;
+      previous = change;
     }
     // Ũ: dŨ/dx = G Ũ, G = c (Y − iψ), ψ = Im tr Y / N. The diagonal of G by quadrature, Ũ = D V with
     // D_i = exp ∫ G_ii; the off-diagonal rest (small in the eigenbasis) by Picard iteration on V, no matrices to factor
@@ -278,6 +305,7 @@ export function carryFarSolutions(
     }
     // V_j = V_0 + ∫ K V with K_il = c Y_il D_l / D_i (i ≠ l); for one channel V is constant
     let uScale = 0;
+    previous = Infinity;
     for (let it = 0; N > 1; it++) {
       if (it > MAX_NEWTON) return Infinity;
       for (let m = 0; m < n1; m++) {
@@ -325,7 +353,8 @@ export function carryFarSolutions(
         }
       }
       if (!Number.isFinite(change)) return Infinity;
-      if (change <= converged * uScale) break;
+      if (settled(change, previous, converged * uScale)) break;
+      previous = change;
     }
     // Ũ = D V
     uScale = 0;
@@ -443,6 +472,19 @@ export function carryFarSolutions(
   return { far: read(end, terms), samples, steps, rhsEvaluations, endRadius: end };
 }
 
+/**
+ * Whether an iteration that converges linearly has settled: the last update `change` after `previous`,
+ * with contraction θ = change / previous, leaves an error of about θ/(1 − θ) · change (the stopping rule
+ * of the simplified Newton iterations in Hairer & Wanner, Solving ODEs II, Sect. IV.8), which must be
+ * at most `bound`; a change at most `bound` settles it outright.
+ */
+function settled(change: number, previous: number, bound: number): boolean {
+  if (change <= bound) return true;
+  if (!(previous < Infinity)) return false;
+  const theta = change / previous;
+  return theta < 0.5 && (theta / (1 - theta)) * change <= bound;
+}
+
 /** out[j − 1] = scale Σ_m S_jm f[m·stride + e] (re, im) for j = 1 … n: the integrals from node 0 to node j. */
 function nodeIntegrals(
   S: Float64Array,
@@ -480,6 +522,8 @@ interface Workspace {
   c: Float64Array;
   dS: Float64Array;
   W: Float64Array;
+  /** dW_ii/dr* per node per channel, [j·N + i] */
+  dW: Float64Array;
   Fr: Float64Array;
   Fi: Float64Array;
   /** one Newton matrix per distinct multiplier of Y (the off-diagonal entries share theirs; then reused per row of Ũ) */
@@ -516,6 +560,7 @@ function workspace(N: number): Workspace {
     c: new Float64Array(n1),
     dS: new Float64Array(n1),
     W: new Float64Array(n1 * NN),
+    dW: new Float64Array(n1 * N),
     Fr: new Float64Array(n1 * NN),
     Fi: new Float64Array(n1 * NN),
     Ar: Array.from({ length: slots }, () => new Float64Array(n * n)),
