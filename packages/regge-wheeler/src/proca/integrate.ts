@@ -225,10 +225,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   let phaseSteps = 0;
   let phaseEvaluations = 0;
   const inner = controls.phaseRadius === false ? Infinity : Math.max(2 * r0, controls.phaseRadius ?? defaultPhaseRadius(model));
-  const wanted =
-    controls.phaseRadius === undefined
-      ? carryPays(model, inner, farStartRadius)
-      : inner < farStartRadius;
+  const wanted = controls.phaseRadius === undefined ? carryPays(model, inner, farStartRadius) : inner < farStartRadius;
   if (wanted && controls.stepTolerance >= COLLOCATION_FLOOR) {
     try {
       // on a grid of radii the carry ends where asked; for Γ alone it may end up to PHASE_SLACK further out
