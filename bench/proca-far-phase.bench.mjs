@@ -3,7 +3,7 @@
 // series converges), near threshold: right-hand-side evaluations, CPU time per integration
 // (interleaved, best of 7 batches) and the difference of Γ, at step tolerance 1e-11, for one
 // channel (odd, monopole) and for the two-channel even sector (all forced: the default carries only one
-// channel, and only past PHASE_GAIN rad of far-zone phase, printed as "phase").
+// channel, and only past the phase per interval of carryPays, printed as "phase").
 // With PROCA_BASELINE=<another built checkout>, that checkout's phase form is timed too (interleaved).
 // Run after `npm run build`: node bench/proca-far-phase.bench.mjs
 import { defaultPhaseRadius, farZonePhase, integrateProca, sectorModel } from '@penumbra/regge-wheeler/internal';

@@ -28,8 +28,8 @@ describe('Proca far zone carried in phase form (near threshold)', () => {
     '%s l = %i, Mω = %f, Mμ = %f: Γ agrees with the direct far start to 1e-10, at an inner matching radius',
     (sector, l, omega, mu) => {
       const model = sectorModel(sector, l, omega, mu);
-      // the default route: past 40 rad of far-zone phase (all four modes here) it takes the phase form
-      const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12 });
+      // the phase form asked for at the default phase radius (whether the default route takes it is carryPays' choice)
+      const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: defaultPhaseRadius(model) });
       const direct = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: false });
       expect(carried.phaseSteps).toBeGreaterThan(0);
       // it ends at the phase radius, or at the end of a whole interval up to PHASE_SLACK outside it
@@ -42,10 +42,10 @@ describe('Proca far zone carried in phase form (near threshold)', () => {
   );
 
   it.each(EVEN)(
-    'even l = %i, Mω = %f, Mμ = %f (default route, two channels): both Γ of the sector agree with the direct far start to 1e-10',
+    'even l = %i, Mω = %f, Mμ = %f (two channels): both Γ of the sector agree with the direct far start to 1e-10',
     (l, omega, mu) => {
       const model = sectorModel('even', l, omega, mu);
-      const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12 });
+      const carried = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: defaultPhaseRadius(model) });
       const direct = integrateProca(model, { startOffset: 0.09, stepTolerance: 1e-12, phaseRadius: false });
       expect(carried.phaseSteps).toBeGreaterThan(0);
       expect(carried.matchRadius).toBeGreaterThanOrEqual(defaultPhaseRadius(model) * (1 - 1e-12));
@@ -54,6 +54,13 @@ describe('Proca far zone carried in phase form (near threshold)', () => {
       expect(carried.residual).toBeLessThan(1e-10);
     },
   );
+
+  it('the default route carries where the phase per interval is large (even l = 2, Mω = 0.8, Mμ = 0.799: ~17 rad) and not at ~7 rad (even l = 1, Mω = 0.3, Mμ = 0.297)', () => {
+    const far = integrateProca(sectorModel('even', 2, 0.8, 0.799), { startOffset: 0.5, stepTolerance: 1.5e-11 });
+    expect(far.phaseSteps).toBeGreaterThan(0);
+    const near = integrateProca(sectorModel('even', 1, 0.3, 0.297), { startOffset: 0.5, stepTolerance: 1.5e-11 });
+    expect(near.phaseSteps).toBe(0);
+  });
 
   it('below the phase it pays for (even l = 1, Mω = 0.3, v = 0.3: ~17 rad) the direct route is kept', () => {
     const model = sectorModel('even', 1, 0.3, 0.3 * Math.sqrt(1 - 0.09));

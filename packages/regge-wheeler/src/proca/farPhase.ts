@@ -40,8 +40,8 @@ const MAX_INTERVALS = 10_000;
 const MAX_NEWTON = 60;
 /** Newton and fixed-point iterations stop when the update is this small relative to the solution. */
 const NEWTON_FLOOR = 1e-15;
-/** The Newton matrix is refreshed every REFACTOR iterations (chord steps between). */
-const REFACTOR = 3;
+/** The Newton matrix is refreshed only when a chord step contracts the update by less than this. */
+const REFACTOR_CONTRACTION = 0.05;
 const ZEROS = new Float64Array(RULE.n + 1);
 /** Newton-matrix slot of each entry of Y: entries (0, 1) and (1, 0) have the same multiplier −c(Y_00 + Y_11). */
 const SLOTS_ONE = Int32Array.of(0);
@@ -90,7 +90,7 @@ export function carryFarSolutions(
   const { n, nodes, S, C } = RULE;
   const n1 = n + 1;
   // Y, Ũ (complex, per node per entry at [j·NN + e]), φ (real, per node) and the Newton matrices: reused across calls
-  const { Yr, Yi, Ur, Ui, phi, c, dS, W, Fr, Fi, Ar, Ai, piv, bRe, bIm, work, gr, gi, psi, Dr, Di } = workspace(N);
+  const { Yr, Yi, Ur, Ui, phi, c, dS, W, dW, Fr, Fi, Ir, Ii, Ar, Ai, piv, bRe, bIm, work, gr, gi, psi, Dr, Di } = workspace(N);
   const slotOf = N === 2 ? SLOTS_TWO : SLOTS_ONE;
   {
     // U' = E⁻¹ U, P' = E⁻¹ P (columns: the channels' solutions)
@@ -127,7 +127,8 @@ export function carryFarSolutions(
   const omega = model.omega;
   // the tail coefficients carry rounding of ~1e-16 relative: no interval is asked for less than COLLOCATION_FLOOR
   const tolerance = Math.max(stepTolerance, COLLOCATION_FLOOR);
-  const converged = Math.max(NEWTON_FLOOR, 1e-3 * tolerance);
+  // the iteration error is held to a hundredth of the interval's tolerance (Hairer & Wanner take 1e-2 to 1e-1 of it)
+  const converged = Math.max(NEWTON_FLOOR, 1e-2 * tolerance);
 
   /** Coefficients at the nodes of the interval [x0, x0 + h]. */
   const setNodes = (x0: number, h: number): void => {
@@ -139,7 +140,14 @@ export function carryFarSolutions(
       dS[j] = k + (f * eta) / r;
       const diag = f * (mu2 + L * yr * yr) - w2;
       for (let e = 0; e < NN; e++) W[j * NN + e] = f * yr * yr * (q0[e] + q1[e] * yr);
-      for (let i = 0; i < N; i++) W[j * NN + i * N + i] += diag;
+      for (let i = 0; i < N; i++) {
+        const d = i * (N + 1);
+        W[j * NN + d] += diag;
+        // dW_ii/dr* = −f y² dW_ii/dy with W_ii = f g(y) − ω², g = μ² + (L + q0_ii) y² + q1_ii y³
+        const g = mu2 + (L + q0[d]) * yr * yr + q1[d] * yr * yr * yr;
+        const dg = 2 * (L + q0[d]) * yr + 3 * q1[d] * yr * yr;
+        dW[j * N + i] = -f * yr * yr * (-2 * g + f * dg);
+      }
     }
   };
   /** F = c (W − Y²) at node j. */
@@ -206,14 +214,34 @@ export function carryFarSolutions(
         const d = i * (N + 1);
         const w0 = W[d];
         const wj = W[j * NN + d];
-        if (w0 < 0 && wj < 0) Yi[j * NN + d] = Yi[d] + Math.sqrt(-wj) - Math.sqrt(-w0);
+        if (w0 < 0 && wj < 0) {
+          // second-order WKB: Y ≈ i√(−W) − W'/(4W) (W' = dW/dr*)
+          Yi[j * NN + d] = Yi[d] + Math.sqrt(-wj) - Math.sqrt(-w0);
+          Yr[j * NN + d] = Yr[d] - dW[j * N + i] / (4 * wj) + dW[i] / (4 * w0);
+        }
+      }
+      if (N === 2) {
+        // the off-diagonal entries follow the diagonal adiabatically: Y_01 ≈ W_01 / (Y_00 + Y_11)
+        const o = j * NN;
+        const sr0 = Yr[0] + Yr[3];
+        const si0 = Yi[0] + Yi[3];
+        const q0s = sr0 * sr0 + si0 * si0;
+        const srj = Yr[o] + Yr[o + 3];
+        const sij = Yi[o] + Yi[o + 3];
+        const qjs = srj * srj + sij * sij;
+        for (let e = 1; e <= 2; e++) {
+          Yr[o + e] = Yr[e] + (W[o + e] * srj) / qjs - (W[e] * sr0) / q0s;
+          Yi[o + e] = Yi[e] - (W[o + e] * sij) / qjs + (W[e] * si0) / q0s;
+        }
       }
     }
     let yScale = omega;
+    let previous = Infinity;
+    let contraction = 1;
     for (let it = 0; ; it++) {
       if (it > MAX_NEWTON) return Infinity;
       for (let j = 1; j < n1; j++) riccati(j);
-      if (it % REFACTOR === 0) {
+      if (it === 0 || contraction > REFACTOR_CONTRACTION) {
         // entry (i, j) of the Jacobian −c(Yδ + δY) without the off-diagonal Y: −c(Y_ii + Y_jj) (exact for one channel)
         for (let e = 0; e < NN; e++) {
           if (e > 0 && slotOf[e] === slotOf[e - 1]) continue;
@@ -228,11 +256,11 @@ export function carryFarSolutions(
       }
       let change = 0;
       yScale = omega;
+      nodeIntegrals(S, n1, Fr, Fi, NN, 0.5 * h, Ir, Ii);
       for (let e = 0; e < NN; e++) {
-        nodeIntegrals(S, n1, Fr, Fi, NN, e, 0.5 * h, bRe, bIm);
         for (let j = 1; j < n1; j++) {
-          bRe[j - 1] -= Yr[j * NN + e] - Yr[e];
-          bIm[j - 1] -= Yi[j * NN + e] - Yi[e];
+          bRe[j - 1] = Ir[(j - 1) * NN + e] - (Yr[j * NN + e] - Yr[e]);
+          bIm[j - 1] = Ii[(j - 1) * NN + e] - (Yi[j * NN + e] - Yi[e]);
         }
         const slot = slotOf[e];
         complexLuSolve(Ar[slot], Ai[slot], n, piv[slot], bRe, bIm, work);
@@ -244,7 +272,9 @@ export function carryFarSolutions(
         }
       }
       if (!Number.isFinite(change)) return Infinity;
-      if (change <= converged * yScale) break;
+      if (settled(change, previous, converged * yScale)) break;
+      contraction = change / previous;
+      previous = change;
     }
     // Ũ: dŨ/dx = G Ũ, G = c (Y − iψ), ψ = Im tr Y / N. The diagonal of G by quadrature, Ũ = D V with
     // D_i = exp ∫ G_ii; the off-diagonal rest (small in the eigenbasis) by Picard iteration on V, no matrices to factor
@@ -278,6 +308,7 @@ export function carryFarSolutions(
     }
     // V_j = V_0 + ∫ K V with K_il = c Y_il D_l / D_i (i ≠ l); for one channel V is constant
     let uScale = 0;
+    previous = Infinity;
     for (let it = 0; N > 1; it++) {
       if (it > MAX_NEWTON) return Infinity;
       for (let m = 0; m < n1; m++) {
@@ -313,11 +344,11 @@ export function carryFarSolutions(
       }
       let change = 0;
       uScale = 0;
+      nodeIntegrals(S, n1, Fr, Fi, NN, 0.5 * h, Ir, Ii);
       for (let e = 0; e < NN; e++) {
-        nodeIntegrals(S, n1, Fr, Fi, NN, e, 0.5 * h, bRe, bIm);
         for (let j = 1; j < n1; j++) {
-          const sr = Ur[e] + bRe[j - 1];
-          const si = Ui[e] + bIm[j - 1];
+          const sr = Ur[e] + Ir[(j - 1) * NN + e];
+          const si = Ui[e] + Ii[(j - 1) * NN + e];
           change = Math.max(change, Math.abs(sr - Ur[j * NN + e]) + Math.abs(si - Ui[j * NN + e]));
           uScale = Math.max(uScale, Math.abs(sr) + Math.abs(si));
           Ur[j * NN + e] = sr;
@@ -325,7 +356,8 @@ export function carryFarSolutions(
         }
       }
       if (!Number.isFinite(change)) return Infinity;
-      if (change <= converged * uScale) break;
+      if (settled(change, previous, converged * uScale)) break;
+      previous = change;
     }
     // Ũ = D V
     uScale = 0;
@@ -443,27 +475,77 @@ export function carryFarSolutions(
   return { far: read(end, terms), samples, steps, rhsEvaluations, endRadius: end };
 }
 
-/** out[j − 1] = scale Σ_m S_jm f[m·stride + e] (re, im) for j = 1 … n: the integrals from node 0 to node j. */
+/**
+ * Whether an iteration that converges linearly has settled: the last update `change` after `previous`,
+ * with contraction θ = change / previous, leaves an error of about θ/(1 − θ) · change (the stopping rule
+ * of the simplified Newton iterations in Hairer & Wanner, Solving ODEs II, Sect. IV.8), which must be
+ * at most `bound`; a change at most `bound` settles it outright.
+ */
+function settled(change: number, previous: number, bound: number): boolean {
+  if (change <= bound) return true;
+  if (!(previous < Infinity)) return false;
+  const theta = change / previous;
+  return theta < 0.5 && (theta / (1 - theta)) * change <= bound;
+}
+
+/**
+ * out[(j − 1)·stride + e] = scale Σ_m S_jm f[m·stride + e] (re, im) for j = 1 … n and every entry e < stride:
+ * the integrals from node 0 to node j, all entries in one pass over S.
+ */
 function nodeIntegrals(
   S: Float64Array,
   n1: number,
   fr: Float64Array,
   fi: Float64Array,
   stride: number,
-  e: number,
   scale: number,
   outR: Float64Array,
   outI: Float64Array,
 ): void {
+  // unrolled per channel count (stride 1 or 4): the loop over entries with a variable bound ran at half the speed
+  if (stride === 4) {
+    for (let j = 1; j < n1; j++) {
+      const row = j * n1;
+      let r0 = 0;
+      let r1 = 0;
+      let r2 = 0;
+      let r3 = 0;
+      let i0 = 0;
+      let i1 = 0;
+      let i2 = 0;
+      let i3 = 0;
+      for (let m = 0; m < n1; m++) {
+        const s = S[row + m];
+        const k = 4 * m;
+        r0 += s * fr[k];
+        r1 += s * fr[k + 1];
+        r2 += s * fr[k + 2];
+        r3 += s * fr[k + 3];
+        i0 += s * fi[k];
+        i1 += s * fi[k + 1];
+        i2 += s * fi[k + 2];
+        i3 += s * fi[k + 3];
+      }
+      const o = 4 * (j - 1);
+      outR[o] = scale * r0;
+      outR[o + 1] = scale * r1;
+      outR[o + 2] = scale * r2;
+      outR[o + 3] = scale * r3;
+      outI[o] = scale * i0;
+      outI[o + 1] = scale * i1;
+      outI[o + 2] = scale * i2;
+      outI[o + 3] = scale * i3;
+    }
+    return;
+  }
   for (let j = 1; j < n1; j++) {
     const row = j * n1;
     let sr = 0;
     let si = 0;
     for (let m = 0; m < n1; m++) {
       const s = S[row + m];
-      const k = m * stride + e;
-      sr += s * fr[k];
-      si += s * fi[k];
+      sr += s * fr[m];
+      si += s * fi[m];
     }
     outR[j - 1] = scale * sr;
     outI[j - 1] = scale * si;
@@ -480,8 +562,13 @@ interface Workspace {
   c: Float64Array;
   dS: Float64Array;
   W: Float64Array;
+  /** dW_ii/dr* per node per channel, [j·N + i] */
+  dW: Float64Array;
   Fr: Float64Array;
   Fi: Float64Array;
+  /** integrals of F from node 0 to nodes 1 … n, [(j − 1)·NN + e] */
+  Ir: Float64Array;
+  Ii: Float64Array;
   /** one Newton matrix per distinct multiplier of Y (the off-diagonal entries share theirs; then reused per row of Ũ) */
   Ar: Float64Array[];
   Ai: Float64Array[];
@@ -516,8 +603,11 @@ function workspace(N: number): Workspace {
     c: new Float64Array(n1),
     dS: new Float64Array(n1),
     W: new Float64Array(n1 * NN),
+    dW: new Float64Array(n1 * N),
     Fr: new Float64Array(n1 * NN),
     Fi: new Float64Array(n1 * NN),
+    Ir: new Float64Array(n * NN),
+    Ii: new Float64Array(n * NN),
     Ar: Array.from({ length: slots }, () => new Float64Array(n * n)),
     Ai: Array.from({ length: slots }, () => new Float64Array(n * n)),
     piv: Array.from({ length: slots }, () => new Int32Array(n)),

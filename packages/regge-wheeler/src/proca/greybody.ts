@@ -5,7 +5,7 @@
  * estimate; the more careful one is returned.
  */
 import { ConvergenceError, type Diagnostics } from '@penumbra/core';
-import { integrateProca, defaultProcaMatchRadius, tortoiseSpan, type ProcaIntegration } from './integrate.js';
+import { integrateProca, defaultProcaMatchRadius, farTruncation, tortoiseSpan, type ProcaIntegration } from './integrate.js';
 import {
   type ProcaGreybodyOptions,
   type ProcaGreybodyProblem,
@@ -151,7 +151,8 @@ export function singleExtrapolationSolve(
     });
     steps += run.steps;
     rhsEvaluations += run.rhsEvaluations;
-    const bound = SINGLE_SOLVE_CHARGE * chargedSteps(run.steps) * stepTol;
+    // the far series' truncation (its last kept terms) enters Γ as an error of the far solutions: charged ten times
+    const bound = SINGLE_SOLVE_CHARGE * chargedSteps(run.steps) * stepTol + 10 * farTruncation(stepTol);
     const relError = Math.max(bound + ROUNDING_PER_ROOT_EVALUATION * Math.sqrt(run.rhsEvaluations), ERROR_FLOOR);
     const next = stepTol * Math.min(0.5, (0.3 * tol) / bound);
     if (relError <= tol || attempt === 2 || !(next >= 1e-16))

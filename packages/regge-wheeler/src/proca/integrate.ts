@@ -12,7 +12,7 @@ import { channelDerivative, ProcaExtrapolation } from './extrapolation.js';
 import { COLLOCATION_FLOOR, carryFarSolutions } from './farPhase.js';
 import type { ProcaIntegrator } from './problem.js';
 import type { SectorModel } from './sectors.js';
-import { farWaveNumbers, horizonSolution, outgoingFarSolution, type SeriesState } from './series.js';
+import { FAR_TOLERANCE, farWaveNumbers, horizonSolution, outgoingFarSolution, type SeriesState } from './series.js';
 
 /** Knobs of one integration (the tests turn them to show Γ does not depend on them). */
 export interface ProcaIntegrationControls {
@@ -31,7 +31,7 @@ export interface ProcaIntegrationControls {
   /**
    * where the far solutions, carried inward in phase form from where their
    * series converges (farPhase.ts), meet the horizon integration: absent,
-   * defaultPhaseRadius where that pays (PHASE_GAIN); a radius, there whenever
+   * defaultPhaseRadius where that pays (carryPays); a radius, there whenever
    * the series starts beyond it; false: match where the series converges.
    * Step tolerances below COLLOCATION_FLOOR, and a collocation that fails,
    * take the direct route.
@@ -86,14 +86,24 @@ const MAX_MATCH_MOVES = 60;
 
 /**
  * Carry the far solutions inward only when the phase the direct route would
- * cross between the two radii exceeds this (radians), for one channel and
- * for the two-channel even sector alike: measured at tol 1e-8 (greybody,
- * interleaved CPU against the direct route, bench/proca-speed.bench.mjs) it
- * was slower at 23 rad (odd l = 1, Mω = 0.3, v = 0.14: 1.17×) and 33 rad
- * (monopole: 1.28×), faster from 46 rad on (odd l = 2, Mω = 0.8, v = 0.14:
- * 0.78×; even l = 2 there: 0.87×; even l = 1, Mω = 0.3, v = 0.05, 48 rad: 0.84×).
+ * cross between the two radii exceeds this many radians per interval the carry
+ * would take (about 1 + ln(r_start / r_end): intervals of about one e-fold in
+ * r), per channel count. Break-even, measured with both routes on the same
+ * modes (tol 1e-8 step tolerance 1.5e-11, interleaved CPU): one channel
+ * carried/direct 0.97 at 6.9 rad per interval (odd l = 1, Mω = 0.3, v = 0.14),
+ * 0.79 at 6.7 (monopole there), 0.85 at 10 (odd l = 2, Mω = 0.8, v = 0.14);
+ * two channels 1.10 at 6.9 (even l = 1, Mω = 0.3, v = 0.14), 1.12 at 9.5
+ * (even l = 1, v = 0.05), 0.92 at 10.0 (even l = 2, Mω = 0.8, v = 0.14), 0.68
+ * at 16.8 (even l = 2, v = 0.05): the even sector's carry solves a 2×2 matrix
+ * Riccati equation.
  */
-const PHASE_GAIN = 40;
+const RADIANS_PER_INTERVAL = { 1: 6, 2: 10 } as const;
+
+/** Whether carrying the far solutions from rStart in to rEnd costs less than integrating across. */
+function carryPays(model: SectorModel, rEnd: number, rStart: number): boolean {
+  if (!(rEnd < rStart)) return false;
+  return farZonePhase(model, rEnd, rStart) > RADIANS_PER_INTERVAL[model.channels] * (1 + Math.log(rStart / rEnd));
+}
 /**
  * The phase-form far zone may stop at the end of a whole interval up to this
  * factor outside the phase radius instead of adding a short last interval
@@ -121,6 +131,27 @@ export function farZonePhase(model: SectorModel, r1: number, r2: number): number
  */
 export function defaultPhaseRadius(model: SectorModel): number {
   return Math.max(10, (20 + 0.5 * (model.L + 2 * model.l + 2)) / model.omega);
+}
+
+/**
+ * Relative size of the last kept far-series term when the matching radius is
+ * laddered: a tenth of the step tolerance, between 1e-16 and 1e-12. The
+ * series then converges at a smaller k∞r than at 1e-16 (measured at tol
+ * 1e-8: matching radii 20–30 % smaller, as many fewer right-hand-side
+ * evaluations, Γ within 1e-10 of tol-1e-11 solves), and the truncation it
+ * leaves is charged in the accumulation bound (greybody.ts).
+ */
+export function farTruncation(stepTolerance: number): number {
+  return Math.min(1e-12, Math.max(FAR_TOLERANCE, 0.1 * stepTolerance));
+}
+
+/** Rungs of the matching-radius ladder; its first rung (ladderStart) is below where the looser target converges. */
+const LADDER_GROWTH = 1.2;
+
+/** First rung of the matching-radius ladder: k∞r about 8 plus the centrifugal allowance. */
+function ladderStart(model: SectorModel): number {
+  const { k } = farWaveNumbers(model);
+  return Math.max(10, (8 + 0.5 * (model.L + 2 * model.l + 2)) / k);
 }
 
 /** First matching radius: far enough that k∞ r ≫ 1 and the centrifugal terms are tame. */
@@ -160,13 +191,18 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   const N = model.channels;
   const x0 = 2 * controls.startOffset;
   const r0 = 2 + x0;
-  let matchRadius = controls.matchRadius ?? defaultProcaMatchRadius(model);
+  // without a radius given, the ladder starts below the default and climbs in finer rungs to where the series
+  // meets a target tied to the step tolerance (its truncation is charged in the caller's bound: farTruncation)
+  const laddered = controls.matchRadius === undefined;
+  let matchRadius = laddered ? ladderStart(model) : (controls.matchRadius as number);
   if (!(matchRadius > 2 * r0)) matchRadius = 2 * r0;
+  const target = laddered ? farTruncation(controls.stepTolerance) : FAR_TOLERANCE;
+  const growth = laddered ? LADDER_GROWTH : MATCH_GROWTH;
   // the channels in turn, stopping at the first whose series does not converge (the radius moves out anyway)
   const farAt = (r: number): SeriesState[] => {
     const out: SeriesState[] = [];
     for (let c = 0; c < N; c++) {
-      const s = outgoingFarSolution(model, c, r);
+      const s = outgoingFarSolution(model, c, r, target);
       out.push(s);
       if (!s.converged) break;
     }
@@ -181,7 +217,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
         failure(model, 'matching radius moved too often', 0, 0),
       );
     }
-    matchRadius *= MATCH_GROWTH;
+    matchRadius *= growth;
     far = farAt(matchRadius);
   }
   const farStartRadius = matchRadius;
@@ -189,10 +225,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   let phaseSteps = 0;
   let phaseEvaluations = 0;
   const inner = controls.phaseRadius === false ? Infinity : Math.max(2 * r0, controls.phaseRadius ?? defaultPhaseRadius(model));
-  const wanted =
-    controls.phaseRadius === undefined
-      ? inner < farStartRadius && farZonePhase(model, inner, farStartRadius) > PHASE_GAIN
-      : inner < farStartRadius;
+  const wanted = controls.phaseRadius === undefined ? carryPays(model, inner, farStartRadius) : inner < farStartRadius;
   if (wanted && controls.stepTolerance >= COLLOCATION_FLOOR) {
     try {
       // on a grid of radii the carry ends where asked; for Γ alone it may end up to PHASE_SLACK further out

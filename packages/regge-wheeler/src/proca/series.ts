@@ -23,7 +23,7 @@ export interface SeriesState extends ChannelState {
 const HORIZON_MAX_TERMS = 1500;
 const FAR_MAX_TERMS = 400;
 const TERM_FLOOR = 1e-17;
-/** Relative size of the last kept term of the asymptotic far-zone series. */
+/** Relative size of the last kept term of the asymptotic far-zone series, unless a caller asks for a looser one. */
 export const FAR_TOLERANCE = 1e-16;
 
 /**
@@ -174,7 +174,7 @@ export function farWaveNumbers(model: SectorModel): { k: number; eta: number } {
  *   2ik n c_n = Σ_{j≥2} [a_j (n+1−j)² + b_j (n+1−j) + C_j] c_{n+1−j}.
  * The incoming solution is its complex conjugate (real coefficients).
  */
-export function outgoingFarSolution(model: SectorModel, start: number, r: number): SeriesState {
+export function outgoingFarSolution(model: SectorModel, start: number, r: number, target = FAR_TOLERANCE): SeriesState {
   const N = model.channels;
   const { k, eta } = farWaveNumbers(model);
   const L = model.L;
@@ -270,7 +270,7 @@ export function outgoingFarSolution(model: SectorModel, start: number, r: number
       size += Math.sqrt(t0 * t0 + t1 * t1) * (n + 1);
       scale += Math.sqrt(w[2 * i] ** 2 + w[2 * i + 1] ** 2);
     }
-    if (size < FAR_TOLERANCE * scale) {
+    if (size < target * scale) {
       if (++smallRun >= 3) {
         converged = true;
         break;
