@@ -8,7 +8,7 @@
 //
 // Timing: warm-up passes over every mode first (4 s of CPU, so that no row
 // pays for the compilation of code the later rows share), then per mode
-// ROUNDS rounds, each timing every function once (cpuMsPerCall, BATCH_MS of
+// ROUNDS rounds, each timing every function once (cpuMs, BATCH_MS of
 // CPU), the order rotated from round to round. A row's times are the least
 // over the rounds (load and collections only ever add CPU time), its ratio
 // the ratio of those; the median over the rounds of massive/massless within
@@ -24,7 +24,7 @@
 // Results: bench/results/<NAME, default massive-dirac>-<date>.json.
 import { readFileSync } from 'node:fs';
 import { greybody } from '@penumbra/flux';
-import { cpuMsPerCall, fmt, median, table, writeResult } from './lib.mjs';
+import { fmt, median, table, writeResult } from './lib.mjs';
 
 const args = process.argv.slice(2);
 const option = (name) => {
@@ -100,13 +100,31 @@ const WARMUP_MS = Number(option('--warmup') ?? 4000);
   }
 }
 
+/**
+ * CPU ms per call of fn over at least minMs: calls in chunks of 8 between
+ * readings of the CPU clock (reading it after every call was measured at a
+ * few per cent of a 50 µs solve).
+ */
+function cpuMs(fn, minMs) {
+  const start = process.cpuUsage();
+  let calls = 0;
+  let used = 0;
+  do {
+    for (let i = 0; i < 8; i++) fn();
+    calls += 8;
+    const d = process.cpuUsage(start);
+    used = (d.user + d.system) / 1e3;
+  } while (used < minMs);
+  return used / calls;
+}
+
 /** Per function, its CPU ms per call in each round (rotated order). */
 function rounds(fns) {
   const t = fns.map(() => []);
   for (let i = 0; i < ROUNDS; i++) {
     for (let k = 0; k < fns.length; k++) {
       const j = (i + k) % fns.length;
-      t[j].push(cpuMsPerCall(fns[j], BATCH_MS, 5000));
+      t[j].push(cpuMs(fns[j], BATCH_MS));
     }
   }
   return t;
