@@ -83,12 +83,13 @@ export function diracFarSeries(mats: M2[], nu: C, c0: V2, nuOther: C, other: V2)
   const particular = (b: V2): V2 => vscale(other, cdiv(dot(lOther, b), cmul(lOe, gap)));
   const c: V2[] = [c0];
   let pending: V2 | null = null; // p_{n−1}, awaiting its multiple of c0
-  const sum = (n: number, from: number): V2 => sumProducts(mats, c, n, from);
+  const st = structured(mats);
+  const sum = (n: number, from: number): V2 => sumProducts(mats, c, n, from, st);
   for (let n = 1; n < N; n++) {
     if (pending) {
       // choose α so that ℓ·b_n = 0, then c_{n−1} = p + α c0
       const shift: C = [rho[0] - n + 1, rho[1]];
-      const t = csub(dot(l, csub2(vscale(pending, shift), mv(mats[1], pending))), dot(l, sumFrom2(mats, c, n)));
+      const t = csub(dot(l, csub2(vscale(pending, shift), mv(mats[1], pending))), dot(l, sum(n, 2)));
       const alpha = cdiv(t, cscale(lc0, n - 1));
       c[n - 1] = vadd(pending, vscale(c0, alpha));
     }
@@ -105,28 +106,66 @@ function csub2(a: V2, b: V2): V2 {
   return [csub(a[0], b[0]), csub(a[1], b[1])];
 }
 
-/** Σ_{j≥2} M_j c_{n−j}. */
-function sumFrom2(mats: M2[], c: V2[], n: number): V2 {
-  return sumProducts(mats, c, n, 2);
+
+/**
+ * The entries of M_j that are not structurally zero, for j ≥ 1 as farMatrices
+ * builds them: M_j = [[−i kd_j, λe − iμe], [λe + iμe, i kd_j]] (real kd, λe, μe);
+ * null when `mats` has another shape.
+ */
+interface Structured {
+  kd: Float64Array;
+  le: Float64Array;
+  me: Float64Array;
+}
+function structured(mats: M2[]): Structured | null {
+  const n = mats.length;
+  const kd = new Float64Array(n);
+  const le = new Float64Array(n);
+  const me = new Float64Array(n);
+  for (let j = 0; j < n; j++) {
+    const [[a, b], [d, e]] = mats[j];
+    if (a[0] !== 0 || e[0] !== 0 || a[1] !== -e[1] || b[0] !== d[0] || b[1] !== -d[1]) return null;
+    kd[j] = e[1];
+    le[j] = d[0];
+    me[j] = d[1];
+  }
+  return { kd, le, me };
 }
 
 /**
  * Σ_{j = from…n} M_j c_{n−j} on scalar locals: the same operations in the same
  * order as summing vadd(s, mv(M_j, c_{n−j})), without the temporaries
- * (building the series was mostly allocation).
+ * (building the series was mostly allocation); with `st`, the products with
+ * M_j's structural zeros left out (the same doubles: x·0 ± y is y).
  */
-function sumProducts(mats: M2[], c: V2[], n: number, from: number): V2 {
+function sumProducts(mats: M2[], c: V2[], n: number, from: number, st: Structured | null = null): V2 {
   let s0r = 0;
   let s0i = 0;
   let s1r = 0;
   let s1i = 0;
-  for (let j = from; j <= n && j < mats.length; j++) {
-    const [[a, b], [d, e]] = mats[j];
-    const [v, w] = c[n - j];
-    s0r += a[0] * v[0] - a[1] * v[1] + (b[0] * w[0] - b[1] * w[1]);
-    s0i += a[0] * v[1] + a[1] * v[0] + (b[0] * w[1] + b[1] * w[0]);
-    s1r += d[0] * v[0] - d[1] * v[1] + (e[0] * w[0] - e[1] * w[1]);
-    s1i += d[0] * v[1] + d[1] * v[0] + (e[0] * w[1] + e[1] * w[0]);
+  if (st !== null) {
+    const { kd, le, me } = st;
+    for (let j = from; j <= n && j < mats.length; j++) {
+      const cj = c[n - j];
+      const v = cj[0];
+      const w = cj[1];
+      const k = kd[j];
+      const l = le[j];
+      const u = me[j];
+      s0r += k * v[1] + (l * w[0] + u * w[1]);
+      s0i += -k * v[0] + (l * w[1] - u * w[0]);
+      s1r += l * v[0] - u * v[1] - k * w[1];
+      s1i += l * v[1] + u * v[0] + k * w[0];
+    }
+  } else {
+    for (let j = from; j <= n && j < mats.length; j++) {
+      const [[a, b], [d, e]] = mats[j];
+      const [v, w] = c[n - j];
+      s0r += a[0] * v[0] - a[1] * v[1] + (b[0] * w[0] - b[1] * w[1]);
+      s0i += a[0] * v[1] + a[1] * v[0] + (b[0] * w[1] + b[1] * w[0]);
+      s1r += d[0] * v[0] - d[1] * v[1] + (e[0] * w[0] - e[1] * w[1]);
+      s1i += d[0] * v[1] + d[1] * v[0] + (e[0] * w[1] + e[1] * w[0]);
+    }
   }
   return [
     [s0r, s0i],
