@@ -17,9 +17,10 @@
 // converges only at ~1e4 M) are summarised apart.
 //
 // Run after `npm run build`:
-//   node bench/massive-dirac.bench.mjs [--baseline DIR] [--worst] [--rounds N] [--name NAME]
+//   node bench/massive-dirac.bench.mjs [--baseline DIR] [--worst] [--cold] [--rounds N] [--name NAME]
 // --baseline DIR: also times DIR's build (e.g. /tmp/base-main, its own massless
 //   and massive solves) in the same rounds, and prints its ratios beside ours.
+// --cold: no call repeats the problem of the one before (see `varied`).
 // --worst: only the modes that were at or above 2 in the last recorded runs, more rounds.
 // Results: bench/results/<NAME, default massive-dirac>-<date>.json.
 import { readFileSync } from 'node:fs';
@@ -76,14 +77,26 @@ const massiveProblem = (c, kappaSign) => ({
   omega: c.omega,
 });
 
+/**
+ * With --cold, every call moves ω by a few parts in 1e7 (a cycle of 97), so
+ * that no solve repeats the one before it: what a sum over frequencies pays
+ * (the spin-weighted eigenvalue then warm-starts, λ and the far series are
+ * solved afresh); without, each call repeats the same problem.
+ */
+const cold = args.includes('--cold');
+function varied(problem) {
+  if (!cold) return () => problem;
+  let i = 0;
+  return () => ({ ...problem, omega: problem.omega * (1 + 3e-7 * (i++ % 97)) });
+}
+
 /** The functions timed for one mode: [massless, κ+, κ−] of this build, then the same of the baseline. */
 function functions(c) {
   const builds = baseline ? [greybody, baseline.greybody] : [greybody];
-  return builds.flatMap((g) => [
-    () => g(masslessProblem(c)),
-    () => g(massiveProblem(c, 1)),
-    () => g(massiveProblem(c, -1)),
-  ]);
+  return builds.flatMap((g) => {
+    const [p0, p1, p2] = [masslessProblem(c), massiveProblem(c, 1), massiveProblem(c, -1)].map(varied);
+    return [() => g(p0()), () => g(p1()), () => g(p2())];
+  });
 }
 
 // Warm-up: passes over every function of every mode for WARMUP_MS of CPU (measured: the optimising compiler
@@ -193,7 +206,7 @@ for (const c of CASES) {
   }
 }
 console.log(
-  `${ROUNDS} rounds of ${BATCH_MS} ms CPU per function and mode after ${WARMUP_MS} ms of warm-up; times: least over the rounds; ratio = massive/massless of those; paired median = median over the rounds of massive/massless in one round${baseline ? `; baseline ${baselineDir}` : ''}`,
+  `${cold ? 'cold (ω moved by parts in 1e7 from call to call); ' : ''}${ROUNDS} rounds of ${BATCH_MS} ms CPU per function and mode after ${WARMUP_MS} ms of warm-up; times: least over the rounds; ratio = massive/massless of those; paired median = median over the rounds of massive/massless in one round${baseline ? `; baseline ${baselineDir}` : ''}`,
 );
 console.log(
   table(
@@ -272,7 +285,7 @@ for (const r of fixture.values) {
 console.log(
   `accuracy against the 30-digit reference (test/fixtures/massive-dirac, ${accuracy.length} rows, tol 1e-8): largest true error ${fmt(Math.max(...accuracy.map((a) => a.error)))}, largest true error / relError ${fmt(Math.max(...accuracy.map((a) => a.ratio)))}`,
 );
-const name = option('--name') ?? (worstOnly ? 'massive-dirac-worst' : 'massive-dirac');
+const name = option('--name') ?? `massive-dirac${worstOnly ? '-worst' : ''}${cold ? '-cold' : ''}`;
 console.log(
-  `written ${writeResult(name, { rounds: ROUNDS, batchMs: BATCH_MS, baseline: baselineDir ?? null, records, accuracy })}`,
+  `written ${writeResult(name, { cold, rounds: ROUNDS, batchMs: BATCH_MS, baseline: baselineDir ?? null, records, accuracy })}`,
 );

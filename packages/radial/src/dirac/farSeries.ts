@@ -173,13 +173,26 @@ function sumProducts(mats: M2[], c: V2[], n: number, from: number, st: Structure
   ];
 }
 
+/** The far series summed at one radius. */
+export interface DiracFarValue {
+  value: V2;
+  /** the last term summed relative to the sum */
+  lastTerm: number;
+  /** false when the sum ran out of coefficients while its terms still decreased and were above 1e-17 of it */
+  complete: boolean;
+}
+
+/** Terms below this share of the sum end it: the rest of an asymptotic series cannot move the sum in double precision. */
+const NEGLIGIBLE = 1e-17;
+
 /**
- * The series at r, summed to its smallest term; `lastTerm` is that term
- * relative to the sum. On scalar locals (sizes compared squared): the solve
- * sums it at up to a dozen radii, and the temporaries of the complex helpers
- * were a sixth of a near-threshold solve, in garbage collection.
+ * The series at r, summed to its smallest term or to the first below
+ * NEGLIGIBLE of the sum; `lastTerm` is that term relative to the sum. On
+ * scalar locals (sizes compared squared): the solve sums it at up to a dozen
+ * radii, and the temporaries of the complex helpers were a sixth of a
+ * near-threshold solve, in garbage collection.
  */
-export function evaluateDiracFar(series: DiracFarSeries, r: number): { value: V2; lastTerm: number } {
+export function evaluateDiracFar(series: DiracFarSeries, r: number): DiracFarValue {
   const cs = series.coefficients;
   let s0r = 0;
   let s0i = 0;
@@ -188,6 +201,8 @@ export function evaluateDiracFar(series: DiracFarSeries, r: number): { value: V2
   let pw = 1;
   let prev = Infinity;
   let last = Infinity;
+  let complete = false;
+  const negligible2 = NEGLIGIBLE * NEGLIGIBLE;
   for (let n = 0; n < cs.length; n++) {
     const c0 = cs[n][0];
     const c1 = cs[n][1];
@@ -196,7 +211,10 @@ export function evaluateDiracFar(series: DiracFarSeries, r: number): { value: V2
     const t1r = c1[0] * pw;
     const t1i = c1[1] * pw;
     const size = t0r * t0r + t0i * t0i + (t1r * t1r + t1i * t1i);
-    if (size > prev && size > 0) break;
+    if (size > prev && size > 0) {
+      complete = true;
+      break;
+    }
     s0r += t0r;
     s0i += t0i;
     s1r += t1r;
@@ -204,6 +222,10 @@ export function evaluateDiracFar(series: DiracFarSeries, r: number): { value: V2
     prev = size;
     last = size;
     pw /= r;
+    if (size < negligible2 * (s0r * s0r + s0i * s0i + (s1r * s1r + s1i * s1i))) {
+      complete = true;
+      break;
+    }
   }
   const lr = Math.log(r);
   const { nu, rho } = series;
@@ -218,6 +240,7 @@ export function evaluateDiracFar(series: DiracFarSeries, r: number): { value: V2
       [s1r * pr - s1i * pi, s1r * pi + s1i * pr],
     ],
     lastTerm: Math.sqrt(last) / Math.max(norm, 1e-300),
+    complete,
   };
 }
 
@@ -226,7 +249,7 @@ export function evaluateDiracFar(series: DiracFarSeries, r: number): { value: V2
  * P → (P̄₋, P̄₊) for real ω, μ, λ, and so do the leading terms
  * (1, −q)e^{−ik∞r} ↦ (−q, 1)e^{ik∞r}, so u_out = (ū_in,₋, ū_in,₊) term by term.
  */
-export function mirrorDiracFar(f: { value: V2; lastTerm: number }): { value: V2; lastTerm: number } {
+export function mirrorDiracFar(f: DiracFarValue): DiracFarValue {
   const [[ar, ai], [br, bi]] = f.value;
   return {
     value: [
@@ -234,5 +257,6 @@ export function mirrorDiracFar(f: { value: V2; lastTerm: number }): { value: V2;
       [ar, -ai],
     ],
     lastTerm: f.lastTerm,
+    complete: f.complete,
   };
 }
