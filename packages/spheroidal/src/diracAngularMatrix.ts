@@ -58,10 +58,11 @@ export function diracAngularMatrix(m: number, aOmega: number, aMu: number, count
   return H;
 }
 
-/** The matrix H as a symmetric band of half-width 3: rows[i][k] = H[i][i + k], k = 0…3. */
+/** The matrix H as a symmetric band of half-width 3: H[i][i + k] = data[4i + k], k = 0…3. */
 export interface DiracBand {
   size: number;
-  rows: Float64Array[];
+  /** the upper band, row by row (one array: a typed array per row was a visible share of a cold λ in allocation) */
+  data: Float64Array;
   /** max row sum of |H| (bounds every eigenvalue) */
   norm: number;
 }
@@ -69,10 +70,10 @@ export interface DiracBand {
 /** H in band storage (same basis and elements as diracAngularMatrix). */
 export function diracAngularBand(m: number, aOmega: number, aMu: number, count: number): DiracBand {
   const size = 2 * count;
-  const rows = Array.from({ length: size }, () => new Float64Array(4));
+  const data = new Float64Array(4 * size);
   const j0 = Math.abs(m);
   const set = (i: number, k: number, v: number) => {
-    if (k >= i && k - i <= 3) rows[i][k - i] = v;
+    if (k >= i && k - i <= 3) data[4 * i + k - i] = v;
   };
   for (let p = 0; p < count; p++) {
     for (let q = Math.max(0, p - 1); q <= Math.min(count - 1, p + 1); q++) {
@@ -88,10 +89,10 @@ export function diracAngularBand(m: number, aOmega: number, aMu: number, count: 
   let norm = 0;
   for (let i = 0; i < size; i++) {
     let sum = 0;
-    for (let k = 0; k < 4; k++) sum += Math.abs(rows[i][k]) + (k > 0 && i - k >= 0 ? Math.abs(rows[i - k][k]) : 0);
+    for (let k = 0; k < 4; k++) sum += Math.abs(data[4 * i + k]) + (k > 0 && i - k >= 0 ? Math.abs(data[4 * (i - k) + k]) : 0);
     norm = Math.max(norm, sum);
   }
-  return { size, rows, norm };
+  return { size, data, norm };
 }
 
 /** Scratch of countBelow (d and the rows of L), grown on demand: bisection calls it ~100 times per λ. */
@@ -115,11 +116,11 @@ export function countBelow(band: DiracBand, sigma: number): number {
     const li = i * w;
     for (let jj = Math.max(0, i - w); jj < i; jj++) {
       // L[i][jj] = (H[i][jj] − Σ_{k<jj} L[i][k] L[jj][k] d_k)/d_jj
-      let v = band.rows[jj][i - jj];
+      let v = band.data[4 * jj + i - jj];
       for (let k = Math.max(0, i - w); k < jj; k++) v -= l[li + i - 1 - k] * l[jj * w + jj - 1 - k] * d[k];
       l[li + i - 1 - jj] = v / d[jj];
     }
-    let di = band.rows[i][0] - sigma;
+    let di = band.data[4 * i] - sigma;
     for (let k = Math.max(0, i - w); k < i; k++) di -= l[li + i - 1 - k] * l[li + i - 1 - k] * d[k];
     if (di === 0) di = -tiny;
     if (di < 0) negatives++;
