@@ -19,7 +19,7 @@ export { type ResolvedOptions, RADIAL_DEFAULTS, resolveRadialOptions, resolveTwo
 export { validateProblem } from './problem.js';
 export { type ErrorBudget, singleSolveErrorEstimate, singleSolveMessage } from './diagnostics.js';
 export { diracRhs } from './dirac/equation.js';
-export { type DiracFarSeries, diracFarSeries, evaluateDiracFar, farMatrices } from './dirac/farSeries.js';
+export { type DiracFarSeries, type FarExpansion, diracFarSeries, evaluateDiracFar, farExpansion } from './dirac/farSeries.js';
 export { type DiracHorizonStart, diracHorizonStart } from './dirac/horizonSeries.js';
 export type { C, V2, M2 } from './dirac/complex2.js';
 export {

@@ -125,12 +125,21 @@ export function carryFarRatio(p: DiracRadialProblem, ladder: readonly number[], 
       // roots of β w² − 2i kd w − α = 0: w = (i kd ± √(αβ − kd²))/β, αβ = (λ² + μ²r²)/Δ real;
       // the wave's is the smaller one (→ −μ/(ω + k∞) at infinity)
       const disc = aRe[j] * aRe[j] + aIm[j] * aIm[j] - kd[j] * kd[j];
-      const root: C = disc >= 0 ? [Math.sqrt(disc), 0] : [0, Math.sqrt(-disc)];
-      const w1 = divide([root[0], kd[j] + root[1]], [aRe[j], bIm[j]]);
-      const w2 = divide([-root[0], kd[j] - root[1]], [aRe[j], bIm[j]]);
-      const w = w1[0] * w1[0] + w1[1] * w1[1] <= w2[0] * w2[0] + w2[1] * w2[1] ? w1 : w2;
-      wRe[j] = w[0];
-      wIm[j] = w[1];
+      const rootRe = disc >= 0 ? Math.sqrt(disc) : 0;
+      const rootIm = disc >= 0 ? 0 : Math.sqrt(-disc);
+      // w₁,₂ = (±rootRe + i(kd ± rootIm))/β, written out (a pair of arrays per node was most of the carry's garbage)
+      const yr = aRe[j];
+      const yi = bIm[j];
+      const yd = yr * yr + yi * yi;
+      const x1i = kd[j] + rootIm;
+      const w1r = (rootRe * yr + x1i * yi) / yd;
+      const w1i = (x1i * yr - rootRe * yi) / yd;
+      const x2i = kd[j] - rootIm;
+      const w2r = (-rootRe * yr + x2i * yi) / yd;
+      const w2i = (x2i * yr + rootRe * yi) / yd;
+      const first = w1r * w1r + w1i * w1i <= w2r * w2r + w2i * w2i;
+      wRe[j] = first ? w1r : w2r;
+      wIm[j] = first ? w1i : w2i;
     }
     evaluations += n;
     let previous = Infinity;
@@ -185,9 +194,4 @@ export function carryFarRatio(p: DiracRadialProblem, ladder: readonly number[], 
     errors.push(error);
   }
   return { ratios, errors, evaluations };
-}
-
-function divide(x: C, y: C): C {
-  const d = y[0] * y[0] + y[1] * y[1];
-  return [(x[0] * y[0] + x[1] * y[1]) / d, (x[1] * y[0] - x[0] * y[1]) / d];
 }

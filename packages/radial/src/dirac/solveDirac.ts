@@ -12,7 +12,7 @@ import { INTEGRATORS, makeStepper, type IntegratorName } from '../integrators.js
 import type { Complex2 } from '../solution.js';
 import { type C, type V2, cabs, cdiv, cmul, csub } from './complex2.js';
 import { type DiracRadialProblem, diracKernel, diracRhs } from './equation.js';
-import { type DiracFarSeries, diracFarSeries, evaluateDiracFar, farMatrices, mirrorDiracFar } from './farSeries.js';
+import { type DiracFarSeries, diracFarSeries, evaluateDiracFar, farExpansion, mirrorDiracFar } from './farSeries.js';
 import { carryFarRatio, carryLadder } from './farRiccati.js';
 import { diracHorizonStart } from './horizonSeries.js';
 
@@ -97,7 +97,7 @@ function farSeriesIn(p: DiracRadialProblem, kInf: number, terms: number): DiracF
   const l = lastFar?.p;
   if (
     l !== undefined &&
-    (lastFar as { sIn: DiracFarSeries }).sIn.coefficients.length >= terms - 1 &&
+    (lastFar as { sIn: DiracFarSeries }).sIn.count >= terms - 1 &&
     l.hole.a === p.hole.a &&
     l.hole.mass === p.hole.mass &&
     l.omega === p.omega &&
@@ -107,7 +107,7 @@ function farSeriesIn(p: DiracRadialProblem, kInf: number, terms: number): DiracF
   ) {
     return (lastFar as { sIn: DiracFarSeries }).sIn;
   }
-  const mats = farMatrices(p, terms);
+  const mats = farExpansion(p, terms);
   const q = p.mu / (p.omega + kInf);
   const cIn: V2 = [
     [1, 0],
@@ -148,7 +148,7 @@ export function solveMassiveDiracRadial(p: DiracRadialProblem, options: DiracRad
   let R = firstRadius;
   let fIn = evaluateDiracFar(sIn, R);
   while (fIn.lastTerm > FAR_ACCEPT && R < 1e9) {
-    if (!fIn.complete && sIn.coefficients.length < FAR_TERMS - 1) {
+    if (!fIn.complete && sIn.count < FAR_TERMS - 1) {
       // the short series ran out before its smallest term: the full one decides at this radius
       sIn = farSeriesIn(p, kInf, FAR_TERMS);
       fIn = evaluateDiracFar(sIn, R);
@@ -215,7 +215,7 @@ export function solveMassiveDiracRadial(p: DiracRadialProblem, options: DiracRad
     seriesRadius: R,
     carrySteps: carry?.steps ?? 0,
     horizonTerms: start.terms,
-    farTerms: sIn.coefficients.length + 1,
+    farTerms: sIn.count + 1,
     farTruncation,
   };
   if (r < rMatch || farTruncation > 1e-10) {
