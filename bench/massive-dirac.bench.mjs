@@ -260,7 +260,9 @@ summary(
   );
 }
 if (baseline) {
-  const moved = Math.max(...records.map((r) => Math.abs(r.gamma / r.gammaBaseline - 1) / Math.max(r.relError, r.relErrorBaseline)));
+  const moved = Math.max(
+    ...records.map((r) => Math.abs(r.gamma / r.gammaBaseline - 1) / Math.max(r.relError, r.relErrorBaseline)),
+  );
   console.log(`Γ against the baseline: largest |Γ/Γ_baseline − 1| / max(relError) ${fmt(moved)}`);
 }
 
