@@ -9,7 +9,8 @@
 // Timing: warm-up passes over every mode first (4 s of CPU, so that no row
 // pays for the compilation of code the later rows share), then per mode
 // ROUNDS rounds, each timing every function once (cpuMs, BATCH_MS of
-// CPU), the order rotated from round to round. A row's times are the least
+// CPU), the order rotated from round to round, half of them in a first sweep
+// over the modes and the rest in a second. A row's times are the least
 // over the rounds (load and collections only ever add CPU time), its ratio
 // the ratio of those; the median over the rounds of massive/massless within
 // one round is recorded beside it (pairedRatio).
@@ -33,7 +34,7 @@ const option = (name) => {
   return i >= 0 ? args[i + 1] : undefined;
 };
 const worstOnly = args.includes('--worst');
-const ROUNDS = Number(option('--rounds') ?? (worstOnly ? 15 : 7));
+const ROUNDS = Number(option('--rounds') ?? (worstOnly ? 16 : 8));
 const BATCH_MS = 10;
 const baselineDir = option('--baseline');
 const baseline = baselineDir ? await import(`${baselineDir}/packages/flux/dist/index.js`) : undefined;
@@ -131,18 +132,31 @@ function cpuMs(fn, minMs) {
   return used / calls;
 }
 
-/** Per function, its CPU ms per call in each round (rotated order). */
-function rounds(fns) {
+/**
+ * Appends to t[j] the CPU ms per call of fns[j] in each of `count` rounds
+ * (order rotated from round to round, starting at round `first`).
+ */
+function rounds(fns, t, first, count) {
   // a discarded batch of each first (measured: without it the first mode timed after the warm-up still cost up to 1.6× more)
   for (const f of fns) cpuMs(f, BATCH_MS);
-  const t = fns.map(() => []);
-  for (let i = 0; i < ROUNDS; i++) {
+  for (let i = first; i < first + count; i++) {
     for (let k = 0; k < fns.length; k++) {
       const j = (i + k) % fns.length;
       t[j].push(cpuMs(fns[j], BATCH_MS));
     }
   }
-  return t;
+}
+// The rounds of every mode in two sweeps over the list, so that a disturbance of a few seconds (the compiler
+// still busy with the first modes, a burst of load) reaches only part of any row's rounds.
+const times = CASES.map((c) => functions(c).map(() => []));
+const firstSweep = Math.ceil(ROUNDS / 2);
+for (const [first, count] of [
+  [0, firstSweep],
+  [firstSweep, ROUNDS - firstSweep],
+]) {
+  CASES.forEach((c, i) => {
+    rounds(functions(c), times[i], first, count);
+  });
 }
 /** Median over the rounds of the ratio of two functions' times in the same round. */
 const pairedRatio = (num, den) => median(num.map((x, i) => x / den[i]));
@@ -151,9 +165,9 @@ const bestRatio = (num, den) => Math.min(...num) / Math.min(...den);
 
 const rows = [];
 const records = [];
-for (const c of CASES) {
+for (const [caseIndex, c] of CASES.entries()) {
   const nMassless = greybody(masslessProblem(c)).diagnostics.rhsEvaluations;
-  const t = rounds(functions(c));
+  const t = times[caseIndex];
   for (const [kappaSign, index] of [
     [1, 1],
     [-1, 2],
