@@ -12,6 +12,7 @@
  * that copying and its garbage were about 60 % of a greybody solve;
  * docs/method.md, section 7).
  */
+import type { DiracKernel } from './dirac/equation.js';
 import type { AdvanceResult, Stepper } from './integrators.js';
 import type { EquationKernel, Rhs } from './rhs.js';
 import { type FailureContext, stepperFailure } from './stepperFailure.js';
@@ -116,6 +117,7 @@ class GbsLoop implements Stepper {
     readonly rhs: Rhs,
     readonly kernel: EquationKernel | undefined,
     readonly failure: FailureContext,
+    readonly dirac: DiracKernel | undefined = undefined,
   ) {
     // ODEX's first order guess from the tolerance.
     this.kStart = Math.max(2, Math.min(KM - 1, Math.floor(-(Math.log(tol + 1e-40) / Math.LN10) * 0.6 + 1.5)));
@@ -123,6 +125,25 @@ class GbsLoop implements Stepper {
 
   /** f(x, y) into out. */
   evaluate(out: Float64Array, yy: Float64Array, x: number): void {
+    const dk = this.dirac;
+    if (dk !== undefined) {
+      // diracRhs (dirac/equation.ts), the same operations in the same order
+      dk.counter.evaluations++;
+      const delta = (x - dk.rPlus) * (x - dk.rMinus);
+      const sq = Math.sqrt(delta);
+      const kd = ((x * x + dk.a2) * dk.omega - dk.am) / delta;
+      const g = dk.lambda / sq;
+      const h = (dk.mu * x) / sq;
+      const y0 = yy[0],
+        y1 = yy[1],
+        y2 = yy[2],
+        y3 = yy[3];
+      out[0] = kd * y1 + g * y2 + h * y3;
+      out[1] = -kd * y0 + g * y3 - h * y2;
+      out[2] = g * y0 - h * y1 - kd * y3;
+      out[3] = g * y1 + h * y0 + kd * y2;
+      return;
+    }
     const kn = this.kernel;
     if (kn === undefined) {
       this.rhs(out, yy, x);
@@ -253,6 +274,71 @@ class GbsLoop implements Stepper {
     return true;
   }
 
+  /** The midpoint sweep of line j (step hj = this.hj) with the massive Dirac pair inline; false when the stability check rejects. */
+  sweepDirac(j: number, m: number): boolean {
+    const hj = this.hj;
+    const dk = this.dirac as DiracKernel;
+    const { rPlus, rMinus, a2: aSquared, am, omega, mu, lambda } = dk;
+    const { y, dz, dy } = this;
+    const x = this.x;
+    let a0 = y[0],
+      a1 = y[1],
+      a2 = y[2],
+      a3 = y[3];
+    let b0 = y[0] + hj * dz[0],
+      b1 = y[1] + hj * dz[1],
+      b2 = y[2] + hj * dz[2],
+      b3 = y[3] + hj * dz[3];
+    let d0 = 0,
+      d1 = 0,
+      d2 = 0,
+      d3 = 0;
+    for (let mm = 1; mm <= m + 1; mm++) {
+      // the last pass is the final smoothing evaluation at x + h
+      const r = mm <= m ? x + hj * mm : x + this.h;
+      const delta = (r - rPlus) * (r - rMinus);
+      const sq = Math.sqrt(delta);
+      const kd = ((r * r + aSquared) * omega - am) / delta;
+      const g = lambda / sq;
+      const h = (mu * r) / sq;
+      d0 = kd * b1 + g * b2 + h * b3;
+      d1 = -kd * b0 + g * b3 - h * b2;
+      d2 = g * b0 - h * b1 - kd * b3;
+      d3 = g * b1 + h * b0 + kd * b2;
+      if (mm > m) break;
+      const s0 = a0,
+        s1 = a1,
+        s2 = a2,
+        s3 = a3;
+      a0 = b0;
+      a1 = b1;
+      a2 = b2;
+      a3 = b3;
+      b0 = s0 + 2 * hj * d0;
+      b1 = s1 + 2 * hj * d1;
+      b2 = s2 + 2 * hj * d2;
+      b3 = s3 + 2 * hj * d3;
+      if (mm <= 1 && j <= 2) {
+        dy[0] = d0;
+        dy[1] = d1;
+        dy[2] = d2;
+        dy[3] = d3;
+        if (this.unstable()) {
+          dk.counter.evaluations += mm;
+          return false;
+        }
+      }
+    }
+    dk.counter.evaluations += m + 1;
+    const t = this.t;
+    const tj = j * N;
+    t[tj] = (a0 + b0 + hj * d0) / 2;
+    t[tj + 1] = (a1 + b1 + hj * d1) / 2;
+    t[tj + 2] = (a2 + b2 + hj * d2) / 2;
+    t[tj + 3] = (a3 + b3 + hj * d3) / 2;
+    return true;
+  }
+
   /** The midpoint sweep of line j (step hj = this.hj) through the generic right-hand side; false when the stability check rejects. */
   sweepGeneric(j: number, m: number): boolean {
     const { y, dz, dy, yh1, yh2, rhs, x, hj } = this;
@@ -282,7 +368,12 @@ class GbsLoop implements Stepper {
     const nj = NJ[j];
     // hj passes through a field: as an argument of the (not inlined) sweep it was boxed, a heap number per line
     this.hj = this.h / nj;
-    const swept = this.kernel === undefined ? this.sweepGeneric(j, nj - 1) : this.sweepKernel(j, nj - 1);
+    const swept =
+      this.dirac !== undefined
+        ? this.sweepDirac(j, nj - 1)
+        : this.kernel === undefined
+          ? this.sweepGeneric(j, nj - 1)
+          : this.sweepKernel(j, nj - 1);
     if (!swept) {
       this.atov = true;
       this.h *= REDUCTION;
@@ -525,6 +616,13 @@ class GbsLoop implements Stepper {
  * integration from r to rEnd with fresh step and order control, as one
  * `odex` solve is; past `maxSteps` it throws a ConvergenceError quoting `failure`.
  */
-export function gbsStepper(rhs: Rhs, tol: number, maxSteps: number, failure: FailureContext, kernel?: EquationKernel): Stepper {
-  return new GbsLoop(tol, maxSteps, rhs, kernel, failure);
+export function gbsStepper(
+  rhs: Rhs,
+  tol: number,
+  maxSteps: number,
+  failure: FailureContext,
+  kernel?: EquationKernel,
+  dirac?: DiracKernel,
+): Stepper {
+  return new GbsLoop(tol, maxSteps, rhs, kernel, failure, dirac);
 }

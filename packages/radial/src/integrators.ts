@@ -20,6 +20,7 @@
 import ode45 from 'ode45-cash-karp';
 import * as odexModule from 'odex';
 import type { OdexSolverClass } from 'odex';
+import type { DiracKernel } from './dirac/equation.js';
 import { gbsStepper } from './gbsStepper.js';
 import type { EquationKernel, EvaluationCounter, Rhs } from './rhs.js';
 import { type FailureContext, stepperFailure } from './stepperFailure.js';
@@ -75,6 +76,8 @@ export interface StepperSpec {
   maxSteps: number;
   /** the same right-hand side as packed coefficients: 'gbs' then evaluates it inline (faster, the same doubles) */
   kernel?: EquationKernel;
+  /** the massive Dirac pair as constants: 'gbs' then evaluates it inline (faster, the same doubles) */
+  dirac?: DiracKernel;
   /** the caller's method, quoted by a failure */
   method: string;
   /** the counter `rhs` (and `kernel`) increment, quoted by a failure */
@@ -98,12 +101,13 @@ export function makeStepper({
   rPlus,
   maxSteps,
   kernel,
+  dirac,
   method,
   counter,
   origin = 0,
 }: StepperSpec): Stepper {
   const failure: FailureContext = { method, counter, origin };
-  if (integrator === 'gbs') return gbsStepper(rhs, tol, maxSteps, failure, kernel);
+  if (integrator === 'gbs') return gbsStepper(rhs, tol, maxSteps, failure, kernel, dirac);
   return integrator === 'odex' ? odexStepper(rhs, tol, maxSteps, failure) : cashKarpStepper(rhs, tol, rPlus, maxSteps, failure);
 }
 

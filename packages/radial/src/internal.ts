@@ -18,8 +18,16 @@ export { type Leg, type Segment, type RawSample, integrateLeg } from './shooting
 export { type ResolvedOptions, RADIAL_DEFAULTS, resolveRadialOptions, resolveTwoSidedOptions } from './options.js';
 export { validateProblem } from './problem.js';
 export { type ErrorBudget, singleSolveErrorEstimate, singleSolveMessage } from './diagnostics.js';
-export { diracRhs } from './dirac/equation.js';
-export { type DiracFarSeries, diracFarSeries, evaluateDiracFar, farMatrices } from './dirac/farSeries.js';
+export { type DiracKernel, diracKernel, diracRhs } from './dirac/equation.js';
+export {
+  type DiracFarSeries,
+  type DiracFarValue,
+  type FarExpansion,
+  diracFarSeries,
+  evaluateDiracFar,
+  farExpansion,
+  mirrorDiracFar,
+} from './dirac/farSeries.js';
 export { type DiracHorizonStart, diracHorizonStart } from './dirac/horizonSeries.js';
 export type { C, V2, M2 } from './dirac/complex2.js';
 export {

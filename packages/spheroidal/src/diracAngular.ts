@@ -65,16 +65,53 @@ function check(problem: DiracAngularProblem): DiracAngularProblem {
  * λ of the massive Dirac angular pair for (j, m, kappaSign) at (aω, aμ).
  * Throws InputError for a bad problem, ConvergenceError if λ still moves by
  * more than 4e-16 relative when the truncation grows by 12 values of j.
+ * At aω = aμ = 0, λ = κ exactly; a repeat of a mode's last (aω, aμ) returns
+ * the stored result.
  *
  * @example diracAngularEigenvalue({ j: 0.5, m: 0.5, aOmega: 0.3, aMu: 0.1, kappaSign: -1 }).lambda
  */
 export function diracAngularEigenvalue(problem: DiracAngularProblem): DiracAngularEigenvalue {
   const { j, m, aOmega, aMu, kappaSign } = check(problem);
+  const key = modeKey(j, m, kappaSign);
+  const previous = lastSolved.get(key);
+  if (previous && previous.aOmega === aOmega && previous.aMu === aMu) return previous.result;
+  const result = aOmega === 0 && aMu === 0 ? exact(kappaSign * (j + 0.5)) : solve(j, m, aOmega, aMu, kappaSign);
+  if (!lastSolved.has(key) && lastSolved.size >= CACHE_LIMIT) lastSolved.clear();
+  lastSolved.set(key, { aOmega, aMu, result });
+  return result;
+}
+
+/** Last solved point of each (j, m, kappaSign): an exact repeat returns it (results never depend on it). */
+const lastSolved = new Map<number, { aOmega: number; aMu: number; result: DiracAngularEigenvalue }>();
+const CACHE_LIMIT = 4096;
+
+/** A number per (j, m, kappaSign): 2j ≤ 200 and |2m| ≤ 2j are integers. */
+function modeKey(j: number, m: number, kappaSign: 1 | -1): number {
+  return ((2 * j * 512 + (2 * m + 256)) * 2 + (kappaSign > 0 ? 1 : 0)) | 0;
+}
+
+/** At a = 0 the pair is the spherical Dirac operator: λ = κ = kappaSign·(j + ½) exactly. */
+function exact(kappa: number): DiracAngularEigenvalue {
+  return {
+    lambda: kappa,
+    diagnostics: {
+      method: 'exact',
+      steps: 0,
+      rhsEvaluations: 0,
+      errorEstimate: 0,
+      message: 'exact: λ = κ = kappaSign·(j + ½) at aω = aμ = 0',
+      truncation: 1,
+      truncationChange: 0,
+    },
+  };
+}
+
+function solve(j: number, m: number, aOmega: number, aMu: number, kappaSign: 1 | -1): DiracAngularEigenvalue {
   const rank = j - Math.abs(m);
   const strength = Math.abs(aOmega) + Math.abs(aMu);
   let count = Math.ceil(rank + 2 * strength + 12);
   let evaluations = 0;
-  const solve = (n: number, guess: [number, number]) => {
+  const solveAt = (n: number, guess: [number, number]) => {
     const band = diracAngularBand(m, aOmega, aMu, n);
     // n negative and n positive eigenvalues at a = 0; rank from zero outwards.
     const index = kappaSign > 0 ? n + rank : n - 1 - rank;
@@ -86,11 +123,11 @@ export function diracAngularEigenvalue(problem: DiracAngularProblem): DiracAngul
   // of norm ≤ max(|aω|, |aμ|): by Weyl's inequality λ lies that close to its a = 0 value κ = kappaSign·(j + ½).
   const kappa = kappaSign * (j + 0.5);
   const reach = Math.max(Math.abs(aOmega), Math.abs(aMu)) * (1 + 1e-12) + 1e-12;
-  let previous = solve(count, [kappa - reach, kappa + reach]);
+  let previous = solveAt(count, [kappa - reach, kappa + reach]);
   for (let attempt = 1; attempt <= 8; attempt++) {
     // λ moves by little when the truncation grows: bisect from a narrow bracket about the last value (widened if it misses).
     const near = 64 * Number.EPSILON * Math.max(1, Math.abs(previous.lambda)) + 1e-15 * previous.norm;
-    const next = solve(count + 12, [previous.lambda - near, previous.lambda + near]);
+    const next = solveAt(count + 12, [previous.lambda - near, previous.lambda + near]);
     const change = Math.abs(next.lambda - previous.lambda);
     const rounding = 8 * Number.EPSILON * next.norm;
     if (change <= Math.max(rounding, 4e-16 * Math.abs(next.lambda))) {

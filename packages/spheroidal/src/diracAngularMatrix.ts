@@ -58,10 +58,11 @@ export function diracAngularMatrix(m: number, aOmega: number, aMu: number, count
   return H;
 }
 
-/** The matrix H as a symmetric band of half-width 3: rows[i][k] = H[i][i + k], k = 0…3. */
+/** The matrix H as a symmetric band of half-width 3: H[i][i + k] = data[4i + k], k = 0…3. */
 export interface DiracBand {
   size: number;
-  rows: Float64Array[];
+  /** the upper band, row by row (one array: a typed array per row was a visible share of a cold λ in allocation) */
+  data: Float64Array;
   /** max row sum of |H| (bounds every eigenvalue) */
   norm: number;
 }
@@ -69,10 +70,10 @@ export interface DiracBand {
 /** H in band storage (same basis and elements as diracAngularMatrix). */
 export function diracAngularBand(m: number, aOmega: number, aMu: number, count: number): DiracBand {
   const size = 2 * count;
-  const rows = Array.from({ length: size }, () => new Float64Array(4));
+  const data = new Float64Array(4 * size);
   const j0 = Math.abs(m);
   const set = (i: number, k: number, v: number) => {
-    if (k >= i && k - i <= 3) rows[i][k - i] = v;
+    if (k >= i && k - i <= 3) data[4 * i + k - i] = v;
   };
   for (let p = 0; p < count; p++) {
     for (let q = Math.max(0, p - 1); q <= Math.min(count - 1, p + 1); q++) {
@@ -88,52 +89,56 @@ export function diracAngularBand(m: number, aOmega: number, aMu: number, count: 
   let norm = 0;
   for (let i = 0; i < size; i++) {
     let sum = 0;
-    for (let k = 0; k < 4; k++) sum += Math.abs(rows[i][k]) + (k > 0 && i - k >= 0 ? Math.abs(rows[i - k][k]) : 0);
+    for (let k = 0; k < 4; k++) sum += Math.abs(data[4 * i + k]) + (k > 0 && i - k >= 0 ? Math.abs(data[4 * (i - k) + k]) : 0);
     norm = Math.max(norm, sum);
   }
-  return { size, rows, norm };
+  return { size, data, norm };
 }
 
-/** Scratch of countBelow (d and the rows of L), grown on demand: bisection calls it ~100 times per λ. */
-let scratchD = new Float64Array(0);
-let scratchL = new Float64Array(0);
-
-/** Number of eigenvalues below σ (Sylvester's law of inertia on the LDLᵀ of H − σI). */
+/**
+ * Number of eigenvalues below σ (Sylvester's law of inertia on the LDLᵀ of
+ * H − σI). With half-width 3, row i of L has L[i][i−3…i−1] only, so the
+ * factorisation runs on a window of three rows in locals (the operations of
+ * the textbook band loop, in its order; rows before the first read as L = 0,
+ * d = 1, which subtract exact zeros): bisection calls it ~30 times per λ.
+ */
 export function countBelow(band: DiracBand, sigma: number): number {
   const n = band.size;
-  const w = 3;
-  if (scratchD.length < n) {
-    scratchD = new Float64Array(n);
-    scratchL = new Float64Array(n * w);
-  }
-  // L stored by rows: l[i·w + k] = L[i][i − 1 − k]; every entry read was written earlier in this call
-  const d = scratchD;
-  const l = scratchL;
-  let negatives = 0;
+  const h = band.data;
   const tiny = Number.EPSILON * band.norm * 1e-3 + Number.MIN_VALUE;
-  for (let i = 0; i < n; i++) {
-    const li = i * w;
-    for (let jj = Math.max(0, i - w); jj < i; jj++) {
-      // L[i][jj] = (H[i][jj] − Σ_{k<jj} L[i][k] L[jj][k] d_k)/d_jj
-      let v = band.rows[jj][i - jj];
-      for (let k = Math.max(0, i - w); k < jj; k++) v -= l[li + i - 1 - k] * l[jj * w + jj - 1 - k] * d[k];
-      l[li + i - 1 - jj] = v / d[jj];
-    }
-    let di = band.rows[i][0] - sigma;
-    for (let k = Math.max(0, i - w); k < i; k++) di -= l[li + i - 1 - k] * l[li + i - 1 - k] * d[k];
-    if (di === 0) di = -tiny;
-    if (di < 0) negatives++;
-    d[i] = di;
-  }
+  let negatives = 0;
+  // d[i−1], d[i−2], d[i−3]; L[i−1][i−3], L[i−1][i−2]; L[i−2][i−3]
+  let d1 = 1,
+    d2 = 1,
+    d3 = 1;
+  let prevB = 0,
+    prevC = 0,
+    prevPrevC = 0;
   // ln|det(H − σ)| = Σ ln|d_i|, from a product rescaled as it grows or shrinks
   let product = 1;
   let logScale = 0;
   for (let i = 0; i < n; i++) {
-    product *= Math.abs(d[i]);
+    const o = 4 * i;
+    const a = i >= 3 ? h[o - 12 + 3] / d3 : 0;
+    const b = i >= 2 ? (h[o - 8 + 2] - a * prevPrevC * d3) / d2 : 0;
+    const c = i >= 1 ? (h[o - 4 + 1] - a * prevB * d3 - b * prevC * d2) / d1 : 0;
+    let di = h[o] - sigma;
+    di -= a * a * d3;
+    di -= b * b * d2;
+    di -= c * c * d1;
+    if (di === 0) di = -tiny;
+    if (di < 0) negatives++;
+    product *= Math.abs(di);
     if (product > 1e150 || product < 1e-150) {
       logScale += Math.log(product);
       product = 1;
     }
+    d3 = d2;
+    d2 = d1;
+    d1 = di;
+    prevPrevC = prevC;
+    prevB = b;
+    prevC = c;
   }
   lastLogDeterminant = logScale + Math.log(product);
   return negatives;

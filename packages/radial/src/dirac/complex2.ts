@@ -1,7 +1,9 @@
 /**
  * Minimal complex arithmetic for the massive Dirac series: numbers as
- * [re, im] pairs, 2-vectors and 2×2 matrices of them. The series are built
- * once per solve, so clarity wins over speed here.
+ * [re, im] pairs, 2-vectors and 2×2 matrices of them, for what a solve does
+ * a handful of times (the series' leading terms, the amplitudes), where
+ * clarity wins over speed; the loops per series term or per step are written
+ * out on scalars in the same operations (each helper allocates its result).
  */
 
 /** A complex number [re, im]. */

@@ -9,6 +9,7 @@
  * and |P₊|² − |P₋|² is independent of r (the conserved current).
  */
 import type { KerrHole } from '@penumbra/kerr';
+import type { EvaluationCounter } from '../rhs.js';
 
 /** One massive Dirac radial problem: hole, frequency, azimuthal number, mass μ and separation constant λ. */
 export interface DiracRadialProblem {
@@ -38,4 +39,29 @@ export function diracRhs(p: DiracRadialProblem): (dy: Float64Array | number[], y
     dy[2] = g * y[0] - h * y[1] - kd * y[3];
     dy[3] = g * y[1] + h * y[0] + kd * y[2];
   };
+}
+
+/**
+ * The pair's constants as the extrapolation loop reads them to evaluate the
+ * right-hand side inline (gbsStepper.ts): the same operations as diracRhs,
+ * so the same doubles, without two calls per evaluation.
+ */
+export interface DiracKernel {
+  rPlus: number;
+  rMinus: number;
+  /** a² */
+  a2: number;
+  /** a·m */
+  am: number;
+  omega: number;
+  mu: number;
+  lambda: number;
+  /** counts the evaluations */
+  counter: EvaluationCounter;
+}
+
+/** The kernel of the pair of `p`, counting in `counter`. */
+export function diracKernel(p: DiracRadialProblem, counter: EvaluationCounter): DiracKernel {
+  const { hole, omega, m, mu, lambda } = p;
+  return { rPlus: hole.rPlus, rMinus: hole.rMinus, a2: hole.a * hole.a, am: hole.a * m, omega, mu, lambda, counter };
 }

@@ -19,8 +19,8 @@
  * correction stops contracting (a turning point near) or whose mismatch or
  * unresolved tail exceeds the tolerance, and the ODE takes over there.
  */
-import { chebyshevRule, chebyshevTail } from '../chebyshev.js';
-import { type C, cabs } from './complex2.js';
+import { chebyshevDerivative, chebyshevRule, chebyshevTail } from '../chebyshev.js';
+import type { C } from './complex2.js';
 import type { DiracRadialProblem } from './equation.js';
 
 /** The carried ratio down the ladder and what it took. */
@@ -125,12 +125,21 @@ export function carryFarRatio(p: DiracRadialProblem, ladder: readonly number[], 
       // roots of β w² − 2i kd w − α = 0: w = (i kd ± √(αβ − kd²))/β, αβ = (λ² + μ²r²)/Δ real;
       // the wave's is the smaller one (→ −μ/(ω + k∞) at infinity)
       const disc = aRe[j] * aRe[j] + aIm[j] * aIm[j] - kd[j] * kd[j];
-      const root: C = disc >= 0 ? [Math.sqrt(disc), 0] : [0, Math.sqrt(-disc)];
-      const w1 = divide([root[0], kd[j] + root[1]], [aRe[j], bIm[j]]);
-      const w2 = divide([-root[0], kd[j] - root[1]], [aRe[j], bIm[j]]);
-      const w = cabs(w1) <= cabs(w2) ? w1 : w2;
-      wRe[j] = w[0];
-      wIm[j] = w[1];
+      const rootRe = disc >= 0 ? Math.sqrt(disc) : 0;
+      const rootIm = disc >= 0 ? 0 : Math.sqrt(-disc);
+      // w₁,₂ = (±rootRe + i(kd ± rootIm))/β, written out (a pair of arrays per node was most of the carry's garbage)
+      const yr = aRe[j];
+      const yi = bIm[j];
+      const yd = yr * yr + yi * yi;
+      const x1i = kd[j] + rootIm;
+      const w1r = (rootRe * yr + x1i * yi) / yd;
+      const w1i = (x1i * yr - rootRe * yi) / yd;
+      const x2i = kd[j] - rootIm;
+      const w2r = (-rootRe * yr + x2i * yi) / yd;
+      const w2i = (x2i * yr + rootRe * yi) / yd;
+      const first = w1r * w1r + w1i * w1i <= w2r * w2r + w2i * w2i;
+      wRe[j] = first ? w1r : w2r;
+      wIm[j] = first ? w1i : w2i;
     }
     evaluations += n;
     let previous = Infinity;
@@ -138,17 +147,11 @@ export function carryFarRatio(p: DiracRadialProblem, ladder: readonly number[], 
     let scale = 0;
     for (let pass = 1; pass <= MAX_PASSES; pass++) {
       let largest = 0;
+      chebyshevDerivative(rule, wRe, wIm, 0, dRe, dIm);
       for (let i = 0; i < n; i++) {
-        let sr = 0;
-        let si = 0;
-        for (let j = 0; j < n; j++) {
-          const d = rule.D[i * n + j];
-          sr += d * wRe[j];
-          si += d * wIm[j];
-        }
         const inv = 1 / (half * r[i]); // dw/dr = (dw/dt)/(half · r)
-        dRe[i] = sr * inv;
-        dIm[i] = si * inv;
+        dRe[i] *= inv;
+        dIm[i] *= inv;
       }
       scale = 0;
       for (let i = 0; i < n; i++) {
@@ -170,10 +173,13 @@ export function carryFarRatio(p: DiracRadialProblem, ladder: readonly number[], 
         const ci = (ri * gr - rr * gi) / gg;
         wRe[i] = yr + cr;
         wIm[i] = yi + ci;
-        largest = Math.max(largest, Math.hypot(cr, ci));
-        scale = Math.max(scale, Math.hypot(wRe[i], wIm[i]));
+        // squared moduli (|w| is of order 1): Math.hypot here was half the carry's cost
+        largest = Math.max(largest, cr * cr + ci * ci);
+        scale = Math.max(scale, wRe[i] * wRe[i] + wIm[i] * wIm[i]);
       }
       evaluations += n;
+      largest = Math.sqrt(largest);
+      scale = Math.sqrt(scale);
       last = largest;
       if (largest <= Math.max(1e-15 * scale, STOP * tol)) break;
       if (pass > 2 && largest > 0.5 * previous) break; // stalled: rounding or a turning point
@@ -188,9 +194,4 @@ export function carryFarRatio(p: DiracRadialProblem, ladder: readonly number[], 
     errors.push(error);
   }
   return { ratios, errors, evaluations };
-}
-
-function divide(x: C, y: C): C {
-  const d = y[0] * y[0] + y[1] * y[1];
-  return [(x[0] * y[0] + x[1] * y[1]) / d, (x[1] * y[0] - x[0] * y[1]) / d];
 }

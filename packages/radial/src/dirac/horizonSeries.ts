@@ -18,6 +18,8 @@ export interface DiracHorizonStart {
 }
 
 const MAX_TERMS = 400;
+/** Coefficients of h and g computed first (enough for 2·FIRST_COUNT − 1 terms). */
+const FIRST_COUNT = 24;
 /** The coefficients c_n, shared by every call (each writes c_n before reading it). */
 const COEFFICIENTS = new Float64Array(4 * (MAX_TERMS + 1));
 
@@ -29,14 +31,21 @@ export function diracHorizonStart(p: DiracRadialProblem, fraction: number): Dira
   const { hole, omega, m, mu, lambda } = p;
   const { a, rPlus, rMinus } = hole;
   const d = rPlus - rMinus;
-  const count = MAX_TERMS / 2 + 2;
   // h(x) = 2K(r₊ + x)/(x + d), g∓(x) = 2(λ ∓ iμ(r₊ + x))/√(x + d)
   const kPlus = omega * (rPlus * rPlus + a * a) - a * m;
-  const inv = seriesPower([d, 1], -1, count);
-  const h = seriesProduct([2 * kPlus, 4 * omega * rPlus, 2 * omega], inv, count);
-  const root = seriesPower([d, 1], -0.5, count);
-  const gRe = seriesProduct([2 * lambda], root, count);
-  const gIm = seriesProduct([2 * mu * rPlus, 2 * mu], root, count);
+  const expansions = (count: number) => {
+    const inv = seriesPower([d, 1], -1, count);
+    const root = seriesPower([d, 1], -0.5, count);
+    return {
+      h: seriesProduct([2 * kPlus, 4 * omega * rPlus, 2 * omega], inv, count),
+      gRe: seriesProduct([2 * lambda], root, count),
+      gIm: seriesProduct([2 * mu * rPlus, 2 * mu], root, count),
+    };
+  };
+  // Their first coefficients do not depend on the count: a short set first (the series typically converges in
+  // 20–40 terms, which read the first half of it), all MAX_TERMS/2 + 2 once a term needs more.
+  let count = FIRST_COUNT;
+  let { h, gRe, gIm } = expansions(count);
   const alpha = h[0];
   // c_n at [4n …] as (Re P₊, Im P₊, Re P₋, Im P₋): the operations of the complex helpers, in their order, on scalars
   const c = COEFFICIENTS;
@@ -53,6 +62,10 @@ export function diracHorizonStart(p: DiracRadialProblem, fraction: number): Dira
   let pw = 1;
   let small = 0;
   for (let n = 1; n <= MAX_TERMS; n++) {
+    if (n >> 1 >= count) {
+      count = MAX_TERMS / 2 + 2;
+      ({ h, gRe, gIm } = expansions(count));
+    }
     let bP0 = 0;
     let bP1 = 0;
     let bM0 = 0;
@@ -97,8 +110,14 @@ export function diracHorizonStart(p: DiracRadialProblem, fraction: number): Dira
     sumP1 += c[o + 1] * pw;
     sumM0 += c[o + 2] * pw;
     sumM1 += c[o + 3] * pw;
-    const size = Math.hypot(c[o], c[o + 1], c[o + 2], c[o + 3]) * pw;
-    small = size < 1e-17 * Math.hypot(sumP0, sumP1, sumM0, sumM1) ? small + 1 : 0;
+    // squared sizes of the term and the sum (Math.hypot of four was a visible share of the series)
+    const t0 = c[o] * pw;
+    const t1 = c[o + 1] * pw;
+    const t2 = c[o + 2] * pw;
+    const t3 = c[o + 3] * pw;
+    const size2 = t0 * t0 + t1 * t1 + (t2 * t2 + t3 * t3);
+    const sum2 = sumP0 * sumP0 + sumP1 * sumP1 + (sumM0 * sumM0 + sumM1 * sumM1);
+    small = size2 < 1e-34 * sum2 ? small + 1 : 0;
     if (small >= 2) {
       const phase = cexp([0, -alpha * Math.log(y)]);
       return {
