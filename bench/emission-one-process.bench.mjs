@@ -1,6 +1,6 @@
 // Emission totals of the four spins at a = 0.9 to 1e-6 in ONE fresh Node process, against the 2 s
-// target, and the same four totals from the CLI (`penumbra emission --a 0.9 --spin S --tol 1e-6
-// --json`, one process per spin, as a user runs it).
+// target, and the same four totals from the CLI: `penumbra emission --a 0.9 --spin 0,2,1/2,1 --tol
+// 1e-6 --json` (one process; builds without spin lists skip it) and `--spin S`, one process per spin.
 //   npx tsc -b && BASE=/path/to/baseline/checkout node bench/emission-one-process.bench.mjs [--runs 5]
 // Why a single process: a fresh lane pays 4–5× a warm run for its first totals (V8 compiles the
 // solver on its compiler threads), so two lanes pay that twice, while one process keeps its main
@@ -47,14 +47,15 @@ function library(root) {
   return { wall, cpu: parsed.cpuSeconds, out: parsed.out };
 }
 
-function cliSpin(root, spin) {
+/** One CLI process for the given spins; null when the build rejects the spin list (exit code 2). */
+function cliRun(root, spins) {
   const cli = [
     join(root, 'packages/cli/bin/penumbra.js'),
     'emission',
     '--a',
     '0.9',
     '--spin',
-    CLI_SPIN[spin],
+    spins.map((spin) => CLI_SPIN[spin]).join(','),
     '--tol',
     '1e-6',
     '--json',
@@ -66,6 +67,7 @@ function cliSpin(root, spin) {
   const t0 = performance.now();
   const r = spawnSync(cmd, cmdArgs, { cwd: benchDir, encoding: 'utf8' });
   const wall = (performance.now() - t0) / 1000;
+  if (r.status === 2 && spins.length > 1) return null;
   if (r.status !== 0) throw new Error(r.stderr);
   const cpu = timeTool
     ? readFileSync(timeFile, 'utf8')
@@ -76,16 +78,18 @@ function cliSpin(root, spin) {
         .reduce((s, x) => s + Number(x), 0)
     : Number.NaN;
   const json = JSON.parse(r.stdout);
-  return { wall, cpu, power: json.power.value };
+  return { wall, cpu, powers: (spins.length > 1 ? json : [json]).map((o) => o.power.value) };
 }
 
 function cli(root) {
-  const per = SPINS.map((spin) => cliSpin(root, spin));
+  const list = cliRun(root, SPINS);
+  const per = SPINS.map((spin) => cliRun(root, [spin]));
   return {
     wall: per.reduce((s, p) => s + p.wall, 0),
     cpu: per.reduce((s, p) => s + p.cpu, 0),
     perSpinWall: per.map((p) => p.wall),
-    powers: per.map((p) => p.power),
+    powers: per.map((p) => p.powers[0]),
+    list,
   };
 }
 
@@ -99,7 +103,8 @@ for (let i = 0; i < runs; i++) {
     .map((k) => {
       const l = series[k].lib.at(-1);
       const c = series[k].cli.at(-1);
-      return `${builds[k].name}: library wall ${l.wall.toFixed(2)} s CPU ${l.cpu.toFixed(2)} s; CLI ×4 wall ${c.wall.toFixed(2)} s CPU ${c.cpu.toFixed(2)} s`;
+      const list = c.list ? `CLI list wall ${c.list.wall.toFixed(2)} s CPU ${c.list.cpu.toFixed(2)} s; ` : '';
+      return `${builds[k].name}: library wall ${l.wall.toFixed(2)} s CPU ${l.cpu.toFixed(2)} s; ${list}CLI ×4 wall ${c.wall.toFixed(2)} s CPU ${c.cpu.toFixed(2)} s`;
     })
     .join(' | ');
   console.log(`run ${i + 1}: ${line}`);
@@ -116,6 +121,11 @@ builds.forEach((b, k) => {
   console.log(
     `  library, one process: wall ${summary(s.lib.map((r) => r.wall))} (least / 2 s target ${(Math.min(...s.lib.map((r) => r.wall)) / 2).toFixed(2)}); CPU all threads ${summary(s.lib.map((r) => r.cpu))}`,
   );
+  const lists = s.cli.map((r) => r.list).filter((r) => r);
+  if (lists.length > 0)
+    console.log(
+      `  CLI, --spin 0,2,1/2,1 in one process: wall ${summary(lists.map((r) => r.wall))} (least / 2 s target ${(Math.min(...lists.map((r) => r.wall)) / 2).toFixed(2)}); CPU ${summary(lists.map((r) => r.cpu))}`,
+    );
   console.log(
     `  CLI, one process per spin, summed: wall ${summary(s.cli.map((r) => r.wall))}; CPU ${summary(s.cli.map((r) => r.cpu))}`,
   );
@@ -134,7 +144,11 @@ if (builds.length === 2) {
 }
 const last = series[0].lib.at(-1).out;
 for (const [j, o] of last.entries()) {
-  const others = [...series.map((s) => s.lib.at(-1).out[j].power), ...series.map((s) => s.cli.at(-1).powers[j])];
+  const others = series.flatMap((s) => [
+    s.lib.at(-1).out[j].power,
+    s.cli.at(-1).powers[j],
+    ...(s.cli.at(-1).list ? [s.cli.at(-1).list.powers[j]] : []),
+  ]);
   const same = others.every((p) => p === o.power);
   console.log(
     `  spin ${o.spin}: power·M² ${o.power.toExponential(8)} ± ${o.powerError.toExponential(1)}${same ? ' (identical in every build, library and CLI)' : ` (differs: ${others.map((p) => p.toExponential(12)).join(', ')})`}`,
