@@ -9,7 +9,6 @@
 import { rmSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { build } from 'esbuild';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 const cli = join(root, 'packages', 'cli');
@@ -18,6 +17,15 @@ const outdir = join(cli, 'bundle');
 const EXTERNAL = ['@penumbra/grid', '@penumbra/plot', '@penumbra/explorer', 'esbuild', '@resvg/resvg-js', 'playwright-core'];
 
 rmSync(outdir, { recursive: true, force: true });
+let build;
+try {
+  ({ build } = await import('esbuild'));
+} catch (error) {
+  if (error?.code !== 'ERR_MODULE_NOT_FOUND') throw error;
+  // Without the dev dependencies the executable simply runs dist/.
+  console.log('bundle-cli: esbuild not installed; the executable runs packages/cli/dist/');
+  process.exit(0);
+}
 const result = await build({
   entryPoints: [join(cli, 'dist', 'main.js')],
   bundle: true,
