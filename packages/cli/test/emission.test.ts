@@ -86,6 +86,22 @@ describe('penumbra emission', () => {
     expect(csv[0]).toBe('quantity,value,unit,relError [1],inaccurate');
     expect(csv[2]).toBe(`power,${json.power.value},1/M^2,${json.power.relError},${json.power.inaccurate}`);
   });
+  test('a spin list runs each spin in one process: JSON an array of the single-spin objects, CSV the single-spin rows led by the spin (consistency, common practice, no source)', async () => {
+    const singles = await Promise.all(
+      ['1/2', '0'].map(async (spin) =>
+        JSON.parse((await run('emission', '--a', '0.3', '--spin', spin, '--tol', '1e-3', '--json')).stdout),
+      ),
+    );
+    const both = await run('emission', '--a', '0.3', '--spin', '1/2,0', '--tol', '1e-3', '--json');
+    expect(both.code).toBe(0);
+    expect(JSON.parse(both.stdout)).toEqual(singles);
+    const csv = (await run('emission', '--a', '0.3', '--spin', '1/2,0', '--tol', '1e-3', '--csv')).stdout.trim().split('\n');
+    expect(csv[0]).toBe('spin [1],quantity,value,unit,relError [1],inaccurate');
+    expect(csv).toHaveLength(7);
+    expect(csv[5]).toBe(`0,power,${singles[1].power.value},1/M^2,${singles[1].power.relError},${singles[1].power.inaccurate}`);
+    const bad = await run('emission', '--a', '0', '--spin', '0,', '--tol', '1e-3');
+    expect(bad.code).toBe(2);
+  });
   test('bad input gives one readable line and exit code 2', async () => {
     for (const argv of [
       ['emission', '--a', '0', '--spin', '3'],

@@ -12,7 +12,6 @@
  *   ⟨v_i|cosθ|v_j⟩ = ½[(L_i + L_j − 1) X_ij + 2m δ_ij] / ((i + ½)(j + ½)),
  *   ⟨u_i|sinθ|v_j⟩ = ½[(L_i − L_j − 1) X_ij + 2m δ_ij] / (j + ½).
  */
-import { Matrix } from 'ml-matrix';
 import { cosDiagonal, cosOffDiagonal } from './coupling.js';
 
 const S = 0.5;
@@ -38,26 +37,6 @@ export function sinElementMixed(ji: number, jj: number, m: number): number {
   return (0.5 * ((Li - Lj - 1) * cosElement(ji, jj, m) + (ji === jj ? 2 * m : 0))) / (jj + 0.5);
 }
 
-/**
- * The truncated matrix H in the interleaved basis (u_{j0}, v_{j0}, u_{j0+1}, …),
- * j0 = |m|, with `count` values of j (size 2·count).
- */
-export function diracAngularMatrix(m: number, aOmega: number, aMu: number, count: number): Matrix {
-  const j0 = Math.abs(m);
-  const H = new Matrix(2 * count, 2 * count);
-  for (let p = 0; p < count; p++) {
-    for (let q = Math.max(0, p - 1); q <= Math.min(count - 1, p + 1); q++) {
-      const ji = j0 + p;
-      const jj = j0 + q;
-      H.set(2 * p, 2 * q, -aMu * cosElement(ji, jj, m));
-      H.set(2 * p + 1, 2 * q + 1, aMu * cosElementLowered(ji, jj, m));
-      H.set(2 * p, 2 * q + 1, (p === q ? -(jj + 0.5) : 0) + aOmega * sinElementMixed(ji, jj, m));
-      H.set(2 * q + 1, 2 * p, H.get(2 * p, 2 * q + 1));
-    }
-  }
-  return H;
-}
-
 /** The matrix H as a symmetric band of half-width 3: H[i][i + k] = data[4i + k], k = 0…3. */
 export interface DiracBand {
   size: number;
@@ -67,7 +46,10 @@ export interface DiracBand {
   norm: number;
 }
 
-/** H in band storage (same basis and elements as diracAngularMatrix). */
+/**
+ * The truncated H in band storage, in the interleaved basis (u_{j0}, v_{j0},
+ * u_{j0+1}, …), j0 = |m|, with `count` values of j (size 2·count).
+ */
 export function diracAngularBand(m: number, aOmega: number, aMu: number, count: number): DiracBand {
   const size = 2 * count;
   const data = new Float64Array(4 * size);

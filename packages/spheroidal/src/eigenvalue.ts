@@ -207,7 +207,7 @@ function solveNonzero(
     const seedVector = previous.spectral?.vector ?? null;
     spectral = solveWarm(s, m, c, lFirst, stride, index, size, guess, seedVector, tally, false, band, checkIndex);
   }
-  // A warm start that lands on a neighbouring eigenvalue fell back on the dense solve (tens of µs, ml-matrix);
+  // A warm start that lands on a neighbouring eigenvalue fell back on the dense solve (tens of µs, tred2/tql2);
   // up to |c| = BISECTION_FALLBACK_C the bisection seed settles to the same doubles (bench/angular-cost.bench.mjs)
   // at a fraction of the cost. Beyond it the settled value was seen to depend on the seed (8 of 2,400 random
   // problems with |c| > 20, up to 4e-9 relative: the bisection's Sylvester counts are then presumably not

@@ -13,5 +13,6 @@ export {
 export { type Band, basisLayout, buildBand } from './band.js';
 export { type ComplexBand, buildComplexBand } from './complexBand.js';
 export type { Tally } from './diagnostics.js';
-export { diracAngularMatrix, cosElementLowered, sinElementMixed } from './diracAngularMatrix.js';
+export { cosElementLowered, sinElementMixed } from './diracAngularMatrix.js';
 export { spheroidalEigenvalueOfValidMode } from './eigenvalue.js';
+export { type SymmetricEigen, symmetricEigen } from './symmetricEigen.js';

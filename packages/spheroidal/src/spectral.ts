@@ -1,9 +1,9 @@
 import { ConvergenceError } from '@penumbra/core';
-import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { type Band, BandFactor, bandMultiply, bandQuadratic, buildBand } from './band.js';
 import { cosDiagonal, cosOffDiagonal } from './coupling.js';
 import { failureDiagnostics, type Tally } from './diagnostics.js';
 import { sphericalA0 } from './quantum.js';
+import { symmetricEigen } from './symmetricEigen.js';
 
 /** Trailing coefficients of a normalised eigenvector must be below this. */
 export const TAIL_TOLERANCE = 1e-16;
@@ -97,7 +97,7 @@ function finishSolution(
   return { A, vector, band, dAdc, residual: Math.sqrt(r2) / band.norm, iterations, method };
 }
 
-/** Dense symmetric eigen-solve (ml-matrix) of the truncated matrix: the cold start. */
+/** Dense symmetric eigen-solve (tred2/tql2) of the truncated matrix: the cold start. */
 export function solveDense(
   s: number,
   m: number,
@@ -112,25 +112,23 @@ export function solveDense(
   for (let attempt = 0; attempt < 8; attempt++) {
     const band = buildBand(s, m, c, lFirst, stride, size);
     tally.evaluations++;
-    const K = new Matrix(size, size);
+    const K = new Float64Array(size * size);
     for (let i = 0; i < size; i++) {
-      K.set(i, i, band.d0[i]);
+      K[i * size + i] = band.d0[i];
       if (i + 1 < size) {
-        K.set(i, i + 1, band.d1[i]);
-        K.set(i + 1, i, band.d1[i]);
+        K[i * size + i + 1] = band.d1[i];
+        K[(i + 1) * size + i] = band.d1[i];
       }
       if (i + 2 < size) {
-        K.set(i, i + 2, band.d2[i]);
-        K.set(i + 2, i, band.d2[i]);
+        K[i * size + i + 2] = band.d2[i];
+        K[(i + 2) * size + i] = band.d2[i];
       }
     }
-    const evd = new EigenvalueDecomposition(K, { assumeSymmetric: true });
-    const values = evd.realEigenvalues;
-    const order = values.map((_, i) => i).sort((p, q) => values[p] - values[q]);
+    const evd = symmetricEigen(K, size);
+    const values = evd.values;
+    const order = Array.from(values, (_, i) => i).sort((p, q) => values[p] - values[q]);
     const column = order[index];
-    const V = evd.eigenvectorMatrix;
-    const vector = new Float64Array(size);
-    for (let i = 0; i < size; i++) vector[i] = V.get(i, column);
+    const vector = evd.vectors.slice(column * size, column * size + size);
     if (tailIsConverged(vector, size, stride)) return finishSolution(band, vector, attempt + 1, 'spectral-dense');
     size = Math.ceil(size * 1.5) + 8;
   }

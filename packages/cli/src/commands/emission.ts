@@ -1,4 +1,4 @@
-import type { FieldSpin } from '@penumbra/core';
+import type { FieldSpin, Table } from '@penumbra/core';
 import {
   DEFAULT_CONFINEMENT_SCALE_GEV,
   KNOWN_SPECIES,
@@ -11,7 +11,8 @@ import { UsageError } from '../command.js';
 import { runContentEmission } from '../contentEmission.js';
 import { parseContentList } from '../contentOption.js';
 import { isInaccurate, warnInaccurate } from '../accuracy.js';
-import type { Command } from '../command.js';
+import type { CliIO, Command } from '../command.js';
+import type { MassUnit } from '@penumbra/kerr';
 import { limitsHelp } from '../limits.js';
 import { emissionText, spectrumTable, totalsTable } from '../emissionOutput.js';
 import { parseFieldSpin, parseMassOption, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
@@ -36,7 +37,10 @@ T_H > the confinement scale, pions only below it (common practice, no source).
 
 Options:
   --a A         the hole's spin parameter a/M (|a/M| ≤ 0.99999; default 0, non-rotating)
-  --spin S      field spin: 0, 1/2, 1, 2 (not with --content)
+  --spin S      field spin: 0, 1/2, 1, 2 (not with --content), or a comma-separated list
+                (e.g. 0,1/2,1,2): each spin in turn in one process (faster than one run per
+                spin); --json then gives an array of the per-spin objects, --csv a leading
+                spin column
   --content LIST  comma-separated species: ${Object.keys(KNOWN_SPECIES).join(', ')},
                 standard-model (all but scalar), or a user species NAME:SPIN:DOF[:MASS_GEV]
                 (e.g. dark-scalar:0:1:0.01); needs --mass and --unit
@@ -107,79 +111,117 @@ Examples:
     }
     if (values.energy !== undefined) throw new UsageError('--energy goes with --content (use --omega for one field)');
     if (values['confinement-scale'] !== undefined) throw new UsageError('--confinement-scale goes with --content');
-    const spin = parseFieldSpin('--spin', requireOption(values.spin, '--spin', 'the field spin'));
+    const spins = requireOption(values.spin, '--spin', 'the field spin')
+      .split(',')
+      .map((text) => parseFieldSpin('--spin', text));
     const a = values.a === undefined ? 0 : parseNumber('--a', values.a);
     const tol = values.tol === undefined ? 1e-6 : parseNumber('--tol', values.tol);
     const given = parseMassOption(values);
-    const mass = given?.mass;
-    const unit = given?.unit ?? 'g';
     const grid =
       values.omega === undefined ? undefined : parseRange('--omega', values.omega, { min: 0, exclusive: true, maxCount: 10_000 });
-
-    let modes = 0;
-    const totals = emissionTotals(
-      { hole: { a }, field: { spin: spin as FieldSpin } },
-      {
-        tol,
-        onMode: () => {
-          if (++modes % 10 === 0) io.stderr(`emission: ${modes} modes integrated\n`);
-        },
-      },
-    );
-    const progress = grid ? progressReporter(io, 'emission spectrum: frequencies done', grid.count) : undefined;
-    const spectrum = grid
-      ? emissionSpectrum(
-          { hole: { a }, field: { spin: spin as FieldSpin }, grid: grid.values },
-          { tol, onPoint: (done) => progress?.(done) },
-        )
-      : undefined;
-    const pick = (x: { value: number; relError: number }) => ({
-      value: x.value,
-      relError: x.relError,
-      inaccurate: isInaccurate(x.relError),
-    });
-    const physical =
-      mass === undefined
-        ? undefined
-        : toPhysicalRates(
-            { numberRate: totals.numberRate.value, power: totals.power.value, torque: totals.torque.value },
-            mass,
-            unit,
-          );
-    const rows = spectrum?.points.map((p) => ({
-      omega: p.omega,
-      number: p.number,
-      energy: p.energy,
-      torque: p.torque,
-      relError: p.relError,
-      lMax: p.lMax,
-      inaccurate: isInaccurate(p.relError),
-      ...(mass === undefined ? {} : toPhysicalSpectrum(p, mass, unit)),
-    }));
-
-    warnInaccurate(io, [
-      { what: 'number rate', relError: totals.numberRate.relError },
-      { what: 'power', relError: totals.power.relError },
-      { what: 'torque', relError: totals.torque.relError },
-      ...(rows ?? []).map((r) => ({ what: `spectrum at Mω = ${r.omega}`, relError: r.relError })),
-    ]);
-    writeOutput(io, format, {
-      json: () => ({
+    // Several spins run in this one process: the solver is compiled once, not once per process.
+    const results = spins.map((spin) =>
+      emissionOfSpin(io, {
         spin,
         a,
-        units: 'geometric, per degree of freedom: numberRate × 1/M, power × 1/M², torque × 1/M (G = c = ħ = 1)',
-        numberRate: pick(totals.numberRate),
-        power: pick(totals.power),
-        torque: pick(totals.torque),
-        ...(physical ? { mass, unit, physical } : {}),
-        diagnostics: totals.diagnostics,
-        ...(rows ? { spectrum: rows } : {}),
+        tol,
+        mass: given?.mass,
+        unit: given?.unit ?? 'g',
+        grid: grid?.values,
+        label: spins.length > 1 ? `s = ${spin} ` : '',
       }),
-      csv: () => (rows ? spectrumTable(rows, mass !== undefined) : totalsTable(totals, physical)),
-      text: () =>
-        `Hawking emission per degree of freedom, s = ${spin}, a = ${a} M (geometric units of M)\n` +
-        emissionText(totals, physical, rows),
+    );
+    const several = results.length > 1;
+    writeOutput(io, format, {
+      json: () => (several ? results.map((r) => r.json()) : results[0].json()),
+      csv: () => (several ? withSpinColumn(results.map((r) => ({ spin: r.spin, table: r.csv() }))) : results[0].csv()),
+      text: () => results.map((r) => r.text()).join('\n'),
     });
     return 0;
   },
 };
+
+interface SpinRun {
+  spin: number;
+  a: number;
+  tol: number;
+  mass: number | undefined;
+  unit: MassUnit;
+  grid: readonly number[] | undefined;
+  /** prefix of the accuracy warnings ('' for a single spin) */
+  label: string;
+}
+
+/** Totals (and the spectrum, with a grid) of one field spin, with its three output forms. */
+function emissionOfSpin(io: CliIO, { spin, a, tol, mass, unit, grid, label }: SpinRun) {
+  let modes = 0;
+  const totals = emissionTotals(
+    { hole: { a }, field: { spin: spin as FieldSpin } },
+    {
+      tol,
+      onMode: () => {
+        if (++modes % 10 === 0) io.stderr(`emission: ${modes} modes integrated\n`);
+      },
+    },
+  );
+  const progress = grid ? progressReporter(io, 'emission spectrum: frequencies done', grid.length) : undefined;
+  const spectrum = grid
+    ? emissionSpectrum({ hole: { a }, field: { spin: spin as FieldSpin }, grid }, { tol, onPoint: (done) => progress?.(done) })
+    : undefined;
+  const pick = (x: { value: number; relError: number }) => ({
+    value: x.value,
+    relError: x.relError,
+    inaccurate: isInaccurate(x.relError),
+  });
+  const physical =
+    mass === undefined
+      ? undefined
+      : toPhysicalRates(
+          { numberRate: totals.numberRate.value, power: totals.power.value, torque: totals.torque.value },
+          mass,
+          unit,
+        );
+  const rows = spectrum?.points.map((p) => ({
+    omega: p.omega,
+    number: p.number,
+    energy: p.energy,
+    torque: p.torque,
+    relError: p.relError,
+    lMax: p.lMax,
+    inaccurate: isInaccurate(p.relError),
+    ...(mass === undefined ? {} : toPhysicalSpectrum(p, mass, unit)),
+  }));
+
+  warnInaccurate(io, [
+    { what: `${label}number rate`, relError: totals.numberRate.relError },
+    { what: `${label}power`, relError: totals.power.relError },
+    { what: `${label}torque`, relError: totals.torque.relError },
+    ...(rows ?? []).map((r) => ({ what: `${label}spectrum at Mω = ${r.omega}`, relError: r.relError })),
+  ]);
+  return {
+    spin,
+    json: () => ({
+      spin,
+      a,
+      units: 'geometric, per degree of freedom: numberRate × 1/M, power × 1/M², torque × 1/M (G = c = ħ = 1)',
+      numberRate: pick(totals.numberRate),
+      power: pick(totals.power),
+      torque: pick(totals.torque),
+      ...(physical ? { mass, unit, physical } : {}),
+      diagnostics: totals.diagnostics,
+      ...(rows ? { spectrum: rows } : {}),
+    }),
+    csv: (): Table => (rows ? spectrumTable(rows, mass !== undefined) : totalsTable(totals, physical)),
+    text: () =>
+      `Hawking emission per degree of freedom, s = ${spin}, a = ${a} M (geometric units of M)\n` +
+      emissionText(totals, physical, rows),
+  };
+}
+
+/** The tables of several spins stacked, each row led by its spin. */
+function withSpinColumn(parts: readonly { spin: number; table: Table }[]): Table {
+  return {
+    columns: [{ name: 'spin', unit: '1', description: 'field spin s' }, ...parts[0].table.columns],
+    rows: parts.flatMap(({ spin, table }) => table.rows.map((row) => [spin, ...row])),
+  };
+}

@@ -20,7 +20,7 @@
 import { ConvergenceError } from '@penumbra/core';
 import { tortoiseFromHorizonDistance } from '../series.js';
 import type { Complex } from './complex.js';
-import { chebyshevRule, complexLu, complexLuSolve } from './chebyshev.js';
+import { type ChebyshevRule, chebyshevRule, complexLu, complexLuSolve } from './chebyshev.js';
 import type { SectorModel } from './sectors.js';
 import { farWaveNumbers, type SeriesState } from './series.js';
 
@@ -35,14 +35,20 @@ export interface PhaseCarried {
 }
 
 /** Collocation nodes per interval: 13 (degree 12). */
-const RULE = chebyshevRule(12);
+const DEGREE = 12;
+let rule: ChebyshevRule | undefined;
+/** The rule, built on first use so that loading the package (e.g. for massless emission) does not pay for it. */
+function collocationRule(): ChebyshevRule {
+  rule ??= chebyshevRule(DEGREE);
+  return rule;
+}
 const MAX_INTERVALS = 10_000;
 const MAX_NEWTON = 60;
 /** Newton and fixed-point iterations stop when the update is this small relative to the solution. */
 const NEWTON_FLOOR = 1e-15;
 /** The Newton matrix is refreshed only when a chord step contracts the update by less than this. */
 const REFACTOR_CONTRACTION = 0.05;
-const ZEROS = new Float64Array(RULE.n + 1);
+const ZEROS = new Float64Array(DEGREE + 1);
 /** Newton-matrix slot of each entry of Y: entries (0, 1) and (1, 0) have the same multiplier −c(Y_00 + Y_11). */
 const SLOTS_ONE = Int32Array.of(0);
 const SLOTS_TWO = Int32Array.of(0, 1, 1, 2);
@@ -87,7 +93,7 @@ export function carryFarSolutions(
   const similar = (q: number[]): number[] => (N === 2 ? realProduct(realProduct(Einv, q), E) : q);
   const q0 = similar(model.qCoeffs[0]);
   const q1 = similar(model.qCoeffs[1] ?? new Array<number>(NN).fill(0));
-  const { n, nodes, S, C } = RULE;
+  const { n, nodes, S, C } = collocationRule();
   const n1 = n + 1;
   // Y, Ũ (complex, per node per entry at [j·NN + e]), φ (real, per node) and the Newton matrices: reused across calls
   const { Yr, Yi, Ur, Ui, phi, c, dS, W, dW, Fr, Fi, Ir, Ii, Ar, Ai, piv, bRe, bIm, work, gr, gi, psi, Dr, Di } = workspace(N);
@@ -590,7 +596,7 @@ const WORKSPACES: Array<Workspace | undefined> = [];
 function workspace(N: number): Workspace {
   const cached = WORKSPACES[N];
   if (cached) return cached;
-  const { n } = RULE;
+  const { n } = collocationRule();
   const n1 = n + 1;
   const NN = N * N;
   const slots = N === 2 ? 3 : 1;
