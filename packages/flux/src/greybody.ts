@@ -324,12 +324,16 @@ function solveMode(p: Prepared, opts: ResolvedOptions): ModeSolve {
   }
   const h = horizonFactor(spin, hole, omega, k);
   const sol = twoSidedChecked(hole, mode, opts);
-  const C2 = starobinskyConstantSquared(spin, lambdaPlus, hole, m, omega);
-  // R = |C|² |Y_out|² / (|h_s|² |Z_in|²), derived in docs/method.md.
+  // R = |C|² |Y_out|² / (|h_s|² |Z_in|²), derived in docs/method.md (|C|² only where the reflection is asked for).
   const reflection =
     opts.reflection === false
       ? Number.NaN
-      : Math.exp(Math.log(C2) + 2 * sol.logAbsYOutMinus - Math.log(horizonMapSquared(spin, hole, k)) - 2 * sol.logAbsZInPlus);
+      : Math.exp(
+          Math.log(starobinskyConstantSquared(spin, lambdaPlus, hole, m, omega)) +
+            2 * sol.logAbsYOutMinus -
+            Math.log(horizonMapSquared(spin, hole, k)) -
+            2 * sol.logAbsZInPlus,
+        );
   return {
     lnGamma: Math.log(Math.abs(h)) - 2 * sol.logAbsZInPlus,
     sign: Math.sign(h),

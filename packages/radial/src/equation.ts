@@ -82,9 +82,16 @@ function realMulInto(out: Float64Array, p: Float64Array, pn: number, q: Float64A
   return n;
 }
 
-/** A complex polynomial from the first n entries of coefficient lists (a copy). */
+/**
+ * Zero imaginary parts by length, shared by the real coefficients of every
+ * equation built here (equations are read, never written: measured, their
+ * typed arrays were the larger part of building one).
+ */
+const ZEROS = Array.from({ length: 9 }, (_, n) => new Float64Array(n));
+
+/** A complex polynomial from the first n entries of coefficient lists (a copy; a real one shares its zero imaginary part). */
 function fromLists(n: number, re: Float64Array, im?: Float64Array, reScale = 1): CPoly {
-  const out = { re: new Float64Array(n), im: new Float64Array(n) };
+  const out = { re: new Float64Array(n), im: im ? new Float64Array(n) : ZEROS[n] };
   for (let i = 0; i < n; i++) out.re[i] = reScale === 1 ? re[i] : re[i] * reScale;
   if (im) for (let i = 0; i < n; i++) out.im[i] = im[i];
   return out;

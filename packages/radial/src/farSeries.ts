@@ -46,15 +46,29 @@ export interface FarSeries {
   recurrence: FarRecurrence | null;
 }
 
-/** The coefficients of the recurrence for c_n (powers of r, padded to 5). */
+/**
+ * The coefficients of the recurrence for c_n (powers of r, five of each), in
+ * one array (one allocation where six were measured among a solve's): Δ² at
+ * [0, 5) (real; [5, 10) holds its zero imaginary parts), the coefficient B of
+ * g' at [10, 15) (re) and [15, 20) (im), the coefficient Q of g at [20, 25)
+ * and [25, 30).
+ */
 export interface FarRecurrence {
-  /** Δ² */
-  A: CPoly;
-  /** the coefficient of g' */
-  B: CPoly;
-  /** the coefficient of g */
-  Q: CPoly;
+  /** the packed coefficients (see above) */
+  coefficients: Float64Array;
 }
+
+/** Offsets in FarRecurrence.coefficients. */
+const A_RE = 0,
+  A_IM = 5,
+  B_RE = 10,
+  B_IM = 15,
+  Q_RE = 20,
+  Q_IM = 25,
+  RECURRENCE_SIZE = 30;
+
+/** The imaginary parts of the real polynomials W and Δ of every series (never written). */
+const ZERO3 = new Float64Array(3);
 
 /** A far-zone series summed at one radius. */
 export interface FarValue {
@@ -143,9 +157,9 @@ function fill2(out: Float64Array, x0: number, x1: number): Float64Array {
   return out;
 }
 
-/** out[i + j] += f · p[i] q[j] over the given lengths (real polynomials, lowest power first). */
-function addProduct(out: Float64Array, p: ArrayLike<number>, q: ArrayLike<number>, f = 1): void {
-  for (let i = 0; i < p.length; i++) for (let j = 0; j < q.length; j++) out[i + j] += f * p[i] * q[j];
+/** out[at + i + j] += f · p[i] q[j] over the given lengths (real polynomials, lowest power first). */
+function addProduct(out: Float64Array, at: number, p: ArrayLike<number>, q: ArrayLike<number>, f = 1): void {
+  for (let i = 0; i < p.length; i++) for (let j = 0; j < q.length; j++) out[at + i + j] += f * p[i] * q[j];
 }
 
 /**
@@ -167,25 +181,23 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
   const K = fill3(sK, omega * a * a - a * m, 0, omega);
   const W = fill3(sW, sigma * kInf * a * a, sigma * beta, sigma * kInf);
   const dW = fill2(sDW, W[1], 2 * W[2]);
-  const A = { re: new Float64Array(5), im: new Float64Array(5) };
-  addProduct(A.re, delta, delta);
-  const B = { re: new Float64Array(5), im: new Float64Array(5) };
-  addProduct(B.re, delta, dDelta, s + 1);
-  addProduct(B.im, W, delta, 2);
-  const Q = { re: new Float64Array(5), im: new Float64Array(5) };
-  addProduct(Q.re, K, K);
-  addProduct(Q.re, delta, fill3(sMass, -lambda, 0, -mu * mu));
-  addProduct(Q.re, W, W, -1);
-  addProduct(Q.im, dDelta, K, -s);
-  addProduct(Q.im, delta, fill2(sSpin, 0, 4 * s * omega));
-  addProduct(Q.im, dW, delta);
-  addProduct(Q.im, W, dDelta, s);
+  const k = new Float64Array(RECURRENCE_SIZE);
+  addProduct(k, A_RE, delta, delta);
+  addProduct(k, B_RE, delta, dDelta, s + 1);
+  addProduct(k, B_IM, W, delta, 2);
+  addProduct(k, Q_RE, K, K);
+  addProduct(k, Q_RE, delta, fill3(sMass, -lambda, 0, -mu * mu));
+  addProduct(k, Q_RE, W, W, -1);
+  addProduct(k, Q_IM, dDelta, K, -s);
+  addProduct(k, Q_IM, delta, fill2(sSpin, 0, 4 * s * omega));
+  addProduct(k, Q_IM, dW, delta);
+  addProduct(k, Q_IM, W, dDelta, s);
   // (the r⁴ terms of Q cancel in the algebra; the recurrence reads Q up to r² and the balance Q₃)
   // Leading balance: B4 p + C3 = 0 with B4 = 2iσω.
-  const b4r = B.re[4],
-    b4i = B.im[4];
-  const c3r = Q.re[3],
-    c3i = Q.im[3];
+  const b4r = k[B_RE + 4],
+    b4i = k[B_IM + 4];
+  const c3r = k[Q_RE + 3],
+    c3i = k[Q_IM + 3];
   const bb = b4r * b4r + b4i * b4i;
   const p = -(c3r * b4r + c3i * b4i) / bb; // real by construction
   // The c_n are made as the sums need them (most matching radii use a few dozen of the maxTerms).
@@ -194,12 +206,12 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
     p,
     cRe: [1],
     cIm: [0],
-    W: { re: new Float64Array(W), im: new Float64Array(3) },
-    delta: { re: new Float64Array(delta), im: new Float64Array(3) },
+    W: { re: new Float64Array(W), im: ZERO3 },
+    delta: { re: new Float64Array(delta), im: ZERO3 },
     kInf,
     beta,
     maxTerms,
-    recurrence: { A, B, Q },
+    recurrence: { coefficients: k },
   };
 }
 
@@ -207,39 +219,39 @@ function buildFarSeries(hole: KerrHole, mode: RadialMode, sigma: 1 | -1, maxTerm
 export function extendFarSeries(series: FarSeries, n: number): void {
   const { cRe, cIm, p, recurrence } = series;
   if (recurrence === null) return;
-  const { A, B, Q } = recurrence;
-  const b4r = B.re[4],
-    b4i = B.im[4];
+  const k = recurrence.coefficients;
+  const b4r = k[B_RE + 4],
+    b4i = k[B_IM + 4];
   const end = Math.min(n, series.maxTerms);
   let N = cRe.length;
   for (; N < end && N < 5; N++) extendTerm(series, N);
   // From N = 5 on every term of the recurrence is present: the same sums, unrolled on locals (measured: the
   // generic loop was a quarter of choosing the matching radius).
   if (N < end) {
-    const ar0 = A.re[0],
-      ar1 = A.re[1],
-      ar2 = A.re[2],
-      ar3 = A.re[3],
-      ar4 = A.re[4],
-      ai0 = A.im[0],
-      ai1 = A.im[1],
-      ai2 = A.im[2],
-      ai3 = A.im[3],
-      ai4 = A.im[4];
-    const br0 = B.re[0],
-      br1 = B.re[1],
-      br2 = B.re[2],
-      br3 = B.re[3],
-      bi0 = B.im[0],
-      bi1 = B.im[1],
-      bi2 = B.im[2],
-      bi3 = B.im[3];
-    const qr0 = Q.re[0],
-      qr1 = Q.re[1],
-      qr2 = Q.re[2],
-      qi0 = Q.im[0],
-      qi1 = Q.im[1],
-      qi2 = Q.im[2];
+    const ar0 = k[A_RE],
+      ar1 = k[A_RE + 1],
+      ar2 = k[A_RE + 2],
+      ar3 = k[A_RE + 3],
+      ar4 = k[A_RE + 4],
+      ai0 = k[A_IM],
+      ai1 = k[A_IM + 1],
+      ai2 = k[A_IM + 2],
+      ai3 = k[A_IM + 3],
+      ai4 = k[A_IM + 4];
+    const br0 = k[B_RE],
+      br1 = k[B_RE + 1],
+      br2 = k[B_RE + 2],
+      br3 = k[B_RE + 3],
+      bi0 = k[B_IM],
+      bi1 = k[B_IM + 1],
+      bi2 = k[B_IM + 2],
+      bi3 = k[B_IM + 3];
+    const qr0 = k[Q_RE],
+      qr1 = k[Q_RE + 1],
+      qr2 = k[Q_RE + 2],
+      qi0 = k[Q_IM],
+      qi1 = k[Q_IM + 1],
+      qi2 = k[Q_IM + 2];
     for (; N < end; N++) {
       let rr = 0,
         ri = 0;
@@ -305,32 +317,32 @@ export function extendFarSeries(series: FarSeries, n: number): void {
 /** The recurrence's term c_N (N < 5, where some of its terms reach below c_0), appended. */
 function extendTerm(series: FarSeries, N: number): void {
   const { cRe, cIm, p } = series;
-  const { A, B, Q } = series.recurrence as FarRecurrence;
+  const k = (series.recurrence as FarRecurrence).coefficients;
   let rr = 0,
     ri = 0;
   for (let j = 0; j <= 4; j++) {
     const n = N + j - 5;
     if (n < 0) continue;
     const f = (p - n) * (p - n - 1);
-    rr += f * (A.re[j] * cRe[n] - A.im[j] * cIm[n]);
-    ri += f * (A.re[j] * cIm[n] + A.im[j] * cRe[n]);
+    rr += f * (k[A_RE + j] * cRe[n] - k[A_IM + j] * cIm[n]);
+    ri += f * (k[A_RE + j] * cIm[n] + k[A_IM + j] * cRe[n]);
   }
   for (let j = 0; j <= 3; j++) {
     const n = N + j - 4;
     if (n < 0) continue;
     const f = p - n;
-    rr += f * (B.re[j] * cRe[n] - B.im[j] * cIm[n]);
-    ri += f * (B.re[j] * cIm[n] + B.im[j] * cRe[n]);
+    rr += f * (k[B_RE + j] * cRe[n] - k[B_IM + j] * cIm[n]);
+    ri += f * (k[B_RE + j] * cIm[n] + k[B_IM + j] * cRe[n]);
   }
   for (let j = 0; j <= 2; j++) {
     const n = N + j - 3;
     if (n < 0) continue;
-    rr += Q.re[j] * cRe[n] - Q.im[j] * cIm[n];
-    ri += Q.re[j] * cIm[n] + Q.im[j] * cRe[n];
+    rr += k[Q_RE + j] * cRe[n] - k[Q_IM + j] * cIm[n];
+    ri += k[Q_RE + j] * cIm[n] + k[Q_IM + j] * cRe[n];
   }
   // c_N = rest / (B4 N)
-  const dr = B.re[4] * N,
-    di = B.im[4] * N;
+  const dr = k[B_RE + 4] * N,
+    di = k[B_IM + 4] * N;
   const den = dr * dr + di * di;
   cRe.push((rr * dr + ri * di) / den);
   cIm.push((ri * dr - rr * di) / den);

@@ -179,11 +179,110 @@ class GbsLoop implements Stepper {
     return del2 / Math.max(U_ROUND, del1) > 4;
   }
 
-  /** The midpoint sweep of line j (step hj = this.hj) with the right-hand side inline (the radial equation); false when the stability check rejects. */
+  /**
+   * The midpoint sweep of line j (step hj = this.hj) with the right-hand side inline (the radial equation); false when
+   * the stability check rejects. The first pass (which carries ODEX's stability check on lines 1 and 2) and the final
+   * smoothing evaluation are peeled off the loop, and a real B (every equation but the 'phase' variable's) has its own
+   * loop: the same operations in the same order as the one loop they replace, so the same doubles.
+   */
   sweepKernel(j: number, m: number): boolean {
-    const hj = this.hj;
     const kn = this.kernel as EquationKernel;
-    const { k, c, complexB } = kn;
+    return kn.complexB ? this.sweepComplex(j, m, kn) : this.sweepReal(j, m, kn);
+  }
+
+  /** `sweepKernel` for a real B. */
+  sweepReal(j: number, m: number, kn: EquationKernel): boolean {
+    const hj = this.hj;
+    const { k, c } = kn;
+    const { y, dz, dy } = this;
+    const k0 = k[0],
+      k1 = k[1],
+      k2 = k[2],
+      k3 = k[3],
+      k4 = k[4],
+      k5 = k[5],
+      k6 = k[6],
+      k7 = k[7];
+    const k13 = k[13],
+      k14 = k[14],
+      k15 = k[15],
+      k16 = k[16],
+      k17 = k[17];
+    const k18 = k[18],
+      k19 = k[19],
+      k20 = k[20],
+      k21 = k[21],
+      k22 = k[22];
+    const x = this.x;
+    const h2 = 2 * hj;
+    // yh1 = (a0…a3), yh2 = (b0…b3)
+    let a0 = y[0],
+      a1 = y[1],
+      a2 = y[2],
+      a3 = y[3];
+    let b0 = y[0] + hj * dz[0],
+      b1 = y[1] + hj * dz[1],
+      b2 = y[2] + hj * dz[2],
+      b3 = y[3] + hj * dz[3];
+    let d2 = 0,
+      d3 = 0;
+    for (let mm = 1; mm <= m; mm++) {
+      const X = x + hj * mm - c;
+      const d = k0 + X * (k1 + X * k2);
+      const iA = 1 / (d * d);
+      const Br = k3 + X * (k4 + X * (k5 + X * (k6 + X * k7)));
+      const Cr = k13 + X * (k14 + X * (k15 + X * (k16 + X * k17)));
+      const Ci = k18 + X * (k19 + X * (k20 + X * (k21 + X * k22)));
+      d2 = -(Br * b2 + Cr * b0 - Ci * b1) * iA;
+      d3 = -(Br * b3 + Cr * b1 + Ci * b0) * iA;
+      const s0 = a0,
+        s1 = a1,
+        s2 = a2,
+        s3 = a3;
+      a0 = b0;
+      a1 = b1;
+      a2 = b2;
+      a3 = b3;
+      b0 = s0 + h2 * b2;
+      b1 = s1 + h2 * b3;
+      b2 = s2 + h2 * d2;
+      b3 = s3 + h2 * d3;
+      if (mm === 1 && j <= 2) {
+        dy[0] = a2;
+        dy[1] = a3;
+        dy[2] = d2;
+        dy[3] = d3;
+        if (this.unstable()) {
+          kn.counter.evaluations += 1;
+          return false;
+        }
+      }
+    }
+    // the final smoothing evaluation at x + h
+    const X = x + this.h - c;
+    const d = k0 + X * (k1 + X * k2);
+    const iA = 1 / (d * d);
+    const Br = k3 + X * (k4 + X * (k5 + X * (k6 + X * k7)));
+    const Cr = k13 + X * (k14 + X * (k15 + X * (k16 + X * k17)));
+    const Ci = k18 + X * (k19 + X * (k20 + X * (k21 + X * k22)));
+    const d0 = b2,
+      d1 = b3;
+    d2 = -(Br * b2 + Cr * b0 - Ci * b1) * iA;
+    d3 = -(Br * b3 + Cr * b1 + Ci * b0) * iA;
+    kn.counter.evaluations += m + 1;
+    const t = this.t;
+    const tj = j * N;
+    t[tj] = (a0 + b0 + hj * d0) / 2;
+    t[tj + 1] = (a1 + b1 + hj * d1) / 2;
+    t[tj + 2] = (a2 + b2 + hj * d2) / 2;
+    t[tj + 3] = (a3 + b3 + hj * d3) / 2;
+    return true;
+  }
+
+  /** `sweepKernel` for a complex B (the 'phase' variable). */
+  sweepComplex(j: number, m: number, kn: EquationKernel): boolean {
+    const hj = this.hj;
+    const { k, c } = kn;
     const { y, dz, dy } = this;
     const k0 = k[0],
       k1 = k[1],
@@ -209,7 +308,6 @@ class GbsLoop implements Stepper {
       k21 = k[21],
       k22 = k[22];
     const x = this.x;
-    // yh1 = (a0…a3), yh2 = (b0…b3)
     let a0 = y[0],
       a1 = y[1],
       a2 = y[2],
@@ -228,18 +326,13 @@ class GbsLoop implements Stepper {
       const d = k0 + X * (k1 + X * k2);
       const iA = 1 / (d * d);
       const Br = k3 + X * (k4 + X * (k5 + X * (k6 + X * k7)));
+      const Bi = k8 + X * (k9 + X * (k10 + X * (k11 + X * k12)));
       const Cr = k13 + X * (k14 + X * (k15 + X * (k16 + X * k17)));
       const Ci = k18 + X * (k19 + X * (k20 + X * (k21 + X * k22)));
       d0 = b2;
       d1 = b3;
-      if (complexB) {
-        const Bi = k8 + X * (k9 + X * (k10 + X * (k11 + X * k12)));
-        d2 = -(Br * b2 - Bi * b3 + Cr * b0 - Ci * b1) * iA;
-        d3 = -(Br * b3 + Bi * b2 + Cr * b1 + Ci * b0) * iA;
-      } else {
-        d2 = -(Br * b2 + Cr * b0 - Ci * b1) * iA;
-        d3 = -(Br * b3 + Cr * b1 + Ci * b0) * iA;
-      }
+      d2 = -(Br * b2 - Bi * b3 + Cr * b0 - Ci * b1) * iA;
+      d3 = -(Br * b3 + Bi * b2 + Cr * b1 + Ci * b0) * iA;
       if (mm > m) break;
       const s0 = a0,
         s1 = a1,
@@ -384,18 +477,37 @@ class GbsLoop implements Stepper {
     // polynomial extrapolation
     const { t, y, scal, tol } = this;
     const row = j * (KM + 1);
+    // the four components written out (N = 4), each in the order of the loop they replace
     for (let l = j; l > 1; l--) {
       const fac = NEVILLE[row + l];
       const a = l * N;
-      const b = (l - 1) * N;
-      for (let i = 0; i < N; i++) t[b + i] = t[a + i] + (t[a + i] - t[b + i]) / fac;
+      const b = a - N;
+      const ta0 = t[a],
+        ta1 = t[a + 1],
+        ta2 = t[a + 2],
+        ta3 = t[a + 3];
+      t[b] = ta0 + (ta0 - t[b]) / fac;
+      t[b + 1] = ta1 + (ta1 - t[b + 1]) / fac;
+      t[b + 2] = ta2 + (ta2 - t[b + 2]) / fac;
+      t[b + 3] = ta3 + (ta3 - t[b + 3]) / fac;
     }
+    const s0 = 0 + tol * Math.max(Math.abs(y[0]), Math.abs(t[N]));
+    const s1 = 0 + tol * Math.max(Math.abs(y[1]), Math.abs(t[N + 1]));
+    const s2 = 0 + tol * Math.max(Math.abs(y[2]), Math.abs(t[N + 2]));
+    const s3 = 0 + tol * Math.max(Math.abs(y[3]), Math.abs(t[N + 3]));
+    scal[0] = s0;
+    scal[1] = s1;
+    scal[2] = s2;
+    scal[3] = s3;
+    const e0 = (t[N] - t[2 * N]) / s0,
+      e1 = (t[N + 1] - t[2 * N + 1]) / s1,
+      e2 = (t[N + 2] - t[2 * N + 2]) / s2,
+      e3 = (t[N + 3] - t[2 * N + 3]) / s3;
     let err = 0;
-    for (let i = 0; i < N; i++) {
-      const t1i = Math.max(Math.abs(y[i]), Math.abs(t[N + i]));
-      scal[i] = 0 + tol * t1i;
-      err += ((t[N + i] - t[2 * N + i]) / scal[i]) ** 2;
-    }
+    err += e0 * e0;
+    err += e1 * e1;
+    err += e2 * e2;
+    err += e3 * e3;
     err = Math.sqrt(err / N);
     this.err = err;
     if (err * U_ROUND >= 1 || (j > 2 && err >= this.errOld)) {

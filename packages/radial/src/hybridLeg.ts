@@ -217,14 +217,23 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   // On a massless leg the integrator's stretches between Riccati rungs run at ODE_SHARE × tol (see ODE_SHARE), not below TIGHTEST_STRETCH_TOL.
   const odeShare = longRange ? 1 : Math.min(1, Math.max(ODE_SHARE, TIGHTEST_STRETCH_TOL / leg.tol));
   const byOde = (from: Point, to: Point) => {
+    // written out in the order of the other leg literals (a spread was a second shape where legs are read)
     const seg = integrateLeg({
-      ...leg,
+      hole: leg.hole,
+      mode: leg.mode,
+      equation: leg.equation,
+      y: leg.y,
       from: from.r,
       fromOffset: from.x,
       to: to.r,
-      logScale,
+      stops: leg.stops,
       tol: leg.tol * odeShare,
+      integrator: leg.integrator,
       maxSteps: Math.max(leg.maxSteps - steps, 1),
+      variable: leg.variable,
+      counter: leg.counter,
+      logScale,
+      method: leg.method,
     });
     steps += seg.steps;
     errorSum += seg.errorSum * odeShare;

@@ -92,6 +92,8 @@ export function oneSidedChecked(hole: KerrHole, mode: RadialMode, opts: Resolved
       maxSteps: opts.maxSteps,
       variable: opts.variable,
       counter,
+      // every leg literal has the same keys in the same order (solveTwoSided.ts, hybridLeg.ts): one shape where legs are read
+      logScale: 0,
       method,
     },
     opts.oscillation,

@@ -121,7 +121,17 @@ export function twoSidedChecked(hole: KerrHole, plus: RadialMode, opts: Resolved
   const rawSwitch = applyStarobinskyMap(starobinskyMapAt(hole, minus, rSwitch), atSwitch.y);
   const yPlus = new Float64Array(rawSwitch);
   const segPlus = integrateHybridLeg(
-    leg(plus, radialEquation(hole, plus, hole.rPlus), yPlus, rSwitch, matchPlus.r, outer, atSwitch.logScale),
+    // fromOffset given as the legs would compute it (r_sw − r+), so that every leg carries a number there (one shape)
+    leg(
+      plus,
+      radialEquation(hole, plus, hole.rPlus),
+      yPlus,
+      rSwitch,
+      matchPlus.r,
+      outer,
+      atSwitch.logScale,
+      rSwitch - hole.rPlus,
+    ),
     opts.oscillation,
   );
   const amp = matchAmplitudes(yPlus, matchPlus.vin, matchPlus.vout);
