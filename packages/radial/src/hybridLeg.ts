@@ -236,7 +236,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   // One rung by a Riccati step; a rung that fails is halved (in ln x) up to MAX_SPLITS times before the
   // integrator takes it: near a turning point the branch point of W limits the resolution of a whole rung.
   const byRiccati = (from: Point, to: Point, rateFrom: number, rateTo: number, depth: number): void => {
-    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, RICCATI_NODES, maxPasses, accept);
+    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, RICCATI_NODES, maxPasses, accept, longRange);
     // counted as right-hand-side evaluations: the coefficients at every node, and one collocation pass per node and pass
     leg.counter.evaluations += step.evaluations * (1 + step.passes);
     if (!step.ok) {

@@ -516,6 +516,36 @@ function unresolvedBeyond(
 }
 
 /**
+ * Whether the σ = −1 solution's data on the nodes are exactly the complex
+ * conjugates of the σ = +1 solution's, with P and Q real: an equation with
+ * real coefficients (s = 0, real ω) where the two solutions oscillate. Then
+ * `refine` maps conjugate input to conjugate output operation by operation
+ * (the collocation derivative and the quadrature weights are real), so the
+ * second refinement is its mirror image, to the last bit.
+ */
+function conjugatePair(w: Work): boolean {
+  const { pIm, qIm, aRe, aIm, apRe, apIm, cRe, cIm } = w;
+  const n = w.rule.n;
+  for (let j = 0; j < n; j++) {
+    if (pIm[j] !== 0 || qIm[j] !== 0) return false;
+    const o = n + j;
+    if (aRe[o] !== aRe[j] || aIm[o] !== -aIm[j] || apRe[o] !== apRe[j] || apIm[o] !== -apIm[j]) return false;
+    if (cRe[o] !== cRe[j] || cIm[o] !== -cIm[j]) return false;
+  }
+  return true;
+}
+
+/** The σ = −1 solution as the mirror image of the refined σ = +1 one (see `conjugatePair`); returns `refine`'s passes for it. */
+function mirrorSolution(w: Work, passes: number): number {
+  const E = w.ends;
+  for (let i = 0; i < 6; i++) E[6 + i] = i % 2 === 0 ? E[i] : -E[i];
+  w.last[1] = w.last[0];
+  w.error[1] = w.error[0];
+  w.rounding[1] = w.rounding[0];
+  return passes;
+}
+
+/**
  * Carry y = (Re R, Im R, Re R', Im R') from xa to xb in place, if both
  * Riccati solutions converge there to `tol` within `maxPasses` passes each
  * (a stalled correction accepted up to `accept` tol).
@@ -532,6 +562,7 @@ export function riccatiStep(
   n = RICCATI_NODES,
   maxPasses = MAX_PASSES,
   accept = ACCEPT,
+  mirror = false,
 ): RiccatiStep {
   const w = workFor(n);
   const { rule } = w;
@@ -565,9 +596,10 @@ export function riccatiStep(
       w.cIm[o] = l[src + 5];
     }
   }
+  const pair = mirror && conjugatePair(w);
   const plus = refine(w, 0, half, tol, maxPasses, accept);
   if (plus < 0) return { ok: false, passes: -plus, evaluations: n, correction: 0, error: 0, rounding: 0 };
-  const minus = refine(w, 1, half, tol, maxPasses, accept);
+  const minus = pair ? mirrorSolution(w, plus) : refine(w, 1, half, tol, maxPasses, accept);
   if (minus < 0) return { ok: false, passes: Math.max(plus, -minus), evaluations: n, correction: 0, error: 0, rounding: 0 };
   const E = w.ends;
   // y = Y/x at the two ends
