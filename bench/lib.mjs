@@ -51,15 +51,15 @@ export function cpuMsPerCall(fn, minCpuMs = 20, maxCalls = 200) {
 
 /**
  * CPU milliseconds per call of each of `fns`, compared on a shared machine: a
- * warm-up call of each, then three interleaved batches (cpuMsPerCall), and the
- * median of each function's three. With `rotate`, batch i starts at function
+ * warm-up call of each, then `batches` (default three) interleaved batches
+ * (cpuMsPerCall), and the median of each function's. With `rotate`, batch i starts at function
  * i (mod n), so that none always follows the same one (garbage left by one is
  * collected in the next); without, every batch runs them in the given order.
  */
-export function interleavedCpuMs(fns, minCpuMs, maxCalls, { rotate = false } = {}) {
+export function interleavedCpuMs(fns, minCpuMs, maxCalls, { rotate = false, batches = 3 } = {}) {
   for (const f of fns) f();
   const times = fns.map(() => []);
-  for (let i = 0; i < 3; i++) {
+  for (let i = 0; i < batches; i++) {
     for (let k = 0; k < fns.length; k++) {
       const j = rotate ? (i + k) % fns.length : k;
       times[j].push(cpuMsPerCall(fns[j], minCpuMs, maxCalls));

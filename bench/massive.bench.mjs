@@ -25,8 +25,15 @@ const problem = (x, mass) => ({
   omega: x.omega,
 });
 
-/** Median over three interleaved batches of CPU ms per call (JIT warm-up and load spikes excluded), massive and massless. */
-const pairCost = (massive, massless) => interleavedCpuMs([massive, massless], 150, 5000);
+/** Median over seven interleaved batches of CPU ms per call, the order rotated (load spikes and the garbage one leaves to the next excluded), massive and massless. */
+const pairCost = (massive, massless) => interleavedCpuMs([massive, massless], 40, 100000, { rotate: true, batches: 7 });
+
+// warm-up: every code path compiled before the first timing (the first row measured the compiler otherwise)
+for (let pass = 0; pass < 3; pass++)
+  for (const x of MODES) {
+    greybody(problem(x, 0));
+    for (const f of FRACTIONS) greybody(problem(x, f * x.omega));
+  }
 
 const rows = [];
 const records = [];
