@@ -1,7 +1,7 @@
 // The phase-form carry of the Proca far solutions alone (carryFarSolutions,
 // packages/regge-wheeler/src/proca/farPhase.ts), even sector (two channels) near threshold:
 // CPU time per carry of this build against a baseline build (PROCA_BASELINE, default /tmp/base-e7f),
-// interleaved, best of 9 batches, on the same inputs: the far start radius and step tolerance of the
+// interleaved batches of 10 ms, best of 15 each, on the same inputs: the far start radius and step tolerance of the
 // default route (singleExtrapolationSolve at tol 1e-10), the series solutions there, carried in to the
 // default phase radius with the default slack. Prints the ratio and the largest relative difference of the
 // carried solutions (each entry against the largest entry of its column).
@@ -19,7 +19,7 @@ const load = async (dir) => ({
 });
 const builds = [await load(here), await load(baseDir)];
 
-const best = (f, batches = 9) => {
+const best = (f, batches) => {
   let b = Infinity;
   for (let i = 0; i < batches; i++) {
     const t = process.cpuUsage();
@@ -29,7 +29,7 @@ const best = (f, batches = 9) => {
       f();
       n++;
       d = process.cpuUsage(t);
-    } while (d.user + d.system < 20_000);
+    } while (d.user + d.system < 10_000);
     b = Math.min(b, (d.user + d.system) / 1000 / n);
   }
   return b;
@@ -72,9 +72,9 @@ for (const [l, omega, mu] of [
   }
   let ta = Infinity;
   let tb = Infinity;
-  for (let round = 0; round < 3; round++) {
-    ta = Math.min(ta, best(a.run, 3));
-    tb = Math.min(tb, best(b.run, 3));
+  for (let round = 0; round < 15; round++) {
+    ta = Math.min(ta, best(a.run, 1));
+    tb = Math.min(tb, best(b.run, 1));
   }
   const v = Math.sqrt(1 - (mu / omega) ** 2);
   rows.push([

@@ -96,7 +96,8 @@ export function carryFarSolutions(
   const { n, nodes, S, C } = collocationRule();
   const n1 = n + 1;
   // Y, Ũ (complex, per node per entry at [j·NN + e]), φ (real, per node) and the Newton matrices: reused across calls
-  const { Yr, Yi, Ur, Ui, phi, c, dS, W, dW, Fr, Fi, Ir, Ii, Ar, Ai, piv, bRe, bIm, work, gr, gi, psi, Dr, Di } = workspace(N);
+  const { Yr, Yi, Ur, Ui, phi, c, dS, W, dW, Fr, Fi, Ir, Ii, Ar, Ai, piv, bRe, bIm, cRe, cIm, work, gr, gi, psi, Dr, Di, hS, Kr, Ki } =
+    workspace(N);
   const slotOf = N === 2 ? SLOTS_TWO : SLOTS_ONE;
   {
     // U' = E⁻¹ U, P' = E⁻¹ P (columns: the channels' solutions)
@@ -177,16 +178,24 @@ export function carryFarSolutions(
       }
     }
   };
-  /** Factor A_e = I − (h/2) S[1.., 1..] diag(a) (a complex per node) into slot e; false when singular. */
-  const factor = (h: number, ar: Float64Array, ai: Float64Array, e: number): boolean => {
+  /** hS = (h/2) S[1.., 1..] (n×n), once per interval for the factorisations of its Newton matrices. */
+  const scaleS = (h: number): void => {
+    for (let j = 1; j < n1; j++) {
+      for (let m = 1; m < n1; m++) hS[(j - 1) * n + m - 1] = 0.5 * h * S[j * n1 + m];
+    }
+  };
+  /** Factor A_e = I − hS diag(a) (a complex per node) into slot e; false when singular. */
+  const factor = (ar: Float64Array, ai: Float64Array, e: number): boolean => {
     const R = Ar[e];
     const I = Ai[e];
-    for (let j = 1; j < n1; j++) {
-      for (let m = 1; m < n1; m++) {
-        const s = 0.5 * h * S[j * n1 + m];
-        R[(j - 1) * n + m - 1] = (j === m ? 1 : 0) - s * ar[m];
-        I[(j - 1) * n + m - 1] = -s * ai[m];
+    for (let j = 0; j < n; j++) {
+      const row = j * n;
+      for (let m = 0; m < n; m++) {
+        const s = hS[row + m];
+        R[row + m] = -s * ar[m + 1];
+        I[row + m] = -s * ai[m + 1];
       }
+      R[row + j] += 1;
     }
     return complexLu(R, I, n, piv[e]);
   };
@@ -244,6 +253,7 @@ export function carryFarSolutions(
     let yScale = omega;
     let previous = Infinity;
     let contraction = 1;
+    scaleS(h);
     for (let it = 0; ; it++) {
       if (it > MAX_NEWTON) return Infinity;
       for (let j = 1; j < n1; j++) riccati(j);
@@ -257,24 +267,42 @@ export function carryFarSolutions(
             gr[m] = -c[m] * (Yr[m * NN + a] + Yr[m * NN + b]);
             gi[m] = -c[m] * (Yi[m * NN + a] + Yi[m * NN + b]);
           }
-          if (!factor(h, gr, gi, slotOf[e])) return Infinity;
+          if (!factor(gr, gi, slotOf[e])) return Infinity;
         }
       }
       let change = 0;
       yScale = omega;
       nodeIntegrals(S, n1, Fr, Fi, NN, 0.5 * h, Ir, Ii);
       for (let e = 0; e < NN; e++) {
+        // the two off-diagonal entries share their matrix: one solve with two right-hand sides
+        const pair = N === 2 && e === 1;
         for (let j = 1; j < n1; j++) {
           bRe[j - 1] = Ir[(j - 1) * NN + e] - (Yr[j * NN + e] - Yr[e]);
           bIm[j - 1] = Ii[(j - 1) * NN + e] - (Yi[j * NN + e] - Yi[e]);
         }
+        if (pair) {
+          for (let j = 1; j < n1; j++) {
+            cRe[j - 1] = Ir[(j - 1) * NN + 2] - (Yr[j * NN + 2] - Yr[2]);
+            cIm[j - 1] = Ii[(j - 1) * NN + 2] - (Yi[j * NN + 2] - Yi[2]);
+          }
+        }
         const slot = slotOf[e];
-        complexLuSolve(Ar[slot], Ai[slot], n, piv[slot], bRe, bIm, work);
+        if (pair) complexLuSolve(Ar[slot], Ai[slot], n, piv[slot], bRe, bIm, work, cRe, cIm);
+        else complexLuSolve(Ar[slot], Ai[slot], n, piv[slot], bRe, bIm, work);
         for (let j = 1; j < n1; j++) {
           Yr[j * NN + e] += bRe[j - 1];
           Yi[j * NN + e] += bIm[j - 1];
           change = Math.max(change, Math.abs(bRe[j - 1]) + Math.abs(bIm[j - 1]));
           yScale = Math.max(yScale, Math.abs(Yr[j * NN + e]) + Math.abs(Yi[j * NN + e]));
+        }
+        if (pair) {
+          for (let j = 1; j < n1; j++) {
+            Yr[j * NN + 2] += cRe[j - 1];
+            Yi[j * NN + 2] += cIm[j - 1];
+            change = Math.max(change, Math.abs(cRe[j - 1]) + Math.abs(cIm[j - 1]));
+            yScale = Math.max(yScale, Math.abs(Yr[j * NN + 2]) + Math.abs(Yi[j * NN + 2]));
+          }
+          e = 2;
         }
       }
       if (!Number.isFinite(change)) return Infinity;
@@ -312,53 +340,79 @@ export function carryFarSolutions(
         Ui[j * NN + e] = Ui[e];
       }
     }
-    // V_j = V_0 + ∫ K V with K_il = c Y_il D_l / D_i (i ≠ l); for one channel V is constant
+    // V_j = V_0 + ∫ K V with K_il = c Y_il D_l / D_i (i ≠ l); for one channel V is constant. K is fixed over
+    // the iteration: built once. Two channels: K_01 = c Y_01 D_1/D_0, K_10 = c Y_10 D_0/D_1, and each sweep
+    // updates row 0 of V from row 1 and then row 1 from the new row 0 (Gauss–Seidel: the contraction per
+    // sweep is about the square of the simultaneous update's)
     let uScale = 0;
     previous = Infinity;
+    if (N === 2) {
+      for (let m = 0; m < n1; m++) {
+        // ρ = D_1 / D_0
+        const ar = Dr[2 * m];
+        const ai = Di[2 * m];
+        const br = Dr[2 * m + 1];
+        const bi = Di[2 * m + 1];
+        const qa = ar * ar + ai * ai;
+        const rr = (br * ar + bi * ai) / qa;
+        const ri = (bi * ar - br * ai) / qa;
+        const qr = rr * rr + ri * ri;
+        const o = 4 * m;
+        const cm = c[m];
+        // K_01 = c Y_01 ρ
+        const y1r = Yr[o + 1];
+        const y1i = Yi[o + 1];
+        Kr[2 * m] = cm * (y1r * rr - y1i * ri);
+        Ki[2 * m] = cm * (y1r * ri + y1i * rr);
+        // K_10 = c Y_10 / ρ
+        const y2r = Yr[o + 2];
+        const y2i = Yi[o + 2];
+        Kr[2 * m + 1] = (cm * (y2r * rr + y2i * ri)) / qr;
+        Ki[2 * m + 1] = (cm * (y2i * rr - y2r * ri)) / qr;
+      }
+    }
     for (let it = 0; N > 1; it++) {
       if (it > MAX_NEWTON) return Infinity;
-      for (let m = 0; m < n1; m++) {
-        const o = m * NN;
-        for (let i = 0; i < N; i++) {
-          // 1 / D_i
-          const qd = Dr[m * N + i] * Dr[m * N + i] + Di[m * N + i] * Di[m * N + i];
-          const ir = Dr[m * N + i] / qd;
-          const ii = -Di[m * N + i] / qd;
-          for (let col = 0; col < N; col++) {
-            let sr = 0;
-            let si = 0;
-            for (let l = 0; l < N; l++) {
-              if (l === i) continue;
-              // K_il = c Y_il D_l / D_i
-              const yr = Yr[o + i * N + l];
-              const yi = Yi[o + i * N + l];
-              const dr = Dr[m * N + l];
-              const di = Di[m * N + l];
-              const tr = yr * dr - yi * di;
-              const tiv = yr * di + yi * dr;
-              const kr = c[m] * (tr * ir - tiv * ii);
-              const ki = c[m] * (tr * ii + tiv * ir);
-              const vr = Ur[o + l * N + col];
-              const vi = Ui[o + l * N + col];
-              sr += kr * vr - ki * vi;
-              si += kr * vi + ki * vr;
-            }
-            Fr[o + i * N + col] = sr;
-            Fi[o + i * N + col] = si;
-          }
-        }
-      }
       let change = 0;
       uScale = 0;
-      nodeIntegrals(S, n1, Fr, Fi, NN, 0.5 * h, Ir, Ii);
-      for (let e = 0; e < NN; e++) {
+      for (let row = 0; row < 2; row++) {
+        // F_row,col = K_row,other V_other,col at every node
+        const other = 1 - row;
+        for (let m = 0; m < n1; m++) {
+          const kr = Kr[2 * m + row];
+          const ki = Ki[2 * m + row];
+          const o = 4 * m + 2 * other;
+          const v0r = Ur[o];
+          const v0i = Ui[o];
+          const v1r = Ur[o + 1];
+          const v1i = Ui[o + 1];
+          Fr[2 * m] = kr * v0r - ki * v0i;
+          Fi[2 * m] = kr * v0i + ki * v0r;
+          Fr[2 * m + 1] = kr * v1r - ki * v1i;
+          Fi[2 * m + 1] = kr * v1i + ki * v1r;
+        }
+        nodeIntegrals(S, n1, Fr, Fi, 2, 0.5 * h, Ir, Ii);
+        const e0 = 2 * row;
+        const b0r = Ur[e0];
+        const b0i = Ui[e0];
+        const b1r = Ur[e0 + 1];
+        const b1i = Ui[e0 + 1];
         for (let j = 1; j < n1; j++) {
-          const sr = Ur[e] + Ir[(j - 1) * NN + e];
-          const si = Ui[e] + Ii[(j - 1) * NN + e];
-          change = Math.max(change, Math.abs(sr - Ur[j * NN + e]) + Math.abs(si - Ui[j * NN + e]));
-          uScale = Math.max(uScale, Math.abs(sr) + Math.abs(si));
-          Ur[j * NN + e] = sr;
-          Ui[j * NN + e] = si;
+          const o = 4 * j + e0;
+          const sr = b0r + Ir[2 * (j - 1)];
+          const si = b0i + Ii[2 * (j - 1)];
+          const tr = b1r + Ir[2 * (j - 1) + 1];
+          const ti = b1i + Ii[2 * (j - 1) + 1];
+          change = Math.max(
+            change,
+            Math.abs(sr - Ur[o]) + Math.abs(si - Ui[o]),
+            Math.abs(tr - Ur[o + 1]) + Math.abs(ti - Ui[o + 1]),
+          );
+          uScale = Math.max(uScale, Math.abs(sr) + Math.abs(si), Math.abs(tr) + Math.abs(ti));
+          Ur[o] = sr;
+          Ui[o] = si;
+          Ur[o + 1] = tr;
+          Ui[o + 1] = ti;
         }
       }
       if (!Number.isFinite(change)) return Infinity;
@@ -508,7 +562,30 @@ function nodeIntegrals(
   outR: Float64Array,
   outI: Float64Array,
 ): void {
-  // unrolled per channel count (stride 1 or 4): the loop over entries with a variable bound ran at half the speed
+  // unrolled per stride (1, 2 or 4): the loop over entries with a variable bound ran at half the speed
+  if (stride === 2) {
+    for (let j = 1; j < n1; j++) {
+      const row = j * n1;
+      let r0 = 0;
+      let r1 = 0;
+      let i0 = 0;
+      let i1 = 0;
+      for (let m = 0; m < n1; m++) {
+        const s = S[row + m];
+        const k = 2 * m;
+        r0 += s * fr[k];
+        r1 += s * fr[k + 1];
+        i0 += s * fi[k];
+        i1 += s * fi[k + 1];
+      }
+      const o = 2 * (j - 1);
+      outR[o] = scale * r0;
+      outR[o + 1] = scale * r1;
+      outI[o] = scale * i0;
+      outI[o + 1] = scale * i1;
+    }
+    return;
+  }
   if (stride === 4) {
     for (let j = 1; j < n1; j++) {
       const row = j * n1;
@@ -581,10 +658,18 @@ interface Workspace {
   piv: Int32Array[];
   bRe: Float64Array;
   bIm: Float64Array;
+  /** the second right-hand side of the paired off-diagonal solve */
+  cRe: Float64Array;
+  cIm: Float64Array;
   work: Float64Array;
+  /** (h/2) S[1.., 1..] of the current interval, n×n */
+  hS: Float64Array;
   gr: Float64Array;
   gi: Float64Array;
   psi: Float64Array;
+  /** K_01, K_10 of the Picard iteration (two channels) per node, [2j + i] */
+  Kr: Float64Array;
+  Ki: Float64Array;
   /** D_i at each node (the quadrature of the diagonal of G), [j·N + i] */
   Dr: Float64Array;
   Di: Float64Array;
@@ -619,10 +704,15 @@ function workspace(N: number): Workspace {
     piv: Array.from({ length: slots }, () => new Int32Array(n)),
     bRe: new Float64Array(n),
     bIm: new Float64Array(n),
-    work: new Float64Array(2 * n),
+    cRe: new Float64Array(n),
+    cIm: new Float64Array(n),
+    work: new Float64Array(4 * n),
+    hS: new Float64Array(n * n),
     gr: new Float64Array(n1),
     gi: new Float64Array(n1),
     psi: new Float64Array(n1),
+    Kr: new Float64Array(2 * n1),
+    Ki: new Float64Array(2 * n1),
     Dr: new Float64Array(n1 * N),
     Di: new Float64Array(n1 * N),
   };
