@@ -161,6 +161,31 @@ export function carryFarSolutions(
   const riccati = (j: number): void => {
     rhsEvaluations++;
     const o = j * NN;
+    if (N === 2) {
+      // Y² = [[Y00² + Y01 Y10, Y01 t], [Y10 t, Y11² + Y10 Y01]], t = Y00 + Y11
+      const ar = Yr[o];
+      const ai = Yi[o];
+      const br = Yr[o + 1];
+      const bi = Yi[o + 1];
+      const dr = Yr[o + 2];
+      const di = Yi[o + 2];
+      const er = Yr[o + 3];
+      const ei = Yi[o + 3];
+      const pr = br * dr - bi * di;
+      const pi = br * di + bi * dr;
+      const tr = ar + er;
+      const ti = ai + ei;
+      const cj = c[j];
+      Fr[o] = cj * (W[o] - (ar * ar - ai * ai + pr));
+      Fi[o] = -cj * (2 * ar * ai + pi);
+      Fr[o + 1] = cj * (W[o + 1] - (br * tr - bi * ti));
+      Fi[o + 1] = -cj * (br * ti + bi * tr);
+      Fr[o + 2] = cj * (W[o + 2] - (dr * tr - di * ti));
+      Fi[o + 2] = -cj * (dr * ti + di * tr);
+      Fr[o + 3] = cj * (W[o + 3] - (er * er - ei * ei + pr));
+      Fi[o + 3] = -cj * (2 * er * ei + pi);
+      return;
+    }
     for (let i = 0; i < N; i++) {
       for (let m = 0; m < N; m++) {
         let sr = 0;
@@ -317,21 +342,48 @@ export function carryFarSolutions(
       for (let i = 0; i < N; i++) ti += Yi[m * NN + i * N + i];
       psi[m] = ti / N;
     }
-    for (let i = 0; i < N; i++) {
-      const d = i * (N + 1);
-      Dr[i] = 1;
-      Di[i] = 0;
+    if (N === 2) {
+      // the two exponents of D and dφ/dx in one pass over S: entries 0, 1 the diagonal of G, entry 2 dφ/dx
+      for (let m = 0; m < n1; m++) {
+        const o = 4 * m;
+        const cm = c[m];
+        Fr[o] = cm * Yr[o];
+        Fi[o] = cm * (Yi[o] - psi[m]);
+        Fr[o + 1] = cm * Yr[o + 3];
+        Fi[o + 1] = cm * (Yi[o + 3] - psi[m]);
+        Fr[o + 2] = cm * (psi[m] - dS[m]);
+        Fi[o + 2] = 0;
+        Fr[o + 3] = 0;
+        Fi[o + 3] = 0;
+      }
+      nodeIntegrals(S, n1, Fr, Fi, 4, 0.5 * h, Ir, Ii);
+      Dr[0] = 1;
+      Di[0] = 0;
+      Dr[1] = 1;
+      Di[1] = 0;
+      for (let j = 1; j < n1; j++) {
+        const o = 4 * (j - 1);
+        for (let i = 0; i < 2; i++) {
+          const mod = Math.exp(Ir[o + i]);
+          Dr[2 * j + i] = mod * Math.cos(Ii[o + i]);
+          Di[2 * j + i] = mod * Math.sin(Ii[o + i]);
+        }
+        phi[j] = phi[0] + Ir[o + 2];
+      }
+    } else {
+      Dr[0] = 1;
+      Di[0] = 0;
       for (let j = 1; j < n1; j++) {
         let sr = 0;
         let si = 0;
         for (let m = 0; m < n1; m++) {
           const s = S[j * n1 + m] * c[m];
-          sr += s * Yr[m * NN + d];
-          si += s * (Yi[m * NN + d] - psi[m]);
+          sr += s * Yr[m];
+          si += s * (Yi[m] - psi[m]);
         }
         const mod = Math.exp(0.5 * h * sr);
-        Dr[j * N + i] = mod * Math.cos(0.5 * h * si);
-        Di[j * N + i] = mod * Math.sin(0.5 * h * si);
+        Dr[j] = mod * Math.cos(0.5 * h * si);
+        Di[j] = mod * Math.sin(0.5 * h * si);
       }
     }
     for (let j = 1; j < n1; j++) {
@@ -433,8 +485,8 @@ export function carryFarSolutions(
         uScale = Math.max(uScale, Math.abs(Ur[j * NN + e]) + Math.abs(Ui[j * NN + e]));
       }
     }
-    // φ by quadrature: dφ/dx = c (ψ − dS/dr*)
-    for (let j = 1; j < n1; j++) {
+    // φ by quadrature: dφ/dx = c (ψ − dS/dr*) (two channels: with D above)
+    for (let j = 1; j < n1 && N === 1; j++) {
       let s = 0;
       for (let m = 0; m < n1; m++) s += S[j * n1 + m] * c[m] * (psi[m] - dS[m]);
       phi[j] = phi[0] + 0.5 * h * s;
