@@ -107,23 +107,25 @@ export function complexLu(re: Float64Array, im: Float64Array, n: number, pivots:
       pivots[p] = tp;
     }
     // 1 / a_cc
-    const dr = re[c * n + c] / best;
-    const di = -im[c * n + c] / best;
-    re[c * n + c] = dr;
-    im[c * n + c] = di;
+    const rc = c * n;
+    const dr = re[rc + c] / best;
+    const di = -im[rc + c] / best;
+    re[rc + c] = dr;
+    im[rc + c] = di;
     for (let i = c + 1; i < n; i++) {
       // l = a_ic / a_cc
-      const ar = re[i * n + c];
-      const ai = im[i * n + c];
+      const ri = i * n;
+      const ar = re[ri + c];
+      const ai = im[ri + c];
       const lr = ar * dr - ai * di;
       const li = ai * dr + ar * di;
-      re[i * n + c] = lr;
-      im[i * n + c] = li;
+      re[ri + c] = lr;
+      im[ri + c] = li;
       for (let j = c + 1; j < n; j++) {
-        const br = re[c * n + j];
-        const bi = im[c * n + j];
-        re[i * n + j] -= lr * br - li * bi;
-        im[i * n + j] -= lr * bi + li * br;
+        const br = re[rc + j];
+        const bi = im[rc + j];
+        re[ri + j] -= lr * br - li * bi;
+        im[ri + j] -= lr * bi + li * br;
       }
     }
   }
