@@ -96,9 +96,11 @@ export function carryFarSolutions(
   const { n, nodes, S, C } = collocationRule();
   const n1 = n + 1;
   // Y, Ũ (complex, per node per entry at [j·NN + e]), φ (real, per node) and the Newton matrices: reused across calls
-  const { Yr, Yi, Ur, Ui, phi, c, dS, W, dW, Fr, Fi, Ir, Ii, Ar, Ai, piv, bRe, bIm, cRe, cIm, work, gr, gi, psi, Dr, Di, hS, Kr, Ki } =
+  const { Yr, Yi, Ur, Ui, phi, c, dS, W, dW, Fr, Fi, Ir, Ii, Ar, Ai, piv, bRe, bIm, rRe, rIm, rhsRe, rhsIm, work, gr, gi, psi, Dr, Di, hS, Kr, Ki } =
     workspace(N);
   const slotOf = N === 2 ? SLOTS_TWO : SLOTS_ONE;
+  const [r0Re, r1Re, r2Re, r3Re] = rhsRe;
+  const [r0Im, r1Im, r2Im, r3Im] = rhsIm;
   {
     // U' = E⁻¹ U, P' = E⁻¹ P (columns: the channels' solutions)
     const U: Complex[] = [];
@@ -298,36 +300,44 @@ export function carryFarSolutions(
       let change = 0;
       yScale = omega;
       nodeIntegrals(S, n1, Fr, Fi, NN, 0.5 * h, Ir, Ii);
-      for (let e = 0; e < NN; e++) {
-        // the two off-diagonal entries share their matrix: one solve with two right-hand sides
-        const pair = N === 2 && e === 1;
+      if (N === 2) {
+        // residuals of the four entries in one pass ([e·n + j − 1]), their solves (the two off-diagonal
+        // entries share their matrix: one solve with two right-hand sides), the updates in one pass
         for (let j = 1; j < n1; j++) {
-          bRe[j - 1] = Ir[(j - 1) * NN + e] - (Yr[j * NN + e] - Yr[e]);
-          bIm[j - 1] = Ii[(j - 1) * NN + e] - (Yi[j * NN + e] - Yi[e]);
-        }
-        if (pair) {
-          for (let j = 1; j < n1; j++) {
-            cRe[j - 1] = Ir[(j - 1) * NN + 2] - (Yr[j * NN + 2] - Yr[2]);
-            cIm[j - 1] = Ii[(j - 1) * NN + 2] - (Yi[j * NN + 2] - Yi[2]);
+          const o = 4 * j;
+          const q = 4 * (j - 1);
+          for (let e = 0; e < 4; e++) {
+            rRe[e * n + j - 1] = Ir[q + e] - (Yr[o + e] - Yr[e]);
+            rIm[e * n + j - 1] = Ii[q + e] - (Yi[o + e] - Yi[e]);
           }
         }
-        const slot = slotOf[e];
-        if (pair) complexLuSolve(Ar[slot], Ai[slot], n, piv[slot], bRe, bIm, work, cRe, cIm);
-        else complexLuSolve(Ar[slot], Ai[slot], n, piv[slot], bRe, bIm, work);
+        complexLuSolve(Ar[0], Ai[0], n, piv[0], r0Re, r0Im, work);
+        complexLuSolve(Ar[1], Ai[1], n, piv[1], r1Re, r1Im, work, r2Re, r2Im);
+        complexLuSolve(Ar[2], Ai[2], n, piv[2], r3Re, r3Im, work);
         for (let j = 1; j < n1; j++) {
-          Yr[j * NN + e] += bRe[j - 1];
-          Yi[j * NN + e] += bIm[j - 1];
+          const o = 4 * j;
+          for (let e = 0; e < 4; e++) {
+            const dr = rRe[e * n + j - 1];
+            const di = rIm[e * n + j - 1];
+            const yr = Yr[o + e] + dr;
+            const yi = Yi[o + e] + di;
+            Yr[o + e] = yr;
+            Yi[o + e] = yi;
+            change = Math.max(change, Math.abs(dr) + Math.abs(di));
+            yScale = Math.max(yScale, Math.abs(yr) + Math.abs(yi));
+          }
+        }
+      } else {
+        for (let j = 1; j < n1; j++) {
+          bRe[j - 1] = Ir[j - 1] - (Yr[j] - Yr[0]);
+          bIm[j - 1] = Ii[j - 1] - (Yi[j] - Yi[0]);
+        }
+        complexLuSolve(Ar[0], Ai[0], n, piv[0], bRe, bIm, work);
+        for (let j = 1; j < n1; j++) {
+          Yr[j] += bRe[j - 1];
+          Yi[j] += bIm[j - 1];
           change = Math.max(change, Math.abs(bRe[j - 1]) + Math.abs(bIm[j - 1]));
-          yScale = Math.max(yScale, Math.abs(Yr[j * NN + e]) + Math.abs(Yi[j * NN + e]));
-        }
-        if (pair) {
-          for (let j = 1; j < n1; j++) {
-            Yr[j * NN + 2] += cRe[j - 1];
-            Yi[j * NN + 2] += cIm[j - 1];
-            change = Math.max(change, Math.abs(cRe[j - 1]) + Math.abs(cIm[j - 1]));
-            yScale = Math.max(yScale, Math.abs(Yr[j * NN + 2]) + Math.abs(Yi[j * NN + 2]));
-          }
-          e = 2;
+          yScale = Math.max(yScale, Math.abs(Yr[j]) + Math.abs(Yi[j]));
         }
       }
       if (!Number.isFinite(change)) return Infinity;
@@ -710,9 +720,11 @@ interface Workspace {
   piv: Int32Array[];
   bRe: Float64Array;
   bIm: Float64Array;
-  /** the second right-hand side of the paired off-diagonal solve */
-  cRe: Float64Array;
-  cIm: Float64Array;
+  /** the Newton right-hand sides of the four entries (two channels), [e·n + j − 1], and a view of each */
+  rRe: Float64Array;
+  rIm: Float64Array;
+  rhsRe: Float64Array[];
+  rhsIm: Float64Array[];
   work: Float64Array;
   /** (h/2) S[1.., 1..] of the current interval, n×n */
   hS: Float64Array;
@@ -756,8 +768,10 @@ function workspace(N: number): Workspace {
     piv: Array.from({ length: slots }, () => new Int32Array(n)),
     bRe: new Float64Array(n),
     bIm: new Float64Array(n),
-    cRe: new Float64Array(n),
-    cIm: new Float64Array(n),
+    rRe: new Float64Array(4 * n),
+    rIm: new Float64Array(4 * n),
+    rhsRe: [],
+    rhsIm: [],
     work: new Float64Array(4 * n),
     hS: new Float64Array(n * n),
     gr: new Float64Array(n1),
@@ -768,6 +782,10 @@ function workspace(N: number): Workspace {
     Dr: new Float64Array(n1 * N),
     Di: new Float64Array(n1 * N),
   };
+  for (let e = 0; e < 4; e++) {
+    made.rhsRe.push(made.rRe.subarray(e * n, (e + 1) * n));
+    made.rhsIm.push(made.rIm.subarray(e * n, (e + 1) * n));
+  }
   WORKSPACES[N] = made;
   return made;
 }
