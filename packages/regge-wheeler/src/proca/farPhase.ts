@@ -299,18 +299,10 @@ export function carryFarSolutions(
       }
       let change = 0;
       yScale = omega;
-      nodeIntegrals(S, n1, Fr, Fi, NN, 0.5 * h, Ir, Ii);
       if (N === 2) {
-        // residuals of the four entries in one pass ([e·n + j − 1]), their solves (the two off-diagonal
+        // residuals of the four entries in the pass over S ([e·n + j − 1]), their solves (the two off-diagonal
         // entries share their matrix: one solve with two right-hand sides), the updates in one pass
-        for (let j = 1; j < n1; j++) {
-          const o = 4 * j;
-          const q = 4 * (j - 1);
-          for (let e = 0; e < 4; e++) {
-            rRe[e * n + j - 1] = Ir[q + e] - (Yr[o + e] - Yr[e]);
-            rIm[e * n + j - 1] = Ii[q + e] - (Yi[o + e] - Yi[e]);
-          }
-        }
+        residuals(S, n1, Fr, Fi, 0.5 * h, Yr, Yi, rRe, rIm);
         complexLuSolve(Ar[0], Ai[0], n, piv[0], r0Re, r0Im, work);
         complexLuSolve(Ar[1], Ai[1], n, piv[1], r1Re, r1Im, work, r2Re, r2Im);
         complexLuSolve(Ar[2], Ai[2], n, piv[2], r3Re, r3Im, work);
@@ -328,6 +320,7 @@ export function carryFarSolutions(
           }
         }
       } else {
+        nodeIntegrals(S, n1, Fr, Fi, NN, 0.5 * h, Ir, Ii);
         for (let j = 1; j < n1; j++) {
           bRe[j - 1] = Ir[j - 1] - (Yr[j] - Yr[0]);
           bIm[j - 1] = Ii[j - 1] - (Yi[j] - Yi[0]);
@@ -694,6 +687,57 @@ function nodeIntegrals(
     }
     outR[j - 1] = scale * sr;
     outI[j - 1] = scale * si;
+  }
+}
+
+/**
+ * The Newton residuals of two channels: r[e·n + j − 1] = scale Σ_m S_jm f[4m + e] − (y[4j + e] − y[e])
+ * (re, im) for j = 1 … n, e < 4, in one pass over S (n = n1 − 1).
+ */
+function residuals(
+  S: Float64Array,
+  n1: number,
+  fr: Float64Array,
+  fi: Float64Array,
+  scale: number,
+  yr: Float64Array,
+  yi: Float64Array,
+  outR: Float64Array,
+  outI: Float64Array,
+): void {
+  const n = n1 - 1;
+  for (let j = 1; j < n1; j++) {
+    const row = j * n1;
+    let r0 = 0;
+    let r1 = 0;
+    let r2 = 0;
+    let r3 = 0;
+    let i0 = 0;
+    let i1 = 0;
+    let i2 = 0;
+    let i3 = 0;
+    for (let m = 0; m < n1; m++) {
+      const s = S[row + m];
+      const k = 4 * m;
+      r0 += s * fr[k];
+      r1 += s * fr[k + 1];
+      r2 += s * fr[k + 2];
+      r3 += s * fr[k + 3];
+      i0 += s * fi[k];
+      i1 += s * fi[k + 1];
+      i2 += s * fi[k + 2];
+      i3 += s * fi[k + 3];
+    }
+    const o = 4 * j;
+    const q = j - 1;
+    outR[q] = scale * r0 - (yr[o] - yr[0]);
+    outR[n + q] = scale * r1 - (yr[o + 1] - yr[1]);
+    outR[2 * n + q] = scale * r2 - (yr[o + 2] - yr[2]);
+    outR[3 * n + q] = scale * r3 - (yr[o + 3] - yr[3]);
+    outI[q] = scale * i0 - (yi[o] - yi[0]);
+    outI[n + q] = scale * i1 - (yi[o + 1] - yi[1]);
+    outI[2 * n + q] = scale * i2 - (yi[o + 2] - yi[2]);
+    outI[3 * n + q] = scale * i3 - (yi[o + 3] - yi[3]);
   }
 }
 
