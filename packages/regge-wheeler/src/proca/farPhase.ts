@@ -96,7 +96,7 @@ export function carryFarSolutions(
   const { n, nodes, S, C } = collocationRule();
   const n1 = n + 1;
   // Y, Ũ (complex, per node per entry at [j·NN + e]), φ (real, per node) and the Newton matrices: reused across calls
-  const { Yr, Yi, Ur, Ui, phi, c, dS, W, dW, Fr, Fi, Ir, Ii, Ar, Ai, piv, bRe, bIm, rRe, rIm, rhsRe, rhsIm, work, gr, gi, psi, Dr, Di, hS, Kr, Ki } =
+  const { Yr, Yi, Ur, Ui, phi, c, dS, W, dW, Fr, Fi, Ir, Ii, Ar, Ai, piv, bRe, bIm, rRe, rIm, rhsRe, rhsIm, work, gr, gi, hr, hi, psi, Dr, Di, hS, Kr, Ki } =
     workspace(N);
   const slotOf = N === 2 ? SLOTS_TWO : SLOTS_ONE;
   const [r0Re, r1Re, r2Re, r3Re] = rhsRe;
@@ -226,6 +226,38 @@ export function carryFarSolutions(
     }
     return complexLu(R, I, n, piv[e]);
   };
+  /** The three Newton matrices of two channels, multipliers −2cY_00, −c(Y_00 + Y_11), −2cY_11, built in one pass. */
+  const factorTwo = (): boolean => {
+    for (let m = 1; m < n1; m++) {
+      const o = 4 * m;
+      gr[m] = -2 * c[m] * Yr[o];
+      gi[m] = -2 * c[m] * Yi[o];
+      hr[m] = -2 * c[m] * Yr[o + 3];
+      hi[m] = -2 * c[m] * Yi[o + 3];
+    }
+    const [R0, R1, R2] = Ar;
+    const [I0, I1, I2] = Ai;
+    for (let j = 0; j < n; j++) {
+      const row = j * n;
+      for (let m = 0; m < n; m++) {
+        const s = hS[row + m];
+        const ar = s * gr[m + 1];
+        const ai = s * gi[m + 1];
+        const br = s * hr[m + 1];
+        const bi = s * hi[m + 1];
+        R0[row + m] = -ar;
+        I0[row + m] = -ai;
+        R1[row + m] = -0.5 * (ar + br);
+        I1[row + m] = -0.5 * (ai + bi);
+        R2[row + m] = -br;
+        I2[row + m] = -bi;
+      }
+      R0[row + j] += 1;
+      R1[row + j] += 1;
+      R2[row + j] += 1;
+    }
+    return complexLu(R0, I0, n, piv[0]) && complexLu(R1, I1, n, piv[1]) && complexLu(R2, I2, n, piv[2]);
+  };
   const tail = (vr: Float64Array, vi: Float64Array, e: number, stride: number): number => {
     let t = 0;
     for (let row = n - 1; row <= n; row++) {
@@ -286,7 +318,10 @@ export function carryFarSolutions(
       for (let j = 1; j < n1; j++) riccati(j);
       if (it === 0 || contraction > REFACTOR_CONTRACTION) {
         // entry (i, j) of the Jacobian −c(Yδ + δY) without the off-diagonal Y: −c(Y_ii + Y_jj) (exact for one channel)
-        for (let e = 0; e < NN; e++) {
+        if (N === 2) {
+          if (!factorTwo()) return Infinity;
+        }
+        for (let e = 0; e < NN && N === 1; e++) {
           if (e > 0 && slotOf[e] === slotOf[e - 1]) continue;
           const a = Math.floor(e / N) * (N + 1);
           const b = (e % N) * (N + 1);
@@ -774,6 +809,8 @@ interface Workspace {
   hS: Float64Array;
   gr: Float64Array;
   gi: Float64Array;
+  hr: Float64Array;
+  hi: Float64Array;
   psi: Float64Array;
   /** K_01, K_10 of the Picard iteration (two channels) per node, [2j + i] */
   Kr: Float64Array;
@@ -820,6 +857,8 @@ function workspace(N: number): Workspace {
     hS: new Float64Array(n * n),
     gr: new Float64Array(n1),
     gi: new Float64Array(n1),
+    hr: new Float64Array(n1),
+    hi: new Float64Array(n1),
     psi: new Float64Array(n1),
     Kr: new Float64Array(2 * n1),
     Ki: new Float64Array(2 * n1),
