@@ -96,7 +96,7 @@ export function carryFarSolutions(
   const { n, nodes, S, C } = collocationRule();
   const n1 = n + 1;
   // Y, Ũ (complex, per node per entry at [j·NN + e]), φ (real, per node) and the Newton matrices: reused across calls
-  const { Yr, Yi, Ur, Ui, phi, c, dS, W, dW, Fr, Fi, Ir, Ii, Ar, Ai, piv, bRe, bIm, rRe, rIm, rhsRe, rhsIm, work, gr, gi, hr, hi, psi, Dr, Di, hS, Kr, Ki } =
+  const { Yr, Yi, Ur, Ui, phi, c, dS, W, dW, Fr, Fi, Ir, Ii, Ar, Ai, piv, bRe, bIm, rRe, rIm, rhsRe, rhsIm, work, gr, gi, hr, hi, psi, Dr, Di, Sin, Kr, Ki } =
     workspace(N);
   const slotOf = N === 2 ? SLOTS_TWO : SLOTS_ONE;
   const [r0Re, r1Re, r2Re, r3Re] = rhsRe;
@@ -205,20 +205,14 @@ export function carryFarSolutions(
       }
     }
   };
-  /** hS = (h/2) S[1.., 1..] (n×n), once per interval for the factorisations of its Newton matrices. */
-  const scaleS = (h: number): void => {
-    for (let j = 1; j < n1; j++) {
-      for (let m = 1; m < n1; m++) hS[(j - 1) * n + m - 1] = 0.5 * h * S[j * n1 + m];
-    }
-  };
-  /** Factor A_e = I − hS diag(a) (a complex per node) into slot e; false when singular. */
+  /** Factor A_e = I − S[1.., 1..] diag(a) (a complex per node, the factor h/2 included) into slot e; false when singular. */
   const factor = (ar: Float64Array, ai: Float64Array, e: number): boolean => {
     const R = Ar[e];
     const I = Ai[e];
     for (let j = 0; j < n; j++) {
       const row = j * n;
       for (let m = 0; m < n; m++) {
-        const s = hS[row + m];
+        const s = Sin[row + m];
         R[row + m] = -s * ar[m + 1];
         I[row + m] = -s * ai[m + 1];
       }
@@ -226,21 +220,25 @@ export function carryFarSolutions(
     }
     return complexLu(R, I, n, piv[e]);
   };
-  /** The three Newton matrices of two channels, multipliers −2cY_00, −c(Y_00 + Y_11), −2cY_11, built in one pass. */
-  const factorTwo = (): boolean => {
+  /**
+   * The three Newton matrices of two channels, I − (h/2) S[1.., 1..] diag(a) with a = −2cY_00, −c(Y_00 + Y_11),
+   * −2cY_11, built in one pass.
+   */
+  const factorTwo = (h: number): boolean => {
     for (let m = 1; m < n1; m++) {
       const o = 4 * m;
-      gr[m] = -2 * c[m] * Yr[o];
-      gi[m] = -2 * c[m] * Yi[o];
-      hr[m] = -2 * c[m] * Yr[o + 3];
-      hi[m] = -2 * c[m] * Yi[o + 3];
+      const s = -h * c[m];
+      gr[m] = s * Yr[o];
+      gi[m] = s * Yi[o];
+      hr[m] = s * Yr[o + 3];
+      hi[m] = s * Yi[o + 3];
     }
     const [R0, R1, R2] = Ar;
     const [I0, I1, I2] = Ai;
     for (let j = 0; j < n; j++) {
       const row = j * n;
       for (let m = 0; m < n; m++) {
-        const s = hS[row + m];
+        const s = Sin[row + m];
         const ar = s * gr[m + 1];
         const ai = s * gi[m + 1];
         const br = s * hr[m + 1];
@@ -312,22 +310,21 @@ export function carryFarSolutions(
     let yScale = omega;
     let previous = Infinity;
     let contraction = 1;
-    scaleS(h);
     for (let it = 0; ; it++) {
       if (it > MAX_NEWTON) return Infinity;
       for (let j = 1; j < n1; j++) riccati(j);
       if (it === 0 || contraction > REFACTOR_CONTRACTION) {
         // entry (i, j) of the Jacobian −c(Yδ + δY) without the off-diagonal Y: −c(Y_ii + Y_jj) (exact for one channel)
         if (N === 2) {
-          if (!factorTwo()) return Infinity;
+          if (!factorTwo(h)) return Infinity;
         }
         for (let e = 0; e < NN && N === 1; e++) {
           if (e > 0 && slotOf[e] === slotOf[e - 1]) continue;
           const a = Math.floor(e / N) * (N + 1);
           const b = (e % N) * (N + 1);
           for (let m = 0; m < n1; m++) {
-            gr[m] = -c[m] * (Yr[m * NN + a] + Yr[m * NN + b]);
-            gi[m] = -c[m] * (Yi[m * NN + a] + Yi[m * NN + b]);
+            gr[m] = -0.5 * h * c[m] * (Yr[m * NN + a] + Yr[m * NN + b]);
+            gi[m] = -0.5 * h * c[m] * (Yi[m * NN + a] + Yi[m * NN + b]);
           }
           if (!factor(gr, gi, slotOf[e])) return Infinity;
         }
@@ -805,8 +802,8 @@ interface Workspace {
   rhsRe: Float64Array[];
   rhsIm: Float64Array[];
   work: Float64Array;
-  /** (h/2) S[1.., 1..] of the current interval, n×n */
-  hS: Float64Array;
+  /** S[1.., 1..], n×n: the integration matrix of the Newton matrices */
+  Sin: Float64Array;
   gr: Float64Array;
   gi: Float64Array;
   hr: Float64Array;
@@ -854,7 +851,7 @@ function workspace(N: number): Workspace {
     rhsRe: [],
     rhsIm: [],
     work: new Float64Array(4 * n),
-    hS: new Float64Array(n * n),
+    Sin: new Float64Array(n * n),
     gr: new Float64Array(n1),
     gi: new Float64Array(n1),
     hr: new Float64Array(n1),
@@ -868,6 +865,10 @@ function workspace(N: number): Workspace {
   for (let e = 0; e < 4; e++) {
     made.rhsRe.push(made.rRe.subarray(e * n, (e + 1) * n));
     made.rhsIm.push(made.rIm.subarray(e * n, (e + 1) * n));
+  }
+  const { S } = collocationRule();
+  for (let j = 1; j < n1; j++) {
+    for (let m = 1; m < n1; m++) made.Sin[(j - 1) * n + m - 1] = S[j * n1 + m];
   }
   WORKSPACES[N] = made;
   return made;
