@@ -510,7 +510,8 @@ export function carryFarSolutions(
     uScale = 0;
     for (let j = 1; j < n1; j++) {
       for (let e = 0; e < NN; e++) {
-        const i = Math.floor(e / N);
+        // row i = ⌊e / N⌋
+        const i = N === 2 ? e >> 1 : 0;
         const dr = Dr[j * N + i];
         const di = Di[j * N + i];
         const vr = Ur[j * NN + e];
@@ -528,8 +529,10 @@ export function carryFarSolutions(
     }
     // error: the last two Chebyshev coefficients, Y against |Y| + ω, Ũ against |Ũ|, φ absolute
     let err = 0;
-    for (let e = 0; e < NN; e++) {
-      err = Math.max(err, tail(Yr, Yi, e, NN) / yScale, tail(Ur, Ui, e, NN) / uScale);
+    if (N === 2) {
+      err = Math.max(tails(C, n1, Yr, Yi) / yScale, tails(C, n1, Ur, Ui) / uScale);
+    } else {
+      err = Math.max(tail(Yr, Yi, 0, 1) / yScale, tail(Ur, Ui, 0, 1) / uScale);
     }
     err = Math.max(err, tail(phi, ZEROS, 0, 1));
     return err / tolerance;
@@ -720,6 +723,46 @@ function nodeIntegrals(
     outR[j - 1] = scale * sr;
     outI[j - 1] = scale * si;
   }
+}
+
+/**
+ * The largest over the four entries (two channels; v[4m + e]) of |a_{n−1}| + |a_n|, the last two Chebyshev
+ * coefficients (rows n − 1, n of C), in one pass.
+ */
+function tails(C: Float64Array, n1: number, vr: Float64Array, vi: Float64Array): number {
+  const n = n1 - 1;
+  let t0 = 0;
+  let t1 = 0;
+  let t2 = 0;
+  let t3 = 0;
+  for (let row = n - 1; row <= n; row++) {
+    let r0 = 0;
+    let r1 = 0;
+    let r2 = 0;
+    let r3 = 0;
+    let i0 = 0;
+    let i1 = 0;
+    let i2 = 0;
+    let i3 = 0;
+    const o = row * n1;
+    for (let m = 0; m < n1; m++) {
+      const s = C[o + m];
+      const k = 4 * m;
+      r0 += s * vr[k];
+      r1 += s * vr[k + 1];
+      r2 += s * vr[k + 2];
+      r3 += s * vr[k + 3];
+      i0 += s * vi[k];
+      i1 += s * vi[k + 1];
+      i2 += s * vi[k + 2];
+      i3 += s * vi[k + 3];
+    }
+    t0 += Math.sqrt(r0 * r0 + i0 * i0);
+    t1 += Math.sqrt(r1 * r1 + i1 * i1);
+    t2 += Math.sqrt(r2 * r2 + i2 * i2);
+    t3 += Math.sqrt(r3 * r3 + i3 * i3);
+  }
+  return Math.max(t0, t1, t2, t3);
 }
 
 /**
