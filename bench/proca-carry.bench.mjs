@@ -4,7 +4,8 @@
 // interleaved batches of 10 ms, best of 15 each, on the same inputs: the far start radius and step tolerance of the
 // default route (singleExtrapolationSolve at tol 1e-10), the series solutions there, carried in to the
 // default phase radius with the default slack. Prints the ratio and the largest relative difference of the
-// carried solutions (each entry against the largest entry of its column).
+// carried solutions (each entry against the largest entry of its column); then Γ of even-1 and even-2
+// (procaGreybody, default options) of both builds and their relative difference.
 // Run after `npm run build`: node bench/proca-carry.bench.mjs
 import { fmt, table } from './lib.mjs';
 
@@ -18,6 +19,10 @@ const load = async (dir) => ({
   ...(await import(`${dir}greybody.js`)),
 });
 const builds = [await load(here), await load(baseDir)];
+const greybodies = [
+  await import(new URL('../packages/regge-wheeler/dist/proca/greybody.js', import.meta.url).pathname),
+  await import(`${baseDir}greybody.js`),
+];
 
 const best = (f, batches) => {
   let b = Infinity;
@@ -98,3 +103,29 @@ console.log(
     rows,
   ),
 );
+
+const gammaRows = [];
+for (const [l, omega, mu] of [
+  [1, 0.3, 0.2996],
+  [2, 0.8, 0.799],
+  [2, 0.8, 0.792],
+  [3, 1.5, 1.498],
+  [3, 1.5, 1.485],
+]) {
+  for (const polarization of ['even-1', 'even-2']) {
+    const problem = { field: { spin: 1, mass: mu }, l, omega, polarization };
+    const [a, b] = greybodies.map((g) => g.procaGreybody(problem).gamma);
+    gammaRows.push([l, omega, mu, polarization, 'default', a.toExponential(12), b.toExponential(12), fmt(Math.abs(a / b - 1), 2)]);
+  }
+  // one integration with the carry forced to the default phase radius (step tolerance 1e-11)
+  const [fa, fb] = builds.map((lib) => {
+    const model = lib.sectorModel('even', l, omega, mu);
+    const controls = { startOffset: lib.singleStartOffset(model), stepTolerance: 1e-11, phaseRadius: lib.defaultPhaseRadius(model) };
+    return lib.integrateProca(model, controls).gammas;
+  });
+  for (let i = 0; i < 2; i++) {
+    gammaRows.push([l, omega, mu, `even-${i + 1}`, 'carry forced', fa[i].toExponential(12), fb[i].toExponential(12), fmt(Math.abs(fa[i] / fb[i] - 1), 2)]);
+  }
+}
+console.log();
+console.log(table(['l', 'Mω', 'Mμ', 'polarisation', 'route', 'Γ new', 'Γ base', '|ΔΓ|/Γ'], gammaRows));

@@ -148,6 +148,22 @@ export function carryFarSolutions(
       c[j] = -r / f;
       dS[j] = k + (f * eta) / r;
       const diag = f * (mu2 + L * yr * yr) - w2;
+      if (N === 2) {
+        const y2 = yr * yr;
+        const fy2 = f * y2;
+        const o = 4 * j;
+        W[o] = fy2 * (q0[0] + q1[0] * yr) + diag;
+        W[o + 1] = fy2 * (q0[1] + q1[1] * yr);
+        W[o + 2] = fy2 * (q0[2] + q1[2] * yr);
+        W[o + 3] = fy2 * (q0[3] + q1[3] * yr) + diag;
+        for (let i = 0; i < 2; i++) {
+          const d = 3 * i;
+          const g = mu2 + (L + q0[d]) * y2 + q1[d] * y2 * yr;
+          const dg = 2 * (L + q0[d]) * yr + 3 * q1[d] * y2;
+          dW[2 * j + i] = -fy2 * (-2 * g + f * dg);
+        }
+        continue;
+      }
       for (let e = 0; e < NN; e++) W[j * NN + e] = f * yr * yr * (q0[e] + q1[e] * yr);
       for (let i = 0; i < N; i++) {
         const d = i * (N + 1);
