@@ -115,16 +115,38 @@ for (const [l, omega, mu] of [
   for (const polarization of ['even-1', 'even-2']) {
     const problem = { field: { spin: 1, mass: mu }, l, omega, polarization };
     const [a, b] = greybodies.map((g) => g.procaGreybody(problem).gamma);
-    gammaRows.push([l, omega, mu, polarization, 'default', a.toExponential(12), b.toExponential(12), fmt(Math.abs(a / b - 1), 2)]);
+    gammaRows.push([
+      l,
+      omega,
+      mu,
+      polarization,
+      'default',
+      a.toExponential(12),
+      b.toExponential(12),
+      fmt(Math.abs(a / b - 1), 2),
+    ]);
   }
   // one integration with the carry forced to the default phase radius (step tolerance 1e-11)
   const [fa, fb] = builds.map((lib) => {
     const model = lib.sectorModel('even', l, omega, mu);
-    const controls = { startOffset: lib.singleStartOffset(model), stepTolerance: 1e-11, phaseRadius: lib.defaultPhaseRadius(model) };
+    const controls = {
+      startOffset: lib.singleStartOffset(model),
+      stepTolerance: 1e-11,
+      phaseRadius: lib.defaultPhaseRadius(model),
+    };
     return lib.integrateProca(model, controls).gammas;
   });
   for (let i = 0; i < 2; i++) {
-    gammaRows.push([l, omega, mu, `even-${i + 1}`, 'carry forced', fa[i].toExponential(12), fb[i].toExponential(12), fmt(Math.abs(fa[i] / fb[i] - 1), 2)]);
+    gammaRows.push([
+      l,
+      omega,
+      mu,
+      `even-${i + 1}`,
+      'carry forced',
+      fa[i].toExponential(12),
+      fb[i].toExponential(12),
+      fmt(Math.abs(fa[i] / fb[i] - 1), 2),
+    ]);
   }
 }
 console.log();

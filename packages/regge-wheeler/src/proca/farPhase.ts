@@ -96,8 +96,41 @@ export function carryFarSolutions(
   const { n, nodes, S, C } = collocationRule();
   const n1 = n + 1;
   // Y, Ũ (complex, per node per entry at [j·NN + e]), φ (real, per node) and the Newton matrices: reused across calls
-  const { Yr, Yi, Ur, Ui, phi, c, dS, W, dW, Fr, Fi, Ir, Ii, Ar, Ai, piv, bRe, bIm, rRe, rIm, rhsRe, rhsIm, work, gr, gi, hr, hi, psi, Dr, Di, Sin, Kr, Ki } =
-    workspace(N);
+  const {
+    Yr,
+    Yi,
+    Ur,
+    Ui,
+    phi,
+    c,
+    dS,
+    W,
+    dW,
+    Fr,
+    Fi,
+    Ir,
+    Ii,
+    Ar,
+    Ai,
+    piv,
+    bRe,
+    bIm,
+    rRe,
+    rIm,
+    rhsRe,
+    rhsIm,
+    work,
+    gr,
+    gi,
+    hr,
+    hi,
+    psi,
+    Dr,
+    Di,
+    Sin,
+    Kr,
+    Ki,
+  } = workspace(N);
   const slotOf = N === 2 ? SLOTS_TWO : SLOTS_ONE;
   const [r0Re, r1Re, r2Re, r3Re] = rhsRe;
   const [r0Im, r1Im, r2Im, r3Im] = rhsIm;
