@@ -1,7 +1,7 @@
 // The phase-form carry of the Proca far solutions alone (carryFarSolutions,
 // packages/regge-wheeler/src/proca/farPhase.ts), even sector (two channels) near threshold:
 // CPU time per carry of this build against a baseline build (PROCA_BASELINE, default /tmp/base-e7f),
-// interleaved batches of 10 ms, best of 15 each, on the same inputs: the far start radius and step tolerance of the
+// interleaved batches of 5 ms, best of 40 each, on the same inputs: the far start radius and step tolerance of the
 // default route (singleExtrapolationSolve at tol 1e-10), the series solutions there, carried in to the
 // default phase radius with the default slack. Prints the ratio and the largest relative difference of the
 // carried solutions (each entry against the largest entry of its column); then Γ of even-1 and even-2
@@ -34,7 +34,7 @@ const best = (f, batches) => {
       f();
       n++;
       d = process.cpuUsage(t);
-    } while (d.user + d.system < 10_000);
+    } while (d.user + d.system < 5_000);
     b = Math.min(b, (d.user + d.system) / 1000 / n);
   }
   return b;
@@ -77,7 +77,7 @@ for (const [l, omega, mu] of [
   }
   let ta = Infinity;
   let tb = Infinity;
-  for (let round = 0; round < 15; round++) {
+  for (let round = 0; round < 40; round++) {
     ta = Math.min(ta, best(a.run, 1));
     tb = Math.min(tb, best(b.run, 1));
   }
