@@ -74,7 +74,9 @@ export function chebyshevRule(n: number): ChebyshevRule {
 
 /**
  * LU factorisation in place of a complex n×n matrix (re, im row-major) with
- * partial pivoting; `pivots` receives the row order. Returns false when singular.
+ * partial pivoting; `pivots` receives the row order. The diagonal of U is
+ * stored as its reciprocal, so that solves multiply instead of divide.
+ * Returns false when singular.
  */
 export function complexLu(re: Float64Array, im: Float64Array, n: number, pivots: Int32Array): boolean {
   for (let i = 0; i < n; i++) pivots[i] = i;
@@ -104,28 +106,36 @@ export function complexLu(re: Float64Array, im: Float64Array, n: number, pivots:
       pivots[c] = pivots[p];
       pivots[p] = tp;
     }
-    const dr = re[c * n + c];
-    const di = im[c * n + c];
+    // 1 / a_cc
+    const rc = c * n;
+    const dr = re[rc + c] / best;
+    const di = -im[rc + c] / best;
+    re[rc + c] = dr;
+    im[rc + c] = di;
     for (let i = c + 1; i < n; i++) {
       // l = a_ic / a_cc
-      const ar = re[i * n + c];
-      const ai = im[i * n + c];
-      const lr = (ar * dr + ai * di) / best;
-      const li = (ai * dr - ar * di) / best;
-      re[i * n + c] = lr;
-      im[i * n + c] = li;
+      const ri = i * n;
+      const ar = re[ri + c];
+      const ai = im[ri + c];
+      const lr = ar * dr - ai * di;
+      const li = ai * dr + ar * di;
+      re[ri + c] = lr;
+      im[ri + c] = li;
       for (let j = c + 1; j < n; j++) {
-        const br = re[c * n + j];
-        const bi = im[c * n + j];
-        re[i * n + j] -= lr * br - li * bi;
-        im[i * n + j] -= lr * bi + li * br;
+        const br = re[rc + j];
+        const bi = im[rc + j];
+        re[ri + j] -= lr * br - li * bi;
+        im[ri + j] -= lr * bi + li * br;
       }
     }
   }
   return true;
 }
 
-/** Solve with an LU from complexLu: b (re, im, length n) is overwritten by x. */
+/**
+ * Solve with an LU from complexLu for one or two right-hand sides: b (re, im, length n) is overwritten by x,
+ * and so is c when given (the two share the passes over the factors).
+ */
 export function complexLuSolve(
   re: Float64Array,
   im: Float64Array,
@@ -134,7 +144,13 @@ export function complexLuSolve(
   bRe: Float64Array,
   bIm: Float64Array,
   work: Float64Array,
+  cRe?: Float64Array,
+  cIm?: Float64Array,
 ): void {
+  if (cRe && cIm) {
+    solveTwo(re, im, n, pivots, bRe, bIm, cRe, cIm, work);
+    return;
+  }
   // permute: work[0..n) = re, work[n..2n) = im
   for (let i = 0; i < n; i++) {
     work[i] = bRe[pivots[i]];
@@ -143,9 +159,10 @@ export function complexLuSolve(
   for (let i = 0; i < n; i++) {
     let sr = work[i];
     let si = work[n + i];
+    const row = i * n;
     for (let j = 0; j < i; j++) {
-      const lr = re[i * n + j];
-      const li = im[i * n + j];
+      const lr = re[row + j];
+      const li = im[row + j];
       sr -= lr * work[j] - li * work[n + j];
       si -= lr * work[n + j] + li * work[j];
     }
@@ -155,20 +172,99 @@ export function complexLuSolve(
   for (let i = n - 1; i >= 0; i--) {
     let sr = work[i];
     let si = work[n + i];
+    const row = i * n;
     for (let j = i + 1; j < n; j++) {
-      const ur = re[i * n + j];
-      const ui = im[i * n + j];
+      const ur = re[row + j];
+      const ui = im[row + j];
       sr -= ur * work[j] - ui * work[n + j];
       si -= ur * work[n + j] + ui * work[j];
     }
-    const dr = re[i * n + i];
-    const di = im[i * n + i];
-    const d = dr * dr + di * di;
-    work[i] = (sr * dr + si * di) / d;
-    work[n + i] = (si * dr - sr * di) / d;
+    const dr = re[row + i];
+    const di = im[row + i];
+    const xr = sr * dr - si * di;
+    const xi = si * dr + sr * di;
+    work[i] = xr;
+    work[n + i] = xi;
+    bRe[i] = xr;
+    bIm[i] = xi;
+  }
+}
+
+/** complexLuSolve for two right-hand sides b and c; work holds 4n. */
+function solveTwo(
+  re: Float64Array,
+  im: Float64Array,
+  n: number,
+  pivots: Int32Array,
+  bRe: Float64Array,
+  bIm: Float64Array,
+  cRe: Float64Array,
+  cIm: Float64Array,
+  work: Float64Array,
+): void {
+  const n2 = 2 * n;
+  const n3 = 3 * n;
+  for (let i = 0; i < n; i++) {
+    const q = pivots[i];
+    work[i] = bRe[q];
+    work[n + i] = bIm[q];
+    work[n2 + i] = cRe[q];
+    work[n3 + i] = cIm[q];
   }
   for (let i = 0; i < n; i++) {
-    bRe[i] = work[i];
-    bIm[i] = work[n + i];
+    let sr = work[i];
+    let si = work[n + i];
+    let tr = work[n2 + i];
+    let ti = work[n3 + i];
+    const row = i * n;
+    for (let j = 0; j < i; j++) {
+      const lr = re[row + j];
+      const li = im[row + j];
+      const xr = work[j];
+      const xi = work[n + j];
+      const yr = work[n2 + j];
+      const yi = work[n3 + j];
+      sr -= lr * xr - li * xi;
+      si -= lr * xi + li * xr;
+      tr -= lr * yr - li * yi;
+      ti -= lr * yi + li * yr;
+    }
+    work[i] = sr;
+    work[n + i] = si;
+    work[n2 + i] = tr;
+    work[n3 + i] = ti;
+  }
+  for (let i = n - 1; i >= 0; i--) {
+    let sr = work[i];
+    let si = work[n + i];
+    let tr = work[n2 + i];
+    let ti = work[n3 + i];
+    const row = i * n;
+    for (let j = i + 1; j < n; j++) {
+      const ur = re[row + j];
+      const ui = im[row + j];
+      const xr = work[j];
+      const xi = work[n + j];
+      const yr = work[n2 + j];
+      const yi = work[n3 + j];
+      sr -= ur * xr - ui * xi;
+      si -= ur * xi + ui * xr;
+      tr -= ur * yr - ui * yi;
+      ti -= ur * yi + ui * yr;
+    }
+    const dr = re[row + i];
+    const di = im[row + i];
+    const xr = sr * dr - si * di;
+    const xi = si * dr + sr * di;
+    const yr = tr * dr - ti * di;
+    const yi = ti * dr + tr * di;
+    work[i] = xr;
+    work[n + i] = xi;
+    work[n2 + i] = yr;
+    work[n3 + i] = yi;
+    bRe[i] = xr;
+    bIm[i] = xi;
+    cRe[i] = yr;
+    cIm[i] = yi;
   }
 }

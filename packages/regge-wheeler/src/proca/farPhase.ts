@@ -96,8 +96,44 @@ export function carryFarSolutions(
   const { n, nodes, S, C } = collocationRule();
   const n1 = n + 1;
   // Y, Ũ (complex, per node per entry at [j·NN + e]), φ (real, per node) and the Newton matrices: reused across calls
-  const { Yr, Yi, Ur, Ui, phi, c, dS, W, dW, Fr, Fi, Ir, Ii, Ar, Ai, piv, bRe, bIm, work, gr, gi, psi, Dr, Di } = workspace(N);
+  const {
+    Yr,
+    Yi,
+    Ur,
+    Ui,
+    phi,
+    c,
+    dS,
+    W,
+    dW,
+    Fr,
+    Fi,
+    Ir,
+    Ii,
+    Ar,
+    Ai,
+    piv,
+    bRe,
+    bIm,
+    rRe,
+    rIm,
+    rhsRe,
+    rhsIm,
+    work,
+    gr,
+    gi,
+    hr,
+    hi,
+    psi,
+    Dr,
+    Di,
+    Sin,
+    Kr,
+    Ki,
+  } = workspace(N);
   const slotOf = N === 2 ? SLOTS_TWO : SLOTS_ONE;
+  const [r0Re, r1Re, r2Re, r3Re] = rhsRe;
+  const [r0Im, r1Im, r2Im, r3Im] = rhsIm;
   {
     // U' = E⁻¹ U, P' = E⁻¹ P (columns: the channels' solutions)
     const U: Complex[] = [];
@@ -145,6 +181,22 @@ export function carryFarSolutions(
       c[j] = -r / f;
       dS[j] = k + (f * eta) / r;
       const diag = f * (mu2 + L * yr * yr) - w2;
+      if (N === 2) {
+        const y2 = yr * yr;
+        const fy2 = f * y2;
+        const o = 4 * j;
+        W[o] = fy2 * (q0[0] + q1[0] * yr) + diag;
+        W[o + 1] = fy2 * (q0[1] + q1[1] * yr);
+        W[o + 2] = fy2 * (q0[2] + q1[2] * yr);
+        W[o + 3] = fy2 * (q0[3] + q1[3] * yr) + diag;
+        for (let i = 0; i < 2; i++) {
+          const d = 3 * i;
+          const g = mu2 + (L + q0[d]) * y2 + q1[d] * y2 * yr;
+          const dg = 2 * (L + q0[d]) * yr + 3 * q1[d] * y2;
+          dW[2 * j + i] = -fy2 * (-2 * g + f * dg);
+        }
+        continue;
+      }
       for (let e = 0; e < NN; e++) W[j * NN + e] = f * yr * yr * (q0[e] + q1[e] * yr);
       for (let i = 0; i < N; i++) {
         const d = i * (N + 1);
@@ -160,6 +212,31 @@ export function carryFarSolutions(
   const riccati = (j: number): void => {
     rhsEvaluations++;
     const o = j * NN;
+    if (N === 2) {
+      // Y² = [[Y00² + Y01 Y10, Y01 t], [Y10 t, Y11² + Y10 Y01]], t = Y00 + Y11
+      const ar = Yr[o];
+      const ai = Yi[o];
+      const br = Yr[o + 1];
+      const bi = Yi[o + 1];
+      const dr = Yr[o + 2];
+      const di = Yi[o + 2];
+      const er = Yr[o + 3];
+      const ei = Yi[o + 3];
+      const pr = br * dr - bi * di;
+      const pi = br * di + bi * dr;
+      const tr = ar + er;
+      const ti = ai + ei;
+      const cj = c[j];
+      Fr[o] = cj * (W[o] - (ar * ar - ai * ai + pr));
+      Fi[o] = -cj * (2 * ar * ai + pi);
+      Fr[o + 1] = cj * (W[o + 1] - (br * tr - bi * ti));
+      Fi[o + 1] = -cj * (br * ti + bi * tr);
+      Fr[o + 2] = cj * (W[o + 2] - (dr * tr - di * ti));
+      Fi[o + 2] = -cj * (dr * ti + di * tr);
+      Fr[o + 3] = cj * (W[o + 3] - (er * er - ei * ei + pr));
+      Fi[o + 3] = -cj * (2 * er * ei + pi);
+      return;
+    }
     for (let i = 0; i < N; i++) {
       for (let m = 0; m < N; m++) {
         let sr = 0;
@@ -177,18 +254,56 @@ export function carryFarSolutions(
       }
     }
   };
-  /** Factor A_e = I − (h/2) S[1.., 1..] diag(a) (a complex per node) into slot e; false when singular. */
-  const factor = (h: number, ar: Float64Array, ai: Float64Array, e: number): boolean => {
+  /** Factor A_e = I − S[1.., 1..] diag(a) (a complex per node, the factor h/2 included) into slot e; false when singular. */
+  const factor = (ar: Float64Array, ai: Float64Array, e: number): boolean => {
     const R = Ar[e];
     const I = Ai[e];
-    for (let j = 1; j < n1; j++) {
-      for (let m = 1; m < n1; m++) {
-        const s = 0.5 * h * S[j * n1 + m];
-        R[(j - 1) * n + m - 1] = (j === m ? 1 : 0) - s * ar[m];
-        I[(j - 1) * n + m - 1] = -s * ai[m];
+    for (let j = 0; j < n; j++) {
+      const row = j * n;
+      for (let m = 0; m < n; m++) {
+        const s = Sin[row + m];
+        R[row + m] = -s * ar[m + 1];
+        I[row + m] = -s * ai[m + 1];
       }
+      R[row + j] += 1;
     }
     return complexLu(R, I, n, piv[e]);
+  };
+  /**
+   * The three Newton matrices of two channels, I − (h/2) S[1.., 1..] diag(a) with a = −2cY_00, −c(Y_00 + Y_11),
+   * −2cY_11, built in one pass.
+   */
+  const factorTwo = (h: number): boolean => {
+    for (let m = 1; m < n1; m++) {
+      const o = 4 * m;
+      const s = -h * c[m];
+      gr[m] = s * Yr[o];
+      gi[m] = s * Yi[o];
+      hr[m] = s * Yr[o + 3];
+      hi[m] = s * Yi[o + 3];
+    }
+    const [R0, R1, R2] = Ar;
+    const [I0, I1, I2] = Ai;
+    for (let j = 0; j < n; j++) {
+      const row = j * n;
+      for (let m = 0; m < n; m++) {
+        const s = Sin[row + m];
+        const ar = s * gr[m + 1];
+        const ai = s * gi[m + 1];
+        const br = s * hr[m + 1];
+        const bi = s * hi[m + 1];
+        R0[row + m] = -ar;
+        I0[row + m] = -ai;
+        R1[row + m] = -0.5 * (ar + br);
+        I1[row + m] = -0.5 * (ai + bi);
+        R2[row + m] = -br;
+        I2[row + m] = -bi;
+      }
+      R0[row + j] += 1;
+      R1[row + j] += 1;
+      R2[row + j] += 1;
+    }
+    return complexLu(R0, I0, n, piv[0]) && complexLu(R1, I1, n, piv[1]) && complexLu(R2, I2, n, piv[2]);
   };
   const tail = (vr: Float64Array, vi: Float64Array, e: number, stride: number): number => {
     let t = 0;
@@ -249,32 +364,54 @@ export function carryFarSolutions(
       for (let j = 1; j < n1; j++) riccati(j);
       if (it === 0 || contraction > REFACTOR_CONTRACTION) {
         // entry (i, j) of the Jacobian −c(Yδ + δY) without the off-diagonal Y: −c(Y_ii + Y_jj) (exact for one channel)
-        for (let e = 0; e < NN; e++) {
+        if (N === 2) {
+          if (!factorTwo(h)) return Infinity;
+        }
+        for (let e = 0; e < NN && N === 1; e++) {
           if (e > 0 && slotOf[e] === slotOf[e - 1]) continue;
           const a = Math.floor(e / N) * (N + 1);
           const b = (e % N) * (N + 1);
           for (let m = 0; m < n1; m++) {
-            gr[m] = -c[m] * (Yr[m * NN + a] + Yr[m * NN + b]);
-            gi[m] = -c[m] * (Yi[m * NN + a] + Yi[m * NN + b]);
+            gr[m] = -0.5 * h * c[m] * (Yr[m * NN + a] + Yr[m * NN + b]);
+            gi[m] = -0.5 * h * c[m] * (Yi[m * NN + a] + Yi[m * NN + b]);
           }
-          if (!factor(h, gr, gi, slotOf[e])) return Infinity;
+          if (!factor(gr, gi, slotOf[e])) return Infinity;
         }
       }
       let change = 0;
       yScale = omega;
-      nodeIntegrals(S, n1, Fr, Fi, NN, 0.5 * h, Ir, Ii);
-      for (let e = 0; e < NN; e++) {
+      if (N === 2) {
+        // residuals of the four entries in the pass over S ([e·n + j − 1]), their solves (the two off-diagonal
+        // entries share their matrix: one solve with two right-hand sides), the updates in one pass
+        residuals(S, n1, Fr, Fi, 0.5 * h, Yr, Yi, rRe, rIm);
+        complexLuSolve(Ar[0], Ai[0], n, piv[0], r0Re, r0Im, work);
+        complexLuSolve(Ar[1], Ai[1], n, piv[1], r1Re, r1Im, work, r2Re, r2Im);
+        complexLuSolve(Ar[2], Ai[2], n, piv[2], r3Re, r3Im, work);
         for (let j = 1; j < n1; j++) {
-          bRe[j - 1] = Ir[(j - 1) * NN + e] - (Yr[j * NN + e] - Yr[e]);
-          bIm[j - 1] = Ii[(j - 1) * NN + e] - (Yi[j * NN + e] - Yi[e]);
+          const o = 4 * j;
+          for (let e = 0; e < 4; e++) {
+            const dr = rRe[e * n + j - 1];
+            const di = rIm[e * n + j - 1];
+            const yr = Yr[o + e] + dr;
+            const yi = Yi[o + e] + di;
+            Yr[o + e] = yr;
+            Yi[o + e] = yi;
+            change = Math.max(change, Math.abs(dr) + Math.abs(di));
+            yScale = Math.max(yScale, Math.abs(yr) + Math.abs(yi));
+          }
         }
-        const slot = slotOf[e];
-        complexLuSolve(Ar[slot], Ai[slot], n, piv[slot], bRe, bIm, work);
+      } else {
+        nodeIntegrals(S, n1, Fr, Fi, NN, 0.5 * h, Ir, Ii);
         for (let j = 1; j < n1; j++) {
-          Yr[j * NN + e] += bRe[j - 1];
-          Yi[j * NN + e] += bIm[j - 1];
+          bRe[j - 1] = Ir[j - 1] - (Yr[j] - Yr[0]);
+          bIm[j - 1] = Ii[j - 1] - (Yi[j] - Yi[0]);
+        }
+        complexLuSolve(Ar[0], Ai[0], n, piv[0], bRe, bIm, work);
+        for (let j = 1; j < n1; j++) {
+          Yr[j] += bRe[j - 1];
+          Yi[j] += bIm[j - 1];
           change = Math.max(change, Math.abs(bRe[j - 1]) + Math.abs(bIm[j - 1]));
-          yScale = Math.max(yScale, Math.abs(Yr[j * NN + e]) + Math.abs(Yi[j * NN + e]));
+          yScale = Math.max(yScale, Math.abs(Yr[j]) + Math.abs(Yi[j]));
         }
       }
       if (!Number.isFinite(change)) return Infinity;
@@ -289,21 +426,48 @@ export function carryFarSolutions(
       for (let i = 0; i < N; i++) ti += Yi[m * NN + i * N + i];
       psi[m] = ti / N;
     }
-    for (let i = 0; i < N; i++) {
-      const d = i * (N + 1);
-      Dr[i] = 1;
-      Di[i] = 0;
+    if (N === 2) {
+      // the two exponents of D and dφ/dx in one pass over S: entries 0, 1 the diagonal of G, entry 2 dφ/dx
+      for (let m = 0; m < n1; m++) {
+        const o = 4 * m;
+        const cm = c[m];
+        Fr[o] = cm * Yr[o];
+        Fi[o] = cm * (Yi[o] - psi[m]);
+        Fr[o + 1] = cm * Yr[o + 3];
+        Fi[o + 1] = cm * (Yi[o + 3] - psi[m]);
+        Fr[o + 2] = cm * (psi[m] - dS[m]);
+        Fi[o + 2] = 0;
+        Fr[o + 3] = 0;
+        Fi[o + 3] = 0;
+      }
+      nodeIntegrals(S, n1, Fr, Fi, 4, 0.5 * h, Ir, Ii);
+      Dr[0] = 1;
+      Di[0] = 0;
+      Dr[1] = 1;
+      Di[1] = 0;
+      for (let j = 1; j < n1; j++) {
+        const o = 4 * (j - 1);
+        for (let i = 0; i < 2; i++) {
+          const mod = Math.exp(Ir[o + i]);
+          Dr[2 * j + i] = mod * Math.cos(Ii[o + i]);
+          Di[2 * j + i] = mod * Math.sin(Ii[o + i]);
+        }
+        phi[j] = phi[0] + Ir[o + 2];
+      }
+    } else {
+      Dr[0] = 1;
+      Di[0] = 0;
       for (let j = 1; j < n1; j++) {
         let sr = 0;
         let si = 0;
         for (let m = 0; m < n1; m++) {
           const s = S[j * n1 + m] * c[m];
-          sr += s * Yr[m * NN + d];
-          si += s * (Yi[m * NN + d] - psi[m]);
+          sr += s * Yr[m];
+          si += s * (Yi[m] - psi[m]);
         }
         const mod = Math.exp(0.5 * h * sr);
-        Dr[j * N + i] = mod * Math.cos(0.5 * h * si);
-        Di[j * N + i] = mod * Math.sin(0.5 * h * si);
+        Dr[j] = mod * Math.cos(0.5 * h * si);
+        Di[j] = mod * Math.sin(0.5 * h * si);
       }
     }
     for (let j = 1; j < n1; j++) {
@@ -312,53 +476,79 @@ export function carryFarSolutions(
         Ui[j * NN + e] = Ui[e];
       }
     }
-    // V_j = V_0 + ∫ K V with K_il = c Y_il D_l / D_i (i ≠ l); for one channel V is constant
+    // V_j = V_0 + ∫ K V with K_il = c Y_il D_l / D_i (i ≠ l); for one channel V is constant. K is fixed over
+    // the iteration: built once. Two channels: K_01 = c Y_01 D_1/D_0, K_10 = c Y_10 D_0/D_1, and each sweep
+    // updates row 0 of V from row 1 and then row 1 from the new row 0 (Gauss–Seidel: the contraction per
+    // sweep is about the square of the simultaneous update's)
     let uScale = 0;
     previous = Infinity;
+    if (N === 2) {
+      for (let m = 0; m < n1; m++) {
+        // ρ = D_1 / D_0
+        const ar = Dr[2 * m];
+        const ai = Di[2 * m];
+        const br = Dr[2 * m + 1];
+        const bi = Di[2 * m + 1];
+        const qa = ar * ar + ai * ai;
+        const rr = (br * ar + bi * ai) / qa;
+        const ri = (bi * ar - br * ai) / qa;
+        const qr = rr * rr + ri * ri;
+        const o = 4 * m;
+        const cm = c[m];
+        // K_01 = c Y_01 ρ
+        const y1r = Yr[o + 1];
+        const y1i = Yi[o + 1];
+        Kr[2 * m] = cm * (y1r * rr - y1i * ri);
+        Ki[2 * m] = cm * (y1r * ri + y1i * rr);
+        // K_10 = c Y_10 / ρ
+        const y2r = Yr[o + 2];
+        const y2i = Yi[o + 2];
+        Kr[2 * m + 1] = (cm * (y2r * rr + y2i * ri)) / qr;
+        Ki[2 * m + 1] = (cm * (y2i * rr - y2r * ri)) / qr;
+      }
+    }
     for (let it = 0; N > 1; it++) {
       if (it > MAX_NEWTON) return Infinity;
-      for (let m = 0; m < n1; m++) {
-        const o = m * NN;
-        for (let i = 0; i < N; i++) {
-          // 1 / D_i
-          const qd = Dr[m * N + i] * Dr[m * N + i] + Di[m * N + i] * Di[m * N + i];
-          const ir = Dr[m * N + i] / qd;
-          const ii = -Di[m * N + i] / qd;
-          for (let col = 0; col < N; col++) {
-            let sr = 0;
-            let si = 0;
-            for (let l = 0; l < N; l++) {
-              if (l === i) continue;
-              // K_il = c Y_il D_l / D_i
-              const yr = Yr[o + i * N + l];
-              const yi = Yi[o + i * N + l];
-              const dr = Dr[m * N + l];
-              const di = Di[m * N + l];
-              const tr = yr * dr - yi * di;
-              const tiv = yr * di + yi * dr;
-              const kr = c[m] * (tr * ir - tiv * ii);
-              const ki = c[m] * (tr * ii + tiv * ir);
-              const vr = Ur[o + l * N + col];
-              const vi = Ui[o + l * N + col];
-              sr += kr * vr - ki * vi;
-              si += kr * vi + ki * vr;
-            }
-            Fr[o + i * N + col] = sr;
-            Fi[o + i * N + col] = si;
-          }
-        }
-      }
       let change = 0;
       uScale = 0;
-      nodeIntegrals(S, n1, Fr, Fi, NN, 0.5 * h, Ir, Ii);
-      for (let e = 0; e < NN; e++) {
+      for (let row = 0; row < 2; row++) {
+        // F_row,col = K_row,other V_other,col at every node
+        const other = 1 - row;
+        for (let m = 0; m < n1; m++) {
+          const kr = Kr[2 * m + row];
+          const ki = Ki[2 * m + row];
+          const o = 4 * m + 2 * other;
+          const v0r = Ur[o];
+          const v0i = Ui[o];
+          const v1r = Ur[o + 1];
+          const v1i = Ui[o + 1];
+          Fr[2 * m] = kr * v0r - ki * v0i;
+          Fi[2 * m] = kr * v0i + ki * v0r;
+          Fr[2 * m + 1] = kr * v1r - ki * v1i;
+          Fi[2 * m + 1] = kr * v1i + ki * v1r;
+        }
+        nodeIntegrals(S, n1, Fr, Fi, 2, 0.5 * h, Ir, Ii);
+        const e0 = 2 * row;
+        const b0r = Ur[e0];
+        const b0i = Ui[e0];
+        const b1r = Ur[e0 + 1];
+        const b1i = Ui[e0 + 1];
         for (let j = 1; j < n1; j++) {
-          const sr = Ur[e] + Ir[(j - 1) * NN + e];
-          const si = Ui[e] + Ii[(j - 1) * NN + e];
-          change = Math.max(change, Math.abs(sr - Ur[j * NN + e]) + Math.abs(si - Ui[j * NN + e]));
-          uScale = Math.max(uScale, Math.abs(sr) + Math.abs(si));
-          Ur[j * NN + e] = sr;
-          Ui[j * NN + e] = si;
+          const o = 4 * j + e0;
+          const sr = b0r + Ir[2 * (j - 1)];
+          const si = b0i + Ii[2 * (j - 1)];
+          const tr = b1r + Ir[2 * (j - 1) + 1];
+          const ti = b1i + Ii[2 * (j - 1) + 1];
+          change = Math.max(
+            change,
+            Math.abs(sr - Ur[o]) + Math.abs(si - Ui[o]),
+            Math.abs(tr - Ur[o + 1]) + Math.abs(ti - Ui[o + 1]),
+          );
+          uScale = Math.max(uScale, Math.abs(sr) + Math.abs(si), Math.abs(tr) + Math.abs(ti));
+          Ur[o] = sr;
+          Ui[o] = si;
+          Ur[o + 1] = tr;
+          Ui[o + 1] = ti;
         }
       }
       if (!Number.isFinite(change)) return Infinity;
@@ -369,7 +559,8 @@ export function carryFarSolutions(
     uScale = 0;
     for (let j = 1; j < n1; j++) {
       for (let e = 0; e < NN; e++) {
-        const i = Math.floor(e / N);
+        // row i = ⌊e / N⌋
+        const i = N === 2 ? e >> 1 : 0;
         const dr = Dr[j * N + i];
         const di = Di[j * N + i];
         const vr = Ur[j * NN + e];
@@ -379,16 +570,18 @@ export function carryFarSolutions(
         uScale = Math.max(uScale, Math.abs(Ur[j * NN + e]) + Math.abs(Ui[j * NN + e]));
       }
     }
-    // φ by quadrature: dφ/dx = c (ψ − dS/dr*)
-    for (let j = 1; j < n1; j++) {
+    // φ by quadrature: dφ/dx = c (ψ − dS/dr*) (two channels: with D above)
+    for (let j = 1; j < n1 && N === 1; j++) {
       let s = 0;
       for (let m = 0; m < n1; m++) s += S[j * n1 + m] * c[m] * (psi[m] - dS[m]);
       phi[j] = phi[0] + 0.5 * h * s;
     }
     // error: the last two Chebyshev coefficients, Y against |Y| + ω, Ũ against |Ũ|, φ absolute
     let err = 0;
-    for (let e = 0; e < NN; e++) {
-      err = Math.max(err, tail(Yr, Yi, e, NN) / yScale, tail(Ur, Ui, e, NN) / uScale);
+    if (N === 2) {
+      err = Math.max(tails(C, n1, Yr, Yi) / yScale, tails(C, n1, Ur, Ui) / uScale);
+    } else {
+      err = Math.max(tail(Yr, Yi, 0, 1) / yScale, tail(Ur, Ui, 0, 1) / uScale);
     }
     err = Math.max(err, tail(phi, ZEROS, 0, 1));
     return err / tolerance;
@@ -508,7 +701,30 @@ function nodeIntegrals(
   outR: Float64Array,
   outI: Float64Array,
 ): void {
-  // unrolled per channel count (stride 1 or 4): the loop over entries with a variable bound ran at half the speed
+  // unrolled per stride (1, 2 or 4): the loop over entries with a variable bound ran at half the speed
+  if (stride === 2) {
+    for (let j = 1; j < n1; j++) {
+      const row = j * n1;
+      let r0 = 0;
+      let r1 = 0;
+      let i0 = 0;
+      let i1 = 0;
+      for (let m = 0; m < n1; m++) {
+        const s = S[row + m];
+        const k = 2 * m;
+        r0 += s * fr[k];
+        r1 += s * fr[k + 1];
+        i0 += s * fi[k];
+        i1 += s * fi[k + 1];
+      }
+      const o = 2 * (j - 1);
+      outR[o] = scale * r0;
+      outR[o + 1] = scale * r1;
+      outI[o] = scale * i0;
+      outI[o + 1] = scale * i1;
+    }
+    return;
+  }
   if (stride === 4) {
     for (let j = 1; j < n1; j++) {
       const row = j * n1;
@@ -558,6 +774,97 @@ function nodeIntegrals(
   }
 }
 
+/**
+ * The largest over the four entries (two channels; v[4m + e]) of |a_{n−1}| + |a_n|, the last two Chebyshev
+ * coefficients (rows n − 1, n of C), in one pass.
+ */
+function tails(C: Float64Array, n1: number, vr: Float64Array, vi: Float64Array): number {
+  const n = n1 - 1;
+  let t0 = 0;
+  let t1 = 0;
+  let t2 = 0;
+  let t3 = 0;
+  for (let row = n - 1; row <= n; row++) {
+    let r0 = 0;
+    let r1 = 0;
+    let r2 = 0;
+    let r3 = 0;
+    let i0 = 0;
+    let i1 = 0;
+    let i2 = 0;
+    let i3 = 0;
+    const o = row * n1;
+    for (let m = 0; m < n1; m++) {
+      const s = C[o + m];
+      const k = 4 * m;
+      r0 += s * vr[k];
+      r1 += s * vr[k + 1];
+      r2 += s * vr[k + 2];
+      r3 += s * vr[k + 3];
+      i0 += s * vi[k];
+      i1 += s * vi[k + 1];
+      i2 += s * vi[k + 2];
+      i3 += s * vi[k + 3];
+    }
+    t0 += Math.sqrt(r0 * r0 + i0 * i0);
+    t1 += Math.sqrt(r1 * r1 + i1 * i1);
+    t2 += Math.sqrt(r2 * r2 + i2 * i2);
+    t3 += Math.sqrt(r3 * r3 + i3 * i3);
+  }
+  return Math.max(t0, t1, t2, t3);
+}
+
+/**
+ * The Newton residuals of two channels: r[e·n + j − 1] = scale Σ_m S_jm f[4m + e] − (y[4j + e] − y[e])
+ * (re, im) for j = 1 … n, e < 4, in one pass over S (n = n1 − 1).
+ */
+function residuals(
+  S: Float64Array,
+  n1: number,
+  fr: Float64Array,
+  fi: Float64Array,
+  scale: number,
+  yr: Float64Array,
+  yi: Float64Array,
+  outR: Float64Array,
+  outI: Float64Array,
+): void {
+  const n = n1 - 1;
+  for (let j = 1; j < n1; j++) {
+    const row = j * n1;
+    let r0 = 0;
+    let r1 = 0;
+    let r2 = 0;
+    let r3 = 0;
+    let i0 = 0;
+    let i1 = 0;
+    let i2 = 0;
+    let i3 = 0;
+    for (let m = 0; m < n1; m++) {
+      const s = S[row + m];
+      const k = 4 * m;
+      r0 += s * fr[k];
+      r1 += s * fr[k + 1];
+      r2 += s * fr[k + 2];
+      r3 += s * fr[k + 3];
+      i0 += s * fi[k];
+      i1 += s * fi[k + 1];
+      i2 += s * fi[k + 2];
+      i3 += s * fi[k + 3];
+    }
+    const o = 4 * j;
+    const q = j - 1;
+    outR[q] = scale * r0 - (yr[o] - yr[0]);
+    outR[n + q] = scale * r1 - (yr[o + 1] - yr[1]);
+    outR[2 * n + q] = scale * r2 - (yr[o + 2] - yr[2]);
+    outR[3 * n + q] = scale * r3 - (yr[o + 3] - yr[3]);
+    outI[q] = scale * i0 - (yi[o] - yi[0]);
+    outI[n + q] = scale * i1 - (yi[o + 1] - yi[1]);
+    outI[2 * n + q] = scale * i2 - (yi[o + 2] - yi[2]);
+    outI[3 * n + q] = scale * i3 - (yi[o + 3] - yi[3]);
+  }
+}
+
 /** The buffers of one carry (every entry is written before it is read). */
 interface Workspace {
   Yr: Float64Array;
@@ -581,10 +888,22 @@ interface Workspace {
   piv: Int32Array[];
   bRe: Float64Array;
   bIm: Float64Array;
+  /** the Newton right-hand sides of the four entries (two channels), [e·n + j − 1], and a view of each */
+  rRe: Float64Array;
+  rIm: Float64Array;
+  rhsRe: Float64Array[];
+  rhsIm: Float64Array[];
   work: Float64Array;
+  /** S[1.., 1..], n×n: the integration matrix of the Newton matrices */
+  Sin: Float64Array;
   gr: Float64Array;
   gi: Float64Array;
+  hr: Float64Array;
+  hi: Float64Array;
   psi: Float64Array;
+  /** K_01, K_10 of the Picard iteration (two channels) per node, [2j + i] */
+  Kr: Float64Array;
+  Ki: Float64Array;
   /** D_i at each node (the quadrature of the diagonal of G), [j·N + i] */
   Dr: Float64Array;
   Di: Float64Array;
@@ -619,13 +938,30 @@ function workspace(N: number): Workspace {
     piv: Array.from({ length: slots }, () => new Int32Array(n)),
     bRe: new Float64Array(n),
     bIm: new Float64Array(n),
-    work: new Float64Array(2 * n),
+    rRe: new Float64Array(4 * n),
+    rIm: new Float64Array(4 * n),
+    rhsRe: [],
+    rhsIm: [],
+    work: new Float64Array(4 * n),
+    Sin: new Float64Array(n * n),
     gr: new Float64Array(n1),
     gi: new Float64Array(n1),
+    hr: new Float64Array(n1),
+    hi: new Float64Array(n1),
     psi: new Float64Array(n1),
+    Kr: new Float64Array(2 * n1),
+    Ki: new Float64Array(2 * n1),
     Dr: new Float64Array(n1 * N),
     Di: new Float64Array(n1 * N),
   };
+  for (let e = 0; e < 4; e++) {
+    made.rhsRe.push(made.rRe.subarray(e * n, (e + 1) * n));
+    made.rhsIm.push(made.rIm.subarray(e * n, (e + 1) * n));
+  }
+  const { S } = collocationRule();
+  for (let j = 1; j < n1; j++) {
+    for (let m = 1; m < n1; m++) made.Sin[(j - 1) * n + m - 1] = S[j * n1 + m];
+  }
   WORKSPACES[N] = made;
   return made;
 }
