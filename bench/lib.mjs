@@ -49,6 +49,13 @@ export function cpuMsPerCall(fn, minCpuMs = 20, maxCalls = 200) {
   return used / calls;
 }
 
+/** The least of `batches` cpuMsPerCall measurements of at least `minCpuMs` each: on a shared machine load only ever adds CPU time. */
+export function leastCpuMsPerCall(fn, batches, minCpuMs) {
+  let least = Number.POSITIVE_INFINITY;
+  for (let i = 0; i < batches; i++) least = Math.min(least, cpuMsPerCall(fn, minCpuMs, Number.POSITIVE_INFINITY));
+  return least;
+}
+
 /**
  * CPU milliseconds per call of each of `fns`, compared on a shared machine: a
  * warm-up call of each, then `batches` (default three) interleaved batches

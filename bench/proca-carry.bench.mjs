@@ -7,7 +7,7 @@
 // carried solutions (each entry against the largest entry of its column); then Γ of even-1 and even-2
 // (procaGreybody, default options) of both builds and their relative difference.
 // Run after `npm run build`: node bench/proca-carry.bench.mjs
-import { fmt, table } from './lib.mjs';
+import { fmt, leastCpuMsPerCall, table } from './lib.mjs';
 
 const here = new URL('../packages/regge-wheeler/dist/proca/', import.meta.url).pathname;
 const baseDir = `${process.env.PROCA_BASELINE ?? '/tmp/base-e7f'}/packages/regge-wheeler/dist/proca/`;
@@ -23,22 +23,6 @@ const greybodies = [
   await import(new URL('../packages/regge-wheeler/dist/proca/greybody.js', import.meta.url).pathname),
   await import(`${baseDir}greybody.js`),
 ];
-
-const best = (f, batches) => {
-  let b = Infinity;
-  for (let i = 0; i < batches; i++) {
-    const t = process.cpuUsage();
-    let n = 0;
-    let d;
-    do {
-      f();
-      n++;
-      d = process.cpuUsage(t);
-    } while (d.user + d.system < 5_000);
-    b = Math.min(b, (d.user + d.system) / 1000 / n);
-  }
-  return b;
-};
 
 const setup = (lib, l, omega, mu) => {
   const model = lib.sectorModel('even', l, omega, mu);
@@ -78,8 +62,8 @@ for (const [l, omega, mu] of [
   let ta = Infinity;
   let tb = Infinity;
   for (let round = 0; round < 40; round++) {
-    ta = Math.min(ta, best(a.run, 1));
-    tb = Math.min(tb, best(b.run, 1));
+    ta = Math.min(ta, leastCpuMsPerCall(a.run, 1, 5));
+    tb = Math.min(tb, leastCpuMsPerCall(b.run, 1, 5));
   }
   const v = Math.sqrt(1 - (mu / omega) ** 2);
   rows.push([

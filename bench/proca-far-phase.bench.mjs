@@ -7,26 +7,11 @@
 // With PROCA_BASELINE=<another built checkout>, that checkout's phase form is timed too (interleaved).
 // Run after `npm run build`: node bench/proca-far-phase.bench.mjs
 import { defaultPhaseRadius, farZonePhase, integrateProca, sectorModel } from '@penumbra/regge-wheeler/internal';
-import { fmt, table } from './lib.mjs';
+import { fmt, leastCpuMsPerCall, table } from './lib.mjs';
 
 const baselineDir = process.env.PROCA_BASELINE;
 const baseline = baselineDir ? await import(`${baselineDir}/packages/regge-wheeler/dist/internal.js`) : undefined;
 
-const best = (f) => {
-  let b = Infinity;
-  for (let i = 0; i < 7; i++) {
-    const t = process.cpuUsage();
-    let n = 0;
-    let d;
-    do {
-      f();
-      n++;
-      d = process.cpuUsage(t);
-    } while (d.user + d.system < 30_000);
-    b = Math.min(b, (d.user + d.system) / 1000 / n);
-  }
-  return b;
-};
 const rows = [];
 for (const [sector, l, omega] of [
   ['monopole', 0, 0.3],
@@ -50,8 +35,11 @@ for (const [sector, l, omega] of [
       integrateProca(model, direct);
       baseline?.integrateProca(baseModel, forced);
     }
-    const [ta, tb] = [best(() => integrateProca(model, forced)), best(() => integrateProca(model, direct))];
-    const tc = baseline ? best(() => baseline.integrateProca(baseModel, forced)) : Number.NaN;
+    const [ta, tb] = [
+      leastCpuMsPerCall(() => integrateProca(model, forced), 7, 30),
+      leastCpuMsPerCall(() => integrateProca(model, direct), 7, 30),
+    ];
+    const tc = baseline ? leastCpuMsPerCall(() => baseline.integrateProca(baseModel, forced), 7, 30) : Number.NaN;
     rows.push([
       sector,
       l,
