@@ -49,9 +49,6 @@ const NEWTON_FLOOR = 1e-15;
 /** The Newton matrix is refreshed only when a chord step contracts the update by less than this. */
 const REFACTOR_CONTRACTION = 0.05;
 const ZEROS = new Float64Array(DEGREE + 1);
-/** Newton-matrix slot of each entry of Y: entries (0, 1) and (1, 0) have the same multiplier −c(Y_00 + Y_11). */
-const SLOTS_ONE = Int32Array.of(0);
-const SLOTS_TWO = Int32Array.of(0, 1, 1, 2);
 /**
  * Smallest error asked of one interval: the tail coefficients carry rounding
  * of ~n·1e-16 relative times the size of c (W − Y²) ~ r|Y|, about 1e-13 at r ~ 30.
@@ -131,7 +128,6 @@ export function carryFarSolutions(
     Kr,
     Ki,
   } = workspace(N);
-  const slotOf = N === 2 ? SLOTS_TWO : SLOTS_ONE;
   const [r0Re, r1Re, r2Re, r3Re] = rhsRe;
   const [r0Im, r1Im, r2Im, r3Im] = rhsIm;
   {
@@ -254,10 +250,10 @@ export function carryFarSolutions(
       }
     }
   };
-  /** Factor A_e = I − S[1.., 1..] diag(a) (a complex per node, the factor h/2 included) into slot e; false when singular. */
-  const factor = (ar: Float64Array, ai: Float64Array, e: number): boolean => {
-    const R = Ar[e];
-    const I = Ai[e];
+  /** Factor the one-channel Newton matrix I − S[1.., 1..] diag(a) (a complex per node, the factor h/2 included); false when singular. */
+  const factor = (ar: Float64Array, ai: Float64Array): boolean => {
+    const R = Ar[0];
+    const I = Ai[0];
     for (let j = 0; j < n; j++) {
       const row = j * n;
       for (let m = 0; m < n; m++) {
@@ -267,7 +263,7 @@ export function carryFarSolutions(
       }
       R[row + j] += 1;
     }
-    return complexLu(R, I, n, piv[e]);
+    return complexLu(R, I, n, piv[0]);
   };
   /**
    * The three Newton matrices of two channels, I − (h/2) S[1.., 1..] diag(a) with a = −2cY_00, −c(Y_00 + Y_11),
@@ -363,19 +359,16 @@ export function carryFarSolutions(
       if (it > MAX_NEWTON) return Infinity;
       for (let j = 1; j < n1; j++) riccati(j);
       if (it === 0 || contraction > REFACTOR_CONTRACTION) {
-        // entry (i, j) of the Jacobian −c(Yδ + δY) without the off-diagonal Y: −c(Y_ii + Y_jj) (exact for one channel)
+        // entry (i, j) of the Jacobian −c(Yδ + δY) without the off-diagonal Y: −c(Y_ii + Y_jj) (exact for one
+        // channel); two channels have three such matrices (factorTwo), one channel the one of −2cY
         if (N === 2) {
           if (!factorTwo(h)) return Infinity;
-        }
-        for (let e = 0; e < NN && N === 1; e++) {
-          if (e > 0 && slotOf[e] === slotOf[e - 1]) continue;
-          const a = Math.floor(e / N) * (N + 1);
-          const b = (e % N) * (N + 1);
+        } else {
           for (let m = 0; m < n1; m++) {
-            gr[m] = -0.5 * h * c[m] * (Yr[m * NN + a] + Yr[m * NN + b]);
-            gi[m] = -0.5 * h * c[m] * (Yi[m * NN + a] + Yi[m * NN + b]);
+            gr[m] = -0.5 * h * c[m] * (Yr[m] + Yr[m]);
+            gi[m] = -0.5 * h * c[m] * (Yi[m] + Yi[m]);
           }
-          if (!factor(gr, gi, slotOf[e])) return Infinity;
+          if (!factor(gr, gi)) return Infinity;
         }
       }
       let change = 0;
