@@ -5,7 +5,7 @@
  * (species, E [GeV], d²N/dtdE [GeV^-1 s^-1]) is the input of a user's own
  * hadronisation code; secondary spectra are out of scope (docs/emission.md).
  */
-import type { Column, Table } from '@penumbra/core';
+import { FIELD_MASS_COLUMN, SPIN_COLUMN, type Column, type Table } from '@penumbra/core';
 import {
   contentSpectra,
   contentTotals,
@@ -49,10 +49,10 @@ interface SpeciesRow {
 
 const TOTALS_COLUMNS: Column[] = [
   { name: 'species', unit: '', description: 'species name, or total' },
-  { name: 'spin', unit: '1', description: 'field spin' },
+  SPIN_COLUMN,
   { name: 'dof', unit: '1', description: 'degrees of freedom' },
   { name: 'massGeV', unit: 'GeV', description: 'rest mass' },
-  { name: 'fieldMass', unit: '1', description: 'Mμ for this hole' },
+  FIELD_MASS_COLUMN,
   {
     name: 'status',
     unit: '',

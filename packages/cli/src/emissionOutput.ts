@@ -1,5 +1,5 @@
 /** Hawking emission totals and spectra as CSV tables and as text, for `penumbra emission`. */
-import type { Cell, Column, Table } from '@penumbra/core';
+import { OMEGA_COLUMN, type Cell, type Column, type Table } from '@penumbra/core';
 import { INACCURATE_COLUMN, isInaccurate } from './accuracy.js';
 import { formatError, formatNumber, formatTable } from './format.js';
 
@@ -39,7 +39,7 @@ export interface SpectrumRow {
 
 /** CSV columns of the spectrum: the keys of the JSON spectrum rows. */
 const SPECTRUM_COLUMNS: Column[] = [
-  { name: 'omega', unit: '1/M', description: 'wave frequency ω' },
+  OMEGA_COLUMN,
   { name: 'number', unit: '1', description: 'd²N/(dt dω) per degree of freedom' },
   { name: 'energy', unit: '1/M', description: 'd²E/(dt dω) per degree of freedom' },
   { name: 'torque', unit: '1', description: 'd²J/(dt dω) per degree of freedom' },

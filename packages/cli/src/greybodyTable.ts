@@ -1,5 +1,14 @@
 /** Greybody results as JSON, as a CSV table and as text, shared by the greybody and demo commands. */
-import type { Column, Table } from '@penumbra/core';
+import {
+  GAMMA_COLUMN,
+  HOLE_SPIN_COLUMN,
+  L_COLUMN,
+  M_COLUMN,
+  OMEGA_COLUMN,
+  SPIN_COLUMN,
+  type Column,
+  type Table,
+} from '@penumbra/core';
 import type { GreybodySolution } from '@penumbra/flux';
 import { INACCURATE_COLUMN, isInaccurate } from './accuracy.js';
 import { formatError, formatNumber } from './format.js';
@@ -34,12 +43,12 @@ export function greybodyJson(r: GreybodySolution): Record<string, unknown> {
 
 /** The CSV columns: the JSON keys above (matchRadius and rhsEvaluations from its diagnostics). */
 const COLUMNS: Column[] = [
-  { name: 'spin', unit: '1', description: 'field spin' },
-  { name: 'l', unit: '1', description: 'spheroidal index l' },
-  { name: 'm', unit: '1', description: 'azimuthal number m' },
-  { name: 'a', unit: 'M', description: "the hole's spin parameter a = J/M" },
-  { name: 'omega', unit: '1/M', description: 'wave frequency ω' },
-  { name: 'gamma', unit: '1', description: 'greybody factor Γ (absorbed fraction of the incident flux; < 0 when superradiant)' },
+  SPIN_COLUMN,
+  L_COLUMN,
+  M_COLUMN,
+  HOLE_SPIN_COLUMN,
+  OMEGA_COLUMN,
+  GAMMA_COLUMN,
   {
     name: 'log10Gamma',
     unit: '1',

@@ -34,7 +34,7 @@ describe('penumbra emission --content', () => {
       .trim()
       .split('\n');
     expect(csv[0]).toBe(
-      'species,spin [1],dof [1],massGeV [GeV],fieldMass [1],status,numberRatePerSecond [s^-1],powerGeVPerSecond [GeV s^-1],torqueHbarPerSecond [hbar s^-1],relError [1],inaccurate',
+      'species,spin [1],dof [1],massGeV [GeV],fieldMass [1/M],status,numberRatePerSecond [s^-1],powerGeVPerSecond [GeV s^-1],torqueHbarPerSecond [hbar s^-1],relError [1],inaccurate',
     );
     expect(csv).toHaveLength(3);
     expect(csv[2].startsWith('total,')).toBe(true);

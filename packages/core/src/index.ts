@@ -42,3 +42,12 @@ export {
   toCsv,
   toJsonTable,
 } from './table.js';
+export {
+  SPIN_COLUMN,
+  FIELD_MASS_COLUMN,
+  HOLE_SPIN_COLUMN,
+  OMEGA_COLUMN,
+  L_COLUMN,
+  M_COLUMN,
+  GAMMA_COLUMN,
+} from './columns.js';

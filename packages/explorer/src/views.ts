@@ -5,7 +5,19 @@
  * in the page's Web Worker and, unchanged, in Node (the tests compare the
  * page's printed numbers with these). Bad input is the library's InputError.
  */
-import { InputError, linearGrid, logGrid, validateHole, validateTolerance, type Column, type Field } from '@penumbra/core';
+import {
+  InputError,
+  linearGrid,
+  logGrid,
+  validateHole,
+  validateTolerance,
+  type Column,
+  type Field,
+  GAMMA_COLUMN,
+  L_COLUMN,
+  M_COLUMN,
+  OMEGA_COLUMN,
+} from '@penumbra/core';
 import {
   bundledPageTable,
   emissionSpectrum,
@@ -133,10 +145,10 @@ export function greybodyView(s: ExplorerState, onProgress?: ProgressCallback): V
   return {
     title: 'Greybody factors',
     columns: [
-      { name: 'l', unit: '1', description: 'angular number' },
-      { name: 'm', unit: '1', description: 'azimuthal number' },
-      { name: 'omega', unit: '1/M', description: 'frequency Mω' },
-      { name: 'gamma', unit: '1', description: 'greybody factor Γ' },
+      L_COLUMN,
+      M_COLUMN,
+      OMEGA_COLUMN,
+      GAMMA_COLUMN,
       { name: 'relError', unit: '1', description: 'estimated relative error of Γ' },
     ],
     rows,
@@ -162,7 +174,7 @@ export function crossSectionView(s: ExplorerState, onProgress?: ProgressCallback
   return {
     title: 'Absorption cross-section',
     columns: [
-      { name: 'omega', unit: '1/M', description: 'frequency Mω' },
+      OMEGA_COLUMN,
       { name: 'sigma', unit: 'M^2', description: 'absorption cross-section σ' },
       { name: 'sigmaOverCapture', unit: '1', description: 'σ / 27πM²' },
       { name: 'relError', unit: '1', description: 'estimated relative error of σ' },

@@ -5,7 +5,19 @@
  * name; a value is a number, a string or null (null: not computed, e.g.
  * every number of a failed row). Units are geometric, M = 1.
  */
-import type { Cell, Column, Status, Table } from '@penumbra/core';
+import {
+  FIELD_MASS_COLUMN,
+  GAMMA_COLUMN,
+  HOLE_SPIN_COLUMN,
+  L_COLUMN,
+  M_COLUMN,
+  OMEGA_COLUMN,
+  SPIN_COLUMN,
+  type Cell,
+  type Column,
+  type Status,
+  type Table,
+} from '@penumbra/core';
 import { hasFieldMasses, hasSpecies, type GridSpec } from './grid.js';
 
 /** One row of a grid table, keyed by column name. */
@@ -38,12 +50,10 @@ function pointColumns(grid: GridSpec): Column[] {
           },
         ]
       : []),
-    { name: 'spin', unit: '1', description: 'field spin' },
-    ...(hasFieldMasses(grid)
-      ? [{ name: 'fieldMass', unit: '1/M', description: "the field's rest mass as Mμ (0: massless)" }]
-      : []),
-    { name: 'a', unit: 'M', description: "the hole's spin parameter a = J/M" },
-    { name: 'omega', unit: '1/M', description: 'wave frequency ω' },
+    SPIN_COLUMN,
+    ...(hasFieldMasses(grid) ? [FIELD_MASS_COLUMN] : []),
+    HOLE_SPIN_COLUMN,
+    OMEGA_COLUMN,
   ];
 }
 
@@ -89,15 +99,11 @@ export function tableColumns(grid: GridSpec, table: TableName): Column[] {
     const reflection = grid.quantities.includes('reflection');
     return [
       ...pointColumns(grid),
-      { name: 'l', unit: '1', description: 'spheroidal index l' },
-      { name: 'm', unit: '1', description: 'azimuthal number m' },
+      L_COLUMN,
+      M_COLUMN,
       ...stateColumns(grid),
       status,
-      {
-        name: 'gamma',
-        unit: '1',
-        description: 'greybody factor Γ (absorbed fraction of the incident flux; < 0 when superradiant)',
-      },
+      GAMMA_COLUMN,
       relError('Γ'),
       ...(reflection
         ? [

@@ -4,7 +4,18 @@
  * within a tolerance of one. The full map is bench/near-region-map.mjs; the
  * suite runs a tiny one.
  */
-import { InputError, requireKeyedObject, type Column, type FieldSpin, type Table } from '@penumbra/core';
+import {
+  InputError,
+  requireKeyedObject,
+  type Column,
+  type FieldSpin,
+  type Table,
+  HOLE_SPIN_COLUMN,
+  L_COLUMN,
+  M_COLUMN,
+  OMEGA_COLUMN,
+  SPIN_COLUMN,
+} from '@penumbra/core';
 import { compareNearRegion, type NearRegionComparisonOptions } from './compare.js';
 
 /** One mode over a grid of a/M and Mω (mass 1). */
@@ -87,21 +98,21 @@ function numberList(name: string, value: unknown): number[] {
 }
 
 const POINT_COLUMNS: Column[] = [
-  { name: 'spin', unit: '1', description: 'field spin' },
-  { name: 'l', unit: '1', description: 'multipole l' },
-  { name: 'm', unit: '1', description: 'azimuthal number m' },
-  { name: 'a', unit: 'M', description: "the hole's spin parameter a = J/M" },
-  { name: 'omega', unit: '1/M', description: 'wave frequency ω' },
+  SPIN_COLUMN,
+  L_COLUMN,
+  M_COLUMN,
+  HOLE_SPIN_COLUMN,
+  OMEGA_COLUMN,
   { name: 'gamma', unit: '1', description: 'exact greybody factor Γ' },
   { name: 'gammaNearRegion', unit: '1', description: 'near-region (two-temperature) form of Γ' },
   { name: 'ratio', unit: '1', description: 'Γ_near / Γ' },
 ];
 
 const EDGE_COLUMNS: Column[] = [
-  { name: 'spin', unit: '1', description: 'field spin' },
-  { name: 'l', unit: '1', description: 'multipole l' },
-  { name: 'm', unit: '1', description: 'azimuthal number m' },
-  { name: 'a', unit: 'M', description: "the hole's spin parameter a = J/M" },
+  SPIN_COLUMN,
+  L_COLUMN,
+  M_COLUMN,
+  HOLE_SPIN_COLUMN,
   { name: 'within1Percent', unit: '1/M', description: 'largest grid ω with |Γ_near/Γ − 1| ≤ 0.01 there and below' },
   { name: 'within10Percent', unit: '1/M', description: 'largest grid ω with |Γ_near/Γ − 1| ≤ 0.1 there and below' },
 ];

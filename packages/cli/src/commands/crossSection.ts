@@ -1,4 +1,4 @@
-import { MAX_L, type Column, type FieldSpin } from '@penumbra/core';
+import { MAX_L, type Column, type FieldSpin, OMEGA_COLUMN } from '@penumbra/core';
 import { absorptionCrossSection } from '@penumbra/flux';
 import { INACCURATE_COLUMN, isInaccurate, warnInaccurate } from '../accuracy.js';
 import type { Command } from '../command.js';
@@ -11,7 +11,7 @@ import { progressReporter, shellProgress } from '../progress.js';
 
 /** The CSV columns: the keys of the JSON rows. */
 const COLUMNS: Column[] = [
-  { name: 'omega', unit: '1/M', description: 'wave frequency ω' },
+  OMEGA_COLUMN,
   { name: 'sigma', unit: 'M^2', description: 'absorption cross-section σ = (π/ω²) Σ Γ of one helicity' },
   { name: 'lMax', unit: '1', description: 'largest l summed' },
   { name: 'droppedBound', unit: 'M^2', description: 'bound on the l-shells not summed' },

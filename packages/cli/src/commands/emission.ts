@@ -1,4 +1,4 @@
-import type { FieldSpin, Table } from '@penumbra/core';
+import { SPIN_COLUMN, type FieldSpin, type Table } from '@penumbra/core';
 import {
   DEFAULT_CONFINEMENT_SCALE_GEV,
   KNOWN_SPECIES,
@@ -221,7 +221,7 @@ function emissionOfSpin(io: CliIO, { spin, a, tol, mass, unit, grid, label }: Sp
 /** The tables of several spins stacked, each row led by its spin. */
 function withSpinColumn(parts: readonly { spin: number; table: Table }[]): Table {
   return {
-    columns: [{ name: 'spin', unit: '1', description: 'field spin s' }, ...parts[0].table.columns],
+    columns: [SPIN_COLUMN, ...parts[0].table.columns],
     rows: parts.flatMap(({ spin, table }) => table.rows.map((row) => [spin, ...row])),
   };
 }

@@ -1,4 +1,13 @@
-import type { Column, FieldSpin, Table } from '@penumbra/core';
+import {
+  HOLE_SPIN_COLUMN,
+  L_COLUMN,
+  M_COLUMN,
+  OMEGA_COLUMN,
+  SPIN_COLUMN,
+  type Column,
+  type FieldSpin,
+  type Table,
+} from '@penumbra/core';
 import { compareNearRegion, type NearRegionComparison } from '@penumbra/near-region';
 import type { Command } from '../command.js';
 import { formatError, formatNumber, formatTable } from '../format.js';
@@ -100,11 +109,11 @@ function comparisonJson(r: NearRegionComparison): Record<string, unknown> {
 }
 
 const COLUMNS: Column[] = [
-  { name: 'spin', unit: '1', description: 'field spin' },
-  { name: 'l', unit: '1', description: 'multipole l' },
-  { name: 'm', unit: '1', description: 'azimuthal number m' },
-  { name: 'a', unit: 'M', description: "the hole's spin parameter a = J/M" },
-  { name: 'omega', unit: '1/M', description: 'wave frequency ω' },
+  SPIN_COLUMN,
+  L_COLUMN,
+  M_COLUMN,
+  HOLE_SPIN_COLUMN,
+  OMEGA_COLUMN,
   { name: 'TL', unit: '1', description: 'left temperature (r+ + r−)/(4πa)' },
   { name: 'TR', unit: '1', description: 'right temperature (r+ − r−)/(4πa)' },
   { name: 'cL', unit: '1', description: 'left central charge 12J' },
