@@ -51,3 +51,4 @@ export {
   M_COLUMN,
   GAMMA_COLUMN,
 } from './columns.js';
+export { setBounded } from './boundedCache.js';

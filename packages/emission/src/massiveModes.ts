@@ -13,7 +13,7 @@
  *
  * Every Γ here is 0 at and below the threshold ω ≤ μ: no wave reaches infinity.
  */
-import { ConvergenceError, TOLERANCE_RANGE, type Field } from '@penumbra/core';
+import { ConvergenceError, TOLERANCE_RANGE, type Field, setBounded } from '@penumbra/core';
 import { greybody, type GreybodyOptions, type ProcaPolarization } from '@penumbra/flux';
 import type { ModeContext } from './modes.js';
 
@@ -113,8 +113,7 @@ function procaRatio(ctx: ModeContext, l: number, omega: number): GammaEstimate {
   }
   // Both underflow only where Γ itself is far below every scale of the sum.
   const r = { gamma: denom.gamma > 0 ? exact.gamma / denom.gamma : 0, relError: exact.relError + denom.relError };
-  if (ctx.procaRatios.size > 10_000) ctx.procaRatios.clear();
-  ctx.procaRatios.set(key, r);
+  setBounded(ctx.procaRatios, key, r, 10_000);
   return r;
 }
 

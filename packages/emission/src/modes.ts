@@ -5,7 +5,7 @@
  * Γ·(occupation) is never negative: in the superradiant band of bosons both
  * factors change sign together.
  */
-import { ConvergenceError, type FieldSpin } from '@penumbra/core';
+import { ConvergenceError, type FieldSpin, setBounded } from '@penumbra/core';
 import { kerrHole, type KerrHole } from '@penumbra/kerr';
 import { greybody, lowFrequencyGreybody, MOMEGA_RANGE, type GreybodySolution } from '@penumbra/flux';
 import { massiveGamma, type GammaEstimate } from './massiveModes.js';
@@ -84,8 +84,7 @@ function gammaAt(ctx: ModeContext, l: number, m: number, omega: number): GammaEs
   const cached = solved.get(omega);
   if (cached && cached.relError <= ctx.greybodyTol) return cached;
   const g = solveGamma(ctx, l, m, omega);
-  if (solved.size > 200_000) solved.clear();
-  solved.set(omega, g);
+  setBounded(solved, omega, g, 200_000);
   return g;
 }
 

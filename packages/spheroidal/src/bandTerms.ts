@@ -1,3 +1,4 @@
+import { setBounded } from '@penumbra/core';
 import { cosDiagonal, cosOffDiagonal } from './coupling.js';
 import { sphericalA0 } from './quantum.js';
 
@@ -64,9 +65,8 @@ export function bandTerms(s: number, m: number, lFirst: number, stride: 1 | 2, s
       x2First[i] = x2Skip;
     }
   }
-  if (!cached && termsCache.size >= TERMS_CACHE_LIMIT) termsCache.clear();
   const terms: BandTerms = { length: n, spherical, squared: [x2Diagonal, x2First, x2Second], linear: [xDiagonal, xFirst] };
-  termsCache.set(key, terms);
+  setBounded(termsCache, key, terms, TERMS_CACHE_LIMIT);
   return terms;
 }
 

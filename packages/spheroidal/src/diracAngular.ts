@@ -11,7 +11,7 @@
  * eigenvalues of a symmetric one-parameter family do not cross, so the label
  * follows λ continuously by its rank among the positive or negative eigenvalues.
  */
-import { ConvergenceError, InputError, requireFinite, type Diagnostics } from '@penumbra/core';
+import { ConvergenceError, InputError, requireFinite, type Diagnostics, setBounded } from '@penumbra/core';
 import { bandEigenvalue, diracAngularBand } from './diracAngularMatrix.js';
 
 /** One angular problem of the massive Dirac field. */
@@ -76,8 +76,7 @@ export function diracAngularEigenvalue(problem: DiracAngularProblem): DiracAngul
   const previous = lastSolved.get(key);
   if (previous && previous.aOmega === aOmega && previous.aMu === aMu) return previous.result;
   const result = aOmega === 0 && aMu === 0 ? exact(kappaSign * (j + 0.5)) : solve(j, m, aOmega, aMu, kappaSign);
-  if (!lastSolved.has(key) && lastSolved.size >= CACHE_LIMIT) lastSolved.clear();
-  lastSolved.set(key, { aOmega, aMu, result });
+  setBounded(lastSolved, key, { aOmega, aMu, result }, CACHE_LIMIT);
   return result;
 }
 
