@@ -25,7 +25,7 @@ import { massToKg, type MassUnit } from '@penumbra/kerr';
 import { evolutionTimeUnitSeconds } from './evolution.js';
 import { FIELD_MASS_PER_GRAM_GEV, type MassLossRates } from './massLoss.js';
 import { GL5, hermite, trackError, type TrackNode } from './trackError.js';
-import { odeErrorBound } from './odeError.js';
+import { odeErrorBound, requireLifetimeConverged } from './odeError.js';
 import { requireProblem } from './validate.js';
 
 /** The age of the universe, 13.787 Gyr (Planck 2018 results VI, A&A 641, A6 (2020)), in seconds (Julian years). */
@@ -364,20 +364,7 @@ export function evaporateHole(problem: EvaporationProblem, options?: Evaporation
     aStarTableError,
     uEnd,
   };
-  if (!(change <= Math.max(100 * odeTol, 1e-10))) {
-    throw new ConvergenceError('evaporation: lifetime moves when the ODE tolerance is halved', {
-      ...diagnostics,
-      lifetime: a.lifetime,
-      lifetimeHalfTol: b.lifetime,
-    });
-  }
-  if (tol !== undefined && !(diagnostics.errorEstimate <= tol)) {
-    throw new ConvergenceError(`evaporation: the lifetime's error estimate exceeds tol = ${tol}`, {
-      ...diagnostics,
-      lifetime: b.lifetime,
-      tol,
-    });
-  }
+  requireLifetimeConverged('evaporation', diagnostics, odeTol, { coarse: a.lifetime, fine: b.lifetime }, tol);
   const temperatureGeV = (massGrams: number, aStar: number) => unitTemperature(aStar) / (massGrams * FIELD_MASS_PER_GRAM_GEV);
   const point = (u: number, y: readonly number[]): EvaporationPoint => {
     const massGrams = m0 * Math.exp(-u);

@@ -20,7 +20,7 @@ import {
 } from '@penumbra/core';
 import { CODATA2018, PHYSICAL_MASS_RANGE_KG, requirePhysicalMass, unitScales, type MassUnit } from '@penumbra/kerr';
 import type { PageFunctions } from './pageFunctions.js';
-import { odeErrorBound } from './odeError.js';
+import { odeErrorBound, requireLifetimeConverged } from './odeError.js';
 import { requireProblem } from './validate.js';
 
 /** A hole's initial a* and the f, g that drive its evaporation. */
@@ -231,20 +231,7 @@ export function evolveHole(problem: EvolutionProblem, options?: EvolutionOptions
     odeError,
     tableError,
   };
-  if (!(change <= Math.max(100 * odeTol, 1e-10))) {
-    throw new ConvergenceError('evolution: lifetime moves when the ODE tolerance is halved', {
-      ...diagnostics,
-      lifetime: a.lifetime,
-      lifetimeHalfTol: b.lifetime,
-    });
-  }
-  if (tol !== undefined && !(diagnostics.errorEstimate <= tol)) {
-    throw new ConvergenceError(`evolution: the lifetime's error estimate exceeds tol = ${tol}`, {
-      ...diagnostics,
-      lifetime: b.lifetime,
-      tol,
-    });
-  }
+  requireLifetimeConverged('evolution', diagnostics, odeTol, { coarse: a.lifetime, fine: b.lifetime }, tol);
   return { aStar0, lifetime: b.lifetime, track: b.track, crossings, diagnostics };
 }
 
