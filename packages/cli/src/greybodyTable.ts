@@ -1,14 +1,5 @@
 /** Greybody results as JSON, as a CSV table and as text, shared by the greybody and demo commands. */
-import {
-  GAMMA_COLUMN,
-  HOLE_SPIN_COLUMN,
-  L_COLUMN,
-  M_COLUMN,
-  OMEGA_COLUMN,
-  SPIN_COLUMN,
-  type Column,
-  type Table,
-} from '@penumbra/core';
+import { GAMMA_COLUMN, type Column, type Table, MODE_COLUMNS } from '@penumbra/core';
 import type { GreybodySolution } from '@penumbra/flux';
 import { INACCURATE_COLUMN, isInaccurate } from './accuracy.js';
 import { formatError, formatNumber } from './format.js';
@@ -43,11 +34,7 @@ export function greybodyJson(r: GreybodySolution): Record<string, unknown> {
 
 /** The CSV columns: the JSON keys above (matchRadius and rhsEvaluations from its diagnostics). */
 const COLUMNS: Column[] = [
-  SPIN_COLUMN,
-  L_COLUMN,
-  M_COLUMN,
-  HOLE_SPIN_COLUMN,
-  OMEGA_COLUMN,
+  ...MODE_COLUMNS,
   GAMMA_COLUMN,
   {
     name: 'log10Gamma',

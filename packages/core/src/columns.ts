@@ -34,3 +34,6 @@ export const GAMMA_COLUMN: Column = Object.freeze({
   unit: '1',
   description: 'greybody factor Γ (absorbed fraction of the incident flux; < 0 when superradiant)',
 });
+
+/** One mode at one hole and frequency, in the order of the mode tables: s, l, m, a, ω. */
+export const MODE_COLUMNS: readonly Column[] = Object.freeze([SPIN_COLUMN, L_COLUMN, M_COLUMN, HOLE_SPIN_COLUMN, OMEGA_COLUMN]);

@@ -50,5 +50,6 @@ export {
   L_COLUMN,
   M_COLUMN,
   GAMMA_COLUMN,
+  MODE_COLUMNS,
 } from './columns.js';
 export { setBounded } from './boundedCache.js';

@@ -13,8 +13,8 @@ import {
   HOLE_SPIN_COLUMN,
   L_COLUMN,
   M_COLUMN,
-  OMEGA_COLUMN,
   SPIN_COLUMN,
+  MODE_COLUMNS,
 } from '@penumbra/core';
 import { compareNearRegion, type NearRegionComparisonOptions } from './compare.js';
 
@@ -98,11 +98,7 @@ function numberList(name: string, value: unknown): number[] {
 }
 
 const POINT_COLUMNS: Column[] = [
-  SPIN_COLUMN,
-  L_COLUMN,
-  M_COLUMN,
-  HOLE_SPIN_COLUMN,
-  OMEGA_COLUMN,
+  ...MODE_COLUMNS,
   { name: 'gamma', unit: '1', description: 'exact greybody factor Γ' },
   { name: 'gammaNearRegion', unit: '1', description: 'near-region (two-temperature) form of Γ' },
   { name: 'ratio', unit: '1', description: 'Γ_near / Γ' },

@@ -1,13 +1,4 @@
-import {
-  HOLE_SPIN_COLUMN,
-  L_COLUMN,
-  M_COLUMN,
-  OMEGA_COLUMN,
-  SPIN_COLUMN,
-  type Column,
-  type FieldSpin,
-  type Table,
-} from '@penumbra/core';
+import { type Column, type FieldSpin, type Table, MODE_COLUMNS } from '@penumbra/core';
 import { compareNearRegion, type NearRegionComparison } from '@penumbra/near-region';
 import type { Command } from '../command.js';
 import { formatError, formatNumber, formatTable } from '../format.js';
@@ -109,11 +100,7 @@ function comparisonJson(r: NearRegionComparison): Record<string, unknown> {
 }
 
 const COLUMNS: Column[] = [
-  SPIN_COLUMN,
-  L_COLUMN,
-  M_COLUMN,
-  HOLE_SPIN_COLUMN,
-  OMEGA_COLUMN,
+  ...MODE_COLUMNS,
   { name: 'TL', unit: '1', description: 'left temperature (r+ + r−)/(4πa)' },
   { name: 'TR', unit: '1', description: 'right temperature (r+ − r−)/(4πa)' },
   { name: 'cL', unit: '1', description: 'left central charge 12J' },
