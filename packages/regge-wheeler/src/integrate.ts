@@ -4,7 +4,6 @@
  * `schwarzschildGreybody` compares two of them; `integrateOnce` (the
  * "./internal" subpath) runs one with explicit knobs.
  */
-import createIntegrator from 'ode45-cash-karp';
 import { ConvergenceError, type Diagnostics } from '@penumbra/core';
 import type { ModeProblem } from './potentials.js';
 import { potentialOverLapse } from './potentials.js';
@@ -16,6 +15,7 @@ import {
   validateProblem,
 } from './problem.js';
 import { integrateMassiveScalar } from './massiveIntegrate.js';
+import { marchWave } from './waveIntegration.js';
 import { horizonSeries, outgoingFarSeries, tortoiseFromHorizonDistance, type WaveState } from './series.js';
 
 /** The outcome of one integration (no error estimate: that needs a second one). */
@@ -39,7 +39,6 @@ export type IntegrationControls = Omit<IntegrationOptions, 'tol'> & { tol: numbe
 /** Default start r0 = 2M(1 + 0.15): well inside the horizon series' convergence (offset < 1). */
 export const DEFAULT_START_OFFSET = 0.15;
 const DEFAULT_MAX_STEPS = 3_000_000;
-const RESCALE_THRESHOLD = 1e100;
 const MATCH_RADIUS_GROWTH = 1.5;
 const MAX_MATCH_MOVES = 60;
 
@@ -148,37 +147,18 @@ export function integrate(base: Omit<ModeProblem, 'diracSign'>, controls: Integr
     dydr[2] = coupling * s[0];
     dydr[3] = coupling * s[1];
   };
-  // Error measured against the complex moduli |ψ| and |P| (plus the step's
-  // own change), so that a zero of Re ψ or Im ψ does not force tiny steps.
-  const errorScale = (i: number, dt: number, _yi: number, dydt: number): number => {
-    const mod = i < 2 ? Math.hypot(y[0], y[1]) : Math.hypot(y[2], y[3]);
-    return mod + Math.abs(dt * dydt) + 1e-300;
-  };
-  const integrator = createIntegrator(y, deriv, r0, 0.01 * x0, {
-    tol: stepTolerance,
-    verbose: false,
-    errorScaleFunction: errorScale,
-  });
-  let steps = 0;
-  let logRescale = 0;
-  const failed = (message: string, detail: string) =>
-    new ConvergenceError(
-      message,
-      failure(p, detail, { steps, rhsEvaluations }, { startRadius: r0, matchRadius, seriesTerms: start.terms + far.terms }),
-    );
-  let more = true;
-  while (more) {
-    more = integrator.step(matchRadius);
-    steps++;
-    const size = Math.abs(y[0]) + Math.abs(y[1]) + Math.abs(y[2]) + Math.abs(y[3]);
-    if (!Number.isFinite(size)) throw failed('integration produced a non-finite state', `non-finite state after ${steps} steps`);
-    if (size > RESCALE_THRESHOLD) {
-      // Linear equation: renormalising is exact once the factor is tracked.
-      for (let i = 0; i < 4; i++) y[i] /= RESCALE_THRESHOLD;
-      logRescale += Math.log(RESCALE_THRESHOLD);
-    }
-    if (steps > maxSteps) throw failed('integration step budget exhausted', `more than ${maxSteps} steps`);
-  }
+  const { steps, logRescale } = marchWave(
+    y,
+    deriv,
+    { r0, firstStep: 0.01 * x0, matchRadius },
+    stepTolerance,
+    maxSteps,
+    (message, detail, steps) =>
+      new ConvergenceError(
+        message,
+        failure(p, detail, { steps, rhsEvaluations }, { startRadius: r0, matchRadius, seriesTerms: start.terms + far.terms }),
+      ),
+  );
   const psi: WaveState = { psiRe: y[0], psiIm: y[1], dpsiRe: y[2], dpsiIm: y[3] };
   const amplitudes = matchToFarZone(psi, far, p.omega);
   // Γ = e^{−2 logRescale} / |A_in|², formed in logs so tiny Γ does not underflow early.

@@ -5,16 +5,15 @@
  * ψ → A_in ψ_in + A_out ψ_out at infinity, the Wronskian gives
  * Γ = ω/(k |A_in|²) and R = |A_out/A_in|², k = √(ω² − μ²) (docs/massive-fields.md).
  */
-import createIntegrator from 'ode45-cash-karp';
 import { ConvergenceError } from '@penumbra/core';
 import type { IntegrationControls, SingleIntegration } from './integrate.js';
 import { DEFAULT_START_OFFSET } from './integrate.js';
 import { massiveHorizonSeries, massiveOutgoingFarSeries, massiveWavenumber, type MassiveScalarMode } from './massiveSeries.js';
 import { MIN_STEP_TOLERANCE } from './problem.js';
 import { tortoiseFromHorizonDistance } from './series.js';
+import { marchWave } from './waveIntegration.js';
 
 const MAX_STEPS = 3_000_000;
-const RESCALE = 1e100;
 const GROWTH = 1.5;
 const MAX_MOVES = 60;
 
@@ -84,28 +83,14 @@ export function integrateMassiveScalar(p: MassiveScalarMode, controls: Integrati
     dy[2] = coupling * s[0];
     dy[3] = coupling * s[1];
   };
-  const errorScale = (i: number, dt: number, _yi: number, dydt: number): number =>
-    (i < 2 ? Math.hypot(y[0], y[1]) : Math.hypot(y[2], y[3])) + Math.abs(dt * dydt) + 1e-300;
-  const integrator = createIntegrator(y, deriv, r0, 0.01 * x0, {
-    tol: stepTolerance,
-    verbose: false,
-    errorScaleFunction: errorScale,
-  });
-  const maxSteps = controls.maxSteps ?? MAX_STEPS;
-  let steps = 0;
-  let logRescale = 0;
-  for (let more = true; more; ) {
-    more = integrator.step(matchRadius);
-    steps++;
-    const size = Math.abs(y[0]) + Math.abs(y[1]) + Math.abs(y[2]) + Math.abs(y[3]);
-    if (!Number.isFinite(size))
-      throw fail(p, 'integration produced a non-finite state', { steps, rhsEvaluations }, { matchRadius });
-    if (size > RESCALE) {
-      for (let i = 0; i < 4; i++) y[i] /= RESCALE;
-      logRescale += Math.log(RESCALE);
-    }
-    if (steps > maxSteps) throw fail(p, 'integration step budget exhausted', { steps, rhsEvaluations }, { matchRadius });
-  }
+  const { steps, logRescale } = marchWave(
+    y,
+    deriv,
+    { r0, firstStep: 0.01 * x0, matchRadius },
+    stepTolerance,
+    controls.maxSteps ?? MAX_STEPS,
+    (message, _detail, steps) => fail(p, message, { steps, rhsEvaluations }, { matchRadius }),
+  );
   // A_in = (ψ ψ_out' − ψ' ψ_out)/(2ik), A_out = (ψ_in ψ' − ψ_in' ψ)/(2ik), ψ_in = conj(ψ_out).
   const [pr, pi, qr, qi] = y;
   const { psiRe: oR, psiIm: oI, dpsiRe: odR, dpsiIm: odI } = far;
