@@ -11,7 +11,7 @@
  *   2ikN c_N = E2(N−1) c_{N−1} + E1(N−2) c_{N−2} + E0(N−3) c_{N−3};
  * ψ_in is its complex conjugate (real potential).
  */
-import { tortoiseFromHorizonDistance, type SeriesValue } from './series.js';
+import { tortoiseFromHorizonDistance, withPhase, type SeriesValue } from './series.js';
 
 /** A massive-scalar Schwarzschild mode: multipole l, frequency ω, field mass μ, hole mass M (geometric units). */
 export interface MassiveScalarMode {
@@ -107,16 +107,7 @@ export function massiveHorizonSeries(p: MassiveScalarMode, x: number): SeriesVal
   const qRe = w * hIm + f * dRe;
   const qIm = -w * hRe + f * dIm;
   const ph = -w * tortoiseFromHorizonDistance(p.mass, x);
-  const c = Math.cos(ph),
-    s = Math.sin(ph);
-  return {
-    psiRe: c * hRe - s * hIm,
-    psiIm: c * hIm + s * hRe,
-    dpsiRe: c * qRe - s * qIm,
-    dpsiIm: c * qIm + s * qRe,
-    terms: n + 1,
-    converged,
-  };
+  return withPhase(ph, hRe, hIm, qRe, qIm, n + 1, converged);
 }
 
 /** The outgoing far-zone solution ψ_out = e^{i(kr* + β ln r)} Σ c_n r^{−n} and dψ/dr* at r. */
@@ -193,14 +184,5 @@ export function massiveOutgoingFarSeries(p: MassiveScalarMode, r: number): Serie
   const qRe = -phiStar * uIm + (f * duRe) / r;
   const qIm = phiStar * uRe + (f * duIm) / r;
   const ph = k * tortoiseFromHorizonDistance(p.mass, r - b) + beta * Math.log(r);
-  const c = Math.cos(ph),
-    s = Math.sin(ph);
-  return {
-    psiRe: c * uRe - s * uIm,
-    psiIm: c * uIm + s * uRe,
-    dpsiRe: c * qRe - s * qIm,
-    dpsiIm: c * qIm + s * qRe,
-    terms: N + 1,
-    converged,
-  };
+  return withPhase(ph, uRe, uIm, qRe, qIm, N + 1, converged);
 }

@@ -21,6 +21,32 @@ export interface SeriesValue extends WaveState {
   converged: boolean;
 }
 
+/**
+ * ψ = e^{iφ}(hRe + i hIm) and dψ/dr* = e^{iφ}(qRe + i qIm) with the series'
+ * term count: every series here sums a slowly varying factor and puts the
+ * oscillating phase back last.
+ */
+export function withPhase(
+  phase: number,
+  hRe: number,
+  hIm: number,
+  qRe: number,
+  qIm: number,
+  terms: number,
+  converged: boolean,
+): SeriesValue {
+  const c = Math.cos(phase);
+  const s = Math.sin(phase);
+  return {
+    psiRe: c * hRe - s * hIm,
+    psiIm: c * hIm + s * hRe,
+    dpsiRe: c * qRe - s * qIm,
+    dpsiIm: c * qIm + s * qRe,
+    terms,
+    converged,
+  };
+}
+
 /** Tortoise coordinate r* = r + 2M ln((r − 2M)/2M), taking x = r − 2M. */
 export function tortoiseFromHorizonDistance(mass: number, x: number): number {
   const b = 2 * mass;
@@ -145,16 +171,7 @@ export function horizonSeries(p: ModeProblem, x: number): SeriesValue {
   const qRe = p.omega * hIm + f * dhdrRe;
   const qIm = -p.omega * hRe + f * dhdrIm;
   const phase = -p.omega * tortoiseFromHorizonDistance(p.mass, x);
-  const cph = Math.cos(phase);
-  const sph = Math.sin(phase);
-  return {
-    psiRe: cph * hRe - sph * hIm,
-    psiIm: cph * hIm + sph * hRe,
-    dpsiRe: cph * qRe - sph * qIm,
-    dpsiIm: cph * qIm + sph * qRe,
-    terms: n + 1,
-    converged,
-  };
+  return withPhase(phase, hRe, hIm, qRe, qIm, n + 1, converged);
 }
 
 const FAR_SERIES_MAX_TERMS = 600;
@@ -239,14 +256,5 @@ export function outgoingFarSeries(p: ModeProblem, r: number): SeriesValue {
   const qRe = -p.omega * uIm + (f * duRe) / r;
   const qIm = p.omega * uRe + (f * duIm) / r;
   const phase = p.omega * tortoiseFromHorizonDistance(p.mass, r - b);
-  const cph = Math.cos(phase);
-  const sph = Math.sin(phase);
-  return {
-    psiRe: cph * uRe - sph * uIm,
-    psiIm: cph * uIm + sph * uRe,
-    dpsiRe: cph * qRe - sph * qIm,
-    dpsiIm: cph * qIm + sph * qRe,
-    terms: n + 1,
-    converged,
-  };
+  return withPhase(phase, uRe, uIm, qRe, qIm, n + 1, converged);
 }
