@@ -5,8 +5,8 @@ import { UsageError } from './command.js';
 import { parseMassOption, parseNumber } from './options.js';
 
 /** Help lines of --field-mass, --field-mass-unit and the hole mass they need. */
-export const FIELD_MASS_HELP = `--field-mass MU  the field's mass: Mμ in units of 1/M (default 0; spin 0 only; needs Mω > Mμ),
-               or a rest energy μc² with --field-mass-unit
+export const FIELD_MASS_HELP = `--field-mass MU  the field's mass: Mμ in units of 1/M (default 0; needs Mω > Mμ;
+               a massive vector needs --a 0), or a rest energy μc² with --field-mass-unit
   --field-mass-unit U  eV, keV, MeV or GeV: --field-mass is then μc², converted to Mμ with the
                hole mass --mass M --unit g|kg|msun (CODATA 2018 constants)`;
 

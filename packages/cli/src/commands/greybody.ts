@@ -1,12 +1,13 @@
-import { InputError, type FieldSpin } from '@penumbra/core';
+import { InputError } from '@penumbra/core';
 import { greybody, type GreybodySolution, type ProcaPolarization } from '@penumbra/flux';
 import { warnInaccurate } from '../accuracy.js';
 import type { Command } from '../command.js';
+import { MODE_HELP, MODE_OPTIONS, parseModeArguments } from '../modeArguments.js';
 import { FIELD_MASS_HELP, FIELD_MASS_OPTIONS, fieldWithMass } from '../fieldMass.js';
 import { limitsHelp } from '../limits.js';
 import { formatTable } from '../format.js';
 import { greybodyJson, greybodyTable, greybodyTextRows } from '../greybodyTable.js';
-import { parseFieldSpin, parseModeNumber, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
+import { parseNumber, parseOptions } from '../options.js';
 import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
 import { progressReporter } from '../progress.js';
 
@@ -26,9 +27,7 @@ export const command: Command = {
 Geometric units: the hole mass is 1, ω is Mω, a is a/M (|a/M| ≤ 0.99999).
 
 Options:
-  --spin S     field spin: 0, 1/2 (or 0.5), 1, 2
-  --l L        multipole, l ≥ S with l − S an integer
-  --m M        azimuthal number, |m| ≤ l with m − S an integer
+  ${MODE_HELP}
   --a A        the hole's spin parameter a/M; negative: counter-rotating relative to m > 0
   --omega W    frequency Mω in [1e-5, 30], a grid START:STOP:COUNT or a list W1,W2,…
   ${FIELD_MASS_HELP}
@@ -37,7 +36,6 @@ Options:
   --kappa-sign K    massive spin 1/2 only: the sign (1 or -1) of the Dirac
                quantum number κ = ±(l + 1/2); -1 includes the s-wave
   --log        space a frequency grid geometrically
-  --field-mass MU  the field's mass Mμ (default 0); a massive vector needs --a 0 and Mω > Mμ
   --polarization P massive vector only: odd, even-1, even-2 (l ≥ 1) or monopole (l = 0);
                default odd (monopole at l = 0); see docs/massive-vector.md
   --tol T      requested relative accuracy of Γ (default 1e-8, 1e-12 … 1e-2)
@@ -60,14 +58,8 @@ Examples:
 `,
   run(argv, io) {
     const { values } = parseOptions(argv, {
-      spin: { type: 'string' },
-      l: { type: 'string' },
-      m: { type: 'string' },
-      a: { type: 'string' },
-      omega: { type: 'string' },
+      ...MODE_OPTIONS,
       'kappa-sign': { type: 'string' },
-      log: { type: 'boolean' },
-      tol: { type: 'string' },
       ...FIELD_MASS_OPTIONS,
       mass: { type: 'string' },
       unit: { type: 'string' },
@@ -75,14 +67,8 @@ Examples:
       ...OUTPUT_OPTIONS,
     });
     const format = outputFormat(values);
-    const spin = parseFieldSpin('--spin', requireOption(values.spin, '--spin', 'the field spin'));
-    const l = parseModeNumber('--l', requireOption(values.l, '--l', 'the multipole'));
-    const m = parseModeNumber('--m', requireOption(values.m, '--m', 'the azimuthal number'));
-    const a = parseNumber('--a', requireOption(values.a, '--a', "the hole's a/M"));
-    const omegaText = requireOption(values.omega, '--omega', 'the frequency Mω or START:STOP:COUNT');
-    const grid = parseRange('--omega', omegaText, { min: 0, exclusive: true, log: values.log ?? false, maxCount: 10_000 });
-    const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol);
-    const field = fieldWithMass(spin as FieldSpin, values);
+    const { spin, l, m, a, grid, omegaText, tol } = parseModeArguments(values);
+    const field = fieldWithMass(spin, values);
     const fieldMass = field.mass ?? 0;
     const kappaSign = values['kappa-sign'] === undefined ? undefined : parseKappaSign(values['kappa-sign']);
     const polarization = values.polarization as ProcaPolarization | undefined;

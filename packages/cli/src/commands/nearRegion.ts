@@ -1,8 +1,9 @@
-import { type Column, type FieldSpin, type Table, MODE_COLUMNS } from '@penumbra/core';
+import { type Column, type Table, MODE_COLUMNS } from '@penumbra/core';
 import { compareNearRegion, type NearRegionComparison } from '@penumbra/near-region';
 import type { Command } from '../command.js';
 import { formatError, formatNumber, formatTable } from '../format.js';
-import { parseFieldSpin, parseModeNumber, parseNumber, parseOptions, parseRange, requireOption } from '../options.js';
+import { parseOptions } from '../options.js';
+import { MODE_HELP, MODE_OPTIONS, parseModeArguments } from '../modeArguments.js';
 import { OUTPUT_OPTIONS, outputFormat, writeOutput } from '../output.js';
 import { progressReporter } from '../progress.js';
 
@@ -17,9 +18,7 @@ needs 0 < a/M ≤ 0.9999: T_L and T_R diverge at a = 0, and a < 0 is the mirror
 image of (|a|, −m). Derivation and validity map: docs/near-region.md.
 
 Options:
-  --spin S     field spin: 0, 1/2 (or 0.5), 1, 2
-  --l L        multipole, l ≥ S with l − S an integer
-  --m M        azimuthal number, |m| ≤ l with m − S an integer
+  ${MODE_HELP}
   --a A        the hole's spin parameter a/M, 0 < a/M ≤ 0.9999
   --omega W    frequency Mω in [1e-5, 30], or a grid START:STOP:COUNT
   --log        space a frequency grid geometrically
@@ -35,23 +34,11 @@ Examples:
 `,
   run(argv, io) {
     const { values } = parseOptions(argv, {
-      spin: { type: 'string' },
-      l: { type: 'string' },
-      m: { type: 'string' },
-      a: { type: 'string' },
-      omega: { type: 'string' },
-      log: { type: 'boolean' },
-      tol: { type: 'string' },
+      ...MODE_OPTIONS,
       ...OUTPUT_OPTIONS,
     });
     const format = outputFormat(values);
-    const spin = parseFieldSpin('--spin', requireOption(values.spin, '--spin', 'the field spin')) as FieldSpin;
-    const l = parseModeNumber('--l', requireOption(values.l, '--l', 'the multipole'));
-    const m = parseModeNumber('--m', requireOption(values.m, '--m', 'the azimuthal number'));
-    const a = parseNumber('--a', requireOption(values.a, '--a', "the hole's a/M"));
-    const omegaText = requireOption(values.omega, '--omega', 'the frequency Mω or START:STOP:COUNT');
-    const grid = parseRange('--omega', omegaText, { min: 0, exclusive: true, log: values.log ?? false, maxCount: 10_000 });
-    const tol = values.tol === undefined ? undefined : parseNumber('--tol', values.tol);
+    const { spin, l, m, a, grid, omegaText, tol } = parseModeArguments(values);
     const results: NearRegionComparison[] = [];
     const progress = progressReporter(io, 'near-region: frequencies done', grid.count);
     for (const [i, omega] of grid.values.entries()) {
