@@ -52,4 +52,3 @@ export {
   GAMMA_COLUMN,
   MODE_COLUMNS,
 } from './columns.js';
-export { setBounded } from './boundedCache.js';

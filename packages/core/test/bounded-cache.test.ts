@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { setBounded } from '../src/index.js';
+import { setBounded } from '../src/internal.js';
 
 // The caches' contract (project-internal: results never depend on a cache, so only the bound is checked).
 describe('setBounded', () => {

@@ -13,7 +13,8 @@
  *
  * Every Γ here is 0 at and below the threshold ω ≤ μ: no wave reaches infinity.
  */
-import { ConvergenceError, TOLERANCE_RANGE, type Field, setBounded } from '@penumbra/core';
+import { ConvergenceError, TOLERANCE_RANGE, type Field } from '@penumbra/core';
+import { setBounded } from '@penumbra/core/internal';
 import { greybody, type GreybodyOptions, type ProcaPolarization } from '@penumbra/flux';
 import type { ModeContext } from './modes.js';
 

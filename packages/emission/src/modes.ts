@@ -5,7 +5,8 @@
  * Γ·(occupation) is never negative: in the superradiant band of bosons both
  * factors change sign together.
  */
-import { ConvergenceError, type FieldSpin, setBounded } from '@penumbra/core';
+import { ConvergenceError, type FieldSpin } from '@penumbra/core';
+import { setBounded } from '@penumbra/core/internal';
 import { kerrHole, type KerrHole } from '@penumbra/kerr';
 import { greybody, lowFrequencyGreybody, MOMEGA_RANGE, type GreybodySolution } from '@penumbra/flux';
 import { massiveGamma, type GammaEstimate } from './massiveModes.js';

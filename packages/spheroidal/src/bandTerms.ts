@@ -1,4 +1,4 @@
-import { setBounded } from '@penumbra/core';
+import { setBounded } from '@penumbra/core/internal';
 import { cosDiagonal, cosOffDiagonal } from './coupling.js';
 import { sphericalA0 } from './quantum.js';
 

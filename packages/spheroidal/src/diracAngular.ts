@@ -11,7 +11,8 @@
  * eigenvalues of a symmetric one-parameter family do not cross, so the label
  * follows λ continuously by its rank among the positive or negative eigenvalues.
  */
-import { ConvergenceError, InputError, requireFinite, type Diagnostics, setBounded } from '@penumbra/core';
+import { ConvergenceError, InputError, requireFinite, type Diagnostics } from '@penumbra/core';
+import { setBounded } from '@penumbra/core/internal';
 import { bandEigenvalue, diracAngularBand } from './diracAngularMatrix.js';
 
 /** One angular problem of the massive Dirac field. */
