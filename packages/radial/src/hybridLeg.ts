@@ -8,8 +8,12 @@
  * holds enough phase to be worth it. A Riccati step that fails is halved in
  * ln x up to MAX_SPLITS times (near a turning point the branch point of W
  * limits what one rung resolves) and what still fails goes to the
- * integrator. Where no rung qualifies the leg is exactly `integrateLeg`'s,
- * so low-frequency modes are unchanged bit for bit.
+ * integrator. On a massless leg the stretches between Riccati rungs (and a
+ * leg of more than TAYLOR_LEG_PHASE radians without any) are crossed by
+ * Taylor-series steps instead (taylorStretch.ts), the integrator taking
+ * over only where a Taylor step cannot be made. Where no rung qualifies
+ * and the phase is below TAYLOR_LEG_PHASE the leg is exactly
+ * `integrateLeg`'s, so low-frequency modes are unchanged bit for bit.
  */
 import type { RadialSample } from './solution.js';
 import { fieldMassOf } from './equation.js';
@@ -30,7 +34,7 @@ import {
 import { integrateLeg, type Leg, type RawSample, type Segment } from './shooting.js';
 import { taylorStretch } from './taylorStretch.js';
 
-/** How oscillatory stretches of a leg are crossed: Riccati steps where they apply ('riccati', default), or the ODE integrator throughout ('ode', the earlier route, kept for cross-checks). */
+/** How oscillatory stretches of a leg are crossed: Riccati steps where they apply and, on a massless leg, Taylor-series steps between them ('riccati', default), or the ODE integrator throughout ('ode', the earlier route, kept for cross-checks). */
 export type Oscillation = 'riccati' | 'ode';
 
 /** Every accepted `oscillation`; the first is the default. */
