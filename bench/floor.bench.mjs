@@ -136,7 +136,9 @@ console.log(
   `load average ${os
     .loadavg()
     .map((x) => x.toFixed(1))
-    .join(' ')}; ${out.cpu}; ${grid ? `${modes.length} grid` : N} modes, tol ${tol}, reflection ${reflection}; least CPU of ${REPS} runs × ${ROUNDS} rounds per mode`,
+    .join(
+      ' ',
+    )}; ${out.cpu}; ${grid ? `${modes.length} grid` : N} modes, tol ${tol}, reflection ${reflection}; least CPU of ${REPS} runs × ${ROUNDS} rounds per mode`,
 );
 for (const [name] of builds) {
   const r = rec[name];

@@ -266,6 +266,9 @@ const trial = new Float64Array(4);
  * stretch is given back with y unchanged: ok false).
  */
 export function taylorStretch(e: RiccatiEquation, xa: number, xb: number, y: Float64Array, tol: number): TaylorStretch {
+  // the recurrence is written for A = Δ² with Δ of degree ≤ 2 and B, C of degree ≤ 4 (the massless equation)
+  if (e.delta.length > 3 || e.bRe.length > 5 || e.bIm.length > 5 || e.cRe.length > 5 || e.cIm.length > 5)
+    return { ok: false, steps: 0, errorSum: 0, terms: 0, logScale: 0, rescalings: 0 };
   start.set(y);
   let x = xa,
     steps = 0,
