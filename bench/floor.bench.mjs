@@ -14,7 +14,8 @@
 // --grid instead runs the tail grid (lib.mjs tailGrid; least CPU time of three
 // runs per mode) and prints the worst mode's cost.
 // --warmup=W first runs W other random modes (see below): the cost once the JIT has settled.
-// Run: npx tsc -b && node bench/floor.bench.mjs [N] [--reflection] [--tol=1e-8] [--grid] [--reps=R] [--warmup=W]
+// --rounds=K runs the measurement K times over all modes and keeps each mode's least CPU time (noise bursts).
+// Run: npx tsc -b && node bench/floor.bench.mjs [N] [--reflection] [--tol=1e-8] [--grid] [--reps=R] [--rounds=K] [--warmup=W]
 import os from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -33,6 +34,13 @@ if (BASE) builds.unshift(['base', await load(BASE)]);
 const rand = seededRandom(41);
 const spins = [0, 0.5, 1, 2];
 const grid = process.argv.includes('--grid');
+const roundsArg = process.argv.find((x) => x.startsWith('--rounds='));
+/**
+ * passes over all modes, each mode's least CPU time over every pass kept (--rounds=4: a burst of load from other
+ * processes, which lasts seconds and so spans all REPS runs of the modes it hits, is met by a mode in at most one
+ * pass; default 1)
+ */
+const ROUNDS = roundsArg ? Number(roundsArg.slice(9)) : 1;
 const repsArg = process.argv.find((x) => x.startsWith('--reps='));
 /** runs per mode, the least CPU time kept (--reps=3: a mode's cost without the machine's noise; default 1, or 3 on the grid) */
 const REPS = repsArg ? Number(repsArg.slice(7)) : grid ? 3 : 1;
@@ -71,36 +79,48 @@ for (const [, g] of builds) for (const p of grid ? modes : modes.slice(0, 150)) 
 const rec = Object.fromEntries(
   builds.map(([name]) => [name, { ms: [], evals: [], checks: 0, failed: 0, gamma: [], checkEvals: [] }]),
 );
-modes.forEach((p, i) => {
-  const order = i % 2 ? [...builds].reverse() : builds;
-  for (const [name, g] of order) {
-    const r = rec[name];
-    try {
-      // the least of REPS runs (the machine is shared; a mode's cost is deterministic)
-      let best = Number.POSITIVE_INFINITY;
-      let sol;
-      for (let rep = 0; rep < REPS; rep++) {
-        const t0 = process.cpuUsage();
-        // each repeat at ω × (1 − rep·1e-13) (Mω = 30 is the largest allowed): no exact hit in the eigenvalue or far-series caches
-        sol = g(rep === 0 ? p : { ...p, omega: p.omega * (1 - rep * 1e-13) }, { reflection, tol });
-        const t = process.cpuUsage(t0);
-        best = Math.min(best, (t.user + t.system) / 1e3);
+for (let round = 0; round < ROUNDS; round++)
+  modes.forEach((p, i) => {
+    const order = (i + round) % 2 ? [...builds].reverse() : builds;
+    for (const [name, g] of order) {
+      const r = rec[name];
+      if (round > 0) {
+        // a later pass: only a lower CPU time of the same (deterministic) solve replaces the kept one
+        if (!Number.isFinite(r.ms[i])) continue;
+        for (let rep = 0; rep < REPS; rep++) {
+          const t0 = process.cpuUsage();
+          g(rep === 0 ? p : { ...p, omega: p.omega * (1 - rep * 1e-13) }, { reflection, tol });
+          const t = process.cpuUsage(t0);
+          r.ms[i] = Math.min(r.ms[i], (t.user + t.system) / 1e3);
+        }
+        continue;
       }
-      r.ms.push(best);
-      r.evals.push(sol.diagnostics.rhsEvaluations);
-      r.gamma.push(sol.gamma);
-      if (sol.diagnostics.checkEvaluations > 0) r.checks++;
-      r.checkEvals.push(sol.diagnostics.checkEvaluations ?? 0);
-    } catch (e) {
-      if (r.failed < 3) console.log(`${name} failed on ${JSON.stringify(p)}: ${e.message.slice(0, 160)}`);
-      r.failed++;
-      r.ms.push(Number.NaN);
-      r.evals.push(Number.NaN);
-      r.gamma.push(Number.NaN);
-      r.checkEvals.push(0);
+      try {
+        // the least of REPS runs (the machine is shared; a mode's cost is deterministic)
+        let best = Number.POSITIVE_INFINITY;
+        let sol;
+        for (let rep = 0; rep < REPS; rep++) {
+          const t0 = process.cpuUsage();
+          // each repeat at ω × (1 − rep·1e-13) (Mω = 30 is the largest allowed): no exact hit in the eigenvalue or far-series caches
+          sol = g(rep === 0 ? p : { ...p, omega: p.omega * (1 - rep * 1e-13) }, { reflection, tol });
+          const t = process.cpuUsage(t0);
+          best = Math.min(best, (t.user + t.system) / 1e3);
+        }
+        r.ms.push(best);
+        r.evals.push(sol.diagnostics.rhsEvaluations);
+        r.gamma.push(sol.gamma);
+        if (sol.diagnostics.checkEvaluations > 0) r.checks++;
+        r.checkEvals.push(sol.diagnostics.checkEvaluations ?? 0);
+      } catch (e) {
+        if (r.failed < 3) console.log(`${name} failed on ${JSON.stringify(p)}: ${e.message.slice(0, 160)}`);
+        r.failed++;
+        r.ms.push(Number.NaN);
+        r.evals.push(Number.NaN);
+        r.gamma.push(Number.NaN);
+        r.checkEvals.push(0);
+      }
     }
-  }
-});
+  });
 const out = {
   date: new Date().toISOString(),
   load: os.loadavg(),
@@ -108,13 +128,17 @@ const out = {
   n: N,
   reflection,
   tol,
+  reps: REPS,
+  rounds: ROUNDS,
   builds: {},
 };
 console.log(
   `load average ${os
     .loadavg()
     .map((x) => x.toFixed(1))
-    .join(' ')}; ${out.cpu}; ${N} modes, tol ${tol}, reflection ${reflection}`,
+    .join(
+      ' ',
+    )}; ${out.cpu}; ${grid ? `${modes.length} grid` : N} modes, tol ${tol}, reflection ${reflection}; least CPU of ${REPS} runs × ${ROUNDS} rounds per mode`,
 );
 for (const [name] of builds) {
   const r = rec[name];
@@ -179,7 +203,7 @@ if (BASE) {
 const file = join(
   benchDir,
   'results',
-  `floor-${process.env.PENUMBRA_RESULT_TAG ?? new Date().toISOString().slice(0, 10)}${tol === 1e-8 ? '' : `-tol${tol}`}${reflection ? '-reflection' : ''}${grid ? '-grid' : ''}${REPS > 1 && !grid ? `-min${REPS}` : ''}${warmArg ? `-warm${warmArg.slice(9)}` : ''}.json`,
+  `floor-${process.env.PENUMBRA_RESULT_TAG ?? new Date().toISOString().slice(0, 10)}${tol === 1e-8 ? '' : `-tol${tol}`}${reflection ? '-reflection' : ''}${grid ? '-grid' : ''}${REPS > 1 && !grid ? `-min${REPS}` : ''}${ROUNDS > 1 ? `-rounds${ROUNDS}` : ''}${warmArg ? `-warm${warmArg.slice(9)}` : ''}.json`,
 );
 writeFileSync(file, `${JSON.stringify(out, null, 1)}\n`);
 console.log(`results: ${file}`);

@@ -107,7 +107,7 @@ export interface GreybodyOptions {
   matchRadius?: number;
   /** also compute the reflection coefficient from the −|s| field (default true) */
   reflection?: boolean;
-  /** how fast-oscillating stretches are crossed: Riccati steps ('riccati', default) or the ODE integrator throughout ('ode', the earlier route, kept for cross-checks); @penumbra/radial */
+  /** how fast-oscillating stretches are crossed: Riccati steps, with Taylor-series steps between them on massless legs ('riccati', default), or the ODE integrator throughout ('ode', the earlier route, kept for cross-checks); @penumbra/radial */
   oscillation?: Oscillation;
   /** massive vector only (spin 1, mass > 0): which polarisation (default 'odd', or 'monopole' at l = 0); see docs/massive-vector.md */
   polarization?: ProcaPolarization;

@@ -8,8 +8,12 @@
  * holds enough phase to be worth it. A Riccati step that fails is halved in
  * ln x up to MAX_SPLITS times (near a turning point the branch point of W
  * limits what one rung resolves) and what still fails goes to the
- * integrator. Where no rung qualifies the leg is exactly `integrateLeg`'s,
- * so low-frequency modes are unchanged bit for bit.
+ * integrator. On a massless leg the stretches between Riccati rungs (and a
+ * leg of more than TAYLOR_LEG_PHASE radians without any) are crossed by
+ * Taylor-series steps instead (taylorStretch.ts), the integrator taking
+ * over only where a Taylor step cannot be made. Where no rung qualifies
+ * and the phase is below TAYLOR_LEG_PHASE the leg is exactly
+ * `integrateLeg`'s, so low-frequency modes are unchanged bit for bit.
  */
 import type { RadialSample } from './solution.js';
 import { fieldMassOf } from './equation.js';
@@ -28,8 +32,9 @@ import {
   riccatiStep,
 } from './riccatiStep.js';
 import { integrateLeg, type Leg, type RawSample, type Segment } from './shooting.js';
+import { taylorStretch } from './taylorStretch.js';
 
-/** How oscillatory stretches of a leg are crossed: Riccati steps where they apply ('riccati', default), or the ODE integrator throughout ('ode', the earlier route, kept for cross-checks). */
+/** How oscillatory stretches of a leg are crossed: Riccati steps where they apply and, on a massless leg, Taylor-series steps between them ('riccati', default), or the ODE integrator throughout ('ode', the earlier route, kept for cross-checks). */
 export type Oscillation = 'riccati' | 'ode';
 
 /** Every accepted `oscillation`; the first is the default. */
@@ -49,8 +54,41 @@ const RUNG = 4;
 const LAST_RUNG_STRETCH = 1.5;
 /** Largest WKB ratio |Y₀'|/|W|² (in u = ln x) at the probe points of a rung given to a Riccati step. */
 export const WKB_LIMIT = 0.08;
+/**
+ * WKB_LIMIT of a massless leg. Near a turning point the defect corrections
+ * of a Riccati step contract ever more slowly from pass to pass (the WKB
+ * series is asymptotic), and a rung whose largest probed ratio is above
+ * ~0.01 was measured never to converge: on the tail grid of
+ * bench/floor.bench.mjs (208 modes, 3,000 attempts), of 469 attempts at a
+ * ratio ≥ 0.008 one succeeded. Such a rung is cut in halves at once
+ * (PLAN_SPLITS) rather than tried whole and halved on failure. Measured on
+ * the same grid with the integrator's stretches (before Taylor steps):
+ * 0.012 took the fewest evaluations against 0.006, 0.008, 0.016 and 0.024;
+ * with Taylor steps (CPU, interleaved) against 0.08 and no cuts: 2 % less
+ * per mode, worst mode 2.77 → 2.70 times the median (near the noise).
+ */
+export const MASSLESS_WKB_LIMIT = 0.012;
+/**
+ * Times a massless leg's rung that the cheap look refuses is cut in halves
+ * (in ln x) before the leg is laid out, each half looked at again: near a
+ * turning point the probes at a rung's far end refuse a whole rung of which
+ * the near half is a good Riccati rung (measured on the tail grid: the
+ * integrator crossed up to 3 rungs, x from 11 to 183, where after the cuts
+ * it crosses x from 30 to 80). 4 takes the same evaluations as 3.
+ */
+const PLAN_SPLITS = 3;
 /** Least phase (or growth) ∫|W|/2 du, in radians, on a rung given to a Riccati step: below it the integrator was measured to be as cheap (bench/far-zone.bench.mjs). */
 export const MIN_PHASE = 20;
+/**
+ * MIN_PHASE of a massless leg, whose other stretches are crossed by Taylor
+ * steps (taylorStretch.ts) at ~6 terms per radian, several times cheaper
+ * than the integrator: a Riccati step (16 nodes × 4–8 passes of O(16²)
+ * collocation) pays off only on longer rungs. Measured on the tail grid
+ * (CPU, interleaved): against 20 the worst mode 2.83 → 2.68 times the
+ * median; 40 left it at 2.8–3.1, 90 and 150 raised the median by 16 % and
+ * 43 % (the far zones of the high-frequency modes).
+ */
+export const MASSLESS_MIN_PHASE = 60;
 /**
  * MIN_PHASE for a rung of a massive field's far zone whose rate |W| is at
  * least FAST_RATE at both ends: there a Riccati step converges in a few
@@ -62,6 +100,14 @@ export const MIN_PHASE = 20;
 export const MIN_PHASE_LONG_RANGE = 8;
 /** The rate |W| (radians per unit of ln x) above which a massive field's rung may take MIN_PHASE_LONG_RANGE. */
 export const FAST_RATE = 45;
+
+/**
+ * Least phase (radians) of a massless leg without Riccati rungs that is
+ * crossed by Taylor steps (taylorStretch.ts) rather than by the integrator.
+ * Below it the leg is exactly `integrateLeg`'s, so that low-frequency modes
+ * are unchanged bit for bit.
+ */
+export const TAYLOR_LEG_PHASE = 40;
 
 /** Times a failed rung is halved before the integrator takes it. */
 const MAX_SPLITS = 4;
@@ -79,10 +125,17 @@ const probe = new Float64Array(LOCAL_SIZE);
 
 /**
  * Whether a Riccati step on [xa, xb] looks worth trying: at five points (in
- * u = ln x) the WKB ratio |Y₀'|/|W|² is below WKB_LIMIT, and the phase (or
+ * u = ln x) the WKB ratio |Y₀'|/|W|² is below `ratioLimit` (default
+ * WKB_LIMIT), and the phase (or
  * growth) ∫|W|/2 du on the rung is above `minPhase` (default MIN_PHASE).
  */
-export function riccatiWorthIt(e: RiccatiEquation, xa: number, xb: number, minPhase = MIN_PHASE): boolean {
+export function riccatiWorthIt(
+  e: RiccatiEquation,
+  xa: number,
+  xb: number,
+  minPhase = MIN_PHASE,
+  ratioLimit = WKB_LIMIT,
+): boolean {
   const K = 5;
   const ua = Math.log(xa),
     du = (Math.log(xb) - ua) / (K - 1);
@@ -90,12 +143,57 @@ export function riccatiWorthIt(e: RiccatiEquation, xa: number, xb: number, minPh
     prev = 0;
   for (let j = 0; j < K; j++) {
     localRiccati(e, j === K - 1 ? xb : Math.exp(ua + j * du), probe);
-    if (!(probe[LOCAL.RATIO] < WKB_LIMIT)) return false;
+    if (!(probe[LOCAL.RATIO] < ratioLimit)) return false;
     const W = Math.sqrt(probe[LOCAL.W] ** 2 + probe[LOCAL.W + 1] ** 2);
     if (j > 0) phase += 0.25 * (W + prev) * du;
     prev = W;
   }
   return phase > minPhase;
+}
+
+/** 0.25 (rate at from + rate at to) × ln(to/from): the trapezoidal phase ∫|W|/2 du of a rung from the rates at its ends. */
+function rungPhase(from: Point, to: Point, rateFrom: number, rateTo: number): number {
+  return 0.25 * (rateFrom + rateTo) * Math.log(to.x / from.x);
+}
+
+/** The phase (or growth) ∫|W|/2 du of a whole ladder, from the rates at its points (trapezoidal in ln x). */
+function legPhase(ladder: Point[], rates: number[]): number {
+  let phase = 0;
+  for (let i = 1; i < ladder.length; i++) phase += rungPhase(ladder[i - 1], ladder[i], rates[i - 1], rates[i]);
+  return phase;
+}
+
+/**
+ * A massless leg's ladder with every rung the cheap look refused, but which
+ * holds the phase of two Riccati rungs, cut in halves (in ln x) up to
+ * PLAN_SPLITS times, each half looked at again; `ladder` and `rates` are
+ * rewritten in place and the new `good` returned.
+ */
+function cutRefused(e: RiccatiEquation, ladder: Point[], rates: number[], good: boolean[], rPlus: number): boolean[] {
+  const least = MASSLESS_MIN_PHASE;
+  if (good.every((g, i) => g || rungPhase(ladder[i], ladder[i + 1], rates[i], rates[i + 1]) <= 2 * least)) return good;
+  const points: Point[] = [ladder[0]],
+    pointRates: number[] = [rates[0]],
+    out: boolean[] = [];
+  const cut = (from: Point, to: Point, rateFrom: number, rateTo: number, ok: boolean, depth: number): void => {
+    if (ok || depth === PLAN_SPLITS || rungPhase(from, to, rateFrom, rateTo) <= 2 * least) {
+      points.push(to);
+      pointRates.push(rateTo);
+      out.push(ok);
+      return;
+    }
+    const xm = Math.sqrt(from.x * to.x);
+    const mid = { x: xm, r: rPlus + xm };
+    const rateMid = phaseRate(e, xm);
+    const worth = (a: Point, b: Point, ra: number, rb: number) =>
+      rungPhase(a, b, ra, rb) > 0.5 * least && riccatiWorthIt(e, a.x, b.x, least, MASSLESS_WKB_LIMIT);
+    cut(from, mid, rateFrom, rateMid, worth(from, mid, rateFrom, rateMid), depth + 1);
+    cut(mid, to, rateMid, rateTo, worth(mid, to, rateMid, rateTo), depth + 1);
+  };
+  for (let i = 0; i < good.length; i++) cut(ladder[i], ladder[i + 1], rates[i], rates[i + 1], good[i], 0);
+  ladder.splice(0, ladder.length, ...points);
+  rates.splice(0, rates.length, ...pointRates);
+  return out;
 }
 
 /**
@@ -204,16 +302,23 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     if (next.r === leg.to) break;
   }
   // A cheap look first (the rate at the rung ends): most low-frequency legs stop here.
-  const rungPhase = (from: Point, to: Point, rateFrom: number, rateTo: number) =>
-    0.25 * (rateFrom + rateTo) * Math.log(to.x / from.x);
   const rates = ladder.map((p) => phaseRate(e, p.x));
   const rungMinPhase = (i: number) =>
-    longRange && Math.min(rates[i], rates[i + 1]) >= FAST_RATE ? MIN_PHASE_LONG_RANGE : MIN_PHASE;
-  const good = ladder.slice(1).map((p, i) => {
+    longRange && Math.min(rates[i], rates[i + 1]) >= FAST_RATE
+      ? MIN_PHASE_LONG_RANGE
+      : longRange
+        ? MIN_PHASE
+        : MASSLESS_MIN_PHASE;
+  const ratioLimit = longRange ? WKB_LIMIT : MASSLESS_WKB_LIMIT;
+  let good = ladder.slice(1).map((p, i) => {
     const least = rungMinPhase(i);
-    return rungPhase(ladder[i], p, rates[i], rates[i + 1]) > 0.5 * least && riccatiWorthIt(e, ladder[i].x, p.x, least);
+    return (
+      rungPhase(ladder[i], p, rates[i], rates[i + 1]) > 0.5 * least && riccatiWorthIt(e, ladder[i].x, p.x, least, ratioLimit)
+    );
   });
-  if (!good.includes(true)) return plain(integrateLeg(leg));
+  if (!longRange) good = cutRefused(e, ladder, rates, good, rPlus);
+  const riccati = good.includes(true);
+  if (!riccati && (longRange || !(legPhase(ladder, rates) > TAYLOR_LEG_PHASE))) return plain(integrateLeg(leg));
 
   const y = leg.y;
   let logScale = leg.logScale ?? 0;
@@ -226,7 +331,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   const raw: RawSample[] = [];
   const scale = new Float64Array(1);
   // On a massless leg the integrator's stretches between Riccati rungs run at ODE_SHARE × tol (see ODE_SHARE), not below TIGHTEST_STRETCH_TOL.
-  const odeShare = longRange ? 1 : Math.min(1, Math.max(ODE_SHARE, TIGHTEST_STRETCH_TOL / leg.tol));
+  const odeShare = longRange || !riccati ? 1 : Math.min(1, Math.max(ODE_SHARE, TIGHTEST_STRETCH_TOL / leg.tol));
   const byOde = (from: Point, to: Point) => {
     // written out in the order of the other leg literals (a spread was a second shape where legs are read)
     const seg = integrateLeg({
@@ -253,6 +358,33 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     samples.push(...seg.samples);
     raw.push(...seg.raw);
   };
+  const record = (to: Point) => {
+    if (!leg.stops.includes(to.r)) return;
+    const f = Math.exp(logScale);
+    samples.push({ r: to.r, R: { re: y[0] * f, im: y[1] * f }, dR: { re: y[2] * f, im: y[3] * f } });
+    raw.push({ r: to.r, y: [y[0], y[1], y[2], y[3]], logScale });
+  };
+  // A massless leg's stretch by Taylor steps (taylorStretch.ts) at the integrator's share of tol, its error
+  // estimates counted as the integrator's; false (y untouched) where a step could not be made.
+  const byTaylor = (from: Point, to: Point): boolean => {
+    const t = taylorStretch(e, from.x, to.x, y, leg.tol * odeShare);
+    // counted as right-hand-side evaluations: one term costs about one
+    leg.counter.evaluations += t.terms;
+    if (!t.ok) return false;
+    steps += t.steps;
+    errorSum += t.errorSum * odeShare;
+    logScale += t.logScale;
+    rescalings += t.rescalings;
+    record(to);
+    return true;
+  };
+  // ladder[a] → ladder[b] not by Riccati steps: rung by rung by Taylor steps on a massless leg, by the integrator
+  // from the first rung where they cannot be made (and on a massive leg).
+  const byStretch = (a: number, b: number) => {
+    let k = a;
+    if (!longRange) while (k < b && byTaylor(ladder[k], ladder[k + 1])) k++;
+    if (k < b) byOde(ladder[k], ladder[b]);
+  };
   // One rung by a Riccati step; a rung that fails is halved (in ln x) up to MAX_SPLITS times before the
   // integrator takes it: near a turning point the branch point of W limits the resolution of a whole rung.
   const byRiccati = (from: Point, to: Point, rateFrom: number, rateTo: number, depth: number): void => {
@@ -265,12 +397,12 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       const rateMid = phaseRate(e, xm);
       if (
         depth < MAX_SPLITS &&
-        rungPhase(from, mid, rateFrom, rateMid) > 0.5 * MIN_PHASE &&
-        rungPhase(mid, to, rateMid, rateTo) > 0.5 * MIN_PHASE
+        rungPhase(from, mid, rateFrom, rateMid) > 0.5 * (longRange ? MIN_PHASE : MASSLESS_MIN_PHASE) &&
+        rungPhase(mid, to, rateMid, rateTo) > 0.5 * (longRange ? MIN_PHASE : MASSLESS_MIN_PHASE)
       ) {
         byRiccati(from, mid, rateFrom, rateMid, depth + 1);
         byRiccati(mid, to, rateMid, rateTo, depth + 1);
-      } else byOde(from, to);
+      } else if (longRange || !byTaylor(from, to)) byOde(from, to);
       return;
     }
     steps++;
@@ -288,18 +420,14 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       logScale += LN_RESCALE;
       rescalings++;
     }
-    if (leg.stops.includes(to.r)) {
-      const f = Math.exp(logScale);
-      samples.push({ r: to.r, R: { re: y[0] * f, im: y[1] * f }, dR: { re: y[2] * f, im: y[3] * f } });
-      raw.push({ r: to.r, y: [y[0], y[1], y[2], y[3]], logScale });
-    }
+    record(to);
   };
   let i = 0;
   while (i < good.length) {
     if (!good[i]) {
       let j = i;
       while (j < good.length && !good[j]) j++;
-      byOde(ladder[i], ladder[j]);
+      byStretch(i, j);
       i = j;
       continue;
     }

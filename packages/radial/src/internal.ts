@@ -50,5 +50,6 @@ export {
   RICCATI_NODES,
 } from './riccatiStep.js';
 export { type ChebyshevRule, chebyshevRule, chebyshevTail, chebyshevDerivative } from './chebyshev.js';
+export { type TaylorStretch, taylorStretch } from './taylorStretch.js';
 export { twoSidedChecked } from './solveTwoSided.js';
 export { oneSidedChecked } from './solveRadial.js';

@@ -29,7 +29,7 @@ export interface RadialOptions {
   integrator?: IntegratorName;
   /** integrate R itself ('plain', default) or u = e^{iφ}R with the ingoing phase removed ('phase'; a second formulation for cross-checks) */
   variable?: RadialVariable;
-  /** cross fast-oscillating stretches by Riccati steps ('riccati', default; cost independent of the number of oscillations) or integrate them ('ode', the earlier route, kept for cross-checks) */
+  /** cross fast-oscillating stretches by Riccati steps, with Taylor-series steps between them on massless legs ('riccati', default; cost independent of the number of oscillations), or integrate them ('ode', the earlier route, kept for cross-checks) */
   oscillation?: Oscillation;
   /**
    * whether the reflected amplitude is wanted (default true). The one-sided

@@ -1,0 +1,311 @@
+/**
+ * Taylor-series steps of the radial equation A R'' + B R' + C R = 0 across
+ * a stretch [xa, xb] (x = r − r+), for the stretches of a massless leg that
+ * its Riccati steps leave (around turning points, where the solutions are
+ * neither fast nor slow). The coefficients are polynomials in x (A = Δ²,
+ * degree 4; B, C of degree ≤ 4), so the Taylor coefficients of R about any
+ * point follow from a five-term recurrence: one term costs about what one
+ * right-hand-side evaluation of the extrapolation integrator costs, and a
+ * step of ~5 radians (or e-folds) takes ~30 terms where the extrapolation
+ * integrator crosses ~1.5 radians per ~70 evaluations near a turning point.
+ * Measured on x from 0.15 to 1 of s = −1/2, l = 100.5, m = 50.5, a = 0.99,
+ * Mω = 1 (a turning point at x ≈ 0.35) at tol 3e-12: 875 terms in 25 steps,
+ * true error 2.7e-13 (estimate 6.5e-12), against the integrator's 5,917
+ * evaluations in 81 steps, true error 2.5e-11; 3–4 times less CPU.
+ *
+ * With σ = (x − x0)/h and the scaled coefficients τ_n = ρ_n hⁿ of
+ * R = Σ ρ_n (x − x0)ⁿ, the equation multiplied by h² reads
+ * Ã R_σσ + B̃ R_σ + C̃ R = 0 with Ã_j = a_j h^j, B̃_j = b_j h^{j+1},
+ * C̃_j = c_j h^{j+2} (a_j, b_j, c_j the coefficients about x0), and the
+ * coefficient of σⁿ (substituting the series and collecting powers) gives
+ *   Ã_0 (n+2)(n+1) τ_{n+2} = −Σ_{j≥1} Ã_j (n−j+2)(n−j+1) τ_{n−j+2}
+ *                            − Σ_{j≥0} B̃_j (n−j+1) τ_{n−j+1} − Σ_{j≥0} C̃_j τ_{n−j}
+ * R(x0 + h) = Σ τ_n, h R'(x0 + h) = Σ n τ_n.
+ *
+ * A step's error estimate is what the last two terms leave (the terms are
+ * summed until they fall below the target and decrease by at least half
+ * from term to term, so the rest of the series is smaller than its last
+ * term) plus the rounding of the sum (ROUNDING ε × the sum of the terms'
+ * moduli: the cancellation of an oscillating series), each relative to the
+ * larger modulus of R (and of R') at the step's two ends. The radius of
+ * convergence is the distance to the nearer zero of Δ (x = 0 or x = r− − r+),
+ * and a step reaches at most RADIUS_SHARE of it.
+ */
+import type { RiccatiEquation } from './riccatiStep.js';
+
+/**
+ * Phase (or growth) a step aims at, in radians (e-folds): the sum of the
+ * terms' moduli, and with it the rounding charged, grows like e^θ (8 ε e⁵ ≈
+ * 3e-13), while the terms per radian fall slowly beyond a few radians.
+ */
+const STEP_PHASE = 5;
+/** Share of the tolerance below which the terms are summed (a term more costs ~1/6 radian of work). */
+const TARGET = 0.1;
+/** Largest share of the radius of convergence a step reaches (the terms then shrink by at least this ratio, beyond the oscillation). */
+const RADIUS_SHARE = 0.5;
+/** Fewest terms of one step: past the largest term θⁿ/n! of a step of STEP_PHASE radians (n ≈ θ), twice over. */
+const MIN_TERMS = 2 * STEP_PHASE + 2;
+/** Most terms of one step; a step that needs more is halved. */
+const MAX_TERMS = 80;
+/** Rounding charged to a step, in units of ε × the sum of the moduli of its terms (common practice, no source). */
+const ROUNDING = 8;
+/** Largest number of halvings of one step before the stretch is given back. */
+const MAX_HALVINGS = 8;
+
+/** The result of a Taylor stretch. */
+export interface TaylorStretch {
+  /** false when a step could not be made (the caller integrates the stretch otherwise; `y` is then unchanged) */
+  ok: boolean;
+  /** steps taken */
+  steps: number;
+  /** sum of the steps' error estimates relative to `tol` */
+  errorSum: number;
+  /** terms summed (counted as right-hand-side evaluations) */
+  terms: number;
+  /** ln of the scale taken out of y (to add to the caller's log-scale) */
+  logScale: number;
+  /** times y was rescaled */
+  rescalings: number;
+}
+
+const OVERFLOW = 1e150;
+const RESCALE = 1e-300;
+const LN_RESCALE = 300 * Math.LN10;
+
+// coefficients about x0, scaled by h: A (real, 5), B and C (complex, 5)
+const sa = new Float64Array(5);
+const sbr = new Float64Array(5),
+  sbi = new Float64Array(5),
+  scr = new Float64Array(5),
+  sci = new Float64Array(5);
+const tr = new Float64Array(MAX_TERMS + 2),
+  ti = new Float64Array(MAX_TERMS + 2);
+const start = new Float64Array(4);
+const dScratch = new Float64Array(3);
+
+/** Coefficients of p(x0 + t) in powers of t, into out[0..length) (Taylor shift). */
+function shiftInto(p: Float64Array, x0: number, out: Float64Array, length: number): void {
+  for (let k = 0; k < length; k++) {
+    let sum = 0;
+    let binom = 1;
+    let pw = 1;
+    for (let j = k; j < p.length; j++) {
+      sum += binom * p[j] * pw;
+      binom = (binom * (j + 1)) / (j + 1 - k);
+      pw *= x0;
+    }
+    out[k] = sum;
+  }
+  for (let k = length; k < out.length; k++) out[k] = 0;
+}
+
+/** The local rate of the solutions, in e-folds or radians per unit x: |√(p² − 4q)|/2 + |p|/2 at x. */
+function rateAt(e: RiccatiEquation, x: number): number {
+  let d = 0;
+  for (let k = e.delta.length - 1; k >= 0; k--) d = d * x + e.delta[k];
+  const iA = 1 / (d * d);
+  const h = (c: Float64Array) => {
+    let v = 0;
+    for (let k = c.length - 1; k >= 0; k--) v = v * x + c[k];
+    return v * iA;
+  };
+  const pr = h(e.bRe),
+    pi = h(e.bIm),
+    qr = h(e.cRe),
+    qi = h(e.cIm);
+  const zr = pr * pr - pi * pi - 4 * qr,
+    zi = 2 * pr * pi - 4 * qi;
+  return 0.5 * (Math.sqrt(Math.sqrt(zr * zr + zi * zi)) + Math.sqrt(pr * pr + pi * pi));
+}
+
+/**
+ * One step from x0 by h: writes R, R' at x0 + h into y (in place) and
+ * returns the error estimate relative to the state, or NaN when the terms do
+ * not settle below `target` (relative) within MAX_TERMS (y then unchanged).
+ * `out[0]` receives the terms summed.
+ */
+function step(e: RiccatiEquation, x0: number, h: number, y: Float64Array, target: number, out: Float64Array): number {
+  // A = Δ² about x0
+  shiftInto(e.delta, x0, dScratch, 3);
+  const d0 = dScratch[0],
+    d1 = dScratch[1],
+    d2 = dScratch[2];
+  sa[0] = d0 * d0;
+  sa[1] = 2 * d0 * d1;
+  sa[2] = d1 * d1 + 2 * d0 * d2;
+  sa[3] = 2 * d1 * d2;
+  sa[4] = d2 * d2;
+  shiftInto(e.bRe, x0, sbr, Math.min(5, e.bRe.length));
+  shiftInto(e.bIm, x0, sbi, Math.min(5, e.bIm.length));
+  shiftInto(e.cRe, x0, scr, Math.min(5, e.cRe.length));
+  shiftInto(e.cIm, x0, sci, Math.min(5, e.cIm.length));
+  let hp = 1;
+  for (let j = 0; j < 5; j++) {
+    sa[j] *= hp;
+    sbr[j] *= hp * h;
+    sbi[j] *= hp * h;
+    scr[j] *= hp * h * h;
+    sci[j] *= hp * h * h;
+    hp *= h;
+  }
+  const ia0 = 1 / sa[0];
+  tr[0] = y[0];
+  ti[0] = y[1];
+  tr[1] = y[2] * h;
+  ti[1] = y[3] * h;
+  let Rr = tr[0] + tr[1],
+    Ri = ti[0] + ti[1];
+  let Dr = tr[1],
+    Di = ti[1];
+  // moduli bounded by |re| + |im| (within √2, and cheaper than a square root per term)
+  let absSum = Math.abs(tr[0]) + Math.abs(ti[0]) + Math.abs(tr[1]) + Math.abs(ti[1]);
+  let absSumD = Math.abs(tr[1]) + Math.abs(ti[1]);
+  let prev = Math.abs(tr[1]) + Math.abs(ti[1]);
+  let n = 0;
+  let tail = Number.NaN,
+    tailD = Number.NaN;
+  const m0 = Math.sqrt(y[0] * y[0] + y[1] * y[1]),
+    md0 = Math.sqrt(y[2] * y[2] + y[3] * y[3]) * h;
+  for (n = 0; n + 2 <= MAX_TERMS; n++) {
+    // τ_{n+2}
+    let sr = 0,
+      si = 0;
+    if (n >= 4) {
+      // every index in range: the five-term sums written out (the bounds tests were most of a term's cost)
+      const k0 = n + 1,
+        k1 = n,
+        k2 = n - 1,
+        k3 = n - 2;
+      const f1 = sa[1] * k0 * n,
+        f2 = sa[2] * k1 * (n - 1),
+        f3 = sa[3] * k2 * (n - 2),
+        f4 = sa[4] * k3 * (n - 3);
+      sr = f1 * tr[k0] + f2 * tr[k1] + f3 * tr[k2] + f4 * tr[k3];
+      si = f1 * ti[k0] + f2 * ti[k1] + f3 * ti[k2] + f4 * ti[k3];
+      // B̃_j (n − j + 1) τ_{n−j+1} + C̃_j τ_{n−j}, j = 0…4
+      for (let j = 0; j < 5; j++) {
+        const k = n + 1 - j;
+        const br = sbr[j] * k,
+          bi = sbi[j] * k;
+        const cr = scr[j],
+          ci = sci[j];
+        const ur = tr[k],
+          ui = ti[k],
+          vr = tr[k - 1],
+          vi = ti[k - 1];
+        sr += br * ur - bi * ui + cr * vr - ci * vi;
+        si += br * ui + bi * ur + cr * vi + ci * vr;
+      }
+    } else {
+      for (let j = 1; j <= 4 && j <= n + 2; j++) {
+        const k = n - j + 2;
+        const f = sa[j] * k * (k - 1);
+        sr += f * tr[k];
+        si += f * ti[k];
+      }
+      for (let j = 0; j <= 4 && j <= n + 1; j++) {
+        const k = n - j + 1;
+        const br = sbr[j] * k,
+          bi = sbi[j] * k;
+        sr += br * tr[k] - bi * ti[k];
+        si += br * ti[k] + bi * tr[k];
+      }
+      for (let j = 0; j <= 4 && j <= n; j++) {
+        const k = n - j;
+        sr += scr[j] * tr[k] - sci[j] * ti[k];
+        si += scr[j] * ti[k] + sci[j] * tr[k];
+      }
+    }
+    const f = -ia0 / ((n + 2) * (n + 1));
+    const vr = sr * f,
+      vi = si * f;
+    tr[n + 2] = vr;
+    ti[n + 2] = vi;
+    Rr += vr;
+    Ri += vi;
+    Dr += (n + 2) * vr;
+    Di += (n + 2) * vi;
+    const mod = Math.abs(vr) + Math.abs(vi);
+    absSum += mod;
+    absSumD += (n + 2) * mod;
+    // settled: two terms below the target of both R and hR', the last at most half its predecessor, and past the
+    // rise of the terms of a step of STEP_PHASE radians (a dip of two small terms before it is not taken for the end)
+    if (n + 3 >= MIN_TERMS && mod <= 0.5 * prev) {
+      const last = Math.abs(tr[n + 1]) + Math.abs(ti[n + 1]);
+      const scaleR = Math.max(m0, Math.sqrt(Rr * Rr + Ri * Ri)),
+        scaleD = Math.max(md0, Math.sqrt(Dr * Dr + Di * Di));
+      const t = mod + last,
+        tD = (n + 2) * mod + (n + 1) * last;
+      if (t < target * scaleR && tD < target * scaleD) {
+        tail = t / scaleR;
+        tailD = tD / scaleD;
+        out[0] = n + 3;
+        const rounding = ROUNDING * Number.EPSILON * Math.max(absSum / scaleR, absSumD / scaleD);
+        y[0] = Rr;
+        y[1] = Ri;
+        y[2] = Dr / h;
+        y[3] = Di / h;
+        return Math.max(tail, tailD) + rounding;
+      }
+    }
+    prev = mod;
+  }
+  out[0] = n + 2;
+  return Number.NaN;
+}
+
+const counted = new Float64Array(1);
+const trial = new Float64Array(4);
+
+/**
+ * Carry y = (Re R, Im R, Re R', Im R') from xa to xb (0 < xa < xb) by
+ * Taylor steps at relative tolerance `tol` per step, in place. Steps aim at
+ * STEP_PHASE radians by the local rate at both ends and at most RADIUS_SHARE
+ * of the distance to the horizon; a step whose terms do not settle, or
+ * whose rounding exceeds tol, is halved (up to MAX_HALVINGS times, else the
+ * stretch is given back with y unchanged: ok false).
+ */
+export function taylorStretch(e: RiccatiEquation, xa: number, xb: number, y: Float64Array, tol: number): TaylorStretch {
+  // the recurrence is written for A = Δ² with Δ of degree ≤ 2 and B, C of degree ≤ 4 (the massless equation)
+  if (e.delta.length > 3 || e.bRe.length > 5 || e.bIm.length > 5 || e.cRe.length > 5 || e.cIm.length > 5)
+    return { ok: false, steps: 0, errorSum: 0, terms: 0, logScale: 0, rescalings: 0 };
+  start.set(y);
+  let x = xa,
+    steps = 0,
+    errorSum = 0,
+    terms = 0,
+    logScale = 0,
+    rescalings = 0;
+  while (x < xb) {
+    const rest = xb - x;
+    let h = Math.min(STEP_PHASE / rateAt(e, x), RADIUS_SHARE * x, rest);
+    const rateEnd = rateAt(e, x + h);
+    if (h * rateEnd > STEP_PHASE) h = STEP_PHASE / rateEnd;
+    let err = Number.NaN;
+    for (let halvings = 0; ; halvings++) {
+      trial.set(y);
+      err = step(e, x, h, trial, TARGET * tol, counted);
+      terms += counted[0];
+      if (err <= tol) break;
+      if (halvings === MAX_HALVINGS) {
+        y.set(start);
+        return { ok: false, steps, errorSum, terms, logScale: 0, rescalings: 0 };
+      }
+      h *= 0.5;
+    }
+    y.set(trial);
+    x = h >= rest ? xb : x + h;
+    steps++;
+    errorSum += err / tol;
+    if (Math.abs(y[0]) + Math.abs(y[1]) > OVERFLOW) {
+      for (let c = 0; c < 4; c++) y[c] *= RESCALE;
+      logScale += LN_RESCALE;
+      rescalings++;
+    }
+  }
+  if (!(Number.isFinite(y[0]) && Number.isFinite(y[1]) && Number.isFinite(y[2]) && Number.isFinite(y[3]))) {
+    y.set(start);
+    return { ok: false, steps, errorSum, terms, logScale: 0, rescalings: 0 };
+  }
+  return { ok: true, steps, errorSum, terms, logScale, rescalings };
+}
