@@ -95,9 +95,14 @@ const MAX_MATCH_MOVES = 60;
  * two channels 1.10 at 6.9 (even l = 1, Mω = 0.3, v = 0.14), 1.12 at 9.5
  * (even l = 1, v = 0.05), 0.92 at 10.0 (even l = 2, Mω = 0.8, v = 0.14), 0.68
  * at 16.8 (even l = 2, v = 0.05): the even sector's carry solves a 2×2 matrix
- * Riccati equation.
+ * Riccati equation. With that carry 1.4× cheaper (reciprocal pivots, paired
+ * solves, Gauss–Seidel sweeps) and the far-series ladder rescaling its terms
+ * (series.ts), the two-channel break-even moved down (same modes, warmed up,
+ * interleaved, best of 9): carried/direct 0.73–0.89 at 9.5 (even l = 1,
+ * v = 0.05; 758 against 2677 evaluations), 1.04–1.11 at 6.9 (l = 1, v = 0.14),
+ * 0.75–0.81 at 10.0 (l = 2, v = 0.14).
  */
-const RADIANS_PER_INTERVAL = { 1: 6, 2: 10 } as const;
+const RADIANS_PER_INTERVAL = { 1: 6, 2: 8 } as const;
 
 /** Whether carrying the far solutions from rStart in to rEnd costs less than integrating across. */
 function carryPays(model: SectorModel, rEnd: number, rStart: number): boolean {
@@ -385,8 +390,15 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   const Aout: Complex[] = [];
   for (let c = 0; c < N; c++) for (let j = 0; j < N; j++) Ain.push(amp[c * N + j]);
   for (let c = 0; c < N; c++) for (let j = 0; j < N; j++) Aout.push(amp[(N + c) * N + j]);
+  // the absorption's fields by name, not spread: the spread result plus fifteen more keys cost about 5 % of a
+  // near-threshold solve (CPU profile of bench/proca-speed's even l = 3, v = 0.05)
+  const a = absorption(model, Ain, Aout, logRescale, controls.basisAngle ?? 0);
   return {
-    ...absorption(model, Ain, Aout, logRescale, controls.basisAngle ?? 0),
+    gammas: a.gammas,
+    reflections: a.reflections,
+    residual: a.residual,
+    channelDiagonal: a.channelDiagonal,
+    eigenvectors: a.eigenvectors,
     startRadius: r0,
     matchRadius,
     steps,
