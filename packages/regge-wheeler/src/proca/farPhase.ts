@@ -103,6 +103,8 @@ export function carryFarSolutions(
     dS,
     W,
     dW,
+    ddW,
+    dWo,
     Fr,
     Fi,
     Ir,
@@ -189,7 +191,14 @@ export function carryFarSolutions(
           const d = 3 * i;
           const g = mu2 + (L + q0[d]) * y2 + q1[d] * y2 * yr;
           const dg = 2 * (L + q0[d]) * yr + 3 * q1[d] * y2;
-          dW[2 * j + i] = -fy2 * (-2 * g + f * dg);
+          const b = 2 * g - f * dg;
+          dW[2 * j + i] = fy2 * b;
+          // d²W_ii/dr*² = f y² [2y² B − f (2y B + y² (4 g_y − f g_yy))], B = 2g − f g_y (W' = f y² B)
+          ddW[2 * j + i] = fy2 * (2 * y2 * b - f * (2 * yr * b + y2 * (4 * dg - f * (2 * (L + q0[d]) + 6 * q1[d] * yr))));
+          // dW_01/dr*, dW_10/dr* (W_e = f y² q_e(y), q_e = q0_e + q1_e y; d/dr* = −f y² d/dy)
+          const e = 1 + i;
+          const qe = q0[e] + q1[e] * yr;
+          dWo[2 * j + i] = -fy2 * (-2 * y2 * qe + f * (2 * yr * qe + q1[e] * y2));
         }
         continue;
       }
@@ -200,7 +209,10 @@ export function carryFarSolutions(
         // dW_ii/dr* = −f y² dW_ii/dy with W_ii = f g(y) − ω², g = μ² + (L + q0_ii) y² + q1_ii y³
         const g = mu2 + (L + q0[d]) * yr * yr + q1[d] * yr * yr * yr;
         const dg = 2 * (L + q0[d]) * yr + 3 * q1[d] * yr * yr;
-        dW[j * N + i] = -f * yr * yr * (-2 * g + f * dg);
+        const b = 2 * g - f * dg;
+        const y2 = yr * yr;
+        dW[j * N + i] = f * y2 * b;
+        ddW[j * N + i] = f * y2 * (2 * y2 * b - f * (2 * yr * b + y2 * (4 * dg - f * (2 * (L + q0[d]) + 6 * q1[d] * yr))));
       }
     }
   };
@@ -301,6 +313,36 @@ export function carryFarSolutions(
     }
     return complexLu(R0, I0, n, piv[0]) && complexLu(R1, I1, n, piv[1]) && complexLu(R2, I2, n, piv[2]);
   };
+  let adiabaticRe = 0;
+  let adiabaticIm = 0;
+  /**
+   * a − a'/t at node j for off-diagonal entry e (1 or 2), a = W_e/t, t = Y_00 + Y_11 from the diagonal there,
+   * t' = W_00 + W_11 − Y_00² − Y_11² (the coupling's Y_01 Y_10 left out): into adiabaticRe, adiabaticIm.
+   */
+  const adiabatic = (j: number, e: number): void => {
+    const o = j * 4;
+    const ar0 = Yr[o];
+    const ai0 = Yi[o];
+    const ar3 = Yr[o + 3];
+    const ai3 = Yi[o + 3];
+    const tr = ar0 + ar3;
+    const ti = ai0 + ai3;
+    const q = tr * tr + ti * ti;
+    const vr = tr / q;
+    const vi = -ti / q;
+    const dtr = W[o] + W[o + 3] - (ar0 * ar0 - ai0 * ai0) - (ar3 * ar3 - ai3 * ai3);
+    const dti = -2 * (ar0 * ai0 + ar3 * ai3);
+    const w = W[o + e];
+    const ar = w * vr;
+    const ai = w * vi;
+    // a' = (W_e' − a t') / t, and a'/t = (W_e' − a t') / t²
+    const nr = dWo[2 * j + e - 1] - (ar * dtr - ai * dti);
+    const ni = -(ar * dti + ai * dtr);
+    const v2r = vr * vr - vi * vi;
+    const v2i = 2 * vr * vi;
+    adiabaticRe = ar - (nr * v2r - ni * v2i);
+    adiabaticIm = ai - (nr * v2i + ni * v2r);
+  };
   const tail = (vr: Float64Array, vi: Float64Array, e: number, stride: number): number => {
     let t = 0;
     for (let row = n - 1; row <= n; row++) {
@@ -332,23 +374,32 @@ export function carryFarSolutions(
         const w0 = W[d];
         const wj = W[j * NN + d];
         if (w0 < 0 && wj < 0) {
-          // second-order WKB: Y ≈ i√(−W) − W'/(4W) (W' = dW/dr*)
-          Yi[j * NN + d] = Yi[d] + Math.sqrt(-wj) - Math.sqrt(-w0);
-          Yr[j * NN + d] = Yr[d] - dW[j * N + i] / (4 * wj) + dW[i] / (4 * w0);
+          // third-order WKB: Y ≈ i√(−W) − W'/(4W) + i (5W'²/(16W²) − W''/(4W)) / (2√(−W)) (W' = dW/dr*);
+          // the third term (next to the second-order one, Y = Y₀ + Y₁ + Y₂ in Y' = W − Y², Y₂ = −(Y₁' + Y₁²)/(2Y₀))
+          // takes the chord-Newton iterations from 3–4 to 2–3 per interval near threshold: the Jacobian frozen at
+          // the start is then closer too, so each iteration also contracts more
+          const pj = Math.sqrt(-wj);
+          const p0 = Math.sqrt(-w0);
+          const aj = dW[j * N + i] / wj;
+          const a0 = dW[i] / w0;
+          const thirdJ = ((5 / 16) * aj * aj - ddW[j * N + i] / (4 * wj)) / (2 * pj);
+          const third0 = ((5 / 16) * a0 * a0 - ddW[i] / (4 * w0)) / (2 * p0);
+          Yi[j * NN + d] = Yi[d] + pj - p0 + thirdJ - third0;
+          Yr[j * NN + d] = Yr[d] - 0.25 * (aj - a0);
         }
       }
       if (N === 2) {
-        // the off-diagonal entries follow the diagonal adiabatically: Y_01 ≈ W_01 / (Y_00 + Y_11)
+        // the off-diagonal entries follow the diagonal adiabatically: Y_01' = W_01 − t Y_01 exactly
+        // (t = Y_00 + Y_11), so Y_01 ≈ a − a'/t with a = W_01/t (the second term took the largest predictor
+        // error near the phase radius down about thirty times)
         const o = j * NN;
-        const sr0 = Yr[0] + Yr[3];
-        const si0 = Yi[0] + Yi[3];
-        const q0s = sr0 * sr0 + si0 * si0;
-        const srj = Yr[o] + Yr[o + 3];
-        const sij = Yi[o] + Yi[o + 3];
-        const qjs = srj * srj + sij * sij;
         for (let e = 1; e <= 2; e++) {
-          Yr[o + e] = Yr[e] + (W[o + e] * srj) / qjs - (W[e] * sr0) / q0s;
-          Yi[o + e] = Yi[e] - (W[o + e] * sij) / qjs + (W[e] * si0) / q0s;
+          adiabatic(0, e);
+          const r0 = adiabaticRe;
+          const i0 = adiabaticIm;
+          adiabatic(j, e);
+          Yr[o + e] = Yr[e] + adiabaticRe - r0;
+          Yi[o + e] = Yi[e] + adiabaticIm - i0;
         }
       }
     }
@@ -870,6 +921,10 @@ interface Workspace {
   W: Float64Array;
   /** dW_ii/dr* per node per channel, [j·N + i] */
   dW: Float64Array;
+  /** d²W_ii/dr*² per node per channel, [j·N + i] */
+  ddW: Float64Array;
+  /** dW_01/dr*, dW_10/dr* per node (two channels), [2j + e − 1] */
+  dWo: Float64Array;
   Fr: Float64Array;
   Fi: Float64Array;
   /** integrals of F from node 0 to nodes 1 … n, [(j − 1)·NN + e] */
@@ -922,6 +977,8 @@ function workspace(N: number): Workspace {
     dS: new Float64Array(n1),
     W: new Float64Array(n1 * NN),
     dW: new Float64Array(n1 * N),
+    ddW: new Float64Array(n1 * N),
+    dWo: new Float64Array(2 * n1),
     Fr: new Float64Array(n1 * NN),
     Fi: new Float64Array(n1 * NN),
     Ir: new Float64Array(n * NN),
