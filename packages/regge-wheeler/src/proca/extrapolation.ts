@@ -108,9 +108,9 @@ export class ProcaExtrapolation {
   private readonly dy0: Float64Array;
   private readonly dy: Float64Array;
   private readonly scale: Float64Array;
-  private readonly hNew = new Float64Array(KMAX + 1);
+  private readonly hNew: Float64Array;
   /** scaled error of each column of the current attempt */
-  private readonly errors = new Float64Array(KMAX + 1);
+  private readonly errors: Float64Array;
 
   private readonly equations: ProcaChannelEquations;
   private readonly channels: 1 | 2;
@@ -150,12 +150,19 @@ export class ProcaExtrapolation {
     this.h = h0;
     this.tol = Math.max(tol, TOL_FLOOR);
     this.k = Math.max(3, Math.min(KMAX - 1, Math.floor(-Math.log10(this.tol) * 0.6 + 1.5)));
-    this.table = new Float64Array((KMAX + 1) * n);
-    this.yMid = new Float64Array(n);
-    this.yPrev = new Float64Array(n);
-    this.dy0 = new Float64Array(n);
-    this.dy = new Float64Array(n);
-    this.scale = new Float64Array(n);
+    // one buffer, viewed in parts: a typed array's own storage costs more to make than the views (the
+    // constructor was 2–3 % of a near-threshold even-sector solve with eight of them)
+    const buffer = new Float64Array((KMAX + 6) * n + 2 * (KMAX + 1));
+    let at = 0;
+    const part = (size: number): Float64Array => buffer.subarray(at, (at += size));
+    this.table = part((KMAX + 1) * n);
+    this.yMid = part(n);
+    this.yPrev = part(n);
+    this.dy0 = part(n);
+    this.dy = part(n);
+    this.scale = part(n);
+    this.hNew = part(KMAX + 1);
+    this.errors = part(KMAX + 1);
   }
 
   /** dy/dr at r into out. */

@@ -12,7 +12,14 @@ import { channelDerivative, ProcaExtrapolation } from './extrapolation.js';
 import { COLLOCATION_FLOOR, carryFarSolutions } from './farPhase.js';
 import type { ProcaIntegrator } from './problem.js';
 import type { SectorModel } from './sectors.js';
-import { FAR_TOLERANCE, farWaveNumbers, horizonSolution, outgoingFarSolution, type SeriesState } from './series.js';
+import {
+  FAR_TOLERANCE,
+  farSeriesConverges,
+  farWaveNumbers,
+  horizonSolution,
+  outgoingFarSolution,
+  type SeriesState,
+} from './series.js';
 
 /** Knobs of one integration (the tests turn them to show Γ does not depend on them). */
 export interface ProcaIntegrationControls {
@@ -203,15 +210,11 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   if (!(matchRadius > 2 * r0)) matchRadius = 2 * r0;
   const target = laddered ? farTruncation(controls.stepTolerance) : FAR_TOLERANCE;
   const growth = laddered ? LADDER_GROWTH : MATCH_GROWTH;
-  // the channels in turn, stopping at the first whose series does not converge (the radius moves out anyway)
+  // the channels in turn, stopping at the first whose series does not converge (the radius moves out anyway);
+  // the solutions are built only where every channel converges
   const farAt = (r: number): SeriesState[] => {
-    const out: SeriesState[] = [];
-    for (let c = 0; c < N; c++) {
-      const s = outgoingFarSolution(model, c, r, target);
-      out.push(s);
-      if (!s.converged) break;
-    }
-    return out;
+    for (let c = 0; c < N; c++) if (!farSeriesConverges(model, c, r, target)) return [];
+    return Array.from({ length: N }, (_, c) => outgoingFarSolution(model, c, r, target));
   };
   let far = farAt(matchRadius);
   let moves = 0;

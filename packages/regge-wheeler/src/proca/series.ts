@@ -33,6 +33,8 @@ export const FAR_TOLERANCE = 1e-16;
 const HORIZON_W = new Float64Array(4 * 4);
 const HORIZON_ALT = new Float64Array(4);
 const HORIZON_A = new Float64Array((HORIZON_MAX_TERMS + 2) * 4);
+const FAR_W = new Float64Array(4);
+const FAR_DW = new Float64Array(4);
 
 /**
  * Ingoing horizon solution u = e^{−iωr*} h(t), t = (r − 2)/2, h(0) = e_start
@@ -201,12 +203,54 @@ export function outgoingFarSolution(model: SectorModel, start: number, r: number
   const N = model.channels;
   const { k, eta } = farWaveNumbers(model);
   const y = 1 / r;
+  const summed = sumFarSeries(model, start, r, target);
+  const converged = summed > 0;
+  const n = Math.abs(summed);
+  const w = FAR_W;
+  const Dw = FAR_DW;
+  // u = e^{iS} w;  du/dr* = e^{iS} (i g w − f y D w), g = k + f η / r.
+  const f = 1 - 2 * y;
+  const g = k + f * eta * y;
+  const phase = k * tortoiseFromHorizonDistance(1, r - 2) + eta * Math.log(r);
+  const cph = Math.cos(phase);
+  const sph = Math.sin(phase);
+  const rot = (z: Complex): Complex => [cph * z[0] - sph * z[1], cph * z[1] + sph * z[0]];
+  const u: Complex[] = [];
+  const p: Complex[] = [];
+  for (let i = 0; i < N; i++) {
+    const wr = w[2 * i];
+    const wi = w[2 * i + 1];
+    u.push(rot([wr, wi]));
+    p.push(rot([-g * wi - f * y * Dw[2 * i], g * wr - f * y * Dw[2 * i + 1]]));
+  }
+  return { u, p, terms: n, converged };
+}
+
+/**
+ * Whether the far series of `start` converges at r to `target` (the matching-radius ladder asks this at each
+ * rung, and builds the solutions only where it does).
+ */
+export function farSeriesConverges(model: SectorModel, start: number, r: number, target = FAR_TOLERANCE): boolean {
+  return sumFarSeries(model, start, r, target) > 0;
+}
+
+/**
+ * The far series w = Σ T_n and y dw/dy of `start` at r, into FAR_W and FAR_DW: the number of terms summed,
+ * negative when they did not fall below `target`.
+ */
+function sumFarSeries(model: SectorModel, start: number, r: number, target: number): number {
+  const N = model.channels;
+  const { k } = farWaveNumbers(model);
+  const y = 1 / r;
   const ref = farTerms(model, start, y);
   // T_n(r) = T_n(r_ref) q^n, q = r_ref / r ≤ 1: the terms at the reference radius, rescaled
   const q = y / ref.y;
   const T = ref.T;
-  const w = new Float64Array(2 * N);
-  const Dw = new Float64Array(2 * N);
+  // w and y dw/dy: shared scratch (the matching-radius ladder sums the series a dozen times per solve)
+  const w = FAR_W;
+  const Dw = FAR_DW;
+  w.fill(0);
+  Dw.fill(0);
   w[2 * start] = 1;
   let smallRun = 0;
   let converged = false;
@@ -241,22 +285,7 @@ export function outgoingFarSolution(model: SectorModel, start: number, r: number
     }
     previous = size;
   }
-  // u = e^{iS} w;  du/dr* = e^{iS} (i g w − f y D w), g = k + f η / r.
-  const f = 1 - 2 * y;
-  const g = k + f * eta * y;
-  const phase = k * tortoiseFromHorizonDistance(1, r - 2) + eta * Math.log(r);
-  const cph = Math.cos(phase);
-  const sph = Math.sin(phase);
-  const rot = (z: Complex): Complex => [cph * z[0] - sph * z[1], cph * z[1] + sph * z[0]];
-  const u: Complex[] = [];
-  const p: Complex[] = [];
-  for (let i = 0; i < N; i++) {
-    const wr = w[2 * i];
-    const wi = w[2 * i + 1];
-    u.push(rot([wr, wi]));
-    p.push(rot([-g * wi - f * y * Dw[2 * i], g * wr - f * y * Dw[2 * i + 1]]));
-  }
-  return { u, p, terms: n, converged };
+  return converged ? n : -n;
 }
 
 /**
@@ -272,6 +301,8 @@ interface FarTerms {
   L: number;
   q0: number[] | undefined;
   y: number;
+  /** y_ref^{j−1} at index j = 1 … 4 */
+  yPow: Float64Array;
   /** terms made so far: T_0 … T_count */
   count: number;
   /** T_n at [n·2N …] as (re, im) pairs */
@@ -291,6 +322,7 @@ const FAR_TERMS: FarTerms[] = [0, 1].map(() => ({
   L: Number.NaN,
   q0: undefined,
   y: Number.NaN,
+  yPow: new Float64Array(5),
   count: 0,
   T: new Float64Array((FAR_MAX_TERMS + 2) * 4),
   C: new Float64Array(5 * 4 * 2),
@@ -346,6 +378,7 @@ function farTerms(model: SectorModel, start: number, y: number): FarTerms {
   ref.L = model.L;
   ref.q0 = model.qCoeffs[0];
   ref.y = y;
+  ref.yPow.set([0, 1, y, y * y, y * y * y]);
   ref.count = 0;
   ref.T.fill(0, 0, 2 * N);
   ref.T[2 * start] = 1;
@@ -359,8 +392,7 @@ function farTerms(model: SectorModel, start: number, y: number): FarTerms {
 function extendFarTerms(ref: FarTerms, N: number, k: number, upTo: number): void {
   const NN = N * N;
   const { T, C, a, bRe, bIm } = ref;
-  const y = ref.y;
-  const yPow = [0, 1, y, y * y, y * y * y]; // y^{j−1} at index j
+  const yPow = ref.yPow; // y^{j−1} at index j
   for (let n = ref.count + 1; n <= upTo; n++) {
     const next = n * 2 * N;
     for (let i = 0; i < N; i++) {
