@@ -154,7 +154,11 @@ export class ProcaExtrapolation {
     // constructor was 2–3 % of a near-threshold even-sector solve with eight of them)
     const buffer = new Float64Array((KMAX + 6) * n + 2 * (KMAX + 1));
     let at = 0;
-    const part = (size: number): Float64Array => buffer.subarray(at, (at += size));
+    const part = (size: number): Float64Array => {
+      const view = buffer.subarray(at, at + size);
+      at += size;
+      return view;
+    };
     this.table = part((KMAX + 1) * n);
     this.yMid = part(n);
     this.yPrev = part(n);
