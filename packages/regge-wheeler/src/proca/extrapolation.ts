@@ -86,6 +86,12 @@ const SAFE2 = 0.94;
 /** Exponent 1/(2j − 1) of the step-size rule of column j, and its smallest factor 0.02^{1/(2j − 1)} (tabled: Math.pow was a tenth of a step's cost). */
 const EXPONENT = NJ.map((_, j) => 1 / (2 * j - 1));
 const FAC_MIN = EXPONENT.map((expo) => 0.02 ** expo);
+/** Aitken–Neville factors 1 / ((n_j / n_{l−1})² − 1) at [j·(KMAX + 1) + l], 2 ≤ l ≤ j (tabled, as FAC_MIN). */
+const FOLD = Float64Array.from({ length: (KMAX + 1) * (KMAX + 1) }, (_, x) => {
+  const j = Math.floor(x / (KMAX + 1));
+  const l = x % (KMAX + 1);
+  return l >= 2 && l <= j ? 1 / ((NJ[j] / NJ[l - 1]) ** 2 - 1) : 0;
+});
 /** Smallest meaningful local tolerance: below it the tableau differences are rounding. */
 const TOL_FLOOR = 1e-16;
 
@@ -266,11 +272,16 @@ export class ProcaExtrapolation {
   /** Aitken–Neville: fold row j into rows j − 1 … 1 (row 1 then holds the highest order). */
   private extrapolate(j: number): void {
     const { n, table } = this;
-    for (let l = j; l > 1; l--) {
-      const factor = 1 / ((NJ[j] / NJ[l - 1]) ** 2 - 1);
-      const a = l * n;
-      const b = (l - 1) * n;
-      for (let i = 0; i < n; i++) table[b + i] = table[a + i] + (table[a + i] - table[b + i]) * factor;
+    // component by component down the rows (the same operations as row by row: each row l − 1 is
+    // T_l + (T_l − T_{l−1}) · factor with T_l the row just folded), the chain kept in a register
+    const f = j * (KMAX + 1);
+    for (let i = 0; i < n; i++) {
+      let t = table[j * n + i];
+      for (let l = j; l > 1; l--) {
+        const b = (l - 1) * n + i;
+        t = t + (t - table[b]) * FOLD[f + l];
+        table[b] = t;
+      }
     }
   }
 
