@@ -38,7 +38,7 @@ export interface ProcaIntegrationControls {
   /**
    * where the far solutions, carried inward in phase form from where their
    * series converges (farPhase.ts), meet the horizon integration: absent,
-   * defaultPhaseRadius where that pays (carryPays); a radius, there whenever
+   * carryEndRadius where that pays (carryPays); a radius, there whenever
    * the series starts beyond it; false: match where the series converges.
    * Step tolerances below COLLOCATION_FLOOR, and a collocation that fails,
    * take the direct route.
@@ -146,6 +146,33 @@ export function defaultPhaseRadius(model: SectorModel): number {
 }
 
 /**
+ * Radians of far-zone phase per e-fold of r (p r, p = √(k∞² + 2μ²/r)) below
+ * which the direct route costs less than the carry, whose intervals span
+ * about one e-fold each: near threshold at small Mω the default phase radius
+ * lies where the wave is slow (p r ≈ 3.9 at 77 M for l = 1, Mω = 0.3,
+ * v = 0.05). Measured there (even sector, tol 1e-8 step tolerance 8.3e-12,
+ * interleaved, best of 40): the carry ending at 110–176 M instead of 77 M
+ * took one interval fewer and 0.88× the CPU; ending at 45–60 M, 1.2–1.5×.
+ */
+const CARRY_END_PHASE = 6;
+
+/**
+ * Where the default route's carry ends: the default phase radius, or further
+ * out where the far-zone phase per e-fold falls to CARRY_END_PHASE (r with
+ * p r = CARRY_END_PHASE: r = P²/(√(μ⁴ + k∞²P²) + μ²)) when that is more than
+ * PHASE_SLACK outside it: a shorter move saves no interval of the carry, only
+ * lengthens the direct route (1.02–1.13× the CPU at l ≤ 1, Mω = 0.3, v = 0.14).
+ */
+export function carryEndRadius(model: SectorModel): number {
+  const { k } = farWaveNumbers(model);
+  const m2 = model.mu * model.mu;
+  const P = CARRY_END_PHASE;
+  const slow = (P * P) / (Math.sqrt(m2 * m2 + k * k * P * P) + m2);
+  const phaseRadius = defaultPhaseRadius(model);
+  return slow > PHASE_SLACK * phaseRadius ? slow : phaseRadius;
+}
+
+/**
  * Relative size of the last kept far-series term when the matching radius is
  * laddered: a tenth of the step tolerance, between 1e-16 and 1e-12. The
  * series then converges at a smaller k∞r than at 1e-16 (measured at tol
@@ -232,7 +259,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   let farSamples: ProcaIntegration['farSamples'] = [];
   let phaseSteps = 0;
   let phaseEvaluations = 0;
-  const inner = controls.phaseRadius === false ? Infinity : Math.max(2 * r0, controls.phaseRadius ?? defaultPhaseRadius(model));
+  const inner = controls.phaseRadius === false ? Infinity : Math.max(2 * r0, controls.phaseRadius ?? carryEndRadius(model));
   const wanted = controls.phaseRadius === undefined ? carryPays(model, inner, farStartRadius) : inner < farStartRadius;
   if (wanted && controls.stepTolerance >= COLLOCATION_FLOOR) {
     try {
