@@ -91,22 +91,6 @@ export function carryFarSolutions(
   const similar = (q: number[]): number[] => (N === 2 ? realProduct(realProduct(Einv, q), E) : q);
   const q0 = similar(model.qCoeffs[0]);
   const q1 = similar(model.qCoeffs[1] ?? new Array<number>(NN).fill(0));
-  // two channels: W_ii''' and W_01'', W_10'' for the predictor's next terms, from W as a polynomial in y = 1/r
-  // (W_ii = (1 − 2y)(μ² + (L + q0_ii) y² + q1_ii y³) − ω², W_e = (1 − 2y)(q0_e y² + q1_e y³)) and d/dr* = −(1 − 2y) y² d/dy
-  const thirdDiagonal: number[][] = [];
-  const secondOff: number[][] = [];
-  if (N === 2) {
-    for (let i = 0; i < 2; i++) {
-      const d = 3 * i;
-      const a = L + q0[d];
-      const b = q1[d];
-      const w = [model.mu * model.mu - model.omega * model.omega, -2 * model.mu * model.mu, a, b - 2 * a, -2 * b];
-      thirdDiagonal.push(tortoiseDerivative(tortoiseDerivative(tortoiseDerivative(w))));
-    }
-    for (let e = 1; e <= 2; e++) {
-      secondOff.push(tortoiseDerivative(tortoiseDerivative([0, 0, q0[e], q1[e] - 2 * q0[e], -2 * q1[e]])));
-    }
-  }
   const { n, nodes, S, C } = collocationRule();
   const n1 = n + 1;
   // Y, Ũ (complex, per node per entry at [j·NN + e]), φ (real, per node) and the Newton matrices: reused across calls
@@ -122,8 +106,6 @@ export function carryFarSolutions(
     dW,
     ddW,
     dWo,
-    d3W,
-    d2Wo,
     Fr,
     Fi,
     Ir,
@@ -218,8 +200,6 @@ export function carryFarSolutions(
           const e = 1 + i;
           const qe = q0[e] + q1[e] * yr;
           dWo[2 * j + i] = -fy2 * (-2 * y2 * qe + f * (2 * yr * qe + q1[e] * y2));
-          d3W[2 * j + i] = horner(thirdDiagonal[i], yr);
-          d2Wo[2 * j + i] = horner(secondOff[i], yr);
         }
         continue;
       }
@@ -392,29 +372,13 @@ export function carryFarSolutions(
     const w = W[o + e];
     const ar = w * vr;
     const ai = w * vi;
-    // a' = (W_e' − a t') / t
+    // a' = (W_e' − a t') / t, and a'/t = (W_e' − a t') / t²
     const nr = dWo[2 * j + e - 1] - (ar * dtr - ai * dti);
     const ni = -(ar * dti + ai * dtr);
-    const pr = nr * vr - ni * vi;
-    const pi = nr * vi + ni * vr;
-    // the next term (a'/t)'/t = (a'' − a' t'/t)/t² (Y_01 = a − a'/t + (a'/t)'/t − …), a'' = (W_e'' − 2a't' − a t'')/t,
-    // t'' = Σ (W_ii' − 2Y_ii (W_ii − Y_ii²)): (m − a' t')/t³ with m = W_e'' − 2a't' − a t''
-    const g0r = W[o] - (ar0 * ar0 - ai0 * ai0);
-    const g0i = -2 * ar0 * ai0;
-    const g3r = W[o + 3] - (ar3 * ar3 - ai3 * ai3);
-    const g3i = -2 * ar3 * ai3;
-    const ddtr = dW[2 * j] + dW[2 * j + 1] - 2 * (ar0 * g0r - ai0 * g0i + ar3 * g3r - ai3 * g3i);
-    const ddti = -2 * (ar0 * g0i + ai0 * g0r + ar3 * g3i + ai3 * g3r);
-    const mr = d2Wo[2 * j + e - 1] - 2 * (pr * dtr - pi * dti) - (ar * ddtr - ai * ddti);
-    const mi = -2 * (pr * dti + pi * dtr) - (ar * ddti + ai * ddtr);
-    const sr = mr - (pr * dtr - pi * dti);
-    const si = mi - (pr * dti + pi * dtr);
     const v2r = vr * vr - vi * vi;
     const v2i = 2 * vr * vi;
-    const v3r = v2r * vr - v2i * vi;
-    const v3i = v2r * vi + v2i * vr;
-    adiabaticValue[k] = ar - (pr * vr - pi * vi) + (sr * v3r - si * v3i);
-    adiabaticValue[2 + k] = ai - (pr * vi + pi * vr) + (sr * v3i + si * v3r);
+    adiabaticValue[k] = ar - (nr * v2r - ni * v2i);
+    adiabaticValue[2 + k] = ai - (nr * v2i + ni * v2r);
   };
   const tail = (vr: Float64Array, vi: Float64Array, e: number, stride: number): number => {
     let t = 0;
@@ -459,12 +423,6 @@ export function carryFarSolutions(
           const third0 = ((5 / 16) * a0 * a0 - ddW[i] / (4 * w0)) / (2 * p0);
           Yi[j * NN + d] = Yi[d] + pj - p0 + thirdJ - third0;
           Yr[j * NN + d] = Yr[d] - 0.25 * (aj - a0);
-          if (N === 2) {
-            // two channels, the fourth-order term too: Y₃ = −(Y₂' + 2Y₁Y₂)/(2Y₀) = (A' − A u)/(4W) with u = W'/W,
-            // v = W''/W, A = 5u²/16 − v/4, A' = (5/8) u (v − u²) − (W'''/W − v u)/4 (real)
-            Yr[j * NN + d] += fourthOrder(aj, ddW[j * N + i] / wj, d3W[j * N + i] / wj, wj);
-            Yr[j * NN + d] -= fourthOrder(a0, ddW[i] / w0, d3W[i] / w0, w0);
-          }
         }
       }
       if (N === 2) {
@@ -1004,10 +962,6 @@ interface Workspace {
   ddW: Float64Array;
   /** dW_01/dr*, dW_10/dr* per node (two channels), [2j + e − 1] */
   dWo: Float64Array;
-  /** d³W_ii/dr*³ per node (two channels), [2j + i] */
-  d3W: Float64Array;
-  /** d²W_01/dr*², d²W_10/dr*² per node (two channels), [2j + e − 1] */
-  d2Wo: Float64Array;
   Fr: Float64Array;
   Fi: Float64Array;
   /** integrals of F from node 0 to nodes 1 … n, [(j − 1)·NN + e] */
@@ -1062,8 +1016,6 @@ function workspace(N: number): Workspace {
     dW: new Float64Array(n1 * N),
     ddW: new Float64Array(n1 * N),
     dWo: new Float64Array(2 * n1),
-    d3W: new Float64Array(2 * n1),
-    d2Wo: new Float64Array(2 * n1),
     Fr: new Float64Array(n1 * NN),
     Fi: new Float64Array(n1 * NN),
     Ir: new Float64Array(n * NN),
@@ -1135,28 +1087,4 @@ function rightDivide(P: Complex[], U: Complex[], N: number): Complex[] {
     }
   }
   return out;
-}
-
-/** d/dr* of a polynomial in y = 1/r (coefficients from y⁰): −(1 − 2y) y² d/dy. */
-function tortoiseDerivative(c: number[]): number[] {
-  const out = new Array<number>(c.length + 2).fill(0);
-  for (let k = 1; k < c.length; k++) {
-    out[k + 1] -= k * c[k];
-    out[k + 2] += 2 * k * c[k];
-  }
-  return out;
-}
-
-/** A polynomial (coefficients from y⁰) at y. */
-function horner(c: number[], y: number): number {
-  let s = 0;
-  for (let k = c.length - 1; k >= 0; k--) s = s * y + c[k];
-  return s;
-}
-
-/** The fourth-order WKB term (A' − A u)/(4W) of Y' = W − Y², from u = W'/W, v = W''/W, w = W'''/W. */
-function fourthOrder(u: number, v: number, w: number, W: number): number {
-  const A = (5 / 16) * u * u - v / 4;
-  const dA = (5 / 8) * u * (v - u * u) - (w - v * u) / 4;
-  return (dA - A * u) / (4 * W);
 }
