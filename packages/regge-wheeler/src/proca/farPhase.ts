@@ -49,7 +49,6 @@ const NEWTON_FLOOR = 1e-15;
 /** The Newton matrix is refreshed only when a chord step contracts the update by less than this. */
 const REFACTOR_CONTRACTION = 0.05;
 const ZEROS = new Float64Array(DEGREE + 1);
-const ADIABATIC = new Float64Array(4);
 /**
  * Smallest error asked of one interval: the tail coefficients carry rounding
  * of ~n·1e-16 relative times the size of c (W − Y²) ~ r|Y|, about 1e-13 at r ~ 30.
@@ -104,8 +103,6 @@ export function carryFarSolutions(
     dS,
     W,
     dW,
-    ddW,
-    dWo,
     Fr,
     Fi,
     Ir,
@@ -192,14 +189,7 @@ export function carryFarSolutions(
           const d = 3 * i;
           const g = mu2 + (L + q0[d]) * y2 + q1[d] * y2 * yr;
           const dg = 2 * (L + q0[d]) * yr + 3 * q1[d] * y2;
-          const b = 2 * g - f * dg;
-          dW[2 * j + i] = fy2 * b;
-          // d²W_ii/dr*² = f y² [2y² B − f (2y B + y² (4 g_y − f g_yy))], B = 2g − f g_y (W' = f y² B)
-          ddW[2 * j + i] = fy2 * (2 * y2 * b - f * (2 * yr * b + y2 * (4 * dg - f * (2 * (L + q0[d]) + 6 * q1[d] * yr))));
-          // dW_01/dr*, dW_10/dr* (W_e = f y² q_e(y), q_e = q0_e + q1_e y; d/dr* = −f y² d/dy)
-          const e = 1 + i;
-          const qe = q0[e] + q1[e] * yr;
-          dWo[2 * j + i] = -fy2 * (-2 * y2 * qe + f * (2 * yr * qe + q1[e] * y2));
+          dW[2 * j + i] = -fy2 * (-2 * g + f * dg);
         }
         continue;
       }
@@ -210,10 +200,7 @@ export function carryFarSolutions(
         // dW_ii/dr* = −f y² dW_ii/dy with W_ii = f g(y) − ω², g = μ² + (L + q0_ii) y² + q1_ii y³
         const g = mu2 + (L + q0[d]) * yr * yr + q1[d] * yr * yr * yr;
         const dg = 2 * (L + q0[d]) * yr + 3 * q1[d] * yr * yr;
-        const b = 2 * g - f * dg;
-        const y2 = yr * yr;
-        dW[j * N + i] = f * y2 * b;
-        ddW[j * N + i] = f * y2 * (2 * y2 * b - f * (2 * yr * b + y2 * (4 * dg - f * (2 * (L + q0[d]) + 6 * q1[d] * yr))));
+        dW[j * N + i] = -f * yr * yr * (-2 * g + f * dg);
       }
     }
   };
@@ -262,41 +249,6 @@ export function carryFarSolutions(
         Fi[o + i * N + m] = -c[j] * si;
       }
     }
-  };
-  /** F of the off-diagonal entries (two channels) at node j: c (W_01 − Y_01 t), t = Y_00 + Y_11. */
-  const riccatiOff = (j: number): void => {
-    const o = 4 * j;
-    const tr = Yr[o] + Yr[o + 3];
-    const ti = Yi[o] + Yi[o + 3];
-    const br = Yr[o + 1];
-    const bi = Yi[o + 1];
-    const dr = Yr[o + 2];
-    const di = Yi[o + 2];
-    const cj = c[j];
-    Fr[o + 1] = cj * (W[o + 1] - (br * tr - bi * ti));
-    Fi[o + 1] = -cj * (br * ti + bi * tr);
-    Fr[o + 2] = cj * (W[o + 2] - (dr * tr - di * ti));
-    Fi[o + 2] = -cj * (dr * ti + di * tr);
-  };
-  /** F of the diagonal entries (two channels) at node j: c (W_ii − Y_ii² − Y_01 Y_10); one evaluation of F there. */
-  const riccatiDiagonal = (j: number): void => {
-    rhsEvaluations++;
-    const o = 4 * j;
-    const ar = Yr[o];
-    const ai = Yi[o];
-    const er = Yr[o + 3];
-    const ei = Yi[o + 3];
-    const br = Yr[o + 1];
-    const bi = Yi[o + 1];
-    const dr = Yr[o + 2];
-    const di = Yi[o + 2];
-    const pr = br * dr - bi * di;
-    const pi = br * di + bi * dr;
-    const cj = c[j];
-    Fr[o] = cj * (W[o] - (ar * ar - ai * ai + pr));
-    Fi[o] = -cj * (2 * ar * ai + pi);
-    Fr[o + 3] = cj * (W[o + 3] - (er * er - ei * ei + pr));
-    Fi[o + 3] = -cj * (2 * er * ei + pi);
   };
   /** Factor the one-channel Newton matrix I − S[1.., 1..] diag(a) (a complex per node, the factor h/2 included); false when singular. */
   const factor = (ar: Float64Array, ai: Float64Array): boolean => {
@@ -349,37 +301,6 @@ export function carryFarSolutions(
     }
     return complexLu(R0, I0, n, piv[0]) && complexLu(R1, I1, n, piv[1]) && complexLu(R2, I2, n, piv[2]);
   };
-  // (re, im) of two adiabatic values, [re₀, re₁, im₀, im₁]: a typed array, since doubles written to variables a
-  // closure shares are boxed, one allocation per write
-  const adiabaticValue = ADIABATIC;
-  /**
-   * a − a'/t at node j for off-diagonal entry e (1 or 2), a = W_e/t, t = Y_00 + Y_11 from the diagonal there,
-   * t' = W_00 + W_11 − Y_00² − Y_11² (the coupling's Y_01 Y_10 left out): into slot k of adiabaticValue.
-   */
-  const adiabatic = (j: number, e: number, k: number): void => {
-    const o = j * 4;
-    const ar0 = Yr[o];
-    const ai0 = Yi[o];
-    const ar3 = Yr[o + 3];
-    const ai3 = Yi[o + 3];
-    const tr = ar0 + ar3;
-    const ti = ai0 + ai3;
-    const q = tr * tr + ti * ti;
-    const vr = tr / q;
-    const vi = -ti / q;
-    const dtr = W[o] + W[o + 3] - (ar0 * ar0 - ai0 * ai0) - (ar3 * ar3 - ai3 * ai3);
-    const dti = -2 * (ar0 * ai0 + ar3 * ai3);
-    const w = W[o + e];
-    const ar = w * vr;
-    const ai = w * vi;
-    // a' = (W_e' − a t') / t, and a'/t = (W_e' − a t') / t²
-    const nr = dWo[2 * j + e - 1] - (ar * dtr - ai * dti);
-    const ni = -(ar * dti + ai * dtr);
-    const v2r = vr * vr - vi * vi;
-    const v2i = 2 * vr * vi;
-    adiabaticValue[k] = ar - (nr * v2r - ni * v2i);
-    adiabaticValue[2 + k] = ai - (nr * v2i + ni * v2r);
-  };
   const tail = (vr: Float64Array, vi: Float64Array, e: number, stride: number): number => {
     let t = 0;
     for (let row = n - 1; row <= n; row++) {
@@ -411,30 +332,23 @@ export function carryFarSolutions(
         const w0 = W[d];
         const wj = W[j * NN + d];
         if (w0 < 0 && wj < 0) {
-          // third-order WKB: Y ≈ i√(−W) − W'/(4W) + i (5W'²/(16W²) − W''/(4W)) / (2√(−W)) (W' = dW/dr*);
-          // the third term (next to the second-order one, Y = Y₀ + Y₁ + Y₂ in Y' = W − Y², Y₂ = −(Y₁' + Y₁²)/(2Y₀))
-          // takes the chord-Newton iterations from 3–4 to 2–3 per interval near threshold: the Jacobian frozen at
-          // the start is then closer too, so each iteration also contracts more
-          const pj = Math.sqrt(-wj);
-          const p0 = Math.sqrt(-w0);
-          const aj = dW[j * N + i] / wj;
-          const a0 = dW[i] / w0;
-          const thirdJ = ((5 / 16) * aj * aj - ddW[j * N + i] / (4 * wj)) / (2 * pj);
-          const third0 = ((5 / 16) * a0 * a0 - ddW[i] / (4 * w0)) / (2 * p0);
-          Yi[j * NN + d] = Yi[d] + pj - p0 + thirdJ - third0;
-          Yr[j * NN + d] = Yr[d] - 0.25 * (aj - a0);
+          // second-order WKB: Y ≈ i√(−W) − W'/(4W) (W' = dW/dr*)
+          Yi[j * NN + d] = Yi[d] + Math.sqrt(-wj) - Math.sqrt(-w0);
+          Yr[j * NN + d] = Yr[d] - dW[j * N + i] / (4 * wj) + dW[i] / (4 * w0);
         }
       }
       if (N === 2) {
-        // the off-diagonal entries follow the diagonal adiabatically: Y_01' = W_01 − t Y_01 exactly
-        // (t = Y_00 + Y_11), so Y_01 ≈ a − a'/t with a = W_01/t (the second term took the largest predictor
-        // error near the phase radius down about thirty times)
+        // the off-diagonal entries follow the diagonal adiabatically: Y_01 ≈ W_01 / (Y_00 + Y_11)
         const o = j * NN;
+        const sr0 = Yr[0] + Yr[3];
+        const si0 = Yi[0] + Yi[3];
+        const q0s = sr0 * sr0 + si0 * si0;
+        const srj = Yr[o] + Yr[o + 3];
+        const sij = Yi[o] + Yi[o + 3];
+        const qjs = srj * srj + sij * sij;
         for (let e = 1; e <= 2; e++) {
-          adiabatic(0, e, 0);
-          adiabatic(j, e, 1);
-          Yr[o + e] = Yr[e] + adiabaticValue[1] - adiabaticValue[0];
-          Yi[o + e] = Yi[e] + adiabaticValue[3] - adiabaticValue[2];
+          Yr[o + e] = Yr[e] + (W[o + e] * srj) / qjs - (W[e] * sr0) / q0s;
+          Yi[o + e] = Yi[e] - (W[o + e] * sij) / qjs + (W[e] * si0) / q0s;
         }
       }
     }
@@ -443,10 +357,10 @@ export function carryFarSolutions(
     let contraction = 1;
     for (let it = 0; ; it++) {
       if (it > MAX_NEWTON) return Infinity;
-      // entry (i, j) of the Jacobian −c(Yδ + δY) without the off-diagonal Y: −c(Y_ii + Y_jj) (exact for one
-      // channel); two channels have three such matrices (factorTwo), one channel the one of −2cY
-      if (N === 1) for (let j = 1; j < n1; j++) riccati(j);
+      for (let j = 1; j < n1; j++) riccati(j);
       if (it === 0 || contraction > REFACTOR_CONTRACTION) {
+        // entry (i, j) of the Jacobian −c(Yδ + δY) without the off-diagonal Y: −c(Y_ii + Y_jj) (exact for one
+        // channel); two channels have three such matrices (factorTwo), one channel the one of −2cY
         if (N === 2) {
           if (!factorTwo(h)) return Infinity;
         } else {
@@ -460,36 +374,24 @@ export function carryFarSolutions(
       let change = 0;
       yScale = omega;
       if (N === 2) {
-        // Gauss–Seidel between the off-diagonal and the diagonal entries: Y_01' = W_01 − t Y_01 (t = Y_00 + Y_11)
-        // is linear in Y_01 once t is given, so the off-diagonal pair is solved first from the current diagonal,
-        // then the diagonal from the new off-diagonal (its Y_01 Y_10). Updating all four at once left each
-        // half's error to feed the other's next update: 3–4 iterations per interval near threshold, now 2–3
-        for (let j = 1; j < n1; j++) riccatiOff(j);
-        residualPair(S, n1, Fr, Fi, 0.5 * h, Yr, Yi, rRe, rIm, 1, 2);
-        complexLuSolve(Ar[1], Ai[1], n, piv[1], r1Re, r1Im, work, r2Re, r2Im);
-        for (let e = 1; e <= 2; e++) {
-          for (let j = 1; j < n1; j++) {
-            const dr = rRe[e * n + j - 1];
-            const di = rIm[e * n + j - 1];
-            Yr[4 * j + e] += dr;
-            Yi[4 * j + e] += di;
-            change = Math.max(change, Math.abs(dr) + Math.abs(di));
-          }
-        }
-        for (let j = 1; j < n1; j++) riccatiDiagonal(j);
-        residualPair(S, n1, Fr, Fi, 0.5 * h, Yr, Yi, rRe, rIm, 0, 3);
+        // residuals of the four entries in the pass over S ([e·n + j − 1]), their solves (the two off-diagonal
+        // entries share their matrix: one solve with two right-hand sides), the updates in one pass
+        residuals(S, n1, Fr, Fi, 0.5 * h, Yr, Yi, rRe, rIm);
         complexLuSolve(Ar[0], Ai[0], n, piv[0], r0Re, r0Im, work);
+        complexLuSolve(Ar[1], Ai[1], n, piv[1], r1Re, r1Im, work, r2Re, r2Im);
         complexLuSolve(Ar[2], Ai[2], n, piv[2], r3Re, r3Im, work);
         for (let j = 1; j < n1; j++) {
           const o = 4 * j;
-          for (let e = 0; e < 4; e += 3) {
+          for (let e = 0; e < 4; e++) {
             const dr = rRe[e * n + j - 1];
             const di = rIm[e * n + j - 1];
-            Yr[o + e] += dr;
-            Yi[o + e] += di;
+            const yr = Yr[o + e] + dr;
+            const yi = Yi[o + e] + di;
+            Yr[o + e] = yr;
+            Yi[o + e] = yi;
             change = Math.max(change, Math.abs(dr) + Math.abs(di));
+            yScale = Math.max(yScale, Math.abs(yr) + Math.abs(yi));
           }
-          for (let e = 0; e < 4; e++) yScale = Math.max(yScale, Math.abs(Yr[o + e]) + Math.abs(Yi[o + e]));
         }
       } else {
         nodeIntegrals(S, n1, Fr, Fi, NN, 0.5 * h, Ir, Ii);
@@ -906,10 +808,10 @@ function tails(C: Float64Array, n1: number, vr: Float64Array, vi: Float64Array):
 }
 
 /**
- * The Newton residuals of two entries e0, e1 of two channels: r[e·n + j − 1] = scale Σ_m S_jm f[4m + e] − (y[4j + e] − y[e])
- * (re, im) for j = 1 … n, in one pass over S (n = n1 − 1).
+ * The Newton residuals of two channels: r[e·n + j − 1] = scale Σ_m S_jm f[4m + e] − (y[4j + e] − y[e])
+ * (re, im) for j = 1 … n, e < 4, in one pass over S (n = n1 − 1).
  */
-function residualPair(
+function residuals(
   S: Float64Array,
   n1: number,
   fr: Float64Array,
@@ -919,30 +821,40 @@ function residualPair(
   yi: Float64Array,
   outR: Float64Array,
   outI: Float64Array,
-  e0: number,
-  e1: number,
 ): void {
   const n = n1 - 1;
   for (let j = 1; j < n1; j++) {
     const row = j * n1;
     let r0 = 0;
     let r1 = 0;
+    let r2 = 0;
+    let r3 = 0;
     let i0 = 0;
     let i1 = 0;
+    let i2 = 0;
+    let i3 = 0;
     for (let m = 0; m < n1; m++) {
       const s = S[row + m];
       const k = 4 * m;
-      r0 += s * fr[k + e0];
-      r1 += s * fr[k + e1];
-      i0 += s * fi[k + e0];
-      i1 += s * fi[k + e1];
+      r0 += s * fr[k];
+      r1 += s * fr[k + 1];
+      r2 += s * fr[k + 2];
+      r3 += s * fr[k + 3];
+      i0 += s * fi[k];
+      i1 += s * fi[k + 1];
+      i2 += s * fi[k + 2];
+      i3 += s * fi[k + 3];
     }
     const o = 4 * j;
     const q = j - 1;
-    outR[e0 * n + q] = scale * r0 - (yr[o + e0] - yr[e0]);
-    outR[e1 * n + q] = scale * r1 - (yr[o + e1] - yr[e1]);
-    outI[e0 * n + q] = scale * i0 - (yi[o + e0] - yi[e0]);
-    outI[e1 * n + q] = scale * i1 - (yi[o + e1] - yi[e1]);
+    outR[q] = scale * r0 - (yr[o] - yr[0]);
+    outR[n + q] = scale * r1 - (yr[o + 1] - yr[1]);
+    outR[2 * n + q] = scale * r2 - (yr[o + 2] - yr[2]);
+    outR[3 * n + q] = scale * r3 - (yr[o + 3] - yr[3]);
+    outI[q] = scale * i0 - (yi[o] - yi[0]);
+    outI[n + q] = scale * i1 - (yi[o + 1] - yi[1]);
+    outI[2 * n + q] = scale * i2 - (yi[o + 2] - yi[2]);
+    outI[3 * n + q] = scale * i3 - (yi[o + 3] - yi[3]);
   }
 }
 
@@ -958,10 +870,6 @@ interface Workspace {
   W: Float64Array;
   /** dW_ii/dr* per node per channel, [j·N + i] */
   dW: Float64Array;
-  /** d²W_ii/dr*² per node per channel, [j·N + i] */
-  ddW: Float64Array;
-  /** dW_01/dr*, dW_10/dr* per node (two channels), [2j + e − 1] */
-  dWo: Float64Array;
   Fr: Float64Array;
   Fi: Float64Array;
   /** integrals of F from node 0 to nodes 1 … n, [(j − 1)·NN + e] */
@@ -1014,8 +922,6 @@ function workspace(N: number): Workspace {
     dS: new Float64Array(n1),
     W: new Float64Array(n1 * NN),
     dW: new Float64Array(n1 * N),
-    ddW: new Float64Array(n1 * N),
-    dWo: new Float64Array(2 * n1),
     Fr: new Float64Array(n1 * NN),
     Fi: new Float64Array(n1 * NN),
     Ir: new Float64Array(n * NN),
