@@ -9,12 +9,14 @@
 // Per call: one call for the polarisation (a fresh solve). Per Γ: the same,
 // except that for even-1 and even-2 it is the CPU of the pair even-1 then
 // even-2 of the same mode over 2 (where one integration serves both).
-// CPU time, interleaved batches, best of five. Run after `npm run build`:
+// CPU time, interleaved batches, best of five (PROCA_BATCHES, PROCA_BATCH_MS below). Run after `npm run build`:
 //   node bench/proca-speed.bench.mjs
 // With PROCA_BASELINE=<another built checkout> the "before" column is that
 // checkout's default route instead of Cash–Karp (same process, interleaved),
 // and PROCA_RESULT names the JSON file under bench/results.
-// Results: bench/results/proca-speed-2026-12-03b.json, proca-2026-12-04-speed.json, proca-2026-12-04c-speed.txt.
+// Results: bench/results/proca-speed-2026-12-03b.json, proca-2026-12-04-speed.json, proca-2026-12-04c-speed.txt,
+// proca-2026-12-05f-speed-run1.txt, -run2.txt (defaults), -run3.txt (PROCA_BATCHES=15 PROCA_BATCH_MS=20),
+// -run4.txt (PROCA_WARMUP=3).
 import { readFileSync, writeFileSync } from 'node:fs';
 import { greybody } from '@penumbra/flux';
 import { benchDir, cpuMsPerCall, fmt, median, table } from './lib.mjs';
@@ -35,14 +37,34 @@ const beforeGreybody = (problem, opts) =>
 const massless = (x) => ({ hole: { a: 0 }, mode: { field: { spin: 1 }, l: Math.max(1, x.l), m: 0 }, omega: x.omega });
 const massive = (x, mass) => ({ hole: { a: 0 }, mode: { field: { spin: 1, mass }, l: x.l, m: 0 }, omega: x.omega });
 
+// PROCA_BATCHES / PROCA_BATCH_MS: more and shorter batches (the best of them is less often one a neighbour's
+// load inflated: two builds doing the same work scatter 0.67–1.35 per row at the default 5 × 60 ms)
+const BATCHES = Number(process.env.PROCA_BATCHES ?? 5);
+const BATCH_MS = Number(process.env.PROCA_BATCH_MS ?? 60);
+
 function cost(fns) {
   for (const f of fns) f();
   const t = fns.map(() => []);
-  for (let i = 0; i < 5; i++) {
-    for (const [j, f] of fns.entries()) t[j].push(cpuMsPerCall(f, 60, 400));
+  for (let i = 0; i < BATCHES; i++) {
+    for (const [j, f] of fns.entries()) t[j].push(cpuMsPerCall(f, BATCH_MS, 400));
   }
   // best of the batches: on a shared machine load only ever adds CPU time (cache, frequency)
   return t.map((x) => Math.min(...x));
+}
+
+// PROCA_WARMUP=n: n untimed passes over every row's calls first (both builds and the massless mode), so
+// that the first rows (the monopole) are not timed while the compiler is still at work on the code the
+// later ones share
+for (let pass = 0; pass < Number(process.env.PROCA_WARMUP ?? 0); pass++) {
+  for (const x of MODES) {
+    for (const f of FRACTIONS) {
+      for (const polarization of x.pols) {
+        greybody(massive(x, f * x.omega), { tol: TOL, polarization });
+        beforeGreybody(massive(x, f * x.omega), { tol: TOL, polarization });
+      }
+    }
+    greybody(massless(x), { tol: TOL });
+  }
 }
 
 const records = [];
@@ -114,7 +136,9 @@ for (const x of MODES) {
     }
   }
 }
-console.log(`Proca (a = 0) / massless s = 1 greybody, CPU ms per call at tol ${TOL} (interleaved, best of 5 batches)`);
+console.log(
+  `Proca (a = 0) / massless s = 1 greybody, CPU ms per call at tol ${TOL} (interleaved, best of ${BATCHES} batches of ${BATCH_MS} ms)`,
+);
 console.log(`before: ${baselineDir ? `default route of ${baselineDir}` : 'Cash–Karp route'}; after: this checkout`);
 console.log(
   'ratio: one call for this polarisation (a fresh solve) / one massless call; per Γ: the same, but for even-1 and even-2 the CPU of the pair even-1 then even-2 over 2 (one integration gives both where it is shared)',

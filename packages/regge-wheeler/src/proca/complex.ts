@@ -27,7 +27,7 @@ export function conj(a: Complex): Complex {
   return [a[0], -a[1]];
 }
 
-/** n×n product of row-major complex matrices. */
+/** n×n product of row-major complex matrices (the products written out: no pair per term). */
 export function matMul(a: Complex[], b: Complex[], n: number): Complex[] {
   const out: Complex[] = [];
   for (let i = 0; i < n; i++) {
@@ -35,9 +35,10 @@ export function matMul(a: Complex[], b: Complex[], n: number): Complex[] {
       let re = 0;
       let im = 0;
       for (let k = 0; k < n; k++) {
-        const p = mul(a[i * n + k], b[k * n + j]);
-        re += p[0];
-        im += p[1];
+        const x = a[i * n + k];
+        const y = b[k * n + j];
+        re += x[0] * y[0] - x[1] * y[1];
+        im += x[0] * y[1] + x[1] * y[0];
       }
       out.push([re, im]);
     }
@@ -57,41 +58,102 @@ export function adjoint(a: Complex[], n: number): Complex[] {
  * by Gaussian elimination with partial pivoting. Throws on a singular A.
  */
 export function solve(a: Complex[], b: Complex[], n: number, m: number): Complex[] {
-  const A = a.map((z) => [z[0], z[1]] as Complex);
-  const B = b.map((z) => [z[0], z[1]] as Complex);
+  // the same operations as on [re, im] pairs, on split real and imaginary parts in shared scratch (no pair
+  // allocated per operation; the matching and absorption solves are 4×4 at most)
+  const fits = n * n <= SCRATCH && n * m <= SCRATCH;
+  const Ar = fits ? SOLVE_AR : new Float64Array(n * n);
+  const Ai = fits ? SOLVE_AI : new Float64Array(n * n);
+  const Br = fits ? SOLVE_BR : new Float64Array(n * m);
+  const Bi = fits ? SOLVE_BI : new Float64Array(n * m);
+  const Xr = fits ? SOLVE_XR : new Float64Array(n * m);
+  const Xi = fits ? SOLVE_XI : new Float64Array(n * m);
+  for (let i = 0; i < n * n; i++) {
+    Ar[i] = a[i][0];
+    Ai[i] = a[i][1];
+  }
+  for (let i = 0; i < n * m; i++) {
+    Br[i] = b[i][0];
+    Bi[i] = b[i][1];
+  }
   for (let col = 0; col < n; col++) {
     let pivot = col;
-    for (let i = col + 1; i < n; i++) if (abs2(A[i * n + col]) > abs2(A[pivot * n + col])) pivot = i;
-    if (abs2(A[pivot * n + col]) === 0) throw new Error('singular matching matrix');
+    for (let i = col + 1; i < n; i++) if (size2(Ar, Ai, i * n + col) > size2(Ar, Ai, pivot * n + col)) pivot = i;
+    if (size2(Ar, Ai, pivot * n + col) === 0) throw new Error('singular matching matrix');
     if (pivot !== col) {
-      for (let j = 0; j < n; j++) [A[col * n + j], A[pivot * n + j]] = [A[pivot * n + j], A[col * n + j]];
-      for (let j = 0; j < m; j++) [B[col * m + j], B[pivot * m + j]] = [B[pivot * m + j], B[col * m + j]];
-    }
-    const p = A[col * n + col];
-    for (let i = col + 1; i < n; i++) {
-      const factor = div(A[i * n + col], p);
-      for (let j = col; j < n; j++) {
-        const q = mul(factor, A[col * n + j]);
-        A[i * n + j] = [A[i * n + j][0] - q[0], A[i * n + j][1] - q[1]];
+      for (let j = 0; j < n; j++) {
+        swap(Ar, col * n + j, pivot * n + j);
+        swap(Ai, col * n + j, pivot * n + j);
       }
       for (let j = 0; j < m; j++) {
-        const q = mul(factor, B[col * m + j]);
-        B[i * m + j] = [B[i * m + j][0] - q[0], B[i * m + j][1] - q[1]];
+        swap(Br, col * m + j, pivot * m + j);
+        swap(Bi, col * m + j, pivot * m + j);
       }
+    }
+    const pr = Ar[col * n + col];
+    const pi = Ai[col * n + col];
+    const d = pr * pr + pi * pi;
+    for (let i = col + 1; i < n; i++) {
+      // factor = A_i,col / p
+      const xr = Ar[i * n + col];
+      const xi = Ai[i * n + col];
+      const fr = (xr * pr + xi * pi) / d;
+      const fi = (xi * pr - xr * pi) / d;
+      for (let j = col; j < n; j++) {
+        const yr = Ar[col * n + j];
+        const yi = Ai[col * n + j];
+        Ar[i * n + j] -= fr * yr - fi * yi;
+        Ai[i * n + j] -= fr * yi + fi * yr;
+      }
+      for (let j = 0; j < m; j++) {
+        const yr = Br[col * m + j];
+        const yi = Bi[col * m + j];
+        Br[i * m + j] -= fr * yr - fi * yi;
+        Bi[i * m + j] -= fr * yi + fi * yr;
+      }
+    }
+  }
+  for (let i = n - 1; i >= 0; i--) {
+    for (let j = 0; j < m; j++) {
+      let accR = Br[i * m + j];
+      let accI = Bi[i * m + j];
+      for (let k = i + 1; k < n; k++) {
+        const xr = Ar[i * n + k];
+        const xi = Ai[i * n + k];
+        const yr = Xr[k * m + j];
+        const yi = Xi[k * m + j];
+        accR -= xr * yr - xi * yi;
+        accI -= xr * yi + xi * yr;
+      }
+      const pr = Ar[i * n + i];
+      const pi = Ai[i * n + i];
+      const d = pr * pr + pi * pi;
+      Xr[i * m + j] = (accR * pr + accI * pi) / d;
+      Xi[i * m + j] = (accI * pr - accR * pi) / d;
     }
   }
   const X: Complex[] = new Array(n * m);
-  for (let i = n - 1; i >= 0; i--) {
-    for (let j = 0; j < m; j++) {
-      let acc: Complex = [B[i * m + j][0], B[i * m + j][1]];
-      for (let k = i + 1; k < n; k++) {
-        const q = mul(A[i * n + k], X[k * m + j]);
-        acc = [acc[0] - q[0], acc[1] - q[1]];
-      }
-      X[i * m + j] = div(acc, A[i * n + i]);
-    }
-  }
+  for (let i = 0; i < n * m; i++) X[i] = [Xr[i], Xi[i]];
   return X;
+}
+
+/** Scratch of solve: 16 entries each (4×4). */
+const SCRATCH = 16;
+const SOLVE_AR = new Float64Array(SCRATCH);
+const SOLVE_AI = new Float64Array(SCRATCH);
+const SOLVE_BR = new Float64Array(SCRATCH);
+const SOLVE_BI = new Float64Array(SCRATCH);
+const SOLVE_XR = new Float64Array(SCRATCH);
+const SOLVE_XI = new Float64Array(SCRATCH);
+
+/** |v_k|² of split parts. */
+function size2(re: Float64Array, im: Float64Array, k: number): number {
+  return re[k] * re[k] + im[k] * im[k];
+}
+
+function swap(v: Float64Array, x: number, y: number): void {
+  const t = v[x];
+  v[x] = v[y];
+  v[y] = t;
 }
 
 /** Upper-triangular S with S†S = H for a Hermitian positive-definite 1×1 or 2×2 H. */

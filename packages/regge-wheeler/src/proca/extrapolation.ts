@@ -86,6 +86,12 @@ const SAFE2 = 0.94;
 /** Exponent 1/(2j − 1) of the step-size rule of column j, and its smallest factor 0.02^{1/(2j − 1)} (tabled: Math.pow was a tenth of a step's cost). */
 const EXPONENT = NJ.map((_, j) => 1 / (2 * j - 1));
 const FAC_MIN = EXPONENT.map((expo) => 0.02 ** expo);
+/** Aitken–Neville factors 1 / ((n_j / n_{l−1})² − 1) at [j·(KMAX + 1) + l], 2 ≤ l ≤ j (tabled, as FAC_MIN). */
+const FOLD = Float64Array.from({ length: (KMAX + 1) * (KMAX + 1) }, (_, x) => {
+  const j = Math.floor(x / (KMAX + 1));
+  const l = x % (KMAX + 1);
+  return l >= 2 && l <= j ? 1 / ((NJ[j] / NJ[l - 1]) ** 2 - 1) : 0;
+});
 /** Smallest meaningful local tolerance: below it the tableau differences are rounding. */
 const TOL_FLOOR = 1e-16;
 
@@ -108,9 +114,9 @@ export class ProcaExtrapolation {
   private readonly dy0: Float64Array;
   private readonly dy: Float64Array;
   private readonly scale: Float64Array;
-  private readonly hNew = new Float64Array(KMAX + 1);
+  private readonly hNew: Float64Array;
   /** scaled error of each column of the current attempt */
-  private readonly errors = new Float64Array(KMAX + 1);
+  private readonly errors: Float64Array;
 
   private readonly equations: ProcaChannelEquations;
   private readonly channels: 1 | 2;
@@ -150,12 +156,23 @@ export class ProcaExtrapolation {
     this.h = h0;
     this.tol = Math.max(tol, TOL_FLOOR);
     this.k = Math.max(3, Math.min(KMAX - 1, Math.floor(-Math.log10(this.tol) * 0.6 + 1.5)));
-    this.table = new Float64Array((KMAX + 1) * n);
-    this.yMid = new Float64Array(n);
-    this.yPrev = new Float64Array(n);
-    this.dy0 = new Float64Array(n);
-    this.dy = new Float64Array(n);
-    this.scale = new Float64Array(n);
+    // one buffer, viewed in parts: a typed array's own storage costs more to make than the views (the
+    // constructor was 2–3 % of a near-threshold even-sector solve with eight of them)
+    const buffer = new Float64Array((KMAX + 6) * n + 2 * (KMAX + 1));
+    let at = 0;
+    const part = (size: number): Float64Array => {
+      const view = buffer.subarray(at, at + size);
+      at += size;
+      return view;
+    };
+    this.table = part((KMAX + 1) * n);
+    this.yMid = part(n);
+    this.yPrev = part(n);
+    this.dy0 = part(n);
+    this.dy = part(n);
+    this.scale = part(n);
+    this.hNew = part(KMAX + 1);
+    this.errors = part(KMAX + 1);
   }
 
   /** dy/dr at r into out. */
@@ -255,11 +272,16 @@ export class ProcaExtrapolation {
   /** Aitken–Neville: fold row j into rows j − 1 … 1 (row 1 then holds the highest order). */
   private extrapolate(j: number): void {
     const { n, table } = this;
-    for (let l = j; l > 1; l--) {
-      const factor = 1 / ((NJ[j] / NJ[l - 1]) ** 2 - 1);
-      const a = l * n;
-      const b = (l - 1) * n;
-      for (let i = 0; i < n; i++) table[b + i] = table[a + i] + (table[a + i] - table[b + i]) * factor;
+    // component by component down the rows (the same operations as row by row: each row l − 1 is
+    // T_l + (T_l − T_{l−1}) · factor with T_l the row just folded), the chain kept in a register
+    const f = j * (KMAX + 1);
+    for (let i = 0; i < n; i++) {
+      let t = table[j * n + i];
+      for (let l = j; l > 1; l--) {
+        const b = (l - 1) * n + i;
+        t = t + (t - table[b]) * FOLD[f + l];
+        table[b] = t;
+      }
     }
   }
 

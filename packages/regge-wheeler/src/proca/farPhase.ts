@@ -7,8 +7,9 @@
  * moderate matching radius through quantities that do not oscillate: the
  * log-derivative matrix Y = P U⁻¹ (Riccati form, dY/dr* = W − Y²,
  * W = V − ω²), the phase θ = S + φ with dθ/dr* = Im tr Y / N (the local wave
- * number; S = k∞ r* + η ln r is the series' own phase, which the local one
- * approaches only at r ≫ η/k∞) and the amplitude Ũ = e^{−iθ} U
+ * number; S = ∫ √(k∞² + 2μ²/r) dr, which the local one follows near threshold
+ * better than the series' own phase, approached only at r ≫ η/k∞: phaseAt)
+ * and the amplitude Ũ = e^{−iθ} U
  * (dŨ/dr* = (Y − i dθ/dr*) Ũ). U holds one outgoing solution per column; the
  * incoming ones are their complex conjugates. In x = −ln r all three vary
  * on a scale of order one, but the Riccati form carries a fast mode (the
@@ -18,7 +19,6 @@
  * error of each interval.
  */
 import { ConvergenceError } from '@penumbra/core';
-import { tortoiseFromHorizonDistance } from '../series.js';
 import type { Complex } from './complex.js';
 import { type ChebyshevRule, chebyshevRule, complexLu, complexLuSolve } from './chebyshev.js';
 import type { SectorModel } from './sectors.js';
@@ -58,8 +58,18 @@ export const COLLOCATION_FLOOR = 1e-13;
 /** First interval in x = −ln r. */
 const FIRST_INTERVAL = 1.0;
 
-function phaseAt(k: number, eta: number, r: number): number {
-  return k * tortoiseFromHorizonDistance(1, r - 2) + eta * Math.log(r);
+/**
+ * The reference phase the carry measures θ from: ∫ p dr with p = √(k∞² + 2μ²/r), the far-zone wave number with
+ * its Newtonian part (antiderivative r p + (2μ²/k∞) asinh(k∞ √(r/2μ²)); the series' phase S = k∞ r* + η ln r
+ * without μ). Near threshold the local wave number follows p, not dS/dr*, far inside r ~ η/k∞: measured from S,
+ * φ = θ − S swung by tens of radians across an interval and its Chebyshev tail, held to the interval tolerance
+ * in radians, set the interval size (5–100× the tails of Y and Ũ at r ≳ 300, even l = 2, 3, v = 0.05);
+ * from ∫ p dr it moves by about one.
+ */
+function phaseAt(k: number, mu: number, r: number): number {
+  const a = 2 * mu * mu;
+  if (a === 0) return k * r;
+  return r * Math.sqrt(k * k + a / r) + (a / k) * Math.asinh(k * Math.sqrt(r / a));
 }
 
 /**
@@ -78,7 +88,7 @@ export function carryFarSolutions(
 ): PhaseCarried {
   const N = model.channels;
   const NN = N * N;
-  const { k, eta } = farWaveNumbers(model);
+  const { k } = farWaveNumbers(model);
   const w2 = model.omega * model.omega;
   const mu2 = model.mu * model.mu;
   const L = model.L;
@@ -151,7 +161,7 @@ export function carryFarSolutions(
       }
     }
     const Y = rightDivide(P, U, N);
-    const s0 = phaseAt(k, eta, rStart);
+    const s0 = phaseAt(k, model.mu, rStart);
     const [cs, sn] = [Math.cos(s0), -Math.sin(s0)];
     for (let e = 0; e < NN; e++) {
       Yr[e] = Y[e][0];
@@ -175,7 +185,8 @@ export function carryFarSolutions(
       const f = 1 - 2 / r;
       const yr = 1 / r;
       c[j] = -r / f;
-      dS[j] = k + (f * eta) / r;
+      // d/dr* of the reference phase: f p
+      dS[j] = f * Math.sqrt(k * k + (2 * mu2) / r);
       const diag = f * (mu2 + L * yr * yr) - w2;
       if (N === 2) {
         const y2 = yr * yr;
@@ -581,7 +592,7 @@ export function carryFarSolutions(
   };
 
   const read = (r: number, terms: number): SeriesState[] => {
-    const s = phaseAt(k, eta, r) + phi[0];
+    const s = phaseAt(k, model.mu, r) + phi[0];
     const [cs, sn] = [Math.cos(s), Math.sin(s)];
     const u: Complex[] = [];
     for (let e = 0; e < NN; e++) u.push([cs * Ur[e] - sn * Ui[e], cs * Ui[e] + sn * Ur[e]]);

@@ -12,7 +12,14 @@ import { channelDerivative, ProcaExtrapolation } from './extrapolation.js';
 import { COLLOCATION_FLOOR, carryFarSolutions } from './farPhase.js';
 import type { ProcaIntegrator } from './problem.js';
 import type { SectorModel } from './sectors.js';
-import { FAR_TOLERANCE, farWaveNumbers, horizonSolution, outgoingFarSolution, type SeriesState } from './series.js';
+import {
+  FAR_TOLERANCE,
+  farSeriesConverges,
+  farWaveNumbers,
+  horizonSolution,
+  outgoingFarSolution,
+  type SeriesState,
+} from './series.js';
 
 /** Knobs of one integration (the tests turn them to show Γ does not depend on them). */
 export interface ProcaIntegrationControls {
@@ -31,7 +38,7 @@ export interface ProcaIntegrationControls {
   /**
    * where the far solutions, carried inward in phase form from where their
    * series converges (farPhase.ts), meet the horizon integration: absent,
-   * defaultPhaseRadius where that pays (carryPays); a radius, there whenever
+   * carryEndRadius where that pays (carryPays); a radius, there whenever
    * the series starts beyond it; false: match where the series converges.
    * Step tolerances below COLLOCATION_FLOOR, and a collocation that fails,
    * take the direct route.
@@ -95,9 +102,14 @@ const MAX_MATCH_MOVES = 60;
  * two channels 1.10 at 6.9 (even l = 1, Mω = 0.3, v = 0.14), 1.12 at 9.5
  * (even l = 1, v = 0.05), 0.92 at 10.0 (even l = 2, Mω = 0.8, v = 0.14), 0.68
  * at 16.8 (even l = 2, v = 0.05): the even sector's carry solves a 2×2 matrix
- * Riccati equation.
+ * Riccati equation. With that carry 1.4× cheaper (reciprocal pivots, paired
+ * solves, Gauss–Seidel sweeps) and the far-series ladder rescaling its terms
+ * (series.ts), the two-channel break-even moved down (same modes, warmed up,
+ * interleaved, best of 9): carried/direct 0.73–0.89 at 9.5 (even l = 1,
+ * v = 0.05; 758 against 2677 evaluations), 1.04–1.11 at 6.9 (l = 1, v = 0.14),
+ * 0.75–0.81 at 10.0 (l = 2, v = 0.14).
  */
-const RADIANS_PER_INTERVAL = { 1: 6, 2: 10 } as const;
+const RADIANS_PER_INTERVAL = { 1: 6, 2: 8 } as const;
 
 /** Whether carrying the far solutions from rStart in to rEnd costs less than integrating across. */
 function carryPays(model: SectorModel, rEnd: number, rStart: number): boolean {
@@ -131,6 +143,33 @@ export function farZonePhase(model: SectorModel, r1: number, r2: number): number
  */
 export function defaultPhaseRadius(model: SectorModel): number {
   return Math.max(10, (20 + 0.5 * (model.L + 2 * model.l + 2)) / model.omega);
+}
+
+/**
+ * Radians of far-zone phase per e-fold of r (p r, p = √(k∞² + 2μ²/r)) below
+ * which the direct route costs less than the carry, whose intervals span
+ * about one e-fold each: near threshold at small Mω the default phase radius
+ * lies where the wave is slow (p r ≈ 3.9 at 77 M for l = 1, Mω = 0.3,
+ * v = 0.05). Measured there (even sector, tol 1e-8 step tolerance 8.3e-12,
+ * interleaved, best of 40): the carry ending at 110–176 M instead of 77 M
+ * took one interval fewer and 0.88× the CPU; ending at 45–60 M, 1.2–1.5×.
+ */
+const CARRY_END_PHASE = 6;
+
+/**
+ * Where the default route's carry ends: the default phase radius, or further
+ * out where the far-zone phase per e-fold falls to CARRY_END_PHASE (r with
+ * p r = CARRY_END_PHASE: r = P²/(√(μ⁴ + k∞²P²) + μ²)) when that is more than
+ * PHASE_SLACK outside it: a shorter move saves no interval of the carry, only
+ * lengthens the direct route (1.02–1.13× the CPU at l ≤ 1, Mω = 0.3, v = 0.14).
+ */
+export function carryEndRadius(model: SectorModel): number {
+  const { k } = farWaveNumbers(model);
+  const m2 = model.mu * model.mu;
+  const P = CARRY_END_PHASE;
+  const slow = (P * P) / (Math.sqrt(m2 * m2 + k * k * P * P) + m2);
+  const phaseRadius = defaultPhaseRadius(model);
+  return slow > PHASE_SLACK * phaseRadius ? slow : phaseRadius;
 }
 
 /**
@@ -198,15 +237,11 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   if (!(matchRadius > 2 * r0)) matchRadius = 2 * r0;
   const target = laddered ? farTruncation(controls.stepTolerance) : FAR_TOLERANCE;
   const growth = laddered ? LADDER_GROWTH : MATCH_GROWTH;
-  // the channels in turn, stopping at the first whose series does not converge (the radius moves out anyway)
+  // the channels in turn, stopping at the first whose series does not converge (the radius moves out anyway);
+  // the solutions are built only where every channel converges
   const farAt = (r: number): SeriesState[] => {
-    const out: SeriesState[] = [];
-    for (let c = 0; c < N; c++) {
-      const s = outgoingFarSolution(model, c, r, target);
-      out.push(s);
-      if (!s.converged) break;
-    }
-    return out;
+    for (let c = 0; c < N; c++) if (!farSeriesConverges(model, c, r, target)) return [];
+    return Array.from({ length: N }, (_, c) => outgoingFarSolution(model, c, r, target));
   };
   let far = farAt(matchRadius);
   let moves = 0;
@@ -224,7 +259,7 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   let farSamples: ProcaIntegration['farSamples'] = [];
   let phaseSteps = 0;
   let phaseEvaluations = 0;
-  const inner = controls.phaseRadius === false ? Infinity : Math.max(2 * r0, controls.phaseRadius ?? defaultPhaseRadius(model));
+  const inner = controls.phaseRadius === false ? Infinity : Math.max(2 * r0, controls.phaseRadius ?? carryEndRadius(model));
   const wanted = controls.phaseRadius === undefined ? carryPays(model, inner, farStartRadius) : inner < farStartRadius;
   if (wanted && controls.stepTolerance >= COLLOCATION_FLOOR) {
     try {
@@ -385,8 +420,15 @@ export function integrateProca(model: SectorModel, controls: ProcaIntegrationCon
   const Aout: Complex[] = [];
   for (let c = 0; c < N; c++) for (let j = 0; j < N; j++) Ain.push(amp[c * N + j]);
   for (let c = 0; c < N; c++) for (let j = 0; j < N; j++) Aout.push(amp[(N + c) * N + j]);
+  // the absorption's fields by name, not spread: the spread result plus fifteen more keys cost about 5 % of a
+  // near-threshold solve (CPU profile of bench/proca-speed's even l = 3, v = 0.05)
+  const a = absorption(model, Ain, Aout, logRescale, controls.basisAngle ?? 0);
   return {
-    ...absorption(model, Ain, Aout, logRescale, controls.basisAngle ?? 0),
+    gammas: a.gammas,
+    reflections: a.reflections,
+    residual: a.residual,
+    channelDiagonal: a.channelDiagonal,
+    eigenvectors: a.eigenvectors,
     startRadius: r0,
     matchRadius,
     steps,

@@ -33,7 +33,8 @@ export const FAR_TOLERANCE = 1e-16;
 const HORIZON_W = new Float64Array(4 * 4);
 const HORIZON_ALT = new Float64Array(4);
 const HORIZON_A = new Float64Array((HORIZON_MAX_TERMS + 2) * 4);
-const FAR_T = new Float64Array((FAR_MAX_TERMS + 2) * 4);
+const FAR_W = new Float64Array(4);
+const FAR_DW = new Float64Array(4);
 
 /**
  * Ingoing horizon solution u = e^{−iωr*} h(t), t = (r − 2)/2, h(0) = e_start
@@ -45,6 +46,30 @@ const FAR_T = new Float64Array((FAR_MAX_TERMS + 2) * 4);
  * radius can move out where the series needs more terms).
  */
 export function horizonSolution(model: SectorModel, start: number, x: number): SeriesState {
+  // the single solve's start-offset choice (greybody.ts) sums the series at the offset the integration then
+  // starts from: the last sum per start channel is kept (its arrays are not modified by any caller)
+  const last = LAST_HORIZON[start];
+  if (
+    last &&
+    last.model === model &&
+    last.x === x &&
+    last.omega === model.omega &&
+    last.mu === model.mu &&
+    last.L === model.L &&
+    last.q0 === model.qCoeffs[0]
+  )
+    return last.state;
+  const state = sumHorizonSeries(model, start, x);
+  LAST_HORIZON[start] = { model, x, omega: model.omega, mu: model.mu, L: model.L, q0: model.qCoeffs[0], state };
+  return state;
+}
+
+/** The last horizon-series sum per start channel, with the model values it was made for. */
+const LAST_HORIZON: Array<
+  { model: SectorModel; x: number; omega: number; mu: number; L: number; q0: number[]; state: SeriesState } | undefined
+> = [undefined, undefined];
+
+function sumHorizonSeries(model: SectorModel, start: number, x: number): SeriesState {
   const N = model.channels;
   const NN = N * N;
   const Omega = 2 * model.omega;
@@ -177,91 +202,70 @@ export function farWaveNumbers(model: SectorModel): { k: number; eta: number } {
 export function outgoingFarSolution(model: SectorModel, start: number, r: number, target = FAR_TOLERANCE): SeriesState {
   const N = model.channels;
   const { k, eta } = farWaveNumbers(model);
-  const L = model.L;
-  const d2 = eta * eta;
-  const Q0 = model.qCoeffs[0];
-  const Q1 = model.qCoeffs[1] ?? new Array<number>(N * N).fill(0);
-  // a_j, b_j (complex scalars) and C_j (complex matrices), j = 2, 3, 4.
-  const aj = [0, 0, 1, -4, 4];
-  const bj: Complex[] = [
-    [0, 0],
-    [0, -2 * k],
-    [1, -2 * (eta - 2 * k)],
-    [-6, 8 * eta],
-    [8, -8 * eta],
-  ];
-  const scalarC: Complex[] = [
-    [0, 0],
-    [0, 0],
-    [4 * model.mu * model.mu - d2 - L, -eta],
-    [4 * d2 + 2 * L, 6 * eta],
-    [-4 * d2, -8 * eta],
-  ];
-  const Cj: Complex[][] = [[], []];
-  for (let j = 2; j <= 4; j++) {
-    const m: Complex[] = [];
-    for (let i = 0; i < N * N; i++) {
-      const diag = i % (N + 1) === 0 ? scalarC[j] : ([0, 0] as Complex);
-      const qv = j === 2 ? -Q0[i] : j === 3 ? -(Q1[i] - 2 * Q0[i]) : 2 * Q1[i];
-      m.push([diag[0] + qv, diag[1]]);
-    }
-    Cj.push(m);
-  }
   const y = 1 / r;
-  const yPow = [0, 1, y ** 1, y ** 2, y ** 3]; // y^{j−1} at index j
-  // C_j flat as (re, im) pairs at [(j·NN + i)·2]
-  const NN = N * N;
-  const C = new Float64Array(5 * NN * 2);
-  for (let j = 2; j <= 4; j++) {
-    for (let i = 0; i < NN; i++) {
-      C[(j * NN + i) * 2] = Cj[j][i][0];
-      C[(j * NN + i) * 2 + 1] = Cj[j][i][1];
-    }
+  const summed = sumFarSeries(model, start, r, target);
+  const converged = summed > 0;
+  const n = Math.abs(summed);
+  const w = FAR_W;
+  const Dw = FAR_DW;
+  // u = e^{iS} w;  du/dr* = e^{iS} (i g w − f y D w), g = k + f η / r.
+  const f = 1 - 2 * y;
+  const g = k + f * eta * y;
+  const phase = k * tortoiseFromHorizonDistance(1, r - 2) + eta * Math.log(r);
+  const cph = Math.cos(phase);
+  const sph = Math.sin(phase);
+  const rot = (z: Complex): Complex => [cph * z[0] - sph * z[1], cph * z[1] + sph * z[0]];
+  const u: Complex[] = [];
+  const p: Complex[] = [];
+  for (let i = 0; i < N; i++) {
+    const wr = w[2 * i];
+    const wi = w[2 * i + 1];
+    u.push(rot([wr, wi]));
+    p.push(rot([-g * wi - f * y * Dw[2 * i], g * wr - f * y * Dw[2 * i + 1]]));
   }
-  // T_n = c_n y^n (vectors), at [n·2N …] as (re, im) pairs in a shared flat array: the same operations as an array per term
-  const T = FAR_T;
-  T.fill(0, 0, 2 * N);
-  T[2 * start] = 1;
-  const w = new Float64Array(2 * N);
-  const Dw = new Float64Array(2 * N);
+  return { u, p, terms: n, converged };
+}
+
+/**
+ * Whether the far series of `start` converges at r to `target` (the matching-radius ladder asks this at each
+ * rung, and builds the solutions only where it does).
+ */
+export function farSeriesConverges(model: SectorModel, start: number, r: number, target = FAR_TOLERANCE): boolean {
+  return sumFarSeries(model, start, r, target) > 0;
+}
+
+/**
+ * The far series w = Σ T_n and y dw/dy of `start` at r, into FAR_W and FAR_DW: the number of terms summed,
+ * negative when they did not fall below `target`.
+ */
+function sumFarSeries(model: SectorModel, start: number, r: number, target: number): number {
+  const N = model.channels;
+  const { k } = farWaveNumbers(model);
+  const y = 1 / r;
+  const ref = farTerms(model, start, y);
+  // T_n(r) = T_n(r_ref) q^n, q = r_ref / r ≤ 1: the terms at the reference radius, rescaled
+  const q = y / ref.y;
+  const T = ref.T;
+  // w and y dw/dy: shared scratch (the matching-radius ladder sums the series a dozen times per solve)
+  const w = FAR_W;
+  const Dw = FAR_DW;
+  w.fill(0);
+  Dw.fill(0);
   w[2 * start] = 1;
   let smallRun = 0;
   let converged = false;
   let previous = 1;
   let n = 1;
+  let qn = 1;
   for (; n <= FAR_MAX_TERMS; n++) {
+    if (n > ref.count) extendFarTerms(ref, N, k, n);
     const next = n * 2 * N;
-    for (let i = 0; i < N; i++) {
-      let re = 0;
-      let im = 0;
-      for (let j = 2; j <= 4; j++) {
-        const idx = n + 1 - j;
-        if (idx < 0) continue;
-        const src = idx * 2 * N;
-        const yj = yPow[j]; // T_{n+1−j} y^{j−1} = c_{n+1−j} y^n
-        const coeffRe = aj[j] * idx * idx + bj[j][0] * idx;
-        const coeffIm = bj[j][1] * idx;
-        for (let c = 0; c < N; c++) {
-          let mr = C[(j * NN + i * N + c) * 2];
-          let mi = C[(j * NN + i * N + c) * 2 + 1];
-          if (c === i) {
-            mr += coeffRe;
-            mi += coeffIm;
-          }
-          re += (mr * T[src + 2 * c] - mi * T[src + 2 * c + 1]) * yj;
-          im += (mr * T[src + 2 * c + 1] + mi * T[src + 2 * c]) * yj;
-        }
-      }
-      // T_n = num / (2ik n)
-      const d = 2 * k * n;
-      T[next + 2 * i] = im / d;
-      T[next + 2 * i + 1] = -re / d;
-    }
+    qn *= q;
     let size = 0;
     let scale = 0;
     for (let i = 0; i < N; i++) {
-      const t0 = T[next + 2 * i];
-      const t1 = T[next + 2 * i + 1];
+      const t0 = T[next + 2 * i] * qn;
+      const t1 = T[next + 2 * i + 1] * qn;
       w[2 * i] += t0;
       w[2 * i + 1] += t1;
       Dw[2 * i] += n * t0;
@@ -281,20 +285,142 @@ export function outgoingFarSolution(model: SectorModel, start: number, r: number
     }
     previous = size;
   }
-  // u = e^{iS} w;  du/dr* = e^{iS} (i g w − f y D w), g = k + f η / r.
-  const f = 1 - 2 * y;
-  const g = k + f * eta * y;
-  const phase = k * tortoiseFromHorizonDistance(1, r - 2) + eta * Math.log(r);
-  const cph = Math.cos(phase);
-  const sph = Math.sin(phase);
-  const rot = (z: Complex): Complex => [cph * z[0] - sph * z[1], cph * z[1] + sph * z[0]];
-  const u: Complex[] = [];
-  const p: Complex[] = [];
-  for (let i = 0; i < N; i++) {
-    const wr = w[2 * i];
-    const wi = w[2 * i + 1];
-    u.push(rot([wr, wi]));
-    p.push(rot([-g * wi - f * y * Dw[2 * i], g * wr - f * y * Dw[2 * i + 1]]));
+  return converged ? n : -n;
+}
+
+/**
+ * The far series' terms T_n = c_n y_ref^n of one start at a reference radius 1/y_ref. The coefficients c_n do
+ * not depend on r: the matching-radius ladder (integrate.ts), which sums the series at radii 1.2 apart until
+ * it converges, rescales these instead of running the recurrence again at every rung.
+ */
+interface FarTerms {
+  model: SectorModel | undefined;
+  /** the model's values when the terms were made (a model object edited in place must not reuse them) */
+  omega: number;
+  mu: number;
+  L: number;
+  q0: number[] | undefined;
+  y: number;
+  /** y_ref^{j−1} at index j = 1 … 4 */
+  yPow: Float64Array;
+  /** terms made so far: T_0 … T_count */
+  count: number;
+  /** T_n at [n·2N …] as (re, im) pairs */
+  T: Float64Array;
+  /** C_j (complex N×N, j = 2, 3, 4) at [(j·NN + i)·2], and the scalars a_j, Re b_j, Im b_j of the recurrence */
+  C: Float64Array;
+  a: Float64Array;
+  bRe: Float64Array;
+  bIm: Float64Array;
+}
+
+/** One set of terms per start channel (two at most), shared by every call; no call runs inside another. */
+const FAR_TERMS: FarTerms[] = [0, 1].map(() => ({
+  model: undefined,
+  omega: Number.NaN,
+  mu: Number.NaN,
+  L: Number.NaN,
+  q0: undefined,
+  y: Number.NaN,
+  yPow: new Float64Array(5),
+  count: 0,
+  T: new Float64Array((FAR_MAX_TERMS + 2) * 4),
+  C: new Float64Array(5 * 4 * 2),
+  a: new Float64Array(5),
+  bRe: new Float64Array(5),
+  bIm: new Float64Array(5),
+}));
+
+/**
+ * Rescaling by q^n, q = y / y_ref, stays within range while y_ref ≤ y / MIN_RESCALE: the terms made at the
+ * reference are at most the last ones summed at r (about one) times q^{−n}, and 4^400 ≈ 1e241.
+ */
+const MIN_RESCALE = 0.25;
+
+/** The terms of `start` at a reference radius no further out than 1/y and at most 1/MIN_RESCALE inside it. */
+function farTerms(model: SectorModel, start: number, y: number): FarTerms {
+  const ref = FAR_TERMS[start];
+  if (
+    ref.model === model &&
+    ref.omega === model.omega &&
+    ref.mu === model.mu &&
+    ref.L === model.L &&
+    ref.q0 === model.qCoeffs[0] &&
+    y <= ref.y &&
+    y >= MIN_RESCALE * ref.y
+  )
+    return ref;
+  const N = model.channels;
+  const NN = N * N;
+  const { k, eta } = farWaveNumbers(model);
+  const L = model.L;
+  const d2 = eta * eta;
+  const Q0 = model.qCoeffs[0];
+  const Q1 = model.qCoeffs[1];
+  // a_j, b_j (complex scalars) and C_j (complex matrices), j = 2, 3, 4
+  ref.a.set([0, 0, 1, -4, 4]);
+  ref.bRe.set([0, 0, 1, -6, 8]);
+  ref.bIm.set([0, -2 * k, -2 * (eta - 2 * k), 8 * eta, -8 * eta]);
+  const scalarRe = [0, 0, 4 * model.mu * model.mu - d2 - L, 4 * d2 + 2 * L, -4 * d2];
+  const scalarIm = [0, 0, -eta, 6 * eta, -8 * eta];
+  for (let j = 2; j <= 4; j++) {
+    for (let i = 0; i < NN; i++) {
+      const diagonal = i % (N + 1) === 0;
+      const q1 = Q1 ? Q1[i] : 0;
+      const qv = j === 2 ? -Q0[i] : j === 3 ? -(q1 - 2 * Q0[i]) : 2 * q1;
+      ref.C[(j * NN + i) * 2] = (diagonal ? scalarRe[j] : 0) + qv;
+      ref.C[(j * NN + i) * 2 + 1] = diagonal ? scalarIm[j] : 0;
+    }
   }
-  return { u, p, terms: n, converged };
+  ref.model = model;
+  ref.omega = model.omega;
+  ref.mu = model.mu;
+  ref.L = model.L;
+  ref.q0 = model.qCoeffs[0];
+  ref.y = y;
+  ref.yPow.set([0, 1, y, y * y, y * y * y]);
+  ref.count = 0;
+  ref.T.fill(0, 0, 2 * N);
+  ref.T[2 * start] = 1;
+  return ref;
+}
+
+/**
+ * Terms up to T_n at the reference radius, from the recurrence 2ik n c_n = Σ_{j≥2} [a_j (n+1−j)² + b_j (n+1−j) + C_j] c_{n+1−j}
+ * (times y_ref^n: T_{n+1−j} y_ref^{j−1}).
+ */
+function extendFarTerms(ref: FarTerms, N: number, k: number, upTo: number): void {
+  const NN = N * N;
+  const { T, C, a, bRe, bIm } = ref;
+  const yPow = ref.yPow; // y^{j−1} at index j
+  for (let n = ref.count + 1; n <= upTo; n++) {
+    const next = n * 2 * N;
+    for (let i = 0; i < N; i++) {
+      let re = 0;
+      let im = 0;
+      for (let j = 2; j <= 4; j++) {
+        const idx = n + 1 - j;
+        if (idx < 0) continue;
+        const src = idx * 2 * N;
+        const yj = yPow[j];
+        const coeffRe = a[j] * idx * idx + bRe[j] * idx;
+        const coeffIm = bIm[j] * idx;
+        for (let c = 0; c < N; c++) {
+          let mr = C[(j * NN + i * N + c) * 2];
+          let mi = C[(j * NN + i * N + c) * 2 + 1];
+          if (c === i) {
+            mr += coeffRe;
+            mi += coeffIm;
+          }
+          re += (mr * T[src + 2 * c] - mi * T[src + 2 * c + 1]) * yj;
+          im += (mr * T[src + 2 * c + 1] + mi * T[src + 2 * c]) * yj;
+        }
+      }
+      // T_n = num / (2ik n)
+      const d = 2 * k * n;
+      T[next + 2 * i] = im / d;
+      T[next + 2 * i + 1] = -re / d;
+    }
+  }
+  ref.count = upTo;
 }
