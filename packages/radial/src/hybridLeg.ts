@@ -60,8 +60,26 @@ export const MIN_PHASE = 20;
  * everywhere was measured to cost more, on rungs near the turning point).
  */
 export const MIN_PHASE_LONG_RANGE = 8;
-/** The rate |W| (radians per unit of ln x) above which a massive field's rung may take MIN_PHASE_LONG_RANGE. */
-export const FAST_RATE = 45;
+/**
+ * The rate |W| (radians per unit of ln x) above which a massive field's rung
+ * may take MIN_PHASE_LONG_RANGE. It was 45; at 15 the Coulomb-like stretch
+ * beyond the barrier (r of 50–1,000 near threshold, where |W| grows like
+ * √r and a rung holds 8–20 radians) goes to Riccati steps instead of
+ * 10–20 integrator steps (bench/massive-cpu.bench.mjs: the 70 modes' work
+ * against massless fell from 1.69 to 1.40 times in evaluations).
+ */
+export const FAST_RATE = 15;
+/**
+ * The longest rung (ratio in x) of a massive field's far zone, cut from a
+ * run of Riccati rungs of the ladder, and its node count: there Y varies
+ * smoothly over decades of r, and 20 nodes resolve a rung of up to 16
+ * (half-length 1.39 in ln x) with its unresolved tail still 1e-4–1e-2 of
+ * the step's limit, where 16 nodes resolve a rung of about 6. The far zone
+ * of the worst mode (r from 80 to 10,350) takes 2 steps instead of 4; no
+ * step of the 70 modes of bench/massive-cpu.bench.mjs failed.
+ */
+const FAR_RUNG = 16;
+const FAR_NODES = 20;
 
 /** Times a failed rung is halved before the integrator takes it. */
 const MAX_SPLITS = 4;
@@ -82,14 +100,14 @@ const probe = new Float64Array(LOCAL_SIZE);
  * u = ln x) the WKB ratio |Y₀'|/|W|² is below WKB_LIMIT, and the phase (or
  * growth) ∫|W|/2 du on the rung is above `minPhase` (default MIN_PHASE).
  */
-export function riccatiWorthIt(e: RiccatiEquation, xa: number, xb: number, minPhase = MIN_PHASE): boolean {
+export function riccatiWorthIt(e: RiccatiEquation, xa: number, xb: number, minPhase = MIN_PHASE, mirror = false): boolean {
   const K = 5;
   const ua = Math.log(xa),
     du = (Math.log(xb) - ua) / (K - 1);
   let phase = 0,
     prev = 0;
   for (let j = 0; j < K; j++) {
-    localRiccati(e, j === K - 1 ? xb : Math.exp(ua + j * du), probe);
+    localRiccati(e, j === K - 1 ? xb : Math.exp(ua + j * du), probe, false, mirror);
     if (!(probe[LOCAL.RATIO] < WKB_LIMIT)) return false;
     const W = Math.sqrt(probe[LOCAL.W] ** 2 + probe[LOCAL.W + 1] ** 2);
     if (j > 0) phase += 0.25 * (W + prev) * du;
@@ -211,7 +229,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     longRange && Math.min(rates[i], rates[i + 1]) >= FAST_RATE ? MIN_PHASE_LONG_RANGE : MIN_PHASE;
   const good = ladder.slice(1).map((p, i) => {
     const least = rungMinPhase(i);
-    return rungPhase(ladder[i], p, rates[i], rates[i + 1]) > 0.5 * least && riccatiWorthIt(e, ladder[i].x, p.x, least);
+    return rungPhase(ladder[i], p, rates[i], rates[i + 1]) > 0.5 * least && riccatiWorthIt(e, ladder[i].x, p.x, least, longRange);
   });
   if (!good.includes(true)) return plain(integrateLeg(leg));
 
@@ -255,8 +273,8 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   };
   // One rung by a Riccati step; a rung that fails is halved (in ln x) up to MAX_SPLITS times before the
   // integrator takes it: near a turning point the branch point of W limits the resolution of a whole rung.
-  const byRiccati = (from: Point, to: Point, rateFrom: number, rateTo: number, depth: number): void => {
-    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, RICCATI_NODES, maxPasses, accept, longRange, longRange);
+  const byRiccati = (from: Point, to: Point, rateFrom: number, rateTo: number, depth: number, nodes = RICCATI_NODES): void => {
+    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, nodes, maxPasses, accept, longRange, longRange);
     // counted as right-hand-side evaluations: the coefficients at every node, and one collocation pass per node and pass
     leg.counter.evaluations += step.evaluations * (1 + step.passes);
     if (!step.ok) {
@@ -300,6 +318,24 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       let j = i;
       while (j < good.length && !good[j]) j++;
       byOde(ladder[i], ladder[j]);
+      i = j;
+      continue;
+    }
+    if (longRange) {
+      // a massive far zone: the run of Riccati rungs up to the next stop, recut into rungs of up to FAR_RUNG
+      let j = i + 1;
+      while (j < good.length && good[j] && !leg.stops.includes(ladder[j].r)) j++;
+      const count = Math.ceil(Math.log(ladder[j].x / ladder[i].x) / Math.log(FAR_RUNG) - 1e-9);
+      let from = ladder[i],
+        rateFrom = rates[i];
+      for (let c = 1; c <= count; c++) {
+        const to = c === count ? ladder[j] : { x: ladder[i].x * (ladder[j].x / ladder[i].x) ** (c / count), r: 0 };
+        if (c < count) to.r = rPlus + to.x;
+        const rateTo = c === count ? rates[j] : phaseRate(e, to.x);
+        byRiccati(from, to, rateFrom, rateTo, 0, FAR_NODES);
+        from = to;
+        rateFrom = rateTo;
+      }
       i = j;
       continue;
     }
