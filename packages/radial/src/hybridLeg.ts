@@ -70,16 +70,18 @@ export const MIN_PHASE_LONG_RANGE = 8;
  */
 export const FAST_RATE = 15;
 /**
- * The longest rung (ratio in x) of a massive field's far zone, cut from a
- * run of Riccati rungs of the ladder, and its node count: there Y varies
- * smoothly over decades of r, and 20 nodes resolve a rung of up to 16
- * (half-length 1.39 in ln x) with its unresolved tail still 1e-4–1e-2 of
- * the step's limit, where 16 nodes resolve a rung of about 6. The far zone
- * of the worst mode (r from 80 to 10,350) takes 2 steps instead of 4; no
- * step of the 70 modes of bench/massive-cpu.bench.mjs failed.
+ * The longest rung (ratio in x) of a massive field's far zone: a run of
+ * Riccati rungs of the ladder (up to the next stop) is recut into equal
+ * rungs in ln x of at most this ratio. There Y varies smoothly over decades
+ * of r, and RICCATI_NODES resolve a rung of 6 (half-length 0.9) with the
+ * unresolved tail still ~1e-3 of the step's limit; a step costs about the
+ * same whatever its length, so the far zone of the worst mode (r from 80 to
+ * 10,350) takes 3 steps instead of 4 (one of 74 steps on the 70 modes of
+ * bench/massive-cpu.bench.mjs failed and was halved). 20 nodes resolve a
+ * rung of 16, but a step at 20 nodes cost 1.4 times one at 16 (measured on
+ * those modes' first far rungs: 11.5 against 8 µs), for no gain over all.
  */
-const FAR_RUNG = 16;
-const FAR_NODES = 20;
+const FAR_RUNG = 6;
 
 /** Times a failed rung is halved before the integrator takes it. */
 const MAX_SPLITS = 4;
@@ -273,8 +275,8 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   };
   // One rung by a Riccati step; a rung that fails is halved (in ln x) up to MAX_SPLITS times before the
   // integrator takes it: near a turning point the branch point of W limits the resolution of a whole rung.
-  const byRiccati = (from: Point, to: Point, rateFrom: number, rateTo: number, depth: number, nodes = RICCATI_NODES): void => {
-    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, nodes, maxPasses, accept, longRange, longRange);
+  const byRiccati = (from: Point, to: Point, rateFrom: number, rateTo: number, depth: number): void => {
+    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, RICCATI_NODES, maxPasses, accept, longRange, longRange);
     // counted as right-hand-side evaluations: the coefficients at every node, and one collocation pass per node and pass
     leg.counter.evaluations += step.evaluations * (1 + step.passes);
     if (!step.ok) {
@@ -329,10 +331,10 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       let from = ladder[i],
         rateFrom = rates[i];
       for (let c = 1; c <= count; c++) {
-        const to = c === count ? ladder[j] : { x: ladder[i].x * (ladder[j].x / ladder[i].x) ** (c / count), r: 0 };
-        if (c < count) to.r = rPlus + to.x;
+        const xc = ladder[i].x * (ladder[j].x / ladder[i].x) ** (c / count);
+        const to = c === count ? ladder[j] : { x: xc, r: rPlus + xc };
         const rateTo = c === count ? rates[j] : phaseRate(e, to.x);
-        byRiccati(from, to, rateFrom, rateTo, 0, FAR_NODES);
+        byRiccati(from, to, rateFrom, rateTo, 0);
         from = to;
         rateFrom = rateTo;
       }

@@ -533,13 +533,15 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
 
 /**
  * With `newton`, the defect passes still to come (predicted from the
- * contraction so far) beyond which Newton passes take over: a factorisation
- * costs about as much as six defect passes at 16 nodes, and on the first
+ * contraction so far) beyond which Newton passes take over. On the first
  * rungs of a massive far zone (|W| of 20–40) the contraction slows from ~0.1
- * to ~0.5 per pass, so 12–14 defect passes became 4–5 (measured on
- * bench/massive-cpu.bench.mjs: a worst mode's rung 14 → 5 passes).
+ * to ~0.5 per pass, so the prediction falls short and 11–14 defect passes
+ * were taken; with Newton passes once more than four remain, 5–6 (one
+ * factorisation at 16 nodes costs about eight defect passes; such a rung
+ * took 8.2–8.7 µs against 9.4–12.7 µs, measured on rungs of the worst modes
+ * of bench/massive-cpu.bench.mjs; 6 left two of three as they were).
  */
-const NEWTON_AFTER = 6;
+const NEWTON_AFTER = 4;
 /** Most nodes a Newton pass takes (the size of its work arrays). */
 const NEWTON_MAX_NODES = 64;
 const newtonRe = new Float64Array(NEWTON_MAX_NODES * NEWTON_MAX_NODES),
