@@ -62,13 +62,16 @@ export const MIN_PHASE = 20;
 export const MIN_PHASE_LONG_RANGE = 8;
 /**
  * The rate |W| (radians per unit of ln x) above which a massive field's rung
- * may take MIN_PHASE_LONG_RANGE. It was 45; at 15 the Coulomb-like stretch
+ * may take MIN_PHASE_LONG_RANGE. It was 45; at 10 the Coulomb-like stretch
  * beyond the barrier (r of 50–1,000 near threshold, where |W| grows like
  * √r and a rung holds 8–20 radians) goes to Riccati steps instead of
- * 10–20 integrator steps (bench/massive-cpu.bench.mjs: the 70 modes' work
- * against massless fell from 1.69 to 1.40 times in evaluations).
+ * 10–20 integrator steps (bench/massive-cpu.bench.mjs, with FAR_RUNG and
+ * NEWTON_AFTER: the 70 modes' evaluations against massless fell from 1.69
+ * to 1.19 times; their summed CPU time 7 % below that at 15, 24 % on the
+ * mode a = 0.167, l = 1, m = −1, Mω = 0.41, v = 0.036; at 6, more steps
+ * failed and no CPU time was saved).
  */
-export const FAST_RATE = 15;
+export const FAST_RATE = 10;
 /**
  * The longest rung (ratio in x) of a massive field's far zone: a run of
  * Riccati rungs of the ladder (up to the next stop) is recut into equal
