@@ -464,6 +464,8 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
     largest = Math.sqrt(largest);
     // Measured against the tolerance beyond the rounding floor of ∫Y itself (a phase of |Y|·2·half radians is known to ε of it).
     const size = Math.max(2 * half * largest - floor, largest / yScale);
+    // a massive far zone: a first correction this large marks a rung too near the turning point (see FIRST_LIMIT)
+    if (newton && passes === 1 && largest > FIRST_LIMIT * yScale) return -passes;
     // Done when this correction, or the next one predicted from the contraction so far, is below the target.
     const next = passes > 1 ? (size * largest) / previous : size;
     if (size < 0.01 * tol || (next < 0.01 * tol && largest < 0.1 * previous)) {
@@ -542,6 +544,16 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
  * of bench/massive-cpu.bench.mjs; 6 left two of three as they were).
  */
 const NEWTON_AFTER = 4;
+/**
+ * With `newton` (a massive far zone), the largest first correction, relative
+ * to |Y|, of a solution worth refining: beyond it the step is refused at
+ * once (the integrator, or the halves, take the rung). On 230 massive modes
+ * (the 70 of bench/massive-cpu.bench.mjs and 160 more near threshold) no
+ * accepted step's first correction exceeded 3.2e-4 of |Y|, while 9 of the 15
+ * steps that failed (their tail unresolved after a Newton factorisation, at
+ * |W| ≈ 10–16 on the rung's start) had 3.7e-4 to 2.2e-3.
+ */
+const FIRST_LIMIT = 4e-4;
 /** Most nodes a Newton pass takes (the size of its work arrays). */
 const NEWTON_MAX_NODES = 64;
 const newtonRe = new Float64Array(NEWTON_MAX_NODES * NEWTON_MAX_NODES),
