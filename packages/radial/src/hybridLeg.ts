@@ -98,8 +98,31 @@ export const MASSLESS_MIN_PHASE = 60;
  * everywhere was measured to cost more, on rungs near the turning point).
  */
 export const MIN_PHASE_LONG_RANGE = 8;
-/** The rate |W| (radians per unit of ln x) above which a massive field's rung may take MIN_PHASE_LONG_RANGE. */
-export const FAST_RATE = 45;
+/**
+ * The rate |W| (radians per unit of ln x) above which a massive field's rung
+ * may take MIN_PHASE_LONG_RANGE. It was 45; at 10 the Coulomb-like stretch
+ * beyond the barrier (r of 50–1,000 near threshold, where |W| grows like
+ * √r and a rung holds 8–20 radians) goes to Riccati steps instead of
+ * 10–20 integrator steps (bench/massive-cpu.bench.mjs, with FAR_RUNG and
+ * NEWTON_AFTER: the 70 modes' evaluations against massless fell from 1.69
+ * to 1.19 times; their summed CPU time 7 % below that at 15, 24 % on the
+ * mode a = 0.167, l = 1, m = −1, Mω = 0.41, v = 0.036; at 6, more steps
+ * failed and no CPU time was saved).
+ */
+export const FAST_RATE = 10;
+/**
+ * The longest rung (ratio in x) of a massive field's far zone: a run of
+ * Riccati rungs of the ladder (up to the next stop) is recut into equal
+ * rungs in ln x of at most this ratio. There Y varies smoothly over decades
+ * of r, and RICCATI_NODES resolve a rung of 6 (half-length 0.9) with the
+ * unresolved tail still ~1e-3 of the step's limit; a step costs about the
+ * same whatever its length, so the far zone of the worst mode (r from 80 to
+ * 10,350) takes 3 steps instead of 4 (one of 74 steps on the 70 modes of
+ * bench/massive-cpu.bench.mjs failed and was halved). 20 nodes resolve a
+ * rung of 16, but a step at 20 nodes cost 1.4 times one at 16 (measured on
+ * those modes' first far rungs: 11.5 against 8 µs), for no gain over all.
+ */
+const FAR_RUNG = 6;
 
 /**
  * Least phase (radians) of a massless leg without Riccati rungs that is
@@ -135,6 +158,7 @@ export function riccatiWorthIt(
   xb: number,
   minPhase = MIN_PHASE,
   ratioLimit = WKB_LIMIT,
+  mirror = false,
 ): boolean {
   const K = 5;
   const ua = Math.log(xa),
@@ -142,7 +166,7 @@ export function riccatiWorthIt(
   let phase = 0,
     prev = 0;
   for (let j = 0; j < K; j++) {
-    localRiccati(e, j === K - 1 ? xb : Math.exp(ua + j * du), probe);
+    localRiccati(e, j === K - 1 ? xb : Math.exp(ua + j * du), probe, false, mirror);
     if (!(probe[LOCAL.RATIO] < ratioLimit)) return false;
     const W = Math.sqrt(probe[LOCAL.W] ** 2 + probe[LOCAL.W + 1] ** 2);
     if (j > 0) phase += 0.25 * (W + prev) * du;
@@ -310,11 +334,17 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
         ? MIN_PHASE
         : MASSLESS_MIN_PHASE;
   const ratioLimit = longRange ? WKB_LIMIT : MASSLESS_WKB_LIMIT;
+  // A massive far zone past its first Riccati rung, where the rate keeps growing, takes no probes: its rungs are
+  // recut below and a recut step that fails is halved as any other (the same steps on the 70 modes of
+  // bench/massive-cpu.bench.mjs; 3–6 % less CPU time on its two worst modes).
+  let far = false;
   let good = ladder.slice(1).map((p, i) => {
     const least = rungMinPhase(i);
-    return (
-      rungPhase(ladder[i], p, rates[i], rates[i + 1]) > 0.5 * least && riccatiWorthIt(e, ladder[i].x, p.x, least, ratioLimit)
-    );
+    const phase = rungPhase(ladder[i], p, rates[i], rates[i + 1]);
+    if (far && rates[i + 1] > rates[i] && phase > least) return true;
+    const ok = phase > 0.5 * least && riccatiWorthIt(e, ladder[i].x, p.x, least, ratioLimit, longRange);
+    far = longRange && ok;
+    return ok;
   });
   if (!longRange) good = cutRefused(e, ladder, rates, good, rPlus);
   const riccati = good.includes(true);
@@ -428,6 +458,24 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       let j = i;
       while (j < good.length && !good[j]) j++;
       byStretch(i, j);
+      i = j;
+      continue;
+    }
+    if (longRange) {
+      // a massive far zone: the run of Riccati rungs up to the next stop, recut into rungs of up to FAR_RUNG
+      let j = i + 1;
+      while (j < good.length && good[j] && !leg.stops.includes(ladder[j].r)) j++;
+      const count = Math.ceil(Math.log(ladder[j].x / ladder[i].x) / Math.log(FAR_RUNG) - 1e-9);
+      let from = ladder[i],
+        rateFrom = rates[i];
+      for (let c = 1; c <= count; c++) {
+        const xc = ladder[i].x * (ladder[j].x / ladder[i].x) ** (c / count);
+        const to = c === count ? ladder[j] : { x: xc, r: rPlus + xc };
+        const rateTo = c === count ? rates[j] : phaseRate(e, to.x);
+        byRiccati(from, to, rateFrom, rateTo, 0);
+        from = to;
+        rateFrom = rateTo;
+      }
       i = j;
       continue;
     }

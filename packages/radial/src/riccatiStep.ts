@@ -168,9 +168,13 @@ const scratch = new Float64Array(9);
  *   Y₁ = Y₀ + δ₁ with its exact derivative, δ₂ = −(δ₁' + δ₁²)/(σW + 2δ₁),
  * the derivatives coming from those of the polynomial coefficients, so that
  * no collocation derivative touches the large part of Y. `flip` takes the
- * other root W (to continue a branch). Allocates nothing.
+ * other root W (to continue a branch). `mirror` (a massive far zone) writes
+ * the σ = −1 iterate as the conjugate of the σ = +1 one where P is real and
+ * W imaginary: the same doubles (every operation is conjugation-symmetric;
+ * checked bit for bit at 185,000 points of 300 random massive modes), at
+ * about two thirds of the cost. Allocates nothing.
  */
-export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, flip = false): void {
+export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, flip = false, mirror = false): void {
   const j = scratch;
   jet(e.delta, x, j, 0);
   const a0 = j[0] * j[0],
@@ -240,7 +244,10 @@ export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, f
   out[4] = Wr;
   out[5] = Wi;
   let ratio = 0;
-  for (let k = 0; k < 2; k++) {
+  // P, P', P'' real and W, W', W'' imaginary (real coefficients, oscillating solutions): every operation below
+  // maps σ = +1 to σ = −1 by conjugation, so with `mirror` the second is written as the first's conjugate
+  const pair = mirror && Pi === 0 && Pi1 === 0 && Pi2 === 0 && Wr === 0 && W1r === 0 && W2r === 0;
+  for (let k = 0; k < (pair ? 1 : 2); k++) {
     const sg = k === 0 ? 1 : -1;
     const gr = sg * Wr,
       gi = sg * Wi,
@@ -281,6 +288,12 @@ export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, f
     out[o + 4] = -(rr * er + ri * ei) / ee;
     out[o + 5] = -(ri * er - rr * ei) / ee;
     ratio = Math.max(ratio, Math.sqrt(y01r * y01r + y01i * y01i) / ww);
+  }
+  if (pair) {
+    for (let i = 6; i < 12; i += 2) {
+      out[i + 6] = out[i];
+      out[i + 7] = -out[i + 1];
+    }
   }
   out[LOCAL.RATIO] = ratio;
 }
@@ -451,6 +464,8 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
     largest = Math.sqrt(largest);
     // Measured against the tolerance beyond the rounding floor of ∫Y itself (a phase of |Y|·2·half radians is known to ε of it).
     const size = Math.max(2 * half * largest - floor, largest / yScale);
+    // a massive far zone: a first correction this large marks a rung too near the turning point (see FIRST_LIMIT)
+    if (newton && passes === 1 && largest > FIRST_LIMIT * yScale) return -passes;
     // Done when this correction, or the next one predicted from the contraction so far, is below the target.
     const next = passes > 1 ? (size * largest) / previous : size;
     if (size < 0.01 * tol || (next < 0.01 * tol && largest < 0.1 * previous)) {
@@ -473,10 +488,17 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
     }
     // Contracting too slowly to arrive within MAX_PASSES: give the stretch to the integrator now.
     // (With a looser acceptance than ACCEPT, the target it must arrive at is that acceptance.)
-    if (passes > 2 && !newtonPasses && passes + Math.log(reach / size) / Math.log(largest / previous) > maxPasses) {
-      if (!newton || n > NEWTON_MAX_NODES) break;
-      newtonPasses = true;
-      firstNewton = passes + 1;
+    if (passes > 2 && !newtonPasses) {
+      const toGo = Math.log(reach / size) / Math.log(largest / previous);
+      if (passes + toGo > maxPasses) {
+        if (!newton || n > NEWTON_MAX_NODES) break;
+        newtonPasses = true;
+        firstNewton = passes + 1;
+      } else if (newton && n <= NEWTON_MAX_NODES && toGo > NEWTON_AFTER) {
+        // a massive far zone: Newton passes now cost less than the defect passes still to come
+        newtonPasses = true;
+        firstNewton = passes + 1;
+      }
     }
     // Contracting, but Y already unresolved on the nodes by more than the passes to come can change: refuse now.
     if (
@@ -511,6 +533,27 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
   return passes;
 }
 
+/**
+ * With `newton`, the defect passes still to come (predicted from the
+ * contraction so far) beyond which Newton passes take over. On the first
+ * rungs of a massive far zone (|W| of 20–40) the contraction slows from ~0.1
+ * to ~0.5 per pass, so the prediction falls short and 11–14 defect passes
+ * were taken; with Newton passes once more than four remain, 5–6 (one
+ * factorisation at 16 nodes costs about eight defect passes; such a rung
+ * took 8.2–8.7 µs against 9.4–12.7 µs, measured on rungs of the worst modes
+ * of bench/massive-cpu.bench.mjs; 6 left two of three as they were).
+ */
+const NEWTON_AFTER = 4;
+/**
+ * With `newton` (a massive far zone), the largest first correction, relative
+ * to |Y|, of a solution worth refining: beyond it the step is refused at
+ * once (the integrator, or the halves, take the rung). On 230 massive modes
+ * (the 70 of bench/massive-cpu.bench.mjs and 160 more near threshold) no
+ * accepted step's first correction exceeded 3.2e-4 of |Y|, while 9 of the 15
+ * steps that failed (their tail unresolved after a Newton factorisation, at
+ * |W| ≈ 10–16 on the rung's start) had 3.7e-4 to 2.2e-3.
+ */
+const FIRST_LIMIT = 4e-4;
 /** Most nodes a Newton pass takes (the size of its work arrays). */
 const NEWTON_MAX_NODES = 64;
 const newtonRe = new Float64Array(NEWTON_MAX_NODES * NEWTON_MAX_NODES),
@@ -739,9 +782,9 @@ export function riccatiStep(
     prevWi = 0;
   for (let j = 0; j < n; j++) {
     const xj = j === 0 ? xb : j === n - 1 ? xa : Math.exp(mid + half * rule.t[j]);
-    localRiccati(e, xj, l);
+    localRiccati(e, xj, l, false, mirror);
     // one continuous branch of W along the interval
-    if (j > 0 && l[4] * prevWr + l[5] * prevWi < 0) localRiccati(e, xj, l, true);
+    if (j > 0 && l[4] * prevWr + l[5] * prevWi < 0) localRiccati(e, xj, l, true, mirror);
     prevWr = l[4];
     prevWi = l[5];
     w.pRe[j] = l[0];
