@@ -167,22 +167,39 @@ function sumHorizonSeries(model: SectorModel, start: number, x: number): SeriesS
   // u = e^{−iωr*} h;  du/dr* = e^{−iωr*} (−iω h + f dh/dr), dh/dr = (dh/dt)/2.
   const r = 2 + x;
   const f = x / r;
-  const phase = -model.omega * tortoiseFromHorizonDistance(1, x);
+  const { u, p } = rotatedChannels(-model.omega * tortoiseFromHorizonDistance(1, x), N, h, hd, model.omega, 0.5 * f);
+  let size = 0;
+  for (let i = 0; i < N; i++)
+    size += Math.sqrt(h[2 * i] ** 2 + h[2 * i + 1] ** 2) + t * Math.sqrt(hd[2 * i] ** 2 + hd[2 * i + 1] ** 2);
+  return { u, p, terms: n + 1, converged, cancellation: absSum / size };
+}
+
+/**
+ * The N channels of a series solution, u_i = e^{iφ} v_i and
+ * p_i = e^{iφ} (−iα v_i + β d_i), from the summed series v (re, im pairs) and
+ * its derivative sum d: the one form of both ends (horizon: φ = −ωr*,
+ * α = ω, β = f/2; far zone: φ = k r* + η ln r, α = −g, β = −f/r).
+ */
+function rotatedChannels(
+  phase: number,
+  N: number,
+  v: Float64Array,
+  d: Float64Array,
+  alpha: number,
+  beta: number,
+): { u: Complex[]; p: Complex[] } {
   const cph = Math.cos(phase);
   const sph = Math.sin(phase);
   const rot = (z: Complex): Complex => [cph * z[0] - sph * z[1], cph * z[1] + sph * z[0]];
   const u: Complex[] = [];
   const p: Complex[] = [];
   for (let i = 0; i < N; i++) {
-    const hr = h[2 * i];
-    const hi = h[2 * i + 1];
-    u.push(rot([hr, hi]));
-    p.push(rot([model.omega * hi + 0.5 * f * hd[2 * i], -model.omega * hr + 0.5 * f * hd[2 * i + 1]]));
+    const vr = v[2 * i];
+    const vi = v[2 * i + 1];
+    u.push(rot([vr, vi]));
+    p.push(rot([alpha * vi + beta * d[2 * i], -alpha * vr + beta * d[2 * i + 1]]));
   }
-  let size = 0;
-  for (let i = 0; i < N; i++)
-    size += Math.sqrt(h[2 * i] ** 2 + h[2 * i + 1] ** 2) + t * Math.sqrt(hd[2 * i] ** 2 + hd[2 * i + 1] ** 2);
-  return { u, p, terms: n + 1, converged, cancellation: absSum / size };
+  return { u, p };
 }
 
 /** k∞ = √(ω² − μ²) and the long-range phase coefficient η = μ²/k∞ (M = 1). */
@@ -212,17 +229,7 @@ export function outgoingFarSolution(model: SectorModel, start: number, r: number
   const f = 1 - 2 * y;
   const g = k + f * eta * y;
   const phase = k * tortoiseFromHorizonDistance(1, r - 2) + eta * Math.log(r);
-  const cph = Math.cos(phase);
-  const sph = Math.sin(phase);
-  const rot = (z: Complex): Complex => [cph * z[0] - sph * z[1], cph * z[1] + sph * z[0]];
-  const u: Complex[] = [];
-  const p: Complex[] = [];
-  for (let i = 0; i < N; i++) {
-    const wr = w[2 * i];
-    const wi = w[2 * i + 1];
-    u.push(rot([wr, wi]));
-    p.push(rot([-g * wi - f * y * Dw[2 * i], g * wr - f * y * Dw[2 * i + 1]]));
-  }
+  const { u, p } = rotatedChannels(phase, N, w, Dw, -g, -(f * y));
   return { u, p, terms: n, converged };
 }
 
