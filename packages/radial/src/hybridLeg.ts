@@ -26,6 +26,7 @@ import {
   MAX_PASSES_LONG_RANGE,
   RICCATI_NODES,
   localRiccati,
+  localRiccatiReal,
   phaseRate,
   type RiccatiEquation,
   riccatiEquation,
@@ -166,7 +167,8 @@ export function riccatiWorthIt(
   let phase = 0,
     prev = 0;
   for (let j = 0; j < K; j++) {
-    localRiccati(e, j === K - 1 ? xb : Math.exp(ua + j * du), probe, false, mirror);
+    const x = j === K - 1 ? xb : Math.exp(ua + j * du);
+    if (!(mirror && e.real === true && localRiccatiReal(e, x, probe))) localRiccati(e, x, probe, false, mirror);
     if (!(probe[LOCAL.RATIO] < ratioLimit)) return false;
     const W = Math.sqrt(probe[LOCAL.W] ** 2 + probe[LOCAL.W + 1] ** 2);
     if (j > 0) phase += 0.25 * (W + prev) * du;

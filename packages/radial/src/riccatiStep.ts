@@ -39,6 +39,8 @@ export interface RiccatiEquation {
   cRe: Float64Array;
   /** imaginary parts of C */
   cIm: Float64Array;
+  /** B and C real (bIm, cIm all zero: s = 0 at real ω), where `localRiccatiReal` applies; absent means unknown */
+  real?: boolean;
 }
 
 /**
@@ -123,12 +125,15 @@ export function riccatiEquation(eq: RadialEquation, rPlus: number): RiccatiEquat
     if (shift !== 0) return shifted(p, shift, n);
     return p.length > n ? p.subarray(0, n) : p;
   };
+  const bIm = take(eq.B.im, 5),
+    cIm = take(eq.C.im, 5);
   return {
     delta: take(eq.delta.re, 3),
     bRe: take(eq.B.re, 5),
-    bIm: take(eq.B.im, 5),
+    bIm,
     cRe: take(eq.C.re, 5),
-    cIm: take(eq.C.im, 5),
+    cIm,
+    real: bIm.every((c) => c === 0) && cIm.every((c) => c === 0),
   };
 }
 
@@ -307,6 +312,96 @@ export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, f
     }
   }
   out[LOCAL.RATIO] = ratio;
+}
+
+/**
+ * `localRiccati` with `mirror` where B and C are real (`e.real`) and the
+ * solutions oscillate (Z = P² − 4Q < 0, so W = ±i√−Z): every term the
+ * general code multiplies by a zero imaginary (or real) part is left out,
+ * and the σ = −1 iterate is the conjugate of the σ = +1 one. The same
+ * doubles up to the sign of zeros and the last bit of W (√−Z for √(|Z|−Z)/2)
+ * at about half the cost (the coefficients of a massive field's far zone,
+ * 16 per Riccati step). Returns false, `out` untouched, where Z ≥ 0.
+ */
+export function localRiccatiReal(e: RiccatiEquation, x: number, out: Float64Array, flip = false): boolean {
+  const j = scratch;
+  jet(e.delta, x, j, 0);
+  const a0 = j[0] * j[0],
+    a1 = 2 * j[0] * j[1],
+    a2 = 2 * j[1] * j[1] + 2 * j[0] * j[2];
+  jet(e.bRe, x, j, 3);
+  const pr = j[3] / a0;
+  const pr1 = (j[4] - pr * a1) / a0;
+  const pr2 = (j[5] - 2 * pr1 * a1 - pr * a2) / a0;
+  jet(e.cRe, x, j, 6);
+  const qr = j[6] / a0;
+  const qr1 = (j[7] - qr * a1) / a0;
+  const qr2 = (j[8] - 2 * qr1 * a1 - qr * a2) / a0;
+  const x2 = x * x,
+    x3 = x2 * x,
+    x4 = x3 * x;
+  const Pr = x * pr - 1;
+  const Pr1 = x * pr + x2 * pr1;
+  const Pr2 = x * pr + 3 * x2 * pr1 + x3 * pr2;
+  const Qr = x2 * qr;
+  const Qr1 = 2 * x2 * qr + x3 * qr1;
+  const Qr2 = 4 * x2 * qr + 5 * x3 * qr1 + x4 * qr2;
+  const Zr = Pr * Pr - 4 * Qr;
+  if (!(Zr < 0)) return false;
+  const Zr1 = 2 * (Pr * Pr1) - 4 * Qr1;
+  const Zr2 = 2 * (Pr1 * Pr1 + Pr * Pr2) - 4 * Qr2;
+  // W = i Wi, W' = i W1i, W'' = i W2i
+  const Wi = flip ? -Math.sqrt(-Zr) : Math.sqrt(-Zr);
+  const ww = Wi * Wi;
+  const hi = (-0.5 * Wi) / ww;
+  const W1i = Zr1 * hi;
+  const W2i = (Zr2 + 2 * (W1i * W1i)) * hi;
+  out[0] = Pr;
+  out[1] = 0;
+  out[2] = Qr;
+  out[3] = 0;
+  out[4] = 0;
+  out[5] = Wi;
+  // σ = +1: g = i Wi, Y₀ = (g − P)/2 and its derivatives
+  const y0r = -0.5 * Pr,
+    y0i = 0.5 * Wi;
+  const y01r = -0.5 * Pr1,
+    y01i = 0.5 * W1i;
+  const y02r = -0.5 * Pr2,
+    y02i = 0.5 * W2i;
+  // 1/g = −i/Wi
+  const igi = -Wi / ww;
+  // δ₁ = −Y₀'/g
+  const d1r = y01i * igi,
+    d1i = -(y01r * igi);
+  // δ₁' = (Y₀' g' − Y₀'' g)/g², 1/g² = −1/Wi²
+  const nr = y02i * Wi - y01i * W1i,
+    ni = y01r * W1i - y02r * Wi;
+  const ig2r = -(igi * igi);
+  const d11r = nr * ig2r,
+    d11i = ni * ig2r;
+  // δ₂ = −(δ₁' + δ₁²)/(g + 2δ₁)
+  const rr = d11r + d1r * d1r - d1i * d1i,
+    ri = d11i + 2 * d1r * d1i;
+  const er = 2 * d1r,
+    ei = Wi + 2 * d1i;
+  const ee = er * er + ei * ei;
+  const cr = -(rr * er + ri * ei) / ee,
+    ci = -(ri * er - rr * ei) / ee;
+  out[6] = y0r + d1r;
+  out[7] = y0i + d1i;
+  out[8] = y01r + d11r;
+  out[9] = y01i + d11i;
+  out[10] = cr;
+  out[11] = ci;
+  out[12] = out[6];
+  out[13] = -out[7];
+  out[14] = out[8];
+  out[15] = -out[9];
+  out[16] = cr;
+  out[17] = -ci;
+  out[LOCAL.RATIO] = Math.sqrt(y01r * y01r + y01i * y01i) / ww;
+  return true;
 }
 
 function horner(c: Float64Array, x: number): number {
@@ -790,13 +885,16 @@ export function riccatiStep(
   const mid = 0.5 * (ua + ub),
     half = 0.5 * (ub - ua);
   const l = w.local;
+  // a massive field's far zone with real coefficients: the cheaper form where it applies (the same doubles, see localRiccatiReal)
+  const real = mirror && e.real === true;
   let prevWr = 0,
     prevWi = 0;
   for (let j = 0; j < n; j++) {
     const xj = j === 0 ? xb : j === n - 1 ? xa : Math.exp(mid + half * rule.t[j]);
-    localRiccati(e, xj, l, false, mirror);
+    if (!(real && localRiccatiReal(e, xj, l))) localRiccati(e, xj, l, false, mirror);
     // one continuous branch of W along the interval
-    if (j > 0 && l[4] * prevWr + l[5] * prevWi < 0) localRiccati(e, xj, l, true, mirror);
+    if (j > 0 && l[4] * prevWr + l[5] * prevWi < 0)
+      if (!(real && localRiccatiReal(e, xj, l, true))) localRiccati(e, xj, l, true, mirror);
     prevWr = l[4];
     prevWi = l[5];
     w.pRe[j] = l[0];
