@@ -363,6 +363,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   // A massive field's far zone: short fast rungs and more passes pay off (MIN_PHASE_LONG_RANGE, MAX_PASSES_LONG_RANGE);
   // massless legs keep MIN_PHASE and MAX_PASSES, bit for bit.
   const longRange = fieldMassOf(leg.mode) > 0;
+  if (longRange) e.real = e.bIm.every((c) => c === 0) && e.cIm.every((c) => c === 0);
   const maxPasses = longRange ? MAX_PASSES_LONG_RANGE : MAX_PASSES;
   const accept = longRange ? ACCEPT_LONG_RANGE : ACCEPT;
   const ladder: Point[] = [{ x: leg.fromOffset ?? leg.from - rPlus, r: leg.from }];

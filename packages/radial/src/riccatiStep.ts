@@ -39,7 +39,7 @@ export interface RiccatiEquation {
   cRe: Float64Array;
   /** imaginary parts of C */
   cIm: Float64Array;
-  /** B and C real (bIm, cIm all zero: s = 0 at real ω), where `localRiccatiReal` applies; absent means unknown */
+  /** B and C real (bIm, cIm all zero: s = 0 at real ω), where `localRiccatiReal` applies; false or absent means not known to be */
   real?: boolean;
 }
 
@@ -125,15 +125,14 @@ export function riccatiEquation(eq: RadialEquation, rPlus: number): RiccatiEquat
     if (shift !== 0) return shifted(p, shift, n);
     return p.length > n ? p.subarray(0, n) : p;
   };
-  const bIm = take(eq.B.im, 5),
-    cIm = take(eq.C.im, 5);
   return {
     delta: take(eq.delta.re, 3),
     bRe: take(eq.B.re, 5),
-    bIm,
+    bIm: take(eq.B.im, 5),
     cRe: take(eq.C.re, 5),
-    cIm,
-    real: bIm.every((c) => c === 0) && cIm.every((c) => c === 0),
+    cIm: take(eq.C.im, 5),
+    // set by the one caller that uses it (a massive far zone, hybridLeg.ts): no check on massless legs
+    real: false,
   };
 }
 
