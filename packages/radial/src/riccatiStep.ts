@@ -579,6 +579,16 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
       remaining = Math.min(size, next);
       break;
     }
+    // After the first Newton pass the next correction is forecast from δ² (newtonPass): when NEWTON_MARGIN times
+    // it is below the target, the chord pass that would only confirm it is not taken.
+    if (newtonPasses && passes === firstNewton) {
+      const forecast = NEWTON_MARGIN * Math.max(2 * half * newtonAhead - floor, newtonAhead / yScale);
+      if (forecast < done) {
+        converged = true;
+        remaining = forecast;
+        break;
+      }
+    }
     // Not contracting any more: the rounding floor of the collocation derivative (accepted when below tol) or a turning point.
     if (passes > 1 && largest > 0.5 * previous && passes !== firstNewton) {
       if (newton && n <= NEWTON_MAX_NODES && !newtonPasses && size >= accept * tol) {
@@ -660,6 +670,14 @@ const NEWTON_AFTER = 4;
  * |W| ≈ 10–16 on the rung's start) had 3.7e-4 to 2.2e-3.
  */
 const FIRST_LIMIT = 4e-4;
+/**
+ * Margin on the forecast of the correction after a first Newton pass
+ * (δ²/(2y + p) at every node, which leaves out the collocation derivative's
+ * share of the Jacobian).
+ */
+const NEWTON_MARGIN = 10;
+/** What the last factoring Newton pass forecasts for the next correction: max |δ|²/|2y + p| over the nodes. */
+let newtonAhead = 0;
 /** Most nodes a Newton pass takes (the size of its work arrays). */
 const NEWTON_MAX_NODES = 64;
 const newtonRe = new Float64Array(NEWTON_MAX_NODES * NEWTON_MAX_NODES),
@@ -767,7 +785,8 @@ function newtonPass(w: Work, o: number, inv: number, factor: boolean): number {
     }
   }
   // back: the upper factor
-  let largest = 0;
+  let largest = 0,
+    ahead = 0;
   for (let i = n - 1; i >= 0; i--) {
     let sr = rhsRe[i],
       si = rhsIm[i];
@@ -788,8 +807,16 @@ function newtonPass(w: Work, o: number, inv: number, factor: boolean): number {
     cIm[o + i] += xi;
     yRe[i] += xr;
     yIm[i] += xi;
-    largest = Math.max(largest, xr * xr + xi * xi);
+    const d2 = xr * xr + xi * xi;
+    largest = Math.max(largest, d2);
+    if (factor) {
+      // the residual left is δ² exactly (the equation is quadratic in y): its correction is about δ²/(2y + p)
+      const gr = 2 * yRe[i] + pRe[i],
+        gi = 2 * yIm[i] + pIm[i];
+      ahead = Math.max(ahead, d2 / Math.sqrt(gr * gr + gi * gi));
+    }
   }
+  if (factor) newtonAhead = ahead;
   return Number.isFinite(largest) ? largest : Number.NaN;
 }
 
