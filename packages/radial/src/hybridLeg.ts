@@ -26,6 +26,7 @@ import {
   MAX_PASSES_LONG_RANGE,
   RICCATI_NODES,
   localRiccati,
+  localRiccatiReal,
   phaseRate,
   type RiccatiEquation,
   riccatiEquation,
@@ -123,6 +124,58 @@ export const FAST_RATE = 10;
  * those modes' first far rungs: 11.5 against 8 µs), for no gain over all.
  */
 const FAR_RUNG = 6;
+/**
+ * A massive far zone of three or more rungs of FAR_RUNG may take one fewer:
+ * its first rungs of FAR_RUNG each (near the turning points as before), and
+ * the rest in one last rung of up to this ratio, where that rung is still
+ * resolved (farNodes). Far out, the nearest singularity of Y in u = ln x is
+ * the Coulomb-like turning point on the negative axis (r ≈ −2M(2ω² − μ²)/k∞²,
+ * 500–10,000 M near threshold), π off the real axis above ln|x| of it, and a
+ * rung to one side of it sits in a larger Bernstein ellipse than FAR_RUNG
+ * assumes (the singularity π straight above the rung's middle). A rung of
+ * such a plan that fails is halved whatever its phase. Measured on the worst
+ * mode of bench/massive-cpu.bench.mjs (a = 0.313, l = 3, m = 3, Mω = 0.8038,
+ * v = 0.022), far zone r from 80 to 5,297: three rungs at 16 nodes 18.4 µs,
+ * a rung of 6 and one of 11.3 at 20 nodes 15.5 µs (16 nodes do not resolve
+ * it); on the 70 modes of that bench its worst ratio 1.94 → 1.84. On 300
+ * other random near-threshold modes (l ≤ 4, v ∈ [0.02, 0.5]) 12 took fewer
+ * evaluations, 4 more (the worst +17 %: a first rung of 6 failed and was
+ * halved).
+ */
+const LONG_FAR_RUNG = 12;
+/** Nodes of a last far rung that RICCATI_NODES do not resolve (a step costs ~1.4 times one at 16, measured 5.1 against 3.6 µs on a rung of 8: still less than the two it replaces). */
+const FAR_NODES = 20;
+/** Half-length in ln x of a rung of ratio FAR_RUNG. */
+const FAR_HALF = 0.5 * Math.log(FAR_RUNG);
+/** Bernstein ρ of a rung of FAR_RUNG with the singularity π straight above its middle: what RICCATI_NODES were measured to resolve. */
+const RHO_RESOLVED = Math.PI / FAR_HALF + Math.sqrt(1 + (Math.PI / FAR_HALF) ** 2);
+
+/** ρ of the Bernstein ellipse (foci ±1) through z = re + i im: |z ± √(z² − 1)|, the larger. */
+function bernstein(re: number, im: number): number {
+  const ar = re * re - im * im - 1,
+    ai = 2 * re * im;
+  const mod = Math.sqrt(Math.sqrt(ar * ar + ai * ai));
+  const arg = 0.5 * Math.atan2(ai, ar);
+  const wr = mod * Math.cos(arg),
+    wi = mod * Math.sin(arg);
+  return Math.max(Math.hypot(re + wr, im + wi), Math.hypot(re - wr, im - wi));
+}
+
+/**
+ * Nodes of a rung [ua, ub] (in u = ln x) of a massive far zone whose
+ * singularities lie at u = U + iπ for U in `singular` (ln|x| of each):
+ * RICCATI_NODES where the rung's ellipse through the nearest is at least
+ * RHO_RESOLVED, FAR_NODES where it is at least RHO_RESOLVED^(16/20) (the
+ * same ρⁿ), 0 where neither.
+ */
+function farNodes(ua: number, ub: number, singular: readonly number[]): number {
+  const h = 0.5 * (ub - ua),
+    mid = 0.5 * (ua + ub);
+  let rho = Number.POSITIVE_INFINITY;
+  for (const U of singular) rho = Math.min(rho, bernstein((U - mid) / h, Math.PI / h));
+  if (rho >= RHO_RESOLVED) return RICCATI_NODES;
+  return rho ** FAR_NODES >= RHO_RESOLVED ** RICCATI_NODES ? FAR_NODES : 0;
+}
 
 /**
  * Least phase (radians) of a massless leg without Riccati rungs that is
@@ -166,7 +219,8 @@ export function riccatiWorthIt(
   let phase = 0,
     prev = 0;
   for (let j = 0; j < K; j++) {
-    localRiccati(e, j === K - 1 ? xb : Math.exp(ua + j * du), probe, false, mirror);
+    const x = j === K - 1 ? xb : Math.exp(ua + j * du);
+    if (!(mirror && e.real === true && localRiccatiReal(e, x, probe))) localRiccati(e, x, probe, false, mirror);
     if (!(probe[LOCAL.RATIO] < ratioLimit)) return false;
     const W = Math.sqrt(probe[LOCAL.W] ** 2 + probe[LOCAL.W + 1] ** 2);
     if (j > 0) phase += 0.25 * (W + prev) * du;
@@ -309,6 +363,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   // A massive field's far zone: short fast rungs and more passes pay off (MIN_PHASE_LONG_RANGE, MAX_PASSES_LONG_RANGE);
   // massless legs keep MIN_PHASE and MAX_PASSES, bit for bit.
   const longRange = fieldMassOf(leg.mode) > 0;
+  if (longRange) e.real = e.bIm.every((c) => c === 0) && e.cIm.every((c) => c === 0);
   const maxPasses = longRange ? MAX_PASSES_LONG_RANGE : MAX_PASSES;
   const accept = longRange ? ACCEPT_LONG_RANGE : ACCEPT;
   const ladder: Point[] = [{ x: leg.fromOffset ?? leg.from - rPlus, r: leg.from }];
@@ -334,6 +389,16 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
         ? MIN_PHASE
         : MASSLESS_MIN_PHASE;
   const ratioLimit = longRange ? WKB_LIMIT : MASSLESS_WKB_LIMIT;
+  // a massive far zone's singularities in u = ln x (at u = U + iπ): the Coulomb-like turning point (see
+  // LONG_FAR_RUNG) and the inner horizon
+  const singular: number[] = [];
+  if (longRange) {
+    const { omega } = leg.mode,
+      mu = fieldMassOf(leg.mode),
+      M = hole.mass;
+    singular.push(Math.log((2 * M * (2 * omega * omega - mu * mu)) / ((omega - mu) * (omega + mu)) + rPlus));
+    if (rPlus > hole.rMinus) singular.push(Math.log(rPlus - hole.rMinus));
+  }
   // A massive far zone past its first Riccati rung, where the rate keeps growing, takes no probes: its rungs are
   // recut below and a recut step that fails is halved as any other (the same steps on the 70 modes of
   // bench/massive-cpu.bench.mjs; 3–6 % less CPU time on its two worst modes).
@@ -417,18 +482,29 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   };
   // One rung by a Riccati step; a rung that fails is halved (in ln x) up to MAX_SPLITS times before the
   // integrator takes it: near a turning point the branch point of W limits the resolution of a whole rung.
-  const byRiccati = (from: Point, to: Point, rateFrom: number, rateTo: number, depth: number): void => {
-    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, RICCATI_NODES, maxPasses, accept, longRange, longRange);
+  // (`nodes`: the step's node count; `long`: a rung of a far zone cut with LONG_FAR_RUNG)
+  const byRiccati = (
+    from: Point,
+    to: Point,
+    rateFrom: number,
+    rateTo: number,
+    depth: number,
+    nodes = RICCATI_NODES,
+    long = false,
+  ): void => {
+    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, nodes, maxPasses, accept, longRange, longRange);
     // counted as right-hand-side evaluations: the coefficients at every node, and one collocation pass per node and pass
     leg.counter.evaluations += step.evaluations * (1 + step.passes);
     if (!step.ok) {
       const xm = Math.sqrt(from.x * to.x);
       const mid = { x: xm, r: rPlus + xm };
       const rateMid = phaseRate(e, xm);
+      // (a rung of a far zone cut with LONG_FAR_RUNG is halved whatever its phase)
       if (
-        depth < MAX_SPLITS &&
-        rungPhase(from, mid, rateFrom, rateMid) > 0.5 * (longRange ? MIN_PHASE : MASSLESS_MIN_PHASE) &&
-        rungPhase(mid, to, rateMid, rateTo) > 0.5 * (longRange ? MIN_PHASE : MASSLESS_MIN_PHASE)
+        long ||
+        (depth < MAX_SPLITS &&
+          rungPhase(from, mid, rateFrom, rateMid) > 0.5 * (longRange ? MIN_PHASE : MASSLESS_MIN_PHASE) &&
+          rungPhase(mid, to, rateMid, rateTo) > 0.5 * (longRange ? MIN_PHASE : MASSLESS_MIN_PHASE))
       ) {
         byRiccati(from, mid, rateFrom, rateMid, depth + 1);
         byRiccati(mid, to, rateMid, rateTo, depth + 1);
@@ -462,17 +538,24 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       continue;
     }
     if (longRange) {
-      // a massive far zone: the run of Riccati rungs up to the next stop, recut into rungs of up to FAR_RUNG
+      // a massive far zone: the run of Riccati rungs up to the next stop, recut into rungs of up to FAR_RUNG (or LONG_FAR_RUNG)
       let j = i + 1;
       while (j < good.length && good[j] && !leg.stops.includes(ladder[j].r)) j++;
-      const count = Math.ceil(Math.log(ladder[j].x / ladder[i].x) / Math.log(FAR_RUNG) - 1e-9);
+      const ua = Math.log(ladder[i].x),
+        ub = Math.log(ladder[j].x);
+      let count = Math.ceil((ub - ua) / Math.log(FAR_RUNG) - 1e-9);
+      // one rung fewer (see LONG_FAR_RUNG): count − 2 rungs of FAR_RUNG, then one long rung, if resolved
+      const longFrom = ua + (count - 2) * Math.log(FAR_RUNG);
+      const longNodes = count > 2 && ub - longFrom <= Math.log(LONG_FAR_RUNG) ? farNodes(longFrom, ub, singular) : 0;
+      if (longNodes > 0) count--;
       let from = ladder[i],
         rateFrom = rates[i];
       for (let c = 1; c <= count; c++) {
-        const xc = ladder[i].x * (ladder[j].x / ladder[i].x) ** (c / count);
+        const xc = longNodes > 0 ? ladder[i].x * FAR_RUNG ** c : ladder[i].x * (ladder[j].x / ladder[i].x) ** (c / count);
         const to = c === count ? ladder[j] : { x: xc, r: rPlus + xc };
         const rateTo = c === count ? rates[j] : phaseRate(e, to.x);
-        byRiccati(from, to, rateFrom, rateTo, 0);
+        const nodes = longNodes > 0 && c === count ? longNodes : RICCATI_NODES;
+        byRiccati(from, to, rateFrom, rateTo, 0, nodes, longNodes > 0);
         from = to;
         rateFrom = rateTo;
       }

@@ -39,6 +39,8 @@ export interface RiccatiEquation {
   cRe: Float64Array;
   /** imaginary parts of C */
   cIm: Float64Array;
+  /** B and C real (bIm, cIm all zero: s = 0 at real ω), where `localRiccatiReal` applies; false or absent means not known to be */
+  real?: boolean;
 }
 
 /**
@@ -62,6 +64,17 @@ export const MAX_PASSES = 10;
 export const MAX_PASSES_LONG_RANGE = 16;
 /** A solution is accepted once the last correction moves ∫y and y by less than this share of the tolerance. */
 export const ACCEPT = 0.3;
+/**
+ * Share of the tolerance below which the last correction (or the next one
+ * predicted from the contraction) ends the refinement of a solution in the
+ * far zone of a massive field (0.01 elsewhere). Such a step is charged
+ * RICCATI_STEP_CHARGE (10) tol whatever its own error (hybridLeg.ts), so
+ * refining to 0.01 tol bought nothing the estimate shows: measured on the 70
+ * modes of bench/massive-cpu.bench.mjs, 0.3 takes one or two passes fewer
+ * on the middle rungs of the far zone (e.g. 8 → 6, 11 → 9), Γ moved by at
+ * most 1.4e-3 of its error estimate.
+ */
+const DONE_LONG_RANGE = 0.3;
 /**
  * ACCEPT in the far zone of a massive field, where the corrections can stall
  * a little above it (|W| of 20–50): the step is accepted up to this share of
@@ -118,6 +131,8 @@ export function riccatiEquation(eq: RadialEquation, rPlus: number): RiccatiEquat
     bIm: take(eq.B.im, 5),
     cRe: take(eq.C.re, 5),
     cIm: take(eq.C.im, 5),
+    // set by the one caller that uses it (a massive far zone, hybridLeg.ts): no check on massless legs
+    real: false,
   };
 }
 
@@ -298,6 +313,96 @@ export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, f
   out[LOCAL.RATIO] = ratio;
 }
 
+/**
+ * `localRiccati` with `mirror` where B and C are real (`e.real`) and the
+ * solutions oscillate (Z = P² − 4Q < 0, so W = ±i√−Z): every term the
+ * general code multiplies by a zero imaginary (or real) part is left out,
+ * and the σ = −1 iterate is the conjugate of the σ = +1 one. The same
+ * doubles up to the sign of zeros and the last bit of W (√−Z for √(|Z|−Z)/2)
+ * at about half the cost (the coefficients of a massive field's far zone,
+ * 16 per Riccati step). Returns false, `out` untouched, where Z ≥ 0.
+ */
+export function localRiccatiReal(e: RiccatiEquation, x: number, out: Float64Array, flip = false): boolean {
+  const j = scratch;
+  jet(e.delta, x, j, 0);
+  const a0 = j[0] * j[0],
+    a1 = 2 * j[0] * j[1],
+    a2 = 2 * j[1] * j[1] + 2 * j[0] * j[2];
+  jet(e.bRe, x, j, 3);
+  const pr = j[3] / a0;
+  const pr1 = (j[4] - pr * a1) / a0;
+  const pr2 = (j[5] - 2 * pr1 * a1 - pr * a2) / a0;
+  jet(e.cRe, x, j, 6);
+  const qr = j[6] / a0;
+  const qr1 = (j[7] - qr * a1) / a0;
+  const qr2 = (j[8] - 2 * qr1 * a1 - qr * a2) / a0;
+  const x2 = x * x,
+    x3 = x2 * x,
+    x4 = x3 * x;
+  const Pr = x * pr - 1;
+  const Pr1 = x * pr + x2 * pr1;
+  const Pr2 = x * pr + 3 * x2 * pr1 + x3 * pr2;
+  const Qr = x2 * qr;
+  const Qr1 = 2 * x2 * qr + x3 * qr1;
+  const Qr2 = 4 * x2 * qr + 5 * x3 * qr1 + x4 * qr2;
+  const Zr = Pr * Pr - 4 * Qr;
+  if (!(Zr < 0)) return false;
+  const Zr1 = 2 * (Pr * Pr1) - 4 * Qr1;
+  const Zr2 = 2 * (Pr1 * Pr1 + Pr * Pr2) - 4 * Qr2;
+  // W = i Wi, W' = i W1i, W'' = i W2i
+  const Wi = flip ? -Math.sqrt(-Zr) : Math.sqrt(-Zr);
+  const ww = Wi * Wi;
+  const hi = (-0.5 * Wi) / ww;
+  const W1i = Zr1 * hi;
+  const W2i = (Zr2 + 2 * (W1i * W1i)) * hi;
+  out[0] = Pr;
+  out[1] = 0;
+  out[2] = Qr;
+  out[3] = 0;
+  out[4] = 0;
+  out[5] = Wi;
+  // σ = +1: g = i Wi, Y₀ = (g − P)/2 and its derivatives
+  const y0r = -0.5 * Pr,
+    y0i = 0.5 * Wi;
+  const y01r = -0.5 * Pr1,
+    y01i = 0.5 * W1i;
+  const y02r = -0.5 * Pr2,
+    y02i = 0.5 * W2i;
+  // 1/g = −i/Wi
+  const igi = -Wi / ww;
+  // δ₁ = −Y₀'/g
+  const d1r = y01i * igi,
+    d1i = -(y01r * igi);
+  // δ₁' = (Y₀' g' − Y₀'' g)/g², 1/g² = −1/Wi²
+  const nr = y02i * Wi - y01i * W1i,
+    ni = y01r * W1i - y02r * Wi;
+  const ig2r = -(igi * igi);
+  const d11r = nr * ig2r,
+    d11i = ni * ig2r;
+  // δ₂ = −(δ₁' + δ₁²)/(g + 2δ₁)
+  const rr = d11r + d1r * d1r - d1i * d1i,
+    ri = d11i + 2 * d1r * d1i;
+  const er = 2 * d1r,
+    ei = Wi + 2 * d1i;
+  const ee = er * er + ei * ei;
+  const cr = -(rr * er + ri * ei) / ee,
+    ci = -(ri * er - rr * ei) / ee;
+  out[6] = y0r + d1r;
+  out[7] = y0i + d1i;
+  out[8] = y01r + d11r;
+  out[9] = y01i + d11i;
+  out[10] = cr;
+  out[11] = ci;
+  out[12] = out[6];
+  out[13] = -out[7];
+  out[14] = out[8];
+  out[15] = -out[9];
+  out[16] = cr;
+  out[17] = -ci;
+  out[LOCAL.RATIO] = Math.sqrt(y01r * y01r + y01i * y01i) / ww;
+  return true;
+}
+
 function horner(c: Float64Array, x: number): number {
   let v = 0;
   for (let k = c.length - 1; k >= 0; k--) v = v * x + c[k];
@@ -468,10 +573,21 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
     if (newton && passes === 1 && largest > FIRST_LIMIT * yScale) return -passes;
     // Done when this correction, or the next one predicted from the contraction so far, is below the target.
     const next = passes > 1 ? (size * largest) / previous : size;
-    if (size < 0.01 * tol || (next < 0.01 * tol && largest < 0.1 * previous)) {
+    const done = newton ? DONE_LONG_RANGE * tol : 0.01 * tol;
+    if (size < done || (next < done && largest < 0.1 * previous)) {
       converged = true;
       remaining = Math.min(size, next);
       break;
+    }
+    // After the first Newton pass the next correction is forecast from δ² (newtonPass): when NEWTON_MARGIN times
+    // it is below the target, the chord pass that would only confirm it is not taken.
+    if (newtonPasses && passes === firstNewton) {
+      const forecast = NEWTON_MARGIN * Math.max(2 * half * newtonAhead - floor, newtonAhead / yScale);
+      if (forecast < done) {
+        converged = true;
+        remaining = forecast;
+        break;
+      }
     }
     // Not contracting any more: the rounding floor of the collocation derivative (accepted when below tol) or a turning point.
     if (passes > 1 && largest > 0.5 * previous && passes !== firstNewton) {
@@ -554,6 +670,19 @@ const NEWTON_AFTER = 4;
  * |W| ≈ 10–16 on the rung's start) had 3.7e-4 to 2.2e-3.
  */
 const FIRST_LIMIT = 4e-4;
+/**
+ * Margin on the forecast of the correction after a first Newton pass
+ * (δ²/(2y + p) at every node, which leaves out the collocation derivative's
+ * share of the Jacobian): measured on far rungs of the worst modes of
+ * bench/massive-cpu.bench.mjs, the confirming pass's correction was 0.8–0.9
+ * of the bare forecast wherever it stood above the rounding floor. Skipping
+ * that pass took the 70 modes' worst massive/massless CPU ratio from 1.84 to
+ * 1.80 (a = 0.752, l = 3, m = 1, Mω = 0.361, v = 0.042: 1.81 → 1.79 with two
+ * Newton steps; a = 0.025, l = 4, m = 3: 1.82 → 1.78).
+ */
+const NEWTON_MARGIN = 10;
+/** What the last factoring Newton pass forecasts for the next correction: max |δ|²/|2y + p| over the nodes. */
+let newtonAhead = 0;
 /** Most nodes a Newton pass takes (the size of its work arrays). */
 const NEWTON_MAX_NODES = 64;
 const newtonRe = new Float64Array(NEWTON_MAX_NODES * NEWTON_MAX_NODES),
@@ -661,7 +790,8 @@ function newtonPass(w: Work, o: number, inv: number, factor: boolean): number {
     }
   }
   // back: the upper factor
-  let largest = 0;
+  let largest = 0,
+    ahead = 0;
   for (let i = n - 1; i >= 0; i--) {
     let sr = rhsRe[i],
       si = rhsIm[i];
@@ -682,8 +812,16 @@ function newtonPass(w: Work, o: number, inv: number, factor: boolean): number {
     cIm[o + i] += xi;
     yRe[i] += xr;
     yIm[i] += xi;
-    largest = Math.max(largest, xr * xr + xi * xi);
+    const d2 = xr * xr + xi * xi;
+    largest = Math.max(largest, d2);
+    if (factor) {
+      // the residual left is δ² exactly (the equation is quadratic in y): its correction is about δ²/(2y + p)
+      const gr = 2 * yRe[i] + pRe[i],
+        gi = 2 * yIm[i] + pIm[i];
+      ahead = Math.max(ahead, d2 / Math.sqrt(gr * gr + gi * gi));
+    }
   }
+  if (factor) newtonAhead = ahead;
   return Number.isFinite(largest) ? largest : Number.NaN;
 }
 
@@ -778,13 +916,16 @@ export function riccatiStep(
   const mid = 0.5 * (ua + ub),
     half = 0.5 * (ub - ua);
   const l = w.local;
+  // a massive field's far zone with real coefficients: the cheaper form where it applies (the same doubles, see localRiccatiReal)
+  const real = mirror && e.real === true;
   let prevWr = 0,
     prevWi = 0;
   for (let j = 0; j < n; j++) {
     const xj = j === 0 ? xb : j === n - 1 ? xa : Math.exp(mid + half * rule.t[j]);
-    localRiccati(e, xj, l, false, mirror);
+    if (!(real && localRiccatiReal(e, xj, l))) localRiccati(e, xj, l, false, mirror);
     // one continuous branch of W along the interval
-    if (j > 0 && l[4] * prevWr + l[5] * prevWi < 0) localRiccati(e, xj, l, true, mirror);
+    if (j > 0 && l[4] * prevWr + l[5] * prevWi < 0)
+      if (!(real && localRiccatiReal(e, xj, l, true))) localRiccati(e, xj, l, true, mirror);
     prevWr = l[4];
     prevWi = l[5];
     w.pRe[j] = l[0];
