@@ -1,7 +1,16 @@
 /** Where the integration starts: the horizon series summed close enough to r+ to converge without cancelling digits. */
 import type { KerrHole } from '@penumbra/kerr';
 import type { RadialEquation, RadialMode } from './equation.js';
-import { horizonSeriesStart, type HorizonStart } from './horizonSeries.js';
+import { factorsThroat, horizonSeriesStart, type HorizonStart } from './horizonSeries.js';
+
+/**
+ * Start fraction where the horizon series carries the throat factor
+ * (factorsThroat): the factored terms decay from the first, so the series is
+ * summed out to most of its radius whatever ω (measured at a = 0.99999,
+ * m = −l, Mω = 3–30 and a = 0.9999, l = 20, Mω = 1: at most 30 terms and
+ * truncation with cancellation 1e-16 at 0.75 (r+ − r−)).
+ */
+const THROAT_FRACTION = 0.5;
 
 /** Truncation (cancellation included) accepted before the start point is moved inward. */
 const START_TRUNCATION = 1e-13;
@@ -65,7 +74,7 @@ export function startAtHorizon(
   tol?: number,
 ): HorizonStart {
   const b = hole.rPlus - hole.rMinus;
-  let x0 = (startFraction ?? defaultStartFraction(hole, mode.omega, tol)) * b;
+  let x0 = (startFraction ?? (factorsThroat(hole, mode) ? THROAT_FRACTION : defaultStartFraction(hole, mode.omega, tol))) * b;
   const accepted = tol !== undefined && tol < NEAR_ROUNDING_TOL ? START_TRUNCATION : START_TRUNCATION_WIDE;
   if (startFraction === undefined && innerStop > hole.rPlus) x0 = Math.min(x0, 0.5 * (innerStop - hole.rPlus));
   for (;;) {
