@@ -6,9 +6,12 @@ import { factorsThroat, horizonSeriesStart, type HorizonStart } from './horizonS
 /**
  * Start fraction where the horizon series carries the throat factor
  * (factorsThroat): the factored terms decay from the first, so the series is
- * summed out to most of its radius whatever ω (measured at a = 0.99999,
- * m = −l, Mω = 3–30 and a = 0.9999, l = 20, Mω = 1: at most 30 terms and
- * truncation with cancellation 1e-16 at 0.75 (r+ − r−)).
+ * summed out to half its radius whatever ω (at a = 0.99999, m = −l, Mω = 3–30
+ * and a = 0.9999, l = 20, Mω = 1: at most 30 terms and truncation with
+ * cancellation 1e-16 even at 0.75 (r+ − r−)). Right-hand-side evaluations at
+ * tol 1e-8 over the 456 factored modes with a = 0.999–0.99999, l ≤ 6,
+ * m = −l, 0, l, Mω = 0.3–30: 788,900 at 0.33, 692,850 at 0.5, 736,100 at 0.6,
+ * 731,401 at 0.75.
  */
 const THROAT_FRACTION = 0.5;
 
