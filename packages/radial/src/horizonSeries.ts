@@ -14,8 +14,8 @@
  * (x/(x + b))^{i Im ν} of the near-horizon throat, and the e_n no longer swell
  * like |ν|^n/n! before decaying (measured at s = −2, m = −2, a = 0.99999, Mω = 3,
  * |ν| ≈ 900: 23 terms and no cancellation at x = 0.75 b, where the plain series
- * overflows; it needed x ≤ 0.0026 b). Leaver's series (Proc. R. Soc. A 402, 285
- * (1985)) factors the two horizons the same way.
+ * overflows; it needed x ≤ 0.0026 b). Leaver's series for Kerr (Proc. R. Soc.
+ * Lond. A 402, 285 (1985), from memory) factors the two horizons the same way.
  */
 import type { KerrHole } from '@penumbra/kerr';
 import { ConvergenceError } from '@penumbra/core';
