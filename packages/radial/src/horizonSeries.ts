@@ -7,6 +7,15 @@
  * normalised so that R → Δ^{−s} e^{−ikr*} with the tortoise constant of
  * @penumbra/kerr. The series converges for x < r+ − r− (the next singular
  * point is r−); we sum it at a fraction of that radius.
+ *
+ * Where |Im ν| is large (near extremality) the sum is written as
+ * R = x^ν (1 + x/b)^β Σ e_n x^n, b = r+ − r−, with β the indicial exponent at r−
+ * whose imaginary part is nearest −Im ν: x^ν (1 + x/b)^β carries the fast phase
+ * (x/(x + b))^{i Im ν} of the near-horizon throat, and the e_n no longer swell
+ * like |ν|^n/n! before decaying (measured at s = −2, m = −2, a = 0.99999, Mω = 3,
+ * |ν| ≈ 900: 23 terms and no cancellation at x = 0.75 b, where the plain series
+ * overflows; it needed x ≤ 0.0026 b). Leaver's series for Kerr (Proc. R. Soc.
+ * Lond. A 402, 285 (1985), from memory) factors the two horizons the same way.
  */
 import type { KerrHole } from '@penumbra/kerr';
 import { ConvergenceError } from '@penumbra/core';
@@ -29,6 +38,29 @@ export interface HorizonStart {
 }
 
 const MAX_TERMS = 600;
+
+/**
+ * |Im ν| above which the series is factored by (1 + x/b)^β (see the header);
+ * below it the plain series is summed as before (common practice, no source:
+ * there its coefficients swell less than the default start fraction allows).
+ */
+const FACTOR_NU = 40;
+
+/** Whether the horizon series of this mode is summed with the throat factor (1 + x/b)^β (see the header). */
+export function factorsThroat(hole: KerrHole, mode: RadialMode): boolean {
+  return Math.abs((horizonWavenumber(hole, mode) * 2 * hole.mass * hole.rPlus) / (hole.rPlus - hole.rMinus)) > FACTOR_NU;
+}
+
+/** Quotient of the real polynomial q (coefficients q[0..]) by (x + b), padded to `length`. */
+function quotientByXPlusB(q: ArrayLike<number>, n: number, b: number, length: number): Float64Array {
+  const out = new Float64Array(length);
+  let r = 0;
+  for (let j = n - 1; j >= 1; j--) {
+    r = q[j] - b * r;
+    if (j - 1 < length) out[j - 1] = r;
+  }
+  return out;
+}
 
 /** k = ω − mΩ_H */
 export function horizonWavenumber(hole: KerrHole, mode: RadialMode): number {
@@ -76,19 +108,68 @@ export function horizonSeriesStart(
   const A2 = at(eq.A.re, 2),
     A3 = at(eq.A.re, 3),
     A4 = at(eq.A.re, 4);
-  const B1 = at(eq.B.re, 1),
-    B2 = at(eq.B.re, 2),
+  const B1 = at(eq.B.re, 1);
+  let B2 = at(eq.B.re, 2),
     B3 = at(eq.B.re, 3);
   const C0r = at(eq.C.re, 0),
-    C1r = at(eq.C.re, 1),
-    C2r = at(eq.C.re, 2),
     C3r = at(eq.C.re, 3),
     C4r = at(eq.C.re, 4);
+  let C1r = at(eq.C.re, 1),
+    C2r = at(eq.C.re, 2);
   const C0i = at(eq.C.im, 0),
-    C1i = at(eq.C.im, 1),
-    C2i = at(eq.C.im, 2),
     C3i = at(eq.C.im, 3),
     C4i = at(eq.C.im, 4);
+  let C1i = at(eq.C.im, 1),
+    C2i = at(eq.C.im, 2);
+  // imaginary parts of B's coefficients (nonzero only in the factored series)
+  let B2i = 0,
+    B3i = 0;
+  // the exponent β of the factor (1 + x/b)^β (0: the plain series)
+  let betaRe = 0,
+    betaIm = 0;
+  if (factorsThroat(hole, mode)) {
+    // indicial equation at x = −b (Δ² ≈ b² y², (s+1)ΔΔ' ≈ (s+1) b² y, y = x + b):
+    // μ² + s μ + U(−b)/b² = 0, U the coefficient C read at x = −b
+    let uRe = 0,
+      uIm = 0;
+    for (let j = Math.max(eq.C.re.length, eq.C.im.length) - 1; j >= 0; j--) {
+      uRe = uRe * -b + at(eq.C.re, j);
+      uIm = uIm * -b + at(eq.C.im, j);
+    }
+    const a2m = A2 - 3 * b * A3 + 6 * b * b * A4;
+    const b1m = B1 - 2 * b * B2 + 3 * b * b * B3;
+    // a2m μ² + (b1m − a2m) μ + U(−b) = 0
+    const pRe = (b1m - a2m) / a2m;
+    const qRe = uRe / a2m,
+      qIm = uIm / a2m;
+    // discriminant p² − 4q and its square root
+    const dRe = pRe * pRe - 4 * qRe,
+      dIm = -4 * qIm;
+    const dAbs = Math.hypot(dRe, dIm);
+    const sqRe = Math.sqrt(0.5 * (dAbs + dRe));
+    const sqIm = (dIm < 0 ? -1 : 1) * Math.sqrt(0.5 * (dAbs - dRe));
+    // the root whose imaginary part is nearest −Im ν
+    const sign = Math.abs(0.5 * sqIm + nuIm) < Math.abs(0.5 * sqIm - nuIm) ? 1 : -1;
+    betaRe = 0.5 * (-pRe + sign * sqRe);
+    betaIm = 0.5 * sign * sqIm;
+    // R = (1 + x/b)^β G: G solves A G'' + B̃ G' + C̃ G = 0 with
+    // B̃ = B + 2β A/(x+b), C̃ = C + β B/(x+b) + β(β−1) A/(x+b)² (A has the factor (x+b)², B the factor (x+b))
+    const aQ = quotientByXPlusB([0, 0, A2, A3, A4], 5, b, 4);
+    const aQQ = quotientByXPlusB(aQ, 4, b, 3);
+    const bQ = quotientByXPlusB([0, B1, B2, B3], 4, b, 3);
+    const bbRe = betaRe * (betaRe - 1) - betaIm * betaIm,
+      bbIm = betaIm * (2 * betaRe - 1);
+    // B̃: the x² and x³ coefficients change (A/(x+b) starts at x²)
+    B2 += 2 * betaRe * aQ[2];
+    B2i = 2 * betaIm * aQ[2];
+    B3 += 2 * betaRe * aQ[3];
+    B3i = 2 * betaIm * aQ[3];
+    // C̃: the x¹ and x² coefficients change (B/(x+b) starts at x¹, A/(x+b)² at x²)
+    C1r += betaRe * bQ[1];
+    C1i += betaIm * bQ[1];
+    C2r += betaRe * bQ[2] + bbRe * aQQ[2];
+    C2i += betaIm * bQ[2] + bbIm * aQQ[2];
+  }
 
   // d_0: |d_0| = b^{−s}; phase from the additive constant of r*.
   const phaseConst = rPlus - cPlus * Math.log(2 * M) - cMinus * Math.log(b / (2 * M));
@@ -125,8 +206,8 @@ export function horizonSeriesStart(
       // μ(μ−1) = (mr + i mi)(mr − 1 + i mi)
       const pr = mr * (mr - 1) - mi * mi;
       const pi = mr * mi + mi * (mr - 1);
-      const cr = A3 * pr + B2 * mr + C1r;
-      const ci = A3 * pi + B2 * mi + C1i;
+      const cr = A3 * pr + B2 * mr - B2i * mi + C1r;
+      const ci = A3 * pi + B2 * mi + B2i * mr + C1i;
       numRe += cr * d1Re - ci * d1Im;
       numIm += cr * d1Im + ci * d1Re;
     }
@@ -135,8 +216,8 @@ export function horizonSeriesStart(
         mi = nuIm;
       const pr = mr * (mr - 1) - mi * mi;
       const pi = mr * mi + mi * (mr - 1);
-      const cr = A4 * pr + B3 * mr + C2r;
-      const ci = A4 * pi + B3 * mi + C2i;
+      const cr = A4 * pr + B3 * mr - B3i * mi + C2r;
+      const ci = A4 * pi + B3 * mi + B3i * mr + C2i;
       numRe += cr * d2Re - ci * d2Im;
       numIm += cr * d2Im + ci * d2Re;
     }
@@ -206,8 +287,24 @@ export function horizonSeriesStart(
   const lx = Math.log(x0);
   const mag = Math.exp(nuRe * lx);
   const ph = nuIm * lx;
-  const xnRe = mag * Math.cos(ph),
+  let xnRe = mag * Math.cos(ph),
     xnIm = mag * Math.sin(ph);
+  if (betaRe !== 0 || betaIm !== 0) {
+    // the factor (1 + x0/b)^β, and R'/R gains β/(b + x0): T += x0 β/(b + x0) S
+    const lb = Math.log1p(x0 / b);
+    const fm = Math.exp(betaRe * lb),
+      fp = betaIm * lb;
+    const fRe = fm * Math.cos(fp),
+      fIm = fm * Math.sin(fp);
+    const xr = xnRe * fRe - xnIm * fIm;
+    xnIm = xnRe * fIm + xnIm * fRe;
+    xnRe = xr;
+    const w = x0 / (b + x0);
+    const gRe = w * (betaRe * sRe - betaIm * sIm),
+      gIm = w * (betaRe * sIm + betaIm * sRe);
+    tRe += gRe;
+    tIm += gIm;
+  }
   const R: [number, number] = [xnRe * sRe - xnIm * sIm, xnRe * sIm + xnIm * sRe];
   const dR: [number, number] = [(xnRe * tRe - xnIm * tIm) / x0, (xnRe * tIm + xnIm * tRe) / x0];
   // Cancellation among terms costs accuracy: report it through truncation.

@@ -1,7 +1,20 @@
 /** Where the integration starts: the horizon series summed close enough to r+ to converge without cancelling digits. */
 import type { KerrHole } from '@penumbra/kerr';
 import type { RadialEquation, RadialMode } from './equation.js';
-import { horizonSeriesStart, type HorizonStart } from './horizonSeries.js';
+import { factorsThroat, horizonSeriesStart, type HorizonStart } from './horizonSeries.js';
+
+/**
+ * Start fraction where the horizon series carries the throat factor
+ * (factorsThroat): the factored terms decay from the first, so the series is
+ * summed out to half its radius whatever ω (at a = 0.99999, m = −l, Mω = 3–30
+ * and a = 0.9999, l = 20, Mω = 1: at most 30 terms and truncation with
+ * cancellation 1e-16 even at 0.75 (r+ − r−)). Right-hand-side evaluations at
+ * tol 1e-8 summed over the factored modes with a = 0.999–0.99999, l ≤ 6,
+ * m = −l, 0, l, Mω = 0.3–30 (456 solved, 36 more refused at every fraction and
+ * by the plain series alike): 788,900 at 0.33, 692,850 at 0.5, 736,100 at 0.6,
+ * 731,401 at 0.75.
+ */
+const THROAT_FRACTION = 0.5;
 
 /** Truncation (cancellation included) accepted before the start point is moved inward. */
 const START_TRUNCATION = 1e-13;
@@ -50,6 +63,7 @@ export function defaultStartFraction(hole: KerrHole, omega: number, tol = 1e-11)
 
 /**
  * Horizon start for the ingoing solution at `startFraction` × (r+ − r−), or at
+ * THROAT_FRACTION where the series carries the throat factor, or else at
  * the default fraction halved while the series cancels digits (large |k|/κ
  * near extremality makes the terms swell before they decay), and kept inside
  * `innerStop` (the smallest radius where the caller reads the integrated
@@ -65,7 +79,7 @@ export function startAtHorizon(
   tol?: number,
 ): HorizonStart {
   const b = hole.rPlus - hole.rMinus;
-  let x0 = (startFraction ?? defaultStartFraction(hole, mode.omega, tol)) * b;
+  let x0 = (startFraction ?? (factorsThroat(hole, mode) ? THROAT_FRACTION : defaultStartFraction(hole, mode.omega, tol))) * b;
   const accepted = tol !== undefined && tol < NEAR_ROUNDING_TOL ? START_TRUNCATION : START_TRUNCATION_WIDE;
   if (startFraction === undefined && innerStop > hole.rPlus) x0 = Math.min(x0, 0.5 * (innerStop - hole.rPlus));
   for (;;) {
