@@ -44,8 +44,9 @@ const STEP_PHASE = 5;
  * rounding (8 ε e⁶ ≈ 7e-13; WIDE_STEP_TOL and above, as at tol 1e-8, where a
  * stretch runs at 3.3e-12). s = 1/2, l = 100.5, m = 50.5, a = 0.99, Mω = 1:
  * 3,459 evaluations rather than 3,613 (estimate 1.7e-10 → 2.4e-10); at 7,
- * 3,506. Below WIDE_STEP_TOL STEP_PHASE stays: at 6 the larger rounding
- * charge refused three more of the honesty bench's tol 1e-12 points.
+ * 3,506. Below WIDE_STEP_TOL STEP_PHASE stays: at 6 throughout, the
+ * honesty bench at tol 1e-12 refused one near-extremal mode more (a =
+ * 0.9999: 8 of 16 against 7) and one band point fewer (a = 0.99).
  */
 const WIDE_STEP_PHASE = 6;
 /** Least stretch tolerance at which steps aim at WIDE_STEP_PHASE. */
