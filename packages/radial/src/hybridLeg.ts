@@ -482,6 +482,12 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   };
   // One rung by a Riccati step; a rung that fails is halved (in ln x) up to MAX_SPLITS times before the
   // integrator takes it: near a turning point the branch point of W limits the resolution of a whole rung.
+  // A massless leg, once one of its rungs failed as a whole Riccati step, takes each later rung of more than twice
+  // MASSLESS_MIN_PHASE in halves at once: at large l the rungs of a leg fail alike (W varies too fast in ln x for
+  // RICCATI_NODES over a rung of 4; s = 1/2, l = 100.5, m = 50.5, a = 0.99, Mω = 1: failed steps 8 → 5,
+  // 3,837 → 3,613 evaluations), and a failed step costs about what a made one does.
+  let halveRest = false;
+  // true where the step was made whole (not halved, nor given to Taylor steps or the integrator)
   // (`nodes`: the step's node count; `long`: a rung of a far zone cut with LONG_FAR_RUNG)
   const byRiccati = (
     from: Point,
@@ -491,7 +497,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     depth: number,
     nodes = RICCATI_NODES,
     long = false,
-  ): void => {
+  ): boolean => {
     const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, nodes, maxPasses, accept, longRange, longRange);
     // counted as right-hand-side evaluations: the coefficients at every node, and one collocation pass per node and pass
     leg.counter.evaluations += step.evaluations * (1 + step.passes);
@@ -509,7 +515,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
         byRiccati(from, mid, rateFrom, rateMid, depth + 1);
         byRiccati(mid, to, rateMid, rateTo, depth + 1);
       } else if (longRange || !byTaylor(from, to)) byOde(from, to);
-      return;
+      return false;
     }
     steps++;
     riccatiSteps++;
@@ -527,6 +533,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       rescalings++;
     }
     record(to);
+    return true;
   };
   let i = 0;
   while (i < good.length) {
@@ -562,7 +569,18 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       i = j;
       continue;
     }
-    byRiccati(ladder[i], ladder[i + 1], rates[i], rates[i + 1], 0);
+    // a massless leg once a whole rung has failed: the rungs after it cut in halves first (see halveRest)
+    const halve =
+      halveRest &&
+      rungPhase(ladder[i], ladder[i + 1], rates[i], rates[i + 1]) > 2 * MASSLESS_MIN_PHASE &&
+      ladder[i + 1].x > 2 * ladder[i].x;
+    if (halve) {
+      const xm = Math.sqrt(ladder[i].x * ladder[i + 1].x);
+      const mid = { x: xm, r: rPlus + xm };
+      const rateMid = phaseRate(e, xm);
+      byRiccati(ladder[i], mid, rates[i], rateMid, 1);
+      byRiccati(mid, ladder[i + 1], rateMid, rates[i + 1], 1);
+    } else if (!byRiccati(ladder[i], ladder[i + 1], rates[i], rates[i + 1], 0)) halveRest = true;
     i++;
   }
   return { logScale, steps, errorSum, rescalings, samples, raw, riccatiSteps, riccatiExtraCharge };
