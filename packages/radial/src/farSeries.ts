@@ -421,8 +421,8 @@ const ROUNDING_SHARE = 1e3;
  * fewer evaluations); Γ moved by at most 6e-4 of its error estimate.
  */
 export function sumFarInto(series: FarSeries, r: number, target: number, out: FarSums): FarSums {
-  if (series.beta !== 0) return sumFarMassive(series, r, target, out);
   const { cRe, cIm, p } = series;
+  const massive = series.beta !== 0;
   const inv = 1 / r;
   // squared magnitudes throughout (Math.hypot was measured at a tenth of a solve's time here)
   const target2 = target * target;
@@ -437,59 +437,8 @@ export function sumFarInto(series: FarSeries, r: number, target: number, out: Fa
   let converged = false;
   let prev1 = Infinity,
     prev2 = Infinity;
-  for (let n = 0; n < series.maxTerms; n++) {
-    if (n >= cRe.length) extendFarSeries(series, n + 8);
-    const termRe = cRe[n] * pw,
-      termIm = cIm[n] * pw;
-    const mag2 = termRe * termRe + termIm * termIm;
-    // Divergence has set in after two successive increases (a single uptick
-    // can follow a coefficient that vanishes by accident).
-    if (n > 3 && mag2 > prev1 && prev1 > prev2 && mag2 > target2 * (sRe * sRe + sIm * sIm)) break;
-    prev2 = prev1;
-    prev1 = mag2;
-    sRe += termRe;
-    sIm += termIm;
-    tRe += (p - n) * termRe;
-    tIm += (p - n) * termIm;
-    terms = n + 1;
-    truncation2 = mag2 / (sRe * sRe + sIm * sIm);
-    if (truncation2 < target2) {
-      if (++small >= 3) {
-        converged = true;
-        break;
-      }
-    } else small = 0;
-    pw *= inv;
-  }
-  out.S[0] = sRe;
-  out.S[1] = sIm;
-  out.T[0] = tRe;
-  out.T[1] = tIm;
-  out.terms = terms;
-  out.truncation = Math.sqrt(truncation2);
-  out.converged = converged;
-  return out;
-}
-
-/** `sumFarInto` for a massive field's series (β ≠ 0): the climb of its first hump, and the rounding, as described there. */
-function sumFarMassive(series: FarSeries, r: number, target: number, out: FarSums): FarSums {
-  const { cRe, cIm, p } = series;
-  const inv = 1 / r;
-  // squared magnitudes throughout (Math.hypot was measured at a tenth of a solve's time here)
-  const target2 = target * target;
-  let sRe = 0,
-    sIm = 0,
-    tRe = 0,
-    tIm = 0;
-  let pw = 1;
-  let small = 0;
-  let terms = 0;
-  let truncation2 = 1;
-  let converged = false;
-  let prev1 = Infinity,
-    prev2 = Infinity;
-  // still climbing the first hump, and the sum of the moduli so far
-  let climbing = true,
+  // a massive series still climbing its first hump, and the sum of its moduli so far
+  let climbing = massive,
     moduli = 0;
   for (let n = 0; n < series.maxTerms; n++) {
     if (n >= cRe.length) extendFarSeries(series, n + 8);
@@ -503,7 +452,7 @@ function sumFarMassive(series: FarSeries, r: number, target: number, out: FarSum
     // Divergence has set in after two successive increases (a single uptick
     // can follow a coefficient that vanishes by accident).
     else if (n > 3 && mag2 > prev1 && prev1 > prev2 && mag2 > target2 * (sRe * sRe + sIm * sIm)) break;
-    moduli += Math.sqrt(mag2);
+    if (massive) moduli += Math.sqrt(mag2);
     prev2 = prev1;
     prev1 = mag2;
     sRe += termRe;
@@ -525,6 +474,11 @@ function sumFarMassive(series: FarSeries, r: number, target: number, out: FarSum
   out.T[0] = tRe;
   out.T[1] = tIm;
   out.terms = terms;
+  if (!massive) {
+    out.truncation = Math.sqrt(truncation2);
+    out.converged = converged;
+    return out;
+  }
   const rounding = (FAR_ROUNDING * Number.EPSILON * moduli) / Math.sqrt(sRe * sRe + sIm * sIm);
   out.truncation = Math.max(Math.sqrt(truncation2), rounding);
   out.converged = converged && rounding <= ROUNDING_SHARE * target;
