@@ -144,6 +144,7 @@ function step(
   target: number,
   out: Float64Array,
   leastTerms: number,
+  realB: boolean,
 ): number {
   // A = Δ² about x0
   shiftInto(e.delta, x0, dScratch, 3);
@@ -169,6 +170,23 @@ function step(
     hp *= h;
   }
   const ia0 = 1 / sa[0];
+  const a1 = sa[1],
+    a2 = sa[2],
+    a3 = sa[3],
+    a4 = sa[4];
+  const b0s = sbr[0],
+    b1s = sbr[1],
+    b2s = sbr[2],
+    b3s = sbr[3];
+  const c0r = scr[0],
+    c1r = scr[1],
+    c2r = scr[2],
+    c3r = scr[3],
+    c4r = scr[4];
+  const c0i = sci[0],
+    c1i = sci[1],
+    c2i = sci[2],
+    c3i = sci[3];
   tr[0] = y[0];
   ti[0] = y[1];
   tr[1] = y[2] * h;
@@ -181,16 +199,60 @@ function step(
   let absSum = Math.abs(tr[0]) + Math.abs(ti[0]) + Math.abs(tr[1]) + Math.abs(ti[1]);
   let absSumD = Math.abs(tr[1]) + Math.abs(ti[1]);
   let prev = Math.abs(tr[1]) + Math.abs(ti[1]);
-  let n = 0;
-  let tail = Number.NaN,
-    tailD = Number.NaN;
+  // τ_{n+1}, the term just made, kept out of the arrays (the next term waits on it)
+  let lastR = tr[1],
+    lastI = ti[1];
+  // the result and the terms summed, written once after the loop: a return of its own on the rare path where the
+  // terms do not settle was code without type feedback, and its first use deoptimised the step (measured on
+  // Node 20: at times it was not optimised again, and a term then cost 3–4 times as much)
+  let err = Number.NaN,
+    count = 2;
   const m0 = Math.sqrt(y[0] * y[0] + y[1] * y[1]),
     md0 = Math.sqrt(y[2] * y[2] + y[3] * y[3]) * h;
-  for (n = 0; n + 2 <= MAX_TERMS; n++) {
+  for (let n = 0; n + 2 <= MAX_TERMS; n++) {
     // τ_{n+2}
     let sr = 0,
       si = 0;
-    if (n >= 4) {
+    if (n >= 4 && realB) {
+      // B real of degree ≤ 3 and Im C of degree ≤ 3 (the massless equation): the sums below without the terms whose
+      // factor is an exact zero, in the general path's order (x − 0 = x: the same doubles)
+      const k0 = n + 1,
+        k1 = n,
+        k2 = n - 1,
+        k3 = n - 2,
+        k4 = n - 3,
+        k5 = n - 4;
+      const f1 = a1 * k0 * n,
+        f2 = a2 * k1 * (n - 1),
+        f3 = a3 * k2 * (n - 2),
+        f4 = a4 * k3 * (n - 3);
+      const u0r = lastR,
+        u0i = lastI,
+        u1r = tr[k1],
+        u1i = ti[k1],
+        u2r = tr[k2],
+        u2i = ti[k2],
+        u3r = tr[k3],
+        u3i = ti[k3],
+        u4r = tr[k4],
+        u4i = ti[k4];
+      sr = f1 * u0r + f2 * u1r + f3 * u2r + f4 * u3r;
+      si = f1 * u0i + f2 * u1i + f3 * u2i + f4 * u3i;
+      const b0 = b0s * k0,
+        b1 = b1s * k1,
+        b2 = b2s * k2,
+        b3 = b3s * k3;
+      sr += b0 * u0r + c0r * u1r - c0i * u1i;
+      si += b0 * u0i + c0r * u1i + c0i * u1r;
+      sr += b1 * u1r + c1r * u2r - c1i * u2i;
+      si += b1 * u1i + c1r * u2i + c1i * u2r;
+      sr += b2 * u2r + c2r * u3r - c2i * u3i;
+      si += b2 * u2i + c2r * u3i + c2i * u3r;
+      sr += b3 * u3r + c3r * u4r - c3i * u4i;
+      si += b3 * u3i + c3r * u4i + c3i * u4r;
+      sr += c4r * tr[k5];
+      si += c4r * ti[k5];
+    } else if (n >= 4) {
       // every index in range: the five-term sums written out (the bounds tests were most of a term's cost)
       const k0 = n + 1,
         k1 = n,
@@ -248,6 +310,7 @@ function step(
     const mod = Math.abs(vr) + Math.abs(vi);
     absSum += mod;
     absSumD += (n + 2) * mod;
+    count = n + 3;
     // settled: two terms below the target of both R and hR', the last at most half its predecessor, and past the
     // rise of the terms of a step of its phase (a dip of two small terms before it is not taken for the end)
     if (n + 3 >= leastTerms && mod <= 0.5 * prev) {
@@ -257,21 +320,23 @@ function step(
       const t = mod + last,
         tD = (n + 2) * mod + (n + 1) * last;
       if (t < target * scaleR && tD < target * scaleD) {
-        tail = t / scaleR;
-        tailD = tD / scaleD;
-        out[0] = n + 3;
+        const tail = t / scaleR,
+          tailD = tD / scaleD;
         const rounding = ROUNDING * Number.EPSILON * Math.max(absSum / scaleR, absSumD / scaleD);
         y[0] = Rr;
         y[1] = Ri;
         y[2] = Dr / h;
         y[3] = Di / h;
-        return Math.max(tail, tailD) + rounding;
+        err = Math.max(tail, tailD) + rounding;
+        break;
       }
     }
     prev = mod;
+    lastR = vr;
+    lastI = vi;
   }
-  out[0] = n + 2;
-  return Number.NaN;
+  out[0] = count;
+  return err;
 }
 
 const counted = new Float64Array(1);
@@ -296,6 +361,10 @@ export function taylorStretch(e: RiccatiEquation, xa: number, xb: number, y: Flo
     terms = 0,
     logScale = 0,
     rescalings = 0;
+  // the shape of the coefficients, once per stretch: B real of degree ≤ 3 and Im C of degree ≤ 3, as in every
+  // massless equation (B = (s+1)ΔΔ', Im U = −sΔ'K + 4sωrΔ); the Taylor shift about x0 keeps those zeros exact
+  const cubic = (c: Float64Array) => c.length < 5 || c[4] === 0;
+  const realB = e.bIm.every((c) => c === 0) && cubic(e.bRe) && cubic(e.cIm);
   const phase = tol >= WIDE_STEP_TOL ? WIDE_STEP_PHASE : STEP_PHASE;
   const leastTerms = minTerms(phase);
   while (x < xb) {
@@ -306,7 +375,7 @@ export function taylorStretch(e: RiccatiEquation, xa: number, xb: number, y: Flo
     let err = Number.NaN;
     for (let halvings = 0; ; halvings++) {
       trial.set(y);
-      err = step(e, x, h, trial, TARGET * tol, counted, leastTerms);
+      err = step(e, x, h, trial, TARGET * tol, counted, leastTerms, realB);
       terms += counted[0];
       if (err <= tol) break;
       if (halvings === MAX_HALVINGS) {
