@@ -187,10 +187,19 @@ function step(
     c1i = sci[1],
     c2i = sci[2],
     c3i = sci[3];
-  tr[0] = y[0];
-  ti[0] = y[1];
-  tr[1] = y[2] * h;
-  ti[1] = y[3] * h;
+  // the state over a power of two near its size (exact): the squared moduli below stay finite whatever the state's
+  // size up to OVERFLOW and the step's growth (unscaled, a step of 16 e-folds from |R| ~ 1e150 overflowed them, and
+  // the overflow was taken for a settled sum: estimate 0, true error 2e-8)
+  const size = Math.max(Math.abs(y[0]), Math.abs(y[1]), Math.abs(y[2] * h), Math.abs(y[3] * h));
+  const unit = size > 0 && size < Number.POSITIVE_INFINITY ? 2 ** Math.floor(Math.log2(size)) : 1;
+  const y0 = y[0] / unit,
+    y1 = y[1] / unit,
+    y2 = y[2] / unit,
+    y3 = y[3] / unit;
+  tr[0] = y0;
+  ti[0] = y1;
+  tr[1] = y2 * h;
+  ti[1] = y3 * h;
   let Rr = tr[0] + tr[1],
     Ri = ti[0] + ti[1];
   let Dr = tr[1],
@@ -207,8 +216,8 @@ function step(
   // Node 20: at times it was not optimised again, and a term then cost 3–4 times as much)
   let err = Number.NaN,
     count = 2;
-  const m0 = Math.sqrt(y[0] * y[0] + y[1] * y[1]),
-    md0 = Math.sqrt(y[2] * y[2] + y[3] * y[3]) * h;
+  const m0 = Math.sqrt(y0 * y0 + y1 * y1),
+    md0 = Math.sqrt(y2 * y2 + y3 * y3) * h;
   for (let n = 0; n + 2 <= MAX_TERMS; n++) {
     // τ_{n+2}
     let sr = 0,
@@ -323,10 +332,10 @@ function step(
         const tail = t / scaleR,
           tailD = tD / scaleD;
         const rounding = ROUNDING * Number.EPSILON * Math.max(absSum / scaleR, absSumD / scaleD);
-        y[0] = Rr;
-        y[1] = Ri;
-        y[2] = Dr / h;
-        y[3] = Di / h;
+        y[0] = Rr * unit;
+        y[1] = Ri * unit;
+        y[2] = (Dr / h) * unit;
+        y[3] = (Di / h) * unit;
         err = Math.max(tail, tailD) + rounding;
         break;
       }
