@@ -29,7 +29,8 @@
  * moduli: the cancellation of an oscillating series), each relative to the
  * larger modulus of R (and of R') at the step's two ends. The radius of
  * convergence is the distance to the nearer zero of Δ (x = 0 or x = r− − r+),
- * and a step reaches at most RADIUS_SHARE of it.
+ * and a step reaches at most RADIUS_SHARE of it (LONG_RADIUS_SHARE for a step
+ * longer than its phase where the terms do not cancel: GROWTH_PHASE).
  */
 import type { RiccatiEquation } from './riccatiStep.js';
 
@@ -49,6 +50,32 @@ const STEP_PHASE = 5;
  * 0.9999: 8 of 16 against 7) and one band point fewer (a = 0.99).
  */
 const WIDE_STEP_PHASE = 6;
+/**
+ * Most growth (e-folds, at the terms' rate) a step aims at where its terms do
+ * not cancel: where the solution that dominates grows (Z = p² − 4q > 0 in the
+ * classically forbidden zones) the sum of the terms' moduli stays near the
+ * sum, and a step is limited by the rise and fall of its terms rather than by
+ * rounding (a 16 e-fold step took 37–50 terms where a 6 e-fold step took
+ * 24–34). Tail grid (bench/lib.mjs), modes of l ≥ 50 at tol 1e-8, against
+ * steps of WIDE_STEP_PHASE throughout: RHS evaluations (Taylor terms
+ * included) 0.952 times at 12, 0.938 at 16, 0.940 at 20, 0.945 at 24; their
+ * Taylor terms 110,198 → 98,390, but CPU time within the noise (bench/floor
+ * --grid against the same code without long steps, interleaved: l = 100, Mω
+ * = 1 and 10 cells 3.60 and 2.81 → 3.67 and 2.75 times the random median;
+ * the rates at x − h and the per-step work take back most of it). At tol
+ * 1e-12 fewer steps lower the rounding floor: 33 grid modes refused against
+ * 45 (their estimates 8.5e-13–1.0e-12).
+ */
+const GROWTH_PHASE = 16;
+/**
+ * Largest share of the radius of convergence a step longer than `phase`
+ * reaches: towards RADIUS_SHARE its terms shrink slowly (x = 0.8–3 of s = 0,
+ * l = 25, a = 0.7, Mω = 1, where R grows like a power of x: 73–81 terms for
+ * 12–15 e-folds at 0.5, against 24 terms for 6). Tail grid, l ≥ 50 (l < 50):
+ * evaluations 0.952 (1.000) times at 0.2, 0.938 (0.999) at 0.3, 0.936
+ * (0.999) at 0.35, 0.935 (1.011) at 0.4, 0.936 (1.012) at 0.5.
+ */
+const LONG_RADIUS_SHARE = 0.3;
 /** Least stretch tolerance at which steps aim at WIDE_STEP_PHASE. */
 const WIDE_STEP_TOL = 1e-12;
 /** Share of the tolerance below which the terms are summed (a term more costs ~1/6 radian of work). */
@@ -111,23 +138,47 @@ function shiftInto(p: Float64Array, x0: number, out: Float64Array, length: numbe
   for (let k = length; k < out.length; k++) out[k] = 0;
 }
 
-/** The local rate of the solutions, in e-folds or radians per unit x: |√(p² − 4q)|/2 + |p|/2 at x. */
-function rateAt(e: RiccatiEquation, x: number): number {
-  let d = 0;
-  for (let k = e.delta.length - 1; k >= 0; k--) d = d * x + e.delta[k];
+/** Σ c_k x^k by Horner's rule. */
+function horner(c: Float64Array, x: number): number {
+  let v = 0;
+  for (let k = c.length - 1; k >= 0; k--) v = v * x + c[k];
+  return v;
+}
+
+/**
+ * The local rates at x, per unit x, into rates[0..1]: the rate of the terms, |√Z|/2 + |p|/2 (Z = p² − 4q), a
+ * bound on |λ| for both local exponents λ = (−p ± √Z)/2 of the solutions; and the rate of their cancellation,
+ * |λ₊| − Re λ₊ for the exponent that grows the faster (Re √Z ≥ 0), capped at the first: the sum of the terms'
+ * moduli over the sum of a step of h grows like e^{(|λ₊| − Re λ₊) h} where that solution dominates (the whole
+ * rate where it oscillates, Z < 0; none where it grows, Z > 0 and p ≤ 0).
+ */
+function ratesAt(e: RiccatiEquation, x: number, rates: Float64Array): void {
+  const d = horner(e.delta, x);
   const iA = 1 / (d * d);
-  const h = (c: Float64Array) => {
-    let v = 0;
-    for (let k = c.length - 1; k >= 0; k--) v = v * x + c[k];
-    return v * iA;
-  };
-  const pr = h(e.bRe),
-    pi = h(e.bIm),
-    qr = h(e.cRe),
-    qi = h(e.cIm);
+  const pr = horner(e.bRe, x) * iA,
+    pi = horner(e.bIm, x) * iA,
+    qr = horner(e.cRe, x) * iA,
+    qi = horner(e.cIm, x) * iA;
   const zr = pr * pr - pi * pi - 4 * qr,
     zi = 2 * pr * pi - 4 * qi;
-  return 0.5 * (Math.sqrt(Math.sqrt(zr * zr + zi * zi)) + Math.sqrt(pr * pr + pi * pi));
+  // √Z with Re ≥ 0 (from the larger of its parts)
+  const zm = Math.sqrt(zr * zr + zi * zi);
+  let wr = 0,
+    wi = 0;
+  if (zr >= 0) {
+    wr = Math.sqrt(0.5 * (zm + zr));
+    wi = wr > 0 ? (0.5 * zi) / wr : 0;
+  } else {
+    const t = Math.sqrt(0.5 * (zm - zr));
+    wr = Math.abs((0.5 * zi) / t);
+    // the sign of Im √Z by a product: a negation of its own, first run after ratesAt was optimised, deoptimised it
+    wi = (zi < 0 ? -1 : 1) * t;
+  }
+  const rate = 0.5 * (Math.sqrt(zm) + Math.sqrt(pr * pr + pi * pi));
+  const lr = 0.5 * (wr - pr),
+    li = 0.5 * (wi - pi);
+  rates[0] = rate;
+  rates[1] = Math.min(rate, Math.sqrt(lr * lr + li * li) - lr);
 }
 
 /**
@@ -349,6 +400,7 @@ function step(
 }
 
 const counted = new Float64Array(1);
+const rates = new Float64Array(2);
 const trial = new Float64Array(4);
 
 /**
@@ -375,18 +427,65 @@ export function taylorStretch(e: RiccatiEquation, xa: number, xb: number, y: Flo
   const cubic = (c: Float64Array) => c.length < 5 || c[4] === 0;
   const realB = e.bIm.every((c) => c === 0) && cubic(e.bRe) && cubic(e.cIm);
   const phase = tol >= WIDE_STEP_TOL ? WIDE_STEP_PHASE : STEP_PHASE;
-  const leastTerms = minTerms(phase);
+  // the growth a long step may aim at: GROWTH_PHASE, halved after a long step failed, regained by half per step
+  let growthCap = GROWTH_PHASE;
+  // the rates at the end of the last step tried
+  let endX = Number.NaN,
+    endRate = 0,
+    endCancel = 0;
   while (x < xb) {
     const rest = xb - x;
-    let h = Math.min(phase / rateAt(e, x), RADIUS_SHARE * x, rest);
-    const rateEnd = rateAt(e, x + h);
-    if (h * rateEnd > phase) h = phase / rateEnd;
+    // a step of `phase` radians at the terms' rate at both ends (the step where the solutions oscillate); the
+    // rates at x were most often those at the end of the step before
+    if (x !== endX) ratesAt(e, x, rates);
+    else {
+      rates[0] = endRate;
+      rates[1] = endCancel;
+    }
+    const rate0 = rates[0],
+      cancel0 = rates[1];
+    let h = Math.min(phase / rate0, RADIUS_SHARE * x, rest);
+    endX = x + h;
+    ratesAt(e, endX, rates);
+    endRate = rates[0];
+    endCancel = rates[1];
+    if (h * rates[0] > phase) h = phase / rates[0];
+    // longer where the terms do not cancel (tried where at x they cancel at less than half their rate): at most
+    // `phase` of cancellation at both ends, and at most growthCap at the terms' rate at both ends and at x − h (the
+    // disc of convergence of the series reaches back as far; past a turning point the oscillation behind x swelled
+    // the terms of steps aimed by the two ends alone)
+    let growth = phase;
+    const longReach = Math.min(LONG_RADIUS_SHARE * x, rest);
+    if (h < longReach && growthCap > phase && cancel0 < 0.5 * rate0) {
+      let g = Math.min(phase / cancel0, growthCap / rate0, longReach);
+      let rate = rate0;
+      for (let pass = 0; pass < 2 && g > h; pass++) {
+        const end = x + g;
+        ratesAt(e, end, rates);
+        const rate1 = rates[0],
+          cancel1 = rates[1];
+        endX = end;
+        endRate = rate1;
+        endCancel = cancel1;
+        ratesAt(e, x - g, rates);
+        rate = Math.max(rate0, rate1, rates[0]);
+        const shorter = Math.min(g, phase / cancel1, growthCap / rate);
+        if (shorter === g) break;
+        g = shorter;
+      }
+      if (g > h) {
+        h = g;
+        growth = Math.max(phase, g * rate);
+      }
+    }
+    const leastTerms = minTerms(growth);
     let err = Number.NaN;
     for (let halvings = 0; ; halvings++) {
       trial.set(y);
       err = step(e, x, h, trial, TARGET * tol, counted, leastTerms, realB);
       terms += counted[0];
       if (err <= tol) break;
+      if (halvings === 0 && growth > phase) growthCap = Math.max(phase, 0.5 * growth);
       if (halvings === MAX_HALVINGS) {
         y.set(start);
         return { ok: false, steps, errorSum, terms, logScale: 0, rescalings: 0 };
@@ -394,6 +493,7 @@ export function taylorStretch(e: RiccatiEquation, xa: number, xb: number, y: Flo
       h *= 0.5;
     }
     y.set(trial);
+    growthCap = Math.min(GROWTH_PHASE, 1.5 * growthCap);
     x = h >= rest ? xb : x + h;
     steps++;
     errorSum += err / tol;
