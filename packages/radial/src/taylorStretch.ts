@@ -29,7 +29,8 @@
  * moduli: the cancellation of an oscillating series), each relative to the
  * larger modulus of R (and of R') at the step's two ends. The radius of
  * convergence is the distance to the nearer zero of Δ (x = 0 or x = r− − r+),
- * and a step reaches at most RADIUS_SHARE of it.
+ * and a step reaches at most RADIUS_SHARE of it (LONG_RADIUS_SHARE for a step
+ * longer than its phase where the terms do not cancel: GROWTH_PHASE).
  */
 import type { RiccatiEquation } from './riccatiStep.js';
 
@@ -49,6 +50,32 @@ const STEP_PHASE = 5;
  * 0.9999: 8 of 16 against 7) and one band point fewer (a = 0.99).
  */
 const WIDE_STEP_PHASE = 6;
+/**
+ * Most growth (e-folds, at the terms' rate) a step aims at where its terms do
+ * not cancel: where the solution that dominates grows (Z = p² − 4q > 0 in the
+ * classically forbidden zones) the sum of the terms' moduli stays near the
+ * sum, and a step is limited by the rise and fall of its terms rather than by
+ * rounding (a 16 e-fold step took 37–50 terms where a 6 e-fold step took
+ * 24–34). Tail grid (bench/lib.mjs), modes of l ≥ 50 at tol 1e-8, against
+ * steps of WIDE_STEP_PHASE throughout: RHS evaluations (Taylor terms
+ * included) 0.952 times at 12, 0.938 at 16, 0.940 at 20, 0.945 at 24; their
+ * Taylor terms 110,198 → 98,390, but CPU time within the noise (bench/floor
+ * --grid against the same code without long steps, interleaved: l = 100, Mω
+ * = 1 and 10 cells 3.60 and 2.81 → 3.67 and 2.75 times the random median;
+ * the rates at x − h and the per-step work take back most of it). At tol
+ * 1e-12 fewer steps lower the rounding floor: 33 grid modes refused against
+ * 45 (their estimates 8.5e-13–1.0e-12).
+ */
+const GROWTH_PHASE = 16;
+/**
+ * Largest share of the radius of convergence a step longer than `phase`
+ * reaches: towards RADIUS_SHARE its terms shrink slowly (x = 0.8–3 of s = 0,
+ * l = 25, a = 0.7, Mω = 1, where R grows like a power of x: 73–81 terms for
+ * 12–15 e-folds at 0.5, against 24 terms for 6). Tail grid, l ≥ 50 (l < 50):
+ * evaluations 0.952 (1.000) times at 0.2, 0.938 (0.999) at 0.3, 0.936
+ * (0.999) at 0.35, 0.935 (1.011) at 0.4, 0.936 (1.012) at 0.5.
+ */
+const LONG_RADIUS_SHARE = 0.3;
 /** Least stretch tolerance at which steps aim at WIDE_STEP_PHASE. */
 const WIDE_STEP_TOL = 1e-12;
 /** Share of the tolerance below which the terms are summed (a term more costs ~1/6 radian of work). */
@@ -93,6 +120,8 @@ const sbr = new Float64Array(5),
 const tr = new Float64Array(MAX_TERMS + 2),
   ti = new Float64Array(MAX_TERMS + 2);
 const start = new Float64Array(4);
+/** Scratch for the exponent of a double (big-endian, DataView's default). */
+const bits = new DataView(new ArrayBuffer(8));
 const dScratch = new Float64Array(3);
 
 /** Coefficients of p(x0 + t) in powers of t, into out[0..length) (Taylor shift). */
@@ -111,23 +140,47 @@ function shiftInto(p: Float64Array, x0: number, out: Float64Array, length: numbe
   for (let k = length; k < out.length; k++) out[k] = 0;
 }
 
-/** The local rate of the solutions, in e-folds or radians per unit x: |√(p² − 4q)|/2 + |p|/2 at x. */
-function rateAt(e: RiccatiEquation, x: number): number {
-  let d = 0;
-  for (let k = e.delta.length - 1; k >= 0; k--) d = d * x + e.delta[k];
+/** Σ c_k x^k by Horner's rule. */
+function horner(c: Float64Array, x: number): number {
+  let v = 0;
+  for (let k = c.length - 1; k >= 0; k--) v = v * x + c[k];
+  return v;
+}
+
+/**
+ * The local rates at x, per unit x, into rates[0..1]: the rate of the terms, |√Z|/2 + |p|/2 (Z = p² − 4q), a
+ * bound on |λ| for both local exponents λ = (−p ± √Z)/2 of the solutions; and the rate of their cancellation,
+ * |λ₊| − Re λ₊ for the exponent that grows the faster (Re √Z ≥ 0), capped at the first: the sum of the terms'
+ * moduli over the sum of a step of h grows like e^{(|λ₊| − Re λ₊) h} where that solution dominates (the whole
+ * rate where it oscillates, Z < 0; none where it grows, Z > 0 and p ≤ 0).
+ */
+function ratesAt(e: RiccatiEquation, x: number, rates: Float64Array): void {
+  const d = horner(e.delta, x);
   const iA = 1 / (d * d);
-  const h = (c: Float64Array) => {
-    let v = 0;
-    for (let k = c.length - 1; k >= 0; k--) v = v * x + c[k];
-    return v * iA;
-  };
-  const pr = h(e.bRe),
-    pi = h(e.bIm),
-    qr = h(e.cRe),
-    qi = h(e.cIm);
+  const pr = horner(e.bRe, x) * iA,
+    pi = horner(e.bIm, x) * iA,
+    qr = horner(e.cRe, x) * iA,
+    qi = horner(e.cIm, x) * iA;
   const zr = pr * pr - pi * pi - 4 * qr,
     zi = 2 * pr * pi - 4 * qi;
-  return 0.5 * (Math.sqrt(Math.sqrt(zr * zr + zi * zi)) + Math.sqrt(pr * pr + pi * pi));
+  // √Z with Re ≥ 0 (from the larger of its parts)
+  const zm = Math.sqrt(zr * zr + zi * zi);
+  let wr = 0,
+    wi = 0;
+  if (zr >= 0) {
+    wr = Math.sqrt(0.5 * (zm + zr));
+    wi = wr > 0 ? (0.5 * zi) / wr : 0;
+  } else {
+    const t = Math.sqrt(0.5 * (zm - zr));
+    wr = Math.abs((0.5 * zi) / t);
+    // the sign of Im √Z by a product: a negation of its own, first run after ratesAt was optimised, deoptimised it
+    wi = (zi < 0 ? -1 : 1) * t;
+  }
+  const rate = 0.5 * (Math.sqrt(zm) + Math.sqrt(pr * pr + pi * pi));
+  const lr = 0.5 * (wr - pr),
+    li = 0.5 * (wi - pi);
+  rates[0] = rate;
+  rates[1] = Math.min(rate, Math.sqrt(lr * lr + li * li) - lr);
 }
 
 /**
@@ -144,6 +197,7 @@ function step(
   target: number,
   out: Float64Array,
   leastTerms: number,
+  realB: boolean,
 ): number {
   // A = Δ² about x0
   shiftInto(e.delta, x0, dScratch, 3);
@@ -169,10 +223,43 @@ function step(
     hp *= h;
   }
   const ia0 = 1 / sa[0];
-  tr[0] = y[0];
-  ti[0] = y[1];
-  tr[1] = y[2] * h;
-  ti[1] = y[3] * h;
+  const a1 = sa[1],
+    a2 = sa[2],
+    a3 = sa[3],
+    a4 = sa[4];
+  const b0s = sbr[0],
+    b1s = sbr[1],
+    b2s = sbr[2],
+    b3s = sbr[3];
+  const c0r = scr[0],
+    c1r = scr[1],
+    c2r = scr[2],
+    c3r = scr[3],
+    c4r = scr[4];
+  const c0i = sci[0],
+    c1i = sci[1],
+    c2i = sci[2],
+    c3i = sci[3];
+  // the state over a power of two near its size (exact): the squared moduli below stay finite whatever the state's
+  // size up to OVERFLOW and the step's growth (unscaled, a step of 16 e-folds from |R| ~ 1e150 overflowed them, and
+  // the overflow was taken for a settled sum: estimate 0, true error 2e-8)
+  const size = Math.max(Math.abs(y[0]), Math.abs(y[1]), Math.abs(y[2] * h), Math.abs(y[3] * h));
+  // 2^−e for size = 2^e × (1…2), from the exponent bits (Math.log2 and a power cost ~5 % of a stretch); 1 for a size
+  // of 0, below the normal range, of 2^1023 or more, or not finite
+  bits.setFloat64(0, size);
+  const biased = bits.getUint32(0) >>> 20;
+  bits.setUint32(0, (biased > 0 && biased < 2046 ? 2046 - biased : 1023) << 20);
+  bits.setUint32(4, 0);
+  const inverse = bits.getFloat64(0);
+  const unit = 1 / inverse;
+  const y0 = y[0] * inverse,
+    y1 = y[1] * inverse,
+    y2 = y[2] * inverse,
+    y3 = y[3] * inverse;
+  tr[0] = y0;
+  ti[0] = y1;
+  tr[1] = y2 * h;
+  ti[1] = y3 * h;
   let Rr = tr[0] + tr[1],
     Ri = ti[0] + ti[1];
   let Dr = tr[1],
@@ -181,16 +268,60 @@ function step(
   let absSum = Math.abs(tr[0]) + Math.abs(ti[0]) + Math.abs(tr[1]) + Math.abs(ti[1]);
   let absSumD = Math.abs(tr[1]) + Math.abs(ti[1]);
   let prev = Math.abs(tr[1]) + Math.abs(ti[1]);
-  let n = 0;
-  let tail = Number.NaN,
-    tailD = Number.NaN;
-  const m0 = Math.sqrt(y[0] * y[0] + y[1] * y[1]),
-    md0 = Math.sqrt(y[2] * y[2] + y[3] * y[3]) * h;
-  for (n = 0; n + 2 <= MAX_TERMS; n++) {
+  // τ_{n+1}, the term just made, kept out of the arrays (the next term waits on it)
+  let lastR = tr[1],
+    lastI = ti[1];
+  // the result and the terms summed, written once after the loop: a return of its own on the rare path where the
+  // terms do not settle was code without type feedback, and its first use deoptimised the step (measured on
+  // Node 20: at times it was not optimised again, and a term then cost 3–4 times as much)
+  let err = Number.NaN,
+    count = 2;
+  const m0 = Math.sqrt(y0 * y0 + y1 * y1),
+    md0 = Math.sqrt(y2 * y2 + y3 * y3) * h;
+  for (let n = 0; n + 2 <= MAX_TERMS; n++) {
     // τ_{n+2}
     let sr = 0,
       si = 0;
-    if (n >= 4) {
+    if (n >= 4 && realB) {
+      // B real of degree ≤ 3 and Im C of degree ≤ 3 (the massless equation): the sums below without the terms whose
+      // factor is an exact zero, in the general path's order (x − 0 = x: the same doubles)
+      const k0 = n + 1,
+        k1 = n,
+        k2 = n - 1,
+        k3 = n - 2,
+        k4 = n - 3,
+        k5 = n - 4;
+      const f1 = a1 * k0 * n,
+        f2 = a2 * k1 * (n - 1),
+        f3 = a3 * k2 * (n - 2),
+        f4 = a4 * k3 * (n - 3);
+      const u0r = lastR,
+        u0i = lastI,
+        u1r = tr[k1],
+        u1i = ti[k1],
+        u2r = tr[k2],
+        u2i = ti[k2],
+        u3r = tr[k3],
+        u3i = ti[k3],
+        u4r = tr[k4],
+        u4i = ti[k4];
+      sr = f1 * u0r + f2 * u1r + f3 * u2r + f4 * u3r;
+      si = f1 * u0i + f2 * u1i + f3 * u2i + f4 * u3i;
+      const b0 = b0s * k0,
+        b1 = b1s * k1,
+        b2 = b2s * k2,
+        b3 = b3s * k3;
+      sr += b0 * u0r + c0r * u1r - c0i * u1i;
+      si += b0 * u0i + c0r * u1i + c0i * u1r;
+      sr += b1 * u1r + c1r * u2r - c1i * u2i;
+      si += b1 * u1i + c1r * u2i + c1i * u2r;
+      sr += b2 * u2r + c2r * u3r - c2i * u3i;
+      si += b2 * u2i + c2r * u3i + c2i * u3r;
+      sr += b3 * u3r + c3r * u4r - c3i * u4i;
+      si += b3 * u3i + c3r * u4i + c3i * u4r;
+      sr += c4r * tr[k5];
+      si += c4r * ti[k5];
+    } else if (n >= 4) {
       // every index in range: the five-term sums written out (the bounds tests were most of a term's cost)
       const k0 = n + 1,
         k1 = n,
@@ -248,6 +379,7 @@ function step(
     const mod = Math.abs(vr) + Math.abs(vi);
     absSum += mod;
     absSumD += (n + 2) * mod;
+    count = n + 3;
     // settled: two terms below the target of both R and hR', the last at most half its predecessor, and past the
     // rise of the terms of a step of its phase (a dip of two small terms before it is not taken for the end)
     if (n + 3 >= leastTerms && mod <= 0.5 * prev) {
@@ -257,24 +389,27 @@ function step(
       const t = mod + last,
         tD = (n + 2) * mod + (n + 1) * last;
       if (t < target * scaleR && tD < target * scaleD) {
-        tail = t / scaleR;
-        tailD = tD / scaleD;
-        out[0] = n + 3;
+        const tail = t / scaleR,
+          tailD = tD / scaleD;
         const rounding = ROUNDING * Number.EPSILON * Math.max(absSum / scaleR, absSumD / scaleD);
-        y[0] = Rr;
-        y[1] = Ri;
-        y[2] = Dr / h;
-        y[3] = Di / h;
-        return Math.max(tail, tailD) + rounding;
+        y[0] = Rr * unit;
+        y[1] = Ri * unit;
+        y[2] = (Dr / h) * unit;
+        y[3] = (Di / h) * unit;
+        err = Math.max(tail, tailD) + rounding;
+        break;
       }
     }
     prev = mod;
+    lastR = vr;
+    lastI = vi;
   }
-  out[0] = n + 2;
-  return Number.NaN;
+  out[0] = count;
+  return err;
 }
 
 const counted = new Float64Array(1);
+const rates = new Float64Array(2);
 const trial = new Float64Array(4);
 
 /**
@@ -296,19 +431,70 @@ export function taylorStretch(e: RiccatiEquation, xa: number, xb: number, y: Flo
     terms = 0,
     logScale = 0,
     rescalings = 0;
+  // the shape of the coefficients, once per stretch: B real of degree ≤ 3 and Im C of degree ≤ 3, as in every
+  // massless equation (B = (s+1)ΔΔ', Im U = −sΔ'K + 4sωrΔ); the Taylor shift about x0 keeps those zeros exact
+  const cubic = (c: Float64Array) => c.length < 5 || c[4] === 0;
+  const realB = e.bIm.every((c) => c === 0) && cubic(e.bRe) && cubic(e.cIm);
   const phase = tol >= WIDE_STEP_TOL ? WIDE_STEP_PHASE : STEP_PHASE;
-  const leastTerms = minTerms(phase);
+  // the growth a long step may aim at: GROWTH_PHASE, halved after a long step failed, regained by half per step
+  let growthCap = GROWTH_PHASE;
+  // the rates at the end of the last step tried
+  let endX = Number.NaN,
+    endRate = 0,
+    endCancel = 0;
   while (x < xb) {
     const rest = xb - x;
-    let h = Math.min(phase / rateAt(e, x), RADIUS_SHARE * x, rest);
-    const rateEnd = rateAt(e, x + h);
-    if (h * rateEnd > phase) h = phase / rateEnd;
+    // a step of `phase` radians at the terms' rate at both ends (the step where the solutions oscillate); the
+    // rates at x were most often those at the end of the step before
+    if (x !== endX) ratesAt(e, x, rates);
+    else {
+      rates[0] = endRate;
+      rates[1] = endCancel;
+    }
+    const rate0 = rates[0],
+      cancel0 = rates[1];
+    let h = Math.min(phase / rate0, RADIUS_SHARE * x, rest);
+    endX = x + h;
+    ratesAt(e, endX, rates);
+    endRate = rates[0];
+    endCancel = rates[1];
+    if (h * rates[0] > phase) h = phase / rates[0];
+    // longer where the terms do not cancel (tried where at x they cancel at less than half their rate): at most
+    // `phase` of cancellation at both ends, and at most growthCap at the terms' rate at both ends and at x − h (the
+    // disc of convergence of the series reaches back as far; past a turning point the oscillation behind x swelled
+    // the terms of steps aimed by the two ends alone)
+    let growth = phase;
+    const longReach = Math.min(LONG_RADIUS_SHARE * x, rest);
+    if (h < longReach && growthCap > phase && cancel0 < 0.5 * rate0) {
+      let g = Math.min(phase / cancel0, growthCap / rate0, longReach);
+      let rate = rate0;
+      for (let pass = 0; pass < 2 && g > h; pass++) {
+        const end = x + g;
+        ratesAt(e, end, rates);
+        const rate1 = rates[0],
+          cancel1 = rates[1];
+        endX = end;
+        endRate = rate1;
+        endCancel = cancel1;
+        ratesAt(e, x - g, rates);
+        rate = Math.max(rate0, rate1, rates[0]);
+        const shorter = Math.min(g, phase / cancel1, growthCap / rate);
+        if (shorter === g) break;
+        g = shorter;
+      }
+      if (g > h) {
+        h = g;
+        growth = Math.max(phase, g * rate);
+      }
+    }
+    const leastTerms = minTerms(growth);
     let err = Number.NaN;
     for (let halvings = 0; ; halvings++) {
       trial.set(y);
-      err = step(e, x, h, trial, TARGET * tol, counted, leastTerms);
+      err = step(e, x, h, trial, TARGET * tol, counted, leastTerms, realB);
       terms += counted[0];
       if (err <= tol) break;
+      if (halvings === 0 && growth > phase) growthCap = Math.max(phase, 0.5 * growth);
       if (halvings === MAX_HALVINGS) {
         y.set(start);
         return { ok: false, steps, errorSum, terms, logScale: 0, rescalings: 0 };
@@ -316,6 +502,7 @@ export function taylorStretch(e: RiccatiEquation, xa: number, xb: number, y: Flo
       h *= 0.5;
     }
     y.set(trial);
+    growthCap = Math.min(GROWTH_PHASE, 1.5 * growthCap);
     x = h >= rest ? xb : x + h;
     steps++;
     errorSum += err / tol;

@@ -2,10 +2,11 @@
  * Taylor-series stretches (taylorStretch.ts) against closed-form solutions
  * of equations of the radial form A R'' + B R' + C R = 0 with A = Δ²: the
  * oscillator R'' + k² R = 0 (cos), a damped complex oscillator (e^{κx},
- * κ² = −k² − iγ) and the Euler equation x² R'' + b x R' + c R = 0 (x^α),
+ * κ² = −k² − iγ), the Euler equation x² R'' + b x R' + c R = 0 (x^α),
  * whose regular singular point at x = 0 bounds the steps as the horizon
- * does. Each: the end state within 1e-9 of the closed form, and the
- * stretch's summed error estimate at least the true error.
+ * does, and growth R'' − k² R = 0 (e^{kx}, where the terms do not cancel)
+ * from a state near the double range. Each: the end state within 1e-9 of the
+ * closed form, and the stretch's summed error estimate at least the true error.
  */
 import { describe, expect, it } from 'vitest';
 import { type RiccatiEquation, taylorStretch } from '@penumbra/radial/internal';
@@ -93,6 +94,22 @@ describe('Taylor stretches against closed-form solutions (elementary functions)'
     const [r, i] = pow(x1);
     const err = relError(y, t.logScale, [r, i], [(ar * r - ai * i) / x1, (ar * i + ai * r) / x1]);
     expect(err).toBeLessThan(1e-9);
+    expect(t.errorSum * tol).toBeGreaterThan(err);
+  });
+
+  it('R″ − k²R = 0, k = 7, x from 1 to 12 (77 e-folds) from |R| = 1e153: R = 1e153 e^{k(x − 1)} to 1e-10, the estimate above the true error', () => {
+    const k = 7;
+    const e: RiccatiEquation = { delta: poly(1, 0, 0), bRe: poly(0), bIm: poly(0), cRe: poly(-k * k), cIm: poly(0) };
+    // a start near the top of the double range: the squared moduli of a step's sums must not overflow (they did, and
+    // the overflow passed for a settled sum: true error 5e-5 against an estimate of 1.5e-12)
+    const y = Float64Array.from([1e153, 2e152, k * 1e153, k * 2e152]);
+    const tol = 1e-11;
+    const t = taylorStretch(e, 1, 12, y, tol);
+    expect(t.ok).toBe(true);
+    // against the closed form divided by 1e153 e^{77}, in logs (the state was rescaled on the way)
+    const f = Math.exp(t.logScale - 77 - Math.log(1e153));
+    const err = relError(Float64Array.from([y[0] * f, y[1] * f, y[2] * f, y[3] * f]), 0, [1, 0.2], [k, 0.2 * k]);
+    expect(err).toBeLessThan(1e-10);
     expect(t.errorSum * tol).toBeGreaterThan(err);
   });
 });
