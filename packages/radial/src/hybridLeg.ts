@@ -625,8 +625,18 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       let next = u + masslessFarRung(u - uTurn);
       let to = next >= ub - 1e-9 ? ladder[j] : { x: Math.exp(next), r: rPlus + Math.exp(next) };
       let rateTo = to === ladder[j] ? rates[j] : phaseRate(e, to.x);
-      // (a first rung too close to the turning point to hold MASSLESS_MIN_PHASE is left to the ladder)
-      if (rungPhase(from, to, rateFrom, rateTo) > MASSLESS_MIN_PHASE) {
+      // a first rung too close to the turning point to hold MASSLESS_MIN_PHASE: the zone starts farther out, where
+      // one does, and Taylor steps cross the stretch before it (or the ladder keeps the run where none does)
+      while (j > i && !(rungPhase(from, to, rateFrom, rateTo) > MASSLESS_MIN_PHASE) && next < ub - 1e-9) {
+        u += 0.25 * (next - u);
+        from = { x: Math.exp(u), r: rPlus + Math.exp(u) };
+        rateFrom = phaseRate(e, from.x);
+        next = u + masslessFarRung(u - uTurn);
+        to = next >= ub - 1e-9 ? ladder[j] : { x: Math.exp(next), r: rPlus + Math.exp(next) };
+        rateTo = to === ladder[j] ? rates[j] : phaseRate(e, to.x);
+      }
+      if (j > i && rungPhase(from, to, rateFrom, rateTo) > MASSLESS_MIN_PHASE) {
+        if (from !== ladder[i] && !byTaylor(ladder[i], from)) byOde(ladder[i], from);
         for (;;) {
           byRiccati(from, to, rateFrom, rateTo, 0);
           if (to === ladder[j]) break;
