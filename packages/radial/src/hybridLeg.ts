@@ -445,10 +445,13 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   // recut below and a recut step that fails is halved as any other (the same steps on the 70 modes of
   // bench/massive-cpu.bench.mjs; 3–6 % less CPU time on its two worst modes).
   let far = false;
+  // A massless leg's rungs beyond the outer turning point take no probes either: they are recut below (masslessFarRung).
+  const xTurn = longRange ? Number.POSITIVE_INFINITY : outerTurningPoint(hole, leg.mode);
   let good = ladder.slice(1).map((p, i) => {
     const least = rungMinPhase(i);
     const phase = rungPhase(ladder[i], p, rates[i], rates[i + 1]);
     if (far && rates[i + 1] > rates[i] && phase > least) return true;
+    if (ladder[i].x > xTurn && phase > 0.5 * least) return true;
     const ok = phase > 0.5 * least && riccatiWorthIt(e, ladder[i].x, p.x, least, ratioLimit, longRange);
     far = longRange && ok;
     return ok;
@@ -529,7 +532,6 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   // RICCATI_NODES over a rung of 4; s = 1/2, l = 100.5, m = 50.5, a = 0.99, Mω = 1: failed steps 8 → 5,
   // 3,837 → 3,613 evaluations), and a failed step costs about what a made one does.
   let halveRest = false;
-  const xTurn = longRange ? Number.POSITIVE_INFINITY : outerTurningPoint(hole, leg.mode);
   // true where the step was made whole (not halved, nor given to Taylor steps or the integrator)
   // (`nodes`: the step's node count; `long`: a rung of a far zone cut with LONG_FAR_RUNG)
   const byRiccati = (
