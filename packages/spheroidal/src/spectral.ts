@@ -145,6 +145,8 @@ export function solveDense(
 }
 
 const factorCache = { factor: new BandFactor(64) };
+/** The counts of one `count3` pass. */
+const threeCounts = new Int32Array(3);
 function workspace(n: number): BandFactor {
   if (factorCache.factor.capacity < n) factorCache.factor = new BandFactor(Math.max(n, 2 * factorCache.factor.capacity));
   return factorCache.factor;
@@ -335,7 +337,10 @@ export function solveBisection(
  * midpoint is farther than `margin` from it: there the count is decided by
  * which side of the eigenvalue the midpoint lies, so skipping changes nothing;
  * the first bracket actually used is checked by two counts. Returns null if
- * that check fails (seed not within `margin`).
+ * that check fails (seed not within `margin`). The counts are made three in a
+ * pass (BandFactor.count3): the check's two with the first level's, then each
+ * level's with both midpoints of the next; `counts` and the tally count the
+ * levels used, as when they were made one by one.
  */
 export function settleEigenvalue(
   band: Band,
@@ -354,6 +359,10 @@ export function settleEigenvalue(
   let hi = B;
   let counts = 0;
   let checked = false;
+  // counts made ahead, at the two midpoints of the next level (see `count3`): the same integers as made there
+  let aheadLo = Number.NaN,
+    aheadHi = Number.NaN;
+  const c = threeCounts;
   for (;;) {
     const mid = 0.5 * (lo + hi);
     if (mid <= lo || mid >= hi || hi - lo <= floor) break;
@@ -367,20 +376,37 @@ export function settleEigenvalue(
     }
     if (!checked) {
       checked = true;
+      // the check's two counts and the first level's in one pass (the checks as before: a failed one ends the search)
+      ws.count3(band, n, lo, hi, mid, c);
       if (lo > -B) {
         counts++;
         tally.evaluations++;
-        if (ws.count(band, n, lo) > index) return null;
+        if (c[0] > index) return null;
       }
       if (hi < B) {
         counts++;
         tally.evaluations++;
-        if (ws.count(band, n, hi) <= index) return null;
+        if (c[1] <= index) return null;
       }
+      counts++;
+      tally.evaluations++;
+      if (c[2] <= index) lo = mid;
+      else hi = mid;
+      continue;
     }
     counts++;
     tally.evaluations++;
-    if (ws.count(band, n, mid) <= index) lo = mid;
+    let below: number;
+    if (mid === aheadLo) below = c[1];
+    else if (mid === aheadHi) below = c[2];
+    else {
+      // this level's count, and those of both midpoints of the next level
+      aheadLo = 0.5 * (lo + mid);
+      aheadHi = 0.5 * (mid + hi);
+      ws.count3(band, n, mid, aheadLo, aheadHi, c);
+      below = c[0];
+    }
+    if (below <= index) lo = mid;
     else hi = mid;
   }
   return { A: 0.5 * (lo + hi), counts };
