@@ -124,15 +124,22 @@ const start = new Float64Array(4);
 const bits = new DataView(new ArrayBuffer(8));
 const dScratch = new Float64Array(3);
 
-/** Coefficients of p(x0 + t) in powers of t, into out[0..length) (Taylor shift). */
+/** C(j, k) at 5j + k for j, k < 5 (exact small integers: a division per coefficient was a tenth of a stretch). */
+const BINOMIAL = Float64Array.from({ length: 25 }, (_, i) => {
+  const j = Math.floor(i / 5),
+    k = i % 5;
+  let c = 1;
+  for (let q = 1; q <= k; q++) c = (c * (j + 1 - q)) / q;
+  return k > j ? 0 : c;
+});
+
+/** Coefficients of p(x0 + t) in powers of t (p of length ≤ 5), into out[0..length) (Taylor shift). */
 function shiftInto(p: Float64Array, x0: number, out: Float64Array, length: number): void {
   for (let k = 0; k < length; k++) {
     let sum = 0;
-    let binom = 1;
     let pw = 1;
     for (let j = k; j < p.length; j++) {
-      sum += binom * p[j] * pw;
-      binom = (binom * (j + 1)) / (j + 1 - k);
+      sum += BINOMIAL[5 * j + k] * p[j] * pw;
       pw *= x0;
     }
     out[k] = sum;
@@ -210,7 +217,9 @@ function step(
   sa[3] = 2 * d1 * d2;
   sa[4] = d2 * d2;
   shiftInto(e.bRe, x0, sbr, Math.min(5, e.bRe.length));
-  shiftInto(e.bIm, x0, sbi, Math.min(5, e.bIm.length));
+  // Im B is zero where realB (its shift would be zeros)
+  if (realB) sbi.fill(0);
+  else shiftInto(e.bIm, x0, sbi, Math.min(5, e.bIm.length));
   shiftInto(e.cRe, x0, scr, Math.min(5, e.cRe.length));
   shiftInto(e.cIm, x0, sci, Math.min(5, e.cIm.length));
   let hp = 1;
@@ -382,12 +391,14 @@ function step(
     count = n + 3;
     // settled: two terms below the target of both R and hR', the last at most half its predecessor, and past the
     // rise of the terms of a step of its phase (a dip of two small terms before it is not taken for the end)
-    if (n + 3 >= leastTerms && mod <= 0.5 * prev) {
-      const last = Math.abs(tr[n + 1]) + Math.abs(ti[n + 1]);
+    // (first against a bound of the scale without square roots, |re| + |im| ≥ the modulus: past the largest term
+    // every term of an oscillating series came this far, and the two square roots were an eighth of a stretch)
+    const last = Math.abs(tr[n + 1]) + Math.abs(ti[n + 1]);
+    const t = mod + last;
+    if (n + 3 >= leastTerms && mod <= 0.5 * prev && t < 2 * target * (m0 + Math.abs(Rr) + Math.abs(Ri))) {
       const scaleR = Math.max(m0, Math.sqrt(Rr * Rr + Ri * Ri)),
         scaleD = Math.max(md0, Math.sqrt(Dr * Dr + Di * Di));
-      const t = mod + last,
-        tD = (n + 2) * mod + (n + 1) * last;
+      const tD = (n + 2) * mod + (n + 1) * last;
       if (t < target * scaleR && tD < target * scaleD) {
         const tail = t / scaleR,
           tailD = tD / scaleD;
