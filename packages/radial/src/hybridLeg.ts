@@ -457,6 +457,10 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   // massless legs keep MIN_PHASE and MAX_PASSES, bit for bit.
   const longRange = fieldMassOf(leg.mode) > 0;
   if (longRange) e.real = e.bIm.every((c) => c === 0) && e.cIm.every((c) => c === 0);
+  // B and C real (s = 0 at real ω, or a massive far zone): where the two Riccati solutions oscillate, a step takes
+  // the σ = −1 one as the mirror image of the σ = +1 one (riccatiStep's `mirror`: the same doubles, half the passes).
+  // A massless leg leaves `e.real` unset, so its coefficients are those of the general code, bit for bit.
+  const conjugate = longRange || (e.bIm.every((c) => c === 0) && e.cIm.every((c) => c === 0));
   const maxPasses = longRange ? MAX_PASSES_LONG_RANGE : MAX_PASSES;
   const accept = longRange ? ACCEPT_LONG_RANGE : ACCEPT;
   const ladder: Point[] = [{ x: leg.fromOffset ?? leg.from - rPlus, r: leg.from }];
@@ -596,7 +600,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     nodes = RICCATI_NODES,
     long = false,
   ): boolean => {
-    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, nodes, maxPasses, accept, longRange, longRange);
+    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, nodes, maxPasses, accept, conjugate, longRange);
     // counted as right-hand-side evaluations: the coefficients at every node, and one collocation pass per node and pass
     leg.counter.evaluations += step.evaluations * (1 + step.passes);
     if (!step.ok) {

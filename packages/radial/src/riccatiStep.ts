@@ -695,7 +695,7 @@ const NEWTON_AFTER = 4;
  * passes of steps that failed fell from 9,515 to 4,491 (of 52,326 in all;
  * 1,032 of the 2,030 failures now at the first pass), the evaluation count
  * by 3.7 % (2.3, 3.1 and 1.5 % at 1e-6, 1e-10, 1e-11). A failed step now
- * costs mostly its coefficients (16 localRiccati, ~1.5 of its ~2.7 µs; four
+ * costs mostly its coefficients (16 nodes, ~1.8 of its ~2.7 µs; four
  * passes took ~4.0 µs: the rung r = 2.14–5.14 of the mode above, one core).
  */
 const CORRECTION_TAIL = 10;
@@ -912,7 +912,13 @@ function mirrorSolution(w: Work, passes: number): number {
  * are exact conjugates: `conjugatePair`) and `newton` (a solution whose
  * defect correction contracts too slowly or stalls above `accept` tol is
  * finished by Newton passes, `newtonPass`, rather than refused); both off,
- * the step is the massless one, bit for bit. Measured on the 70 modes of
+ * the step is the massless one, bit for bit. A massless leg with real B
+ * and C (s = 0 at real ω) sets `mirror` alone, with `e.real` unset: the
+ * same doubles as without it (Γ and its reflection bit for bit on the tail
+ * grid and 2,500 random modes, l ≤ 100, Mω ≤ 30, tol 1e-6 to 1e-11), one
+ * refinement instead of two where the solutions oscillate (the 12 s = 0
+ * modes of the tail grid at l = 75, 100 and Mω = 1, 10: CPU 0.94 times,
+ * 0.89–1.00 per mode, interleaved). Measured on the 70 modes of
  * bench/massive-cpu.bench.mjs: with `newton` 6 % fewer evaluations over
  * all (up to 2.3× fewer on a mode: rungs the integrator crossed in ~20
  * steps), none more; on 150 other random near-threshold modes one more
