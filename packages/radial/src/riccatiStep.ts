@@ -952,11 +952,18 @@ function decayingNegligible(w: Work, half: number, xa: number, y: Float64Array, 
     ymi = (aIm[2 * n - 1] + cIm[2 * n - 1]) / xa;
   const gr = ymr - ypr,
     gi = ymi - ypi;
-  const g = Math.hypot(gr, gi);
-  const nr = y[2] - (ypr * y[0] - ypi * y[1]),
-    ni = y[3] - (ypr * y[1] + ypi * y[0]);
-  const beta = Math.hypot(nr, ni) / g;
-  const alpha = Math.hypot(y[0] - (nr * gr + ni * gi) / (g * g), y[1] - (ni * gr - nr * gi) / (g * g));
+  const g2 = gr * gr + gi * gi;
+  // the state over its size (the split is linear in it; square roots rather than Math.hypot, measured to allocate)
+  const sc = 1 / Math.max(Math.abs(y[0]), Math.abs(y[1]), Number.MIN_VALUE);
+  const Rr = y[0] * sc,
+    Ri = y[1] * sc;
+  const nr = y[2] * sc - (ypr * Rr - ypi * Ri),
+    ni = y[3] * sc - (ypr * Ri + ypi * Rr);
+  const br = (nr * gr + ni * gi) / g2,
+    bi = (ni * gr - nr * gi) / g2;
+  const beta = Math.sqrt(br * br + bi * bi);
+  const alpha = Math.sqrt((Rr - br) ** 2 + (Ri - bi) ** 2);
+  const g = Math.sqrt(g2);
   if (!(alpha > 0 && beta < alpha)) return false;
   const ratio = beta / alpha;
   // the split: β (and α) move by |β| err/(x|y₋ − y₊|), carried by e^{I₊} (against |α e^{I₊}|) and by e^{I₋}
@@ -966,8 +973,10 @@ function decayingNegligible(w: Work, half: number, xa: number, y: Float64Array, 
   // β e^{I₋} against α e^{I₊}, and the iterate's error in it: in R through ∫Y₋, in R' through ∫Y₋ and Y₋(xb)
   // (R' ≈ α e^{I₊} y₊ there)
   const share = ratio * Math.exp(-growth);
-  const plusB = Math.hypot(E[2], E[3]),
-    minusB = Math.hypot(aRe[n] + cRe[n], aIm[n] + cIm[n]);
+  const mr = aRe[n] + cRe[n],
+    mi = aIm[n] + cIm[n];
+  const plusB = Math.sqrt(E[2] * E[2] + E[3] * E[3]),
+    minusB = Math.sqrt(mr * mr + mi * mi);
   const own = share * (2 * half * err * (1 + minusB / plusB) + err / plusB);
   const bound = split * (1 + Math.exp(-growth)) + own;
   if (!(bound < DECAYING_SHARE * tol)) return false;
