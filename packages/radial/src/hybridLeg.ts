@@ -274,13 +274,12 @@ function complexTurningPoint(hole: KerrHole, mode: RadialMode): TurningPoint {
 /**
  * The branch points of W of a massless mode in u = ln x, as (ln|x|, |arg x|) pairs: the four roots of K² − λΔ
  * (a quartic in r without a cubic term; the spin terms left out, see outerTurningPoint) by Ferrari's formula,
- * and the inner horizon r− (π off the axis). 0.3–0.5 µs a call (Durand–Kerner iterations took 2–8 µs).
+ * those beyond the horizon or off the real axis. 0.3–0.5 µs a call (Durand–Kerner iterations took 2–8 µs).
  */
 function branchPoints(hole: KerrHole, mode: RadialMode): number[] {
-  const { a, mass: M, rPlus, rMinus } = hole;
+  const { a, mass: M, rPlus } = hole;
   const { omega: w, m, lambda } = mode;
   const out: number[] = [];
-  if (rPlus > rMinus) out.push(Math.log(rPlus - rMinus), Math.PI);
   if (!(lambda > 0) || w === 0) return out;
   const k0 = w * a * a - a * m;
   // monic: r⁴ + c2 r² + c1 r + c0
@@ -308,7 +307,9 @@ function branchPoints(hole: KerrHole, mode: RadialMode): number[] {
   for (let k = 0; k < 4; k++) {
     const xr = re[k] - rPlus,
       xi = Math.abs(im[k]);
-    if (!Number.isFinite(xr + xi) || (xr === 0 && xi === 0)) continue;
+    // (a root inside the horizon, π off the real u axis as r− is, leaves every rung of a massless leg, up to a
+    // ratio of FAR_RUNG, at ρ ≥ RHO_RESOLVED > RHO_FAIL: left out, as r− is)
+    if (!Number.isFinite(xr + xi) || (xr <= 0 && xi === 0)) continue;
     out.push(Math.log(Math.hypot(xr, xi)), Math.atan2(xi, xr));
   }
   return out;
@@ -321,7 +322,8 @@ function branchPoints(hole: KerrHole, mode: RadialMode): number[] {
  * 6 and 6.7, none made; 48 of them on −s legs, whose spin terms the quartic leaves out), 22 of 84 between 6 and
  * RHO_RESOLVED were made, 480 of 504 between RHO_RESOLVED and 12. The steps made and Γ are those of before, bit for
  * bit (tail grid, 300 random modes); evaluations −2.1 % on the grid, and interleaved (bench/floor.bench.mjs --grid
- * --rounds=4) the cost of l = 100, Mω = 1 over the random modes' median 2.91 → 2.82, modes above 3× 9 → 3 of 208.
+ * --rounds=4, three runs) the cost of l = 100, Mω = 1 over the random modes' median 2.89–2.91 → 2.77–2.82, modes
+ * above 3× 6–9 → 3–4 of 208 (l = 100, Mω = 10: 2.16–2.23 → 2.23–2.25).
  */
 const RHO_FAIL = 6.5;
 
