@@ -7,7 +7,8 @@
  * Riccati step when a cheap look says the WKB ratio is small and the rung
  * holds enough phase to be worth it. A Riccati step that fails is halved in
  * ln x up to MAX_SPLITS times (near a turning point the branch point of W
- * limits what one rung resolves) and what still fails goes to the
+ * limits what one rung resolves; a massless rung that predictably fails,
+ * RHO_FAIL, is not tried first) and what still fails goes to the
  * integrator. On a massless leg the stretches between Riccati rungs (and a
  * leg of more than TAYLOR_LEG_PHASE radians without any) are crossed by
  * Taylor-series steps instead (taylorStretch.ts), the integrator taking
@@ -268,6 +269,91 @@ function complexTurningPoint(hole: KerrHole, mode: RadialMode): TurningPoint {
     }
   }
   return NO_TURNING_POINT;
+}
+
+/**
+ * The branch points of W of a massless mode in u = ln x, as (ln|x|, |arg x|) pairs: the four roots of K² − λΔ
+ * (a quartic in r without a cubic term; the spin terms left out, see outerTurningPoint) by Ferrari's formula,
+ * those beyond the horizon or off the real axis. 0.3–0.5 µs a call (Durand–Kerner iterations took 2–8 µs).
+ */
+function branchPoints(hole: KerrHole, mode: RadialMode): number[] {
+  const { a, mass: M, rPlus } = hole;
+  const { omega: w, m, lambda } = mode;
+  const out: number[] = [];
+  if (!(lambda > 0) || w === 0) return out;
+  const k0 = w * a * a - a * m;
+  // monic: r⁴ + c2 r² + c1 r + c0
+  const c2 = (2 * w * k0 - lambda) / (w * w),
+    c1 = (2 * M * lambda) / (w * w),
+    c0 = (k0 * k0 - lambda * a * a) / (w * w);
+  // Ferrari: m > 0 a root of the resolvent 8m³ + 8c2 m² + (2c2² − 8c0) m − c1² (c1 > 0), then
+  // r = (±√(2m) ± √(−(2c2 + 2m ± √2 c1/√m)))/2
+  const m0 = largestCubicRoot(c2, 0.25 * c2 * c2 - c0, (-c1 * c1) / 8);
+  const re = [0, 0, 0, 0],
+    im = [0, 0, 0, 0];
+  if (!(m0 > 0)) return out;
+  const sq = Math.sqrt(2 * m0);
+  for (let k = 0; k < 2; k++) {
+    const sign = k === 0 ? 1 : -1;
+    const D = -(2 * c2 + 2 * m0 + (sign * Math.SQRT2 * c1) / Math.sqrt(m0));
+    const root = Math.sqrt(Math.abs(D));
+    for (let j = 0; j < 2; j++) {
+      const o = 2 * k + j,
+        pm = j === 0 ? 0.5 : -0.5;
+      re[o] = 0.5 * sign * sq + (D >= 0 ? pm * root : 0);
+      im[o] = D >= 0 ? 0 : pm * root;
+    }
+  }
+  for (let k = 0; k < 4; k++) {
+    const xr = re[k] - rPlus,
+      xi = Math.abs(im[k]);
+    // (a root inside the horizon, π off the real u axis as r− is, leaves every rung of a massless leg, up to a
+    // ratio of FAR_RUNG, at ρ ≥ RHO_RESOLVED > RHO_FAIL: left out, as r− is)
+    if (!Number.isFinite(xr + xi) || (xr <= 0 && xi === 0)) continue;
+    out.push(Math.log(Math.hypot(xr, xi)), Math.atan2(xi, xr));
+  }
+  return out;
+}
+
+/**
+ * The ρ (see rungRho, against branchPoints) below which a massless rung is not given to a Riccati step but handled
+ * as one that failed (halved, or crossed by Taylor steps) at once. Measured on the tail grid (bench/floor.bench.mjs
+ * --grid, 208 modes, 973 massless Riccati steps tried): every step below ρ = 6.7 failed (121 below 6, 57 between
+ * 6 and 6.7, none made; 48 of them on −s legs, whose spin terms the quartic leaves out), 22 of 84 between 6 and
+ * RHO_RESOLVED were made, 480 of 504 between RHO_RESOLVED and 12. The steps made and Γ are those of before, bit for
+ * bit (tail grid, 300 random modes); evaluations −2.1 % on the grid, and interleaved (bench/floor.bench.mjs --grid
+ * --rounds=4, three runs) the cost of l = 100, Mω = 1 over the random modes' median 2.89–2.91 → 2.77–2.82, modes
+ * above 3× 6–9 → 3–4 of 208 (l = 100, Mω = 10: 2.16–2.23 → 2.23–2.25).
+ */
+const RHO_FAIL = 6.5;
+
+/** What a Riccati step not tried (see RHO_FAIL) reports. */
+const FAILED = { ok: false, passes: 0, evaluations: 0, correction: 0, error: 0, rounding: 0 } as const;
+
+/** The largest real root of m³ + b m² + c m + d (Cardano, or the trigonometric form for three real roots). */
+function largestCubicRoot(b: number, c: number, d: number): number {
+  const p = c - (b * b) / 3,
+    q = (2 * b * b * b) / 27 - (b * c) / 3 + d;
+  const disc = (q * q) / 4 + (p * p * p) / 27;
+  let t: number;
+  if (disc > 0) {
+    const sd = Math.sqrt(disc);
+    t = Math.cbrt(-0.5 * q + sd) + Math.cbrt(-0.5 * q - sd);
+  } else {
+    const rr = Math.sqrt(-p / 3);
+    const arg = Math.acos(Math.max(-1, Math.min(1, (3 * q) / (2 * p * rr)))) / 3;
+    t = 2 * rr * Math.cos(arg);
+  }
+  return t - b / 3;
+}
+
+/** ρ of the Bernstein ellipse of the rung [ua, ub] (in u = ln x) through the nearest of `points` ((U, V) pairs). */
+function rungRho(ua: number, ub: number, points: readonly number[]): number {
+  const h = 0.5 * (ub - ua),
+    mid = 0.5 * (ua + ub);
+  let rho = Number.POSITIVE_INFINITY;
+  for (let k = 0; k < points.length; k += 2) rho = Math.min(rho, bernstein((points[k] - mid) / h, points[k + 1] / h));
+  return rho;
 }
 
 /**
@@ -589,6 +675,8 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   // RICCATI_NODES over a rung of 4; s = 1/2, l = 100.5, m = 50.5, a = 0.99, Mω = 1: failed steps 8 → 5,
   // 3,837 → 3,613 evaluations), and a failed step costs about what a made one does.
   let halveRest = false;
+  let branch: number[] | undefined;
+  const branchOf = () => (branch ??= branchPoints(hole, leg.mode));
   // true where the step was made whole (not halved, nor given to Taylor steps or the integrator)
   // (`nodes`: the step's node count; `long`: a rung of a far zone cut with LONG_FAR_RUNG)
   const byRiccati = (
@@ -600,7 +688,11 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     nodes = RICCATI_NODES,
     long = false,
   ): boolean => {
-    const step = riccatiStep(e, from.x, to.x, y, leg.tol, scale, nodes, maxPasses, accept, conjugate, longRange);
+    // a massless rung whose ellipse through the nearest branch point of W is below RHO_FAIL is not tried (see there)
+    const hopeless = !longRange && rungRho(Math.log(from.x), Math.log(to.x), branchOf()) < RHO_FAIL;
+    const step = hopeless
+      ? FAILED
+      : riccatiStep(e, from.x, to.x, y, leg.tol, scale, nodes, maxPasses, accept, conjugate, longRange);
     // counted as right-hand-side evaluations: the coefficients at every node, and one collocation pass per node and pass
     leg.counter.evaluations += step.evaluations * (1 + step.passes);
     if (!step.ok) {
