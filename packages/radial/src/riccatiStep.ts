@@ -190,28 +190,101 @@ const scratch = new Float64Array(9);
  * about two thirds of the cost. Allocates nothing.
  */
 export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, flip = false, mirror = false): void {
-  const j = scratch;
-  jet(e.delta, x, j, 0);
-  const a0 = j[0] * j[0],
-    a1 = 2 * j[0] * j[1],
-    a2 = 2 * j[1] * j[1] + 2 * j[0] * j[2];
+  at[0] = x;
+  localPacked(packed(e, packScratch), packedWidth(e), out, flip, mirror);
+}
+
+/** Room for five polynomials of up to eight coefficients (riccatiEquation gives at most five). */
+const PACK_WIDTH = 8;
+const packScratch = new Float64Array(5 * PACK_WIDTH);
+/** The point x of `localPacked`, passed in an array: a number argument of a call not inlined is boxed (a heap number per node). */
+const at = new Float64Array(1);
+
+/** The number of coefficients `packed` lays out per polynomial. */
+function packedWidth(e: RiccatiEquation): number {
+  return Math.max(e.delta.length, e.bRe.length, e.bIm.length, e.cRe.length, e.cIm.length);
+}
+
+/**
+ * Δ, Re B, Im B, Re C, Im C of `e` side by side (coefficient k of polynomial
+ * p at 5k + p), zero-padded to the longest (`packedWidth`), in `room`
+ * or a new array if they do not fit. Horner's rule over leading
+ * zeros leaves v, v', v'' at +0 until the first coefficient of the
+ * polynomial (0·x + 0 = +0 for finite x > 0), so the padding gives the same
+ * doubles as each polynomial's own length.
+ */
+function packed(e: RiccatiEquation, room: Float64Array): Float64Array {
+  const { delta, bRe, bIm, cRe, cIm } = e;
+  const width = packedWidth(e);
+  const pk = 5 * width <= room.length ? room : new Float64Array(5 * width);
+  for (let k = 0, o = 0; k < width; k++, o += 5) {
+    pk[o] = k < delta.length ? delta[k] : 0;
+    pk[o + 1] = k < bRe.length ? bRe[k] : 0;
+    pk[o + 2] = k < bIm.length ? bIm[k] : 0;
+    pk[o + 3] = k < cRe.length ? cRe[k] : 0;
+    pk[o + 4] = k < cIm.length ? cIm[k] : 0;
+  }
+  return pk;
+}
+
+/**
+ * `localRiccati` on the packed coefficients (`packed`): the five jets in one
+ * Horner loop (five independent chains, no stores between them), and the
+ * factor 1/g² shared by σ = ±1 (the same doubles: g changes sign, g² not).
+ */
+function localPacked(pk: Float64Array, width: number, out: Float64Array, flip: boolean, mirror: boolean): void {
+  const x = at[0];
+  // v, v', v''/2 of Δ (d), Re B (b), Im B (c), Re C (f), Im C (g), as `jet`
+  let dv = 0,
+    d1 = 0,
+    d2 = 0,
+    bv = 0,
+    b1 = 0,
+    b2 = 0,
+    cv = 0,
+    c1 = 0,
+    c2 = 0,
+    fv = 0,
+    f1 = 0,
+    f2 = 0,
+    gv = 0,
+    g1 = 0,
+    g2 = 0;
+  for (let k = width - 1; k >= 0; k--) {
+    const o = 5 * k;
+    d2 = d2 * x + d1;
+    d1 = d1 * x + dv;
+    dv = dv * x + pk[o];
+    b2 = b2 * x + b1;
+    b1 = b1 * x + bv;
+    bv = bv * x + pk[o + 1];
+    c2 = c2 * x + c1;
+    c1 = c1 * x + cv;
+    cv = cv * x + pk[o + 2];
+    f2 = f2 * x + f1;
+    f1 = f1 * x + fv;
+    fv = fv * x + pk[o + 3];
+    g2 = g2 * x + g1;
+    g1 = g1 * x + gv;
+    gv = gv * x + pk[o + 4];
+  }
+  const dd2 = 2 * d2;
+  const a0 = dv * dv,
+    a1 = 2 * dv * d1,
+    a2 = 2 * d1 * d1 + 2 * dv * dd2;
   // p, p', p'' and q, q', q'' (x-derivatives) of B/A and C/A
-  jet(e.bRe, x, j, 3);
-  jet(e.bIm, x, j, 6);
-  const pr = j[3] / a0,
-    pi = j[6] / a0;
-  const pr1 = (j[4] - pr * a1) / a0,
-    pi1 = (j[7] - pi * a1) / a0;
-  const pr2 = (j[5] - 2 * pr1 * a1 - pr * a2) / a0,
-    pi2 = (j[8] - 2 * pi1 * a1 - pi * a2) / a0;
-  jet(e.cRe, x, j, 3);
-  jet(e.cIm, x, j, 6);
-  const qr = j[3] / a0,
-    qi = j[6] / a0;
-  const qr1 = (j[4] - qr * a1) / a0,
-    qi1 = (j[7] - qi * a1) / a0;
-  const qr2 = (j[5] - 2 * qr1 * a1 - qr * a2) / a0,
-    qi2 = (j[8] - 2 * qi1 * a1 - qi * a2) / a0;
+  const pr = bv / a0,
+    pi = cv / a0;
+  const pr1 = (b1 - pr * a1) / a0,
+    pi1 = (c1 - pi * a1) / a0;
+  const pr2 = (2 * b2 - 2 * pr1 * a1 - pr * a2) / a0,
+    pi2 = (2 * c2 - 2 * pi1 * a1 - pi * a2) / a0;
+  const qr = fv / a0,
+    qi = gv / a0;
+  const qr1 = (f1 - qr * a1) / a0,
+    qi1 = (g1 - qi * a1) / a0;
+  const qr2 = (2 * f2 - 2 * qr1 * a1 - qr * a2) / a0,
+    qi2 = (2 * g2 - 2 * qi1 * a1 - qi * a2) / a0;
   // to u = ln x: P = xp − 1, Q = x²q, d/du = x d/dx
   const x2 = x * x,
     x3 = x2 * x,
@@ -262,6 +335,11 @@ export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, f
   // P, P', P'' real and W, W', W'' imaginary (real coefficients, oscillating solutions): every operation below
   // maps σ = +1 to σ = −1 by conjugation, so with `mirror` the second is written as the first's conjugate
   const pair = mirror && Pi === 0 && Pi1 === 0 && Pi2 === 0 && Wr === 0 && W1r === 0 && W2r === 0;
+  // 1/W and 1/W² once: for σ = −1, 1/g is the negation (exact) and 1/g² the same
+  const iwr = Wr / ww,
+    iwi = -Wi / ww;
+  const ig2r = iwr * iwr - iwi * iwi,
+    ig2i = 2 * iwr * iwi;
   for (let k = 0; k < (pair ? 1 : 2); k++) {
     const sg = k === 0 ? 1 : -1;
     const gr = sg * Wr,
@@ -277,16 +355,14 @@ export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, f
     const y02r = 0.5 * (g2r - Pr2),
       y02i = 0.5 * (g2i - Pi2);
     // 1/g = conj(g)/|g|²
-    const igr = gr / ww,
-      igi = -gi / ww;
+    const igr = sg * iwr,
+      igi = sg * iwi;
     // δ₁ = −Y₀'/g
     const d1r = -(y01r * igr - y01i * igi),
       d1i = -(y01r * igi + y01i * igr);
     // δ₁' = (Y₀' g' − Y₀'' g)/g²
     const nr = y01r * g1r - y01i * g1i - (y02r * gr - y02i * gi),
       ni = y01r * g1i + y01i * g1r - (y02r * gi + y02i * gr);
-    const ig2r = igr * igr - igi * igi,
-      ig2i = 2 * igr * igi;
     const d11r = nr * ig2r - ni * ig2i,
       d11i = nr * ig2i + ni * ig2r;
     // δ₂ = −(δ₁' + δ₁²)/(g + 2δ₁)
@@ -323,6 +399,13 @@ export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, f
  * 16 per Riccati step). Returns false, `out` untouched, where Z ≥ 0.
  */
 export function localRiccatiReal(e: RiccatiEquation, x: number, out: Float64Array, flip = false): boolean {
+  at[0] = x;
+  return localRealAt(e, out, flip);
+}
+
+/** `localRiccatiReal` at x = at[0] (see `at`). */
+function localRealAt(e: RiccatiEquation, out: Float64Array, flip: boolean): boolean {
+  const x = at[0];
   const j = scratch;
   jet(e.delta, x, j, 0);
   const a0 = j[0] * j[0],
@@ -471,6 +554,8 @@ interface Work {
   rounding: Float64Array;
   /** one point's `localRiccati` output */
   local: Float64Array;
+  /** the step's coefficients (`packed`) */
+  packed: Float64Array;
 }
 
 const works = new Map<number, Work>();
@@ -501,6 +586,7 @@ function workFor(n: number): Work {
       error: new Float64Array(2),
       rounding: new Float64Array(2),
       local: new Float64Array(LOCAL_SIZE),
+      packed: new Float64Array(5 * PACK_WIDTH),
     };
     works.set(n, w);
   }
@@ -519,12 +605,16 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
   const n = rule.n;
   const o = k * n;
   const inv = 1 / half;
-  let yScale = 0;
+  // max |y| as the root of max |y|² (the same double: a correctly rounded root is monotonic)
+  let yScale2 = 0;
   for (let j = 0; j < n; j++) {
-    yRe[j] = aRe[o + j] + cRe[o + j];
-    yIm[j] = aIm[o + j] + cIm[o + j];
-    yScale = Math.max(yScale, Math.sqrt(yRe[j] * yRe[j] + yIm[j] * yIm[j]));
+    const yr = aRe[o + j] + cRe[o + j],
+      yi = aIm[o + j] + cIm[o + j];
+    yRe[j] = yr;
+    yIm[j] = yi;
+    yScale2 = Math.max(yScale2, yr * yr + yi * yi);
   }
+  const yScale = Math.sqrt(yScale2);
   const floor = ROUNDING * Number.EPSILON * 2 * half * yScale;
   let previous = Number.POSITIVE_INFINITY;
   let passes = 0;
@@ -538,24 +628,27 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
   let firstNewton = 0;
   while (passes < maxPasses) {
     passes++;
+    // c' on the nodes (y' = y₁' + c'/half, formed where it is used)
     chebyshevDerivative(rule, cRe, cIm, o, dRe, dIm);
-    for (let i = 0; i < n; i++) {
-      dRe[i] = apRe[o + i] + dRe[i] * inv;
-      dIm[i] = apIm[o + i] + dIm[i] * inv;
-    }
     let largest = 0;
     if (newtonPasses) {
+      for (let i = 0; i < n; i++) {
+        dRe[i] = apRe[o + i] + dRe[i] * inv;
+        dIm[i] = apIm[o + i] + dIm[i] * inv;
+      }
       largest = newtonPass(w, o, inv, passes === firstNewton);
       if (!(largest >= 0)) return -passes;
     } else
       for (let j = 0; j < n; j++) {
         const yr = yRe[j],
           yi = yIm[j];
+        const pr = pRe[j],
+          pi = pIm[j];
         // residual y' + y² + p y + q
-        const rr = dRe[j] + yr * yr - yi * yi + pRe[j] * yr - pIm[j] * yi + qRe[j];
-        const ri = dIm[j] + 2 * yr * yi + pRe[j] * yi + pIm[j] * yr + qIm[j];
-        const gr = 2 * yr + pRe[j],
-          gi = 2 * yi + pIm[j];
+        const rr = apRe[o + j] + dRe[j] * inv + yr * yr - yi * yi + pr * yr - pi * yi + qRe[j];
+        const ri = apIm[o + j] + dIm[j] * inv + 2 * yr * yi + pr * yi + pi * yr + qIm[j];
+        const gr = 2 * yr + pr,
+          gi = 2 * yi + pi;
         const gg = gr * gr + gi * gi;
         const cr = -(rr * gr + ri * gi) / gg,
           ci = -(ri * gr - rr * gi) / gg;
@@ -1037,14 +1130,20 @@ export function riccatiStep(
   const l = w.local;
   // a massive field's far zone with real coefficients: the cheaper form where it applies (the same doubles, see localRiccatiReal)
   const real = mirror && e.real === true;
+  // the coefficients laid out once for the step's nodes
+  const pk = packed(e, w.packed),
+    width = packedWidth(e);
   let prevWr = 0,
     prevWi = 0;
   for (let j = 0; j < n; j++) {
-    const xj = j === 0 ? xb : j === n - 1 ? xa : Math.exp(mid + half * rule.t[j]);
-    if (!(real && localRiccatiReal(e, xj, l))) localRiccati(e, xj, l, false, mirror);
+    // x_j, passed in `at` (never as a number: a number argument would box it, a heap number per node)
+    if (j === 0) at[0] = xb;
+    else if (j === n - 1) at[0] = xa;
+    else at[0] = Math.exp(mid + half * rule.t[j]);
+    if (!(real && localRealAt(e, l, false))) localPacked(pk, width, l, false, mirror);
     // one continuous branch of W along the interval
     if (j > 0 && l[4] * prevWr + l[5] * prevWi < 0)
-      if (!(real && localRiccatiReal(e, xj, l, true))) localRiccati(e, xj, l, true, mirror);
+      if (!(real && localRealAt(e, l, true))) localPacked(pk, width, l, true, mirror);
     prevWr = l[4];
     prevWi = l[5];
     w.pRe[j] = l[0];
@@ -1073,7 +1172,7 @@ export function riccatiStep(
   if (minus < 0) return { ok: false, passes: Math.max(plus, -minus), evaluations: n, correction: 0, error: 0, rounding: 0 };
   const E = w.ends;
   // y = Y/x at the two ends
-  for (const o of [0, 6]) {
+  for (let o = 0; o <= 6; o += 6) {
     E[o] /= xa;
     E[o + 1] /= xa;
     E[o + 2] /= xb;
