@@ -191,49 +191,29 @@ const scratch = new Float64Array(9);
  */
 export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, flip = false, mirror = false): void {
   at[0] = x;
-  localPacked(packed(e, packScratch), packedWidth(e), out, flip, mirror);
+  localAt(e, out, flip, mirror);
 }
 
-/** Room for five polynomials of up to eight coefficients (riccatiEquation gives at most five). */
-const PACK_WIDTH = 8;
-const packScratch = new Float64Array(5 * PACK_WIDTH);
-/** The point x of `localPacked`, passed in an array: a number argument of a call not inlined is boxed (a heap number per node). */
+/** The point x of `localAt`, passed in an array: a number argument of a call not inlined is boxed (a heap number per node). */
 const at = new Float64Array(1);
 
-/** The number of coefficients `packed` lays out per polynomial. */
-function packedWidth(e: RiccatiEquation): number {
-  return Math.max(e.delta.length, e.bRe.length, e.bIm.length, e.cRe.length, e.cIm.length);
-}
-
 /**
- * Δ, Re B, Im B, Re C, Im C of `e` side by side (coefficient k of polynomial
- * p at 5k + p), zero-padded to the longest (`packedWidth`), in `room`
- * or a new array if they do not fit. Horner's rule over leading
- * zeros leaves v, v', v'' at +0 until the first coefficient of the
- * polynomial (0·x + 0 = +0 for finite x > 0), so the padding gives the same
- * doubles as each polynomial's own length.
+ * `localRiccati` at x = at[0]: the five jets in one Horner loop (five
+ * independent chains, no stores between them; a polynomial shorter than the
+ * longest reads zeros above its degree, and Horner's rule over leading zeros
+ * leaves v, v', v'' at +0 until its first coefficient, 0·x + 0 = +0 for
+ * finite x > 0: the same doubles as over its own length), and 1/g, 1/g²
+ * shared by σ = ±1 (the same doubles: g changes sign, g² not).
  */
-function packed(e: RiccatiEquation, room: Float64Array): Float64Array {
-  const { delta, bRe, bIm, cRe, cIm } = e;
-  const width = packedWidth(e);
-  const pk = 5 * width <= room.length ? room : new Float64Array(5 * width);
-  for (let k = 0, o = 0; k < width; k++, o += 5) {
-    pk[o] = k < delta.length ? delta[k] : 0;
-    pk[o + 1] = k < bRe.length ? bRe[k] : 0;
-    pk[o + 2] = k < bIm.length ? bIm[k] : 0;
-    pk[o + 3] = k < cRe.length ? cRe[k] : 0;
-    pk[o + 4] = k < cIm.length ? cIm[k] : 0;
-  }
-  return pk;
-}
-
-/**
- * `localRiccati` on the packed coefficients (`packed`): the five jets in one
- * Horner loop (five independent chains, no stores between them), and the
- * factor 1/g² shared by σ = ±1 (the same doubles: g changes sign, g² not).
- */
-function localPacked(pk: Float64Array, width: number, out: Float64Array, flip: boolean, mirror: boolean): void {
+function localAt(e: RiccatiEquation, out: Float64Array, flip: boolean, mirror: boolean): void {
   const x = at[0];
+  const { delta, bRe, bIm, cRe, cIm } = e;
+  const nd = delta.length,
+    nbr = bRe.length,
+    nbi = bIm.length,
+    ncr = cRe.length,
+    nci = cIm.length;
+  const width = Math.max(nd, nbr, nbi, ncr, nci);
   // v, v', v''/2 of Δ (d), Re B (b), Im B (c), Re C (f), Im C (g), as `jet`
   let dv = 0,
     d1 = 0,
@@ -251,22 +231,21 @@ function localPacked(pk: Float64Array, width: number, out: Float64Array, flip: b
     g1 = 0,
     g2 = 0;
   for (let k = width - 1; k >= 0; k--) {
-    const o = 5 * k;
     d2 = d2 * x + d1;
     d1 = d1 * x + dv;
-    dv = dv * x + pk[o];
+    dv = dv * x + (k < nd ? delta[k] : 0);
     b2 = b2 * x + b1;
     b1 = b1 * x + bv;
-    bv = bv * x + pk[o + 1];
+    bv = bv * x + (k < nbr ? bRe[k] : 0);
     c2 = c2 * x + c1;
     c1 = c1 * x + cv;
-    cv = cv * x + pk[o + 2];
+    cv = cv * x + (k < nbi ? bIm[k] : 0);
     f2 = f2 * x + f1;
     f1 = f1 * x + fv;
-    fv = fv * x + pk[o + 3];
+    fv = fv * x + (k < ncr ? cRe[k] : 0);
     g2 = g2 * x + g1;
     g1 = g1 * x + gv;
-    gv = gv * x + pk[o + 4];
+    gv = gv * x + (k < nci ? cIm[k] : 0);
   }
   const dd2 = 2 * d2;
   const a0 = dv * dv,
@@ -554,8 +533,6 @@ interface Work {
   rounding: Float64Array;
   /** one point's `localRiccati` output */
   local: Float64Array;
-  /** the step's coefficients (`packed`) */
-  packed: Float64Array;
 }
 
 const works = new Map<number, Work>();
@@ -586,7 +563,6 @@ function workFor(n: number): Work {
       error: new Float64Array(2),
       rounding: new Float64Array(2),
       local: new Float64Array(LOCAL_SIZE),
-      packed: new Float64Array(5 * PACK_WIDTH),
     };
     works.set(n, w);
   }
@@ -1130,9 +1106,6 @@ export function riccatiStep(
   const l = w.local;
   // a massive field's far zone with real coefficients: the cheaper form where it applies (the same doubles, see localRiccatiReal)
   const real = mirror && e.real === true;
-  // the coefficients laid out once for the step's nodes
-  const pk = packed(e, w.packed),
-    width = packedWidth(e);
   let prevWr = 0,
     prevWi = 0;
   for (let j = 0; j < n; j++) {
@@ -1140,10 +1113,10 @@ export function riccatiStep(
     if (j === 0) at[0] = xb;
     else if (j === n - 1) at[0] = xa;
     else at[0] = Math.exp(mid + half * rule.t[j]);
-    if (!(real && localRealAt(e, l, false))) localPacked(pk, width, l, false, mirror);
+    if (!(real && localRealAt(e, l, false))) localAt(e, l, false, mirror);
     // one continuous branch of W along the interval
     if (j > 0 && l[4] * prevWr + l[5] * prevWi < 0)
-      if (!(real && localRealAt(e, l, true))) localPacked(pk, width, l, true, mirror);
+      if (!(real && localRealAt(e, l, true))) localAt(e, l, true, mirror);
     prevWr = l[4];
     prevWi = l[5];
     w.pRe[j] = l[0];
