@@ -110,6 +110,11 @@ export function chebyshevTail(rule: ChebyshevRule, re: Float64Array, im: Float64
     mr += g * a;
     mi += g * b;
   }
+  return tailOf(nr, ni, mr, mi, N);
+}
+
+/** chebyshevTail from its sums Σ f_j z_j (nr, ni) and Σ f_j t_j z_j (mr, mi), f = rule.alt, for a caller that forms them in its own loop over j = 0 … N. */
+export function tailOf(nr: number, ni: number, mr: number, mi: number, N: number): number {
   return (Math.sqrt(nr * nr + ni * ni) + 2 * Math.sqrt(mr * mr + mi * mi)) / N;
 }
 

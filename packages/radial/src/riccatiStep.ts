@@ -24,7 +24,7 @@
  * oscillations, the interval unresolved) reports failure and the caller
  * integrates that interval with the ODE integrator instead.
  */
-import { type ChebyshevRule, chebyshevDerivative, chebyshevRule, chebyshevTail } from './chebyshev.js';
+import { type ChebyshevRule, chebyshevDerivative, chebyshevRule, chebyshevTail, tailOf } from './chebyshev.js';
 import type { RadialEquation } from './equation.js';
 
 /** The coefficients of A R'' + B R' + C R = 0 in powers of x = r − r+ (A = Δ², Δ real). */
@@ -602,12 +602,21 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
   const reach = accept > ACCEPT ? accept * tol : 0.01 * tol;
   let newtonPasses = false;
   let firstNewton = 0;
+  const { alt, altT } = rule;
+  // chebyshevTail of y after the last pass, where that pass was a defect correction (else −1)
+  let yTail = -1;
   while (passes < maxPasses) {
     passes++;
     // c' on the nodes (y' = y₁' + c'/half, formed where it is used)
     chebyshevDerivative(rule, cRe, cIm, o, dRe, dIm);
     let largest = 0;
+    // chebyshevTail's sums of the new y, formed in the defect pass (the same order, the same doubles)
+    let tnr = 0,
+      tni = 0,
+      tmr = 0,
+      tmi = 0;
     if (newtonPasses) {
+      yTail = -1;
       for (let i = 0; i < n; i++) {
         dRe[i] = apRe[o + i] + dRe[i] * inv;
         dIm[i] = apIm[o + i] + dIm[i] * inv;
@@ -633,10 +642,19 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
         // this pass's correction, kept (in place of y' at this node, read above) for the resolution check below
         dRe[j] = cr;
         dIm[j] = ci;
-        yRe[j] = yr + cr;
-        yIm[j] = yi + ci;
+        const nyr = yr + cr,
+          nyi = yi + ci;
+        yRe[j] = nyr;
+        yIm[j] = nyi;
+        const f = alt[j],
+          g = altT[j];
+        tnr += f * nyr;
+        tni += f * nyi;
+        tmr += g * nyr;
+        tmi += g * nyi;
         largest = Math.max(largest, cr * cr + ci * ci);
       }
+    if (!newtonPasses) yTail = tailOf(tnr, tni, tmr, tmi, n - 1);
     // the correction's effect on ∫y (interval length 2·half) and on y itself
     largest = Math.sqrt(largest);
     // Measured against the tolerance beyond the rounding floor of ∫Y itself (a phase of |Y|·2·half radians is known to ε of it).
@@ -696,7 +714,7 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
     // all failed that check), and (b) on a massless leg, from the first pass on, CORRECTION_TAIL × the tail of this
     // pass's correction (kept in dRe, dIm above; see CORRECTION_TAIL).
     if (!newtonPasses && (passes > 1 || !newton)) {
-      const tail = chebyshevTail(rule, yRe, yIm);
+      const tail = yTail;
       if (unresolved(tail, half, floor, tol, yScale)) {
         let allowance = passes > 1 ? 6 * ((largest * largest) / (previous - largest)) : Number.POSITIVE_INFINITY;
         if (!newton) allowance = Math.min(allowance, CORRECTION_TAIL * chebyshevTail(rule, dRe, dIm));
@@ -708,7 +726,7 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
   if (!converged) return -passes;
   w.last[k] = stalled;
   // Unresolved on the nodes? The interpolant's highest coefficients bound what collocation missed.
-  const tail = chebyshevTail(rule, yRe, yIm);
+  const tail = yTail >= 0 ? yTail : chebyshevTail(rule, yRe, yIm);
   if (2 * half * tail - floor > TAIL * tol || tail > TAIL * tol * yScale) return -passes;
   w.rounding[k] = ROUNDING_ERROR * Number.EPSILON * 2 * half * yScale;
   w.error[k] = remaining + Math.max(2 * half * tail - floor, 0) + tail / yScale;
