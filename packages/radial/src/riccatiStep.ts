@@ -1115,7 +1115,7 @@ export function riccatiStep(
   newton = false,
 ): RiccatiStep {
   const w = workFor(n);
-  const { rule } = w;
+  const { rule, pRe, pIm, qRe, qIm, aRe, aIm, apRe, apIm, cRe, cIm } = w;
   // nodes in u = ln x (riccatiStep works with Y = x y in u; see localRiccati)
   const ua = Math.log(xa),
     ub = Math.log(xb);
@@ -1137,20 +1137,23 @@ export function riccatiStep(
       if (!(real && localRealAt(e, l, true))) localAt(e, l, true, mirror);
     prevWr = l[4];
     prevWi = l[5];
-    w.pRe[j] = l[0];
-    w.pIm[j] = l[1];
-    w.qRe[j] = l[2];
-    w.qIm[j] = l[3];
-    for (let k = 0; k < 2; k++) {
-      const o = k * n + j,
-        src = k === 0 ? 6 : 12;
-      w.aRe[o] = l[src];
-      w.aIm[o] = l[src + 1];
-      w.apRe[o] = l[src + 2];
-      w.apIm[o] = l[src + 3];
-      w.cRe[o] = l[src + 4];
-      w.cIm[o] = l[src + 5];
-    }
+    pRe[j] = l[0];
+    pIm[j] = l[1];
+    qRe[j] = l[2];
+    qIm[j] = l[3];
+    aRe[j] = l[6];
+    aIm[j] = l[7];
+    apRe[j] = l[8];
+    apIm[j] = l[9];
+    cRe[j] = l[10];
+    cIm[j] = l[11];
+    const o = n + j;
+    aRe[o] = l[12];
+    aIm[o] = l[13];
+    apRe[o] = l[14];
+    apIm[o] = l[15];
+    cRe[o] = l[16];
+    cIm[o] = l[17];
   }
   const pair = mirror && conjugatePair(w);
   const plus = refine(w, 0, half, tol, maxPasses, accept, newton);
