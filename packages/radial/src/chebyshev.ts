@@ -167,7 +167,7 @@ export function chebyshevDerivative(
   }
   const { E, F } = rule;
   // two rows at a time (each value of the even and odd parts loaded once for both), each row's sums as before:
-  // the same doubles, ~1.3 times faster (16 nodes, measured in isolation)
+  // the same doubles, ~1.3 times faster (16 nodes, measured in isolation on this machine: 185–193 → 139–159 ns)
   let i = 0;
   for (; i + 1 < h; i += 2) {
     const r = i * h,
