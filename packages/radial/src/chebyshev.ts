@@ -28,6 +28,10 @@ export interface ChebyshevRule {
   E: Float64Array;
   /** the odd half of the fold (see E) */
   F: Float64Array;
+  /** chebyshevTail's weights f_j = (½ at the ends, else 1)·(−1)^j */
+  alt: Float64Array;
+  /** f_j t_j (the same doubles as the product formed in the loop) */
+  altT: Float64Array;
 }
 
 const rules = new Map<number, ChebyshevRule>();
@@ -72,7 +76,13 @@ export function chebyshevRule(n: number): ChebyshevRule {
       E[i * h + j] = 0.5 * (D[i * n + j] + D[i * n + N - j]);
       F[i * h + j] = 0.5 * (D[i * n + j] - D[i * n + N - j]);
     }
-  const rule = { n, t, D, w, E, F };
+  const alt = new Float64Array(n),
+    altT = new Float64Array(n);
+  for (let j = 0; j < n; j++) {
+    alt[j] = (j === 0 || j === N ? 0.5 : 1) * (j % 2 === 0 ? 1 : -1);
+    altT[j] = alt[j] * t[j];
+  }
+  const rule = { n, t, D, w, E, F, alt, altT };
   rules.set(n, rule);
   return rule;
 }
@@ -83,19 +93,28 @@ export function chebyshevRule(n: number): ChebyshevRule {
  * interpolant has not resolved.
  */
 export function chebyshevTail(rule: ChebyshevRule, re: Float64Array, im: Float64Array): number {
-  // cos(πjN/N) = (−1)^j and cos(πj(N−1)/N) = (−1)^j t_j
+  // cos(πjN/N) = (−1)^j and cos(πj(N−1)/N) = (−1)^j t_j, with the weights of the end nodes (rule.alt, rule.altT)
   const N = rule.n - 1;
+  const { alt, altT } = rule;
   let nr = 0,
     ni = 0,
     mr = 0,
     mi = 0;
   for (let j = 0; j <= N; j++) {
-    const f = (j === 0 || j === N ? 0.5 : 1) * (j % 2 === 0 ? 1 : -1);
-    nr += f * re[j];
-    ni += f * im[j];
-    mr += f * rule.t[j] * re[j];
-    mi += f * rule.t[j] * im[j];
+    const a = re[j],
+      b = im[j],
+      f = alt[j],
+      g = altT[j];
+    nr += f * a;
+    ni += f * b;
+    mr += g * a;
+    mi += g * b;
   }
+  return tailOf(nr, ni, mr, mi, N);
+}
+
+/** chebyshevTail from its sums Σ f_j z_j (nr, ni) and Σ f_j t_j z_j (mr, mi), f = rule.alt, for a caller that forms them in its own loop over j = 0 … N. */
+export function tailOf(nr: number, ni: number, mr: number, mi: number, N: number): number {
   return (Math.sqrt(nr * nr + ni * ni) + 2 * Math.sqrt(mr * mr + mi * mi)) / N;
 }
 
@@ -147,7 +166,93 @@ export function chebyshevDerivative(
     oddIm[j] = cIm[a] - cIm[b];
   }
   const { E, F } = rule;
-  for (let i = 0; i < h; i++) {
+  // two rows at a time (each value of the even and odd parts loaded once for both), each row's sums as before:
+  // the same doubles, ~1.3 times faster (16 nodes, measured in isolation on this machine: 185–193 → 139–159 ns)
+  let i = 0;
+  for (; i + 1 < h; i += 2) {
+    const r = i * h,
+      s = r + h;
+    let a0 = 0,
+      a1 = 0,
+      b0 = 0,
+      b1 = 0,
+      c0 = 0,
+      c1 = 0,
+      d0 = 0,
+      d1 = 0;
+    let j = 0;
+    for (; j + 1 < h; j += 2) {
+      const xr0 = evenRe[j],
+        xi0 = evenIm[j],
+        xr1 = evenRe[j + 1],
+        xi1 = evenIm[j + 1];
+      const e0 = E[r + j],
+        e1 = E[r + j + 1],
+        g0 = E[s + j],
+        g1 = E[s + j + 1];
+      a0 += e0 * xr0;
+      b0 += e0 * xi0;
+      a1 += e1 * xr1;
+      b1 += e1 * xi1;
+      c0 += g0 * xr0;
+      d0 += g0 * xi0;
+      c1 += g1 * xr1;
+      d1 += g1 * xi1;
+    }
+    if (j < h) {
+      const e0 = E[r + j],
+        g0 = E[s + j];
+      a0 += e0 * evenRe[j];
+      b0 += e0 * evenIm[j];
+      c0 += g0 * evenRe[j];
+      d0 += g0 * evenIm[j];
+    }
+    const pr = a0 + a1,
+      pi = b0 + b1,
+      pr2 = c0 + c1,
+      pi2 = d0 + d1;
+    a0 = a1 = b0 = b1 = c0 = c1 = d0 = d1 = 0;
+    for (j = 0; j + 1 < h; j += 2) {
+      const xr0 = oddRe[j],
+        xi0 = oddIm[j],
+        xr1 = oddRe[j + 1],
+        xi1 = oddIm[j + 1];
+      const f0 = F[r + j],
+        f1 = F[r + j + 1],
+        g0 = F[s + j],
+        g1 = F[s + j + 1];
+      a0 += f0 * xr0;
+      b0 += f0 * xi0;
+      a1 += f1 * xr1;
+      b1 += f1 * xi1;
+      c0 += g0 * xr0;
+      d0 += g0 * xi0;
+      c1 += g1 * xr1;
+      d1 += g1 * xi1;
+    }
+    if (j < h) {
+      const f0 = F[r + j],
+        g0 = F[s + j];
+      a0 += f0 * oddRe[j];
+      b0 += f0 * oddIm[j];
+      c0 += g0 * oddRe[j];
+      d0 += g0 * oddIm[j];
+    }
+    const qr = a0 + a1,
+      qi = b0 + b1,
+      qr2 = c0 + c1,
+      qi2 = d0 + d1;
+    outRe[i] = pr + qr;
+    outIm[i] = pi + qi;
+    outRe[N - i] = qr - pr;
+    outIm[N - i] = qi - pi;
+    outRe[i + 1] = pr2 + qr2;
+    outIm[i + 1] = pi2 + qi2;
+    outRe[N - 1 - i] = qr2 - pr2;
+    outIm[N - 1 - i] = qi2 - pi2;
+  }
+  if (i < h) {
+    // the last row (and its mirror image) of an odd h
     let pr0 = 0,
       pr1 = 0,
       pi0 = 0,

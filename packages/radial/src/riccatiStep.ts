@@ -24,7 +24,7 @@
  * oscillations, the interval unresolved) reports failure and the caller
  * integrates that interval with the ODE integrator instead.
  */
-import { type ChebyshevRule, chebyshevDerivative, chebyshevRule, chebyshevTail } from './chebyshev.js';
+import { type ChebyshevRule, chebyshevDerivative, chebyshevRule, chebyshevTail, tailOf } from './chebyshev.js';
 import type { RadialEquation } from './equation.js';
 
 /** The coefficients of A R'' + B R' + C R = 0 in powers of x = r − r+ (A = Δ², Δ real). */
@@ -190,28 +190,80 @@ const scratch = new Float64Array(9);
  * about two thirds of the cost. Allocates nothing.
  */
 export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, flip = false, mirror = false): void {
-  const j = scratch;
-  jet(e.delta, x, j, 0);
-  const a0 = j[0] * j[0],
-    a1 = 2 * j[0] * j[1],
-    a2 = 2 * j[1] * j[1] + 2 * j[0] * j[2];
+  at[0] = x;
+  localAt(e, out, flip, mirror);
+}
+
+/** The point x of `localAt`, passed in an array: a number argument of a call not inlined is boxed (a heap number per node). */
+const at = new Float64Array(1);
+
+/**
+ * `localRiccati` at x = at[0]: the five jets in one Horner loop (five
+ * independent chains, no stores between them; a polynomial shorter than the
+ * longest reads zeros above its degree, and Horner's rule over leading zeros
+ * leaves v, v', v'' at +0 until its first coefficient, 0·x + 0 = +0 for
+ * finite x > 0: the same doubles as over its own length), and 1/g, 1/g²
+ * shared by σ = ±1 (the same doubles: g changes sign, g² not).
+ */
+function localAt(e: RiccatiEquation, out: Float64Array, flip: boolean, mirror: boolean): void {
+  const x = at[0];
+  const { delta, bRe, bIm, cRe, cIm } = e;
+  const nd = delta.length,
+    nbr = bRe.length,
+    nbi = bIm.length,
+    ncr = cRe.length,
+    nci = cIm.length;
+  const width = Math.max(nd, nbr, nbi, ncr, nci);
+  // v, v', v''/2 of Δ (d), Re B (b), Im B (c), Re C (f), Im C (g), as `jet`
+  let dv = 0,
+    d1 = 0,
+    d2 = 0,
+    bv = 0,
+    b1 = 0,
+    b2 = 0,
+    cv = 0,
+    c1 = 0,
+    c2 = 0,
+    fv = 0,
+    f1 = 0,
+    f2 = 0,
+    gv = 0,
+    g1 = 0,
+    g2 = 0;
+  for (let k = width - 1; k >= 0; k--) {
+    d2 = d2 * x + d1;
+    d1 = d1 * x + dv;
+    dv = dv * x + (k < nd ? delta[k] : 0);
+    b2 = b2 * x + b1;
+    b1 = b1 * x + bv;
+    bv = bv * x + (k < nbr ? bRe[k] : 0);
+    c2 = c2 * x + c1;
+    c1 = c1 * x + cv;
+    cv = cv * x + (k < nbi ? bIm[k] : 0);
+    f2 = f2 * x + f1;
+    f1 = f1 * x + fv;
+    fv = fv * x + (k < ncr ? cRe[k] : 0);
+    g2 = g2 * x + g1;
+    g1 = g1 * x + gv;
+    gv = gv * x + (k < nci ? cIm[k] : 0);
+  }
+  const dd2 = 2 * d2;
+  const a0 = dv * dv,
+    a1 = 2 * dv * d1,
+    a2 = 2 * d1 * d1 + 2 * dv * dd2;
   // p, p', p'' and q, q', q'' (x-derivatives) of B/A and C/A
-  jet(e.bRe, x, j, 3);
-  jet(e.bIm, x, j, 6);
-  const pr = j[3] / a0,
-    pi = j[6] / a0;
-  const pr1 = (j[4] - pr * a1) / a0,
-    pi1 = (j[7] - pi * a1) / a0;
-  const pr2 = (j[5] - 2 * pr1 * a1 - pr * a2) / a0,
-    pi2 = (j[8] - 2 * pi1 * a1 - pi * a2) / a0;
-  jet(e.cRe, x, j, 3);
-  jet(e.cIm, x, j, 6);
-  const qr = j[3] / a0,
-    qi = j[6] / a0;
-  const qr1 = (j[4] - qr * a1) / a0,
-    qi1 = (j[7] - qi * a1) / a0;
-  const qr2 = (j[5] - 2 * qr1 * a1 - qr * a2) / a0,
-    qi2 = (j[8] - 2 * qi1 * a1 - qi * a2) / a0;
+  const pr = bv / a0,
+    pi = cv / a0;
+  const pr1 = (b1 - pr * a1) / a0,
+    pi1 = (c1 - pi * a1) / a0;
+  const pr2 = (2 * b2 - 2 * pr1 * a1 - pr * a2) / a0,
+    pi2 = (2 * c2 - 2 * pi1 * a1 - pi * a2) / a0;
+  const qr = fv / a0,
+    qi = gv / a0;
+  const qr1 = (f1 - qr * a1) / a0,
+    qi1 = (g1 - qi * a1) / a0;
+  const qr2 = (2 * f2 - 2 * qr1 * a1 - qr * a2) / a0,
+    qi2 = (2 * g2 - 2 * qi1 * a1 - qi * a2) / a0;
   // to u = ln x: P = xp − 1, Q = x²q, d/du = x d/dx
   const x2 = x * x,
     x3 = x2 * x,
@@ -262,6 +314,11 @@ export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, f
   // P, P', P'' real and W, W', W'' imaginary (real coefficients, oscillating solutions): every operation below
   // maps σ = +1 to σ = −1 by conjugation, so with `mirror` the second is written as the first's conjugate
   const pair = mirror && Pi === 0 && Pi1 === 0 && Pi2 === 0 && Wr === 0 && W1r === 0 && W2r === 0;
+  // 1/W and 1/W² once: for σ = −1, 1/g is the negation (exact) and 1/g² the same
+  const iwr = Wr / ww,
+    iwi = -Wi / ww;
+  const ig2r = iwr * iwr - iwi * iwi,
+    ig2i = 2 * iwr * iwi;
   for (let k = 0; k < (pair ? 1 : 2); k++) {
     const sg = k === 0 ? 1 : -1;
     const gr = sg * Wr,
@@ -277,16 +334,14 @@ export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, f
     const y02r = 0.5 * (g2r - Pr2),
       y02i = 0.5 * (g2i - Pi2);
     // 1/g = conj(g)/|g|²
-    const igr = gr / ww,
-      igi = -gi / ww;
+    const igr = sg * iwr,
+      igi = sg * iwi;
     // δ₁ = −Y₀'/g
     const d1r = -(y01r * igr - y01i * igi),
       d1i = -(y01r * igi + y01i * igr);
     // δ₁' = (Y₀' g' − Y₀'' g)/g²
     const nr = y01r * g1r - y01i * g1i - (y02r * gr - y02i * gi),
       ni = y01r * g1i + y01i * g1r - (y02r * gi + y02i * gr);
-    const ig2r = igr * igr - igi * igi,
-      ig2i = 2 * igr * igi;
     const d11r = nr * ig2r - ni * ig2i,
       d11i = nr * ig2i + ni * ig2r;
     // δ₂ = −(δ₁' + δ₁²)/(g + 2δ₁)
@@ -323,6 +378,13 @@ export function localRiccati(e: RiccatiEquation, x: number, out: Float64Array, f
  * 16 per Riccati step). Returns false, `out` untouched, where Z ≥ 0.
  */
 export function localRiccatiReal(e: RiccatiEquation, x: number, out: Float64Array, flip = false): boolean {
+  at[0] = x;
+  return localRealAt(e, out, flip);
+}
+
+/** `localRiccatiReal` at x = at[0] (see `at`). */
+function localRealAt(e: RiccatiEquation, out: Float64Array, flip: boolean): boolean {
+  const x = at[0];
   const j = scratch;
   jet(e.delta, x, j, 0);
   const a0 = j[0] * j[0],
@@ -519,12 +581,16 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
   const n = rule.n;
   const o = k * n;
   const inv = 1 / half;
-  let yScale = 0;
+  // max |y| as the root of max |y|² (the same double: a correctly rounded root is monotonic)
+  let yScale2 = 0;
   for (let j = 0; j < n; j++) {
-    yRe[j] = aRe[o + j] + cRe[o + j];
-    yIm[j] = aIm[o + j] + cIm[o + j];
-    yScale = Math.max(yScale, Math.sqrt(yRe[j] * yRe[j] + yIm[j] * yIm[j]));
+    const yr = aRe[o + j] + cRe[o + j],
+      yi = aIm[o + j] + cIm[o + j];
+    yRe[j] = yr;
+    yIm[j] = yi;
+    yScale2 = Math.max(yScale2, yr * yr + yi * yi);
   }
+  const yScale = Math.sqrt(yScale2);
   const floor = ROUNDING * Number.EPSILON * 2 * half * yScale;
   let previous = Number.POSITIVE_INFINITY;
   let passes = 0;
@@ -536,26 +602,38 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
   const reach = accept > ACCEPT ? accept * tol : 0.01 * tol;
   let newtonPasses = false;
   let firstNewton = 0;
+  const { alt, altT } = rule;
+  // chebyshevTail of y after the last pass, where that pass was a defect correction (else −1)
+  let yTail = -1;
   while (passes < maxPasses) {
     passes++;
+    // c' on the nodes (y' = y₁' + c'/half, formed where it is used)
     chebyshevDerivative(rule, cRe, cIm, o, dRe, dIm);
-    for (let i = 0; i < n; i++) {
-      dRe[i] = apRe[o + i] + dRe[i] * inv;
-      dIm[i] = apIm[o + i] + dIm[i] * inv;
-    }
     let largest = 0;
+    // chebyshevTail's sums of the new y, formed in the defect pass (the same order, the same doubles)
+    let tnr = 0,
+      tni = 0,
+      tmr = 0,
+      tmi = 0;
     if (newtonPasses) {
+      yTail = -1;
+      for (let i = 0; i < n; i++) {
+        dRe[i] = apRe[o + i] + dRe[i] * inv;
+        dIm[i] = apIm[o + i] + dIm[i] * inv;
+      }
       largest = newtonPass(w, o, inv, passes === firstNewton);
       if (!(largest >= 0)) return -passes;
     } else
       for (let j = 0; j < n; j++) {
         const yr = yRe[j],
           yi = yIm[j];
+        const pr = pRe[j],
+          pi = pIm[j];
         // residual y' + y² + p y + q
-        const rr = dRe[j] + yr * yr - yi * yi + pRe[j] * yr - pIm[j] * yi + qRe[j];
-        const ri = dIm[j] + 2 * yr * yi + pRe[j] * yi + pIm[j] * yr + qIm[j];
-        const gr = 2 * yr + pRe[j],
-          gi = 2 * yi + pIm[j];
+        const rr = apRe[o + j] + dRe[j] * inv + yr * yr - yi * yi + pr * yr - pi * yi + qRe[j];
+        const ri = apIm[o + j] + dIm[j] * inv + 2 * yr * yi + pr * yi + pi * yr + qIm[j];
+        const gr = 2 * yr + pr,
+          gi = 2 * yi + pi;
         const gg = gr * gr + gi * gi;
         const cr = -(rr * gr + ri * gi) / gg,
           ci = -(ri * gr - rr * gi) / gg;
@@ -564,10 +642,19 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
         // this pass's correction, kept (in place of y' at this node, read above) for the resolution check below
         dRe[j] = cr;
         dIm[j] = ci;
-        yRe[j] = yr + cr;
-        yIm[j] = yi + ci;
+        const nyr = yr + cr,
+          nyi = yi + ci;
+        yRe[j] = nyr;
+        yIm[j] = nyi;
+        const f = alt[j],
+          g = altT[j];
+        tnr += f * nyr;
+        tni += f * nyi;
+        tmr += g * nyr;
+        tmi += g * nyi;
         largest = Math.max(largest, cr * cr + ci * ci);
       }
+    if (!newtonPasses) yTail = tailOf(tnr, tni, tmr, tmi, n - 1);
     // the correction's effect on ∫y (interval length 2·half) and on y itself
     largest = Math.sqrt(largest);
     // Measured against the tolerance beyond the rounding floor of ∫Y itself (a phase of |Y|·2·half radians is known to ε of it).
@@ -627,7 +714,7 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
     // all failed that check), and (b) on a massless leg, from the first pass on, CORRECTION_TAIL × the tail of this
     // pass's correction (kept in dRe, dIm above; see CORRECTION_TAIL).
     if (!newtonPasses && (passes > 1 || !newton)) {
-      const tail = chebyshevTail(rule, yRe, yIm);
+      const tail = yTail;
       if (unresolved(tail, half, floor, tol, yScale)) {
         let allowance = passes > 1 ? 6 * ((largest * largest) / (previous - largest)) : Number.POSITIVE_INFINITY;
         if (!newton) allowance = Math.min(allowance, CORRECTION_TAIL * chebyshevTail(rule, dRe, dIm));
@@ -639,7 +726,7 @@ function refine(w: Work, k: 0 | 1, half: number, tol: number, maxPasses: number,
   if (!converged) return -passes;
   w.last[k] = stalled;
   // Unresolved on the nodes? The interpolant's highest coefficients bound what collocation missed.
-  const tail = chebyshevTail(rule, yRe, yIm);
+  const tail = yTail >= 0 ? yTail : chebyshevTail(rule, yRe, yIm);
   if (2 * half * tail - floor > TAIL * tol || tail > TAIL * tol * yScale) return -passes;
   w.rounding[k] = ROUNDING_ERROR * Number.EPSILON * 2 * half * yScale;
   w.error[k] = remaining + Math.max(2 * half * tail - floor, 0) + tail / yScale;
@@ -1028,7 +1115,7 @@ export function riccatiStep(
   newton = false,
 ): RiccatiStep {
   const w = workFor(n);
-  const { rule } = w;
+  const { rule, pRe, pIm, qRe, qIm, aRe, aIm, apRe, apIm, cRe, cIm } = w;
   // nodes in u = ln x (riccatiStep works with Y = x y in u; see localRiccati)
   const ua = Math.log(xa),
     ub = Math.log(xb);
@@ -1040,27 +1127,33 @@ export function riccatiStep(
   let prevWr = 0,
     prevWi = 0;
   for (let j = 0; j < n; j++) {
-    const xj = j === 0 ? xb : j === n - 1 ? xa : Math.exp(mid + half * rule.t[j]);
-    if (!(real && localRiccatiReal(e, xj, l))) localRiccati(e, xj, l, false, mirror);
+    // x_j, passed in `at` (never as a number: a number argument would box it, a heap number per node)
+    if (j === 0) at[0] = xb;
+    else if (j === n - 1) at[0] = xa;
+    else at[0] = Math.exp(mid + half * rule.t[j]);
+    if (!(real && localRealAt(e, l, false))) localAt(e, l, false, mirror);
     // one continuous branch of W along the interval
     if (j > 0 && l[4] * prevWr + l[5] * prevWi < 0)
-      if (!(real && localRiccatiReal(e, xj, l, true))) localRiccati(e, xj, l, true, mirror);
+      if (!(real && localRealAt(e, l, true))) localAt(e, l, true, mirror);
     prevWr = l[4];
     prevWi = l[5];
-    w.pRe[j] = l[0];
-    w.pIm[j] = l[1];
-    w.qRe[j] = l[2];
-    w.qIm[j] = l[3];
-    for (let k = 0; k < 2; k++) {
-      const o = k * n + j,
-        src = k === 0 ? 6 : 12;
-      w.aRe[o] = l[src];
-      w.aIm[o] = l[src + 1];
-      w.apRe[o] = l[src + 2];
-      w.apIm[o] = l[src + 3];
-      w.cRe[o] = l[src + 4];
-      w.cIm[o] = l[src + 5];
-    }
+    pRe[j] = l[0];
+    pIm[j] = l[1];
+    qRe[j] = l[2];
+    qIm[j] = l[3];
+    aRe[j] = l[6];
+    aIm[j] = l[7];
+    apRe[j] = l[8];
+    apIm[j] = l[9];
+    cRe[j] = l[10];
+    cIm[j] = l[11];
+    const o = n + j;
+    aRe[o] = l[12];
+    aIm[o] = l[13];
+    apRe[o] = l[14];
+    apIm[o] = l[15];
+    cRe[o] = l[16];
+    cIm[o] = l[17];
   }
   const pair = mirror && conjugatePair(w);
   const plus = refine(w, 0, half, tol, maxPasses, accept, newton);
@@ -1073,7 +1166,7 @@ export function riccatiStep(
   if (minus < 0) return { ok: false, passes: Math.max(plus, -minus), evaluations: n, correction: 0, error: 0, rounding: 0 };
   const E = w.ends;
   // y = Y/x at the two ends
-  for (const o of [0, 6]) {
+  for (let o = 0; o <= 6; o += 6) {
     E[o] /= xa;
     E[o + 1] /= xa;
     E[o + 2] /= xb;
