@@ -436,12 +436,20 @@ const trial = new Float64Array(4);
  * STEP_PHASE (WIDE_STEP_PHASE) radians by the local rate at both ends and at most RADIUS_SHARE
  * of the distance to the horizon; a step whose terms do not settle, or
  * whose rounding exceeds tol, is halved (up to MAX_HALVINGS times, else the
- * stretch is given back with y unchanged: ok false).
+ * stretch is given back with y unchanged: ok false). The result is written
+ * into `out` (default a new object) and returned.
  */
-export function taylorStretch(e: RiccatiEquation, xa: number, xb: number, y: Float64Array, tol: number): TaylorStretch {
+export function taylorStretch(
+  e: RiccatiEquation,
+  xa: number,
+  xb: number,
+  y: Float64Array,
+  tol: number,
+  out: TaylorStretch = { ok: false, steps: 0, errorSum: 0, terms: 0, logScale: 0, rescalings: 0 },
+): TaylorStretch {
   // the recurrence is written for A = Δ² with Δ of degree ≤ 2 and B, C of degree ≤ 4 (the massless equation)
   if (e.delta.length > 3 || e.bRe.length > 5 || e.bIm.length > 5 || e.cRe.length > 5 || e.cIm.length > 5)
-    return { ok: false, steps: 0, errorSum: 0, terms: 0, logScale: 0, rescalings: 0 };
+    return result(out, false, 0, 0, 0, 0, 0);
   start.set(y);
   let x = xa,
     steps = 0,
@@ -451,8 +459,7 @@ export function taylorStretch(e: RiccatiEquation, xa: number, xb: number, y: Flo
     rescalings = 0;
   // the shape of the coefficients, once per stretch: B real of degree ≤ 3 and Im C of degree ≤ 3, as in every
   // massless equation (B = (s+1)ΔΔ', Im U = −sΔ'K + 4sωrΔ); the Taylor shift about x0 keeps those zeros exact
-  const cubic = (c: Float64Array) => c.length < 5 || c[4] === 0;
-  const realB = e.bIm.every((c) => c === 0) && cubic(e.bRe) && cubic(e.cIm);
+  const realB = allZero(e.bIm) && cubic(e.bRe) && cubic(e.cIm);
   const phase = tol >= WIDE_STEP_TOL ? WIDE_STEP_PHASE : STEP_PHASE;
   // the growth a long step may aim at: GROWTH_PHASE, halved after a long step failed, regained by half per step
   let growthCap = GROWTH_PHASE;
@@ -515,7 +522,7 @@ export function taylorStretch(e: RiccatiEquation, xa: number, xb: number, y: Flo
       if (halvings === 0 && growth > phase) growthCap = Math.max(phase, 0.5 * growth);
       if (halvings === MAX_HALVINGS) {
         y.set(start);
-        return { ok: false, steps, errorSum, terms, logScale: 0, rescalings: 0 };
+        return result(out, false, steps, errorSum, terms, 0, 0);
       }
       h *= 0.5;
     }
@@ -532,7 +539,37 @@ export function taylorStretch(e: RiccatiEquation, xa: number, xb: number, y: Flo
   }
   if (!(Number.isFinite(y[0]) && Number.isFinite(y[1]) && Number.isFinite(y[2]) && Number.isFinite(y[3]))) {
     y.set(start);
-    return { ok: false, steps, errorSum, terms, logScale: 0, rescalings: 0 };
+    return result(out, false, steps, errorSum, terms, 0, 0);
   }
-  return { ok: true, steps, errorSum, terms, logScale, rescalings };
+  return result(out, true, steps, errorSum, terms, logScale, rescalings);
+}
+
+/** Whether every coefficient is 0 (a loop: `every` with an arrow allocated the arrow per call). */
+export function allZero(c: Float64Array): boolean {
+  for (let i = 0; i < c.length; i++) if (c[i] !== 0) return false;
+  return true;
+}
+
+/** Whether the x⁴ coefficient of c (degree ≤ 4) is 0. */
+function cubic(c: Float64Array): boolean {
+  return c.length < 5 || c[4] === 0;
+}
+
+/** `out` with these fields (the caller's object, reused from stretch to stretch: a new one per stretch was measured among a solve's allocations). */
+function result(
+  out: TaylorStretch,
+  ok: boolean,
+  steps: number,
+  errorSum: number,
+  terms: number,
+  logScale: number,
+  rescalings: number,
+): TaylorStretch {
+  out.ok = ok;
+  out.steps = steps;
+  out.errorSum = errorSum;
+  out.terms = terms;
+  out.logScale = logScale;
+  out.rescalings = rescalings;
+  return out;
 }
