@@ -467,7 +467,7 @@ export function taylorStretch(
   // the recurrence is written for A = Δ² with Δ of degree ≤ 2 and B, C of degree ≤ 4 (the massless equation)
   if (e.delta.length > 3 || e.bRe.length > 5 || e.bIm.length > 5 || e.cRe.length > 5 || e.cIm.length > 5)
     return result(out, false, 0, 0, 0, 0, 0);
-  start.set(y);
+  copy4(y, start);
   let x = xa,
     steps = 0,
     errorSum = 0,
@@ -537,7 +537,7 @@ export function taylorStretch(
     const leastTerms = minTerms(growth);
     let err = Number.NaN;
     for (let halvings = 0; ; halvings++) {
-      trial.set(y);
+      copy4(y, trial);
       stepIO[STEP_IO.X0] = x;
       stepIO[STEP_IO.H] = h;
       stepIO[STEP_IO.TARGET] = TARGET * tol;
@@ -548,12 +548,12 @@ export function taylorStretch(
       if (err <= tol) break;
       if (halvings === 0 && growth > phase) growthCap = Math.max(phase, 0.5 * growth);
       if (halvings === MAX_HALVINGS) {
-        y.set(start);
+        copy4(start, y);
         return result(out, false, steps, errorSum, terms, 0, 0);
       }
       h *= 0.5;
     }
-    y.set(trial);
+    copy4(trial, y);
     growthCap = Math.min(GROWTH_PHASE, 1.5 * growthCap);
     x = h >= rest ? xb : x + h;
     steps++;
@@ -565,10 +565,18 @@ export function taylorStretch(
     }
   }
   if (!(Number.isFinite(y[0]) && Number.isFinite(y[1]) && Number.isFinite(y[2]) && Number.isFinite(y[3]))) {
-    y.set(start);
+    copy4(start, y);
     return result(out, false, steps, errorSum, terms, 0, 0);
   }
   return result(out, true, steps, errorSum, terms, logScale, rescalings);
+}
+
+/** to[0..4) = from[0..4) (set() is a builtin call, ~9 ns against ~3 measured on Node 20, twice a step). */
+function copy4(from: Float64Array, to: Float64Array): void {
+  to[0] = from[0];
+  to[1] = from[1];
+  to[2] = from[2];
+  to[3] = from[3];
 }
 
 /** Whether every coefficient is 0 (a loop: `every` with an arrow allocated the arrow per call). */
