@@ -51,9 +51,10 @@ export function factorsThroat(hole: KerrHole, mode: RadialMode): boolean {
   return Math.abs((horizonWavenumber(hole, mode) * 2 * hole.mass * hole.rPlus) / (hole.rPlus - hole.rMinus)) > FACTOR_NU;
 }
 
-/** Quotient of the real polynomial q (coefficients q[0..]) by (x + b), padded to `length`. */
-function quotientByXPlusB(q: ArrayLike<number>, n: number, b: number, length: number): Float64Array {
-  const out = new Float64Array(length);
+/** Quotient of the real polynomial q (coefficients q[0..n)) by (x + b), into `out` (padded with zeros to its length). */
+function quotientByXPlusB(q: Float64Array, n: number, b: number, out: Float64Array): Float64Array {
+  const length = out.length;
+  out.fill(0);
   let r = 0;
   for (let j = n - 1; j >= 1; j--) {
     r = q[j] - b * r;
@@ -61,6 +62,16 @@ function quotientByXPlusB(q: ArrayLike<number>, n: number, b: number, length: nu
   }
   return out;
 }
+
+/**
+ * Scratch of the throat factor's coefficients (used within one call of horizonSeriesStart, which re-enters nothing:
+ * new arrays per call were measured among a solve's allocations): Δ² and (s+1)ΔΔ' as lists, and their quotients.
+ */
+const throatA = new Float64Array(5),
+  throatB = new Float64Array(4),
+  throatAQ = new Float64Array(4),
+  throatAQQ = new Float64Array(3),
+  throatBQ = new Float64Array(3);
 
 /** k = ω − mΩ_H */
 export function horizonWavenumber(hole: KerrHole, mode: RadialMode): number {
@@ -174,9 +185,18 @@ export function horizonSeriesStart(
     betaIm = 0.5 * sign * sqIm;
     // R = (1 + x/b)^β G: G solves A G'' + B̃ G' + C̃ G = 0 with
     // B̃ = B + 2β A/(x+b), C̃ = C + β B/(x+b) + β(β−1) A/(x+b)² (A has the factor (x+b)², B the factor (x+b))
-    const aQ = quotientByXPlusB([0, 0, A2, A3, A4], 5, b, 4);
-    const aQQ = quotientByXPlusB(aQ, 4, b, 3);
-    const bQ = quotientByXPlusB([0, B1, B2, B3], 4, b, 3);
+    throatA[0] = 0;
+    throatA[1] = 0;
+    throatA[2] = A2;
+    throatA[3] = A3;
+    throatA[4] = A4;
+    throatB[0] = 0;
+    throatB[1] = B1;
+    throatB[2] = B2;
+    throatB[3] = B3;
+    const aQ = quotientByXPlusB(throatA, 5, b, throatAQ);
+    const aQQ = quotientByXPlusB(aQ, 4, b, throatAQQ);
+    const bQ = quotientByXPlusB(throatB, 4, b, throatBQ);
     const bbRe = betaRe * (betaRe - 1) - betaIm * betaIm,
       bbIm = betaIm * (2 * betaRe - 1);
     // B̃: the x² and x³ coefficients change (A/(x+b) starts at x²)

@@ -124,7 +124,7 @@ export function twoSidedChecked(hole: KerrHole, plus: RadialMode, opts: Resolved
     // fromOffset given as the legs would compute it (r_sw − r+), so that every leg carries a number there (one shape)
     leg(
       plus,
-      radialEquation(hole, plus, hole.rPlus),
+      radialEquation(hole, plus, hole.rPlus, minusEquation),
       yPlus,
       rSwitch,
       matchPlus.r,
