@@ -1133,8 +1133,7 @@ export function riccatiStep(
     else at[0] = Math.exp(mid + half * rule.t[j]);
     if (!(real && localRealAt(e, l, false))) localAt(e, l, false, mirror);
     // one continuous branch of W along the interval
-    if (j > 0 && l[4] * prevWr + l[5] * prevWi < 0)
-      if (!(real && localRealAt(e, l, true))) localAt(e, l, true, mirror);
+    if (j > 0 && l[4] * prevWr + l[5] * prevWi < 0 && !(real && localRealAt(e, l, true))) localAt(e, l, true, mirror);
     prevWr = l[4];
     prevWi = l[5];
     pRe[j] = l[0];
