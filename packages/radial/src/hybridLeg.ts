@@ -152,15 +152,14 @@ const FAR_HALF = 0.5 * Math.log(FAR_RUNG);
 /** Bernstein ρ of a rung of FAR_RUNG with the singularity π straight above its middle: what RICCATI_NODES were measured to resolve. */
 const RHO_RESOLVED = Math.PI / FAR_HALF + Math.sqrt(1 + (Math.PI / FAR_HALF) ** 2);
 
-/** ρ of the Bernstein ellipse (foci ±1) through z = re + i im: |z ± √(z² − 1)|, the larger. */
+/**
+ * ρ of the Bernstein ellipse (foci ±1) through z = re + i im: its semi-axis sum ρ + 1/ρ is |z − 1| + |z + 1| (no
+ * complex square root: the ellipse tests of a massless leg run on every Riccati rung).
+ */
 function bernstein(re: number, im: number): number {
-  const ar = re * re - im * im - 1,
-    ai = 2 * re * im;
-  const mod = Math.sqrt(Math.sqrt(ar * ar + ai * ai));
-  const arg = 0.5 * Math.atan2(ai, ar);
-  const wr = mod * Math.cos(arg),
-    wi = mod * Math.sin(arg);
-  return Math.max(Math.hypot(re + wr, im + wi), Math.hypot(re - wr, im - wi));
+  const i2 = im * im;
+  const S = Math.sqrt((re - 1) * (re - 1) + i2) + Math.sqrt((re + 1) * (re + 1) + i2);
+  return 0.5 * (S + Math.sqrt(Math.max(0, S * S - 4)));
 }
 
 /**
