@@ -723,21 +723,35 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     record(to);
     return true;
   };
-  // ladder[a] → ladder[b] not by Riccati steps: by Taylor steps on a massless leg, from stop to stop in one stretch
-  // (rung by rung where that stretch cannot be made), by the integrator from the first rung where they cannot be made
-  // (and on a massive leg). One stretch across the ladder's points: no short last step at each (s = 1/2, l = 100.5,
-  // m = 50.5, a = 0.99, Mω = 1: x from 32 to 166, 628 → 608 terms; tail grid, CPU interleaved, 2.5 % less over all).
+  // A massless leg's Taylor stretches are not crossed at once but gathered end to end (`pending`: the first one's
+  // start, then each one's end) and crossed as one stretch (see flush) before anything else moves y (a Riccati step,
+  // the integrator), at a stop and at the leg's end: no short last step where one stretch ends and the next begins
+  // (s = 1/2, l = 100.5, m = 50.5, a = 0.99, Mω = 1: x from 41 to 166, three stretches of 580 terms → one of 540).
+  const pending: Point[] = [];
+  // the gathered stretches as one; where that cannot be made, one by one, and by the integrator from the first that
+  // cannot be made
+  const flush = () => {
+    if (pending.length === 0) return;
+    const p = pending.slice();
+    pending.length = 0;
+    const last = p.length - 1;
+    if (last > 1 && byTaylor(p[0], p[last])) return;
+    let k = 0;
+    while (k < last && byTaylor(p[k], p[k + 1])) k++;
+    if (k < last) byOde(p[k], p[last]);
+  };
+  const taylorLater = (from: Point, to: Point) => {
+    if (pending.length > 0 && pending[pending.length - 1].x !== from.x) flush();
+    if (pending.length === 0) pending.push(from);
+    pending.push(to);
+    if (leg.stops.includes(to.r)) flush();
+  };
+  // ladder[a] → ladder[b] not by Riccati steps: by Taylor steps on a massless leg (gathered, see flush), by the
+  // integrator on a massive leg. (One stretch across the ladder's points, tail grid, CPU interleaved: 2.5 % less
+  // over all.)
   const byStretch = (a: number, b: number) => {
-    let k = a;
-    if (!longRange)
-      while (k < b) {
-        let s = k + 1;
-        while (s < b && !leg.stops.includes(ladder[s].r)) s++;
-        if (s > k + 1 && byTaylor(ladder[k], ladder[s])) k = s;
-        else if (byTaylor(ladder[k], ladder[k + 1])) k++;
-        else break;
-      }
-    if (k < b) byOde(ladder[k], ladder[b]);
+    if (longRange) byOde(ladder[a], ladder[b]);
+    else for (let k = a; k < b; k++) taylorLater(ladder[k], ladder[k + 1]);
   };
   // One rung by a Riccati step; a rung that fails is halved (in ln x) up to MAX_SPLITS times before the
   // integrator takes it: near a turning point the branch point of W limits the resolution of a whole rung.
@@ -778,6 +792,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
         nodes = HORIZON_NODES;
       }
     }
+    if (!hopeless) flush();
     const step = hopeless
       ? FAILED
       : riccatiStep(e, from.x, to.x, y, leg.tol, scale, nodes, maxPasses, accept, conjugate, longRange);
@@ -796,7 +811,8 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       ) {
         byRiccati(from, mid, rateFrom, rateMid, depth + 1);
         byRiccati(mid, to, rateMid, rateTo, depth + 1);
-      } else if (longRange || !byTaylor(from, to)) byOde(from, to);
+      } else if (longRange) byOde(from, to);
+      else taylorLater(from, to);
       return false;
     }
     steps++;
@@ -876,7 +892,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
         rateTo = to === ladder[j] ? rates[j] : phaseRate(e, to.x);
       }
       if (j > i && rungPhase(from, to, rateFrom, rateTo) > MASSLESS_MIN_PHASE) {
-        if (from !== ladder[i] && !byTaylor(ladder[i], from)) byOde(ladder[i], from);
+        if (from !== ladder[i]) taylorLater(ladder[i], from);
         for (;;) {
           byRiccati(from, to, rateFrom, rateTo, 0);
           if (to === ladder[j]) break;
@@ -921,7 +937,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
           to = next >= ub - 1e-9 ? ladder[j] : { x: Math.exp(next), r: rPlus + Math.exp(next) };
           rateTo = to === ladder[j] ? rates[j] : phaseRate(e, to.x);
           if (!(rungPhase(from, to, rateFrom, rateTo) > RECUT_MIN_PHASE)) {
-            if (!byTaylor(from, ladder[j])) byOde(from, ladder[j]);
+            taylorLater(from, ladder[j]);
             break;
           }
         }
@@ -943,5 +959,6 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     } else if (!byRiccati(ladder[i], ladder[i + 1], rates[i], rates[i + 1], 0)) halveRest = true;
     i++;
   }
+  flush();
   return { logScale, steps, errorSum, rescalings, samples, raw, riccatiSteps, riccatiExtraCharge };
 }
