@@ -332,12 +332,12 @@ const RHO_FAIL = 6.5;
  * their ellipse through the nearest branch point of W (or r−) keeps this ρ, at most RUNG. The ladder's rungs there
  * were made in halves (x from 1 to 32 in five Riccati steps on s = 1/2, l = 100.5, m = 50.5, a = 0.99, Mω = 1),
  * where such rungs take four (x from 1 to 41). Measured on the l = 75 and 100, a = 0.99, Mω = 1, m ≈ l/2 modes of
- * the tail grid (all spins, CPU interleaved): against ρ = 7 3.5 % less CPU time, against 8 0.5 %; at 7 a third of the
- * first rungs of 4 failed.
+ * the tail grid (all spins, CPU interleaved): 6 % less CPU time than with ρ = 7 (longer rungs that failed and were
+ * halved), 0.6 % less than with 8.
  */
 const RHO_RECUT = 7.5;
 
-/** Least phase ∫|W|/2 du (radians) of a recut rung (see RHO_RECUT); below it Taylor steps cross the rest of the run (measured against 36 and 54 on the same modes: within 0.5 %). */
+/** Least phase ∫|W|/2 du (radians) of a recut rung (see RHO_RECUT); below it Taylor steps cross the rest of the run (36 and 54 measured within 0.5 % on the same modes, 60 2 % slower). */
 const RECUT_MIN_PHASE = 45;
 
 /**
@@ -346,8 +346,9 @@ const RECUT_MIN_PHASE = 45;
  * (ρ ≥ 4.18): tried whole at these nodes before it is halved. The two halves of such a rung (x from 0.035 to 0.141
  * on s = 1/2, l = 100.5, a = 0.99, Mω = 1, up to the inner turning point at x = 0.34) took 4 and 7 passes at 16
  * nodes, 10.2 µs; whole at 22 nodes it takes 7 passes, 9.3 µs. On the tail grid and 300 random modes (l < 100,
- * Mω ≤ 30) 18 such steps were made and 3 failed (and were halved); at 24 nodes (ρ ≥ 3.8) 114 were made and 57
- * failed, and rungs elsewhere on the leg failed as often.
+ * Mω ≤ 30) 18 such steps were made and 3 failed (and were halved); 24 nodes on any refused rung of a leg whose
+ * nearest branch point is real made 114 steps and failed 57 (the cells l = 50, Mω = 1 and l = 100, Mω = 10 3–7 %
+ * slower).
  */
 const HORIZON_NODES = 22;
 
@@ -726,7 +727,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   // A massless leg's Taylor stretches are not crossed at once but gathered end to end (`pending`: the first one's
   // start, then each one's end) and crossed as one stretch (see flush) before anything else moves y (a Riccati step,
   // the integrator), at a stop and at the leg's end: no short last step where one stretch ends and the next begins
-  // (s = 1/2, l = 100.5, m = 50.5, a = 0.99, Mω = 1: x from 41 to 166, three stretches of 580 terms → one of 540).
+  // (s = 1/2, l = 100.5, m = 50.5, a = 0.99, Mω = 1: x from 41 to 166, three stretches of 580 terms → one of 564).
   const pending: Point[] = [];
   // the gathered stretches as one; where that cannot be made, one by one, and by the integrator from the first that
   // cannot be made
@@ -747,8 +748,8 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     if (leg.stops.includes(to.r)) flush();
   };
   // ladder[a] → ladder[b] not by Riccati steps: by Taylor steps on a massless leg (gathered, see flush), by the
-  // integrator on a massive leg. (One stretch across the ladder's points, tail grid, CPU interleaved: 2.5 % less
-  // over all.)
+  // integrator on a massive leg. (One stretch from stop to stop rather than rung by rung: 2.5 % less CPU over the
+  // tail grid, interleaved.)
   const byStretch = (a: number, b: number) => {
     if (longRange) byOde(ladder[a], ladder[b]);
     else for (let k = a; k < b; k++) taylorLater(ladder[k], ladder[k + 1]);
