@@ -389,29 +389,31 @@ function largestCubicRoot(b: number, c: number, d: number): number {
   return t - b / 3;
 }
 
-/** ρ of the Bernstein ellipse of the rung [ua, ub] (in u = ln x) through the nearest of `points` ((U, V) pairs). */
-function rungRho(ua: number, ub: number, points: readonly number[]): number {
+/** ρ of the Bernstein ellipse of the rung [ua, ub] (in u = ln x) through the point U + iV. */
+function pointRho(ua: number, ub: number, U: number, V: number): number {
   const h = 0.5 * (ub - ua),
     mid = 0.5 * (ua + ub);
-  let rho = Number.POSITIVE_INFINITY;
-  for (let k = 0; k < points.length; k += 2) rho = Math.min(rho, bernstein((points[k] - mid) / h, points[k + 1] / h));
-  return rho;
+  return bernstein((U - mid) / h, V / h);
 }
 
-/** Whether the nearest of `points` ((U, V) pairs) to the rung [ua, ub] in the sense of rungRho is on the real axis. */
-function nearestIsReal(ua: number, ub: number, points: readonly number[]): boolean {
-  const h = 0.5 * (ub - ua),
-    mid = 0.5 * (ua + ub);
+/** The index k of the nearest of `points` ((U, V) pairs at k, k + 1) to the rung [ua, ub]: the least pointRho; −1 for none. */
+function nearestPoint(ua: number, ub: number, points: readonly number[]): number {
   let rho = Number.POSITIVE_INFINITY,
-    real = false;
+    nearest = -1;
   for (let k = 0; k < points.length; k += 2) {
-    const r = bernstein((points[k] - mid) / h, points[k + 1] / h);
+    const r = pointRho(ua, ub, points[k], points[k + 1]);
     if (r < rho) {
       rho = r;
-      real = points[k + 1] === 0;
+      nearest = k;
     }
   }
-  return real;
+  return nearest;
+}
+
+/** ρ of the Bernstein ellipse of the rung [ua, ub] (in u = ln x) through the nearest of `points` ((U, V) pairs). */
+function rungRho(ua: number, ub: number, points: readonly number[]): number {
+  const k = nearestPoint(ua, ub, points);
+  return k < 0 ? Number.POSITIVE_INFINITY : pointRho(ua, ub, points[k], points[k + 1]);
 }
 
 /** Whether a real branch point of W ((U, V) pairs, V = 0) lies below u: a rung beyond an inner turning point. */
@@ -797,6 +799,8 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
   const branchOf = () => (branch ??= branchPoints(hole, leg.mode));
   // the branch points and r− (π off the axis), against which recut rungs are laid out (see RHO_RECUT)
   let recutPoints: number[] | undefined;
+  const recutPointsOf = () =>
+    (recutPoints ??= branchOf().concat(rPlus > hole.rMinus ? [Math.log(rPlus - hole.rMinus), Math.PI] : []));
   // true where the step was made whole (not halved, nor given to Taylor steps or the integrator)
   // (`nodes`: the step's node count; `long`: a rung of a far zone cut with LONG_FAR_RUNG)
   const byRiccati = (
@@ -812,14 +816,19 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     // but a leg's first rung that more nodes resolve is (see HORIZON_NODES)
     let hopeless = false;
     if (!longRange) {
-      const rho = rungRho(Math.log(from.x), Math.log(to.x), branchOf());
+      const ua = Math.log(from.x),
+        ub = Math.log(to.x),
+        points = branchOf();
+      const k = nearestPoint(ua, ub, points);
+      const rho = k < 0 ? Number.POSITIVE_INFINITY : pointRho(ua, ub, points[k], points[k + 1]);
       hopeless = rho < RHO_FAIL;
+      // (the nearest branch point a real turning point)
       if (
         hopeless &&
         depth === 0 &&
         from === ladder[0] &&
         rho ** HORIZON_NODES >= RHO_RESOLVED ** RICCATI_NODES &&
-        nearestIsReal(Math.log(from.x), Math.log(to.x), branchOf())
+        points[k + 1] === 0
       ) {
         hopeless = false;
         nodes = HORIZON_NODES;
@@ -866,6 +875,17 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     record(to);
     return true;
   };
+  // the end of the run of Riccati rungs from ladder[i] (good[i]): the next stop, or the next rung not good
+  const runEnd = (i: number): number => {
+    let j = i;
+    while (j < good.length && good[j] && (j === i || !leg.stops.includes(ladder[j].r))) j++;
+    return j;
+  };
+  // the end of a recut rung at u = next, in a run that ends at ladder[j] (u = ub): that ladder point where it reaches it
+  const rungEnd = (next: number, ub: number, j: number): Point =>
+    next >= ub - 1e-9 ? ladder[j] : { x: Math.exp(next), r: rPlus + Math.exp(next) };
+  // the phase rate at a rung's end p (the ladder's where p is ladder[j])
+  const rateAt = (p: Point, j: number): number => (p === ladder[j] ? rates[j] : phaseRate(e, p.x));
   let i = 0;
   while (i < good.length) {
     if (!good[i]) {
@@ -877,8 +897,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     }
     if (longRange) {
       // a massive far zone: the run of Riccati rungs up to the next stop, recut into rungs of up to FAR_RUNG (or LONG_FAR_RUNG)
-      let j = i + 1;
-      while (j < good.length && good[j] && !leg.stops.includes(ladder[j].r)) j++;
+      const j = runEnd(i);
       const ua = Math.log(ladder[i].x),
         ub = Math.log(ladder[j].x);
       let count = Math.ceil((ub - ua) / Math.log(FAR_RUNG) - 1e-9);
@@ -903,8 +922,7 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
     // a massless far zone: from a ladder point beyond the outer turning point, the run of Riccati rungs (up to the
     // next stop) recut into rungs as long as RICCATI_NODES resolve (see masslessFarRung)
     if (!longRange && ladder[i].x > turning().modulus) {
-      let j = i;
-      while (j < good.length && good[j] && (j === i || !leg.stops.includes(ladder[j].r))) j++;
+      const j = runEnd(i);
       const uTurn = Math.log(turning().modulus),
         vTurn = turning().arg,
         ub = Math.log(ladder[j].x);
@@ -912,8 +930,8 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
         rateFrom = rates[i],
         u = Math.log(from.x);
       let next = u + masslessFarRung(u - uTurn, vTurn);
-      let to = next >= ub - 1e-9 ? ladder[j] : { x: Math.exp(next), r: rPlus + Math.exp(next) };
-      let rateTo = to === ladder[j] ? rates[j] : phaseRate(e, to.x);
+      let to = rungEnd(next, ub, j);
+      let rateTo = rateAt(to, j);
       // a first rung too close to the turning point to hold MASSLESS_MIN_PHASE: the zone starts farther out, where
       // one does, and Taylor steps cross the stretch before it (or the ladder keeps the run where none does)
       while (j > i && !(rungPhase(from, to, rateFrom, rateTo) > MASSLESS_MIN_PHASE) && next < ub - 1e-9) {
@@ -921,8 +939,8 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
         from = { x: Math.exp(u), r: rPlus + Math.exp(u) };
         rateFrom = phaseRate(e, from.x);
         next = u + masslessFarRung(u - uTurn, vTurn);
-        to = next >= ub - 1e-9 ? ladder[j] : { x: Math.exp(next), r: rPlus + Math.exp(next) };
-        rateTo = to === ladder[j] ? rates[j] : phaseRate(e, to.x);
+        to = rungEnd(next, ub, j);
+        rateTo = rateAt(to, j);
       }
       if (j > i && rungPhase(from, to, rateFrom, rateTo) > MASSLESS_MIN_PHASE) {
         if (from !== ladder[i]) taylorLater(ladder[i], from);
@@ -933,8 +951,8 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
           rateFrom = rateTo;
           u = next;
           next = u + masslessFarRung(u - uTurn, vTurn);
-          to = next >= ub - 1e-9 ? ladder[j] : { x: Math.exp(next), r: rPlus + Math.exp(next) };
-          rateTo = to === ladder[j] ? rates[j] : phaseRate(e, to.x);
+          to = rungEnd(next, ub, j);
+          rateTo = rateAt(to, j);
         }
         i = j;
         continue;
@@ -950,16 +968,14 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
       (halveRest || rungRho(Math.log(ladder[i].x), Math.log(ladder[i + 1].x), branchOf()) < RHO_FAIL) &&
       realBranchPointBelow(Math.log(ladder[i].x), branchOf())
     ) {
-      let j = i;
-      while (j < good.length && good[j] && (j === i || !leg.stops.includes(ladder[j].r))) j++;
-      const points = recutPoints ?? branchOf().concat(rPlus > hole.rMinus ? [Math.log(rPlus - hole.rMinus), Math.PI] : []);
-      recutPoints = points;
+      const j = runEnd(i);
+      const points = recutPointsOf();
       const ub = Math.log(ladder[j].x);
       let from = ladder[i],
         rateFrom = rates[i],
         next = recutReach(Math.log(from.x), ub, points);
-      let to = next >= ub - 1e-9 ? ladder[j] : { x: Math.exp(next), r: rPlus + Math.exp(next) };
-      let rateTo = to === ladder[j] ? rates[j] : phaseRate(e, to.x);
+      let to = rungEnd(next, ub, j);
+      let rateTo = rateAt(to, j);
       if (rungPhase(from, to, rateFrom, rateTo) > RECUT_MIN_PHASE) {
         for (;;) {
           byRiccati(from, to, rateFrom, rateTo, 0);
@@ -967,8 +983,8 @@ export function integrateHybridLeg(leg: Leg, oscillation: Oscillation): HybridSe
           from = to;
           rateFrom = rateTo;
           next = recutReach(next, ub, points);
-          to = next >= ub - 1e-9 ? ladder[j] : { x: Math.exp(next), r: rPlus + Math.exp(next) };
-          rateTo = to === ladder[j] ? rates[j] : phaseRate(e, to.x);
+          to = rungEnd(next, ub, j);
+          rateTo = rateAt(to, j);
           if (!(rungPhase(from, to, rateFrom, rateTo) > RECUT_MIN_PHASE)) {
             taylorLater(from, ladder[j]);
             break;
